@@ -1,0 +1,195 @@
+"""The `bracing` command: panel, check, schema (and the site, schedule and interface commands).
+
+Validation lives here and in the model: bad input exits with code 2 and a message naming the
+file, item and field; never a traceback.
+"""
+
+from __future__ import annotations
+
+import argparse
+import json
+import sys
+
+from pydantic import ValidationError
+
+from bracing import scenario
+from bracing.evaluate import evaluate
+from bracing.model import Site
+from bracing.report import json_view, text
+
+EXIT_BAD_INPUT = 2
+EXIT_FAILING = 1
+
+# `bracing panel` flag -> (path in the one-panel site, how the value is stored)
+PANEL_FLAGS = {
+    "height": ("panels.0.height",), "width": ("panels.0.width",),
+    "thickness": ("panels.0.thickness",), "unit_weight": ("materials.wall.unit_weight",),
+    "face_weight": ("materials.wall.face_weight",), "opening_area": ("panels.0.opening_area",),
+    "wind": ("site.basic_wind_speed",), "exposure": ("site.exposure",),
+    "duration": ("panels.0.standing_time",), "period_factor": ("site.period_factor",),
+    "kzt": ("site.topographic_factor",), "ground_elevation": ("site.ground_elevation",),
+    "footing_width": ("panels.0.footing.width",),
+    "footing_thickness": ("panels.0.footing.thickness",),
+    "limit_speed": ("site.limit_speed",), "basis": ("site.design_basis",),
+    "mortar_age": ("panels.0.mortar_age",),
+}
+DEFAULT_WEIGHT = {"concrete": {"unit_weight": "150 pcf"},  # ASCE 7 Table C3.1-2 (from memory)
+                  "masonry": {"face_weight": "36 psf"},    # 8 in hollow CMU, HUD RSDG Table 3.2
+                  "framed": {"face_weight": "6 psf"}}      # 2x4 sheathed wall, HUD RSDG Table 3.2
+
+
+class BadInput(Exception):
+    """Input that cannot be used; the message names where it came from."""
+
+
+def main(argv: list[str] | None = None) -> int:
+    parser = build_parser()
+    args = parser.parse_args(argv)
+    try:
+        return args.run(args)
+    except BadInput as exc:
+        print(f"bracing: {exc}", file=sys.stderr)
+        return EXIT_BAD_INPUT
+    except scenario.SiteFileError as exc:
+        print(f"bracing: {len(exc.problems)} problem(s) in {exc.path}:", file=sys.stderr)
+        for problem in exc.problems:
+            print(f"  {problem}", file=sys.stderr)
+        return EXIT_BAD_INPUT
+
+
+def build_parser() -> argparse.ArgumentParser:
+    parser = argparse.ArgumentParser(
+        prog="bracing",
+        description="Plan and check the temporary bracing of walls standing before their "
+                    "diaphragm exists. A planning aid: a qualified person designs and approves "
+                    "the bracing.")
+    commands = parser.add_subparsers(dest="command", required=True)
+
+    panel = commands.add_parser("panel", help="quick check of one wall standing alone")
+    add = panel.add_argument
+    add("--height", required=True, help="wall height, e.g. 30ft (bare number: ft)")
+    add("--width", required=True, help="wall length along the wind, e.g. 24ft (ft)")
+    add("--thickness", required=True, help="e.g. 7.25in (bare number: in)")
+    add("--material", choices=["concrete", "masonry", "framed"], default="concrete")
+    weight = panel.add_mutually_exclusive_group()
+    weight.add_argument("--unit-weight", help="e.g. 150pcf (pcf)")
+    weight.add_argument("--face-weight", help="weight per face area, e.g. 36psf (psf)")
+    add("--opening-area", help="openings by area, e.g. 96ft^2 (ft^2)")
+    add("--wind", required=True, help="basic wind speed, e.g. 115mph (mph)")
+    add("--exposure", default="C", help="B, C or D (default C)")
+    period = panel.add_mutually_exclusive_group()
+    period.add_argument("--duration", help="standing time, e.g. 5weeks (weeks)")
+    period.add_argument("--period-factor", help="ASCE 37-14 factor set directly")
+    add("--kzt", default="1.0", help="topographic factor (default 1.0)")
+    add("--ground-elevation", help="site elevation for Ke, e.g. 2000ft (ft)")
+    add("--footing-width", help="footing width across the wall (ft)")
+    add("--footing-thickness", help="footing depth (ft)")
+    add("--mortar-age", help="masonry mortar age, e.g. 3days (days)")
+    add("--braces", type=int, help="number of braces (checked with the braces module)")
+    add("--insert-height", help="brace insert height (ft)")
+    angle = panel.add_mutually_exclusive_group()
+    angle.add_argument("--brace-angle", help="brace angle from horizontal (deg)")
+    angle.add_argument("--anchor-distance", help="brace foot distance from the wall face (ft)")
+    add("--brace-capacity", help="allowable brace load (lb)")
+    add("--limit-speed", help="observed gust limit for the unbraced height, e.g. 20mph (mph)")
+    add("--stand-down-ratio", help="stand-down speed / working-limit speed (default 0.8)")
+    add("--basis", choices=["ASD", "LRFD"], default="ASD")
+    _output_options(panel)
+    panel.set_defaults(run=run_panel)
+
+    check = commands.add_parser("check", help="check every wall of a site file")
+    check.add_argument("site", help="site file (TOML)")
+    _output_options(check)
+    check.set_defaults(run=run_check)
+
+    schema = commands.add_parser("schema", help="print the JSON schema of the site file")
+    schema.set_defaults(run=run_schema)
+    return parser
+
+
+def _output_options(p: argparse.ArgumentParser) -> None:
+    p.add_argument("--json", action="store_true", help="print one JSON object")
+    p.add_argument("--units", choices=["us", "si"], default="us", help="text output units")
+
+
+def panel_site(args) -> dict:
+    """The one-wall site that `bracing panel` checks, built from its flags."""
+    material = {"kind": args.material}
+    if not (args.unit_weight or args.face_weight):
+        material.update(DEFAULT_WEIGHT[args.material])
+    site: dict = {
+        "version": 1,
+        "site": {"name": "quick check", "basic_wind_speed": args.wind},
+        "materials": {"wall": material},
+        "panels": [{"mark": "wall", "material": "wall"}],
+    }
+    for flag, (path,) in PANEL_FLAGS.items():
+        value = getattr(args, flag, None)
+        if value is None:
+            continue
+        node = site
+        *parents, leaf = path.split(".")
+        for key in parents:
+            node = node[int(key)] if key.isdigit() else node.setdefault(key, {})
+        node[leaf] = _number_or_text(value)
+    if args.stand_down_ratio is not None:
+        site["rules"] = {"stand_down_ratio": {
+            "value": _number_or_text(args.stand_down_ratio),
+            "source": "set on the command line", "basis": "stand-down / working-limit speed"}}
+    return site
+
+
+def _number_or_text(value: str):
+    try:
+        return float(value)
+    except ValueError:
+        return value
+
+
+def run_panel(args) -> int:
+    data = panel_site(args)
+    try:
+        site = Site.model_validate(data)
+    except ValidationError as exc:
+        raise BadInput("; ".join(_flag_problem(e) for e in exc.errors())) from None
+    result = evaluate(site)
+    p = result.panels[0]
+    if args.json:
+        print(json_view.dumps(json_view.panel_record(p, result.basis, result.caution)))
+    else:
+        print("\n".join([result.caution, ""] + result.basis_statement + [""]
+                        + text.panel_text(p, args.units) + ["", result.caution]))
+    return 0
+
+
+def _flag_problem(err: dict) -> str:
+    """Name the command-line flag behind a validation error."""
+    loc = ".".join(str(p) for p in err["loc"])
+    flag = next((f for f, (path,) in PANEL_FLAGS.items() if path == loc), None)
+    if flag is None and loc.startswith("rules.stand_down_ratio"):
+        flag = "stand_down_ratio"
+    name = f"--{flag.replace('_', '-')}" if flag else loc or "input"
+    message = err["msg"].removeprefix("Value error, ")
+    got = err.get("input")
+    shown = f" (got {got!r})" if isinstance(got, (str, int, float)) else ""
+    return f"{name}: {message}{shown}"
+
+
+def run_check(args) -> int:
+    site_file = scenario.load(args.site)
+    result = evaluate(site_file.site)
+    if args.json:
+        print(json_view.dumps(json_view.site_record(result)))
+    else:
+        print(text.site_text(result, args.units))
+    return 0
+
+
+def run_schema(args) -> int:
+    print(json.dumps(Site.model_json_schema(), indent=2))
+    return 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())
+

@@ -1,0 +1,449 @@
+"""evaluate(site) -> SiteResult: the whole site in one vectorised pass (design.md §2, §9).
+
+The walls are gathered into numpy arrays once; the wind and stability formulas run over all of
+them together, for the design wind, for observed gusts (working-limit speed) and for trial heights
+(maximum unbraced height). Only the final step builds per-wall result objects.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, replace
+
+import numpy as np
+
+from bracing import stability
+from bracing.model import Site
+from bracing.results import Check, Flag, PanelResult, SiteResult, UnbracedResult, WindResult
+from bracing.wind import asce7, asce37, gusts
+
+STUD_SOLIDITY = 1.5 / 16.0  # open framing: 1.5 in studs at 16 in on centre (common practice)
+SPEED_BRACKET_MPH = (0.0, 400.0)
+HEIGHT_BRACKET_FT = (0.01, 300.0)
+
+
+@dataclass(frozen=True)
+class Factors:
+    """Load factors of one combination (ASCE 7-16 §2.3.1 / §2.4.1) and their names."""
+
+    dead_resists: float
+    dead_adds: float
+    wind: float
+    resisting: str
+    adding: str
+    wind_only: str
+
+
+COMBINATIONS = {
+    "ASD": Factors(0.6, 1.0, 0.6, "0.6D + 0.6W", "D + 0.6W", "0.6W"),  # ASCE 7-16 §2.4.1
+    "LRFD": Factors(0.9, 1.2, 1.0, "0.9D + 1.0W", "1.2D + 1.0W", "1.0W"),  # ASCE 7-16 §2.3.1
+}
+# The observed wind as a service load (design.md §3): 1.0W, 0.6D where dead load resists.
+SERVICE = Factors(0.6, 1.0, 1.0, "0.6D + 1.0W (observed gust)", "D + 1.0W (observed gust)",
+                  "1.0W (observed gust)")
+
+
+@dataclass(frozen=True)
+class Walls:
+    """Every wall of a site as arrays (one entry per panel)."""
+
+    height: np.ndarray          # s, ft
+    width: np.ndarray           # B, ft
+    thickness_ft: np.ndarray
+    base: np.ndarray            # base above grade, ft
+    face_weight: np.ndarray     # psf of wall face
+    solidity: np.ndarray
+    centroid_ratio: np.ndarray  # solid area centroid height / s
+    rigid: np.ndarray           # bool: concrete panel checked as a whole
+    fresh: np.ndarray           # bool: masonry with uncured mortar (weight only)
+    masonry: np.ndarray
+    framed: np.ndarray
+    flex_tension: np.ndarray    # psi, 0 where not credited
+    section: np.ndarray         # in^3 per ft of bed joint
+    section_area: np.ndarray    # in^2 per ft
+    return_left: np.ndarray     # Lr/s at each end
+    return_right: np.ndarray
+    footing_width: np.ndarray   # NaN where none
+    footing_thickness: np.ndarray
+    footing_psf: np.ndarray     # footing weight per ft^2 of plan (incl. soil over it)
+    bearing: np.ndarray         # allowable psf
+    footing_mu: np.ndarray
+    base_mu: np.ndarray
+    period_factor: np.ndarray
+    exposure: str
+    kzt: float
+    ke: float
+
+    @property
+    def has_footing(self) -> np.ndarray:
+        return ~np.isnan(self.footing_width)
+
+    def at_height(self, height: np.ndarray) -> Walls:
+        """The same walls at trial heights (openings kept as the same share and centroid ratio)."""
+        return replace(self, height=height)
+
+
+def gather(site: Site) -> Walls:
+    """Read the site's walls into arrays (the only per-wall Python loop before the results)."""
+    rows = []
+    cure_days = site.rule_value("masonry_cure_days") or 0.0
+    for p in site.panels:
+        mat = site.materials[p.material]
+        t_ft = p.thickness / 12.0
+        face = (p.face_weight or (p.unit_weight * t_ft if p.unit_weight else None)
+                or mat.face_weight or mat.unit_weight * t_ft)
+        opens = [(o.x, o.y, o.width, o.height) for o in p.openings]
+        solid, centroid = stability.rectangle_centroid(p.width, p.height, opens)
+        solid -= p.opening_area or 0.0
+        solidity = solid / (p.width * p.height)
+        if mat.kind == "framed" and not mat.sheathed:
+            solidity = STUD_SOLIDITY
+        masonry = mat.kind == "masonry"
+        cured = masonry and p.mortar_age is not None and p.mortar_age >= cure_days
+        grouting = "grouted" if mat.grouting == "solid" and mat.unit_weight is None else (
+            "hollow" if mat.grouting == "partly" else mat.grouting)
+        tension = mat.flexural_tension
+        if tension is None and masonry:
+            tension = stability.FLEXURAL_TENSION_PSI[(grouting, mat.mortar)]
+        s_in3, a_in2 = stability.masonry_section(p.thickness, "hollow" if grouting == "hollow"
+                                                 else "solid")
+        f = p.footing
+        returns = {r.end: r.length / p.height for r in p.return_walls}
+        weeks = p.standing_time or site.site.construction_period
+        rows.append((
+            p.height, p.width, t_ft, p.base_elevation, face, solidity, centroid / p.height,
+            mat.kind == "concrete", masonry and not cured, masonry, mat.kind == "framed",
+            tension if cured else 0.0, float(s_in3), float(a_in2),
+            returns.get("left", 0.0), returns.get("right", 0.0),
+            f.width if f else np.nan, f.thickness if f else np.nan,
+            (f.unit_weight * f.thickness + f.soil_unit_weight * f.soil_depth) if f else np.nan,
+            f.allowable_bearing if f else np.nan, f.friction_coefficient if f else np.nan,
+            site.site.friction_coefficient,
+            site.site.period_factor or float(asce37.period_factor(weeks)),
+        ))
+    cols = [np.array(c) for c in zip(*rows)]
+    return Walls(*cols, exposure=site.site.exposure, kzt=site.site.topographic_factor,
+                 ke=float(asce7.ke(site.site.ground_elevation)))
+
+
+@dataclass(frozen=True)
+class Wind:
+    """Wind on every wall at one speed: pressures, coefficients and forces (arrays)."""
+
+    kz: np.ndarray
+    q: np.ndarray
+    cf_case_a: np.ndarray       # Case A/B coefficient with openings
+    opening: np.ndarray
+    cf_whole: np.ndarray        # governing whole-panel coefficient (A/B or Case C summed)
+    area: np.ndarray            # the area the coefficient applies to
+    force_a: np.ndarray         # Case A force, lb
+    force: np.ndarray           # governing whole-panel force, lb
+    cf_end: np.ndarray          # per-foot coefficients of a solid strip
+    cf_interior: np.ndarray
+    line_end: np.ndarray        # per-foot forces, plf
+    line_interior: np.ndarray
+    lever: np.ndarray           # resultant height above the wall's base, ft
+    lever_strip: np.ndarray
+    minimum_governs: np.ndarray
+
+
+def wind_on(w: Walls, speed, kd: float, minimum_psf: float | None) -> Wind:
+    """The wind on each wall at `speed` (ASCE 7-16 §29.3); `minimum_psf` for design wind only."""
+    s = w.height
+    top = w.base + s
+    s_over_h = s / top
+    b_over_s = w.width / s
+    kz = asce7.kz(top, w.exposure)
+    q = asce7.velocity_pressure(speed, kz, w.kzt, kd, w.ke)  # ASCE 7-16 Eq. 26.10-1
+    g = asce7.GUST_FACTOR
+    solid = w.solidity >= 0.7  # Figure 29.3-1 note 3; below 0.7 the wall is open
+    opening = np.where(solid, asce7.opening_factor(np.minimum(w.solidity, 1.0)), 1.0)
+    cf_ab = asce7.cf_cases_ab(b_over_s, s_over_h)
+    case_c = np.where(b_over_s >= 2.0, asce7.case_c_mean(0.0, b_over_s, b_over_s, s_over_h)[0], 0.0)
+    cf_open = asce7.cf_open(w.solidity)
+    cf_case_a = np.where(solid, cf_ab * opening, cf_open)
+    cf_whole = np.where(solid, np.maximum(cf_ab, case_c) * opening, cf_open)
+    gross = w.width * s
+    area = np.where(solid, gross, gross * w.solidity)  # open walls: Cf on the solid area
+    floor = 0.0 if minimum_psf is None else minimum_psf * gross  # ASCE 7-16 §29.7
+    force_a = np.maximum(q * g * cf_case_a * area, floor)  # ASCE 7-16 Eq. 29.3-1
+    force = np.maximum(q * g * cf_whole * area, floor)
+    cf_end, cf_interior = strip_coefficients(w, b_over_s, s_over_h, cf_ab, solid, cf_open)
+    strip_floor = 0.0 if minimum_psf is None else minimum_psf * s
+    line_end = np.maximum(q * g * cf_end * s, strip_floor)
+    line_interior = np.maximum(q * g * cf_interior * s, strip_floor)
+    ratio = asce7.resultant_height_ratio(s_over_h)
+    # Figure 29.3-1: the resultant 0.05 h above the geometric centre where s/h = 1.
+    lever = s * (w.centroid_ratio + (ratio - 0.5))
+    return Wind(kz, q, cf_case_a, opening, cf_whole, area, force_a, force, cf_end, cf_interior,
+                line_end, line_interior, lever, s * ratio,
+                (q * g * cf_whole * area) < floor)
+
+
+def strip_coefficients(w: Walls, b_over_s, s_over_h, cf_ab, solid, cf_open):
+    """Per-foot coefficients of a wall built in place: its end zone and its interior (§5).
+
+    End zone: Case C within s of either end (each end's return wall reduces its own).
+    Interior: the worst beyond s from both ends, wind from either end. Never below Cases A/B.
+    """
+    has_c = b_over_s >= 2.0
+    left = asce7.case_c_cf(0.5, b_over_s, s_over_h, w.return_left)
+    right = asce7.case_c_cf(0.5, b_over_s, s_over_h, w.return_right)
+    end = np.where(has_c, np.maximum(left, right), cf_ab)
+    x = 1.0 + np.linspace(0.0, 1.0, 33)[:, None] * np.maximum(b_over_s - 2.0, 0.0)
+    inner = np.maximum(asce7.case_c_cf(x, b_over_s, s_over_h), asce7.case_c_cf(
+        b_over_s - x, b_over_s, s_over_h)).max(axis=0)
+    interior = np.where(b_over_s > 2.0, inner, end)
+    end = np.where(solid, np.maximum(end, cf_ab), cf_open)
+    interior = np.where(solid, np.maximum(interior, cf_ab), cf_open)
+    return end, interior
+
+
+def stability_checks(w: Walls, wind: Wind, f: Factors) -> dict[str, tuple[np.ndarray, np.ndarray]]:
+    """Demand and capacity of every check of a wall on its own, per name (arrays, NaN = n/a).
+
+    Rigid panels as a whole; walls built in place per foot, end zone and interior (§5).
+    """
+    t, s, b = w.thickness_ft, w.height, w.width
+    dead = w.face_weight * s * b * w.solidity
+    dead_strip = w.face_weight * s
+    ftg = w.has_footing
+    ftg_w = np.where(ftg, w.footing_width, 0.0)
+    ftg_d = np.where(ftg, w.footing_thickness, 0.0)
+    ftg_strip = np.where(ftg, w.footing_psf * ftg_w, 0.0)  # lb per ft of wall
+    rigid = w.rigid
+    na = np.nan
+    checks: dict[str, tuple[np.ndarray, np.ndarray]] = {}
+
+    # Overturning of the wall about its leeward base edge (statics).
+    checks["overturning|whole panel"] = (
+        np.where(rigid, f.wind * wind.force * wind.lever, na),
+        np.where(rigid, f.dead_resists * stability.rocking_resistance(dead, t), na))
+    for region, line in (("end zone", wind.line_end), ("interior", wind.line_interior)):
+        rocking = stability.rocking_resistance(f.dead_resists * dead_strip, t)
+        flexure = stability.masonry_flexural_capacity(
+            w.flex_tension, w.section, w.section_area, f.dead_resists * dead_strip)
+        capacity = np.where(w.masonry & ~w.fresh, np.maximum(rocking, flexure), rocking)
+        checks[f"overturning|{region}"] = (
+            np.where(rigid, na, f.wind * line * wind.lever_strip), np.where(rigid, na, capacity))
+        # Footing and wall as one block about the footing's toe, and the soil under it.
+        checks[f"footing overturning|{region}"] = (
+            np.where(ftg & ~rigid, f.wind * line * (wind.lever_strip + ftg_d), na),
+            np.where(ftg & ~rigid, stability.footing_resistance(
+                f.dead_resists * (dead_strip + ftg_strip), ftg_w), na))
+        bearing = stability.max_soil_pressure(
+            f.dead_adds * (dead_strip + ftg_strip), f.wind * line * (wind.lever_strip + ftg_d),
+            np.where(ftg, ftg_w, 1.0), 1.0)
+        checks[f"soil bearing|{region}"] = (np.where(ftg & ~rigid, bearing, na),
+                                           np.where(ftg & ~rigid, w.bearing, na))
+    ftg_panel = ftg_strip * b
+    checks["footing overturning|whole panel"] = (
+        np.where(ftg & rigid, f.wind * wind.force * (wind.lever + ftg_d), na),
+        np.where(ftg & rigid, stability.footing_resistance(
+            f.dead_resists * (dead + ftg_panel), ftg_w), na))
+    checks["soil bearing|whole panel"] = (
+        np.where(ftg & rigid, stability.max_soil_pressure(
+            f.dead_adds * (dead + ftg_panel), f.wind * wind.force * (wind.lever + ftg_d),
+            np.where(ftg, ftg_w, 1.0), b), na),
+        np.where(ftg & rigid, w.bearing, na))
+    # Sliding on the base (friction, 0.6D resisting) and of the footing on soil; walls built in
+    # place per foot of their end zone.
+    push = np.where(rigid, wind.force, wind.line_end)
+    weight = np.where(rigid, dead, dead_strip)
+    footing_weight = np.where(rigid, ftg_panel, ftg_strip)
+    # A framed wall's sill is nailed or bolted down: that connection is the framer's, not friction.
+    slides = ~w.framed
+    checks["sliding at base|*"] = (np.where(slides, f.wind * push, na),
+                                   np.where(slides, w.base_mu * f.dead_resists * weight, na))
+    checks["footing sliding|*"] = (
+        np.where(ftg, f.wind * push, na),
+        np.where(ftg, w.footing_mu * f.dead_resists * (weight + footing_weight), na))
+    return checks
+
+
+CHECK_INFO = {
+    "overturning": ("lb·ft", "resisting",
+                    "statics, W t/2 about the base edge; cured masonry: TMS 402-16 §8.2"),
+    "footing overturning": ("lb·ft", "resisting", "statics, W x footing width / 2"),
+    "soil bearing": ("psf", "adding", "statics against IBC Table 1806.2 allowable bearing"),
+    "sliding at base": ("lb", "resisting", "friction, ACI 318-19 §22.9.4.2 (mu 0.6)"),
+    "footing sliding": ("lb", "resisting", "friction, IBC Table 1806.2 (allowable)"),
+}
+
+
+def governing_utilization(checks) -> np.ndarray:
+    """The largest demand/capacity of each wall over the checks that apply to it."""
+    ratios = [np.where(np.isnan(d), 0.0, _ratio(d, c)) for d, c in checks.values()]
+    return np.max(ratios, axis=0)
+
+
+def _ratio(demand, capacity):
+    with np.errstate(divide="ignore", invalid="ignore"):
+        return np.where(capacity > 0, demand / capacity, np.where(demand > 0, np.inf, 0.0))
+
+
+def solve_increasing(g, lo: float, hi: float, size: int, iterations: int = 80) -> np.ndarray:
+    """Vectorised bisection for g(x) = 0 with g increasing; NaN where there is no root in range."""
+    a = np.full(size, lo)
+    b = np.full(size, hi)
+    ga, gb = g(a), g(b)
+    for _ in range(iterations):
+        mid = 0.5 * (a + b)
+        below = g(mid) < 0.0
+        a = np.where(below, mid, a)
+        b = np.where(below, b, mid)
+    root = 0.5 * (a + b)
+    root = np.where(ga >= 0.0, lo, root)
+    return np.where(gb < 0.0, np.nan, root)
+
+
+def evaluate(site: Site) -> SiteResult:
+    """Check every wall of the site and return the one result object."""
+    w = gather(site)
+    n = len(site.panels)
+    basis = site.site.design_basis
+    factors = COMBINATIONS[basis]
+    floor_rule = site.rule_value("minimum_design_wind_mph")
+    design_speed = w.period_factor * site.site.basic_wind_speed
+    if floor_rule:
+        design_speed = np.maximum(design_speed, floor_rule)
+    minimum = site.rule_value("minimum_design_pressure_psf")
+
+    def design_wind(walls: Walls) -> Wind:
+        return wind_on(walls, design_speed, asce7.KD_WALLS, minimum)
+
+    def observed(walls: Walls, speed) -> Wind:
+        return wind_on(walls, speed, 1.0, None)  # design.md §3: Kd 1.0, no minimum
+
+    wind = design_wind(w)
+    checks = stability_checks(w, wind, factors)
+    utilization = governing_utilization(checks)
+    limit = solve_increasing(
+        lambda v: governing_utilization(stability_checks(w, observed(w, v), SERVICE)) - 1.0,
+        *SPEED_BRACKET_MPH, n)
+    stand_down = stand_down_speeds(site, w, limit)
+    max_height = solve_increasing(
+        lambda h: governing_utilization(stability_checks(
+            w.at_height(h), design_wind(w.at_height(h)), factors)) - 1.0, *HEIGHT_BRACKET_FT, n)
+    limit_speed = site.site.limit_speed
+    max_at_limit = solve_increasing(
+        lambda h: governing_utilization(stability_checks(
+            w.at_height(h), observed(w.at_height(h), limit_speed), SERVICE)) - 1.0,
+        *HEIGHT_BRACKET_FT, n) if limit_speed else np.full(n, np.nan)
+    return SiteResult(
+        name=site.site.name, basis=basis, basis_statement=basis_statement(site),
+        panels=[_panel_result(site, i, w, wind, checks, factors, utilization, limit, stand_down,
+                              max_height, max_at_limit, design_speed) for i in range(n)])
+
+
+def stand_down_speeds(site: Site, w: Walls, limit: np.ndarray) -> np.ndarray:
+    """Stand-down ratio x working limit, capped for masonry by the industry speeds (design.md §3)."""
+    speed = (site.rule_value("stand_down_ratio") or 1.0) * limit
+    initial = site.rule_value("masonry_initial_speed_mph")
+    intermediate = site.rule_value("masonry_intermediate_speed_mph")
+    if initial:
+        speed = np.where(w.masonry & w.fresh, np.minimum(speed, initial), speed)
+    if intermediate:
+        speed = np.where(w.masonry, np.minimum(speed, intermediate), speed)
+    return speed
+
+
+def basis_statement(site: Site) -> list[str]:
+    """The declared design basis, shown on every report (design.md §3)."""
+    s = site.site
+    factor = (f"period factor {s.period_factor} set by the user" if s.period_factor
+              else "period factor from each wall's standing time (ASCE 37-14 Table 6.2-1)")
+    return [
+        f"Construction-stage wind: ASCE 37-14 applied with ASCE 7-16 wind (ASCE 37-14 was written "
+        f"against ASCE 7-10); Risk Category {s.risk_category}; {factor}.",
+        f"Basic wind speed {s.basic_wind_speed:.0f} mph, exposure {s.exposure}, Kzt "
+        f"{s.topographic_factor:g}, ground elevation {s.ground_elevation:.0f} ft.",
+        f"Load combinations: {site.site.design_basis} (ASCE 7-16 §2.4.1 / §2.3.1).",
+        "Speeds the crew reads are peak 3-second gusts at 33 ft in open terrain (Kd 1.0, no "
+        "minimum pressure, no period factor).",
+    ]
+
+
+def _panel_result(site, i, w: Walls, wind: Wind, checks, factors, utilization, limit,
+                  stand_down, max_height, max_at_limit, design_speed) -> PanelResult:
+    p = site.panels[i]
+    mat = site.materials[p.material]
+    items: list[Check] = []
+    for key, (demand, capacity) in checks.items():
+        if np.isnan(demand[i]):
+            continue
+        element, region = key.split("|")
+        if region == "*":
+            region = "whole panel" if w.rigid[i] else "end zone"
+        if not w.rigid[i]:
+            region += ", per ft"
+        unit, kind, source = CHECK_INFO[element]
+        combo = factors.resisting if kind == "resisting" else factors.adding
+        items.append(Check(element, region, float(demand[i]), float(capacity[i]), unit, combo,
+                           source))
+    flags = _flags(site, p, mat, w, i, utilization[i])
+    stands = utilization[i] <= 1.0 and not any(f.code == "masonry-over-8ft" for f in flags)
+    lim = float(limit[i])
+    sd = float(stand_down[i])
+    governing = max(items, key=lambda c: c.utilization)
+    dead = float(w.face_weight[i] * w.height[i] * w.width[i] * w.solidity[i])
+    return PanelResult(
+        mark=p.mark, material=mat.kind, status="stands" if stands else "needs_braces",
+        weight_lb=dead, height_ft=p.height, width_ft=p.width, thickness_in=p.thickness,
+        wind=WindResult(
+            basic_speed_mph=site.site.basic_wind_speed, period_factor=float(w.period_factor[i]),
+            period_factor_from="set" if site.site.period_factor else "standing time",
+            design_speed_mph=float(design_speed[i]), kz=float(wind.kz[i]), kd=asce7.KD_WALLS,
+            kzt=w.kzt, ke=w.ke, gust_factor=asce7.GUST_FACTOR,
+            velocity_pressure_psf=float(wind.q[i]), force_coefficient=float(wind.cf_case_a[i]),
+            opening_factor=float(wind.opening[i]), force_lb=float(wind.force_a[i]),
+            resultant_height_ft=float(wind.lever[i] if w.rigid[i] else wind.lever_strip[i]),
+            solidity=float(w.solidity[i]), minimum_pressure_governs=bool(wind.minimum_governs[i]),
+            end_zone_force_coefficient=float(wind.cf_end[i]),
+            interior_force_coefficient=float(wind.cf_interior[i])),
+        unbraced=UnbracedResult(
+            utilization=float(utilization[i]), stands=bool(stands), working_limit_speed_mph=lim,
+            stand_down_speed_mph=sd, max_height_ft=_or_none(max_height[i]),
+            max_height_at_limit_ft=_or_none(max_at_limit[i])),
+        checks=items, flags=flags, working_limit_speed_mph=lim, stand_down_speed_mph=sd,
+        governing_element=f"{governing.element} ({governing.region})",
+        sustained_equivalents_mph=gusts.sustained_equivalents(sd))
+
+
+def _or_none(x) -> float | None:
+    return None if np.isnan(x) else float(x)
+
+
+def _flags(site: Site, p, mat, w: Walls, i: int, utilization: float) -> list[Flag]:
+    flags: list[Flag] = []
+    if utilization > 1.0:
+        flags.append(Flag("fails-unbraced", "danger",
+                          f"cannot stand on its own at the design wind (utilization "
+                          f"{utilization:.2f}): brace it before release from the crane",
+                          "ASCE 7-16 §29.3, statics"))
+    limit = site.rule_value("masonry_unbraced_height_ft")
+    if mat.kind == "masonry" and limit is not None and p.height > limit:
+        flags.append(Flag("masonry-over-8ft", "danger",
+                          f"masonry wall {p.height:.1f} ft tall: over {limit:g} ft it must be "
+                          f"braced until permanent supports are in place",
+                          site.rule("masonry_unbraced_height_ft").source))
+    open_share = 1.0 - w.solidity[i]
+    if open_share > 0.3:
+        flags.append(Flag("mostly-open", "warning",
+                          f"{open_share:.0%} open: checked as an open wall (open-sign "
+                          f"coefficients on the solid area)", "ASCE 7-16 Figure 29.3-1 note 3"))
+    if p.opening_area:
+        flags.append(Flag("opening-position-unknown", "notice",
+                          "openings given by area only: resultant kept at 0.55 h",
+                          "ASCE 7-16 Figure 29.3-1"))
+    if p.base_elevation > 0:
+        flags.append(Flag("raised-base", "notice",
+                          f"base {p.base_elevation:g} ft above grade: s/h < 1 coefficients",
+                          "ASCE 7-16 Figure 29.3-1"))
+    if w.masonry[i] and w.fresh[i]:
+        flags.append(Flag("fresh-mortar", "notice",
+                          "mortar not yet cured: stability by weight only, no flexural tension",
+                          "TMS 402-16 §8.2 (from memory)"))
+    if mat.kind == "framed" and not mat.sheathed:
+        flags.append(Flag("open-framing", "notice", "unsheathed framing checked as an open wall",
+                          "ASCE 7-16 §29.3"))
+    return flags

@@ -1,0 +1,76 @@
+"""Plain-text reports for a terminal or a printout: caution first, failing checks first."""
+
+from __future__ import annotations
+
+import math
+
+from bracing.results import STATUSES, Check, PanelResult, SiteResult
+from bracing.units import convert
+
+SYMBOL = {"danger": "!!", "warning": "! ", "notice": "- "}
+
+
+def fmt(value: float | None, unit: str, system: str = "us", digits: int = 0) -> str:
+    """A value in the chosen unit system, e.g. '28 psf' or '1.35 kPa'."""
+    if value is None or (isinstance(value, float) and not math.isfinite(value)):
+        return "none" if value is None else "unbounded"
+    shown, label = convert(value, unit, system)
+    if system == "si" and label in ("kN", "kN·m", "kPa", "m", "MPa", "kN/m", "kN/m³"):
+        digits = max(digits, 2)
+    return f"{shown:,.{digits}f} {label}"
+
+
+def utilization_mark(u: float) -> str:
+    """Pass or fail in words and a symbol, never by colour alone."""
+    return "FAIL x" if u > 1.0 else "ok"
+
+
+def check_line(c: Check, system: str) -> str:
+    u = c.utilization
+    unit = {"lb·ft": "ft*lbf", "lb": "lbf", "psf": "psf"}.get(c.unit, c.unit)
+    return (f"  {utilization_mark(u):6} {c.element} ({c.region}): "
+            f"{fmt(c.demand, unit, system)} / {fmt(c.capacity, unit, system)} = "
+            f"{'inf' if math.isinf(u) else f'{u:.2f}'}  [{c.combination}; {c.source}]")
+
+
+def panel_text(p: PanelResult, system: str = "us") -> list[str]:
+    """The lines of one wall's report, failing checks and worst flags first."""
+    w, u = p.wind, p.unbraced
+    lines = [
+        f"{p.mark}  {p.material}  {fmt(p.height_ft, 'ft', system, 1)} tall x "
+        f"{fmt(p.width_ft, 'ft', system, 1)} wide x {fmt(p.thickness_in, 'in', system, 2)}: "
+        f"{p.status.replace('_', ' ').upper()} ({STATUSES[p.status]})",
+        f"  governing: {p.governing_element}, utilization {p.utilization:.2f}",
+        f"  stand-down gust {fmt(p.stand_down_speed_mph, 'mph', system)} "
+        f"(sustained 1-min {fmt(p.sustained_equivalents_mph.get('1-min'), 'mph', system)}, "
+        f"10-min {fmt(p.sustained_equivalents_mph.get('10-min'), 'mph', system)}); working limit "
+        f"{fmt(p.working_limit_speed_mph, 'mph', system)}",
+        f"  design wind {fmt(w.design_speed_mph, 'mph', system)} (period factor "
+        f"{w.period_factor:.2f} from {w.period_factor_from}), q_h "
+        f"{fmt(w.velocity_pressure_psf, 'psf', system, 1)}, Cf {w.force_coefficient:.3f}, "
+        f"F {fmt(w.force_lb, 'lbf', system)} at {fmt(w.resultant_height_ft, 'ft', system, 1)}",
+        f"  unbraced: utilization {u.utilization:.2f}; tallest unbraced at design wind "
+        f"{fmt(u.max_height_ft, 'ft', system, 1)}",
+    ]
+    for f in p.flags_worst_first():
+        lines.append(f"  {SYMBOL[f.severity]} {f.severity.upper()}: {f.message} [{f.source}]")
+    lines += [check_line(c, system) for c in p.worst_first()]
+    return lines
+
+
+def site_text(result: SiteResult, system: str = "us") -> str:
+    """A whole-site report: caution, basis, a summary, then every wall worst first."""
+    panels = result.worst_first()
+    counts = {s: sum(p.status == s for p in panels) for s in STATUSES}
+    lines = [result.caution, "", f"Site: {result.name}"]
+    lines += [f"  {s}" for s in result.basis_statement]
+    lines.append("  " + ", ".join(f"{n} {s.replace('_', ' ')}" for s, n in counts.items() if n))
+    failing = [(p, c) for p in panels for c in p.checks if not c.passes]
+    if failing:
+        lines += ["", f"FAILING CHECKS ({len(failing)}), worst first:"]
+        for p, c in sorted(failing, key=lambda pc: -pc[1].utilization)[:40]:
+            lines.append(f"  {p.mark}:{check_line(c, system)[1:]}")
+    for p in panels:
+        lines += [""] + panel_text(p, system)
+    lines += ["", result.caution]
+    return "\n".join(lines)

@@ -1,0 +1,158 @@
+"""The one result object every view reads (design.md §2): checks, flags, speeds, per wall and site.
+
+Views (JSON, text, CSV, HTML/SVG, the terminal interface) format these values; none recomputes.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import asdict, dataclass, field
+
+CAUTION = (
+    "CAUTION: a planning aid, not a bracing design. A qualified person must design and approve "
+    "the bracing. Follow local codes, the brace and anchor makers' ratings and the site safety plan."
+)
+
+SEVERITIES = ("danger", "warning", "notice")  # ANSI Z535 signal words, most severe first
+
+STATUSES = {
+    "unsafe": "braced, but a check fails",
+    "needs_braces": "cannot stand on its own: brace it",
+    "braced": "braced, every check passes",
+    "stands": "stands on its own",
+}
+STATUS_ORDER = tuple(STATUSES)  # worst first
+
+
+@dataclass(slots=True)
+class Check:
+    """One limit check: demand against capacity on a named load combination, with its source."""
+
+    element: str
+    region: str
+    demand: float
+    capacity: float
+    unit: str
+    combination: str
+    source: str
+
+    @property
+    def utilization(self) -> float:
+        """Demand / capacity; infinite when there is demand and no capacity."""
+        if self.capacity > 0:
+            return self.demand / self.capacity
+        return 0.0 if self.demand <= 0 else math.inf
+
+    @property
+    def passes(self) -> bool:
+        return self.utilization <= 1.0
+
+    def as_dict(self) -> dict:
+        d = asdict(self)
+        d["utilization"] = _finite(self.utilization)
+        d["passes"] = self.passes
+        return d
+
+
+@dataclass(slots=True)
+class Flag:
+    """Something the user must see, with its severity and where the rule comes from."""
+
+    code: str
+    severity: str
+    message: str
+    source: str = ""
+
+    def as_dict(self) -> dict:
+        return asdict(self)
+
+
+@dataclass(slots=True)
+class WindResult:
+    """The design wind on one wall (ASCE 7-16 §29.3 with ASCE 37-14), Case A at strength level."""
+
+    basic_speed_mph: float
+    period_factor: float
+    period_factor_from: str
+    design_speed_mph: float
+    kz: float
+    kd: float
+    kzt: float
+    ke: float
+    gust_factor: float
+    velocity_pressure_psf: float
+    force_coefficient: float
+    opening_factor: float
+    force_lb: float
+    resultant_height_ft: float
+    solidity: float
+    minimum_pressure_governs: bool
+    end_zone_force_coefficient: float
+    interior_force_coefficient: float
+
+
+@dataclass(slots=True)
+class UnbracedResult:
+    """The wall standing on its own."""
+
+    utilization: float
+    stands: bool
+    working_limit_speed_mph: float
+    stand_down_speed_mph: float
+    max_height_ft: float | None
+    max_height_at_limit_ft: float | None
+
+
+@dataclass(slots=True)
+class PanelResult:
+    """Everything the engine found for one wall."""
+
+    mark: str
+    material: str
+    status: str
+    weight_lb: float
+    height_ft: float
+    width_ft: float
+    thickness_in: float
+    wind: WindResult
+    unbraced: UnbracedResult
+    checks: list[Check]
+    flags: list[Flag]
+    working_limit_speed_mph: float
+    stand_down_speed_mph: float
+    governing_element: str
+    braces: dict | None = None
+    sustained_equivalents_mph: dict = field(default_factory=dict)
+
+    @property
+    def utilization(self) -> float:
+        """The governing (largest) utilization of the wall as checked."""
+        return max((c.utilization for c in self.checks), default=0.0)
+
+    def worst_first(self) -> list[Check]:
+        return sorted(self.checks, key=lambda c: -c.utilization)
+
+    def flags_worst_first(self) -> list[Flag]:
+        return sorted(self.flags, key=lambda f: SEVERITIES.index(f.severity))
+
+
+@dataclass(slots=True)
+class SiteResult:
+    """The whole site: every wall, worst first on demand, and the declared basis."""
+
+    name: str
+    basis: str
+    basis_statement: list[str]
+    panels: list[PanelResult]
+    caution: str = CAUTION
+
+    def worst_first(self) -> list[PanelResult]:
+        return sorted(self.panels, key=lambda p: (STATUS_ORDER.index(p.status), -p.utilization))
+
+    def panel(self, mark: str) -> PanelResult:
+        return next(p for p in self.panels if p.mark == mark)
+
+
+def _finite(x: float) -> float | None:
+    """JSON has no infinity: an unbounded value becomes null."""
+    return None if x is None or not math.isfinite(x) else x

@@ -1,0 +1,160 @@
+"""Site files: read, validate, report every error at once, and save without losing anything.
+
+A site file is TOML kept by tomlkit, so a save keeps the user's comments and layout. Saves are
+atomic (write beside, then replace) and keep the previous version as `NAME.bak`.
+"""
+
+from __future__ import annotations
+
+import os
+import re
+import tempfile
+from dataclasses import dataclass
+from pathlib import Path
+
+import tomlkit
+from pydantic import ValidationError
+from tomlkit.exceptions import ParseError
+
+from bracing.model import Site
+
+
+class SiteFileError(Exception):
+    """Every problem found in one site file, each naming the file, line, item and field."""
+
+    def __init__(self, path: str, problems: list[str]):
+        self.path = path
+        self.problems = problems
+        super().__init__("\n".join(problems))
+
+
+@dataclass
+class SiteFile:
+    """A site file on disk: its text document (comments kept) and the validated model."""
+
+    path: Path
+    document: tomlkit.TOMLDocument
+    site: Site
+
+    def save(self, path: str | Path | None = None) -> Path:
+        """Write the document atomically, keeping the previous file as `.bak`."""
+        target = Path(path) if path else self.path
+        atomic_write(target, tomlkit.dumps(self.document))
+        self.path = target
+        return target
+
+    def with_value(self, keys: tuple, value) -> SiteFile:
+        """A copy with one value changed, validated; raises SiteFileError and changes nothing."""
+        document = tomlkit.parse(tomlkit.dumps(self.document))
+        node = document
+        for key in keys[:-1]:
+            node = node[key]
+        node[keys[-1]] = value
+        return SiteFile(self.path, document, validate(document, str(self.path), document.as_string()))
+
+
+def atomic_write(target: Path, text: str) -> None:
+    """Write `text` to `target` through a temporary file; the old file becomes `target.bak`."""
+    target = Path(target)
+    target.parent.mkdir(parents=True, exist_ok=True)
+    fd, tmp = tempfile.mkstemp(dir=target.parent, prefix=f".{target.name}.", suffix=".tmp")
+    try:
+        with os.fdopen(fd, "w", encoding="utf-8") as handle:
+            handle.write(text)
+            handle.flush()
+            os.fsync(handle.fileno())
+        if target.exists():
+            backup = target.with_name(target.name + ".bak")
+            os.replace(target, backup)
+        os.replace(tmp, target)
+    except BaseException:
+        if os.path.exists(tmp):
+            os.unlink(tmp)
+        raise
+
+
+def load(path: str | Path) -> SiteFile:
+    """Read and validate a site file; raise SiteFileError listing every problem."""
+    path = Path(path)
+    try:
+        text = path.read_text(encoding="utf-8")
+    except OSError as exc:
+        raise SiteFileError(str(path), [f"{path}: cannot read the file ({exc.strerror})"]) from None
+    return parse(text, str(path))
+
+
+def parse(text: str, name: str = "<site>") -> SiteFile:
+    """Parse and validate site-file text; `name` is used in messages."""
+    try:
+        document = tomlkit.parse(text)
+    except ParseError as exc:
+        raise SiteFileError(name, [f"{name}:{exc.line}: not valid TOML: {exc}"]) from None
+    return SiteFile(Path(name), document, validate(document, name, text))
+
+
+def validate(document, name: str, text: str) -> Site:
+    """Validate a parsed document into a Site, or raise SiteFileError with every problem."""
+    data = document.unwrap() if hasattr(document, "unwrap") else document
+    try:
+        return Site.model_validate(data)
+    except ValidationError as exc:
+        raise SiteFileError(name, [describe(err, data, name, text) for err in exc.errors()]) from None
+
+
+def describe(err: dict, data: dict, name: str, text: str) -> str:
+    """One line for one validation error: file, line, item (panel mark) and field."""
+    loc = tuple(err["loc"])
+    message = err["msg"].removeprefix("Value error, ")
+    if err["type"] == "missing":
+        message = "missing (this field is required)"
+    elif err["type"] == "extra_forbidden":
+        message = "unknown key (check the spelling; `bracing schema` lists the keys)"
+    item, field = _item_and_field(loc, data)
+    line = _line_of(loc, text)
+    where = f"{name}:{line}" if line else name
+    got = err.get("input")
+    shown = f" (got {got!r})" if got is not None and not isinstance(got, (dict, list)) else ""
+    if err["type"] in ("missing",):
+        shown = ""
+    parts = [p for p in (item, field) if p]
+    return f"{where}: {': '.join(parts + [message])}{shown}"
+
+
+def _item_and_field(loc: tuple, data: dict) -> tuple[str, str]:
+    """'panel P-07' and 'footing.width' from a location like ('panels', 6, 'footing', 'width')."""
+    if len(loc) >= 2 and isinstance(loc[1], int):
+        section, index = loc[0], loc[1]
+        try:
+            entry = data[section][index]
+            label = entry.get("mark") or entry.get("name") or f"#{index + 1}"
+        except (KeyError, IndexError, TypeError, AttributeError):
+            label = f"#{index + 1}"
+        kind = section.removesuffix("s")
+        return f"{kind} {label}", ".".join(str(p) for p in loc[2:])
+    if len(loc) >= 2 and loc[0] in ("materials", "rules", "brace_types", "anchor_types"):
+        return f"{loc[0][:-1]} {loc[1]}", ".".join(str(p) for p in loc[2:])
+    return "", ".".join(str(p) for p in loc) or "(whole file)"
+
+
+def _line_of(loc: tuple, text: str) -> int | None:
+    """Best-effort line number of the key at `loc` in the TOML text (1-based)."""
+    lines = text.splitlines()
+    start, stop, found = 0, len(lines), None
+    for i, key in enumerate(loc):
+        if isinstance(key, int):
+            header = re.compile(rf"^\s*\[\[\s*{re.escape(str(loc[i - 1]))}\s*\]\]")
+            hits = [n for n in range(len(lines)) if header.match(lines[n])]
+            if key >= len(hits):
+                return found
+            start = found = hits[key]
+            stop = hits[key + 1] if key + 1 < len(hits) else len(lines)
+            continue
+        if i + 1 < len(loc) and isinstance(loc[i + 1], int):
+            continue  # the array's own headers are found at the index
+        pattern = re.compile(
+            rf"^\s*[\"']?{re.escape(str(key))}[\"']?\s*=|^\s*\[[^\]]*\b{re.escape(str(key))}\s*\]")
+        hits = [n for n in range(start, stop) if pattern.match(lines[n])]
+        if not hits:
+            break
+        start = found = hits[0]
+    return None if found is None else found + 1

@@ -1,0 +1,105 @@
+"""Quantities with units at the edges: parse "31 ft", "9.5 m", "150 pcf" into the engine's unit.
+
+The engine works in US customary units (design.md §3). Every input field has a documented unit;
+a bare number takes it, a value with a unit is converted with pint. A value of the wrong kind
+(a height in kg) is refused with a message naming what was expected.
+"""
+
+from __future__ import annotations
+
+from functools import lru_cache
+
+import pint
+
+ureg = pint.UnitRegistry()
+# The trade's names that pint lacks: weights in pounds-force per unit volume, area and length.
+ureg.define("pcf = force_pound / foot ** 3")
+ureg.define("psf = force_pound / foot ** 2")
+ureg.define("plf = force_pound / foot")
+ureg.define("ksf = 1000 * psf")
+
+STANDARD_GRAVITY = ureg.Quantity(1.0, "standard_gravity")
+
+# Engine unit and a plain-word name for each kind of value a field can hold.
+KINDS: dict[str, tuple[str, str]] = {
+    "length": ("ft", "a length"),
+    "thickness": ("in", "a length"),
+    "area": ("ft**2", "an area"),
+    "force": ("lbf", "a force"),
+    "moment": ("ft*lbf", "a moment or torque"),
+    "pressure": ("psf", "a pressure"),
+    "stress": ("psi", "a stress"),
+    "unit_weight": ("pcf", "a unit weight"),
+    "line_load": ("plf", "a load per length"),
+    "speed": ("mph", "a speed"),
+    "angle": ("deg", "an angle"),
+    "duration": ("week", "a duration"),
+    "age": ("day", "an age"),
+    "torque_factor": ("1/ft", "a torque factor (per ft)"),
+}
+
+# Display units for reports: (US, SI) per engine unit.
+DISPLAY = {
+    "ft": ("ft", "m"),
+    "in": ("in", "mm"),
+    "ft**2": ("ft**2", "m**2"),
+    "lbf": ("lbf", "kN"),
+    "ft*lbf": ("ft*lbf", "kN*m"),
+    "psf": ("psf", "kPa"),
+    "psi": ("psi", "MPa"),
+    "pcf": ("pcf", "kN/m**3"),
+    "plf": ("plf", "kN/m"),
+    "mph": ("mph", "m/s"),
+}
+SHORT = {"ft**2": "ft²", "m**2": "m²", "lbf": "lb", "ft*lbf": "lb·ft", "kN*m": "kN·m",
+         "kN/m**3": "kN/m³", "m/s": "m/s"}
+
+
+class UnitError(ValueError):
+    """A value that cannot be read as the field's kind of quantity."""
+
+
+def _mass_to_force(q: pint.Quantity) -> pint.Quantity:
+    """Read pounds and kilograms as their weight where the trade writes them for forces."""
+    return (q * STANDARD_GRAVITY).to_base_units()
+
+
+@lru_cache(maxsize=4096)
+def _parse_text(text: str, unit: str, kind_word: str) -> float:
+    try:
+        q = ureg.Quantity(text.strip())
+    except Exception as exc:  # pint raises several types for unreadable text
+        raise UnitError(f"cannot read {text!r} as {kind_word} (for example '12 {unit}')") from exc
+    if isinstance(q, (int, float)) or q.unitless:
+        if q.unitless and str(q.units) not in ("dimensionless", ""):
+            return float(q.to(unit).magnitude)  # degrees and radians are unitless in pint
+        return float(q.magnitude if hasattr(q, "magnitude") else q)
+    target = ureg.Unit(unit)
+    if not q.is_compatible_with(target):
+        weighed = _mass_to_force(q)
+        if weighed.is_compatible_with(target):
+            q = weighed
+        else:
+            raise UnitError(f"{text!r} is not {kind_word} (expected a unit like {unit})")
+    return float(q.to(target).magnitude)
+
+
+def parse(value: object, kind: str) -> float:
+    """Return `value` in the engine unit of `kind`; a bare number is taken in that unit."""
+    unit, kind_word = KINDS[kind]
+    if isinstance(value, bool):
+        raise UnitError(f"expected {kind_word}, got {value!r}")
+    if isinstance(value, (int, float)):
+        return float(value)
+    if isinstance(value, str):
+        return _parse_text(value, unit, kind_word)
+    raise UnitError(f"expected {kind_word} as a number or text like '12 {unit}', got {value!r}")
+
+
+def convert(value: float, unit: str, system: str) -> tuple[float, str]:
+    """Convert an engine value to the display unit of `system` ('us' or 'si')."""
+    us, si = DISPLAY.get(unit, (unit, unit))
+    target = si if system == "si" else us
+    if target == unit:
+        return value, SHORT.get(target, target)
+    return float(ureg.Quantity(value, unit).to(target).magnitude), SHORT.get(target, target)

@@ -1,0 +1,198 @@
+"""ASCE 7-16 wind: velocity pressure (Ch. 26) and solid freestanding walls (§29.3, Figure 29.3-1).
+
+Every function is vectorised: floats or numpy arrays in, the broadcast shape out. Geometry follows
+Figure 29.3-1: `s` is the wall's own height, `h` the height of its top above grade (so s/h = 1 for
+a wall standing on grade), `B` its length along the wind line, `x` a distance from the windward end.
+"""
+
+import numpy as np
+
+TERRAIN = {"B": (7.0, 1200.0), "C": (9.5, 900.0), "D": (11.5, 700.0)}  # Table 26.11-1 (alpha, zg ft)
+GUST_FACTOR = 0.85  # ASCE 7-16 §26.11.1, rigid structure
+KD_WALLS = 0.85  # ASCE 7-16 Table 26.6-1, solid freestanding walls and signs
+MIN_PRESSURE_PSF = 16.0  # ASCE 7-16 §29.7 minimum design wind load on As (from memory)
+
+# ASCE 7-16 Figure 29.3-1, Cases A and B: Cf by s/h (rows, ascending) and B/s (columns).
+_AB_B_OVER_S = np.array([0.05, 0.1, 0.2, 0.5, 1.0, 2.0, 4.0, 5.0, 10.0, 20.0, 30.0, 45.0])
+_AB_S_OVER_H = np.array([0.16, 0.2, 0.3, 0.5, 0.7, 0.9, 1.0])
+_AB_CF = np.array([
+    [1.95, 1.90, 1.85, 1.85, 1.80, 1.80, 1.85, 1.85, 1.85, 1.90, 1.90, 1.95],  # s/h <= 0.16
+    [1.95, 1.90, 1.85, 1.80, 1.80, 1.80, 1.80, 1.80, 1.85, 1.90, 1.90, 1.95],  # 0.2
+    [1.95, 1.90, 1.85, 1.80, 1.80, 1.80, 1.80, 1.80, 1.80, 1.85, 1.85, 1.85],  # 0.3
+    [1.95, 1.85, 1.80, 1.75, 1.75, 1.70, 1.70, 1.70, 1.70, 1.70, 1.70, 1.75],  # 0.5
+    [1.90, 1.85, 1.75, 1.70, 1.65, 1.60, 1.60, 1.55, 1.55, 1.55, 1.55, 1.55],  # 0.7
+    [1.85, 1.75, 1.70, 1.60, 1.55, 1.50, 1.45, 1.45, 1.40, 1.40, 1.40, 1.40],  # 0.9
+    [1.80, 1.70, 1.65, 1.55, 1.45, 1.40, 1.35, 1.35, 1.30, 1.30, 1.30, 1.30],  # 1
+])
+
+# ASCE 7-16 Figure 29.3-1, Case C: Cf by region of x/s (bins) and B/s (rows). The region edges
+# 1, 2, 3, 4, 5, 10 are shared by every column; where a column defines fewer regions (B/s 2 to
+# 10 stop at 2s, 3s or 10s) its last region is carried on to the bins beyond it.
+_C_B_OVER_S = np.array([2.0, 3.0, 4.0, 5.0, 6.0, 7.0, 8.0, 9.0, 10.0, 13.0, 45.0])
+_C_EDGES = np.array([1.0, 2.0, 3.0, 4.0, 5.0, 10.0])  # x/s where the regions change
+_C_BIN_LO = np.array([-np.inf, 1.0, 2.0, 3.0, 4.0, 5.0, 10.0])
+_C_BIN_HI = np.array([1.0, 2.0, 3.0, 4.0, 5.0, 10.0, np.inf])
+_C_CF = np.array([
+    # 0-s   s-2s  2s-3s 3s-4s 4s-5s 5s-10s >10s
+    [2.25, 1.50, 1.50, 1.50, 1.50, 1.50, 1.50],  # B/s 2
+    [2.60, 1.70, 1.15, 1.15, 1.15, 1.15, 1.15],  # 3
+    [2.90, 1.90, 1.30, 1.10, 1.10, 1.10, 1.10],  # 4
+    [3.10, 2.00, 1.45, 1.05, 1.05, 1.05, 1.05],  # 5
+    [3.30, 2.15, 1.55, 1.05, 1.05, 1.05, 1.05],  # 6
+    [3.40, 2.25, 1.65, 1.05, 1.05, 1.05, 1.05],  # 7
+    [3.55, 2.30, 1.70, 1.05, 1.05, 1.05, 1.05],  # 8
+    [3.65, 2.35, 1.75, 1.00, 1.00, 1.00, 1.00],  # 9
+    [3.75, 2.45, 1.85, 0.95, 0.95, 0.95, 0.95],  # 10
+    [4.00, 2.60, 2.00, 1.50, 1.35, 0.90, 0.55],  # 13
+    [4.30, 2.55, 1.95, 1.85, 1.85, 1.10, 0.55],  # >= 45
+])
+_C_STARRED = _C_B_OVER_S >= 5.0  # asterisked 0-s cells: B/s 5 to 10, 13, >= 45
+_C_FIRST_BIN = np.arange(_C_CF.shape[1]) == 0
+
+# ASCE 7-16 Figure 29.3-1, Case C return-corner note: Lr/s 0.3, 1.0, >= 2 -> 0.90, 0.75, 0.60.
+# Team's reading: 1.0 at Lr/s = 0 (no return), linear from 0 to 0.3 like the rest of the table.
+_RETURN_RATIO = np.array([0.0, 0.3, 1.0, 2.0])
+_RETURN_FACTOR = np.array([1.0, 0.90, 0.75, 0.60])
+
+
+def terrain_constants(exposure):
+    """Power-law exponent alpha and gradient height zg (ft) for exposure 'B', 'C' or 'D'."""
+    raw = np.asarray(exposure, dtype=str)
+    codes = np.char.upper(np.char.strip(raw))
+    alpha = np.empty(codes.shape)
+    zg = np.empty(codes.shape)
+    known = np.zeros(codes.shape, dtype=bool)
+    for name, (a, z) in TERRAIN.items():  # ASCE 7-16 Table 26.11-1
+        hit = codes == name
+        alpha[hit], zg[hit] = a, z
+        known |= hit
+    if not known.all():
+        unknown = sorted(set(np.atleast_1d(raw[~known]).tolist()))
+        raise ValueError(f"unknown wind exposure {unknown}: expected 'B', 'C' or 'D'")
+    return alpha[()], zg[()]
+
+
+def kz(z_ft, exposure):
+    """Velocity pressure exposure coefficient Kz at height z_ft above grade."""
+    alpha, zg = terrain_constants(exposure)
+    z = np.maximum(np.asarray(z_ft, dtype=float), 15.0)
+    return 2.01 * (z / zg) ** (2.0 / alpha)  # ASCE 7-16 Table 26.10-1 note 1
+
+
+def ke(ground_elevation_ft):
+    """Ground elevation factor Ke for a site ground_elevation_ft above sea level."""
+    return np.exp(-0.0000362 * np.asarray(ground_elevation_ft, dtype=float))  # Table 26.9-1 note
+
+
+def velocity_pressure(v_mph, kz, kzt=1.0, kd=KD_WALLS, ke=1.0):
+    """Velocity pressure q (psf) for a 3-s gust v_mph at 33 ft, exposure C."""
+    v = np.asarray(v_mph, dtype=float)
+    return 0.00256 * kz * kzt * kd * ke * v**2  # ASCE 7-16 Eq. 26.10-1
+
+
+def _interp_index(grid, x):
+    """Left index and weight for linear interpolation on an ascending grid, clamped at its ends."""
+    x = np.clip(x, grid[0], grid[-1])
+    i = np.clip(np.searchsorted(grid, x, side="right") - 1, 0, len(grid) - 2)
+    return i, (x - grid[i]) / (grid[i + 1] - grid[i])
+
+
+def cf_cases_ab(b_over_s, s_over_h):
+    """Cf for Cases A and B of a solid freestanding wall, on its gross area.
+
+    Bilinear in B/s and s/h (Figure 29.3-1 note 5), clamped to the table's edges
+    (B/s <= 0.05 and >= 45, s/h <= 0.16 and 1).
+    """
+    b, r = np.broadcast_arrays(np.asarray(b_over_s, dtype=float), np.asarray(s_over_h, dtype=float))
+    i, u = _interp_index(_AB_B_OVER_S, b)
+    j, v = _interp_index(_AB_S_OVER_H, r)
+    lower = (1.0 - u) * _AB_CF[j, i] + u * _AB_CF[j, i + 1]
+    upper = (1.0 - u) * _AB_CF[j + 1, i] + u * _AB_CF[j + 1, i + 1]
+    return ((1.0 - v) * lower + v * upper)[()]  # ASCE 7-16 Figure 29.3-1, Cases A and B
+
+
+def opening_factor(solidity):
+    """Reduction of Cf for openings, solidity = solid area / gross area (1.0 when solid)."""
+    eps = np.clip(np.asarray(solidity, dtype=float), 0.0, 1.0)
+    return 1.0 - (1.0 - eps) ** 1.5  # ASCE 7-16 Figure 29.3-1 note 3
+
+
+def cf_open(solidity):
+    """Cf on the SOLID area of an open wall (solidity < 0.7), flat-sided members.
+
+    ASCE 7-16 Ch. 29 open signs and lattice frameworks (from memory): eps < 0.1 2.0,
+    0.1 to 0.29 1.8, 0.3 to 0.7 1.6. Returns 1.6 above 0.3: callers use it only below 0.7.
+    """
+    eps = np.asarray(solidity, dtype=float)
+    return np.where(eps < 0.1, 2.0, np.where(eps < 0.3, 1.8, 1.6))[()]
+
+
+def _return_corner_factor(return_ratio):
+    """Multiplier on the asterisked 0-s Case C cells for a return wall Lr/s long."""
+    return np.interp(np.asarray(return_ratio, dtype=float), _RETURN_RATIO, _RETURN_FACTOR)
+
+
+def _case_c_bins(b_over_s, s_over_h, return_ratio):
+    """Case C Cf in each x/s bin (last axis), interpolated linearly in B/s column by column."""
+    i, w = _interp_index(_C_B_OVER_S, b_over_s)
+    reduction = _return_corner_factor(return_ratio)[..., None]
+
+    def column(k):  # one tabulated column, asterisked cells reduced for a return corner
+        starred = _C_FIRST_BIN & _C_STARRED[k][..., None]
+        return _C_CF[k] * np.where(starred, reduction, 1.0)
+
+    bins = (1.0 - w)[..., None] * column(i) + w[..., None] * column(i + 1)
+    tall = np.minimum(1.0, 1.8 - np.minimum(s_over_h, 1.0))  # Figure 29.3-1 note 4: s/h > 0.8
+    return bins * tall[..., None]
+
+
+def case_c_cf(x_over_s, b_over_s, s_over_h, return_ratio=0.0):
+    """Local Case C Cf at x_over_s from the windward end of a wall B/s long.
+
+    Regions 0-s, s-2s, ... of Figure 29.3-1; a point on a region edge belongs to the region
+    downwind of it. Between tabulated B/s the coefficient is interpolated linearly in B/s at the
+    same position x. return_ratio = Lr/s of a return wall at the windward end. Where B/s < 2
+    Case C does not apply and the Case A/B value is returned, so callers may envelope freely.
+    """
+    x, b, r, lr = np.broadcast_arrays(*(np.asarray(a, dtype=float) for a in
+                                        (x_over_s, b_over_s, s_over_h, return_ratio)))
+    bins = _case_c_bins(b, r, lr)
+    k = np.searchsorted(_C_EDGES, x, side="right")
+    local = np.take_along_axis(bins, k[..., None], axis=-1)[..., 0]
+    return np.where(b >= 2.0, local, cf_cases_ab(b, r))[()]  # Case C for B/s >= 2 only
+
+
+def case_c_mean(x0_over_s, x1_over_s, b_over_s, s_over_h, return_ratio=0.0):
+    """Mean Case C Cf over [x0, x1] (in s from the windward end) and the load's centroid (in s).
+
+    Exact integration of the piecewise-constant regional coefficients: a panel occupying
+    [x0, x1] of a longer wall line takes mean_cf times its area, acting at centroid_over_s.
+    Where B/s < 2 it returns the Case A/B value at the middle of the interval.
+    """
+    x0, x1, b, r, lr = np.broadcast_arrays(*(np.asarray(a, dtype=float) for a in
+                                             (x0_over_s, x1_over_s, b_over_s, s_over_h,
+                                              return_ratio)))
+    lo, hi = np.minimum(x0, x1), np.maximum(x0, x1)
+    start = np.maximum(lo[..., None], _C_BIN_LO)
+    end = np.minimum(hi[..., None], _C_BIN_HI)
+    force = _case_c_bins(b, r, lr) * np.maximum(end - start, 0.0)  # Cf x length, per region
+    total = force.sum(axis=-1)
+    moment = (force * 0.5 * (start + end)).sum(axis=-1)
+    width = hi - lo
+    with np.errstate(divide="ignore", invalid="ignore"):
+        mean = np.where(width > 0.0, total / width, case_c_cf(lo, b, r, lr))
+        centroid = np.where(total > 0.0, moment / total, 0.5 * (lo + hi))
+    short = b < 2.0  # Case C applies for B/s >= 2 only
+    mean = np.where(short, cf_cases_ab(b, r), mean)
+    centroid = np.where(short, 0.5 * (lo + hi), centroid)
+    return mean[()], centroid[()]
+
+
+def resultant_height_ratio(s_over_h):
+    """Height of the resultant above the wall's base, as a fraction of s, for a solid wall.
+
+    ASCE 7-16 Figure 29.3-1 notes on the load cases: at the geometric centre (0.5) where
+    s/h < 1; 0.05 s higher (0.55) where s/h = 1, a wall standing on grade.
+    """
+    on_grade = np.asarray(s_over_h, dtype=float) >= 1.0 - 1e-9
+    return np.where(on_grade, 0.55, 0.5)[()]
