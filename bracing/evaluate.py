@@ -11,7 +11,7 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from bracing import stability
+from bracing import braced, stability
 from bracing.model import Site
 from bracing.results import Check, Flag, PanelResult, SiteResult, UnbracedResult, WindResult
 from bracing.wind import asce7, asce37, gusts
@@ -53,6 +53,7 @@ class Walls:
     face_weight: np.ndarray     # psf of wall face
     solidity: np.ndarray
     centroid_ratio: np.ndarray  # solid area centroid height / s
+    centroid_x_ratio: np.ndarray  # solid area centroid from the left edge / B
     rigid: np.ndarray           # bool: concrete panel checked as a whole
     fresh: np.ndarray           # bool: masonry with uncured mortar (weight only)
     masonry: np.ndarray
@@ -93,6 +94,8 @@ def gather(site: Site) -> Walls:
                 or mat.face_weight or mat.unit_weight * t_ft)
         opens = [(o.x, o.y, o.width, o.height) for o in p.openings]
         solid, centroid = stability.rectangle_centroid(p.width, p.height, opens)
+        _, centroid_x = stability.rectangle_centroid(
+            p.height, p.width, [(y, x, h, w) for x, y, w, h in opens])
         solid -= p.opening_area or 0.0
         solidity = solid / (p.width * p.height)
         if mat.kind == "framed" and not mat.sheathed:
@@ -111,6 +114,7 @@ def gather(site: Site) -> Walls:
         weeks = p.standing_time or site.site.construction_period
         rows.append((
             p.height, p.width, t_ft, p.base_elevation, face, solidity, centroid / p.height,
+            centroid_x / p.width,
             mat.kind == "concrete", masonry and not cured, masonry, mat.kind == "framed",
             tension if cured else 0.0, float(s_in3), float(a_in2),
             returns.get("left", 0.0), returns.get("right", 0.0),
@@ -252,8 +256,10 @@ def stability_checks(w: Walls, wind: Wind, f: Factors) -> dict[str, tuple[np.nda
     footing_weight = np.where(rigid, ftg_panel, ftg_strip)
     # A framed wall's sill is nailed or bolted down: that connection is the framer's, not friction.
     slides = ~w.framed
-    checks["sliding at base|*"] = (np.where(slides, f.wind * push, na),
-                                   np.where(slides, w.base_mu * f.dead_resists * weight, na))
+    friction = w.base_mu * f.dead_resists * weight
+    bond = stability.masonry_bed_joint_shear(w.section_area, f.dead_resists * dead_strip)
+    grip = np.where(w.masonry & ~w.fresh, np.maximum(friction, bond), friction)
+    checks["sliding at base|*"] = (np.where(slides, f.wind * push, na), np.where(slides, grip, na))
     checks["footing sliding|*"] = (
         np.where(ftg, f.wind * push, na),
         np.where(ftg, w.footing_mu * f.dead_resists * (weight + footing_weight), na))
@@ -265,7 +271,8 @@ CHECK_INFO = {
                     "statics, W t/2 about the base edge; cured masonry: TMS 402-16 §8.2"),
     "footing overturning": ("lb·ft", "resisting", "statics, W x footing width / 2"),
     "soil bearing": ("psf", "adding", "statics against IBC Table 1806.2 allowable bearing"),
-    "sliding at base": ("lb", "resisting", "friction, ACI 318-19 §22.9.4.2 (mu 0.6)"),
+    "sliding at base": ("lb", "resisting", "friction, ACI 318-19 §22.9.4.2 (mu 0.6); cured "
+                        "masonry: bed-joint shear TMS 402-16 §8.2.6.2 (from memory)"),
     "footing sliding": ("lb", "resisting", "friction, IBC Table 1806.2 (allowable)"),
 }
 
@@ -296,12 +303,38 @@ def solve_increasing(g, lo: float, hi: float, size: int, iterations: int = 80) -
     return np.where(gb < 0.0, np.nan, root)
 
 
+@dataclass
+class Evaluation:
+    """Arrays of one evaluation pass, before they become per-wall result objects."""
+
+    walls: Walls
+    wind: Wind
+    checks: dict
+    utilization: np.ndarray
+    limit: np.ndarray
+    stand_down: np.ndarray
+    max_height: np.ndarray
+    max_at_limit: np.ndarray
+    design_speed: np.ndarray
+    braces: braced.BraceSet | None = None
+    braced_checks: dict | None = None
+    braced_limit: np.ndarray | None = None
+    braced_limit_missing: np.ndarray | None = None
+
+
 def evaluate(site: Site) -> SiteResult:
     """Check every wall of the site and return the one result object."""
+    e = evaluate_arrays(site)
+    return SiteResult(
+        name=site.site.name, basis=site.site.design_basis, basis_statement=basis_statement(site),
+        panels=[_panel_result(site, i, e) for i in range(len(site.panels))])
+
+
+def evaluate_arrays(site: Site) -> Evaluation:
+    """The vectorised pass: design wind, observed-gust limits and trial heights, all walls."""
     w = gather(site)
     n = len(site.panels)
-    basis = site.site.design_basis
-    factors = COMBINATIONS[basis]
+    factors = COMBINATIONS[site.site.design_basis]
     floor_rule = site.rule_value("minimum_design_wind_mph")
     design_speed = w.period_factor * site.site.basic_wind_speed
     if floor_rule:
@@ -314,25 +347,59 @@ def evaluate(site: Site) -> SiteResult:
     def observed(walls: Walls, speed) -> Wind:
         return wind_on(walls, speed, 1.0, None)  # design.md §3: Kd 1.0, no minimum
 
+    def unbraced_at(walls: Walls, wind: Wind, f: Factors):
+        return governing_utilization(stability_checks(walls, wind, f)) - 1.0
+
     wind = design_wind(w)
     checks = stability_checks(w, wind, factors)
-    utilization = governing_utilization(checks)
-    limit = solve_increasing(
-        lambda v: governing_utilization(stability_checks(w, observed(w, v), SERVICE)) - 1.0,
-        *SPEED_BRACKET_MPH, n)
-    stand_down = stand_down_speeds(site, w, limit)
+    limit = solve_increasing(lambda v: unbraced_at(w, observed(w, v), SERVICE),
+                             *SPEED_BRACKET_MPH, n)
     max_height = solve_increasing(
-        lambda h: governing_utilization(stability_checks(
-            w.at_height(h), design_wind(w.at_height(h)), factors)) - 1.0, *HEIGHT_BRACKET_FT, n)
-    limit_speed = site.site.limit_speed
+        lambda h: unbraced_at(w.at_height(h), design_wind(w.at_height(h)), factors),
+        *HEIGHT_BRACKET_FT, n)
+    gust = site.site.limit_speed
     max_at_limit = solve_increasing(
-        lambda h: governing_utilization(stability_checks(
-            w.at_height(h), observed(w.at_height(h), limit_speed), SERVICE)) - 1.0,
-        *HEIGHT_BRACKET_FT, n) if limit_speed else np.full(n, np.nan)
-    return SiteResult(
-        name=site.site.name, basis=basis, basis_statement=basis_statement(site),
-        panels=[_panel_result(site, i, w, wind, checks, factors, utilization, limit, stand_down,
-                              max_height, max_at_limit, design_speed) for i in range(n)])
+        lambda h: unbraced_at(w.at_height(h), observed(w.at_height(h), gust), SERVICE),
+        *HEIGHT_BRACKET_FT, n) if gust else np.full(n, np.nan)
+    e = Evaluation(w, wind, checks, governing_utilization(checks), limit,
+                   stand_down_speeds(site, w, limit), max_height, max_at_limit, design_speed)
+    bs = braced.gather_braces(site, w, site.site.design_basis)
+    if bs is not None:
+        e.braces = bs
+        e.braced_checks, _ = braced.braced_checks(w, wind, bs, factors, minimum)
+        e.braced_limit = braced_limit(w, bs, observed)
+        e.braced_limit_missing = braced_limit_one_missing(w, bs, observed)
+    return e
+
+
+def braced_limit(w: Walls, bs: braced.BraceSet, observed) -> np.ndarray:
+    """Working-limit gust of each braced wall: its most utilized element reaches 1.0 (§3)."""
+    own = braced.take(w, bs.index)  # one row per braced wall, so each has its own trial speed
+    mine = replace(bs, index=np.arange(len(bs.index)))
+
+    def g(v):
+        checks, _ = braced.braced_checks(own, observed(own, v), mine, SERVICE, None)
+        return governing_utilization(strength_only(checks)) - 1.0
+    return solve_increasing(g, *SPEED_BRACKET_MPH, len(bs.index))
+
+
+def braced_limit_one_missing(w: Walls, bs: braced.BraceSet, observed) -> np.ndarray:
+    """The working-limit gust with the worst single brace missing (equipment strikes one)."""
+    rows, slots = np.nonzero(bs.mask & (bs.mask.sum(axis=1) >= 2)[:, None])
+    out = np.full(len(bs.index), np.nan)
+    if len(rows) == 0:
+        return out
+    variant = braced.take(bs, rows)
+    mask = variant.mask.copy()
+    mask[np.arange(len(rows)), slots] = False
+    limits = braced_limit(w, replace(variant, mask=mask), observed)
+    np.fmin.at(out, rows, limits)
+    return out
+
+
+def strength_only(checks: dict) -> dict:
+    """The checks that count for status and speeds (not serviceability ones like cracking)."""
+    return {k: v for k, v in checks.items() if k.split("|")[0] not in braced.SERVICEABILITY}
 
 
 def stand_down_speeds(site: Site, w: Walls, limit: np.ndarray) -> np.ndarray:
@@ -363,36 +430,42 @@ def basis_statement(site: Site) -> list[str]:
     ]
 
 
-def _panel_result(site, i, w: Walls, wind: Wind, checks, factors, utilization, limit,
-                  stand_down, max_height, max_at_limit, design_speed) -> PanelResult:
+def _panel_result(site: Site, i: int, e: Evaluation) -> PanelResult:
+    """Per-wall result objects from the arrays (the only per-wall loop after gathering)."""
     p = site.panels[i]
     mat = site.materials[p.material]
-    items: list[Check] = []
-    for key, (demand, capacity) in checks.items():
-        if np.isnan(demand[i]):
-            continue
-        element, region = key.split("|")
-        if region == "*":
-            region = "whole panel" if w.rigid[i] else "end zone"
-        if not w.rigid[i]:
-            region += ", per ft"
-        unit, kind, source = CHECK_INFO[element]
-        combo = factors.resisting if kind == "resisting" else factors.adding
-        items.append(Check(element, region, float(demand[i]), float(capacity[i]), unit, combo,
-                           source))
-    flags = _flags(site, p, mat, w, i, utilization[i])
-    stands = utilization[i] <= 1.0 and not any(f.code == "masonry-over-8ft" for f in flags)
-    lim = float(limit[i])
-    sd = float(stand_down[i])
-    governing = max(items, key=lambda c: c.utilization)
-    dead = float(w.face_weight[i] * w.height[i] * w.width[i] * w.solidity[i])
+    w, wind = e.walls, e.wind
+    factors = COMBINATIONS[site.site.design_basis]
+    unbraced_checks = _checks_of(e.checks, i, w, factors, CHECK_INFO)
+    flags = _flags(site, p, mat, w, i, e.utilization[i])
+    stands = e.utilization[i] <= 1.0 and not any(f.code == "masonry-over-8ft" for f in flags)
+    limit, stand_down = float(e.limit[i]), float(e.stand_down[i])
+    checks, status, details = unbraced_checks, "stands" if stands else "needs_braces", None
+    if p.bracing is not None:
+        r = int(np.nonzero(e.braces.index == i)[0][0])
+        checks = _checks_of(e.braced_checks, r, w, factors, braced.CHECKS)
+        strength = [c for c in checks if c.element not in braced.SERVICEABILITY]
+        status = "braced" if all(c.passes for c in strength) else "unsafe"
+        limit = float(e.braced_limit[r])
+        stand_down = float(stand_down_speeds(site, braced.take(w, [i]), np.array([limit]))[0])
+        details = braced.braced_details(w, wind, e.braces, factors,
+                                        site.rule_value("minimum_design_pressure_psf"), r)
+        brace_checks = [c for c in checks if c.element.startswith("brace")]
+        details["utilization"] = max((c.utilization for c in brace_checks), default=None)
+        missing = e.braced_limit_missing[r]
+        details["working_limit_one_missing_mph"] = _or_none(missing)
+        flags.extend(braced_flags(site, p, e.braces, r, checks, limit, stand_down, missing))
+        flags = [f for f in flags if f.code not in ("fails-unbraced", "masonry-over-8ft")]
+    governing = max((c for c in checks if c.element not in braced.SERVICEABILITY),
+                    key=lambda c: c.utilization)
     return PanelResult(
-        mark=p.mark, material=mat.kind, status="stands" if stands else "needs_braces",
-        weight_lb=dead, height_ft=p.height, width_ft=p.width, thickness_in=p.thickness,
+        mark=p.mark, material=mat.kind, status=status,
+        weight_lb=float(w.face_weight[i] * w.height[i] * w.width[i] * w.solidity[i]),
+        height_ft=p.height, width_ft=p.width, thickness_in=p.thickness,
         wind=WindResult(
             basic_speed_mph=site.site.basic_wind_speed, period_factor=float(w.period_factor[i]),
             period_factor_from="set" if site.site.period_factor else "standing time",
-            design_speed_mph=float(design_speed[i]), kz=float(wind.kz[i]), kd=asce7.KD_WALLS,
+            design_speed_mph=float(e.design_speed[i]), kz=float(wind.kz[i]), kd=asce7.KD_WALLS,
             kzt=w.kzt, ke=w.ke, gust_factor=asce7.GUST_FACTOR,
             velocity_pressure_psf=float(wind.q[i]), force_coefficient=float(wind.cf_case_a[i]),
             opening_factor=float(wind.opening[i]), force_lb=float(wind.force_a[i]),
@@ -401,12 +474,80 @@ def _panel_result(site, i, w: Walls, wind: Wind, checks, factors, utilization, l
             end_zone_force_coefficient=float(wind.cf_end[i]),
             interior_force_coefficient=float(wind.cf_interior[i])),
         unbraced=UnbracedResult(
-            utilization=float(utilization[i]), stands=bool(stands), working_limit_speed_mph=lim,
-            stand_down_speed_mph=sd, max_height_ft=_or_none(max_height[i]),
-            max_height_at_limit_ft=_or_none(max_at_limit[i])),
-        checks=items, flags=flags, working_limit_speed_mph=lim, stand_down_speed_mph=sd,
+            utilization=float(e.utilization[i]), stands=bool(stands),
+            working_limit_speed_mph=float(e.limit[i]),
+            stand_down_speed_mph=float(e.stand_down[i]), max_height_ft=_or_none(e.max_height[i]),
+            max_height_at_limit_ft=_or_none(e.max_at_limit[i])),
+        checks=checks, flags=flags, working_limit_speed_mph=limit,
+        stand_down_speed_mph=stand_down,
         governing_element=f"{governing.element} ({governing.region})",
-        sustained_equivalents_mph=gusts.sustained_equivalents(sd))
+        braces=details, sustained_equivalents_mph=gusts.sustained_equivalents(stand_down))
+
+
+def _checks_of(arrays: dict, row: int, w: Walls, factors: Factors, info: dict) -> list[Check]:
+    """The Check objects of one wall (row) from a dict of demand/capacity arrays."""
+    items = []
+    for key, (demand, capacity) in arrays.items():
+        if np.isnan(demand[row]):
+            continue
+        element, _, region = key.partition("|")
+        unit, kind, source = info[element]
+        combo = {"resisting": factors.resisting, "adding": factors.adding,
+                 "wind": factors.wind_only}[kind]
+        items.append(Check(element, region or "worst brace", float(demand[row]),
+                           float(capacity[row]), unit, combo, source))
+    return items
+
+
+def braced_flags(site, p, bs, r, checks, limit, stand_down, missing) -> list[Flag]:
+    """Flags of a braced wall: failing elements, rules of practice, robustness (design.md §6)."""
+    b = p.bracing
+    flags = []
+    for c in checks:
+        if not c.passes:
+            serviceability = c.element in braced.SERVICEABILITY
+            flags.append(Flag(
+                f"{c.element.replace(' ', '-')}-over", "warning" if serviceability else "danger",
+                f"{c.element}: utilization {c.utilization:.2f}"
+                + (" (the wall would crack)" if serviceability else ""), c.source))
+    if any(c.element == "base uplift" and not c.passes for c in checks):
+        flags.append(Flag("braces-lift-wall", "danger", "the braces in compression lift the "
+                          "wall off its base", "statics, design.md §6"))
+    least = site.rule_value("minimum_braces_per_panel")
+    if least and b.count < least:
+        flags.append(Flag("too-few-braces", "danger", f"{b.count} brace(s); at least {least:g} "
+                          "per wall", site.rule("minimum_braces_per_panel").source))
+    lo, hi = site.rule_value("brace_angle_min_deg"), site.rule_value("brace_angle_max_deg")
+    angle = float(bs.angle[r])
+    if lo and hi and not lo - 1e-9 <= angle <= hi + 1e-9:
+        flags.append(Flag("brace-angle", "warning", f"brace angle {angle:.0f} deg is outside "
+                          f"{lo:g} to {hi:g} deg", site.rule("brace_angle_min_deg").source))
+    ratio = site.rule_value("insert_min_height_ratio")
+    if ratio and b.insert_height < ratio * p.height - 1e-9:
+        flags.append(Flag("low-insert", "notice", f"insert at {b.insert_height / p.height:.0%} "
+                          f"of the height, below {ratio:.0%}",
+                          site.rule("insert_min_height_ratio").source))
+    if b.count >= 3 and not b.pretensioned:
+        flags.append(Flag("unequal-sharing", "notice", "3 or more braces share unevenly through "
+                          "slop unless pre-tensioned", "common practice"))
+    if b.count >= 2 and not np.isnan(missing) and missing < stand_down:
+        flags.append(Flag("no-margin", "warning", f"with one brace struck, the wall's limit "
+                          f"falls to {missing:.0f} mph, below the stand-down gust "
+                          f"{stand_down:.0f} mph", "design.md §6 robustness (team rule)"))
+    slender, limit_ratio = bs.slenderness[r], bs.slenderness_limit[r]
+    if slender > limit_ratio:
+        flags.append(Flag("slender-brace", "danger", f"brace slenderness {slender:.0f} exceeds "
+                          f"{limit_ratio:.0f}: add lateral struts or a knee brace",
+                          "AISC 360-16 §E2 user note / NDS 2018 §3.7.1.4"))
+    bt = site.brace_types[b.brace_type]
+    if bt.kind == "rated" and not bt.lengths[0] <= bs.length[r] <= bt.lengths[-1]:
+        flags.append(Flag("outside-rated-range", "danger", f"brace length {bs.length[r]:.1f} ft "
+                          f"is outside the rated table ({bt.lengths[0]:g} to {bt.lengths[-1]:g} "
+                          "ft): no rating", "maker's rated table"))
+    if np.isnan(limit):
+        flags.append(Flag("capacity-unknown", "warning", "a brace or anchor capacity is unknown "
+                          "(outside its rated range?): no working-limit speed", "design.md §3"))
+    return flags
 
 
 def _or_none(x) -> float | None:

@@ -19,6 +19,7 @@ from pydantic import (
 )
 
 from bracing import units
+from bracing.data_members import DRESSED_SIZES_IN, LUMBER_GRADES, PIPES
 
 SCHEMA_VERSION = 1
 
@@ -37,6 +38,7 @@ def _quantity(kind: str, description: str = ""):
 Length = _quantity("length")
 Thickness = _quantity("thickness")
 Area = _quantity("area")
+SectionArea = _quantity("section_area")
 Force = _quantity("force")
 Moment = _quantity("moment")
 Pressure = _quantity("pressure")
@@ -189,6 +191,133 @@ class ReturnWall(Strict):
     length: Length = Positive
 
 
+class BraceType(Strict):
+    """A brace as supplied: rated by its maker, a steel pipe (AISC 360-16), sawn lumber (NDS), or
+    unrated (its forces are computed, its capacity is not known)."""
+
+    kind: Literal["rated", "pipe", "lumber", "unrated"]
+    # rated (adjustable / telescoping): the maker's table of allowable load by length
+    lengths: list[Length] = Field(default_factory=list, description="Rated table lengths (ft).")
+    loads: list[Force] = Field(default_factory=list, description="Allowable loads (lb).")
+    # pipe
+    section: str | None = Field(None, description="Pipe size, e.g. 'Pipe 3 STD'.")
+    yield_strength: Stress = Field(35000.0, gt=0, description="Fy (psi); A53 Gr. B 35 ksi.")
+    knee_brace: bool = Field(False, description="Knee brace at mid-length in the brace's plane.")
+    lateral_struts: int = Field(0, ge=0, description="Out-of-plane struts along the brace.")
+    # lumber
+    size: str | None = Field(None, description="Nominal size, e.g. '4x4'.")
+    species: str = Field("DF-L", description="NDS species group, e.g. 'DF-L', 'SPF'.")
+    grade: str = Field("No.2", description="NDS grade, e.g. 'No.2', 'No.1/No.2'.")
+    # every kind
+    tension_capacity: Force | None = Field(None, gt=0, description="Allowable tension (lb).")
+    end_connection: Force | None = Field(
+        None, gt=0, description="Rated allowable load of the end fittings (lb).")
+    on_hand: int | None = Field(None, ge=0, description="How many the site has.")
+
+    @model_validator(mode="after")
+    def _complete(self):
+        if self.kind == "rated":
+            if len(self.lengths) < 2 or len(self.lengths) != len(self.loads):
+                raise ValueError("a rated brace needs `lengths` and `loads` of equal length (2+)")
+            if any(b <= a for a, b in zip(self.lengths, self.lengths[1:])):
+                raise ValueError("rated table `lengths` must increase")
+            if any(x <= 0 for x in self.loads):
+                raise ValueError("rated table `loads` must be positive")
+        if self.kind == "pipe" and self.section not in PIPES:
+            raise ValueError(f"pipe `section` must be one of {', '.join(PIPES)}")
+        if self.kind == "lumber":
+            if self.size not in DRESSED_SIZES_IN:
+                raise ValueError(f"lumber `size` must be one of {', '.join(DRESSED_SIZES_IN)}")
+            if not any(k[0] == self.species and k[1] == self.grade for k in LUMBER_GRADES):
+                known = sorted({f"{k[0]} {k[1]}" for k in LUMBER_GRADES})
+                raise ValueError(f"unknown lumber species/grade; known: {', '.join(known)}")
+        return self
+
+
+class AnchorType(Strict):
+    """An anchor at either end of a brace: panel insert, slab anchor, helical, deadman, stake."""
+
+    kind: Literal["insert", "slab", "helical", "deadman", "stake"]
+    # insert and stake: the maker's allowable ratings at the angle used
+    rated_tension: Force | None = Field(None, gt=0, description="Allowable tension (lb).")
+    rated_shear: Force | None = Field(None, gt=0, description="Allowable shear (lb).")
+    # slab anchor (ACI 318-19 Ch. 17)
+    embedment: Thickness | None = Field(None, gt=0, description="h_ef (in).")
+    diameter: Thickness | None = Field(None, gt=0, description="d_a (in).")
+    cast_in: bool = Field(False, description="Cast-in (headed) or post-installed.")
+    category: int = Field(1, ge=1, le=3, description="Post-installed anchor category (ACI 355.2).")
+    steel_area: SectionArea | None = Field(None, gt=0, description="A_se,N (in^2).")
+    steel_strength: Stress = Field(75000.0, gt=0, description="f_uta (psi).")
+    pullout: Force | None = Field(None, gt=0, description="Nominal pullout N_p from the product "
+                                                            "report (lb); headed: from bearing area.")
+    bearing_area: SectionArea | None = Field(None, gt=0, description="Headed anchor A_brg (in^2).")
+    slab_thickness: Thickness | None = Field(None, gt=0, description="h_a (in).")
+    concrete_strength: Stress | None = Field(None, gt=0, description="Slab f'c on the day (psi).")
+    cracked: bool = Field(True, description="Cracked concrete (the default, conservative).")
+    edge_distance: Thickness | None = Field(
+        None, gt=0, description="Least edge distance the type needs (in); the plan gives the "
+                                "real one.")
+    # helical (ICC-ES AC358)
+    torque_factor: float = Field(10.0, gt=0, description="K_t (1/ft); 10 for a 1.5 in square "
+                                                         "shaft (secondary).")
+    factor_of_safety: float = Field(2.0, gt=0, description="On K_t T (AC358).")
+    installation_torque: Moment | None = Field(
+        None, gt=0, description="Final installation torque the crew reaches (ft-lb).")
+    # deadman block
+    weight: Force | None = Field(None, gt=0, description="Block weight (lb).")
+    friction_coefficient: float = Field(0.6, gt=0, le=1.0,
+                                        description="Block on slab 0.6 (ACI 318-19 §22.9.4.2); "
+                                                    "on soil IBC Table 1806.2.")
+    on_hand: int | None = Field(None, ge=0, description="How many the site has.")
+
+    @model_validator(mode="after")
+    def _complete(self):
+        needed = {
+            "insert": ("rated_tension", "rated_shear"),
+            "stake": ("rated_tension", "rated_shear"),
+            "slab": ("embedment", "diameter", "steel_area", "slab_thickness",
+                     "concrete_strength"),
+            "helical": ("installation_torque",),
+            "deadman": ("weight",),
+        }[self.kind]
+        missing = [k for k in needed if getattr(self, k) is None]
+        if missing:
+            raise ValueError(f"a {self.kind} anchor needs {', '.join(missing)}")
+        return self
+
+
+class Bracing(Strict):
+    """How one wall is braced: count, positions, insert height, foot distance, hardware."""
+
+    brace_type: str = Field(description="A key of [brace_types].")
+    wall_anchor: str | None = Field(None, description="Anchor on the wall: a key of "
+                                                       "[anchor_types] (an insert).")
+    foot_anchor: str | None = Field(None, description="Anchor at the brace foot: a key of "
+                                                       "[anchor_types].")
+    count: int = Field(ge=1, le=20)
+    insert_height: Length = Field(gt=0, description="Above the wall's base (ft).")
+    anchor_distance: Length | None = Field(None, gt=0, description="Foot from the wall face (ft).")
+    angle: Angle | None = Field(None, gt=0, lt=90, description="From horizontal (deg).")
+    positions: list[Length] = Field(
+        default_factory=list, description="From the wall's left edge (ft); default: the "
+                                          "centres of equal strips.")
+    insert_offset: Thickness = Field(0.0, ge=0, description="Brace pin out from the face (in).")
+    foot_offset: Thickness = Field(0.0, ge=0, description="Foot pin above the slab (in).")
+    base_below_slab: Length = Field(0.0, ge=0, description="Wall base below the slab the "
+                                                           "braces stand on (ft).")
+    lean: Thickness = Field(0.25, ge=0, description="Erection out-of-plumb at the top (in).")
+    slop: Thickness = Field(0.125, ge=0, description="Brace slop at the insert (in).")
+    pretensioned: bool = Field(False, description="Braces pre-tensioned to share evenly.")
+
+    @model_validator(mode="after")
+    def _geometry(self):
+        if (self.anchor_distance is None) == (self.angle is None):
+            raise ValueError("give exactly one of anchor_distance or angle")
+        if self.positions and len(self.positions) != self.count:
+            raise ValueError(f"{len(self.positions)} positions for {self.count} braces")
+        return self
+
+
 class Panel(Strict):
     """A wall panel or wall segment standing on its own or on braces."""
 
@@ -210,9 +339,16 @@ class Panel(Strict):
     standing_time: Duration | None = Field(
         None, gt=0, description="Weeks the wall stands before release; default the site's.")
     mortar_age: Age | None = Field(None, ge=0, description="Masonry: age of the mortar (days).")
+    bracing: Bracing | None = None
 
     @model_validator(mode="after")
     def _openings_fit(self):
+        b = self.bracing
+        if b is not None:
+            if b.insert_height > self.height:
+                raise ValueError("bracing.insert_height is above the wall's top")
+            if any(x < 0 or x > self.width for x in b.positions):
+                raise ValueError("a bracing position lies outside the wall's width")
         for i, o in enumerate(self.openings):
             if o.x + o.width > self.width + 1e-9 or o.y + o.height > self.height + 1e-9:
                 raise ValueError(f"opening {i + 1} does not fit inside the panel")
@@ -231,6 +367,8 @@ class Site(Strict):
     site: SiteInfo
     rules: dict[str, Rule] = Field(default_factory=dict)
     materials: dict[str, Material]
+    brace_types: dict[str, BraceType] = Field(default_factory=dict)
+    anchor_types: dict[str, AnchorType] = Field(default_factory=dict)
     panels: list[Panel] = Field(min_length=1)
 
     @model_validator(mode="after")
@@ -243,6 +381,15 @@ class Site(Strict):
         for p in self.panels:
             if p.material not in self.materials:
                 raise ValueError(f"panel {p.mark}: material {p.material!r} is not in [materials]")
+            b = p.bracing
+            if b is not None:
+                if b.brace_type not in self.brace_types:
+                    raise ValueError(f"panel {p.mark}: brace_type {b.brace_type!r} is not in "
+                                     f"[brace_types]")
+                for anchor in (b.wall_anchor, b.foot_anchor):
+                    if anchor is not None and anchor not in self.anchor_types:
+                        raise ValueError(f"panel {p.mark}: anchor {anchor!r} is not in "
+                                         f"[anchor_types]")
             if p.mark in marks:
                 raise ValueError(f"panel mark {p.mark!r} is used twice")
             marks.add(p.mark)

@@ -73,3 +73,12 @@ def rectangle_centroid(width, height, openings):
         area -= w * h
         moment -= w * h * (y + h / 2.0)
     return area, moment / area
+
+
+def masonry_bed_joint_shear(area_in2, axial_lb, fm_psi=2000.0):
+    """Allowable shear along a cured bed joint, running bond (lb per ft; TMS 402-16 §8.2.6.2).
+
+    Fv = least of 1.5 sqrt(f'm), 120 psi and 37 psi + 0.45 Nv/An (from memory).
+    """
+    fv = np.minimum(np.minimum(1.5 * np.sqrt(fm_psi), 120.0), 37.0 + 0.45 * axial_lb / area_in2)
+    return fv * area_in2

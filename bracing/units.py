@@ -7,6 +7,7 @@ a bare number takes it, a value with a unit is converted with pint. A value of t
 
 from __future__ import annotations
 
+import math
 from functools import lru_cache
 
 import pint
@@ -25,6 +26,7 @@ KINDS: dict[str, tuple[str, str]] = {
     "length": ("ft", "a length"),
     "thickness": ("in", "a length"),
     "area": ("ft**2", "an area"),
+    "section_area": ("in**2", "an area"),
     "force": ("lbf", "a force"),
     "moment": ("ft*lbf", "a moment or torque"),
     "pressure": ("psf", "a pressure"),
@@ -43,6 +45,7 @@ DISPLAY = {
     "ft": ("ft", "m"),
     "in": ("in", "mm"),
     "ft**2": ("ft**2", "m**2"),
+    "in**2": ("in**2", "mm**2"),
     "lbf": ("lbf", "kN"),
     "ft*lbf": ("ft*lbf", "kN*m"),
     "psf": ("psf", "kPa"),
@@ -51,7 +54,7 @@ DISPLAY = {
     "plf": ("plf", "kN/m"),
     "mph": ("mph", "m/s"),
 }
-SHORT = {"ft**2": "ft²", "m**2": "m²", "lbf": "lb", "ft*lbf": "lb·ft", "kN*m": "kN·m",
+SHORT = {"ft**2": "ft²", "m**2": "m²", "in**2": "in²", "mm**2": "mm²", "lbf": "lb", "ft*lbf": "lb·ft", "kN*m": "kN·m",
          "kN/m**3": "kN/m³", "m/s": "m/s"}
 
 
@@ -70,11 +73,13 @@ def _parse_text(text: str, unit: str, kind_word: str) -> float:
         q = ureg.Quantity(text.strip())
     except Exception as exc:  # pint raises several types for unreadable text
         raise UnitError(f"cannot read {text!r} as {kind_word} (for example '12 {unit}')") from exc
+    target = ureg.Unit(unit)
     if isinstance(q, (int, float)) or q.unitless:
         if q.unitless and str(q.units) not in ("dimensionless", ""):
-            return float(q.to(unit).magnitude)  # degrees and radians are unitless in pint
+            if not q.is_compatible_with(target):  # "10 %" for a length
+                raise UnitError(f"{text!r} is not {kind_word} (expected a unit like {unit})")
+            return float(q.to(target).magnitude)  # degrees and radians are unitless in pint
         return float(q.magnitude if hasattr(q, "magnitude") else q)
-    target = ureg.Unit(unit)
     if not q.is_compatible_with(target):
         weighed = _mass_to_force(q)
         if weighed.is_compatible_with(target):
@@ -90,10 +95,15 @@ def parse(value: object, kind: str) -> float:
     if isinstance(value, bool):
         raise UnitError(f"expected {kind_word}, got {value!r}")
     if isinstance(value, (int, float)):
-        return float(value)
-    if isinstance(value, str):
-        return _parse_text(value, unit, kind_word)
-    raise UnitError(f"expected {kind_word} as a number or text like '12 {unit}', got {value!r}")
+        number = float(value)
+    elif isinstance(value, str):
+        number = _parse_text(value, unit, kind_word)
+    else:
+        raise UnitError(f"expected {kind_word} as a number or text like '12 {unit}', "
+                        f"got {value!r}")
+    if not math.isfinite(number):  # nan and inf: TOML and pint both read them
+        raise UnitError(f"expected {kind_word} as a finite number, got {value!r}")
+    return number
 
 
 def convert(value: float, unit: str, system: str) -> tuple[float, str]:

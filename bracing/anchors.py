@@ -1,0 +1,407 @@
+"""Anchor capacity: slab anchors (ACI 318-19 Ch. 17), helical anchors (ICC-ES AC358), deadmen.
+
+Pure functions over floats or numpy arrays. Forces in lb, lengths in in (anchors) or ft
+(deadmen), f'c in psi. ACI 318 gives nominal strengths and strength design (phi Nn); the
+team's ASD basis divides phi Nn by alpha = 1.0/0.6 (design.md §3: wind governs).
+Cracked concrete and normal-weight concrete (lambda_a = 1.0) by default; single anchors only.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+
+# --- Strength reduction factors, ACI 318-19 Table 17.5.3 (from memory unless noted) -----------
+PHI_STEEL = {  # (a) steel: ductile / brittle element
+    ("tension", True): 0.75, ("shear", True): 0.65,
+    ("tension", False): 0.65, ("shear", False): 0.60,
+}
+PHI_CAST_IN = 0.70  # (b), (c) Condition B: tension breakout, pullout (text via design guide)
+PHI_POST_INSTALLED = {1: 0.65, 2: 0.55, 3: 0.45}  # (b), (c) Condition B, anchor category
+PHI_SHEAR_CONCRETE = 0.70  # (b) Condition B: shear breakout and pryout, any anchor type
+ASD_FROM_STRENGTH = 0.6  # 1 / alpha, alpha = 1.0/0.6 (design.md §3; team's basis)
+LAMBDA_A_NORMAL_WEIGHT = 1.0  # ACI 318-19 §17.2.4
+
+# --- Helical anchors, ICC-ES AC358: torque correlation factor Kt (1/ft) -----------------------
+KT_AC358_PER_FT = {"1.5in_square": 10.0, "2.875in_round": 9.0, "3.5in_round": 7.0}
+KT_AC358_CERTAINTY = {"1.5in_square": "secondary", "2.875in_round": "from memory",
+                      "3.5in_round": "from memory"}
+HELICAL_FACTOR_OF_SAFETY = 2.0  # ICC-ES AC358 (secondary)
+
+# --- Deadman friction and bearing ------------------------------------------------------------
+# IBC Table 1806.2 lateral sliding resistance coefficients: ALLOWABLE values, times dead load.
+# text (2012 edition), except crystalline bedrock (from memory).
+FRICTION_IBC_1806_2 = {
+    "crystalline_bedrock": 0.70,
+    "sedimentary_rock": 0.35,  # sedimentary and foliated rock
+    "sandy_gravel": 0.35,  # sandy gravel and/or gravel (GW, GP)
+    "silty_sand": 0.25,  # sand, silty sand, clayey sand, silty and clayey gravel (SW..GC)
+}
+# IBC Table 1806.2 clays and silts (CL, ML, MH, CH): cohesion 130 psf times the contact area,
+# at most half the dead load (text, 2012 edition).
+COHESION_IBC_1806_2_PSF = {"clay_silt": 130.0}
+# IBC Table 1806.2 presumptive allowable foundation pressure, psf (from memory).
+BEARING_IBC_1806_2_PSF = {
+    "crystalline_bedrock": 12_000.0, "sedimentary_rock": 4_000.0, "sandy_gravel": 3_000.0,
+    "silty_sand": 2_000.0, "clay_silt": 1_500.0,
+}
+# NAVFAC DM-7.02 Table 1, mass concrete on soil: ULTIMATE friction factors, lower end of each
+# published range (from memory): divide by SLIDING_FS_ULTIMATE.
+FRICTION_NAVFAC_DM7_02 = {
+    "sandy_gravel": 0.55,  # clean gravel, gravel-sand mixtures, coarse sand: 0.55-0.60
+    "medium_sand": 0.45,  # clean fine to medium sand, silty medium to coarse sand: 0.45-0.55
+    "silty_sand": 0.35,  # clean fine sand, silty or clayey fine to medium sand: 0.35-0.45
+    "stiff_clay": 0.30,  # medium stiff and stiff clay and silty clay: 0.30-0.35
+}
+# Block resting on a slab: ACI 318-19 Table 22.9.4.2, concrete against hardened concrete not
+# intentionally roughened, mu = 0.6 lambda (from memory); a nominal value, so divide by the FS.
+FRICTION_CONCRETE_ON_CONCRETE = 0.6
+SLIDING_FS_ULTIMATE = 1.5  # on ultimate or nominal friction (NAVFAC DM-7.02, from memory)
+DEAD_LOAD_FACTOR_RESISTING = {"ASD": 0.6, "LRFD": 0.9}  # ASCE 7-16 §2.4.1 / §2.3.1
+
+
+def _dead_load_factor(basis):
+    if basis not in DEAD_LOAD_FACTOR_RESISTING:
+        raise ValueError(f"basis must be 'ASD' or 'LRFD', not {basis!r}")
+    return DEAD_LOAD_FACTOR_RESISTING[basis]
+
+
+def _on_basis(phi_nominal, basis):
+    """Strength-design value phi*N on the requested basis (ASD: times 0.6)."""
+    if basis == "ASD":
+        return asd_from_strength(phi_nominal)
+    if basis == "LRFD":
+        return phi_nominal
+    raise ValueError(f"basis must be 'ASD' or 'LRFD', not {basis!r}")
+
+
+def asd_from_strength(phi_Nn):
+    """Allowable value from an ACI strength-design value: phi Nn / alpha, alpha = 1.0/0.6.
+
+    ACI 318-19 is strength design; the conversion is the team's ASD basis (design.md §3).
+    """
+    return (np.asarray(phi_Nn, dtype=float) * ASD_FROM_STRENGTH)[()]
+
+
+def phi_concrete_tension(cast_in=True, category=1):
+    """phi for tension breakout and pullout, Condition B. ACI 318-19 Table 17.5.3(b), (c)."""
+    post = np.select([np.asarray(category) == k for k in PHI_POST_INSTALLED],
+                     list(PHI_POST_INSTALLED.values()), default=np.nan)
+    return np.where(cast_in, PHI_CAST_IN, post)[()]
+
+
+# --- Tension -------------------------------------------------------------------------------
+def basic_breakout_tension(hef_in, fc_psi, cast_in=True, lambda_a=LAMBDA_A_NORMAL_WEIGHT):
+    """Basic breakout strength Nb of one anchor in cracked concrete, lb.
+
+    Nb = kc lambda_a sqrt(f'c) hef^1.5, kc 24 cast-in / 17 post-installed (ACI 318-19
+    Eq. 17.6.2.2.1). Cast-in with 11 <= hef <= 25 in: not more than 16 lambda_a sqrt(f'c)
+    hef^(5/3) (Eq. 17.6.2.2.3; taken as the lesser, conservative whichever way it is read).
+    """
+    hef = np.asarray(hef_in, dtype=float)
+    root = lambda_a * np.sqrt(fc_psi)
+    nb = np.where(cast_in, 24.0, 17.0) * root * hef**1.5
+    deep = np.asarray(cast_in) & (hef >= 11.0) & (hef <= 25.0)
+    return np.where(deep, np.minimum(nb, 16.0 * root * hef ** (5.0 / 3.0)), nb)[()]
+
+
+def reference_area_tension(hef_in):
+    """Projected breakout area of one anchor far from edges, A_Nco = 9 hef^2, in2.
+
+    ACI 318-19 Eq. 17.6.2.1.4.
+    """
+    return (9.0 * np.asarray(hef_in, dtype=float) ** 2)[()]
+
+
+def projected_area_tension(hef_in, c1_in=np.inf, c2_in=np.inf, c3_in=np.inf, c4_in=np.inf):
+    """Projected breakout area A_Nc of one anchor with up to four edges, in2.
+
+    c1/c3 are the edge distances on opposite sides in one direction, c2/c4 in the other
+    (inf where there is no edge); each side reaches at most 1.5 hef. ACI 318-19 §17.6.2.1.1,
+    Fig. R17.6.2.1.1.
+    """
+    reach = 1.5 * np.asarray(hef_in, dtype=float)
+    return ((np.minimum(c1_in, reach) + np.minimum(c3_in, reach))
+            * (np.minimum(c2_in, reach) + np.minimum(c4_in, reach)))[()]
+
+
+def narrow_member_embedment(hef_in, c1_in=np.inf, c2_in=np.inf, c3_in=np.inf, c4_in=np.inf):
+    """hef to use where an anchor is within 1.5 hef of three or more edges, in.
+
+    hef' = ca,max / 1.5, ca,max the largest edge distance that is < 1.5 hef.
+    ACI 318-19 §17.6.2.1.2 (single anchor: no spacing term).
+    """
+    hef = np.asarray(hef_in, dtype=float)
+    edges = np.stack(np.broadcast_arrays(c1_in, c2_in, c3_in, c4_in, hef)[:4]).astype(float)
+    near = edges < 1.5 * hef
+    ca_max = np.max(np.where(near, edges, 0.0), axis=0)
+    return np.where(np.sum(near, axis=0) >= 3, np.minimum(hef, ca_max / 1.5), hef)[()]
+
+
+def near_three_or_more_edges(hef_in, c1_in=np.inf, c2_in=np.inf, c3_in=np.inf, c4_in=np.inf):
+    """True where an anchor lies within 1.5 hef of three or more edges (ACI 318-19
+    §17.6.2.1.2 applies). The reduced-hef rule is not monotonic in the edge distances (moving
+    an edge away can lower N_cb): flag such anchors and move them rather than rely on it."""
+    hef = np.asarray(hef_in, dtype=float)
+    edges = np.stack(np.broadcast_arrays(c1_in, c2_in, c3_in, c4_in, hef)[:4]).astype(float)
+    return np.sum(edges < 1.5 * hef, axis=0) >= 3
+
+
+def psi_ed_n(ca_min_in, hef_in):
+    """Edge-effect factor for tension breakout. ACI 318-19 Eq. 17.6.2.4.1a/b.
+
+    1.0 where ca,min >= 1.5 hef, else 0.7 + 0.3 ca,min / (1.5 hef).
+    """
+    reach = 1.5 * np.asarray(hef_in, dtype=float)
+    return np.where(ca_min_in >= reach, 1.0, 0.7 + 0.3 * np.asarray(ca_min_in) / reach)[()]
+
+
+def psi_c_n(cracked=True, cast_in=True):
+    """Cracking factor for tension breakout: 1.0 cracked; uncracked 1.25 cast-in, 1.4
+    post-installed (kc = 17). ACI 318-19 §17.6.2.5.1."""
+    return np.where(cracked, 1.0, np.where(cast_in, 1.25, 1.4))[()]
+
+
+def psi_cp_n(ca_min_in, cac_in, hef_in, post_installed_uncracked):
+    """Splitting factor: ca,min / cac, not less than 1.5 hef / cac, where ca,min < cac for a
+    post-installed anchor designed as uncracked; 1.0 otherwise. ACI 318-19 Eq. 17.6.2.6.1a/b.
+    """
+    ratio = np.maximum(ca_min_in, 1.5 * np.asarray(hef_in, dtype=float)) / cac_in
+    return np.where(post_installed_uncracked, np.minimum(ratio, 1.0), 1.0)[()]
+
+
+def tension_breakout(hef_in, fc_psi, c1_in=np.inf, c2_in=np.inf, c3_in=np.inf, c4_in=np.inf,
+                     cast_in=True, cracked=True, cac_in=None, lambda_a=LAMBDA_A_NORMAL_WEIGHT):
+    """Nominal concrete breakout strength of one anchor in tension, N_cb, lb.
+
+    N_cb = A_Nc / A_Nco psi_ed,N psi_c,N psi_cp,N N_b (ACI 318-19 Eq. 17.6.2.1a), with hef
+    reduced near three or more edges (§17.6.2.1.2). cac (§17.9.5) defaults to 4 hef, the
+    largest tabulated (expansion anchors): only used for post-installed anchors, uncracked.
+    """
+    hef_actual = np.asarray(hef_in, dtype=float)
+    hef = narrow_member_embedment(hef_actual, c1_in, c2_in, c3_in, c4_in)
+    ca_min = np.minimum(np.minimum(c1_in, c2_in), np.minimum(c3_in, c4_in))
+    cac = 4.0 * hef_actual if cac_in is None else cac_in
+    post_uncracked = ~np.asarray(cast_in, dtype=bool) & ~np.asarray(cracked, dtype=bool)
+    area_ratio = (projected_area_tension(hef, c1_in, c2_in, c3_in, c4_in)
+                  / reference_area_tension(hef))
+    return (area_ratio * psi_ed_n(ca_min, hef) * psi_c_n(cracked, cast_in)
+            * psi_cp_n(ca_min, cac, hef, post_uncracked)
+            * basic_breakout_tension(hef, fc_psi, cast_in, lambda_a))[()]
+
+
+def _futa_effective(futa_psi, fya_psi):
+    """futa not more than 1.9 fya nor 125,000 psi. ACI 318-19 §17.6.1.2."""
+    futa = np.minimum(np.asarray(futa_psi, dtype=float), 125_000.0)
+    return futa if fya_psi is None else np.minimum(futa, 1.9 * np.asarray(fya_psi))
+
+
+def steel_tension(Ase_in2, futa_psi, fya_psi=None):
+    """Nominal steel strength in tension, N_sa = A_se,N futa, lb. ACI 318-19 Eq. 17.6.1.2."""
+    return (np.asarray(Ase_in2, dtype=float) * _futa_effective(futa_psi, fya_psi))[()]
+
+
+def headed_pullout(Abrg_in2, fc_psi, cracked=True):
+    """Nominal pullout strength of a headed stud or bolt, N_pn = psi_c,P 8 A_brg f'c, lb.
+
+    ACI 318-19 Eq. 17.6.3.1 and 17.6.3.2.2a; psi_c,P = 1.4 uncracked, 1.0 cracked (§17.6.3.3.1).
+    """
+    return (np.where(cracked, 1.0, 1.4) * 8.0 * np.asarray(Abrg_in2, dtype=float) * fc_psi)[()]
+
+
+# --- Shear ---------------------------------------------------------------------------------
+def steel_shear(Ase_in2, futa_psi, grout_pad=False, fya_psi=None):
+    """Nominal steel strength in shear of a headed bolt or post-installed anchor, lb.
+
+    V_sa = 0.6 A_se,V futa (ACI 318-19 Eq. 17.7.1.2b), times 0.80 on a grout pad (§17.7.1.2.1).
+    """
+    pad = np.where(grout_pad, 0.80, 1.0)
+    return (0.6 * np.asarray(Ase_in2, dtype=float) * _futa_effective(futa_psi, fya_psi) * pad)[()]
+
+
+def shear_breakout(ca1_in, le_in, da_in, fc_psi, ha_in, ca2_in=np.inf, ca2_other_in=np.inf,
+                   cracked=True, lambda_a=LAMBDA_A_NORMAL_WEIGHT):
+    """Nominal concrete breakout strength of one anchor in shear toward an edge, V_cb, lb.
+
+    ca1: edge distance in the direction of the shear (inf: no edge, V_cb = inf); ca2,
+    ca2_other: edge distances at right angles on either side; ha: member thickness.
+    V_cb = A_Vc / A_Vco psi_ed,V psi_c,V psi_h,V V_b (ACI 318-19 Eq. 17.7.2.1a);
+    A_Vco = 4.5 ca1^2 (Eq. 17.7.2.1.3); ca1 limited in narrow thin members (§17.7.2.1.2);
+    V_b the lesser of 7 (le/da)^0.2 sqrt(da) lambda_a sqrt(f'c) ca1^1.5 and
+    9 lambda_a sqrt(f'c) ca1^1.5 (Eq. 17.7.2.2.1a/b), le <= 8 da; psi_ed,V (Eq. 17.7.2.4.1a/b);
+    psi_c,V 1.0 cracked without supplementary reinforcement, 1.4 uncracked (§17.7.2.5.1);
+    psi_h,V = sqrt(1.5 ca1 / ha) >= 1.0 (Eq. 17.7.2.6.1).
+    """
+    ca1_actual = np.asarray(ca1_in, dtype=float)
+    ha = np.asarray(ha_in, dtype=float)
+    narrow = ((np.maximum(ca2_in, ca2_other_in) < 1.5 * ca1_actual)
+              & (ha < 1.5 * ca1_actual))
+    ca1_limit = np.maximum(np.maximum(ca2_in, ca2_other_in) / 1.5, ha / 1.5)
+    ca1 = np.where(narrow, np.minimum(ca1_actual, ca1_limit), ca1_actual)
+    reach = 1.5 * ca1
+    le = np.minimum(le_in, 8.0 * np.asarray(da_in, dtype=float))
+    root = lambda_a * np.sqrt(fc_psi)
+    with np.errstate(invalid="ignore", divide="ignore"):
+        vb = np.minimum(7.0 * (le / da_in) ** 0.2 * np.sqrt(da_in), 9.0) * root * ca1**1.5
+        a_vc = (np.minimum(ca2_in, reach) + np.minimum(ca2_other_in, reach)) * np.minimum(ha, reach)
+        a_vco = 4.5 * ca1**2
+        ca2_min = np.minimum(ca2_in, ca2_other_in)
+        psi_ed = np.where(ca2_min >= reach, 1.0, 0.7 + 0.3 * ca2_min / reach)
+        psi_h = np.maximum(np.sqrt(reach / ha), 1.0)
+        vcb = a_vc / a_vco * psi_ed * np.where(cracked, 1.0, 1.4) * psi_h * vb
+    return np.where(np.isinf(ca1_actual), np.inf, vcb)[()]
+
+
+def pryout(Ncp_lb, hef_in):
+    """Nominal pryout strength V_cp = kcp N_cp, kcp 1.0 for hef < 2.5 in, else 2.0, lb.
+
+    ACI 318-19 Eq. 17.7.3.1a. N_cp = N_cb for cast-in, expansion, screw and undercut anchors.
+    """
+    return (np.where(np.asarray(hef_in) < 2.5, 1.0, 2.0) * np.asarray(Ncp_lb, dtype=float))[()]
+
+
+def tension_shear_interaction(Nua, phiNn, Vua, phiVn):
+    """Tension-shear interaction ratio, passes at <= 1.0. ACI 318-19 §17.8.
+
+    Full strength in tension where V <= 0.2 phiVn, full strength in shear where
+    N <= 0.2 phiNn (§17.8.1, 17.8.2): ratio = max(N/phiNn, V/phiVn); otherwise
+    (N/phiNn + V/phiVn) / 1.2 (Eq. 17.8.3), never below either single ratio.
+    Works on either basis as long as demand and capacity share it.
+    """
+    n = np.abs(Nua) / np.asarray(phiNn, dtype=float)
+    v = np.abs(Vua) / np.asarray(phiVn, dtype=float)
+    single = np.maximum(n, v)
+    return np.where((n <= 0.2) | (v <= 0.2), single, np.maximum(single, (n + v) / 1.2))[()]
+
+
+@dataclass(frozen=True)
+class AnchorCapacity:
+    """Capacities of one slab anchor (or arrays of them), lb, on `basis`, by failure mode."""
+
+    basis: str
+    steel_tension: np.ndarray
+    breakout_tension: np.ndarray
+    pullout: np.ndarray
+    steel_shear: np.ndarray
+    breakout_shear: np.ndarray
+    pryout: np.ndarray
+    tension: np.ndarray
+    shear: np.ndarray
+    tension_mode: np.ndarray
+    shear_mode: np.ndarray
+
+
+def _governing(values, names):
+    """Least capacity and its mode name; NaN (a mode that cannot be evaluated) propagates."""
+    stack = np.stack(np.broadcast_arrays(*values)).astype(float)
+    least = np.min(stack, axis=0)  # NaN wins: an unknown mode leaves the anchor unknown
+    mode = np.asarray(names)[np.argmin(np.where(np.isnan(stack), -np.inf, stack), axis=0)]
+    return least[()], mode
+
+
+def slab_anchor_capacity(hef_in, fc_psi, Ase_in2, futa_psi, da_in, ha_in,
+                         c1_in=np.inf, c2_in=np.inf, c3_in=np.inf, c4_in=np.inf,
+                         cast_in=True, cracked=True, category=1, ductile=True,
+                         Abrg_in2=None, pullout_lb=None, fya_psi=None, cac_in=None,
+                         grout_pad=False, basis="ASD", lambda_a=LAMBDA_A_NORMAL_WEIGHT):
+    """Tension and shear capacity of one anchor in a slab by every ACI 318-19 Ch. 17 mode.
+
+    Edges: c1 in the direction of the shear (the foot's pull toward the wall for a brace in
+    tension), c3 behind it, c2/c4 at the sides; inf where there is no edge. Pullout: headed
+    (Abrg_in2) or the nominal value from the product's report (pullout_lb); with neither it
+    is NaN and so is the governing tension (inf where the report says pullout does not
+    govern). Adhesive bond (§17.6.5) is not covered. Condition B phi (Table 17.5.3).
+    """
+    ncb = tension_breakout(hef_in, fc_psi, c1_in, c2_in, c3_in, c4_in, cast_in, cracked,
+                           cac_in, lambda_a)
+    if Abrg_in2 is not None:
+        npn = headed_pullout(Abrg_in2, fc_psi, cracked)
+    elif pullout_lb is not None:
+        npn = np.asarray(pullout_lb, dtype=float)
+    else:
+        npn = np.full(np.shape(ncb), np.nan)
+    phi_concrete = phi_concrete_tension(cast_in, category)
+    modes_t = (
+        _on_basis(PHI_STEEL[("tension", ductile)] * steel_tension(Ase_in2, futa_psi, fya_psi),
+                  basis),
+        _on_basis(phi_concrete * ncb, basis),
+        _on_basis(phi_concrete * npn, basis),
+    )
+    modes_v = (
+        _on_basis(PHI_STEEL[("shear", ductile)]
+                  * steel_shear(Ase_in2, futa_psi, grout_pad, fya_psi), basis),
+        _on_basis(PHI_SHEAR_CONCRETE * shear_breakout(c1_in, hef_in, da_in, fc_psi, ha_in, c2_in,
+                                                      c4_in, cracked, lambda_a), basis),
+        _on_basis(PHI_SHEAR_CONCRETE * pryout(ncb, hef_in), basis),
+    )
+    modes = [m[()] for m in np.broadcast_arrays(*modes_t, *modes_v)]
+    modes_t, modes_v = modes[:3], modes[3:]
+    tension, tension_mode = _governing(modes_t, ["steel", "concrete breakout", "pullout"])
+    shear, shear_mode = _governing(modes_v, ["steel", "concrete breakout", "pryout"])
+    return AnchorCapacity(basis, *modes_t, *modes_v, tension, shear, tension_mode, shear_mode)
+
+
+def post_installed_embedment_ok(hef_in, ha_in):
+    """True where hef <= max(2/3 ha, ha - 4 in): post-installed expansion, screw and undercut
+    anchors in a slab of thickness ha. ACI 318-19 §17.9.4 (from memory)."""
+    ha = np.asarray(ha_in, dtype=float)
+    return np.asarray(hef_in) <= np.maximum(2.0 * ha / 3.0, ha - 4.0)
+
+
+# --- Helical ground anchors: ICC-ES AC358 ----------------------------------------------------
+def helical_capacity(torque_ftlb, Kt_per_ft=10.0, factor_of_safety=HELICAL_FACTOR_OF_SAFETY):
+    """Allowable tension of a helical anchor from its final installation torque, lb.
+
+    Q_ult = Kt T (ICC-ES AC358); allowable = Q_ult / FS.
+    """
+    return (np.asarray(Kt_per_ft, dtype=float) * torque_ftlb / factor_of_safety)[()]
+
+
+def required_torque(load_lb, Kt_per_ft=10.0, factor_of_safety=HELICAL_FACTOR_OF_SAFETY):
+    """Final installation torque for an allowable load, T = FS P / Kt, ft-lb (ICC-ES AC358)."""
+    return (factor_of_safety * np.asarray(load_lb, dtype=float) / Kt_per_ft)[()]
+
+
+# --- Deadman blocks ------------------------------------------------------------------------
+def deadman_uplift(weight_lb, basis="ASD"):
+    """Uplift a deadman resists by weight alone, lb: 0.6 W (ASD) or 0.9 W (LRFD).
+
+    ASCE 7-16 §2.4.1 (0.6D + 0.6W) / §2.3.1 (0.9D + 1.0W); compare with the uplift demand.
+    """
+    return (_dead_load_factor(basis) * np.asarray(weight_lb, dtype=float))[()]
+
+
+def deadman_sliding(weight_lb, uplift_lb, mu, factor_of_safety=1.0, basis="ASD"):
+    """Horizontal force a deadman resists by friction, lb: mu / FS (0.6 W - uplift) >= 0.
+
+    IBC Table 1806.2 coefficients are already allowable (FS 1.0); NAVFAC DM-7.02 ultimate
+    values and concrete on concrete (ACI 318-19 Table 22.9.4.2) take SLIDING_FS_ULTIMATE.
+    Dead load factor by basis (ASCE 7-16 §2.4.1 / §2.3.1); uplift is on the same basis.
+    """
+    normal = _dead_load_factor(basis) * np.asarray(weight_lb, dtype=float) - uplift_lb
+    return (np.asarray(mu, dtype=float) / factor_of_safety * np.maximum(normal, 0.0))[()]
+
+
+def deadman_sliding_cohesion(contact_area_ft2, weight_lb, uplift_lb,
+                             cohesion_psf=COHESION_IBC_1806_2_PSF["clay_silt"], basis="ASD"):
+    """Sliding resistance on clay and silt, lb: cohesion times contact area, at most half the
+    dead load (IBC Table 1806.2 and note); the dead load net of uplift on the basis used."""
+    normal = _dead_load_factor(basis) * np.asarray(weight_lb, dtype=float) - uplift_lb
+    return np.minimum(cohesion_psf * np.asarray(contact_area_ft2, dtype=float),
+                      0.5 * np.maximum(normal, 0.0))[()]
+
+
+def deadman_overturning_moment(pull_lb, uplift_lb, attach_height_ft, attach_from_toe_ft):
+    """Overturning moment about the deadman's toe (its edge nearer the wall), lb-ft.
+
+    The brace foot pulls horizontally (pull_lb) at attach_height_ft above the block's base
+    and lifts (uplift_lb) at attach_from_toe_ft from the toe in plan (statics).
+    """
+    return (np.asarray(pull_lb, dtype=float) * attach_height_ft
+            + np.asarray(uplift_lb, dtype=float) * attach_from_toe_ft)[()]
+
+
+def deadman_resisting_moment(weight_lb, toe_to_centroid_ft, basis="ASD"):
+    """Moment of the deadman's factored weight about its toe, lb-ft (0.6 W ASD, 0.9 W LRFD)."""
+    return (deadman_uplift(weight_lb, basis) * np.asarray(toe_to_centroid_ft, dtype=float))[()]

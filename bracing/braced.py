@@ -1,0 +1,390 @@
+"""Braced walls (design.md §6): brace forces and every element's check, vectorised over walls.
+
+`gather_braces` reads each braced wall's layout and its brace and anchor capacities into arrays
+once; `braced_checks` then gives demand and capacity of each element for any wind (design or an
+observed gust), so the working-limit speed is found by bisection like the unbraced one.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, fields, replace
+
+import numpy as np
+
+from bracing import anchors, braces, members, stability
+from bracing.data_members import DRESSED_SIZES_IN, LUMBER_GRADES, PIPES
+from bracing.wind import asce7
+
+IN = 1.0 / 12.0  # ft per in
+
+
+@dataclass(frozen=True)
+class BraceSet:
+    """The braced walls of a site as arrays: m walls by k brace slots (mask marks real braces)."""
+
+    index: np.ndarray           # panel index of each braced wall
+    positions: np.ndarray       # (m, k) ft from the wall's left edge
+    mask: np.ndarray            # (m, k)
+    insert: np.ndarray          # insert height above the wall's base, ft
+    anchor_distance: np.ndarray  # foot from the wall face, ft
+    angle: np.ndarray           # deg from horizontal
+    length: np.ndarray          # pin to pin, ft
+    lean: np.ndarray            # ft at the top
+    slop: np.ndarray            # ft at the insert
+    compression: np.ndarray     # allowable brace compression (lb) before self-weight bending
+    tension: np.ndarray         # allowable brace tension (lb)
+    connection: np.ndarray      # rated end fittings (lb), NaN if not given
+    self_weight_ratio: np.ndarray  # pipe: self-weight moment / available moment (0 otherwise)
+    euler_load: np.ndarray      # pipe: Pe1 for the moment amplifier (lb), inf otherwise
+    insert_tension: np.ndarray  # wall insert ratings (lb), NaN if no wall anchor given
+    insert_shear: np.ndarray
+    foot_kind: np.ndarray       # '', 'slab', 'helical', 'deadman', 'stake', 'insert'
+    foot_tension: np.ndarray    # slab/stake allowable tension, helical allowable, deadman weight
+    foot_shear: np.ndarray      # slab/stake allowable shear
+    foot_mu: np.ndarray         # deadman friction / FS
+    helical_factor: np.ndarray  # Kt / FS (1/ft) for the required torque
+    rupture: np.ndarray         # concrete modulus of rupture, psi (NaN: not concrete)
+    pretensioned: np.ndarray
+    slenderness: np.ndarray     # governing Lc/r (pipe) or le/d (lumber), NaN for rated braces
+    slenderness_limit: np.ndarray
+    amplifier_alpha: float      # AISC 360-16 Appendix 8 alpha: 1.6 ASD, 1.0 LRFD
+
+
+def take(obj, rows):
+    """The same arrays restricted (or repeated) to `rows` along their first axis."""
+    values = {}
+    for f in fields(obj):
+        v = getattr(obj, f.name)
+        values[f.name] = v[rows] if isinstance(v, np.ndarray) and v.ndim >= 1 else v
+    return replace(obj, **values)
+
+
+def gather_braces(site, walls, basis: str) -> BraceSet | None:
+    """Read every braced wall's layout and capacities (None when no wall is braced)."""
+    rows = [i for i, p in enumerate(site.panels) if p.bracing is not None]
+    if not rows:
+        return None
+    k = max(site.panels[i].bracing.count for i in rows)
+    m = len(rows)
+    pos = np.zeros((m, k))
+    mask = np.zeros((m, k), dtype=bool)
+    cols: dict[str, list] = {n: [] for n in (
+        "insert", "anchor_distance", "angle", "length", "lean", "slop", "pretensioned")}
+    for r, i in enumerate(rows):
+        p = site.panels[i]
+        b = p.bracing
+        x = np.array(b.positions) if b.positions else braces.default_positions(p.width, b.count)
+        pos[r, :b.count] = x
+        mask[r, :b.count] = True
+        d = b.anchor_distance
+        if d is None:
+            d = float(braces.anchor_distance_for_angle(
+                b.insert_height, b.angle, b.insert_offset * IN, b.foot_offset * IN,
+                b.base_below_slab))
+        _, _, angle, length = braces.brace_geometry(
+            b.insert_height, d, b.insert_offset * IN, b.foot_offset * IN, b.base_below_slab)
+        for name, value in (("insert", b.insert_height), ("anchor_distance", d),
+                            ("angle", float(angle)), ("length", float(length)),
+                            ("lean", b.lean * IN), ("slop", b.slop * IN),
+                            ("pretensioned", b.pretensioned)):
+            cols[name].append(value)
+    arrays = {n: np.array(v) for n, v in cols.items()}
+    caps = _capacities(site, rows, arrays["length"], arrays["angle"], basis)
+    return BraceSet(index=np.array(rows), positions=pos, mask=mask, **arrays, **caps,
+                    amplifier_alpha=members.ALPHA_B1[basis])
+
+
+def _capacities(site, rows, length, angle, basis) -> dict[str, np.ndarray]:
+    """Brace and anchor capacities of each braced wall, grouped by type (vectorised per type)."""
+    m = len(rows)
+    out = {n: np.full(m, np.nan) for n in (
+        "compression", "tension", "connection", "insert_tension", "insert_shear",
+        "foot_tension", "foot_shear", "foot_mu", "helical_factor", "rupture", "slenderness",
+        "slenderness_limit")}
+    out["self_weight_ratio"] = np.zeros(m)
+    out["euler_load"] = np.full(m, np.inf)
+    out["foot_kind"] = np.array([""] * m, dtype=object)
+    for r, i in enumerate(rows):
+        p = site.panels[i]
+        mat = site.materials[p.material]
+        if mat.kind == "concrete":
+            out["rupture"][r] = braces.modulus_of_rupture(mat.compressive_strength or 2500.0)
+        bt = site.brace_types[p.bracing.brace_type]
+        comp, ten, sw_ratio, pe, slender, limit = _brace_capacity(bt, length[r], angle[r], basis)
+        out["compression"][r], out["tension"][r] = comp, ten
+        out["slenderness"][r], out["slenderness_limit"][r] = slender, limit
+        out["self_weight_ratio"][r], out["euler_load"][r] = sw_ratio, pe
+        if bt.end_connection:
+            out["connection"][r] = bt.end_connection
+        if p.bracing.wall_anchor:
+            wa = site.anchor_types[p.bracing.wall_anchor]
+            out["insert_tension"][r] = wa.rated_tension or np.nan
+            out["insert_shear"][r] = wa.rated_shear or np.nan
+        if p.bracing.foot_anchor:
+            fa = site.anchor_types[p.bracing.foot_anchor]
+            out["foot_kind"][r] = fa.kind
+            _foot_capacity(fa, r, out, basis)
+    return out
+
+
+def _brace_capacity(bt, length, angle, basis):
+    """(compression, tension, self-weight moment ratio, Euler load, slenderness, its limit)."""
+    if bt.kind == "unrated":
+        return np.nan, bt.tension_capacity or np.nan, 0.0, np.inf, np.nan, np.nan
+    if bt.kind == "rated":
+        # Outside the maker's table there is no rating: capacity 0, so the check fails visibly.
+        comp = np.nan_to_num(float(members.rated_capacity(length, bt.lengths, bt.loads)))
+        return comp, bt.tension_capacity or comp, 0.0, np.inf, np.nan, np.nan
+    if bt.kind == "pipe":
+        s = PIPES[bt.section]
+        fy = bt.yield_strength / 1000.0
+        lc_in, lc_out = (members.knee_brace_lengths(length) if bt.knee_brace
+                         else (length, length))
+        if bt.lateral_struts:
+            lc_out = length / (bt.lateral_struts + 1)
+        comp = float(members.pipe_compression(s.area_in2, s.r_in, fy, lc_in, lc_out, basis))
+        ten = bt.tension_capacity or float(members.pipe_tension(s.area_in2, fy, basis))
+        span = lc_in  # self weight bends the brace in its vertical plane between supports
+        m_sw = float(members.self_weight_moment(s.weight_plf, span, angle))
+        mc = float(members.pipe_flexure(s.od_in, s.t_design_in, fy, basis))
+        pe = float(np.pi**2 * members.STEEL_E_KSI * s.i_in4 / (12.0 * span) ** 2 * 1000.0)
+        kl_r = float(members.slenderness(max(lc_in, lc_out), s.r_in))
+        return comp, ten, m_sw / mc, pe, kl_r, members.LC_OVER_R_ADVISORY
+    d_thin, d_wide = DRESSED_SIZES_IN[bt.size]
+    grade = next(g for key, g in LUMBER_GRADES.items()
+                 if key[0] == bt.species and key[1] == bt.grade)
+    cf = (float(members.size_factor_fc(float(bt.size.split("x")[1])))
+          if grade.size_class == "dimension" else 1.0)
+    lc_in = length / 2.0 if bt.knee_brace else length
+    lc_out = length / (bt.lateral_struts + 1)
+    comp = float(members.lumber_compression(d_wide, d_thin, lc_in, lc_out, grade.fc_psi,
+                                            grade.emin_psi, CF=cf))
+    le_d = float(members.lumber_slenderness(d_wide, d_thin, lc_in, lc_out))
+    return (comp, bt.tension_capacity or np.nan, 0.0, np.inf, le_d,
+            members.LE_OVER_D_MAX_CONSTRUCTION)
+
+
+def _foot_capacity(fa, r, out, basis):
+    if fa.kind in ("stake", "insert"):
+        out["foot_tension"][r], out["foot_shear"][r] = fa.rated_tension, fa.rated_shear
+    elif fa.kind == "slab":
+        c = fa.edge_distance or np.inf
+        cap = anchors.slab_anchor_capacity(
+            fa.embedment, fa.concrete_strength, fa.steel_area, fa.steel_strength, fa.diameter,
+            fa.slab_thickness, c1_in=c, cast_in=fa.cast_in, cracked=fa.cracked,
+            category=fa.category, Abrg_in2=fa.bearing_area,
+            pullout_lb=fa.pullout if fa.pullout else (None if fa.bearing_area else np.inf),
+            basis=basis)
+        out["foot_tension"][r], out["foot_shear"][r] = float(cap.tension), float(cap.shear)
+    elif fa.kind == "helical":
+        out["foot_tension"][r] = float(anchors.helical_capacity(
+            fa.installation_torque, fa.torque_factor, fa.factor_of_safety))
+        out["helical_factor"][r] = fa.torque_factor / fa.factor_of_safety
+    elif fa.kind == "deadman":
+        out["foot_tension"][r] = fa.weight
+        fs = 1.0 if fa.friction_coefficient < 0.5 else anchors.SLIDING_FS_ULTIMATE
+        out["foot_mu"][r] = fa.friction_coefficient / fs
+
+
+@dataclass(frozen=True)
+class BraceForces:
+    """Factored forces of the braced walls under one wind (arrays over m walls, k braces)."""
+
+    horizontal: np.ndarray  # (m, k) governing |R_h| of each brace, lb
+    axial: np.ndarray       # (m, k) |P|, lb
+    total: np.ndarray       # largest sum of R_h over the load cases, lb
+    base_shear: np.ndarray  # largest |F - sum R_h| (plus lean), lb
+    wind_force: np.ndarray  # the whole wall's force for that case, lb
+
+
+def brace_forces(walls, wind, bs: BraceSet, f, minimum_psf) -> BraceForces:
+    """Per-brace forces for every load case, governing case per brace (design.md §6)."""
+    i = bs.index
+    s, b = walls.height[i], walls.width[i]
+    hb = bs.insert
+    dead = walls.face_weight[i] * s * b * walls.solidity[i]
+    lean_total = f.dead_adds * braces.lean_reaction(
+        dead, walls.centroid_ratio[i] * s, s, hb, bs.lean, bs.slop)
+    centre = b / 2.0
+    lean = braces.brace_shares(lean_total, np.zeros_like(hb), centre, centre, bs.positions,
+                               bs.mask)
+    rigid = walls.rigid[i]
+    # Rigid panels: Cases A, B (either edge) and C (either end), the braces carrying the twist.
+    lever = wind.lever[i]
+    cases = [(wind.force_a[i], walls.centroid_x_ratio[i] * b + dx * b) for dx in (0.0, 0.2, -0.2)]
+    b_over_s = b / s
+    s_over_h = s / (walls.base[i] + s)
+    has_c = b_over_s >= 2.0
+    cf_c, xc_c = asce7.case_c_mean(0.0, b_over_s, b_over_s, s_over_h)
+    force_c = np.where(has_c, np.maximum(
+        wind.q[i] * asce7.GUST_FACTOR * cf_c * wind.opening[i] * wind.area[i],
+        (minimum_psf or 0.0) * b * s), 0.0)
+    cases += [(force_c, xc_c * s), (force_c, b - xc_c * s)]
+    horizontal = np.zeros(bs.positions.shape)
+    total = np.zeros(len(i))
+    shear = np.zeros(len(i))
+    force = np.zeros(len(i))
+    for case_force, at in cases:
+        sum_h = f.wind * case_force * lever / hb
+        r = braces.brace_shares(sum_h, f.wind * case_force, at, centre, bs.positions, bs.mask)
+        horizontal = np.maximum(horizontal, np.abs(np.nan_to_num(r + lean)))
+        bigger = sum_h > total
+        force = np.where(bigger, case_force, force)
+        total = np.maximum(total, sum_h)
+        shear = np.maximum(shear, np.abs(f.wind * case_force - sum_h))
+    # Walls built in place: each brace takes its own strip of wall, local coefficients.
+    strip_h, strip_total, strip_shear, strip_force = _strip_forces(
+        walls, wind, bs, f, minimum_psf, s, b, hb, b_over_s, s_over_h)
+    horizontal = np.where(rigid[:, None], horizontal,
+                          np.nan_to_num(strip_h) + np.abs(np.nan_to_num(lean)))
+    total = np.where(rigid, total, strip_total) + lean_total
+    shear = np.where(rigid, shear, strip_shear) + lean_total
+    force = np.where(rigid, force, strip_force)
+    horizontal = np.where(bs.mask, horizontal, 0.0)
+    axial = braces.axial_force(horizontal, bs.angle[:, None])
+    return BraceForces(horizontal, axial, total, shear, force)
+
+
+def _strip_forces(walls, wind, bs, f, minimum_psf, s, b, hb, b_over_s, s_over_h):
+    """Brace forces of a wall built in place: each brace carries its tributary strip."""
+    i = bs.index
+    x = np.where(bs.mask, bs.positions, np.nan)
+    order = np.sort(x, axis=1)
+    mids = (order[:, 1:] + order[:, :-1]) / 2.0
+    lo = np.concatenate([np.zeros((len(i), 1)), mids], axis=1)
+    hi = np.concatenate([mids, np.full((len(i), 1), np.inf)], axis=1)
+    hi = np.minimum(np.where(np.isnan(hi), b[:, None], hi), b[:, None])
+    count = bs.mask.sum(axis=1)
+    last = np.arange(bs.mask.shape[1])[None, :] == (count - 1)[:, None]
+    hi = np.where(last, b[:, None], hi)
+    lo, hi = np.where(np.isnan(lo), 0.0, lo), np.where(np.isnan(hi), 0.0, hi)
+    width = np.maximum(hi - lo, 0.0)
+    ss, bos, soh = s[:, None], b_over_s[:, None], s_over_h[:, None]
+    cf_ab = asce7.cf_cases_ab(bos, soh)
+    left = asce7.case_c_mean(lo / ss, hi / ss, bos, soh, walls.return_left[i][:, None])[0]
+    right = asce7.case_c_mean((b[:, None] - hi) / ss, (b[:, None] - lo) / ss, bos, soh,
+                              walls.return_right[i][:, None])[0]
+    cf = np.where(bos >= 2.0, np.maximum(cf_ab, np.maximum(left, right)), cf_ab)
+    cf = np.where(walls.solidity[i][:, None] >= 0.7, cf, asce7.cf_open(walls.solidity[i])[:, None])
+    strip = np.maximum(wind.q[i][:, None] * asce7.GUST_FACTOR * cf * ss * width,
+                       (minimum_psf or 0.0) * ss * width)
+    strip = np.where(bs.mask, strip, 0.0)
+    lever = wind.lever_strip[i][:, None]
+    # strips follow the sorted positions: map them back to each brace's own slot
+    rank = np.argsort(np.argsort(np.where(bs.mask, bs.positions, np.inf), axis=1), axis=1)
+    strip = np.take_along_axis(strip, rank, axis=1)
+    r = f.wind * strip * lever / hb[:, None]
+    total = r.sum(axis=1)
+    force = strip.sum(axis=1)
+    return r, total, np.abs(f.wind * force - total), force
+
+
+SERVICEABILITY = {"wall cracking"}  # shown and flagged, not counted in the status or the speeds
+CHECKS = {
+    # name: (unit, combination kind, source)
+    "brace compression": ("lb", "adding", "maker's rated table / AISC 360-16 Ch. E and §H1.1 / "
+                          "NDS 2018 §3.7.1"),
+    "brace tension": ("lb", "adding", "maker's rating / AISC 360-16 §D2"),
+    "brace end fittings": ("lb", "adding", "maker's rating"),
+    "wall insert": ("lb", "adding", "maker's rating at the brace angle, T/Ta + V/Va <= 1 "
+                    "(common practice)"),
+    "foot anchor": ("lb", "wind", "ACI 318-19 §17.6-17.8 / ICC-ES AC358 / maker's rating"),
+    "deadman uplift": ("lb", "resisting", "weight, ASCE 7-16 §2.4.1"),
+    "deadman sliding": ("lb", "resisting", "friction, IBC Table 1806.2 / ACI 318-19 §22.9.4.2"),
+    "base uplift": ("lb", "resisting", "statics: 0.6D - sum(P sin theta) >= 0"),
+    "base kick-out": ("lb", "resisting", "friction, ACI 318-19 §22.9.4.2 (mu 0.6)"),
+    "wall bending": ("lb·ft", "resisting", "TMS 402-16 §8.2 flexural tension, or weight above "
+                     "(fresh mortar), per ft"),
+    "wall cracking": ("lb·ft", "resisting", "ACI 318-19 Eq. 19.2.3.1 modulus of rupture, per ft "
+                      "(serviceability: a crack, not a collapse)"),
+}
+
+
+def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf):
+    """Demand and capacity of every braced element, worst brace of each wall (arrays over m)."""
+    i = bs.index
+    forces = brace_forces(walls, wind, bs, f, minimum_psf)
+    p = forces.axial.max(axis=1)
+    theta = np.radians(bs.angle)
+    na = np.full(len(i), np.nan)
+    # Self-weight bending (dead load adds) amplified by B1, AISC 360-16 Appendix 8 Eq. A-8-3.
+    amplified = f.dead_adds * bs.self_weight_ratio / np.maximum(
+        1.0 - bs.amplifier_alpha * p / bs.euler_load, 1e-9)
+    ratio = np.asarray(members.pipe_axial_bending_ratio(p, bs.compression, amplified, 1.0))
+    comp_cap = np.where(bs.self_weight_ratio > 0, p / np.maximum(ratio, 1e-12), bs.compression)
+    comp_cap = np.where(p > 0, comp_cap, bs.compression)
+    checks = {
+        "brace compression": (p, comp_cap),
+        "brace tension": (p, bs.tension),
+        "brace end fittings": (np.where(np.isnan(bs.connection), na, p), bs.connection),
+    }
+    insert_ratio = p * np.cos(theta) / bs.insert_tension + p * np.sin(theta) / bs.insert_shear
+    checks["wall insert"] = (np.where(np.isnan(insert_ratio), na, p),
+                             p / np.maximum(insert_ratio, 1e-12))
+    # The foot anchor: uplift P sin(theta) and pull P cos(theta) with the brace in tension.
+    kind = bs.foot_kind
+    up, pull = p * np.sin(theta), p * np.cos(theta)
+    slab_ratio = np.where(kind == "slab", anchors.tension_shear_interaction(
+        up, bs.foot_tension, pull, bs.foot_shear), np.nan)
+    rated_ratio = up / bs.foot_tension + pull / bs.foot_shear
+    foot_ratio = np.select([kind == "slab", (kind == "stake") | (kind == "insert"),
+                            kind == "helical"],
+                           [slab_ratio, rated_ratio, p / bs.foot_tension], np.nan)
+    checks["foot anchor"] = (np.where(np.isnan(foot_ratio), na, p),
+                             p / np.maximum(foot_ratio, 1e-12))
+    deadman = kind == "deadman"
+    weight = np.where(deadman, bs.foot_tension, np.nan)
+    checks["deadman uplift"] = (np.where(deadman, up, na), f.dead_resists * weight)
+    checks["deadman sliding"] = (np.where(deadman, pull, na), bs.foot_mu * np.maximum(
+        f.dead_resists * weight - up, 0.0))
+    # The wall's base: lifted by the braces in compression, pushed out by the base shear.
+    s, b = walls.height[i], walls.width[i]
+    dead = walls.face_weight[i] * s * b * walls.solidity[i]
+    lift = forces.total * np.tan(theta)
+    # A framed wall's sill is nailed or bolted down: that connection is the framer's to design.
+    held = ~walls.framed[i]
+    checks["base uplift"] = (np.where(held, lift, na), f.dead_resists * dead)
+    checks["base kick-out"] = (np.where(held, forces.base_shear, na), walls.base_mu[i] * np.maximum(
+        f.dead_resists * dead - lift, 0.0))
+    # The wall spanning from its base to the braces, per ft of width.
+    pressure = f.wind * forces.wind_force / (b * s)
+    span, cantilever = braces.propped_wall_moments(pressure, s, bs.insert)
+    moment = np.maximum(span, cantilever)
+    cracking = braces.cracking_moment(bs.rupture, walls.thickness_ft[i] * 12.0)
+    above = f.dead_resists * walls.face_weight[i] * (s - bs.insert)
+    masonry_cap = np.maximum(
+        stability.rocking_resistance(above, walls.thickness_ft[i]),
+        stability.masonry_flexural_capacity(walls.flex_tension[i], walls.section[i],
+                                            walls.section_area[i], above))
+    masonry = walls.masonry[i]
+    checks["wall bending"] = (np.where(masonry, moment, na), np.where(masonry, masonry_cap, na))
+    concrete = ~np.isnan(cracking)
+    checks["wall cracking"] = (np.where(concrete, moment, na), np.where(concrete, cracking, na))
+    # A check whose capacity is not known is not made (its element is not counted).
+    checks = {k: (np.where(np.isnan(c), np.nan, d), c) for k, (d, c) in checks.items()}
+    return checks, forces
+
+
+def braced_details(walls, wind, bs, f, minimum_psf, r: int) -> dict:
+    """The §8 `braces` record of braced wall r (design wind, governing brace)."""
+    forces = brace_forces(walls, wind, bs, f, minimum_psf)
+    k = int(bs.mask[r].sum())
+    p = float(forces.axial[r].max())
+    theta = np.radians(bs.angle[r])
+    details = {
+        "count": k,
+        "angle_deg": float(bs.angle[r]),
+        "insert_height_ft": float(bs.insert[r]),
+        "anchor_distance_ft": float(bs.anchor_distance[r]),
+        "length_ft": float(bs.length[r]),
+        "axial_force_lb": p,
+        "anchor_uplift_lb": p * float(np.sin(theta)),
+        "anchor_shear_lb": p * float(np.cos(theta)),
+        "positions_ft": [float(x) for x in bs.positions[r, :k]],
+        "brace_forces_lb": [float(x) for x in forces.axial[r, :k]],
+        "base_shear_lb": float(forces.base_shear[r]),
+        "base_uplift_lb": float(forces.total[r] * np.tan(theta)),
+    }
+    if bs.foot_kind[r] == "helical":  # ICC-ES AC358: T = FS P / Kt, the torque the crew reaches
+        details["installation_torque_ftlb"] = p / float(bs.helical_factor[r])
+    return details

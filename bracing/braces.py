@@ -1,0 +1,103 @@
+"""Brace geometry and forces (design.md §6): small pure formulas over numpy arrays.
+
+Section: the wall pivots at its base; a brace pins to the wall at insert height `hb` and to the
+slab or ground at distance `d` from the wall face. Plan: braces at positions `x_i` along the wall
+share the wind by statics, carrying all the twist (no twist restraint credited at the base).
+"""
+
+from __future__ import annotations
+
+import numpy as np
+
+
+def brace_geometry(insert_height_ft, anchor_distance_ft, insert_offset_ft=0.0,
+                   foot_offset_ft=0.0, base_below_slab_ft=0.0):
+    """Run, rise, angle (deg) and pin-to-pin length of a brace (geometry).
+
+    The insert pin stands `insert_offset` out from the face, the foot pin `foot_offset` above
+    the slab, and the wall's base (its pivot) `base_below_slab` below the slab.
+    """
+    run = np.asarray(anchor_distance_ft, dtype=float) - insert_offset_ft
+    rise = np.asarray(insert_height_ft, dtype=float) - base_below_slab_ft - foot_offset_ft
+    return run, rise, np.degrees(np.arctan2(rise, run)), np.hypot(run, rise)
+
+
+def anchor_distance_for_angle(insert_height_ft, angle_deg, insert_offset_ft=0.0,
+                              foot_offset_ft=0.0, base_below_slab_ft=0.0):
+    """Foot distance from the wall face that gives a brace `angle_deg` from horizontal."""
+    rise = np.asarray(insert_height_ft, dtype=float) - base_below_slab_ft - foot_offset_ft
+    return rise / np.tan(np.radians(angle_deg)) + insert_offset_ft
+
+
+def default_positions(width_ft, count):
+    """Centres of `count` equal strips along a wall `width_ft` long (design.md §6)."""
+    return (np.arange(count) + 0.5) * width_ft / count
+
+
+def total_brace_reaction(force_lb, lever_ft, insert_height_ft):
+    """Sum of the braces' horizontal reactions: moments about the base pivot, F z_F / hb."""
+    return force_lb * lever_ft / insert_height_ft
+
+
+def lean_reaction(weight_lb, centroid_height_ft, wall_height_ft, insert_height_ft,
+                  lean_ft, slop_ft):
+    """Horizontal brace reaction from the wall's weight leaning out of plumb (statics).
+
+    The centroid sits off the pivot by (lean / s + slop / hb) x z_c; the braces hold D e / hb.
+    """
+    offset = (lean_ft / wall_height_ft + slop_ft / insert_height_ft) * centroid_height_ft
+    return weight_lb * offset / insert_height_ft
+
+
+def brace_shares(total_h, force_lb, force_at_ft, wall_centre_ft, positions_ft, mask):
+    """Horizontal reaction of each brace: the even share plus the twist (design.md §6).
+
+    R_i = sum(R)/n + M_t (x_i - x_c) / sum((x_j - x_c)^2), with
+    M_t = F (x_F - x_c) - (F - sum(R)) (x_w - x_c). Arrays: (..., walls) for loads, (walls,
+    braces) for positions with `mask` true where a brace exists.
+    """
+    n = mask.sum(axis=-1)
+    x = np.where(mask, positions_ft, 0.0)
+    xc = x.sum(axis=-1) / n
+    arm = np.where(mask, positions_ft - xc[..., None], 0.0)
+    polar = (arm**2).sum(axis=-1)
+    twist = force_lb * (force_at_ft - xc) - (force_lb - total_h) * (wall_centre_ft - xc)
+    with np.errstate(divide="ignore", invalid="ignore"):
+        per_arm = np.where(polar > 0, twist / polar, 0.0)
+    # One brace alone cannot carry twist: its wall twists on the base (flagged by the caller).
+    return np.where(mask, (total_h / n)[..., None] + per_arm[..., None] * arm, np.nan)
+
+
+def axial_force(horizontal_lb, angle_deg):
+    """Brace axial force from its horizontal reaction, P = R_h / cos(theta) (statics)."""
+    return horizontal_lb / np.cos(np.radians(angle_deg))
+
+
+def components(axial_lb, angle_deg):
+    """Horizontal and vertical components of a brace force (statics)."""
+    theta = np.radians(angle_deg)
+    return axial_lb * np.cos(theta), axial_lb * np.sin(theta)
+
+
+def propped_wall_moments(line_load_plf, wall_height_ft, insert_height_ft):
+    """Largest bending moments (lb-ft per ft of width) of a wall pinned at its base and propped.
+
+    Uniform pressure w on a beam pinned at 0, propped at hb, overhanging to s (statics):
+    R_0 = w s - w s^2 / (2 hb); span moment R_0^2 / (2 w) where R_0 > 0; cantilever
+    moment w (s - hb)^2 / 2 at the prop.
+    """
+    w, s, hb = line_load_plf, wall_height_ft, insert_height_ft
+    base = w * s - w * s**2 / (2.0 * hb)
+    span = np.where(base > 0, base**2 / (2.0 * w), 0.0)
+    cantilever = w * (s - hb) ** 2 / 2.0
+    return span, cantilever
+
+
+def modulus_of_rupture(fc_psi, lam=1.0):
+    """Concrete modulus of rupture f_r = 7.5 lambda sqrt(f'c), psi (ACI 318-19 Eq. 19.2.3.1)."""
+    return 7.5 * lam * np.sqrt(fc_psi)
+
+
+def cracking_moment(fr_psi, thickness_in):
+    """Moment per ft of width that cracks a solid section, f_r S with S = 12 t^2 / 6 (lb-ft/ft)."""
+    return fr_psi * 12.0 * thickness_in**2 / 6.0 / 12.0

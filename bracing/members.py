@@ -1,0 +1,235 @@
+"""Brace member capacity: rated tables, steel pipe (AISC 360-16), sawn lumber (NDS 2018).
+
+Pure functions over floats or numpy arrays. Forces in lb, moments in lb-ft, lengths in ft,
+section dimensions in in, steel stresses in ksi, wood stresses in psi. Capacities are
+available strengths: allowable (ASD, the default) or design (LRFD) by `basis`.
+Rated values (end connections, inserts, driven stakes) are used as entered: no function here.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+
+from bracing.data_members import SIZE_FACTOR_FC_VALUES, SIZE_FACTOR_FC_WIDTHS_IN, STEEL_E_KSI
+
+OMEGA_C, PHI_C = 1.67, 0.90  # AISC 360-16 §E1 compression
+OMEGA_T, PHI_T = 1.67, 0.90  # AISC 360-16 §D2(a) tensile yielding
+OMEGA_B, PHI_B = 1.67, 0.90  # AISC 360-16 §F1 flexure
+ALPHA_B1 = {"ASD": 1.6, "LRFD": 1.0}  # AISC 360-16 Appendix 8 §8.2.1 (alpha)
+LC_OVER_R_ADVISORY = 200.0  # AISC 360-16 §E2 user note
+CD_WIND = 1.6  # NDS 2018 Table 2.3.2, wind load duration
+C_SAWN = 0.8  # NDS 2018 §3.7.1, c for sawn lumber
+LE_OVER_D_MAX = 50.0  # NDS 2018 §3.7.1.4
+LE_OVER_D_MAX_CONSTRUCTION = 75.0  # NDS 2018 §3.7.1.4, during construction (from memory)
+KSI_IN2_TO_LB = 1000.0
+
+
+def _available(nominal, basis, phi, omega):
+    """Available strength: nominal / Omega (ASD) or phi * nominal (LRFD)."""
+    if basis == "ASD":
+        return nominal / omega
+    if basis == "LRFD":
+        return phi * nominal
+    raise ValueError(f"basis must be 'ASD' or 'LRFD', not {basis!r}")
+
+
+# --- Rated (adjustable / telescoping) braces: maker's table ----------------------------------
+def validate_rated_table(lengths_ft, loads_lb):
+    """Raise ValueError unless lengths strictly increase and every rated load is positive."""
+    lengths = np.asarray(lengths_ft, dtype=float)
+    loads = np.asarray(loads_lb, dtype=float)
+    if lengths.ndim != 1 or lengths.shape != loads.shape or lengths.size < 2:
+        raise ValueError("a rated table needs two or more (length, load) pairs of equal count")
+    if not (np.all(np.isfinite(lengths)) and np.all(np.diff(lengths) > 0) and lengths[0] > 0):
+        raise ValueError("rated table lengths must be positive and strictly increasing")
+    if not (np.all(np.isfinite(loads)) and np.all(loads > 0)):
+        raise ValueError("rated table loads must be positive")
+
+
+def rated_capacity(length_ft, table_lengths_ft, table_loads_lb):
+    """Maker's rated safe working load at a brace length, linear between table rows.
+
+    NaN outside the table's length range: report "outside the rated range", never extrapolate.
+    """
+    validate_rated_table(table_lengths_ft, table_loads_lb)
+    return np.interp(length_ft, table_lengths_ft, table_loads_lb, left=np.nan, right=np.nan)[()]
+
+
+# --- Steel pipe: AISC 360-16 ---------------------------------------------------------------
+def slenderness(lc_ft, r_in):
+    """Effective slenderness Lc / r (AISC 360-16 §E2), Lc in ft converted to in."""
+    return 12.0 * np.asarray(lc_ft, dtype=float) / r_in
+
+
+def slenderness_over_200(lc_ft, r_in):
+    """True where Lc / r > 200 (AISC 360-16 §E2 user note): flag, not a strength limit."""
+    return slenderness(lc_ft, r_in) > LC_OVER_R_ADVISORY
+
+
+def euler_stress(E_ksi, slenderness_ratio):
+    """Elastic buckling stress Fe = pi^2 E / (Lc/r)^2, ksi. AISC 360-16 Eq. E3-4."""
+    with np.errstate(divide="ignore"):
+        return (np.pi**2 * E_ksi / np.asarray(slenderness_ratio, dtype=float) ** 2)[()]
+
+
+def critical_stress(Fy_ksi, E_ksi, slenderness_ratio):
+    """Flexural buckling stress Fcr, ksi. AISC 360-16 §E3."""
+    fe = euler_stress(E_ksi, slenderness_ratio)
+    with np.errstate(divide="ignore", invalid="ignore"):
+        inelastic = 0.658 ** (Fy_ksi / fe) * Fy_ksi  # AISC 360-16 Eq. E3-2
+    elastic = 0.877 * fe  # AISC 360-16 Eq. E3-3
+    limit = 4.71 * np.sqrt(E_ksi / Fy_ksi)  # AISC 360-16 §E3(a)/(b)
+    return np.where(np.asarray(slenderness_ratio) <= limit, inelastic, elastic)[()]
+
+
+def knee_brace_lengths(length_ft, knee_at_fraction=0.5):
+    """(Lc in the brace's plane, Lc out of plane), ft, for a brace with a knee brace.
+
+    The knee brace supports the brace in its own vertical plane only; out of plane the full
+    length buckles unless lateral struts are added (AISC 360-16 §E2, Lc = K L with K = 1).
+    """
+    f = np.asarray(knee_at_fraction, dtype=float)
+    if np.any((f <= 0) | (f >= 1)):
+        raise ValueError("knee_at_fraction must lie strictly between 0 and 1")
+    length = np.asarray(length_ft, dtype=float)
+    return (length * np.maximum(f, 1.0 - f))[()], length[()]
+
+
+def pipe_compression(area_in2, r_in, Fy_ksi, Lc_in_plane_ft, Lc_out_of_plane_ft, basis="ASD",
+                     E_ksi=STEEL_E_KSI):
+    """Available axial compression of a round pipe, lb, governing plane (the longer Lc).
+
+    Pn = Fcr Ag (AISC 360-16 Eq. E3-1); ASD Pn / 1.67, LRFD 0.90 Pn (§E1). Nonslender wall
+    assumed: check `pipe_wall_nonslender`.
+    """
+    kl_r = slenderness(np.maximum(Lc_in_plane_ft, Lc_out_of_plane_ft), r_in)
+    pn = critical_stress(Fy_ksi, E_ksi, kl_r) * area_in2 * KSI_IN2_TO_LB
+    return _available(pn, basis, PHI_C, OMEGA_C)[()]
+
+
+def pipe_tension(area_in2, Fy_ksi, basis="ASD"):
+    """Available tensile yielding strength, lb: Pn = Fy Ag. AISC 360-16 Eq. D2-1."""
+    pn = np.asarray(Fy_ksi * area_in2, dtype=float) * KSI_IN2_TO_LB
+    return _available(pn, basis, PHI_T, OMEGA_T)[()]
+
+
+def pipe_wall_nonslender(D_in, t_in, Fy_ksi, E_ksi=STEEL_E_KSI):
+    """True where D/t <= 0.11 E/Fy: nonslender in compression. AISC 360-16 Table B4.1a case 9."""
+    return np.asarray(D_in / t_in) <= 0.11 * E_ksi / Fy_ksi
+
+
+def pipe_flexure(D_in, t_in, Fy_ksi, basis="ASD", E_ksi=STEEL_E_KSI):
+    """Available flexural strength of a round pipe, lb-ft. AISC 360-16 §F8 (design wall t).
+
+    Compact (D/t <= 0.07 E/Fy, Table B4.1b case 20): Mn = Mp = Fy Z (Eq. F8-1);
+    noncompact (<= 0.31 E/Fy): Mn = (0.021 E/(D/t) + Fy) S (Eq. F8-2);
+    slender: Mn = 0.33 E/(D/t) S (Eq. F8-3, F8-4). NaN beyond D/t = 0.45 E/Fy (§F8 scope).
+    """
+    D = np.asarray(D_in, dtype=float)
+    inner = D - 2.0 * t_in
+    z = (D**3 - inner**3) / 6.0  # plastic modulus of a tube
+    s = np.pi * (D**4 - inner**4) / (32.0 * D)  # elastic modulus of a tube
+    dt = D / t_in
+    mn = np.select(
+        [dt <= 0.07 * E_ksi / Fy_ksi, dt <= 0.31 * E_ksi / Fy_ksi, dt <= 0.45 * E_ksi / Fy_ksi],
+        [Fy_ksi * z, (0.021 * E_ksi / dt + Fy_ksi) * s, 0.33 * E_ksi / dt * s],
+        default=np.nan,
+    )
+    return _available(mn * KSI_IN2_TO_LB / 12.0, basis, PHI_B, OMEGA_B)[()]
+
+
+def self_weight_moment(weight_plf, length_ft, angle_deg):
+    """Mid-span moment from a sloping brace's own weight, lb-ft: w cos(theta) L^2 / 8.
+
+    Simply supported span (statics); theta from horizontal. With a knee brace in the plane,
+    pass the longer segment as the span.
+    """
+    return (np.asarray(weight_plf, dtype=float) * np.cos(np.radians(angle_deg))
+            * np.asarray(length_ft, dtype=float) ** 2 / 8.0)[()]
+
+
+def moment_amplifier_b1(Pr_lb, E_ksi, I_in4, Lc_ft, basis="ASD"):
+    """P-delta amplifier of the self-weight moment: B1 = Cm / (1 - alpha Pr / Pe1) >= 1.
+
+    AISC 360-16 Appendix 8 Eq. A-8-3, Cm = 1.0 (transverse load, §8.2.1(b)), Pe1 = pi^2 EI / Lc^2
+    (Eq. A-8-5, EI* = EI with K = 1). Inf where alpha Pr >= Pe1; 1.0 for tension (Pr <= 0).
+    """
+    if basis not in ALPHA_B1:
+        raise ValueError(f"basis must be 'ASD' or 'LRFD', not {basis!r}")
+    pe1 = np.pi**2 * E_ksi * I_in4 / (12.0 * np.asarray(Lc_ft, dtype=float)) ** 2 * KSI_IN2_TO_LB
+    margin = 1.0 - ALPHA_B1[basis] * np.maximum(Pr_lb, 0.0) / pe1
+    with np.errstate(divide="ignore"):
+        b1 = np.where(margin > 0, 1.0 / margin, np.inf)
+    return np.maximum(b1, 1.0)[()]
+
+
+def pipe_axial_bending_ratio(Pr, Pc, Mr, Mc):
+    """Combined axial force and bending ratio (passes at <= 1.0). AISC 360-16 §H1.1.
+
+    Pr/Pc >= 0.2: Pr/Pc + 8/9 Mr/Mc (Eq. H1-1a); else Pr/(2 Pc) + Mr/Mc (Eq. H1-1b).
+    Pr, Pc in the same force unit; Mr, Mc in the same moment unit; magnitudes are used.
+    The two equations meet at Pr/Pc = 0.2 only where Mr/Mc = 0.9: above that (failing either
+    way) the ratio can dip as Pr grows; pass/fail never does.
+    """
+    p = np.abs(Pr) / np.asarray(Pc, dtype=float)
+    m = np.abs(Mr) / np.asarray(Mc, dtype=float)
+    return np.where(p >= 0.2, p + 8.0 / 9.0 * m, p / 2.0 + m)[()]
+
+
+# --- Sawn lumber: NDS 2018 (ASD only) ------------------------------------------------------
+def size_factor_fc(nominal_width_in, nominal_thickness_in=2.0):
+    """Size factor CF for Fc by nominal width (NDS 2018 Supplement Table 4A).
+
+    Posts and timbers (nominal thickness 5 in and more, Table 4D) take CF = 1.0 on Fc.
+    """
+    w = np.asarray(nominal_width_in, dtype=float)
+    cf = np.select([w <= edge for edge in SIZE_FACTOR_FC_WIDTHS_IN],
+                   SIZE_FACTOR_FC_VALUES[:-1], default=SIZE_FACTOR_FC_VALUES[-1])
+    return np.where(np.asarray(nominal_thickness_in) >= 5.0, 1.0, cf)[()]
+
+
+def column_stability_factor(Fc_star_psi, Emin_prime_psi, le_over_d, c=C_SAWN):
+    """Column stability factor CP. NDS 2018 Eq. 3.7-1.
+
+    F_cE = 0.822 E_min' / (le/d)^2; a = F_cE / Fc*;
+    CP = (1 + a)/(2c) - sqrt(((1 + a)/(2c))^2 - a/c).
+    """
+    with np.errstate(divide="ignore", invalid="ignore"):
+        fce = 0.822 * np.asarray(Emin_prime_psi, dtype=float) / np.asarray(le_over_d) ** 2
+        a = fce / Fc_star_psi
+        half = (1.0 + a) / (2.0 * c)
+        cp = half - np.sqrt(np.maximum(half**2 - a / c, 0.0))
+    return np.where(np.asarray(le_over_d) > 0, cp, 1.0)[()]
+
+
+def lumber_slenderness(d_in_plane_in, d_out_of_plane_in, le_in_plane_ft, le_out_of_plane_ft):
+    """Governing le/d of a rectangular sawn member (NDS 2018 §3.7.1.3), le in ft, d in in."""
+    return np.maximum(12.0 * np.asarray(le_in_plane_ft, dtype=float) / d_in_plane_in,
+                      12.0 * np.asarray(le_out_of_plane_ft, dtype=float) / d_out_of_plane_in)[()]
+
+
+def lumber_too_slender(le_over_d, during_construction=False):
+    """True where le/d exceeds 50, or 75 during construction (NDS 2018 §3.7.1.4)."""
+    limit = LE_OVER_D_MAX_CONSTRUCTION if during_construction else LE_OVER_D_MAX
+    return np.asarray(le_over_d) > limit
+
+
+def lumber_compression(d_in_plane_in, d_out_of_plane_in, le_in_plane_ft, le_out_of_plane_ft,
+                       Fc_psi, Emin_psi, CD=CD_WIND, CF=1.0, CM_Fc=1.0, CM_E=1.0, Ct=1.0,
+                       basis="ASD"):
+    """Allowable axial compression of a sawn-lumber brace, lb (NDS 2018 §3.6, §3.7.1).
+
+    d_in_plane_in is the dressed dimension in the brace's vertical plane (paired with
+    le_in_plane_ft), d_out_of_plane_in the other. Fc* = Fc CD CM Ct CF; Emin' = Emin CM Ct
+    (Table 4.3.1); F'c = Fc* CP at the governing le/d; P = F'c b d. CF defaults to 1.0
+    (conservative for dimension lumber up to 12 in wide): use `size_factor_fc`.
+    ASD only: NDS LRFD format conversion is not implemented.
+    """
+    if basis != "ASD":
+        raise NotImplementedError("sawn lumber is checked on the ASD basis only (NDS 2018 ASD)")
+    fc_star = np.asarray(Fc_psi, dtype=float) * CD * CM_Fc * Ct * CF
+    emin_prime = np.asarray(Emin_psi, dtype=float) * CM_E * Ct
+    le_d = lumber_slenderness(d_in_plane_in, d_out_of_plane_in, le_in_plane_ft,
+                              le_out_of_plane_ft)
+    cp = column_stability_factor(fc_star, emin_prime, le_d)
+    return (fc_star * cp * np.asarray(d_in_plane_in) * d_out_of_plane_in)[()]
