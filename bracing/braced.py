@@ -59,82 +59,89 @@ def take(obj, rows):
     return replace(obj, **values)
 
 
-def gather_braces(site, walls, basis: str) -> BraceSet | None:
+def gather_braces(site, basis: str) -> BraceSet | None:
     """Read every braced wall's layout and capacities (None when no wall is braced)."""
     rows = [i for i, p in enumerate(site.panels) if p.bracing is not None]
     if not rows:
         return None
-    k = max(site.panels[i].bracing.count for i in rows)
-    m = len(rows)
-    pos = np.zeros((m, k))
-    mask = np.zeros((m, k), dtype=bool)
-    cols: dict[str, list] = {n: [] for n in (
-        "insert", "anchor_distance", "angle", "length", "lean", "slop", "pretensioned")}
-    for r, i in enumerate(rows):
-        p = site.panels[i]
-        b = p.bracing
-        x = np.array(b.positions) if b.positions else braces.default_positions(p.width, b.count)
-        pos[r, :b.count] = x
-        mask[r, :b.count] = True
-        d = b.anchor_distance
-        if d is None:
-            d = float(braces.anchor_distance_for_angle(
-                b.insert_height, b.angle, b.insert_offset * IN, b.foot_offset * IN,
-                b.base_below_slab))
-        _, _, angle, length = braces.brace_geometry(
-            b.insert_height, d, b.insert_offset * IN, b.foot_offset * IN, b.base_below_slab)
-        for name, value in (("insert", b.insert_height), ("anchor_distance", d),
-                            ("angle", float(angle)), ("length", float(length)),
-                            ("lean", b.lean * IN), ("slop", b.slop * IN),
-                            ("pretensioned", b.pretensioned)):
-            cols[name].append(value)
-    arrays = {n: np.array(v) for n, v in cols.items()}
-    caps = _capacities(site, rows, arrays["length"], arrays["angle"], basis)
-    return BraceSet(index=np.array(rows), positions=pos, mask=mask, **arrays, **caps,
+    layouts = [site.panels[i].bracing for i in rows]
+    k = max(b.count for b in layouts)
+    positions = np.full((len(rows), k), np.nan)
+    for r, (i, b) in enumerate(zip(rows, layouts)):
+        x = b.positions or braces.default_positions(site.panels[i].width, b.count)
+        positions[r, :b.count] = x
+    column = {name: np.array([getattr(b, name) for b in layouts]) for name in (
+        "insert_height", "insert_offset", "foot_offset", "base_below_slab", "lean", "slop",
+        "pretensioned", "brace_type", "wall_anchor", "foot_anchor")}
+    distance = np.array([np.nan if b.anchor_distance is None else b.anchor_distance
+                         for b in layouts])
+    angle = np.array([np.nan if b.angle is None else b.angle for b in layouts])
+    return brace_set(site, np.array(rows), positions, distance, angle, column, basis)
+
+
+def brace_set(site, rows, positions, anchor_distance, angle, column: dict, basis) -> BraceSet:
+    """A BraceSet from layout columns (arrays over m walls); NaN positions are empty slots.
+
+    `anchor_distance` or `angle` gives the foot (NaN where the other is given); `column` holds
+    insert_height, insert_offset (in), foot_offset (in), base_below_slab, lean (in), slop (in),
+    pretensioned and the type names brace_type, wall_anchor, foot_anchor.
+    """
+    c = column
+    offsets = (c["insert_offset"] * IN, c["foot_offset"] * IN, c["base_below_slab"])
+    distance = np.where(np.isnan(anchor_distance), braces.anchor_distance_for_angle(
+        c["insert_height"], np.where(np.isnan(angle), 45.0, angle), *offsets), anchor_distance)
+    _, _, theta, length = braces.brace_geometry(c["insert_height"], distance, *offsets)
+    caps = _capacities(site, rows, c, length, theta, basis)
+    return BraceSet(index=rows, positions=np.nan_to_num(positions), mask=~np.isnan(positions),
+                    insert=c["insert_height"].astype(float), anchor_distance=distance,
+                    angle=theta, length=length, lean=c["lean"] * IN, slop=c["slop"] * IN,
+                    pretensioned=c["pretensioned"].astype(bool), **caps,
                     amplifier_alpha=members.ALPHA_B1[basis])
 
 
-def _capacities(site, rows, length, angle, basis) -> dict[str, np.ndarray]:
-    """Brace and anchor capacities of each braced wall, grouped by type (vectorised per type)."""
+def _capacities(site, rows, c, length, angle, basis) -> dict[str, np.ndarray]:
+    """Brace and anchor capacities of each braced wall, one vectorised call per type."""
     m = len(rows)
     out = {n: np.full(m, np.nan) for n in (
         "compression", "tension", "connection", "insert_tension", "insert_shear",
-        "foot_tension", "foot_shear", "foot_mu", "helical_factor", "rupture", "slenderness",
+        "foot_tension", "foot_shear", "foot_mu", "helical_factor", "slenderness",
         "slenderness_limit")}
     out["self_weight_ratio"] = np.zeros(m)
     out["euler_load"] = np.full(m, np.inf)
-    out["foot_kind"] = np.array([""] * m, dtype=object)
-    for r, i in enumerate(rows):
-        p = site.panels[i]
-        mat = site.materials[p.material]
-        if mat.kind == "concrete":
-            out["rupture"][r] = braces.modulus_of_rupture(mat.compressive_strength or 2500.0)
-        bt = site.brace_types[p.bracing.brace_type]
-        comp, ten, sw_ratio, pe, slender, limit = _brace_capacity(bt, length[r], angle[r], basis)
-        out["compression"][r], out["tension"][r] = comp, ten
-        out["slenderness"][r], out["slenderness_limit"][r] = slender, limit
-        out["self_weight_ratio"][r], out["euler_load"][r] = sw_ratio, pe
-        if bt.end_connection:
-            out["connection"][r] = bt.end_connection
-        if p.bracing.wall_anchor:
-            wa = site.anchor_types[p.bracing.wall_anchor]
-            out["insert_tension"][r] = wa.rated_tension or np.nan
-            out["insert_shear"][r] = wa.rated_shear or np.nan
-        if p.bracing.foot_anchor:
-            fa = site.anchor_types[p.bracing.foot_anchor]
-            out["foot_kind"][r] = fa.kind
-            _foot_capacity(fa, r, out, basis)
+    out["foot_kind"] = np.full(m, "", dtype=object)
+    mats = [site.materials[site.panels[i].material] for i in rows]
+    out["rupture"] = np.array([braces.modulus_of_rupture(mat.compressive_strength or 2500.0)
+                               if mat.kind == "concrete" else np.nan for mat in mats])
+    for name in set(c["brace_type"]):
+        sel = c["brace_type"] == name
+        bt = site.brace_types[name]
+        values = _brace_capacity(bt, length[sel], angle[sel], basis)
+        for key, v in zip(("compression", "tension", "self_weight_ratio", "euler_load",
+                           "slenderness", "slenderness_limit"), values):
+            out[key][sel] = v
+        out["connection"][sel] = bt.end_connection or np.nan
+    for name in set(c["wall_anchor"]) - {None}:
+        sel = c["wall_anchor"] == name
+        wa = site.anchor_types[name]
+        out["insert_tension"][sel] = wa.rated_tension or np.nan
+        out["insert_shear"][sel] = wa.rated_shear or np.nan
+    for name in set(c["foot_anchor"]) - {None}:
+        sel = c["foot_anchor"] == name
+        fa = site.anchor_types[name]
+        out["foot_kind"][sel] = fa.kind
+        _foot_capacity(fa, sel, out, basis)
     return out
 
 
 def _brace_capacity(bt, length, angle, basis):
     """(compression, tension, self-weight moment ratio, Euler load, slenderness, its limit)."""
+    nan = np.full(np.shape(length), np.nan)
     if bt.kind == "unrated":
-        return np.nan, bt.tension_capacity or np.nan, 0.0, np.inf, np.nan, np.nan
+        return nan, bt.tension_capacity or nan, 0.0, np.inf, nan, nan
     if bt.kind == "rated":
         # Outside the maker's table there is no rating: capacity 0, so the check fails visibly.
-        comp = np.nan_to_num(float(members.rated_capacity(length, bt.lengths, bt.loads)))
-        return comp, bt.tension_capacity or comp, 0.0, np.inf, np.nan, np.nan
+        comp = np.nan_to_num(members.rated_capacity(length, bt.lengths, bt.loads))
+        return comp, bt.tension_capacity or comp, 0.0, np.inf, nan, nan
     if bt.kind == "pipe":
         s = PIPES[bt.section]
         fy = bt.yield_strength / 1000.0
@@ -142,13 +149,14 @@ def _brace_capacity(bt, length, angle, basis):
                          else (length, length))
         if bt.lateral_struts:
             lc_out = length / (bt.lateral_struts + 1)
-        comp = float(members.pipe_compression(s.area_in2, s.r_in, fy, lc_in, lc_out, basis))
-        ten = bt.tension_capacity or float(members.pipe_tension(s.area_in2, fy, basis))
+        comp = members.pipe_compression(s.area_in2, s.r_in, fy, lc_in, lc_out, basis)
+        ten = bt.tension_capacity or members.pipe_tension(s.area_in2, fy, basis)
         span = lc_in  # self weight bends the brace in its vertical plane between supports
-        m_sw = float(members.self_weight_moment(s.weight_plf, span, angle))
-        mc = float(members.pipe_flexure(s.od_in, s.t_design_in, fy, basis))
-        pe = float(np.pi**2 * members.STEEL_E_KSI * s.i_in4 / (12.0 * span) ** 2 * 1000.0)
-        kl_r = float(members.slenderness(max(lc_in, lc_out), s.r_in))
+        m_sw = members.self_weight_moment(s.weight_plf, span, angle)
+        mc = members.pipe_flexure(s.od_in, s.t_design_in, fy, basis)
+        # Euler load of the span for the amplifier B1, AISC 360-16 Appendix 8 Eq. A-8-5
+        pe = np.pi**2 * members.STEEL_E_KSI * s.i_in4 / (12.0 * span) ** 2 * 1000.0
+        kl_r = members.slenderness(np.maximum(lc_in, lc_out), s.r_in)
         return comp, ten, m_sw / mc, pe, kl_r, members.LC_OVER_R_ADVISORY
     d_thin, d_wide = DRESSED_SIZES_IN[bt.size]
     grade = next(g for key, g in LUMBER_GRADES.items()
@@ -157,33 +165,34 @@ def _brace_capacity(bt, length, angle, basis):
           if grade.size_class == "dimension" else 1.0)
     lc_in = length / 2.0 if bt.knee_brace else length
     lc_out = length / (bt.lateral_struts + 1)
-    comp = float(members.lumber_compression(d_wide, d_thin, lc_in, lc_out, grade.fc_psi,
-                                            grade.emin_psi, CF=cf))
-    le_d = float(members.lumber_slenderness(d_wide, d_thin, lc_in, lc_out))
-    return (comp, bt.tension_capacity or np.nan, 0.0, np.inf, le_d,
+    comp = members.lumber_compression(d_wide, d_thin, lc_in, lc_out, grade.fc_psi,
+                                      grade.emin_psi, CF=cf)
+    le_d = members.lumber_slenderness(d_wide, d_thin, lc_in, lc_out)
+    return (comp, bt.tension_capacity or nan, 0.0, np.inf, le_d,
             members.LE_OVER_D_MAX_CONSTRUCTION)
 
 
-def _foot_capacity(fa, r, out, basis):
+def _foot_capacity(fa, sel, out, basis):
+    """Capacities of the foot anchors of type `fa` for the selected walls."""
     if fa.kind in ("stake", "insert"):
-        out["foot_tension"][r], out["foot_shear"][r] = fa.rated_tension, fa.rated_shear
+        out["foot_tension"][sel], out["foot_shear"][sel] = fa.rated_tension, fa.rated_shear
     elif fa.kind == "slab":
-        c = fa.edge_distance or np.inf
         cap = anchors.slab_anchor_capacity(
             fa.embedment, fa.concrete_strength, fa.steel_area, fa.steel_strength, fa.diameter,
-            fa.slab_thickness, c1_in=c, cast_in=fa.cast_in, cracked=fa.cracked,
-            category=fa.category, Abrg_in2=fa.bearing_area,
+            fa.slab_thickness, c1_in=fa.edge_distance or np.inf, cast_in=fa.cast_in,
+            cracked=fa.cracked, category=fa.category, Abrg_in2=fa.bearing_area,
             pullout_lb=fa.pullout if fa.pullout else (None if fa.bearing_area else np.inf),
             basis=basis)
-        out["foot_tension"][r], out["foot_shear"][r] = float(cap.tension), float(cap.shear)
+        out["foot_tension"][sel], out["foot_shear"][sel] = float(cap.tension), float(cap.shear)
     elif fa.kind == "helical":
-        out["foot_tension"][r] = float(anchors.helical_capacity(
+        out["foot_tension"][sel] = float(anchors.helical_capacity(
             fa.installation_torque, fa.torque_factor, fa.factor_of_safety))
-        out["helical_factor"][r] = fa.torque_factor / fa.factor_of_safety
+        out["helical_factor"][sel] = fa.torque_factor / fa.factor_of_safety
     elif fa.kind == "deadman":
-        out["foot_tension"][r] = fa.weight
+        out["foot_tension"][sel] = fa.weight
+        # IBC Table 1806.2 values are allowable; concrete on concrete is nominal (design.md §6).
         fs = 1.0 if fa.friction_coefficient < 0.5 else anchors.SLIDING_FS_ULTIMATE
-        out["foot_mu"][r] = fa.friction_coefficient / fs
+        out["foot_mu"][sel] = fa.friction_coefficient / fs
 
 
 @dataclass(frozen=True)

@@ -88,7 +88,8 @@ def propped_wall_moments(line_load_plf, wall_height_ft, insert_height_ft):
     """
     w, s, hb = line_load_plf, wall_height_ft, insert_height_ft
     base = w * s - w * s**2 / (2.0 * hb)
-    span = np.where(base > 0, base**2 / (2.0 * w), 0.0)
+    with np.errstate(divide="ignore", invalid="ignore"):
+        span = np.where(base > 0, base**2 / (2.0 * w), 0.0)
     cantilever = w * (s - hb) ** 2 / 2.0
     return span, cantilever
 

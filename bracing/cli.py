@@ -99,6 +99,8 @@ def build_parser() -> argparse.ArgumentParser:
 
     check = commands.add_parser("check", help="check every wall of a site file")
     check.add_argument("site", help="site file (TOML)")
+    check.add_argument("--design", action="store_true",
+                       help="lay out braces for walls that need them and have none")
     _output_options(check)
     check.set_defaults(run=run_check)
 
@@ -132,6 +134,22 @@ def panel_site(args) -> dict:
         for key in parents:
             node = node[int(key)] if key.isdigit() else node.setdefault(key, {})
         node[leaf] = _number_or_text(value)
+    if args.braces is not None:
+        brace = ({"kind": "rated", "lengths": [0.1, 1000.0],
+                  "loads": [_number_or_text(args.brace_capacity)] * 2}
+                 if args.brace_capacity else {"kind": "unrated"})
+        site["brace_types"] = {"brace": brace}
+        bracing = {"brace_type": "brace", "count": args.braces}
+        for flag, key in (("insert_height", "insert_height"), ("brace_angle", "angle"),
+                          ("anchor_distance", "anchor_distance")):
+            value = getattr(args, flag)
+            if value is not None:
+                bracing[key] = _number_or_text(value)
+        site["panels"][0]["bracing"] = bracing
+    elif any(getattr(args, f) for f in ("insert_height", "brace_angle", "anchor_distance",
+                                        "brace_capacity")):
+        raise BadInput("--insert-height, --brace-angle, --anchor-distance and --brace-capacity "
+                       "need --braces N")
     if args.stand_down_ratio is not None:
         site["rules"] = {"stand_down_ratio": {
             "value": _number_or_text(args.stand_down_ratio),
@@ -168,6 +186,14 @@ def _flag_problem(err: dict) -> str:
     flag = next((f for f, (path,) in PANEL_FLAGS.items() if path == loc), None)
     if flag is None and loc.startswith("rules.stand_down_ratio"):
         flag = "stand_down_ratio"
+    brace_flags = {"count": "braces", "insert_height": "insert_height", "angle": "brace_angle",
+                   "anchor_distance": "anchor_distance"}
+    if flag is None and loc.startswith("panels.0.bracing"):
+        flag = brace_flags.get(loc.rsplit(".", 1)[-1], "braces")
+    if flag is None and loc.startswith("brace_types"):
+        flag = "brace_capacity"
+    if flag is None and loc.startswith("panels.0") and "insert_height" in err["msg"]:
+        flag = "insert_height"
     name = f"--{flag.replace('_', '-')}" if flag else loc or "input"
     message = err["msg"].removeprefix("Value error, ")
     got = err.get("input")
@@ -177,7 +203,7 @@ def _flag_problem(err: dict) -> str:
 
 def run_check(args) -> int:
     site_file = scenario.load(args.site)
-    result = evaluate(site_file.site)
+    result = evaluate(site_file.site, design=args.design)
     if args.json:
         print(json_view.dumps(json_view.site_record(result)))
     else:

@@ -11,7 +11,7 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from bracing import braced, stability
+from bracing import braced, layout, stability
 from bracing.model import Site
 from bracing.results import Check, Flag, PanelResult, SiteResult, UnbracedResult, WindResult
 from bracing.wind import asce7, asce37, gusts
@@ -322,12 +322,41 @@ class Evaluation:
     braced_limit_missing: np.ndarray | None = None
 
 
-def evaluate(site: Site) -> SiteResult:
-    """Check every wall of the site and return the one result object."""
+def evaluate(site: Site, design: bool = False) -> SiteResult:
+    """Check every wall of the site and return the one result object.
+
+    With `design`, walls that cannot stand and have no bracing get a designed layout first
+    (the site's [design] options); the walls for which none passes say why.
+    """
     e = evaluate_arrays(site)
+    designs = {}
+    if design and site.design is not None:
+        rows = [i for i, p in enumerate(site.panels) if p.bracing is None
+                and (e.utilization[i] > 1.0 or _masonry_over_limit(site, p))]
+        if rows:
+            found = layout.design(site, rows, e.walls, e.wind, COMBINATIONS[
+                site.site.design_basis], site.rule_value("minimum_design_pressure_psf"))
+            designs = {d.panel: d for d in found}
+            site = layout.with_designs(site, found)
+            e = evaluate_arrays(site)
+    panels = [_panel_result(site, i, e) for i in range(len(site.panels))]
+    for i, d in designs.items():
+        if d.layout is not None:
+            panels[i].braces["designed"] = True
+            panels[i].flags.append(Flag("designed-layout", "notice", "bracing laid out by the "
+                                        "designer: check it against the site before use",
+                                        "layout designer"))
+        else:
+            panels[i].flags.append(Flag("no-layout", "danger", d.message, "layout designer"))
     return SiteResult(
         name=site.site.name, basis=site.site.design_basis, basis_statement=basis_statement(site),
-        panels=[_panel_result(site, i, e) for i in range(len(site.panels))])
+        panels=panels)
+
+
+def _masonry_over_limit(site: Site, p) -> bool:
+    limit = site.rule_value("masonry_unbraced_height_ft")
+    return site.materials[p.material].kind == "masonry" and limit is not None and \
+        p.height > limit
 
 
 def evaluate_arrays(site: Site) -> Evaluation:
@@ -363,7 +392,7 @@ def evaluate_arrays(site: Site) -> Evaluation:
         *HEIGHT_BRACKET_FT, n) if gust else np.full(n, np.nan)
     e = Evaluation(w, wind, checks, governing_utilization(checks), limit,
                    stand_down_speeds(site, w, limit), max_height, max_at_limit, design_speed)
-    bs = braced.gather_braces(site, w, site.site.design_basis)
+    bs = braced.gather_braces(site, site.site.design_basis)
     if bs is not None:
         e.braces = bs
         e.braced_checks, _ = braced.braced_checks(w, wind, bs, factors, minimum)
@@ -530,6 +559,10 @@ def braced_flags(site, p, bs, r, checks, limit, stand_down, missing) -> list[Fla
     if b.count >= 3 and not b.pretensioned:
         flags.append(Flag("unequal-sharing", "notice", "3 or more braces share unevenly through "
                           "slop unless pre-tensioned", "common practice"))
+    if b.count == 2:
+        flags.append(Flag("two-braces", "notice", "if one of the two braces is struck, only "
+                          "friction at the base keeps the wall from twisting",
+                          "design.md §6 robustness"))
     if b.count >= 2 and not np.isnan(missing) and missing < stand_down:
         flags.append(Flag("no-margin", "warning", f"with one brace struck, the wall's limit "
                           f"falls to {missing:.0f} mph, below the stand-down gust "
@@ -562,7 +595,7 @@ def _flags(site: Site, p, mat, w: Walls, i: int, utilization: float) -> list[Fla
                           f"{utilization:.2f}): brace it before release from the crane",
                           "ASCE 7-16 §29.3, statics"))
     limit = site.rule_value("masonry_unbraced_height_ft")
-    if mat.kind == "masonry" and limit is not None and p.height > limit:
+    if _masonry_over_limit(site, p):
         flags.append(Flag("masonry-over-8ft", "danger",
                           f"masonry wall {p.height:.1f} ft tall: over {limit:g} ft it must be "
                           f"braced until permanent supports are in place",

@@ -14,9 +14,11 @@ from pydantic import (
     BeforeValidator,
     ConfigDict,
     Field,
+    ValidationError,
     WithJsonSchema,
     model_validator,
 )
+from pydantic_core import InitErrorDetails, PydanticCustomError
 
 from bracing import units
 from bracing.data_members import DRESSED_SIZES_IN, LUMBER_GRADES, PIPES
@@ -318,6 +320,21 @@ class Bracing(Strict):
         return self
 
 
+class DesignOptions(Strict):
+    """What the layout designer may use for walls that have no bracing yet."""
+
+    brace_types: list[str] = Field(min_length=1, description="Keys of [brace_types] to try.")
+    wall_anchor: str | None = Field(None, description="Insert on the wall: a key of "
+                                                       "[anchor_types].")
+    foot_anchors: list[str] = Field(default_factory=list,
+                                    description="Keys of [anchor_types] to try at the foot.")
+    most_braces: int = Field(6, ge=1, le=20, description="Most braces allowed per wall.")
+    room: Length | None = Field(None, gt=0, description="Most distance from the wall face to "
+                                                        "a brace foot (ft).")
+    insert_offset: Thickness = Field(0.0, ge=0, description="Brace pin out from the face (in).")
+    foot_offset: Thickness = Field(0.0, ge=0, description="Foot pin above the slab (in).")
+
+
 class Panel(Strict):
     """A wall panel or wall segment standing on its own or on braces."""
 
@@ -369,33 +386,29 @@ class Site(Strict):
     materials: dict[str, Material]
     brace_types: dict[str, BraceType] = Field(default_factory=dict)
     anchor_types: dict[str, AnchorType] = Field(default_factory=dict)
+    design: DesignOptions | None = Field(
+        None, description="Options of `bracing check --design` for walls with no bracing.")
     panels: list[Panel] = Field(min_length=1)
 
-    @model_validator(mode="after")
-    def _references(self):
-        unknown = [r for r in self.rules if r not in DEFAULT_RULES]
-        if unknown:
-            raise ValueError(f"unknown rule(s) {', '.join(unknown)}; known: "
-                             f"{', '.join(DEFAULT_RULES)}")
-        marks: set[str] = set()
-        for p in self.panels:
-            if p.material not in self.materials:
-                raise ValueError(f"panel {p.mark}: material {p.material!r} is not in [materials]")
-            b = p.bracing
-            if b is not None:
-                if b.brace_type not in self.brace_types:
-                    raise ValueError(f"panel {p.mark}: brace_type {b.brace_type!r} is not in "
-                                     f"[brace_types]")
-                for anchor in (b.wall_anchor, b.foot_anchor):
-                    if anchor is not None and anchor not in self.anchor_types:
-                        raise ValueError(f"panel {p.mark}: anchor {anchor!r} is not in "
-                                         f"[anchor_types]")
-            if p.mark in marks:
-                raise ValueError(f"panel mark {p.mark!r} is used twice")
-            marks.add(p.mark)
-        if self.version > SCHEMA_VERSION:
-            raise ValueError(f"version {self.version} is newer than this program ({SCHEMA_VERSION})")
-        return self
+    @model_validator(mode="wrap")
+    @classmethod
+    def _references(cls, data, handler):
+        """Cross-references are checked on the raw data, so that every one is reported at its
+        own key together with every field error (a file's problems all at once)."""
+        found = [InitErrorDetails(type=PydanticCustomError("reference", "{message}",
+                                                           {"message": message}),
+                                  loc=loc, input=value)
+                 for loc, message, value in reference_problems(data)]
+        try:
+            site = handler(data)
+        except ValidationError as exc:
+            if not found:
+                raise
+            found = [InitErrorDetails(type=e["type"], loc=e["loc"], input=e["input"],
+                                      ctx=e.get("ctx", {})) for e in exc.errors()] + found
+        if found:
+            raise ValidationError.from_exception_data(cls.__name__, found)
+        return site
 
     def rule(self, name: str) -> Rule:
         """The site's rule, or the default one."""
@@ -405,3 +418,50 @@ class Site(Strict):
         """The rule's value, or None when it is switched off."""
         r = self.rule(name)
         return r.value if r.enabled else None
+
+
+def reference_problems(data) -> list[tuple[tuple, str, object]]:
+    """(location, message, value) of every unknown rule, material, brace or anchor type, repeated
+    panel mark and too-new version in raw site data; other shapes are left to the fields."""
+    if not isinstance(data, dict):
+        return []
+
+    def names(section: str) -> set:
+        value = data.get(section)
+        return set(value) if isinstance(value, dict) else set()
+
+    problems: list[tuple[tuple, str, object]] = []
+    for rule in names("rules") - set(DEFAULT_RULES):
+        problems.append((("rules", rule), f"unknown rule; known: {', '.join(DEFAULT_RULES)}", rule))
+    panels = data.get("panels")
+    first_of: dict[str, int] = {}
+    for i, p in enumerate(panels if isinstance(panels, list) else []):
+        if not isinstance(p, dict):
+            continue
+        material = p.get("material")
+        known = names("materials")
+        if isinstance(data.get("materials"), dict) and isinstance(material, str) \
+                and material not in known:
+            problems.append((("panels", i, "material"), f"{material!r} is not in [materials] "
+                             f"({', '.join(sorted(known)) or 'none given'})", material))
+        bracing = p.get("bracing")
+        if isinstance(bracing, dict):
+            refs = [("brace_type", "brace_types"), ("wall_anchor", "anchor_types"),
+                    ("foot_anchor", "anchor_types")]
+            for key, section in refs:
+                name = bracing.get(key)
+                if isinstance(name, str) and name not in names(section):
+                    problems.append((("panels", i, "bracing", key),
+                                     f"{name!r} is not in [{section}]", name))
+        mark = p.get("mark")
+        if isinstance(mark, str) and mark in first_of:
+            problems.append((("panels", i, "mark"),
+                             f"used twice (also panel #{first_of[mark] + 1})",
+                             mark))
+        elif isinstance(mark, str):
+            first_of[mark] = i
+    version = data.get("version")
+    if isinstance(version, int) and version > SCHEMA_VERSION:
+        problems.append((("version",), f"version {version} is newer than this program "
+                                       f"({SCHEMA_VERSION})", version))
+    return problems

@@ -14,7 +14,7 @@ from pathlib import Path
 
 import tomlkit
 from pydantic import ValidationError
-from tomlkit.exceptions import ParseError
+from tomlkit.exceptions import TOMLKitError
 
 from bracing.model import Site
 
@@ -47,8 +47,12 @@ class SiteFile:
         """A copy with one value changed, validated; raises SiteFileError and changes nothing."""
         document = tomlkit.parse(tomlkit.dumps(self.document))
         node = document
-        for key in keys[:-1]:
-            node = node[key]
+        try:
+            for key in keys[:-1]:
+                node = node[key]
+        except (KeyError, IndexError, TypeError):
+            where = ".".join(str(k) for k in keys[:-1])
+            raise SiteFileError(str(self.path), [f"{self.path}: no {where} in the file"]) from None
         node[keys[-1]] = value
         return SiteFile(self.path, document, validate(document, str(self.path), document.as_string()))
 
@@ -80,6 +84,9 @@ def load(path: str | Path) -> SiteFile:
         text = path.read_text(encoding="utf-8")
     except OSError as exc:
         raise SiteFileError(str(path), [f"{path}: cannot read the file ({exc.strerror})"]) from None
+    except UnicodeDecodeError as exc:
+        raise SiteFileError(str(path), [f"{path}: not a UTF-8 text file (byte {exc.start})"]) \
+            from None
     return parse(text, str(path))
 
 
@@ -87,8 +94,10 @@ def parse(text: str, name: str = "<site>") -> SiteFile:
     """Parse and validate site-file text; `name` is used in messages."""
     try:
         document = tomlkit.parse(text)
-    except ParseError as exc:
-        raise SiteFileError(name, [f"{name}:{exc.line}: not valid TOML: {exc}"]) from None
+    except TOMLKitError as exc:  # a ParseError knows its line; a repeated key may not
+        line = getattr(exc, "line", None) or _repeated_key_line(str(exc), text)
+        where = f"{name}:{line}" if line else name
+        raise SiteFileError(name, [f"{where}: not valid TOML: {exc}"]) from None
     return SiteFile(Path(name), document, validate(document, name, text))
 
 
@@ -134,6 +143,23 @@ def _item_and_field(loc: tuple, data: dict) -> tuple[str, str]:
     if len(loc) >= 2 and loc[0] in ("materials", "rules", "brace_types", "anchor_types"):
         return f"{loc[0][:-1]} {loc[1]}", ".".join(str(p) for p in loc[2:])
     return "", ".".join(str(p) for p in loc) or "(whole file)"
+
+
+def _repeated_key_line(message: str, text: str) -> int | None:
+    """Line (1-based) where the key that tomlkit says "already exists" is set again in its table."""
+    match = re.search(r'Key "(.+?)" already exists', message)
+    if not match:
+        return None
+    key = re.compile(rf"^\s*[\"']?{re.escape(match.group(1))}[\"']?\s*=")
+    seen = False
+    for n, line in enumerate(text.splitlines(), 1):
+        if re.match(r"^\s*\[", line):
+            seen = False  # a new table: keys start afresh
+        elif key.match(line):
+            if seen:
+                return n
+            seen = True
+    return None
 
 
 def _line_of(loc: tuple, text: str) -> int | None:
