@@ -191,7 +191,7 @@ def _foot_capacity(fa, sel, out, basis):
     elif fa.kind == "deadman":
         out["foot_tension"][sel] = fa.weight
         # IBC Table 1806.2 values are allowable; concrete on concrete is nominal (design.md §6).
-        fs = 1.0 if fa.friction_coefficient < 0.5 else anchors.SLIDING_FS_ULTIMATE
+        fs = 1.0 if fa.friction_basis == "allowable" else anchors.SLIDING_FS_ULTIMATE
         out["foot_mu"][sel] = fa.friction_coefficient / fs
 
 

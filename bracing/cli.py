@@ -9,6 +9,7 @@ from __future__ import annotations
 import argparse
 import json
 import sys
+from pathlib import Path
 
 from pydantic import ValidationError
 
@@ -106,6 +107,27 @@ def build_parser() -> argparse.ArgumentParser:
 
     schema = commands.add_parser("schema", help="print the JSON schema of the site file")
     schema.set_defaults(run=run_schema)
+
+    schedule = commands.add_parser("schedule", help="print the crew's brace schedule")
+    schedule.add_argument("site", help="site file (TOML)")
+    schedule.add_argument("--day", type=int, help="one day (default: every day)")
+    schedule.add_argument("--format", choices=["html", "csv", "text"], default="html")
+    schedule.add_argument("-o", "--output", help="file to write (default: print)")
+    schedule.add_argument("--design", action="store_true",
+                          help="lay out braces for walls that need them and have none")
+    schedule.add_argument("--units", choices=["us", "si"], default="us")
+    schedule.set_defaults(run=run_schedule)
+
+    plan = commands.add_parser("plan", help="draw the site plan of a day as SVG")
+    plan.add_argument("site", help="site file (TOML)")
+    plan.add_argument("--day", type=int, help="the day to draw (default: the busiest)")
+    plan.add_argument("-o", "--output", help="SVG file to write (default: print)")
+    plan.add_argument("--design", action="store_true")
+    plan.set_defaults(run=run_plan)
+
+    tui = commands.add_parser("tui", help="open the terminal interface")
+    tui.add_argument("site", nargs="?", help="site file (default: a demo site)")
+    tui.set_defaults(run=run_tui)
     return parser
 
 
@@ -208,6 +230,39 @@ def run_check(args) -> int:
         print(json_view.dumps(json_view.site_record(result)))
     else:
         print(text.site_text(result, args.units))
+    return 0
+
+
+def run_schedule(args) -> int:
+    from bracing.report import schedule
+
+    site_file = scenario.load(args.site)
+    result = evaluate(site_file.site, design=args.design)
+    return _write(args.output, schedule.render(site_file.site, result, args.day, args.format,
+                                               args.units))
+
+
+def run_plan(args) -> int:
+    from bracing.report import svg
+
+    site_file = scenario.load(args.site)
+    result = evaluate(site_file.site, design=args.design)
+    return _write(args.output, svg.plan_svg(result, args.day))
+
+
+def run_tui(args) -> int:
+    from tui.app import run
+
+    return run(args.site)
+
+
+def _write(output: str | None, text: str) -> int:
+    """Print, or write atomically to `output` keeping the previous file."""
+    if output:
+        scenario.atomic_write(Path(output), text)
+        print(f"wrote {output}")
+    else:
+        print(text)
     return 0
 
 

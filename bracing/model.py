@@ -7,6 +7,7 @@ unit of the same kind ("31 ft", "9.5 m"). Validation lives here, at the edge: th
 
 from __future__ import annotations
 
+from datetime import date
 from typing import Annotated, Literal
 
 from pydantic import (
@@ -118,6 +119,7 @@ class SiteInfo(Strict):
     """Where the walls stand and the wind they must resist."""
 
     name: str = Field(min_length=1)
+    start_date: date | None = Field(None, description="Calendar date of day 1 (for forecasts).")
     basic_wind_speed: Speed = Field(gt=0, description="ASCE 7-16 basic wind speed V (mph).")
     exposure: Literal["B", "C", "D"] = Field("C", description="ASCE 7-16 §26.7 exposure.")
     topographic_factor: float = Field(1.0, ge=1.0, le=3.0, description="Kzt, ASCE 7-16 §26.8.")
@@ -270,6 +272,10 @@ class AnchorType(Strict):
     friction_coefficient: float = Field(0.6, gt=0, le=1.0,
                                         description="Block on slab 0.6 (ACI 318-19 §22.9.4.2); "
                                                     "on soil IBC Table 1806.2.")
+    friction_basis: Literal["allowable", "ultimate"] = Field(
+        "ultimate", description="'allowable' for IBC Table 1806.2 values (used as they are); "
+                                "'ultimate' for NAVFAC DM-7.02 or concrete on concrete (a "
+                                "factor of safety of 1.5 applies).")
     on_hand: int | None = Field(None, ge=0, description="How many the site has.")
 
     @model_validator(mode="after")
@@ -335,6 +341,71 @@ class DesignOptions(Strict):
     foot_offset: Thickness = Field(0.0, ge=0, description="Foot pin above the slab (in).")
 
 
+Point = tuple[float, float]
+
+
+class Area_(Strict):
+    """A named area of the plan: kept clear, a public way, a neighbour, an office, a work area."""
+
+    name: str = Field(min_length=1)
+    kind: Literal["keep_clear", "crane_path", "public_way", "neighbour", "office", "work"]
+    polygon: list[Point] = Field(min_length=3, description="Corners in plan (ft).")
+
+
+class Plan(Strict):
+    """Site geometry in plan (ft): the slab, its holes and joints, open ground, named areas."""
+
+    slab: list[Point] = Field(default_factory=list, description="Slab outline corners (ft).")
+    slab_holes: list[list[Point]] = Field(default_factory=list,
+                                          description="Pits and openings in the slab.")
+    slab_joints: list[list[Point]] = Field(
+        default_factory=list, description="Pour-strip edges and saw-cut joints as polylines; "
+                                          "slab anchors keep their edge distance from them.")
+    ground: list[list[Point]] = Field(default_factory=list,
+                                      description="Open ground where ground anchors may go.")
+    areas: list[Area_] = Field(default_factory=list)
+    joint_gap: Length = Field(1.0, ge=0, description="Largest gap (ft) between panels that "
+                                                     "still act as one wall to the wind.")
+
+
+class WallLine(Strict):
+    """A straight line of wall in plan; its panels stand along it, braced on one side."""
+
+    name: str = Field(min_length=1)
+    start: Point
+    end: Point
+    braced_side: Literal["left", "right"] = Field(
+        description="Side of the line, looking from start to end, where the braces stand.")
+
+    @model_validator(mode="after")
+    def _length(self):
+        if self.start == self.end:
+            raise ValueError("start and end are the same point")
+        return self
+
+
+class Event(Strict):
+    """A step of the permanent work that makes walls eligible for release."""
+
+    name: str = Field(min_length=1)
+    day: int = Field(ge=1)
+    kind: Literal["diaphragm", "connections", "pour_strip", "other"] = "diaphragm"
+
+
+class SignOff(Strict):
+    """The engineer of record's release of one wall's braces (OSHA 1926.704(a))."""
+
+    panel: str
+    day: int = Field(ge=1)
+    by: str = Field(min_length=1, description="Who released the wall.")
+
+
+class Forecast(Strict):
+    """A forecast file: CSV of date (or day) and forecast gust, an optional storm column."""
+
+    file: str
+
+
 class Panel(Strict):
     """A wall panel or wall segment standing on its own or on braces."""
 
@@ -357,6 +428,12 @@ class Panel(Strict):
         None, gt=0, description="Weeks the wall stands before release; default the site's.")
     mortar_age: Age | None = Field(None, ge=0, description="Masonry: age of the mortar (days).")
     bracing: Bracing | None = None
+    line: str | None = Field(None, description="The wall line it stands on (a [[lines]] name).")
+    offset: Length = Field(0.0, ge=0, description="From the line's start to the panel's first "
+                                                  "edge (ft); positions count from that edge.")
+    lift_day: int | None = Field(None, ge=1, description="Day the wall is stood.")
+    release_after: list[str] = Field(default_factory=list,
+                                     description="Events that make it eligible for release.")
 
     @model_validator(mode="after")
     def _openings_fit(self):
@@ -386,6 +463,11 @@ class Site(Strict):
     materials: dict[str, Material]
     brace_types: dict[str, BraceType] = Field(default_factory=dict)
     anchor_types: dict[str, AnchorType] = Field(default_factory=dict)
+    plan: Plan | None = None
+    lines: list[WallLine] = Field(default_factory=list)
+    events: list[Event] = Field(default_factory=list)
+    signoffs: list[SignOff] = Field(default_factory=list)
+    forecast: Forecast | None = None
     design: DesignOptions | None = Field(
         None, description="Options of `bracing check --design` for walls with no bracing.")
     panels: list[Panel] = Field(min_length=1)

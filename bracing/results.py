@@ -137,6 +137,28 @@ class PanelResult:
 
 
 @dataclass(slots=True)
+class DayResult:
+    """One day of the job: lifts, standing walls, inventory in use, the wind go / no-go."""
+
+    day: int
+    date: str | None
+    lifts: list[str]
+    standing: list[str]
+    braces_in_use: dict[str, int]
+    anchors_in_use: dict[str, int]
+    released: list[str]
+    stand_down_speed_mph: float | None
+    working_limit_speed_mph: float | None
+    governing_wall: str | None
+    forecast_gust_mph: float | None
+    storm: bool
+    go: bool | None
+    reason: str
+    short: dict[str, int] = field(default_factory=dict)
+    flags: list[Flag] = field(default_factory=list)
+
+
+@dataclass(slots=True)
 class SiteResult:
     """The whole site: every wall, worst first on demand, and the declared basis."""
 
@@ -145,6 +167,10 @@ class SiteResult:
     basis_statement: list[str]
     panels: list[PanelResult]
     caution: str = CAUTION
+    days: list[DayResult] = field(default_factory=list)
+    peak_inventory: dict[str, int] = field(default_factory=dict)
+    plan: object | None = None  # bracing.plan.PlanGeometry: coordinates for the views
+    flags: list[Flag] = field(default_factory=list)  # site-wide findings
 
     def worst_first(self) -> list[PanelResult]:
         return sorted(self.panels, key=lambda p: (STATUS_ORDER.index(p.status), -p.utilization))

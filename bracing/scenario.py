@@ -163,24 +163,40 @@ def _repeated_key_line(message: str, text: str) -> int | None:
 
 
 def _line_of(loc: tuple, text: str) -> int | None:
-    """Best-effort line number of the key at `loc` in the TOML text (1-based)."""
+    """Best-effort line number (1-based) of the key at `loc` in the TOML text.
+
+    Follows the table headers down the location ("[materials.tilt]", the n-th "[[panels]]", its
+    "[[panels.openings]]"), then the key in that table's own body; stops at the deepest found.
+    """
     lines = text.splitlines()
-    start, stop, found = 0, len(lines), None
-    for i, key in enumerate(loc):
-        if isinstance(key, int):
-            header = re.compile(rf"^\s*\[\[\s*{re.escape(str(loc[i - 1]))}\s*\]\]")
-            hits = [n for n in range(len(lines)) if header.match(lines[n])]
+    header = re.compile(r"^\s*(\[\[?)\s*([^\]]+?)\s*\]")
+    heads = {n: (m.group(1) == "[[", re.sub(r"[\s\"']", "", m.group(2)))
+             for n, line in enumerate(lines) if (m := header.match(line))}
+
+    def body_end(n: int) -> int:  # a table's own keys end at the next header
+        return next((h for h in heads if h > n), len(lines))
+
+    prefix, start, stop, found = "", -1, len(lines), None
+    for key in loc:
+        inside = [n for n in heads if start < n < stop]
+        if isinstance(key, int):  # the key-th [[prefix]] of an array of tables
+            hits = [n for n in inside if heads[n] == (True, prefix)]
             if key >= len(hits):
-                return found
+                break
             start = found = hits[key]
-            stop = hits[key + 1] if key + 1 < len(hits) else len(lines)
+            stop = hits[key + 1] if key + 1 < len(hits) else stop
             continue
-        if i + 1 < len(loc) and isinstance(loc[i + 1], int):
-            continue  # the array's own headers are found at the index
-        pattern = re.compile(
-            rf"^\s*[\"']?{re.escape(str(key))}[\"']?\s*=|^\s*\[[^\]]*\b{re.escape(str(key))}\s*\]")
-        hits = [n for n in range(start, stop) if pattern.match(lines[n])]
-        if not hits:
-            break
-        start = found = hits[0]
+        name = f"{prefix}.{key}" if prefix else str(key)
+        table = [n for n in inside if heads[n] == (False, name)]
+        if table:
+            start = found = table[0]
+            prefix = name
+            continue
+        if any(heads[n][1] == name or heads[n][1].startswith(name + ".") for n in inside):
+            prefix = name  # an array of tables, or a parent of dotted headers
+            continue
+        assign = re.compile(rf"^\s*[\"']?{re.escape(str(key))}[\"']?\s*=")
+        hits = [n for n in range(start + 1, body_end(start)) if assign.match(lines[n])]
+        found = hits[0] if hits else found
+        break
     return None if found is None else found + 1

@@ -234,8 +234,14 @@ def test_panel_refuses_the_wrong_kind_and_names_the_flag(capsys, flag, value, ex
     assert captured.out == "" and "Traceback" not in captured.err
 
 
-@pytest.mark.xfail(strict=True, reason="bracing panel accepts --braces/--brace-angle and ignores "
-                                       "them (reported to the lead)")
+@pytest.mark.parametrize("angle", ["55deg", "55", f"{math.radians(55.0)!r}rad"])
+def test_panel_reads_a_brace_angle_with_units(capsys, angle):
+    got = _panel_json(capsys, BASE + ["--braces", "2", "--insert-height", "20ft",
+                                      "--brace-angle", angle])
+    assert got["braces"]["angle_deg"] == pytest.approx(55.0, rel=1e-12)
+    assert got["braces"]["insert_height_ft"] == 20.0
+
+
 def test_panel_refuses_a_brace_angle_of_the_wrong_kind(capsys):
     assert cli.main(BASE + ["--braces", "2", "--insert-height", "20ft", "--brace-angle",
                             "55kg"]) == 2
