@@ -225,10 +225,17 @@ def brace_forces(walls, wind, bs: BraceSet, f, minimum_psf) -> BraceForces:
     s_over_h = s / (walls.base[i] + s)
     has_c = b_over_s >= 2.0
     cf_c, xc_c = asce7.case_c_mean(0.0, b_over_s, b_over_s, s_over_h)
-    force_c = np.where(has_c, np.maximum(
-        wind.q[i] * asce7.GUST_FACTOR * cf_c * wind.opening[i] * wind.area[i],
-        (minimum_psf or 0.0) * b * s), 0.0)
+
+    def force_of(cf):
+        return np.where(np.isnan(cf), 0.0, np.maximum(
+            wind.q[i] * asce7.GUST_FACTOR * np.nan_to_num(cf) * wind.opening[i] * wind.area[i],
+            (minimum_psf or 0.0) * b * s))
+    alone = has_c & ~walls.in_line[i]
+    force_c = np.where(alone, force_of(cf_c), 0.0)
     cases += [(force_c, xc_c * s), (force_c, b - xc_c * s)]
+    # On a wall line: the line's Case C over this panel's width, from either end (§4).
+    cases += [(force_of(walls.line_left[i]), np.nan_to_num(walls.line_left_x[i])),
+              (force_of(walls.line_right[i]), np.nan_to_num(walls.line_right_x[i]))]
     horizontal = np.zeros(bs.positions.shape)
     total = np.zeros(len(i))
     shear = np.zeros(len(i))
@@ -274,6 +281,8 @@ def _strip_forces(walls, wind, bs, f, minimum_psf, s, b, hb, b_over_s, s_over_h)
     right = asce7.case_c_mean((b[:, None] - hi) / ss, (b[:, None] - lo) / ss, bos, soh,
                               walls.return_right[i][:, None])[0]
     cf = np.where(bos >= 2.0, np.maximum(cf_ab, np.maximum(left, right)), cf_ab)
+    on_line = walls.in_line[i][:, None]
+    cf = np.where(on_line, np.fmax(cf_ab, walls.line_local_max[i][:, None]), cf)
     cf = np.where(walls.solidity[i][:, None] >= 0.7, cf, asce7.cf_open(walls.solidity[i])[:, None])
     strip = np.maximum(wind.q[i][:, None] * asce7.GUST_FACTOR * cf * ss * width,
                        (minimum_psf or 0.0) * ss * width)

@@ -11,7 +11,7 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from bracing import braced, layout, stability
+from bracing import braced, layout, lines, stability
 from bracing.model import Site
 from bracing.results import Check, Flag, PanelResult, SiteResult, UnbracedResult, WindResult
 from bracing.wind import asce7, asce37, gusts
@@ -70,9 +70,20 @@ class Walls:
     footing_mu: np.ndarray
     base_mu: np.ndarray
     period_factor: np.ndarray
+    line_case_a: np.ndarray     # wall-line loads enveloped over the days (NaN: on no line)
+    line_left: np.ndarray
+    line_left_x: np.ndarray
+    line_right: np.ndarray
+    line_right_x: np.ndarray
+    line_local_max: np.ndarray
+    line_local_mid: np.ndarray
     exposure: str
     kzt: float
     ke: float
+
+    @property
+    def in_line(self) -> np.ndarray:
+        return ~np.isnan(self.line_case_a)
 
     @property
     def has_footing(self) -> np.ndarray:
@@ -87,6 +98,7 @@ def gather(site: Site) -> Walls:
     """Read the site's walls into arrays (the only per-wall Python loop before the results)."""
     rows = []
     cure_days = site.rule_value("masonry_cure_days") or 0.0
+    planned = lines.planned_weeks(site)
     for p in site.panels:
         mat = site.materials[p.material]
         t_ft = p.thickness / 12.0
@@ -111,7 +123,8 @@ def gather(site: Site) -> Walls:
                                                  else "solid")
         f = p.footing
         returns = {r.end: r.length / p.height for r in p.return_walls}
-        weeks = p.standing_time or site.site.construction_period
+        weeks = p.standing_time or (None if np.isnan(planned[len(rows)]) else
+                                    planned[len(rows)]) or site.site.construction_period
         rows.append((
             p.height, p.width, t_ft, p.base_elevation, face, solidity, centroid / p.height,
             centroid_x / p.width,
@@ -125,8 +138,11 @@ def gather(site: Site) -> Walls:
             site.site.period_factor or float(asce37.period_factor(weeks)),
         ))
     cols = [np.array(c) for c in zip(*rows)]
-    return Walls(*cols, exposure=site.site.exposure, kzt=site.site.topographic_factor,
-                 ke=float(asce7.ke(site.site.ground_elevation)))
+    loads = lines.line_loads(site)
+    along = ([getattr(loads, k) for k in lines.LineLoads.__dataclass_fields__] if loads
+             else [np.full(len(rows), np.nan)] * 7)
+    return Walls(*cols, *along, exposure=site.site.exposure,
+                 kzt=site.site.topographic_factor, ke=float(asce7.ke(site.site.ground_elevation)))
 
 
 @dataclass(frozen=True)
@@ -162,7 +178,11 @@ def wind_on(w: Walls, speed, kd: float, minimum_psf: float | None) -> Wind:
     solid = w.solidity >= 0.7  # Figure 29.3-1 note 3; below 0.7 the wall is open
     opening = np.where(solid, asce7.opening_factor(np.minimum(w.solidity, 1.0)), 1.0)
     cf_ab = asce7.cf_cases_ab(b_over_s, s_over_h)
-    case_c = np.where(b_over_s >= 2.0, asce7.case_c_mean(0.0, b_over_s, b_over_s, s_over_h)[0], 0.0)
+    # A lone wall's own Case C; a wall on a line takes its line's Cases A and C instead (§4).
+    lone_c = np.where(b_over_s >= 2.0, asce7.case_c_mean(0.0, b_over_s, b_over_s, s_over_h)[0],
+                      0.0)
+    line_c = np.fmax(np.fmax(w.line_case_a, w.line_left), w.line_right)
+    case_c = np.where(w.in_line, line_c, lone_c)
     cf_open = asce7.cf_open(w.solidity)
     cf_case_a = np.where(solid, cf_ab * opening, cf_open)
     cf_whole = np.where(solid, np.maximum(cf_ab, case_c) * opening, cf_open)
@@ -197,6 +217,8 @@ def strip_coefficients(w: Walls, b_over_s, s_over_h, cf_ab, solid, cf_open):
     inner = np.maximum(asce7.case_c_cf(x, b_over_s, s_over_h), asce7.case_c_cf(
         b_over_s - x, b_over_s, s_over_h)).max(axis=0)
     interior = np.where(b_over_s > 2.0, inner, end)
+    end = np.where(w.in_line, w.line_local_max, end)
+    interior = np.where(w.in_line, w.line_local_mid, interior)
     end = np.where(solid, np.maximum(end, cf_ab), cf_open)
     interior = np.where(solid, np.maximum(interior, cf_ab), cf_open)
     return end, interior
