@@ -206,8 +206,49 @@ class BraceForces:
     wind_force: np.ndarray  # the whole wall's force for that case, lb
 
 
-def brace_forces(walls, wind, bs: BraceSet, f, minimum_psf) -> BraceForces:
-    """Per-brace forces for every load case, governing case per brace (design.md §6)."""
+@dataclass(frozen=True)
+class BraceLoads:
+    """Unfactored wind forces on the braced walls (lb): rigid panels' load cases and the strips
+    that each brace of a wall built in place carries. Linear in q, so an observed gust's loads
+    are those of 1 mph scaled by V^2."""
+
+    case_force: np.ndarray  # (cases, m)
+    case_at: np.ndarray     # (cases, m) resultant position from the wall's first edge, ft
+    strip: np.ndarray       # (m, k) per brace slot
+
+    def scaled(self, factor) -> BraceLoads:
+        factor = np.asarray(factor, dtype=float)
+        return replace(self, case_force=self.case_force * factor,
+                       strip=self.strip * (factor[..., None] if factor.ndim else factor))
+
+
+def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
+    """The wind load cases on each braced wall (design.md §4, §6)."""
+    i = bs.index
+    s, b = walls.height[i], walls.width[i]
+    b_over_s = b / s
+    s_over_h = s / (walls.base[i] + s)
+
+    def force_of(cf):
+        return np.where(np.isnan(cf), 0.0, np.maximum(
+            wind.q[i] * asce7.GUST_FACTOR * np.nan_to_num(cf) * wind.opening[i] * wind.area[i],
+            (minimum_psf or 0.0) * b * s))  # ASCE 7-16 Eq. 29.3-1 and §29.7
+    # Rigid panels: Cases A, B (either edge) and C (either end), the braces carrying the twist;
+    # on a wall line, the line's Case C over this panel's width from either end.
+    centroid = walls.centroid_x_ratio[i] * b
+    cf_c, xc_c = asce7.case_c_mean(0.0, b_over_s, b_over_s, s_over_h)
+    alone = (b_over_s >= 2.0) & ~walls.in_line[i]
+    force_c = np.where(alone, force_of(cf_c), 0.0)
+    line_left, line_right = force_of(walls.line_left[i]), force_of(walls.line_right[i])
+    forces = [wind.force_a[i]] * 3 + [force_c, force_c, line_left, line_right]
+    at = [centroid, centroid + 0.2 * b, centroid - 0.2 * b, xc_c * s, b - xc_c * s,
+          np.nan_to_num(walls.line_left_x[i]), np.nan_to_num(walls.line_right_x[i])]
+    return BraceLoads(np.array(forces), np.array(at),
+                      _strip_loads(walls, wind, bs, minimum_psf, s, b, b_over_s, s_over_h))
+
+
+def brace_forces(walls, wind, loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
+    """Per-brace factored forces, the governing load case of each brace (design.md §6)."""
     i = bs.index
     s, b = walls.height[i], walls.width[i]
     hb = bs.insert
@@ -217,52 +258,35 @@ def brace_forces(walls, wind, bs: BraceSet, f, minimum_psf) -> BraceForces:
     centre = b / 2.0
     lean = braces.brace_shares(lean_total, np.zeros_like(hb), centre, centre, bs.positions,
                                bs.mask)
-    rigid = walls.rigid[i]
-    # Rigid panels: Cases A, B (either edge) and C (either end), the braces carrying the twist.
     lever = wind.lever[i]
-    cases = [(wind.force_a[i], walls.centroid_x_ratio[i] * b + dx * b) for dx in (0.0, 0.2, -0.2)]
-    b_over_s = b / s
-    s_over_h = s / (walls.base[i] + s)
-    has_c = b_over_s >= 2.0
-    cf_c, xc_c = asce7.case_c_mean(0.0, b_over_s, b_over_s, s_over_h)
-
-    def force_of(cf):
-        return np.where(np.isnan(cf), 0.0, np.maximum(
-            wind.q[i] * asce7.GUST_FACTOR * np.nan_to_num(cf) * wind.opening[i] * wind.area[i],
-            (minimum_psf or 0.0) * b * s))
-    alone = has_c & ~walls.in_line[i]
-    force_c = np.where(alone, force_of(cf_c), 0.0)
-    cases += [(force_c, xc_c * s), (force_c, b - xc_c * s)]
-    # On a wall line: the line's Case C over this panel's width, from either end (§4).
-    cases += [(force_of(walls.line_left[i]), np.nan_to_num(walls.line_left_x[i])),
-              (force_of(walls.line_right[i]), np.nan_to_num(walls.line_right_x[i]))]
     horizontal = np.zeros(bs.positions.shape)
     total = np.zeros(len(i))
     shear = np.zeros(len(i))
     force = np.zeros(len(i))
-    for case_force, at in cases:
-        sum_h = f.wind * case_force * lever / hb
+    for case_force, at in zip(loads.case_force, loads.case_at):
+        sum_h = f.wind * braces.total_brace_reaction(case_force, lever, hb)
         r = braces.brace_shares(sum_h, f.wind * case_force, at, centre, bs.positions, bs.mask)
         horizontal = np.maximum(horizontal, np.abs(np.nan_to_num(r + lean)))
-        bigger = sum_h > total
-        force = np.where(bigger, case_force, force)
+        force = np.where(sum_h > total, case_force, force)
         total = np.maximum(total, sum_h)
         shear = np.maximum(shear, np.abs(f.wind * case_force - sum_h))
-    # Walls built in place: each brace takes its own strip of wall, local coefficients.
-    strip_h, strip_total, strip_shear, strip_force = _strip_forces(
-        walls, wind, bs, f, minimum_psf, s, b, hb, b_over_s, s_over_h)
-    horizontal = np.where(rigid[:, None], horizontal,
-                          np.nan_to_num(strip_h) + np.abs(np.nan_to_num(lean)))
+    # Walls built in place: each brace takes its own strip of wall.
+    strip_h = f.wind * braces.total_brace_reaction(loads.strip, wind.lever_strip[i][:, None],
+                                                   hb[:, None])
+    strip_total = strip_h.sum(axis=1)
+    strip_force = loads.strip.sum(axis=1)
+    rigid = walls.rigid[i]
+    horizontal = np.where(rigid[:, None], horizontal, strip_h + np.abs(np.nan_to_num(lean)))
     total = np.where(rigid, total, strip_total) + lean_total
-    shear = np.where(rigid, shear, strip_shear) + lean_total
+    shear = np.where(rigid, shear, np.abs(f.wind * strip_force - strip_total)) + lean_total
     force = np.where(rigid, force, strip_force)
     horizontal = np.where(bs.mask, horizontal, 0.0)
     axial = braces.axial_force(horizontal, bs.angle[:, None])
     return BraceForces(horizontal, axial, total, shear, force)
 
 
-def _strip_forces(walls, wind, bs, f, minimum_psf, s, b, hb, b_over_s, s_over_h):
-    """Brace forces of a wall built in place: each brace carries its tributary strip."""
+def _strip_loads(walls, wind, bs, minimum_psf, s, b, b_over_s, s_over_h):
+    """Wind on each brace's tributary strip of a wall built in place (lb, in slot order)."""
     i = bs.index
     x = np.where(bs.mask, bs.positions, np.nan)
     order = np.sort(x, axis=1)
@@ -285,16 +309,11 @@ def _strip_forces(walls, wind, bs, f, minimum_psf, s, b, hb, b_over_s, s_over_h)
     cf = np.where(on_line, np.fmax(cf_ab, walls.line_local_max[i][:, None]), cf)
     cf = np.where(walls.solidity[i][:, None] >= 0.7, cf, asce7.cf_open(walls.solidity[i])[:, None])
     strip = np.maximum(wind.q[i][:, None] * asce7.GUST_FACTOR * cf * ss * width,
-                       (minimum_psf or 0.0) * ss * width)
+                       (minimum_psf or 0.0) * ss * width)  # ASCE 7-16 Eq. 29.3-1 and §29.7
     strip = np.where(bs.mask, strip, 0.0)
-    lever = wind.lever_strip[i][:, None]
     # strips follow the sorted positions: map them back to each brace's own slot
     rank = np.argsort(np.argsort(np.where(bs.mask, bs.positions, np.inf), axis=1), axis=1)
-    strip = np.take_along_axis(strip, rank, axis=1)
-    r = f.wind * strip * lever / hb[:, None]
-    total = r.sum(axis=1)
-    force = strip.sum(axis=1)
-    return r, total, np.abs(f.wind * force - total), force
+    return np.take_along_axis(strip, rank, axis=1)
 
 
 SERVICEABILITY = {"wall cracking"}  # shown and flagged, not counted in the status or the speeds
@@ -318,10 +337,15 @@ CHECKS = {
 }
 
 
-def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf):
-    """Demand and capacity of every braced element, worst brace of each wall (arrays over m)."""
+def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads | None = None):
+    """Demand and capacity of every braced element, worst brace of each wall (arrays over m).
+
+    `loads` (from `brace_loads`) may be given to skip recomputing the wind's load cases.
+    """
     i = bs.index
-    forces = brace_forces(walls, wind, bs, f, minimum_psf)
+    if loads is None:
+        loads = brace_loads(walls, wind, bs, minimum_psf)
+    forces = brace_forces(walls, wind, loads, bs, f)
     p = forces.axial.max(axis=1)
     theta = np.radians(bs.angle)
     na = np.full(len(i), np.nan)
@@ -383,9 +407,8 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf):
     return checks, forces
 
 
-def braced_details(walls, wind, bs, f, minimum_psf, r: int) -> dict:
+def braced_details(bs: BraceSet, forces: BraceForces, r: int) -> dict:
     """The §8 `braces` record of braced wall r (design wind, governing brace)."""
-    forces = brace_forces(walls, wind, bs, f, minimum_psf)
     k = int(bs.mask[r].sum())
     p = float(forces.axial[r].max())
     theta = np.radians(bs.angle[r])

@@ -165,6 +165,12 @@ class Wind:
     lever_strip: np.ndarray
     minimum_governs: np.ndarray
 
+    def scaled(self, factor) -> Wind:
+        """The same wind with pressures and forces times `factor` (no minimum: observed gusts)."""
+        return replace(self, q=self.q * factor, force_a=self.force_a * factor,
+                       force=self.force * factor, line_end=self.line_end * factor,
+                       line_interior=self.line_interior * factor)
+
 
 def wind_on(w: Walls, speed, kd: float, minimum_psf: float | None) -> Wind:
     """The wind on each wall at `speed` (ASCE 7-16 §29.3); `minimum_psf` for design wind only."""
@@ -207,15 +213,16 @@ def strip_coefficients(w: Walls, b_over_s, s_over_h, cf_ab, solid, cf_open):
     """Per-foot coefficients of a wall built in place: its end zone and its interior (§5).
 
     End zone: Case C within s of either end (each end's return wall reduces its own).
-    Interior: the worst beyond s from both ends, wind from either end. Never below Cases A/B.
+    Interior: the worst beyond s from both ends, wind from either end (the s to 2s region, as
+    the coefficients fall away from the windward end). Never below Cases A/B.
     """
     has_c = b_over_s >= 2.0
     left = asce7.case_c_cf(0.5, b_over_s, s_over_h, w.return_left)
     right = asce7.case_c_cf(0.5, b_over_s, s_over_h, w.return_right)
     end = np.where(has_c, np.maximum(left, right), cf_ab)
-    x = 1.0 + np.linspace(0.0, 1.0, 33)[:, None] * np.maximum(b_over_s - 2.0, 0.0)
-    inner = np.maximum(asce7.case_c_cf(x, b_over_s, s_over_h), asce7.case_c_cf(
-        b_over_s - x, b_over_s, s_over_h)).max(axis=0)
+    # Every Case C column falls (or stays) with distance from the windward end, so the worst
+    # point beyond s from both ends is at s from one of them: the s-2s region.
+    inner = asce7.case_c_cf(1.0, b_over_s, s_over_h)
     interior = np.where(b_over_s > 2.0, inner, end)
     end = np.where(w.in_line, w.line_local_max, end)
     interior = np.where(w.in_line, w.line_local_mid, interior)
@@ -310,17 +317,34 @@ def _ratio(demand, capacity):
         return np.where(capacity > 0, demand / capacity, np.where(demand > 0, np.inf, 0.0))
 
 
-def solve_increasing(g, lo: float, hi: float, size: int, iterations: int = 80) -> np.ndarray:
-    """Vectorised bisection for g(x) = 0 with g increasing; NaN where there is no root in range."""
-    a = np.full(size, lo)
-    b = np.full(size, hi)
+def solve_increasing(g, lo: float, hi: float, size: int, iterations: int = 60,
+                     tolerance: float = 1e-12) -> np.ndarray:
+    """Root of an increasing g(x) on [lo, hi] for many walls at once; NaN where none in range.
+
+    Illinois regula falsi (a bracketing secant step that halves a stale end's weight), falling
+    back to bisection where the step leaves the bracket: robust like bisection, fast like
+    secant on the smooth, nearly linear utilizations here.
+    """
+    a = np.full(size, float(lo))
+    b = np.full(size, float(hi))
     ga, gb = g(a), g(b)
+    fa, fb = ga.copy(), gb.copy()
+    side = np.zeros(size)
     for _ in range(iterations):
-        mid = 0.5 * (a + b)
-        below = g(mid) < 0.0
-        a = np.where(below, mid, a)
-        b = np.where(below, b, mid)
-    root = 0.5 * (a + b)
+        with np.errstate(divide="ignore", invalid="ignore"):
+            x = (a * fb - b * fa) / (fb - fa)
+        x = np.where(np.isfinite(x) & (x > a) & (x < b), x, 0.5 * (a + b))
+        gx = g(x)
+        below = gx < 0.0
+        a, fa = np.where(below, x, a), np.where(below, gx, fa)
+        b, fb = np.where(below, b, x), np.where(below, fb, gx)
+        # Illinois: the end that stayed twice in a row has its value halved
+        fb = np.where(below & (side == 1), fb / 2.0, fb)
+        fa = np.where(~below & (side == -1), fa / 2.0, fa)
+        side = np.where(below, 1, -1)
+        if np.all((np.abs(gx) < tolerance) | (b - a < tolerance * (1.0 + np.abs(b)))):
+            break
+    root = np.where(np.abs(fa) < np.abs(fb), a, b)
     root = np.where(ga >= 0.0, lo, root)
     return np.where(gb < 0.0, np.nan, root)
 
@@ -340,7 +364,9 @@ class Evaluation:
     design_speed: np.ndarray
     braces: braced.BraceSet | None = None
     braced_checks: dict | None = None
+    brace_forces: braced.BraceForces | None = None
     braced_limit: np.ndarray | None = None
+    braced_stand_down: np.ndarray | None = None
     braced_limit_missing: np.ndarray | None = None
 
 
@@ -392,49 +418,59 @@ def evaluate_arrays(site: Site) -> Evaluation:
         design_speed = np.maximum(design_speed, floor_rule)
     minimum = site.rule_value("minimum_design_pressure_psf")
 
-    def design_wind(walls: Walls) -> Wind:
-        return wind_on(walls, design_speed, asce7.KD_WALLS, minimum)
-
-    def observed(walls: Walls, speed) -> Wind:
-        return wind_on(walls, speed, 1.0, None)  # design.md §3: Kd 1.0, no minimum
-
     def unbraced_at(walls: Walls, wind: Wind, f: Factors):
         return governing_utilization(stability_checks(walls, wind, f)) - 1.0
 
-    wind = design_wind(w)
+    wind = wind_on(w, design_speed, asce7.KD_WALLS, minimum)
+    # An observed gust: Kd 1.0, no minimum, no period factor (design.md §3); loads grow with
+    # V^2, so the wind of a 1 mph gust is scaled rather than recomputed.
+    unit = wind_on(w, 1.0, 1.0, None)
     checks = stability_checks(w, wind, factors)
-    limit = solve_increasing(lambda v: unbraced_at(w, observed(w, v), SERVICE),
+    limit = solve_increasing(lambda v: unbraced_at(w, unit.scaled(v**2), SERVICE),
                              *SPEED_BRACKET_MPH, n)
+
+    def at_height(h, speed, kd, floor, f):
+        trial = w.at_height(h)
+        return unbraced_at(trial, wind_on(trial, speed, kd, floor), f)
     max_height = solve_increasing(
-        lambda h: unbraced_at(w.at_height(h), design_wind(w.at_height(h)), factors),
+        lambda h: at_height(h, design_speed, asce7.KD_WALLS, minimum, factors),
         *HEIGHT_BRACKET_FT, n)
     gust = site.site.limit_speed
-    max_at_limit = solve_increasing(
-        lambda h: unbraced_at(w.at_height(h), observed(w.at_height(h), gust), SERVICE),
-        *HEIGHT_BRACKET_FT, n) if gust else np.full(n, np.nan)
+    max_at_limit = (solve_increasing(lambda h: at_height(h, gust, 1.0, None, SERVICE),
+                                     *HEIGHT_BRACKET_FT, n) if gust else np.full(n, np.nan))
     e = Evaluation(w, wind, checks, governing_utilization(checks), limit,
                    stand_down_speeds(site, w, limit), max_height, max_at_limit, design_speed)
     bs = braced.gather_braces(site, site.site.design_basis)
     if bs is not None:
+        loads = braced.brace_loads(w, wind, bs, minimum)
         e.braces = bs
-        e.braced_checks, _ = braced.braced_checks(w, wind, bs, factors, minimum)
-        e.braced_limit = braced_limit(w, bs, observed)
-        e.braced_limit_missing = braced_limit_one_missing(w, bs, observed)
+        e.braced_checks, e.brace_forces = braced.braced_checks(w, wind, bs, factors, minimum,
+                                                               loads)
+        e.braced_limit = braced_limit(w, unit, bs)
+        e.braced_stand_down = stand_down_speeds(site, braced.take(w, bs.index), e.braced_limit)
+        e.braced_limit_missing = braced_limit_one_missing(w, unit, bs)
     return e
 
 
-def braced_limit(w: Walls, bs: braced.BraceSet, observed) -> np.ndarray:
-    """Working-limit gust of each braced wall: its most utilized element reaches 1.0 (§3)."""
-    own = braced.take(w, bs.index)  # one row per braced wall, so each has its own trial speed
+def braced_limit(w: Walls, unit: Wind, bs: braced.BraceSet) -> np.ndarray:
+    """Working-limit gust of each braced wall: its most utilized element reaches 1.0 (§3).
+
+    `unit` is the observed wind of a 1 mph gust on every wall; `bs` may list a wall more than
+    once (variants with a brace missing): each row gets its own trial speed.
+    """
+    own = braced.take(w, bs.index)
+    wind = braced.take(unit, bs.index)
     mine = replace(bs, index=np.arange(len(bs.index)))
+    loads = braced.brace_loads(own, wind, mine, None)
 
     def g(v):
-        checks, _ = braced.braced_checks(own, observed(own, v), mine, SERVICE, None)
+        checks, _ = braced.braced_checks(own, wind.scaled(v**2), mine, SERVICE, None,
+                                         loads.scaled(v**2))
         return governing_utilization(strength_only(checks)) - 1.0
     return solve_increasing(g, *SPEED_BRACKET_MPH, len(bs.index))
 
 
-def braced_limit_one_missing(w: Walls, bs: braced.BraceSet, observed) -> np.ndarray:
+def braced_limit_one_missing(w: Walls, unit: Wind, bs: braced.BraceSet) -> np.ndarray:
     """The working-limit gust with the worst single brace missing (equipment strikes one)."""
     rows, slots = np.nonzero(bs.mask & (bs.mask.sum(axis=1) >= 2)[:, None])
     out = np.full(len(bs.index), np.nan)
@@ -443,7 +479,7 @@ def braced_limit_one_missing(w: Walls, bs: braced.BraceSet, observed) -> np.ndar
     variant = braced.take(bs, rows)
     mask = variant.mask.copy()
     mask[np.arange(len(rows)), slots] = False
-    limits = braced_limit(w, replace(variant, mask=mask), observed)
+    limits = braced_limit(w, unit, replace(variant, mask=mask))
     np.fmin.at(out, rows, limits)
     return out
 
@@ -498,9 +534,8 @@ def _panel_result(site: Site, i: int, e: Evaluation) -> PanelResult:
         strength = [c for c in checks if c.element not in braced.SERVICEABILITY]
         status = "braced" if all(c.passes for c in strength) else "unsafe"
         limit = float(e.braced_limit[r])
-        stand_down = float(stand_down_speeds(site, braced.take(w, [i]), np.array([limit]))[0])
-        details = braced.braced_details(w, wind, e.braces, factors,
-                                        site.rule_value("minimum_design_pressure_psf"), r)
+        stand_down = float(e.braced_stand_down[r])
+        details = braced.braced_details(e.braces, e.brace_forces, r)
         brace_checks = [c for c in checks if c.element.startswith("brace")]
         details["utilization"] = max((c.utilization for c in brace_checks), default=None)
         missing = e.braced_limit_missing[r]

@@ -502,9 +502,23 @@ class Site(Strict):
         return r.value if r.enabled else None
 
 
+def _names_of(data: dict, section: str, problems: list) -> set:
+    """The `name`s of an array of tables such as [[lines]]; a repeated name is a problem."""
+    items = data.get(section)
+    seen: set = set()
+    for i, item in enumerate(items if isinstance(items, list) else []):
+        name = item.get("name") if isinstance(item, dict) else None
+        if isinstance(name, str) and name in seen:
+            problems.append(((section, i, "name"), "used twice", name))
+        elif isinstance(name, str):
+            seen.add(name)
+    return seen
+
+
 def reference_problems(data) -> list[tuple[tuple, str, object]]:
-    """(location, message, value) of every unknown rule, material, brace or anchor type, repeated
-    panel mark and too-new version in raw site data; other shapes are left to the fields."""
+    """(location, message, value) of every unknown rule, material, brace or anchor type, wall
+    line, event or signed-off panel, repeated mark or name and too-new version in raw site data;
+    other shapes are left to the fields."""
     if not isinstance(data, dict):
         return []
 
@@ -515,6 +529,8 @@ def reference_problems(data) -> list[tuple[tuple, str, object]]:
     problems: list[tuple[tuple, str, object]] = []
     for rule in names("rules") - set(DEFAULT_RULES):
         problems.append((("rules", rule), f"unknown rule; known: {', '.join(DEFAULT_RULES)}", rule))
+    lines = _names_of(data, "lines", problems)
+    events = _names_of(data, "events", problems)
     panels = data.get("panels")
     first_of: dict[str, int] = {}
     for i, p in enumerate(panels if isinstance(panels, list) else []):
@@ -542,6 +558,19 @@ def reference_problems(data) -> list[tuple[tuple, str, object]]:
                              mark))
         elif isinstance(mark, str):
             first_of[mark] = i
+        line = p.get("line")
+        if isinstance(line, str) and line not in lines:
+            problems.append((("panels", i, "line"), f"{line!r} is not a [[lines]] name", line))
+        after = p.get("release_after")
+        for j, event in enumerate(after if isinstance(after, list) else []):
+            if isinstance(event, str) and event not in events:
+                problems.append((("panels", i, "release_after", j),
+                                 f"{event!r} is not an [[events]] name", event))
+    signoffs = data.get("signoffs")
+    for i, s in enumerate(signoffs if isinstance(signoffs, list) else []):
+        mark = s.get("panel") if isinstance(s, dict) else None
+        if isinstance(mark, str) and mark not in first_of:
+            problems.append((("signoffs", i, "panel"), f"{mark!r} is not a panel mark", mark))
     version = data.get("version")
     if isinstance(version, int) and version > SCHEMA_VERSION:
         problems.append((("version",), f"version {version} is newer than this program "

@@ -30,6 +30,10 @@ BAD_INPUTS = [
     ("duplicate mark", 'mark = "M-1"', 'mark = "P-1"', "@P-1 again", "P-1", "mark", "used twice"),
     ("unknown rule", "[materials.tilt]", '[rules.stand_down]\nvalue = 0.8\nsource = "memo"\n\n'
      "[materials.tilt]", "[rules.stand_down]", None, "rule stand_down", "unknown rule"),
+    ("unknown wall line", 'mark = "M-1"', 'mark = "M-1"\nline = "north"', 'line = "north"', "M-1",
+     "line", "'north' is not a [[lines]] name"),
+    ("unknown release event", 'mark = "M-1"', 'mark = "M-1"\nrelease_after = ["roof"]',
+     "release_after", "M-1", "release_after", "'roof' is not an [[events]] name"),
     ("material without a weight", 'unit_weight = "150 pcf"        # normal-weight concrete\n', "",
      "[materials.tilt]", None, "material tilt", "unit_weight or face_weight"),
 ]

@@ -39,6 +39,8 @@ def site_record(result: SiteResult) -> dict:
         "basis_statement": result.basis_statement,
         "caution": result.caution,
         "panels": [panel_record(p, result.basis, result.caution) for p in result.worst_first()],
+        "days": [asdict(d) for d in result.days],
+        "peak_inventory": result.peak_inventory,
     })
 
 

@@ -1,0 +1,615 @@
+"""Site geometry in plan (design.md §7), with shapely 2.
+
+Plan coordinates are in ft, x to the east and y to the north. A wall line runs from `start` to
+`end` and is the braced face of the walls along it; a wall's thickness lies on the other side.
+A panel occupies [offset, offset + width] along its line, its braces stand on the line's braced
+side and each brace foot sits `anchor_distance` out from the face, square to the line.
+
+`plan_geometry` gathers what a view draws (plain coordinate lists) and the findings: slab anchors
+off the slab or too near its edge, a hole or a joint; ground anchors off open ground; braces
+crossing each other, a wall or an area kept clear; zones over occupied areas, the public way, a
+neighbour or the crane path.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+import shapely
+from shapely.geometry import MultiLineString, Polygon
+
+from bracing import braces
+from bracing.model import Bracing, Site
+from bracing.results import Flag
+
+IN_PER_FT = 12.0
+TOLERANCE_FT = 1e-6  # a point on a boundary counts as on it
+GROUND_KINDS = ("helical", "deadman", "stake")
+
+# A brace or its foot inside an area of each kind ('work' areas are not kept clear of braces).
+BRACE_IN_AREA = {"keep_clear": "danger", "crane_path": "danger", "public_way": "danger",
+                 "neighbour": "danger", "office": "warning"}
+# A zone over an area of each kind (design.md §7: occupied areas, the public way, neighbours).
+ZONE_OVER_AREA = {"public_way": "danger", "neighbour": "danger", "office": "warning",
+                  "work": "warning", "crane_path": "warning", "keep_clear": "notice"}
+AREA_WORDS = {"keep_clear": "keep-clear area", "crane_path": "crane path",
+              "public_way": "public way", "neighbour": "neighbour", "office": "site office",
+              "work": "work area"}
+
+Point = tuple[float, float]
+Coords = list[Point]
+
+
+@dataclass(frozen=True)
+class PanelPlace:
+    """Where a panel stands: its first edge on the face, unit vectors along its line and toward
+    the braced side, its thickness and its footprint (a thickness-deep strip behind the face)."""
+
+    index: int  # in site.panels
+    mark: str
+    line: str
+    origin: np.ndarray
+    direction: np.ndarray
+    normal: np.ndarray
+    width_ft: float
+    thickness_ft: float
+    footprint: Polygon
+
+    def at(self, along_ft, out_ft) -> np.ndarray:
+        """Plan points `along_ft` from the first edge and `out_ft` out from the face toward the
+        braced side (arrays broadcast; shape (..., 2))."""
+        a = np.asarray(along_ft, dtype=float)[..., None]
+        o = np.asarray(out_ft, dtype=float)[..., None]
+        return self.origin + a * self.direction + o * self.normal
+
+    @property
+    def face(self) -> np.ndarray:
+        """The braced face, first edge to last edge, shape (2, 2)."""
+        return self.at([0.0, self.width_ft], 0.0)
+
+
+@dataclass(slots=True)
+class PlanArea:
+    name: str
+    kind: str
+    coords: Coords
+
+
+@dataclass(slots=True)
+class PlanLine:
+    name: str
+    start: Point
+    end: Point
+    braced_side: str
+
+
+@dataclass(slots=True)
+class PlanPanel:
+    """One placed wall as the views draw it; zones and braces only when it stands that day."""
+
+    mark: str
+    line: str
+    standing: bool
+    height_ft: float
+    footprint: Coords
+    face: tuple[Point, Point]
+    braces: list[tuple[Point, Point]]  # (insert point on the face, foot point)
+    foot_kind: str  # 'slab', 'helical', 'deadman', 'stake', 'insert' or '' (none named)
+    foot_anchor: str | None
+    restricted_zone: Coords
+    evacuated_zone: Coords
+    zone_basis: str  # the zone's reach on each side and its source
+
+
+@dataclass(slots=True)
+class PlanFinding:
+    """A finding of the plan for one wall, with the plan points where it lies."""
+
+    mark: str
+    flag: Flag
+    at: list[Point]
+
+
+@dataclass(slots=True)
+class PlanGeometry:
+    """Plain coordinates (ft) of a site's plan on one day, and what was found in it."""
+
+    day: int | None
+    slab: Coords
+    slab_holes: list[Coords]
+    joints: list[Coords]
+    ground: list[Coords]
+    areas: list[PlanArea]
+    lines: list[PlanLine]
+    panels: list[PlanPanel]
+    findings: list[PlanFinding]
+    bounds: tuple[float, float, float, float]  # min x, min y, max x, max y
+
+    @property
+    def standing(self) -> list[str]:
+        return [p.mark for p in self.panels if p.standing]
+
+
+# --- placing walls and braces -------------------------------------------------------------------
+def place(site: Site) -> dict[str, PanelPlace]:
+    """Every panel that names a wall line, placed along it (the others are skipped)."""
+    lines = {line.name: line for line in site.lines}
+    places = {}
+    for i, p in enumerate(site.panels):
+        if p.line is None:
+            continue
+        line = lines[p.line]
+        start, end = np.array(line.start, dtype=float), np.array(line.end, dtype=float)
+        u = (end - start) / np.hypot(*(end - start))
+        left = np.array([-u[1], u[0]])  # the left hand, looking from start to end
+        normal = left if line.braced_side == "left" else -left
+        t = p.thickness / IN_PER_FT
+        origin = start + p.offset * u
+        corners = origin + np.outer([0.0, p.width, p.width, 0.0], u) \
+            - np.outer([0.0, 0.0, t, t], normal)
+        places[p.mark] = PanelPlace(i, p.mark, line.name, origin, u, normal, p.width, t,
+                                    Polygon(corners))
+    return places
+
+
+def anchor_distance_ft(b: Bracing) -> float:
+    """Brace foot from the wall face (ft): as given, or from the brace angle (geometry)."""
+    if b.anchor_distance is not None:
+        return b.anchor_distance
+    return float(braces.anchor_distance_for_angle(
+        b.insert_height, b.angle, b.insert_offset / IN_PER_FT, b.foot_offset / IN_PER_FT,
+        b.base_below_slab))
+
+
+def brace_points(site: Site, place: PanelPlace) -> tuple[np.ndarray, np.ndarray]:
+    """Insert points on the face and foot points of a placed panel's braces, each (k, 2)."""
+    b = site.panels[place.index].bracing
+    if b is None:
+        return np.empty((0, 2)), np.empty((0, 2))
+    x = np.asarray(b.positions or braces.default_positions(place.width_ft, b.count), dtype=float)
+    return place.at(x, 0.0), place.at(x, anchor_distance_ft(b))
+
+
+@dataclass(frozen=True)
+class _Braces:
+    """Every brace of the walls standing, one row each."""
+
+    mark: np.ndarray
+    number: np.ndarray  # 1-based within its wall
+    insert: np.ndarray  # (m, 2)
+    foot: np.ndarray    # (m, 2)
+    kind: np.ndarray    # foot anchor kind, '' when none named
+    anchor: np.ndarray  # foot anchor type name, '' when none named
+    top_ft: np.ndarray  # brace pin heights above the slab, at the insert and at the foot
+    low_ft: np.ndarray
+
+    @property
+    def segments(self) -> np.ndarray:
+        return shapely.linestrings(np.stack([self.insert, self.foot], axis=1))
+
+
+def _brace_table(site: Site, places: dict[str, PanelPlace], marks: list[str]) -> _Braces:
+    rows = []
+    for mark in marks:
+        b = site.panels[places[mark].index].bracing
+        if b is None:
+            continue
+        inserts, feet = brace_points(site, places[mark])
+        kind = site.anchor_types[b.foot_anchor].kind if b.foot_anchor else ""
+        for n, (ins, foot) in enumerate(zip(inserts, feet), 1):
+            rows.append((mark, n, ins, foot, kind, b.foot_anchor or "",
+                         b.insert_height - b.base_below_slab, b.foot_offset / IN_PER_FT))
+    if not rows:
+        empty = np.empty(0)
+        return _Braces(empty.astype(str), empty.astype(int), np.empty((0, 2)),
+                       np.empty((0, 2)), empty.astype(str), empty.astype(str), empty, empty)
+    mark, number, ins, foot, kind, anchor, top, low = zip(*rows)
+    return _Braces(np.array(mark), np.array(number), np.array(ins), np.array(foot),
+                   np.array(kind), np.array(anchor), np.array(top, dtype=float),
+                   np.array(low, dtype=float))
+
+
+def _standing_marks(places: dict[str, PanelPlace], standing: set[str] | None) -> list[str]:
+    return [m for m in places if standing is None or m in standing]
+
+
+# --- slab and ground ----------------------------------------------------------------------------
+@dataclass(frozen=True)
+class _Slab:
+    area: object               # the slab less its holes
+    holes: object              # union of the holes (may be empty)
+    edges: list[tuple[str, object]]  # (what, lines): the edge, the holes, the joints
+
+
+def _slab(site: Site) -> _Slab | None:
+    plan = site.plan
+    if plan is None or len(plan.slab) < 3:
+        return None
+    outline = shapely.make_valid(Polygon(plan.slab))
+    holes = shapely.union_all([shapely.make_valid(Polygon(h)) for h in plan.slab_holes
+                               if len(h) >= 3])
+    edges = [("the slab edge", outline.boundary)]
+    if not holes.is_empty:
+        edges.append(("a slab hole", holes.boundary))
+    joints = [j for j in plan.slab_joints if len(j) >= 2]
+    if joints:
+        edges.append(("a slab joint", MultiLineString(joints)))
+    return _Slab(outline.difference(holes), holes, edges)
+
+
+def _ground(site: Site):
+    plan = site.plan
+    shapes = [shapely.make_valid(Polygon(g)) for g in (plan.ground if plan else []) if len(g) >= 3]
+    return shapely.union_all(shapes) if shapes else None
+
+
+def _edge_distances_ft(slab: _Slab, points: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """Least distance (ft) of each point to the slab edge, a hole or a joint, and which one."""
+    pts = shapely.points(points)
+    d = np.stack([shapely.distance(geom, pts) for _, geom in slab.edges])
+    return d.min(axis=0), d.argmin(axis=0)
+
+
+def foot_edge_distances_in(site: Site, places: dict[str, PanelPlace]) -> dict[str, float]:
+    """Least distance (in) from each wall's slab-anchor feet to the slab edge, a hole or a joint,
+    for ACI 318-19 §17.6.2.4 (psi_ed,N) and §17.7.2 (c_a1); 0 where a foot is off the slab;
+    inf where the wall has no slab anchor, is not placed or the plan has no slab outline."""
+    out = {p.mark: np.inf for p in site.panels}
+    slab = _slab(site)
+    table = _brace_table(site, places, list(places))
+    sel = table.kind == "slab"
+    if slab is None or not sel.any():
+        return out
+    feet = table.foot[sel]
+    dist, _ = _edge_distances_ft(slab, feet)
+    dist = np.where(shapely.covers(slab.area, shapely.points(feet)), dist, 0.0) * IN_PER_FT
+    for mark, d in zip(table.mark[sel], dist):
+        out[mark] = min(out[mark], float(d))
+    return out
+
+
+def edge_distance_needed_in(site: Site, anchor: str) -> tuple[float, str]:
+    """Least edge distance (in) a slab anchor type needs, and where the value comes from."""
+    a = site.anchor_types[anchor]
+    if a.edge_distance is not None:
+        return a.edge_distance, f"type '{anchor}'"
+    # ACI 318-19 §17.9.2: without the product's c_min, 6 d_a, the least of Table 17.9.2(a)
+    # (from memory).
+    return 6.0 * a.diameter, f"6 d_a for type '{anchor}' (no edge distance given; from memory)"
+
+
+# --- zones --------------------------------------------------------------------------------------
+def zone_reach(site: Site, places: dict[str, PanelPlace], heights: dict[str, float] | None = None,
+               standing: set[str] | None = None) -> dict[str, tuple[float, float, str]]:
+    """Reach of each standing wall's zone (ft): out from the face on the braced side, back from
+    the face on the other side, and its basis (design.md §7).
+
+    Masonry: height + `masonry_zone_extra_ft` (OSHA 29 CFR 1926.706(a)) on the unscaffolded
+    side, taken as the braced side, never less than the brace footprint. Other walls (common
+    practice: a wall can fall either way): height + brace footprint on the braced side, the
+    height behind its back face. Both run the wall's whole length, no farther.
+    """
+    extra = site.rule_value("masonry_zone_extra_ft")
+    out = {}
+    for mark in _standing_marks(places, standing):
+        pl = places[mark]
+        p = site.panels[pl.index]
+        h = heights.get(mark, p.height) if heights else p.height
+        footprint = anchor_distance_ft(p.bracing) if p.bracing else 0.0
+        if site.materials[p.material].kind == "masonry" and extra is not None:
+            reach = max(h + extra, h + footprint)  # OSHA 29 CFR 1926.706(a): h + 4 ft
+            source = site.rule("masonry_zone_extra_ft").source
+            out[mark] = (reach, 0.0, f"{reach:.1f} ft on the braced (unscaffolded) side: "
+                                     f"wall height + {extra:g} ft ({source})")
+        else:
+            out[mark] = (h + footprint, pl.thickness_ft + h,
+                         f"{h + footprint:.1f} ft on the braced side (height + brace "
+                         f"footprint), {h:.1f} ft behind (height) (common practice)")
+    return out
+
+
+def zones(site: Site, places: dict[str, PanelPlace], heights: dict[str, float] | None = None,
+          standing: set[str] | None = None) -> dict[str, Polygon]:
+    """Restricted zone of each standing wall (design.md §7), a rectangle along its length.
+
+    The evacuated zone (nobody inside, at the stand-down speed and during lifts) is given the
+    same footprint: OSHA 29 CFR 1926.706(a) and the common practice name one zone, and no
+    published reason was found to make it larger; what changes is who may be inside.
+    """
+    out = {}
+    for mark, (front, back, _) in zone_reach(site, places, heights, standing).items():
+        pl = places[mark]
+        w = pl.width_ft
+        out[mark] = Polygon(pl.at([0.0, w, w, 0.0], [-back, -back, front, front]))
+    return out
+
+
+# --- findings -----------------------------------------------------------------------------------
+def plan_findings(site: Site, places: dict[str, PanelPlace],
+                  standing: set[str] | None = None) -> list[tuple[str, Flag]]:
+    """(mark, flag) of everything wrong in the plan for the walls standing (None: all placed)."""
+    return [(f.mark, f.flag) for f in _findings(site, places, standing)]
+
+
+def _findings(site: Site, places: dict[str, PanelPlace], standing: set[str] | None,
+              zone_of: dict[str, Polygon] | None = None) -> list[PlanFinding]:
+    marks = _standing_marks(places, standing)
+    table = _brace_table(site, places, marks)
+    if zone_of is None:
+        zone_of = zones(site, places, None, standing)
+    return (_line_findings(site)
+            + _slab_anchor_findings(site, table)
+            + _ground_anchor_findings(site, table)
+            + _brace_crossings(table)
+            + _braces_through_walls(table, places, marks)
+            + _braces_in_areas(site, table)
+            + _zone_overlaps(site, zone_of)
+            + _overlapping_walls(places, marks))
+
+
+def _xy(p) -> str:
+    return f"({p[0]:.1f}, {p[1]:.1f}) ft"
+
+
+def _line_findings(site: Site) -> list[PlanFinding]:
+    """Walls running past the end of their line (the model checks that the line exists)."""
+    names = {line.name: line for line in site.lines}
+    found = []
+    for p in site.panels:
+        if p.line is None:
+            continue
+        line = names[p.line]
+        length = float(np.hypot(line.end[0] - line.start[0], line.end[1] - line.start[1]))
+        if p.offset + p.width > length + TOLERANCE_FT:
+            found.append(PlanFinding(p.mark, Flag(
+                "past-line-end", "notice", f"the wall runs to {p.offset + p.width:.1f} ft along "
+                f"line '{p.line}', which is {length:.1f} ft long", "site file"), []))
+    return found
+
+
+def _slab_anchor_findings(site: Site, t: _Braces) -> list[PlanFinding]:
+    sel = np.nonzero(t.kind == "slab")[0]
+    if len(sel) == 0:
+        return []
+    slab = _slab(site)
+    if slab is None:
+        return [PlanFinding(m, Flag(
+            "anchor-not-located", "notice", "the plan has no slab outline: the slab anchors' "
+            "positions and edge distances are not checked", "design.md §7"), [])
+            for m in dict.fromkeys(t.mark[sel])]
+    pts = shapely.points(t.foot[sel])
+    on = shapely.covers(slab.area, pts)
+    in_hole = shapely.covers(slab.holes, pts) if not slab.holes.is_empty else np.zeros_like(on)
+    dist, which = _edge_distances_ft(slab, t.foot[sel])
+    found = []
+    for mark in dict.fromkeys(t.mark[sel]):
+        mine = t.mark[sel] == mark
+        off = mine & ~on
+        if off.any():
+            where = "in a slab hole" if in_hole[off].any() else "off the slab"
+            found.append(PlanFinding(mark, Flag(
+                "anchor-off-slab", "danger", f"slab anchor at {_numbers(t, sel[off])} "
+                f"{where}, as at {_xy(t.foot[sel][off][0])}: no concrete to hold it",
+                "ACI 318-19 Ch. 17 (an anchor in concrete); design.md §7"),
+                [tuple(p) for p in t.foot[sel][off]]))
+        anchor = t.anchor[sel][mine][0]
+        need_in, need_from = edge_distance_needed_in(site, anchor)
+        short = mine & on & (dist * IN_PER_FT < need_in - TOLERANCE_FT)
+        if short.any():
+            k = np.argmin(np.where(short, dist, np.inf))
+            found.append(PlanFinding(mark, Flag(
+                "anchor-near-edge", "danger", f"slab anchor at {_numbers(t, sel[short])}: "
+                f"{dist[k] * IN_PER_FT:.1f} in from {slab.edges[which[k]][0]}; "
+                f"{need_from} needs {need_in:g} in",
+                f"ACI 318-19 §17.9 (least edge distance, {need_in:g} in); the distance "
+                "found feeds psi_ed,N, §17.6.2.4.1"),
+                [tuple(p) for p in t.foot[sel][short]]))
+    return found
+
+
+def _ground_anchor_findings(site: Site, t: _Braces) -> list[PlanFinding]:
+    sel = np.nonzero(np.isin(t.kind, GROUND_KINDS))[0]
+    if len(sel) == 0:
+        return []
+    ground, slab = _ground(site), _slab(site)
+    pts = shapely.points(t.foot[sel])
+    deadman = t.kind[sel] == "deadman"
+    on_ground = shapely.covers(ground, pts) if ground is not None else np.zeros(len(sel), bool)
+    on_slab = shapely.covers(slab.area, pts) if slab is not None else np.zeros(len(sel), bool)
+    ok = on_ground | (deadman & on_slab)
+    drawn = (ground is not None) | (deadman & (slab is not None))
+    found = []
+    for mark in dict.fromkeys(t.mark[sel]):
+        mine = t.mark[sel] == mark
+        kind = t.kind[sel][mine][0]
+        if not drawn[mine].any():
+            found.append(PlanFinding(mark, Flag(
+                "anchor-not-located", "notice", f"the plan has no open ground: the {kind} "
+                "anchors' positions are not checked", "design.md §7"), []))
+            continue
+        bad = mine & ~ok
+        if bad.any():
+            where = "on open ground or on the slab" if kind == "deadman" else "on open ground"
+            found.append(PlanFinding(mark, Flag(
+                "ground-anchor-off-ground", "danger", f"{kind} anchor at "
+                f"{_numbers(t, sel[bad])} not {where}, as at {_xy(t.foot[sel][bad][0])}",
+                "design.md §7 (ground anchors go in open ground)"),
+                [tuple(p) for p in t.foot[sel][bad]]))
+    return found
+
+
+def _numbers(t: _Braces, rows) -> str:
+    """'brace 2' or 'braces 1, 2' of the rows given."""
+    numbers = [str(n) for n in t.number[rows]]
+    return ("brace " if len(numbers) == 1 else "braces ") + ", ".join(numbers)
+
+
+def _brace_crossings(t: _Braces) -> list[PlanFinding]:
+    """Braces of different walls that cross in plan, with their heights where they cross."""
+    segs = t.segments
+    if len(segs) < 2:
+        return []
+    a, b = shapely.STRtree(segs).query(segs, predicate="intersects")
+    keep = (a < b) & (t.mark[a] != t.mark[b])
+    a, b = a[keep], b[keep]
+    meet = shapely.point_on_surface(shapely.intersection(segs[a], segs[b]))
+    found = []
+    for i, j, pt in zip(a, b, meet):
+        xy = (pt.x, pt.y)
+        hi, hj = (t.top_ft[k] + (t.low_ft[k] - t.top_ft[k])
+                  * shapely.line_locate_point(segs[k], pt, normalized=True) for k in (i, j))
+        for me, other, h_me, h_other in ((i, j, hi, hj), (j, i, hj, hi)):
+            found.append(PlanFinding(t.mark[me], Flag(
+                "braces-cross", "danger", f"brace {t.number[me]} crosses brace "
+                f"{t.number[other]} of {t.mark[other]} at {_xy(xy)}, {h_me:.1f} ft and "
+                f"{h_other:.1f} ft above the slab there: one cannot be set as drawn",
+                "common practice (design.md §7)"), [xy]))
+    return found
+
+
+def _braces_through_walls(t: _Braces, places: dict[str, PanelPlace],
+                          marks: list[str]) -> list[PlanFinding]:
+    segs = t.segments
+    if len(segs) == 0:
+        return []
+    walls = np.array(marks)
+    shapes = np.array([places[m].footprint for m in marks])
+    a, w = shapely.STRtree(shapes).query(segs, predicate="intersects")
+    keep = (t.mark[a] != walls[w]) & ~shapely.touches(segs[a], shapes[w])
+    found = []
+    for i, k in zip(a[keep], w[keep]):
+        pt = shapely.point_on_surface(shapely.intersection(segs[i], shapes[k]))
+        found.append(PlanFinding(t.mark[i], Flag(
+            "brace-crosses-wall", "danger", f"brace {t.number[i]} runs through wall "
+            f"{walls[k]} at {_xy((pt.x, pt.y))}", "design.md §7"), [(pt.x, pt.y)]))
+    return found
+
+
+def _braces_in_areas(site: Site, t: _Braces) -> list[PlanFinding]:
+    areas = [a for a in (site.plan.areas if site.plan else []) if a.kind in BRACE_IN_AREA]
+    segs = t.segments
+    if not areas or len(segs) == 0:
+        return []
+    shapes = np.array([shapely.make_valid(Polygon(a.polygon)) for a in areas])
+    s, k = shapely.STRtree(shapes).query(segs, predicate="intersects")
+    keep = ~shapely.touches(segs[s], shapes[k])
+    s, k = s[keep], k[keep]
+    found = []
+    for mark, area in dict.fromkeys(zip(t.mark[s], k)):
+        rows = s[(t.mark[s] == mark) & (k == area)]
+        a = areas[area]
+        pts = [shapely.point_on_surface(shapely.intersection(segs[r], shapes[area]))
+               for r in rows]
+        found.append(PlanFinding(mark, Flag(
+            "brace-crosses-keep-clear", BRACE_IN_AREA[a.kind], f"{_numbers(t, rows)} "
+            f"enters the {AREA_WORDS[a.kind]} '{a.name}'", "site plan areas (design.md §7)"),
+            [(p.x, p.y) for p in pts]))
+    return found
+
+
+def _zone_overlaps(site: Site, zone_of: dict[str, Polygon]) -> list[PlanFinding]:
+    areas = [a for a in (site.plan.areas if site.plan else []) if a.kind in ZONE_OVER_AREA]
+    if not areas or not zone_of:
+        return []
+    marks = list(zone_of)
+    zs = np.array([zone_of[m] for m in marks])
+    shapes = np.array([shapely.make_valid(Polygon(a.polygon)) for a in areas])
+    z, k = shapely.STRtree(shapes).query(zs, predicate="intersects")
+    common = shapely.intersection(zs[z], shapes[k])
+    size = shapely.area(common)
+    masonry_source = site.rule("masonry_zone_extra_ft").source
+    found = []
+    for zi, ki, part, a_ft2 in zip(z, k, common, size):
+        if a_ft2 <= TOLERANCE_FT:
+            continue
+        area, mark = areas[ki], marks[zi]
+        p = next(p for p in site.panels if p.mark == mark)
+        masonry = site.materials[p.material].kind == "masonry" and \
+            site.rule_value("masonry_zone_extra_ft") is not None
+        code = "zone-overlaps-crane-path" if area.kind == "crane_path" else "zone-overlap"
+        pt = shapely.point_on_surface(part)
+        found.append(PlanFinding(mark, Flag(
+            code, ZONE_OVER_AREA[area.kind], f"the wall's zone overlaps the "
+            f"{AREA_WORDS[area.kind]} '{area.name}' by {a_ft2:.0f} ft²: authorised workers only while "
+            "the wall stands, nobody at the stand-down speed or during lifts",
+            masonry_source if masonry else "common practice (design.md §7)"), [(pt.x, pt.y)]))
+    return found
+
+
+def _overlapping_walls(places: dict[str, PanelPlace], marks: list[str]) -> list[PlanFinding]:
+    if len(marks) < 2:
+        return []
+    shapes = np.array([places[m].footprint for m in marks])
+    a, b = shapely.STRtree(shapes).query(shapes, predicate="intersects")
+    keep = a < b
+    common = shapely.intersection(shapes[a[keep]], shapes[b[keep]])
+    found = []
+    for i, j, part in zip(a[keep], b[keep], common):
+        if shapely.area(part) > TOLERANCE_FT:
+            pt = shapely.point_on_surface(part)
+            found.append(PlanFinding(marks[i], Flag(
+                "walls-overlap", "warning", f"overlaps wall {marks[j]} in plan: check the "
+                "offsets along the wall line", "site file"), [(pt.x, pt.y)]))
+    return found
+
+
+# --- the whole plan -----------------------------------------------------------------------------
+def _coords(geom) -> Coords:
+    return [(float(x), float(y)) for x, y in shapely.get_coordinates(geom)]
+
+
+def plan_geometry(site: Site, standing: set[str] | None = None, day: int | None = None,
+                  heights: dict[str, float] | None = None) -> PlanGeometry:
+    """The plan of a day (`standing`: marks standing; None: every placed wall) for the views."""
+    places = place(site)
+    marks = set(_standing_marks(places, standing))
+    reach = zone_reach(site, places, heights, standing)
+    zone_of = zones(site, places, heights, standing)
+    panels = []
+    for mark, pl in places.items():
+        p = site.panels[pl.index]
+        up = mark in marks
+        inserts, feet = brace_points(site, pl) if up else (np.empty((0, 2)),) * 2
+        b = p.bracing
+        face = pl.face
+        zone = _coords(zone_of[mark].exterior) if up else []
+        panels.append(PlanPanel(
+            mark=mark, line=pl.line, standing=up,
+            height_ft=heights.get(mark, p.height) if heights else p.height,
+            footprint=_coords(pl.footprint.exterior),
+            face=(tuple(map(float, face[0])), tuple(map(float, face[1]))),
+            braces=[(tuple(map(float, i)), tuple(map(float, f))) for i, f in zip(inserts, feet)],
+            foot_kind=site.anchor_types[b.foot_anchor].kind if b and b.foot_anchor else "",
+            foot_anchor=b.foot_anchor if b else None,
+            restricted_zone=zone, evacuated_zone=list(zone),
+            zone_basis=reach[mark][2] if up else ""))
+    plan = site.plan
+    geometry = PlanGeometry(
+        day=day,
+        slab=[tuple(p) for p in plan.slab] if plan else [],
+        slab_holes=[[tuple(p) for p in h] for h in plan.slab_holes] if plan else [],
+        joints=[[tuple(p) for p in j] for j in plan.slab_joints] if plan else [],
+        ground=[[tuple(p) for p in g] for g in plan.ground] if plan else [],
+        areas=[PlanArea(a.name, a.kind, [tuple(p) for p in a.polygon])
+               for a in (plan.areas if plan else [])],
+        lines=[PlanLine(line.name, tuple(line.start), tuple(line.end), line.braced_side)
+               for line in site.lines],
+        panels=panels,
+        findings=_findings(site, places, standing, zone_of),
+        bounds=(0.0, 0.0, 1.0, 1.0))
+    geometry.bounds = _bounds(geometry)
+    return geometry
+
+
+def _bounds(g: PlanGeometry) -> tuple[float, float, float, float]:
+    pts = [*g.slab, *(p for h in g.slab_holes for p in h), *(p for j in g.joints for p in j),
+           *(p for r in g.ground for p in r), *(p for a in g.areas for p in a.coords),
+           *(p for line in g.lines for p in (line.start, line.end)),
+           *(p for w in g.panels for p in w.footprint + w.restricted_zone),
+           *(p for w in g.panels for b in w.braces for p in b)]
+    if not pts:
+        return (0.0, 0.0, 1.0, 1.0)
+    xy = np.array(pts, dtype=float)
+    lo, hi = xy.min(axis=0), xy.max(axis=0)
+    return (float(lo[0]), float(lo[1]), float(hi[0]), float(hi[1]))

@@ -1,0 +1,370 @@
+"""The crew's brace schedule of a day (design.md §1, §7): HTML for print, CSV and plain text.
+
+Every value comes from the result object (walls, days, zones); this module only picks and
+formats them. Each day is one page: the caution at its top and bottom, the declared basis, the
+wind go / no-go, lifts and releases, the brace schedule of the walls standing, the walls standing
+without braces, the inventory, the plan and a section sketch of each braced wall. Pass or fail is
+shown by a symbol and a word as well as colour.
+"""
+
+from __future__ import annotations
+
+import csv
+import io
+from dataclasses import dataclass, field
+from pathlib import Path
+
+from jinja2 import Environment, FileSystemLoader, select_autoescape
+from markupsafe import Markup
+
+from bracing import schedule
+from bracing.model import Site
+from bracing.report.text import fmt
+from bracing.results import DayResult, PanelResult, SiteResult
+from bracing.units import convert
+
+TEMPLATES = Path(__file__).with_name("templates")
+STATUS_SYMBOL = {"unsafe": "✖", "needs_braces": "▲", "braced": "✔", "stands": "○"}
+STATUS_WORD = {"unsafe": "UNSAFE", "needs_braces": "NEEDS BRACES", "braced": "braced",
+               "stands": "stands"}
+FLAG_SYMBOL = {"danger": "✖", "warning": "▲", "notice": "•"}
+GO = {True: ("✔", "GO", "go"), False: ("✖", "NO-GO", "nogo"), None: ("?", "NO CALL", "none")}
+ASCII = str.maketrans({"·": "-", "²": "^2", "³": "^3", "✔": "ok", "✖": "X", "▲": "!",
+                       "○": "-", "•": "-", "—": "-"})
+DAY_RULES = ("stand_down_ratio",)
+MASONRY_RULES = ("masonry_initial_speed_mph", "masonry_intermediate_speed_mph",
+                 "masonry_zone_extra_ft")
+
+
+class NoSuchDay(ValueError):
+    """A day the schedule does not have."""
+
+
+@dataclass
+class Row:
+    """One standing wall on a day's sheet, formatted in the chosen units."""
+
+    mark: str
+    status: str
+    symbol: str
+    word: str
+    today: str
+    braced: bool
+    count: str = ""
+    positions: str = ""
+    insert: str = ""
+    anchor_distance: str = ""
+    length: str = ""
+    angle: str = ""
+    brace_type: str = ""
+    wall_anchor: str = ""
+    foot_anchor: str = ""
+    torque: str = ""
+    stand_down: str = ""
+    sustained: str = ""
+    zone: str = ""
+    numbers: dict = field(default_factory=dict)  # CSV cells: plain numbers in the units chosen
+
+
+@dataclass
+class Page:
+    """One day's sheet."""
+
+    day: DayResult
+    title: str
+    go: tuple[str, str, str]
+    reason: str
+    forecast: str
+    stand_down: str
+    sustained: str
+    working_limit: str
+    lifts: list[str]
+    releases: list[str]
+    flags: list[tuple[str, str, str, str]]  # symbol, SEVERITY, message, source
+    rows: list[Row]
+    unbraced: list[Row]
+    inventory: list[tuple[str, str, str, str, str]]  # kind, type, in use, on hand, short
+    rules: list[tuple[str, str, str, str]]  # name, value, source, basis
+    plan_svg: Markup | None = None
+    sections: list[tuple[str, Markup]] = field(default_factory=list)
+
+
+def render(site: Site, result: SiteResult, day: int | None, fmt_name: str, units: str) -> str:
+    """The schedule of `day` (None: every day something stands) as 'html', 'csv' or 'text'."""
+    pages = build_pages(site, result, day, units, pictures=fmt_name == "html")
+    if fmt_name == "html":
+        return html(result, pages)
+    if fmt_name == "csv":
+        return csv_text(result, pages, units)
+    if fmt_name == "text":
+        return plain_text(result, pages)
+    raise ValueError(f"unknown format {fmt_name!r} (html, csv or text)")
+
+
+def pick_days(site: Site, result: SiteResult, day: int | None) -> list[DayResult]:
+    """The days to print: one, every day with a wall standing, lifted or released, or day 0 (the
+    whole site together) when the site file gives no lift days."""
+    if not result.days:
+        if any(p.lift_day is not None for p in site.panels):
+            raise ValueError("the result has no days: fill SiteResult.days with "
+                             "bracing.schedule.build_days")
+        if day is not None:
+            raise NoSuchDay(f"day {day}: the site file gives no lift days (leave out --day for "
+                            "the sheet of every wall)")
+        return [schedule.whole_site(site, result.panels)]
+    if day is None:
+        return [d for d in result.days if d.standing or d.lifts or d.released]
+    found = [d for d in result.days if d.day == day]
+    if not found:
+        raise NoSuchDay(f"day {day} is not in the schedule (days {result.days[0].day} to "
+                        f"{result.days[-1].day})")
+    return found
+
+
+def build_pages(site: Site, result: SiteResult, day: int | None, units: str,
+                pictures: bool = False) -> list[Page]:
+    """The formatted pages of the days asked for (pictures: the plan and section SVGs)."""
+    days = pick_days(site, result, day)
+    marks = {m for d in days for m in d.standing + d.released}
+    zones = schedule.fall_zones(site, [p for p in result.panels if p.mark in marks])
+    bracing = {p.mark: p.bracing for p in site.panels}
+    svg = _svg() if pictures else None
+    pages = []
+    for d in days:
+        walls = [result.panel(m) for m in d.standing + d.released]
+        rows = [_row(site, p, bracing[p.mark], d, zones[p.mark], units) for p in walls]
+        page = Page(
+            day=d, title=_title(result, d), go=GO[d.go], reason=d.reason,
+            forecast=_forecast(d, units),
+            stand_down=(f"{_speed(d.stand_down_speed_mph, units)} ({d.governing_wall})"
+                        if d.governing_wall else "none"),
+            sustained=_sustained(result, d, units),
+            working_limit=_speed(d.working_limit_speed_mph, units),
+            lifts=d.lifts, releases=[_release(site, m, d.day) for m in d.released],
+            flags=_flags(d, walls), rows=[r for r in rows if r.braced],
+            unbraced=[r for r in rows if not r.braced], inventory=_inventory(site, d),
+            rules=_rules(site, walls))
+        if svg is not None:
+            page.plan_svg = Markup(svg.plan_svg(result, d.day or None))
+            page.sections = [(p.mark, Markup(svg.section_svg(p))) for p in walls if p.braces]
+        pages.append(page)
+    return pages
+
+
+def _svg():
+    from bracing.report import svg  # drawn by the plan views
+
+    return svg
+
+
+def _title(result: SiteResult, d: DayResult) -> str:
+    if d.day == 0:
+        return f"{result.name}: every wall standing together (the site file gives no lift days)"
+    return f"{result.name}: day {d.day}" + (f", {d.date}" if d.date else "")
+
+
+def _speed(mph: float | None, units: str) -> str:
+    return fmt(mph, "mph", units, 0 if units == "us" else 1)
+
+
+def _forecast(d: DayResult, units: str) -> str:
+    if d.forecast_gust_mph is None:
+        return "no forecast" + (", thunderstorm forecast" if d.storm else "")
+    return f"gust {_speed(d.forecast_gust_mph, units)}" + (", THUNDERSTORM" if d.storm else "")
+
+
+def _sustained(result: SiteResult, d: DayResult, units: str) -> str:
+    """The sustained-wind equivalents of the day's stand-down gust (its governing wall's)."""
+    if d.governing_wall is None:
+        return ""
+    eq = result.panel(d.governing_wall).sustained_equivalents_mph
+    return ", ".join(f"{name} mean {_speed(eq[name], units)}" for name in ("1-min", "2-min",
+                                                                          "10-min") if name in eq)
+
+
+def _release(site: Site, mark: str, day: int) -> str:
+    by = next((s.by for s in site.signoffs if s.panel == mark and s.day == day), "")
+    return f"{mark} (signed off by {by}: braces off after the sign-off)" if by else mark
+
+
+def _flags(d: DayResult, walls: list[PanelResult]) -> list[tuple[str, str, str, str]]:
+    """The day's flags, then the standing walls' danger and warning flags, worst first."""
+    items = [(f, "") for f in d.flags]
+    items += [(f, p.mark) for p in walls for f in p.flags if f.severity != "notice"]
+    order = ("danger", "warning", "notice")
+    items.sort(key=lambda item: order.index(item[0].severity))
+    return [(FLAG_SYMBOL[f.severity], f.severity.upper(),
+             f"{mark}: {f.message}" if mark else f.message, f.source) for f, mark in items]
+
+
+def _row(site: Site, p: PanelResult, bracing, d: DayResult, zone: tuple, units: str) -> Row:
+    """One wall's line of the sheet: where its braces go, with what, and its zone."""
+    front, back, _ = zone
+    today = "lifted today" if p.mark in d.lifts else ""
+    today = "released today" if p.mark in d.released else today
+    row = Row(p.mark, p.status, STATUS_SYMBOL[p.status], STATUS_WORD[p.status], today,
+              braced=bool(p.braces), stand_down=_speed(p.stand_down_speed_mph, units),
+              sustained=_speed(p.sustained_equivalents_mph.get("1-min"), units),
+              zone=f"{fmt(front, 'ft', units, 1)} braced side, {fmt(back, 'ft', units, 1)} "
+                   "behind")
+    row.numbers = {"stand_down": _number(p.stand_down_speed_mph, "mph", units),
+                   "sustained": _number(p.sustained_equivalents_mph.get("1-min"), "mph", units),
+                   "zone_front": _number(front, "ft", units, 1),
+                   "zone_back": _number(back, "ft", units, 1)}
+    if not p.braces:
+        return row
+    b = p.braces
+    gear = schedule.hardware(bracing, p)
+    positions = b.get("positions_ft", [])
+    row.count = str(b["count"])
+    row.positions = ", ".join(fmt(x, "ft", units, 1) for x in positions)
+    row.insert = fmt(b["insert_height_ft"], "ft", units, 1)
+    row.anchor_distance = fmt(b["anchor_distance_ft"], "ft", units, 1)
+    row.length = fmt(b["length_ft"], "ft", units, 2)
+    row.angle = f"{b['angle_deg']:.0f}°"
+    row.brace_type = gear.brace_type or ""
+    row.wall_anchor = gear.wall_anchor or ""
+    row.foot_anchor = gear.foot_anchor or ""
+    torque = b.get("installation_torque_ftlb")
+    row.torque = fmt(torque, "ft*lbf", units) if torque is not None else ""
+    row.numbers.update(
+        count=b["count"],
+        positions="; ".join(str(_number(x, "ft", units, 1)) for x in positions),
+        insert=_number(b["insert_height_ft"], "ft", units, 1),
+        anchor_distance=_number(b["anchor_distance_ft"], "ft", units, 1),
+        length=_number(b["length_ft"], "ft", units, 2),
+        angle=round(b["angle_deg"], 1),
+        torque="" if torque is None else _number(torque, "ft*lbf", units))
+    return row
+
+
+def _number(value: float | None, unit: str, units: str, digits: int = 0):
+    """A plain number in the chosen units for a spreadsheet cell ('' when there is none)."""
+    if value is None:
+        return ""
+    shown, _ = convert(value, unit, units)
+    if units == "si":
+        digits = max(digits, 1 if unit == "mph" else 2)
+    return round(shown, digits) if digits else round(shown)
+
+
+def _label(unit: str, units: str) -> str:
+    return convert(1.0, unit, units)[1].translate(ASCII)
+
+
+def _inventory(site: Site, d: DayResult) -> list[tuple[str, str, str, str, str]]:
+    """Braces and anchors in use by type against the number on hand, short ones marked."""
+    rows = []
+    for kind, used, types in (("braces", d.braces_in_use, site.brace_types),
+                              ("anchors", d.anchors_in_use, site.anchor_types)):
+        for name, n in sorted(used.items()):
+            on_hand = types[name].on_hand if name in types else None
+            short = d.short.get(kind, {}).get(name)
+            rows.append((kind[:-1], name, str(n), "not given" if on_hand is None else
+                         str(on_hand), f"✖ SHORT {short}" if short else "✔ ok"))
+    return rows
+
+
+def _rules(site: Site, walls: list[PanelResult]) -> list[tuple[str, str, str, str]]:
+    """The site rules behind the day's speeds and zones: value, source and basis (§7)."""
+    names = list(DAY_RULES)
+    if any(p.material == "masonry" for p in walls):
+        names += MASONRY_RULES
+    out = []
+    for name in names:
+        r = site.rule(name)
+        value = "off" if not r.enabled or r.value is None else f"{r.value:g}"
+        out.append((name, value, r.source, r.basis))
+    return out
+
+
+# --- the three formats -------------------------------------------------------------------------
+def html(result: SiteResult, pages: list[Page]) -> str:
+    env = Environment(loader=FileSystemLoader(TEMPLATES), autoescape=select_autoescape(
+        ["html", "j2"]), trim_blocks=True, lstrip_blocks=True)
+    return env.get_template("schedule.html.j2").render(result=result, pages=pages)
+
+
+CSV_COLUMNS = (
+    ("day", None), ("date", None), ("go", None), ("forecast gust", "mph"),
+    ("day stand-down gust", "mph"), ("wall", None), ("status", None), ("today", None),
+    ("braces", None), ("positions from first edge", "ft"), ("insert height", "ft"),
+    ("anchor distance from face", "ft"), ("brace length", "ft"), ("brace angle", "deg"),
+    ("brace type", None), ("wall anchor", None), ("foot anchor", None),
+    ("helical torque", "ft*lbf"), ("wall stand-down gust", "mph"),
+    ("1-min sustained equivalent", "mph"), ("zone braced side", "ft"), ("zone behind", "ft"),
+)
+
+
+def csv_text(result: SiteResult, pages: list[Page], units: str) -> str:
+    """The caution on the first line, a header row, then one row per standing wall per day."""
+    out = io.StringIO()
+    w = csv.writer(out)
+    w.writerow([result.caution])
+    w.writerow([f"{name} ({unit if unit == 'deg' else _label(unit, units)})" if unit else name
+                for name, unit in CSV_COLUMNS])
+    for page in pages:
+        d = page.day
+        for r in page.rows + page.unbraced:
+            n = r.numbers
+            w.writerow([
+                d.day, d.date or "", page.go[1], _number(d.forecast_gust_mph, "mph", units),
+                _number(d.stand_down_speed_mph, "mph", units), r.mark,
+                f"{r.word} {r.symbol}".translate(ASCII), r.today, n.get("count", ""),
+                n.get("positions", ""), n.get("insert", ""), n.get("anchor_distance", ""),
+                n.get("length", ""), n.get("angle", ""), r.brace_type, r.wall_anchor,
+                r.foot_anchor, n.get("torque", ""), n["stand_down"], n["sustained"],
+                n["zone_front"], n["zone_back"]])
+    return out.getvalue()
+
+
+TEXT_COLUMNS = (("wall", "mark"), ("status", "status_text"), ("n", "count"),
+                ("positions from 1st edge", "positions"), ("insert", "insert"),
+                ("foot from face", "anchor_distance"), ("length", "length"),
+                ("angle", "angle"), ("brace", "brace_type"), ("wall anchor", "wall_anchor"),
+                ("foot anchor", "foot_anchor"), ("torque", "torque"),
+                ("stand-down", "stand_down"), ("zone", "zone"))
+
+
+def plain_text(result: SiteResult, pages: list[Page]) -> str:
+    """The same sheets as plain text, one after another, the caution at the top and bottom."""
+    out = []
+    for page in pages:
+        d = page.day
+        lines = [result.caution, "", page.title, *(f"  {s}" for s in result.basis_statement), "",
+                 f"WIND: {page.go[1]}: {page.reason}",
+                 f"  forecast {page.forecast}; stand-down {page.stand_down}; working limit "
+                 f"{page.working_limit}",
+                 f"  stand-down as sustained wind: {page.sustained or 'none'}",
+                 f"Lifts today: {', '.join(page.lifts) or 'none'}",
+                 f"Releases today: {'; '.join(page.releases) or 'none'}"]
+        lines += [f"  {s} {sev}: {msg} [{src}]" for s, sev, msg, src in page.flags]
+        lines += ["", "BRACE SCHEDULE (walls standing on braces)"]
+        lines += _table(page.rows) if page.rows else ["  none"]
+        lines += ["", "WALLS STANDING WITHOUT BRACES"]
+        lines += [f"  {r.mark}: {r.word} {r.symbol}; stand-down {r.stand_down}; zone {r.zone}"
+                  for r in page.unbraced] or ["  none"]
+        lines += ["", "INVENTORY (type: in use / on hand)"]
+        lines += [f"  {kind} {name}: {n} / {hand}  {short}"
+                  for kind, name, n, hand, short in page.inventory] or ["  none in use"]
+        lines += ["", "RULES"] + [f"  {name} = {value} ({source}; {basis})"
+                                  for name, value, source, basis in page.rules]
+        lines += ["", result.caution]
+        out.append("\n".join(lines))
+        if d is not pages[-1].day:
+            out.append("=" * 100)
+    return "\n".join(out) + "\n"
+
+
+def _table(rows: list[Row]) -> list[str]:
+    """A fixed-width table of the braced walls."""
+    cells = [[h for h, _ in TEXT_COLUMNS]]
+    for r in rows:
+        r_cells = []
+        for _, key in TEXT_COLUMNS:
+            r_cells.append(f"{r.symbol} {r.word}" + (f" ({r.today})" if r.today else "")
+                           if key == "status_text" else str(getattr(r, key)))
+        cells.append(r_cells)
+    widths = [max(len(row[k]) for row in cells) for k in range(len(TEXT_COLUMNS))]
+    return ["  " + "  ".join(c.ljust(w) for c, w in zip(row, widths)).rstrip() for row in cells]
+

@@ -1,0 +1,408 @@
+"""The terminal interface: it owns the site file, the engine's result and the undo stack.
+
+Views get what they show as attributes and ask for changes by messages. An edit goes through
+`SiteFile.with_value` (the engine's validation); a valid one is recomputed by the engine in a
+worker thread (the latest edit wins), an invalid one is shown beside its field and changes
+nothing.
+"""
+
+from __future__ import annotations
+
+import re
+import sys
+from pathlib import Path
+
+from textual import on, work
+from textual.app import App, ComposeResult
+from textual.binding import Binding
+from textual.containers import Vertical
+from textual.reactive import reactive
+from textual.widgets import Footer, Input, Select, TabbedContent, TabPane
+
+from bracing import scenario
+from bracing.evaluate import evaluate
+from bracing.results import SiteResult
+from bracing.scenario import SiteFile, SiteFileError
+from tui.dialogs import Export, ExportRequest, SaveAs, UnsavedChanges
+from tui.fields import typed
+from tui.views import (
+    Caution,
+    DayPicker,
+    DayView,
+    FieldRow,
+    KeysView,
+    PlanView,
+    SettingsView,
+    StatusLine,
+    WallsView,
+    WallView,
+)
+
+DEMO = Path(__file__).resolve().parents[1] / "scenarios" / "demo-mixed.toml"
+
+VIEWS = {"walls": "1 Walls", "wall": "2 Wall", "day": "3 Day", "plan": "4 Plan",
+         "settings": "5 Settings", "keys": "? Keys"}
+FOCUS = {"walls": "#walls-table", "wall": "#wall-results", "day": "#day-inventory",
+         "plan": "#plan-body", "settings": "#rules-table", "keys": "#keys-table"}
+
+# Keys handled by the widgets themselves, for the Keys view (the app's own come from BINDINGS).
+WIDGET_KEYS = (
+    ("up / down, page up / down", "move in a table or list", "tables"),
+    ("enter", "open the wall under the cursor", "Walls"),
+    ("enter", "apply the value typed", "a field"),
+    ("esc", "put back the file's value and leave the field", "a field"),
+    ("tab / shift+tab", "next / previous field, filter or table", "everywhere"),
+    ("enter / space", "open a list of choices", "a choice"),
+    ("left / right", "previous / next tab", "the tabs"),
+    ("mouse", "click a tab, a row, a field or a button; the wheel scrolls", "everywhere"),
+)
+
+
+def compute(site_file: SiteFile) -> SiteResult:
+    """The engine's result for a site file (the interface computes nothing itself)."""
+    return evaluate(site_file.site)
+
+
+def problems_text(exc: SiteFileError) -> str:
+    """The validation problems without the file name (the field is beside the message)."""
+    prefix = re.compile(rf"^{re.escape(str(exc.path))}(:\d+)?: ")
+    return "; ".join(prefix.sub("", p) for p in exc.problems)
+
+
+class BracingApp(App[int]):
+    """Walls, a wall, a day, the plan and the settings of one site file."""
+
+    CSS_PATH = "app.tcss"
+    TITLE = "Wall bracing"
+    ENABLE_COMMAND_PALETTE = False
+    BINDINGS = [
+        Binding("1", "show('walls')", "Walls", tooltip="every wall, worst first, with filters"),
+        Binding("2", "show('wall')", "Wall", tooltip="one wall: inputs, checks, drawings"),
+        Binding("3", "show('day')", "Day", tooltip="a day: lifts, inventory, go / no-go"),
+        Binding("4", "show('plan')", "Plan", tooltip="the site in plan for a day"),
+        Binding("5", "show('settings')", "Settings",
+                tooltip="wind basis, exposure, period, site rules"),
+        Binding("question_mark,f1", "show('keys')", "Keys", key_display="?",
+                tooltip="this list of keys"),
+        Binding("left_square_bracket", "step(-1)", "Previous", key_display="[",
+                tooltip="previous wall (worst first) or day"),
+        Binding("right_square_bracket", "step(1)", "Next", key_display="]",
+                tooltip="next wall (worst first) or day"),
+        Binding("i", "edit", "Edit inputs", show=False, tooltip="go to the first input"),
+        Binding("ctrl+z", "undo", "Undo", tooltip="undo the last change of a value"),
+        Binding("ctrl+y", "redo", "Redo", show=False, tooltip="redo the change undone"),
+        Binding("ctrl+s", "save", "Save",
+                tooltip="save the site file (comments kept, the old file kept as .bak)"),
+        Binding("f2", "save_as", "Save as", show=False, tooltip="save the site file as ..."),
+        Binding("e", "export", "Export",
+                tooltip="export a day's brace schedule (HTML, CSV, text)"),
+        Binding("u", "toggle_units", "US/SI", show=False, tooltip="US or SI units"),
+        Binding("escape", "leave_field", "Leave", show=False,
+                tooltip="leave the field (its value as the file holds it)"),
+        Binding("q", "quit", "Quit", tooltip="quit (asks first when there are unsaved changes)"),
+    ]
+
+    result: reactive[SiteResult | None] = reactive(None, always_update=True, init=False)
+    site_file: reactive[SiteFile | None] = reactive(None, always_update=True, init=False)
+    mark = reactive("", init=False)
+    day: reactive[int | None] = reactive(None, init=False)
+    units = reactive("us", init=False)
+    errors = reactive(dict, always_update=True, init=False)
+    busy = reactive(False, init=False)
+    dirty = reactive(False, init=False)
+    file_name = reactive("", init=False)
+    keys = reactive(list, init=False)
+
+    def __init__(self, path: str | Path | None = None, result: SiteResult | None = None):
+        """Open `path` (a demo site when None); `result` may give its result already computed.
+
+        Raises SiteFileError when the file cannot be read or is not valid.
+        """
+        super().__init__()
+        self.demo = path is None
+        site_file = scenario.load(DEMO if path is None else path)
+        first = result if result is not None else compute(site_file)
+        self.set_reactive(BracingApp.site_file, site_file)
+        self.set_reactive(BracingApp.result, first)
+        self.set_reactive(BracingApp.mark, first.worst_first()[0].mark if first.panels else "")
+        self.set_reactive(BracingApp.day, first.days[0].day if first.days else None)
+        self.set_reactive(BracingApp.keys, self.key_list())
+        self.set_reactive(BracingApp.file_name, self._file_label(site_file))
+        self.saved_document = site_file.document
+        self.undo_stack: list[SiteFile] = []
+        self.redo_stack: list[SiteFile] = []
+        self.generation = 0
+        self.view = "walls"
+        self.quit_after_save = False
+
+    def compose(self) -> ComposeResult:
+        with Vertical(id="banner"):
+            yield Caution(id="caution").data_bind(BracingApp.result)
+            yield StatusLine(id="status").data_bind(
+                BracingApp.result, BracingApp.file_name, BracingApp.dirty, BracingApp.busy,
+                BracingApp.units)
+        with TabbedContent(initial="walls", id="views"):
+            with TabPane(VIEWS["walls"], id="walls"):
+                yield WallsView(id="walls-view").data_bind(BracingApp.result, BracingApp.units)
+            with TabPane(VIEWS["wall"], id="wall"):
+                yield WallView(id="wall-view").data_bind(
+                    BracingApp.result, BracingApp.site_file, BracingApp.mark, BracingApp.units,
+                    BracingApp.errors)
+            with TabPane(VIEWS["day"], id="day"):
+                yield DayView(id="day-view").data_bind(
+                    BracingApp.result, BracingApp.site_file, BracingApp.day, BracingApp.units)
+            with TabPane(VIEWS["plan"], id="plan"):
+                yield PlanView(id="plan-view").data_bind(
+                    BracingApp.result, BracingApp.day, BracingApp.units)
+            with TabPane(VIEWS["settings"], id="settings"):
+                yield SettingsView(id="settings-view").data_bind(
+                    BracingApp.result, BracingApp.site_file, BracingApp.errors)
+            with TabPane(VIEWS["keys"], id="keys"):
+                yield KeysView(id="keys-view").data_bind(BracingApp.keys)
+        yield Footer()
+
+    def on_mount(self) -> None:
+        self.query_one("#walls-table").focus()
+
+    # --- what is shown ------------------------------------------------------------------------
+    @classmethod
+    def key_list(cls) -> list[tuple[str, str, str]]:
+        """Every key: the app's bindings, then the keys the widgets handle."""
+        where = {"step": "Wall, Day and Plan", "edit": "Wall and Settings"}
+        rows = []
+        for b in cls.BINDINGS:
+            keys = " / ".join(k.strip().replace("question_mark", "?")
+                              .replace("left_square_bracket", "[")
+                              .replace("right_square_bracket", "]")
+                              for k in b.key.split(","))
+            rows.append((keys, b.tooltip or b.description, where.get(b.action.split("(")[0], "everywhere")))
+        return rows + list(WIDGET_KEYS)
+
+    def _file_label(self, site_file: SiteFile) -> str:
+        name = Path(site_file.path).name
+        return f"{name} (demo: save as to keep changes)" if self.demo else name
+
+    def check_action(self, action: str, parameters: tuple) -> bool | None:
+        if action == "step":
+            return self.view in ("wall", "day", "plan")
+        if action == "undo":
+            return True if self.undo_stack else None
+        if action == "redo":
+            return True if self.redo_stack else None
+        return True
+
+    @on(TabbedContent.TabActivated)
+    def _tab(self, event: TabbedContent.TabActivated) -> None:
+        self.view = event.pane.id or "walls"
+        self.refresh_bindings()
+        self.call_after_refresh(self._focus_view)
+
+    def _focus_view(self) -> None:
+        target = self.query(FOCUS[self.view])
+        if target:
+            target.first().focus()
+
+    def action_show(self, view: str) -> None:
+        self.query_one(TabbedContent).active = view
+
+    def action_step(self, delta: int) -> None:
+        """The next or previous wall (worst first) or day."""
+        if self.view == "wall":
+            marks = [p.mark for p in self.result.worst_first()]
+            if marks:
+                k = marks.index(self.mark) if self.mark in marks else -delta
+                self.mark = marks[(k + delta) % len(marks)]
+        elif self.view in ("day", "plan"):
+            days = [d.day for d in self.result.days]
+            if days:
+                k = days.index(self.day) if self.day in days else -delta
+                self.day = days[max(0, min(len(days) - 1, k + delta))]
+
+    def action_edit(self) -> None:
+        if self.view not in ("wall", "settings"):
+            self.action_show("wall")
+        form = "#wall-form" if self.view != "settings" else "#settings-form"
+
+        def first_field() -> None:
+            inputs = self.query(f"{form} Input, {form} Select")
+            if inputs:
+                inputs.first().focus()
+        self.call_after_refresh(first_field)
+
+    def action_leave_field(self) -> None:
+        if isinstance(self.focused, (Input, Select)):
+            self.screen.set_focus(None)
+
+    def action_toggle_units(self) -> None:
+        self.units = "si" if self.units == "us" else "us"
+
+    @on(WallsView.WallChosen)
+    def _open_wall(self, event: WallsView.WallChosen) -> None:
+        self.mark = event.mark
+        self.action_show("wall")
+
+    @on(WallView.WallPicked)
+    def _pick_wall(self, event: WallView.WallPicked) -> None:
+        self.mark = event.mark
+
+    @on(DayPicker.DayPicked)
+    def _pick_day(self, event: DayPicker.DayPicked) -> None:
+        self.day = event.day
+
+    # --- editing ------------------------------------------------------------------------------
+    @on(FieldRow.Edited)
+    def _edited(self, event: FieldRow.Edited) -> None:
+        spec = event.spec
+        if not event.text.strip():
+            self.errors = {spec.field_id: "give a value (a key cannot be removed here)"}
+            return
+        try:
+            changed = self.site_file.with_value(spec.keys, typed(event.text, spec.kind))
+        except SiteFileError as exc:
+            self.errors = {spec.field_id: problems_text(exc)}
+            return
+        self.undo_stack.append(self.site_file)
+        self.redo_stack.clear()
+        self._install(changed)
+
+    def _install(self, site_file: SiteFile) -> None:
+        """Make `site_file` the current state (its path is the current file's) and recompute."""
+        if self.site_file is not None and site_file.path != self.site_file.path:
+            site_file = SiteFile(self.site_file.path, site_file.document, site_file.site)
+        self.site_file = site_file
+        self.errors = {}
+        self.dirty = site_file.document is not self.saved_document
+        self.refresh_bindings()
+        self.generation += 1
+        self.busy = True
+        self._evaluate(self.generation, site_file)
+
+    @work(thread=True, exclusive=True, group="evaluate", exit_on_error=False)
+    def _evaluate(self, generation: int, site_file: SiteFile) -> None:
+        try:
+            result = compute(site_file)
+        except Exception as exc:  # an engine failure must not take the interface down
+            self.call_from_thread(self._failed, generation, exc)
+            return
+        self.call_from_thread(self._computed, generation, result)
+
+    def _computed(self, generation: int, result: SiteResult) -> None:
+        if generation != self.generation:
+            return  # a later edit is on its way
+        marks = {p.mark for p in result.panels}
+        if self.mark not in marks and result.panels:
+            self.mark = result.worst_first()[0].mark
+        if result.days and self.day not in {d.day for d in result.days}:
+            self.day = result.days[0].day
+        self.result = result
+        self.busy = False
+
+    def _failed(self, generation: int, exc: Exception) -> None:
+        if generation != self.generation:
+            return
+        self.busy = False
+        self.notify(f"The engine could not check this input ({exc}); the last valid state is "
+                    "kept.", severity="error", timeout=10)
+        if self.undo_stack:
+            self.site_file = self.undo_stack.pop()
+            self.dirty = self.site_file.document is not self.saved_document
+            self.refresh_bindings()
+
+    def action_undo(self) -> None:
+        if not self.undo_stack:
+            return
+        self.redo_stack.append(self.site_file)
+        self._install(self.undo_stack.pop())
+
+    def action_redo(self) -> None:
+        if not self.redo_stack:
+            return
+        self.undo_stack.append(self.site_file)
+        self._install(self.redo_stack.pop())
+
+    # --- files --------------------------------------------------------------------------------
+    def action_save(self) -> None:
+        if self.demo:
+            self.action_save_as()
+        elif self.save_to(None) and self.quit_after_save:
+            self.exit(0)
+
+    def action_save_as(self) -> None:
+        default = "my-site.toml" if self.demo else str(self.site_file.path)
+        self.push_screen(SaveAs(default), self._save_as_chosen)
+
+    def _save_as_chosen(self, path: str | None) -> None:
+        if path is None:
+            self.quit_after_save = False
+            return
+        if self.save_to(Path(path)) and self.quit_after_save:
+            self.exit(0)
+
+    def save_to(self, path: Path | None) -> bool:
+        """Save atomically (the old file kept as .bak); say so, or say why not."""
+        try:
+            target = self.site_file.save(path)
+        except OSError as exc:
+            self.notify(f"Not saved: {exc}", severity="error", timeout=10)
+            self.quit_after_save = False
+            return False
+        self.saved_document = self.site_file.document
+        self.demo = False
+        self.dirty = False
+        self.file_name = self._file_label(self.site_file)
+        self.notify(f"Saved {target}")
+        return True
+
+    def action_export(self) -> None:
+        if self.busy:
+            self.notify("Wait for the recompute to finish, then export.", severity="warning")
+            return
+        days = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day)
+                for d in self.result.days]
+        stem = Path(self.site_file.path).stem
+        self.push_screen(Export(stem, days, self.day), self.export)
+
+    def export(self, request: ExportRequest | None) -> None:
+        """Write the schedule the engine's report renders, atomically."""
+        if request is None:
+            return
+        try:
+            from bracing.report import schedule
+        except ImportError:
+            self.notify("The schedule export is not available in this version of the engine.",
+                        severity="error", timeout=10)
+            return
+        try:
+            text = schedule.render(self.site_file.site, self.result, request.day, request.fmt,
+                                   self.units)
+            scenario.atomic_write(Path(request.path), text)
+        except (ValueError, OSError) as exc:
+            self.notify(f"Not exported: {exc}", severity="error", timeout=10)
+            return
+        self.notify(f"Wrote {request.path}")
+
+    def action_quit(self) -> None:
+        if not self.dirty:
+            self.exit(0)
+            return
+        self.push_screen(UnsavedChanges(), self._quit_answer)
+
+    def _quit_answer(self, answer: str | None) -> None:
+        if answer == "drop":
+            self.exit(0)
+        elif answer == "save":
+            self.quit_after_save = True
+            self.action_save()
+
+
+def run(path: str | None = None) -> int:
+    """Open the interface on a site file (a demo site when None); the exit code."""
+    try:
+        app = BracingApp(path)
+    except SiteFileError as exc:
+        print(f"bracing: {len(exc.problems)} problem(s) in {exc.path}:", file=sys.stderr)
+        for problem in exc.problems:
+            print(f"  {problem}", file=sys.stderr)
+        return 2
+    app.run()
+    return app.return_code or 0

@@ -1,0 +1,137 @@
+"""Dialogs over the views: unsaved changes on quit, save as, export a day's schedule."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from textual import on
+from textual.app import ComposeResult
+from textual.binding import Binding
+from textual.containers import Horizontal, Vertical
+from textual.screen import ModalScreen
+from textual.widgets import Button, Input, Label, RadioButton, RadioSet, Select, Static
+
+FORMATS = (("html", "HTML (print it)"), ("csv", "CSV (a spreadsheet)"), ("text", "plain text"))
+EXTENSIONS = {"html": "html", "csv": "csv", "text": "txt"}
+EVERY_DAY = -1
+
+
+class UnsavedChanges(ModalScreen[str]):
+    """Quit with unsaved changes: save them, drop them or stay."""
+
+    BINDINGS = [Binding("escape", "dismiss('stay')", "Stay"),
+                Binding("s", "dismiss('save')", "Save and quit"),
+                Binding("d", "dismiss('drop')", "Quit without saving")]
+
+    def compose(self) -> ComposeResult:
+        with Vertical(classes="dialog"):
+            yield Static("The site file has unsaved changes.", classes="dialog-title")
+            with Horizontal(classes="dialog-buttons"):
+                yield Button("Save and quit (s)", id="save", variant="primary")
+                yield Button("Quit without saving (d)", id="drop", variant="error")
+                yield Button("Stay (Esc)", id="stay")
+
+    @on(Button.Pressed)
+    def _answer(self, event: Button.Pressed) -> None:
+        self.dismiss(event.button.id)
+
+
+class SaveAs(ModalScreen[str | None]):
+    """Ask for the path to save the site file to."""
+
+    BINDINGS = [Binding("escape", "dismiss(None)", "Cancel")]
+
+    def __init__(self, path: str):
+        super().__init__()
+        self.path = path
+
+    def compose(self) -> ComposeResult:
+        with Vertical(classes="dialog"):
+            yield Static("Save the site file as", classes="dialog-title")
+            yield Input(self.path, id="save-path")
+            yield Static("", id="save-error", classes="field-error")
+            with Horizontal(classes="dialog-buttons"):
+                yield Button("Save (Enter)", id="save", variant="primary")
+                yield Button("Cancel (Esc)", id="cancel")
+
+    def on_mount(self) -> None:
+        self.query_one(Input).focus()
+
+    @on(Input.Submitted)
+    @on(Button.Pressed, "#save")
+    def _save(self) -> None:
+        path = self.query_one(Input).value.strip()
+        if not path:
+            self.query_one("#save-error", Static).update("✗ give a file name")
+            return
+        self.dismiss(path)
+
+    @on(Button.Pressed, "#cancel")
+    def _cancel(self) -> None:
+        self.dismiss(None)
+
+
+@dataclass(frozen=True)
+class ExportRequest:
+    fmt: str
+    day: int | None
+    path: str
+
+
+class Export(ModalScreen[ExportRequest | None]):
+    """Choose the format, the day and the file for the crew's schedule."""
+
+    BINDINGS = [Binding("escape", "dismiss(None)", "Cancel")]
+
+    def __init__(self, stem: str, days: list[tuple[str, int]], day: int | None):
+        super().__init__()
+        self.stem = stem
+        self.days = days
+        self.day = day
+
+    def compose(self) -> ComposeResult:
+        with Vertical(classes="dialog"):
+            yield Static("Export the day's brace schedule", classes="dialog-title")
+            with RadioSet(id="export-format"):
+                for i, (key, words) in enumerate(FORMATS):
+                    yield RadioButton(words, value=i == 0, id=f"format-{key}")
+            with Horizontal(classes="dialog-line"):
+                yield Label("Day", classes="field-label")
+                options = [("every day", EVERY_DAY)] + self.days
+                value = self.day if any(v == self.day for _, v in self.days) else EVERY_DAY
+                yield Select(options, value=value, allow_blank=False, compact=True,
+                             id="export-day")
+            with Horizontal(classes="dialog-line"):
+                yield Label("File", classes="field-label")
+                yield Input(self._path("html"), id="export-path", compact=True)
+            with Horizontal(classes="dialog-buttons"):
+                yield Button("Export (Enter)", id="export", variant="primary")
+                yield Button("Cancel (Esc)", id="cancel")
+
+    def _fmt(self) -> str:
+        pressed = self.query_one(RadioSet).pressed_button
+        return pressed.id.removeprefix("format-") if pressed else "html"
+
+    def _day(self) -> int | None:
+        value = self.query_one("#export-day", Select).value
+        return None if value in (EVERY_DAY, Select.NULL) else int(value)
+
+    def _path(self, fmt: str, day: int | None = None) -> str:
+        when = f"-day{day}" if day is not None else ""
+        return f"{self.stem}-schedule{when}.{EXTENSIONS[fmt]}"
+
+    @on(RadioSet.Changed)
+    @on(Select.Changed)
+    def _suggest(self) -> None:
+        self.query_one("#export-path", Input).value = self._path(self._fmt(), self._day())
+
+    @on(Input.Submitted)
+    @on(Button.Pressed, "#export")
+    def _export(self) -> None:
+        path = self.query_one("#export-path", Input).value.strip()
+        if path:
+            self.dismiss(ExportRequest(self._fmt(), self._day(), path))
+
+    @on(Button.Pressed, "#cancel")
+    def _cancel(self) -> None:
+        self.dismiss(None)

@@ -1,0 +1,142 @@
+"""The editable inputs of a wall and of the site: where each lives in the file and its kind.
+
+A field's value is shown as the file holds it ("32 ft", 0.8); what the user types goes back to
+the file as a number when it is one, else as text with its unit, and the engine's validation
+decides whether it is acceptable.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from bracing.model import DEFAULT_RULES
+from bracing.scenario import SiteFile
+
+
+@dataclass(frozen=True)
+class FieldSpec:
+    """One input of a form."""
+
+    field_id: str          # unique in its form, usable as a widget id
+    label: str
+    keys: tuple            # path in the site file
+    kind: str              # "quantity", "int", "number", "choice" or "fixed"
+    value: str             # as the file holds it ("" when absent)
+    hint: str = ""         # the bare-number unit, shown as a placeholder
+    choices: tuple = ()
+
+
+def raw_text(node, key: str) -> str:
+    """A value of a TOML table as text, "" when absent."""
+    if node is None or key not in node:
+        return ""
+    value = node[key]
+    value = value.unwrap() if hasattr(value, "unwrap") else value
+    if isinstance(value, bool):
+        return "true" if value else "false"
+    if isinstance(value, float):
+        return f"{value:g}"
+    return str(value)
+
+
+def typed(text: str, kind: str):
+    """What goes into the file for the text typed into a field of `kind`."""
+    s = text.strip()
+    if kind in ("quantity", "number", "int"):
+        try:
+            number = float(s)
+        except ValueError:
+            return s  # text with a unit, or something validation will refuse with a message
+        if kind == "int" or (number.is_integer() and "." not in s and "e" not in s.lower()):
+            return int(number) if number.is_integer() else number
+        return number
+    return s
+
+
+def panel_index(site_file: SiteFile, mark: str) -> int | None:
+    return next((i for i, p in enumerate(site_file.site.panels) if p.mark == mark), None)
+
+
+def wall_fields(site_file: SiteFile, mark: str) -> list[FieldSpec]:
+    """The inputs of one wall, in the order a form shows them."""
+    i = panel_index(site_file, mark)
+    if i is None:
+        return []
+    site = site_file.site
+    panel = site.panels[i]
+    node = site_file.document["panels"][i]
+    base = ("panels", i)
+
+    def spec(key, label, kind, hint="", choices=(), table=None, prefix=()):
+        keys = base + prefix + (key,)
+        source = node if table is None else table
+        return FieldSpec("-".join(str(k) for k in prefix + (key,)).replace("_", "-"), label,
+                         keys, kind, raw_text(source, key), hint, tuple(choices))
+
+    kind = site.materials[panel.material].kind
+    specs = [
+        FieldSpec("mark", "Mark", base + ("mark",), "fixed", panel.mark),
+        spec("material", "Material", "choice", choices=sorted(site.materials)),
+        spec("height", "Height", "quantity", "ft"),
+        spec("width", "Width", "quantity", "ft"),
+        spec("thickness", "Thickness", "quantity", "in"),
+        spec("base_elevation", "Base above grade", "quantity", "ft"),
+        spec("standing_time", "Standing time", "quantity", "weeks"),
+    ]
+    if kind == "masonry":
+        specs.append(spec("mortar_age", "Mortar age", "quantity", "days"))
+    specs.append(spec("lift_day", "Lift day", "int", "day"))
+    if panel.footing is not None:
+        table = node["footing"]
+        specs += [spec("width", "Footing width", "quantity", "ft", table=table,
+                       prefix=("footing",)),
+                  spec("thickness", "Footing depth", "quantity", "ft", table=table,
+                       prefix=("footing",))]
+    if panel.bracing is not None:
+        table, pre = node["bracing"], ("bracing",)
+        b = panel.bracing
+        specs += [
+            spec("count", "Braces", "int", "count", table=table, prefix=pre),
+            spec("brace_type", "Brace type", "choice", choices=sorted(site.brace_types),
+                 table=table, prefix=pre),
+            spec("insert_height", "Insert height", "quantity", "ft", table=table, prefix=pre),
+            spec("angle", "Brace angle", "quantity", "deg", table=table, prefix=pre)
+            if b.angle is not None else
+            spec("anchor_distance", "Foot from face", "quantity", "ft", table=table, prefix=pre),
+        ]
+        anchors = sorted(site.anchor_types)
+        if b.wall_anchor is not None:
+            specs.append(spec("wall_anchor", "Wall anchor", "choice", choices=anchors,
+                              table=table, prefix=pre))
+        if b.foot_anchor is not None:
+            specs.append(spec("foot_anchor", "Foot anchor", "choice", choices=anchors,
+                              table=table, prefix=pre))
+    return specs
+
+
+SITE_FIELDS = (
+    ("basic_wind_speed", "Basic wind speed", "quantity", "mph", ()),
+    ("exposure", "Exposure", "choice", "", ("B", "C", "D")),
+    ("topographic_factor", "Kzt", "number", "", ()),
+    ("ground_elevation", "Ground elevation", "quantity", "ft", ()),
+    ("design_basis", "Design basis", "choice", "", ("ASD", "LRFD")),
+    ("risk_category", "Risk category", "choice", "", ("I", "II", "III", "IV")),
+    ("construction_period", "Standing period", "quantity", "weeks", ()),
+    ("period_factor", "Period factor", "number", "from standing time", ()),
+    ("limit_speed", "Limit gust", "quantity", "mph", ()),
+)
+
+
+def site_fields(site_file: SiteFile) -> list[FieldSpec]:
+    """The site's wind basis, and the value of every rule the file itself sets."""
+    node = site_file.document["site"]
+    specs = [FieldSpec(f"site-{key}".replace("_", "-"), label, ("site", key), kind,
+                       raw_text(node, key), hint, choices)
+             for key, label, kind, hint, choices in SITE_FIELDS]
+    rules = site_file.document.get("rules", {})
+    for name in DEFAULT_RULES:
+        if name in rules and "value" in rules[name]:
+            specs.append(FieldSpec(f"rule-{name}".replace("_", "-"), name.replace("_", " "),
+                                   ("rules", name, "value"), "number",
+                                   raw_text(rules[name], "value")))
+    return specs
