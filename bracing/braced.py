@@ -337,6 +337,30 @@ CHECKS = {
 }
 
 
+BRACE_SOURCE = {
+    "rated": ("maker's rated table (allowable load by length)", "maker's tension rating"),
+    "pipe": ("AISC 360-16 §E3, self-weight bending §H1.1 and Appendix 8",
+             "AISC 360-16 §D2 (or the rating given)"),
+    "lumber": ("NDS 2018 §3.7.1, C_D 1.6", "the rating given (end connection)"),
+    "unrated": ("not rated", "the rating given"),
+}
+FOOT_SOURCE = {
+    "slab": "ACI 318-19 §17.6-17.8 (cracked), phi Nn x 0.6 for ASD",
+    "helical": "ICC-ES AC358: K_t T / FS",
+    "stake": "maker's ratings, T/Ta + V/Va <= 1 (common practice)",
+    "insert": "maker's ratings, T/Ta + V/Va <= 1 (common practice)",
+}
+
+
+def sources(brace_kind: str, foot_kind: str | None) -> dict[str, str]:
+    """The source of each braced check that depends on the brace and anchor used."""
+    compression, tension = BRACE_SOURCE[brace_kind]
+    out = {"brace compression": compression, "brace tension": tension}
+    if foot_kind in FOOT_SOURCE:
+        out["foot anchor"] = FOOT_SOURCE[foot_kind]
+    return out
+
+
 def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads | None = None):
     """Demand and capacity of every braced element, worst brace of each wall (arrays over m).
 

@@ -531,6 +531,10 @@ def _panel_result(site: Site, i: int, e: Evaluation) -> PanelResult:
     if p.bracing is not None:
         r = int(np.nonzero(e.braces.index == i)[0][0])
         checks = _checks_of(e.braced_checks, r, w, factors, braced.CHECKS)
+        foot = site.anchor_types[p.bracing.foot_anchor].kind if p.bracing.foot_anchor else None
+        specific = braced.sources(site.brace_types[p.bracing.brace_type].kind, foot)
+        for c in checks:
+            c.source = specific.get(c.element, c.source)
         strength = [c for c in checks if c.element not in braced.SERVICEABILITY]
         status = "braced" if all(c.passes for c in strength) else "unsafe"
         limit = float(e.braced_limit[r])

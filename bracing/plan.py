@@ -135,22 +135,26 @@ class PlanGeometry:
 def place(site: Site) -> dict[str, PanelPlace]:
     """Every panel that names a wall line, placed along it (the others are skipped)."""
     lines = {line.name: line for line in site.lines}
-    places = {}
-    for i, p in enumerate(site.panels):
-        if p.line is None:
-            continue
-        line = lines[p.line]
-        start, end = np.array(line.start, dtype=float), np.array(line.end, dtype=float)
-        u = (end - start) / np.hypot(*(end - start))
-        left = np.array([-u[1], u[0]])  # the left hand, looking from start to end
-        normal = left if line.braced_side == "left" else -left
-        t = p.thickness / IN_PER_FT
-        origin = start + p.offset * u
-        corners = origin + np.outer([0.0, p.width, p.width, 0.0], u) \
-            - np.outer([0.0, 0.0, t, t], normal)
-        places[p.mark] = PanelPlace(i, p.mark, line.name, origin, u, normal, p.width, t,
-                                    Polygon(corners))
-    return places
+    rows = [i for i, p in enumerate(site.panels) if p.line is not None]
+    if not rows:
+        return {}
+    panels = [site.panels[i] for i in rows]
+    ends = np.array([(lines[p.line].start, lines[p.line].end) for p in panels], dtype=float)
+    run = ends[:, 1] - ends[:, 0]
+    u = run / np.hypot(run[:, 0], run[:, 1])[:, None]
+    left = np.stack([-u[:, 1], u[:, 0]], axis=1)  # the left hand, looking from start to end
+    side = np.array([1.0 if lines[p.line].braced_side == "left" else -1.0 for p in panels])
+    normal = left * side[:, None]
+    width = np.array([p.width for p in panels])
+    t = np.array([p.thickness for p in panels]) / IN_PER_FT
+    origin = ends[:, 0] + np.array([p.offset for p in panels])[:, None] * u
+    along = width[:, None] * [0.0, 1.0, 1.0, 0.0]
+    back = t[:, None] * [0.0, 0.0, 1.0, 1.0]
+    corners = origin[:, None] + along[..., None] * u[:, None] - back[..., None] * normal[:, None]
+    shapes = shapely.polygons(corners)
+    return {p.mark: PanelPlace(i, p.mark, p.line, origin[k], u[k], normal[k], p.width, t[k],
+                               shapes[k])
+            for k, (i, p) in enumerate(zip(rows, panels))}
 
 
 def anchor_distance_ft(b: Bracing) -> float:
@@ -317,12 +321,13 @@ def zones(site: Site, places: dict[str, PanelPlace], heights: dict[str, float] |
     same footprint: OSHA 29 CFR 1926.706(a) and the common practice name one zone, and no
     published reason was found to make it larger; what changes is who may be inside.
     """
-    out = {}
-    for mark, (front, back, _) in zone_reach(site, places, heights, standing).items():
-        pl = places[mark]
-        w = pl.width_ft
-        out[mark] = Polygon(pl.at([0.0, w, w, 0.0], [-back, -back, front, front]))
-    return out
+    reach = zone_reach(site, places, heights, standing)
+    if not reach:
+        return {}
+    corners = np.stack([places[m].at([0.0, places[m].width_ft, places[m].width_ft, 0.0],
+                                     [-back, -back, front, front])
+                        for m, (front, back, _) in reach.items()])
+    return dict(zip(reach, shapely.polygons(corners)))
 
 
 # --- findings -----------------------------------------------------------------------------------
@@ -368,43 +373,50 @@ def _line_findings(site: Site) -> list[PlanFinding]:
     return found
 
 
+def _by_mark(marks: np.ndarray, mask: np.ndarray) -> dict[str, np.ndarray]:
+    """Positions where `mask` holds, grouped by wall mark (in order of appearance)."""
+    groups: dict[str, list[int]] = {}
+    for k in np.nonzero(mask)[0]:
+        groups.setdefault(str(marks[k]), []).append(k)
+    return {m: np.array(rows) for m, rows in groups.items()}
+
+
 def _slab_anchor_findings(site: Site, t: _Braces) -> list[PlanFinding]:
     sel = np.nonzero(t.kind == "slab")[0]
     if len(sel) == 0:
         return []
     slab = _slab(site)
+    marks = t.mark[sel]
     if slab is None:
         return [PlanFinding(m, Flag(
             "anchor-not-located", "notice", "the plan has no slab outline: the slab anchors' "
             "positions and edge distances are not checked", "design.md §7"), [])
-            for m in dict.fromkeys(t.mark[sel])]
-    pts = shapely.points(t.foot[sel])
+            for m in dict.fromkeys(marks)]
+    feet = t.foot[sel]
+    pts = shapely.points(feet)
     on = shapely.covers(slab.area, pts)
     in_hole = shapely.covers(slab.holes, pts) if not slab.holes.is_empty else np.zeros_like(on)
-    dist, which = _edge_distances_ft(slab, t.foot[sel])
+    dist_in, which = _edge_distances_ft(slab, feet)
+    dist_in = dist_in * IN_PER_FT
+    need = {a: edge_distance_needed_in(site, a) for a in dict.fromkeys(t.anchor[sel])}
+    need_in = np.array([need[a][0] for a in t.anchor[sel]])
     found = []
-    for mark in dict.fromkeys(t.mark[sel]):
-        mine = t.mark[sel] == mark
-        off = mine & ~on
-        if off.any():
-            where = "in a slab hole" if in_hole[off].any() else "off the slab"
-            found.append(PlanFinding(mark, Flag(
-                "anchor-off-slab", "danger", f"slab anchor at {_numbers(t, sel[off])} "
-                f"{where}, as at {_xy(t.foot[sel][off][0])}: no concrete to hold it",
-                "ACI 318-19 Ch. 17 (an anchor in concrete); design.md §7"),
-                [tuple(p) for p in t.foot[sel][off]]))
-        anchor = t.anchor[sel][mine][0]
-        need_in, need_from = edge_distance_needed_in(site, anchor)
-        short = mine & on & (dist * IN_PER_FT < need_in - TOLERANCE_FT)
-        if short.any():
-            k = np.argmin(np.where(short, dist, np.inf))
-            found.append(PlanFinding(mark, Flag(
-                "anchor-near-edge", "danger", f"slab anchor at {_numbers(t, sel[short])}: "
-                f"{dist[k] * IN_PER_FT:.1f} in from {slab.edges[which[k]][0]}; "
-                f"{need_from} needs {need_in:g} in",
-                f"ACI 318-19 §17.9 (least edge distance, {need_in:g} in); the distance "
-                "found feeds psi_ed,N, §17.6.2.4.1"),
-                [tuple(p) for p in t.foot[sel][short]]))
+    for mark, rows in _by_mark(marks, ~on).items():
+        where = "in a slab hole" if in_hole[rows].any() else "off the slab"
+        found.append(PlanFinding(mark, Flag(
+            "anchor-off-slab", "danger", f"slab anchor at {_numbers(t, sel[rows])} {where}, "
+            f"as at {_xy(feet[rows[0]])}: no concrete to hold it",
+            "ACI 318-19 Ch. 17 (an anchor in concrete); design.md §7"),
+            [tuple(p) for p in feet[rows]]))
+    for mark, rows in _by_mark(marks, on & (dist_in < need_in - TOLERANCE_FT)).items():
+        k = rows[np.argmin(dist_in[rows])]
+        needed, said = need[t.anchor[sel][k]]
+        found.append(PlanFinding(mark, Flag(
+            "anchor-near-edge", "danger", f"slab anchor at {_numbers(t, sel[rows])}: "
+            f"{dist_in[k]:.1f} in from {slab.edges[which[k]][0]}; {said} needs {needed:g} in",
+            f"ACI 318-19 §17.9 (least edge distance, {needed:g} in); the distance found "
+            "feeds psi_ed,N, §17.6.2.4.1"),
+            [tuple(p) for p in feet[rows]]))
     return found
 
 
@@ -413,29 +425,23 @@ def _ground_anchor_findings(site: Site, t: _Braces) -> list[PlanFinding]:
     if len(sel) == 0:
         return []
     ground, slab = _ground(site), _slab(site)
-    pts = shapely.points(t.foot[sel])
-    deadman = t.kind[sel] == "deadman"
+    feet, kinds, marks = t.foot[sel], t.kind[sel], t.mark[sel]
+    pts = shapely.points(feet)
+    deadman = kinds == "deadman"
     on_ground = shapely.covers(ground, pts) if ground is not None else np.zeros(len(sel), bool)
     on_slab = shapely.covers(slab.area, pts) if slab is not None else np.zeros(len(sel), bool)
-    ok = on_ground | (deadman & on_slab)
     drawn = (ground is not None) | (deadman & (slab is not None))
-    found = []
-    for mark in dict.fromkeys(t.mark[sel]):
-        mine = t.mark[sel] == mark
-        kind = t.kind[sel][mine][0]
-        if not drawn[mine].any():
-            found.append(PlanFinding(mark, Flag(
-                "anchor-not-located", "notice", f"the plan has no open ground: the {kind} "
-                "anchors' positions are not checked", "design.md §7"), []))
-            continue
-        bad = mine & ~ok
-        if bad.any():
-            where = "on open ground or on the slab" if kind == "deadman" else "on open ground"
-            found.append(PlanFinding(mark, Flag(
-                "ground-anchor-off-ground", "danger", f"{kind} anchor at "
-                f"{_numbers(t, sel[bad])} not {where}, as at {_xy(t.foot[sel][bad][0])}",
-                "design.md §7 (ground anchors go in open ground)"),
-                [tuple(p) for p in t.foot[sel][bad]]))
+    found = [PlanFinding(mark, Flag(
+        "anchor-not-located", "notice", f"the plan has no open ground: the {kinds[rows[0]]} "
+        "anchors' positions are not checked", "design.md §7"), [])
+        for mark, rows in _by_mark(marks, ~drawn).items()]
+    for mark, rows in _by_mark(marks, drawn & ~(on_ground | (deadman & on_slab))).items():
+        kind = kinds[rows[0]]
+        where = "on open ground or on the slab" if kind == "deadman" else "on open ground"
+        found.append(PlanFinding(mark, Flag(
+            "ground-anchor-off-ground", "danger", f"{kind} anchor at {_numbers(t, sel[rows])} "
+            f"not {where}, as at {_xy(feet[rows[0]])}",
+            "design.md §7 (ground anchors go in open ground)"), [tuple(p) for p in feet[rows]]))
     return found
 
 
@@ -519,20 +525,20 @@ def _zone_overlaps(site: Site, zone_of: dict[str, Polygon]) -> list[PlanFinding]
     common = shapely.intersection(zs[z], shapes[k])
     size = shapely.area(common)
     masonry_source = site.rule("masonry_zone_extra_ft").source
+    panel_of = {p.mark: p for p in site.panels}
     found = []
     for zi, ki, part, a_ft2 in zip(z, k, common, size):
         if a_ft2 <= TOLERANCE_FT:
             continue
         area, mark = areas[ki], marks[zi]
-        p = next(p for p in site.panels if p.mark == mark)
-        masonry = site.materials[p.material].kind == "masonry" and \
+        masonry = site.materials[panel_of[mark].material].kind == "masonry" and \
             site.rule_value("masonry_zone_extra_ft") is not None
         code = "zone-overlaps-crane-path" if area.kind == "crane_path" else "zone-overlap"
         pt = shapely.point_on_surface(part)
         found.append(PlanFinding(mark, Flag(
             code, ZONE_OVER_AREA[area.kind], f"the wall's zone overlaps the "
-            f"{AREA_WORDS[area.kind]} '{area.name}' by {a_ft2:.0f} ft²: authorised workers only while "
-            "the wall stands, nobody at the stand-down speed or during lifts",
+            f"{AREA_WORDS[area.kind]} '{area.name}' by {a_ft2:.0f} ft²: authorised workers "
+            "only while the wall stands, nobody at the stand-down speed or during lifts",
             masonry_source if masonry else "common practice (design.md §7)"), [(pt.x, pt.y)]))
     return found
 
@@ -566,7 +572,7 @@ def plan_geometry(site: Site, standing: set[str] | None = None, day: int | None 
     marks = set(_standing_marks(places, standing))
     reach = zone_reach(site, places, heights, standing)
     zone_of = zones(site, places, heights, standing)
-    panels = []
+    panels: list[PlanPanel] = []
     for mark, pl in places.items():
         p = site.panels[pl.index]
         up = mark in marks

@@ -468,8 +468,7 @@ def _no_plan_svg(result) -> str:
     fs = 2.2
     caution = textwrap.wrap(getattr(result, "caution", ""), int(w / (CHAR * fs)) - 2)
     items = [_text(2, 4, f"Site plan: {getattr(result, 'name', '')}", 1.4 * fs, weight="bold"),
-             _text(2, 4 + 2.2 * fs, "No plan to draw: the site file places no wall on a wall "
-                   "line ([[lines]] and each panel's line).", fs)]
+             _text(2, 4 + 2.2 * fs, "No plan to draw: no wall is placed on a wall line.", fs)]
     items += [_text(2, 4 + (4 + 1.3 * i) * fs, words, fs, weight="bold",
                     extra=' class="caution"') for i, words in enumerate(caution)]
     h = 4 + (5 + 1.3 * len(caution)) * fs

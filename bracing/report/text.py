@@ -4,10 +4,11 @@ from __future__ import annotations
 
 import math
 
-from bracing.results import STATUSES, Check, PanelResult, SiteResult
+from bracing.results import SEVERITIES, STATUSES, Check, PanelResult, SiteResult
 from bracing.units import convert
 
 SYMBOL = {"danger": "!!", "warning": "! ", "notice": "- "}
+SEVERITY_RANK = {s: i for i, s in enumerate(SEVERITIES)}
 
 
 def fmt(value: float | None, unit: str, system: str = "us", digits: int = 0) -> str:
@@ -59,18 +60,37 @@ def panel_text(p: PanelResult, system: str = "us") -> list[str]:
 
 
 def site_text(result: SiteResult, system: str = "us") -> str:
-    """A whole-site report: caution, basis, a summary, then every wall worst first."""
+    """A whole-site report: caution, basis, deficiencies by severity, then every wall worst first."""
     panels = result.worst_first()
     counts = {s: sum(p.status == s for p in panels) for s in STATUSES}
     lines = [result.caution, "", f"Site: {result.name}"]
     lines += [f"  {s}" for s in result.basis_statement]
     lines.append("  " + ", ".join(f"{n} {s.replace('_', ' ')}" for s, n in counts.items() if n))
-    failing = [(p, c) for p in panels for c in p.checks if not c.passes]
-    if failing:
-        lines += ["", f"FAILING CHECKS ({len(failing)}), worst first:"]
-        for p, c in sorted(failing, key=lambda pc: -pc[1].utilization)[:40]:
+    failing = sorted(((p, c) for p in panels for c in p.checks if not c.passes),
+                     key=lambda pc: -pc[1].utilization)
+    # flags that repeat a failing check ("...-over") are not listed twice
+    found = sorted(((p.mark, f) for p in panels for f in p.flags
+                    if f.severity != "notice" and not f.code.endswith("-over")),
+                   key=lambda mf: SEVERITY_RANK[mf[1].severity])
+    found += [("site", f) for f in result.flags if f.severity != "notice"]
+    if failing or found:
+        lines += ["", f"DEFICIENCIES: {len(failing)} failing check(s), {len(found)} finding(s)"]
+        for p, c in failing:
             lines.append(f"  {p.mark}:{check_line(c, system)[1:]}")
+        for mark, f in found:
+            lines.append(f"  {mark}: {SYMBOL[f.severity]} {f.severity.upper()}: {f.message} "
+                         f"[{f.source}]")
+    for day in result.days:
+        lines.append(day_line(day, system))
     for p in panels:
         lines += [""] + panel_text(p, system)
     lines += ["", result.caution]
     return "\n".join(lines)
+
+
+def day_line(day, system: str = "us") -> str:
+    """One line per day: lifts, standing walls, stand-down gust against the forecast."""
+    go = {True: "GO", False: "NO-GO x", None: "no forecast"}[day.go]
+    return (f"  day {day.day}{f' ({day.date})' if day.date else ''}: {len(day.lifts)} lift(s), "
+            f"{len(day.standing)} standing, stand-down {fmt(day.stand_down_speed_mph, 'mph', system)}"
+            f", forecast {fmt(day.forecast_gust_mph, 'mph', system)}: {go} {day.reason}")
