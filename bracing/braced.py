@@ -59,8 +59,10 @@ def take(obj, rows):
     return replace(obj, **values)
 
 
-def gather_braces(site, basis: str) -> BraceSet | None:
-    """Read every braced wall's layout and capacities (None when no wall is braced)."""
+def gather_braces(site, basis: str, edges: dict[str, float] | None = None) -> BraceSet | None:
+    """Read every braced wall's layout and capacities (None when no wall is braced).
+
+    `edges`: least edge distance (in) of each wall's slab-anchor feet from the plan."""
     rows = [i for i, p in enumerate(site.panels) if p.bracing is not None]
     if not rows:
         return None
@@ -76,6 +78,8 @@ def gather_braces(site, basis: str) -> BraceSet | None:
     distance = np.array([np.nan if b.anchor_distance is None else b.anchor_distance
                          for b in layouts])
     angle = np.array([np.nan if b.angle is None else b.angle for b in layouts])
+    column["edge_distance"] = np.array([(edges or {}).get(site.panels[i].mark, np.inf)
+                                        for i in rows])
     return brace_set(site, np.array(rows), positions, distance, angle, column, basis)
 
 
@@ -129,7 +133,8 @@ def _capacities(site, rows, c, length, angle, basis) -> dict[str, np.ndarray]:
         sel = c["foot_anchor"] == name
         fa = site.anchor_types[name]
         out["foot_kind"][sel] = fa.kind
-        _foot_capacity(fa, sel, out, basis)
+        plan_edge = c["edge_distance"][sel] if "edge_distance" in c else np.inf
+        _foot_capacity(fa, sel, out, basis, plan_edge)
     return out
 
 
@@ -172,18 +177,24 @@ def _brace_capacity(bt, length, angle, basis):
             members.LE_OVER_D_MAX_CONSTRUCTION)
 
 
-def _foot_capacity(fa, sel, out, basis):
-    """Capacities of the foot anchors of type `fa` for the selected walls."""
+def _foot_capacity(fa, sel, out, basis, plan_edge=np.inf):
+    """Capacities of the foot anchors of type `fa` for the selected walls.
+
+    Slab anchors take the edge distance found on the plan where there is one (0 off the slab:
+    no capacity), else the least distance their type needs (ACI 318-19 §17.6.2.4, §17.7.2)."""
     if fa.kind in ("stake", "insert"):
         out["foot_tension"][sel], out["foot_shear"][sel] = fa.rated_tension, fa.rated_shear
     elif fa.kind == "slab":
+        edge = np.where(np.isfinite(plan_edge), plan_edge, fa.edge_distance or np.inf)
         cap = anchors.slab_anchor_capacity(
             fa.embedment, fa.concrete_strength, fa.steel_area, fa.steel_strength, fa.diameter,
-            fa.slab_thickness, c1_in=fa.edge_distance or np.inf, cast_in=fa.cast_in,
+            fa.slab_thickness, c1_in=np.maximum(edge, 1e-6), cast_in=fa.cast_in,
             cracked=fa.cracked, category=fa.category, Abrg_in2=fa.bearing_area,
             pullout_lb=fa.pullout if fa.pullout else (None if fa.bearing_area else np.inf),
             basis=basis)
-        out["foot_tension"][sel], out["foot_shear"][sel] = float(cap.tension), float(cap.shear)
+        off_slab = edge <= 0.0
+        out["foot_tension"][sel] = np.where(off_slab, 0.0, cap.tension)
+        out["foot_shear"][sel] = np.where(off_slab, 0.0, cap.shear)
     elif fa.kind == "helical":
         out["foot_tension"][sel] = float(anchors.helical_capacity(
             fa.installation_torque, fa.torque_factor, fa.factor_of_safety))

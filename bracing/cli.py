@@ -8,6 +8,7 @@ from __future__ import annotations
 
 import argparse
 import json
+import signal
 import sys
 from pathlib import Path
 
@@ -44,6 +45,8 @@ class BadInput(Exception):
 
 
 def main(argv: list[str] | None = None) -> int:
+    if hasattr(signal, "SIGPIPE"):  # `bracing check ... | head` ends quietly
+        signal.signal(signal.SIGPIPE, signal.SIG_DFL)
     parser = build_parser()
     args = parser.parse_args(argv)
     try:
@@ -225,7 +228,7 @@ def _flag_problem(err: dict) -> str:
 
 def run_check(args) -> int:
     site_file = scenario.load(args.site)
-    result = evaluate(site_file.site, design=args.design)
+    result = evaluate(site_file.site, design=args.design, base_dir=Path(args.site).parent)
     if args.json:
         print(json_view.dumps(json_view.site_record(result)))
     else:
@@ -237,7 +240,7 @@ def run_schedule(args) -> int:
     from bracing.report import schedule
 
     site_file = scenario.load(args.site)
-    result = evaluate(site_file.site, design=args.design)
+    result = evaluate(site_file.site, design=args.design, base_dir=Path(args.site).parent)
     return _write(args.output, schedule.render(site_file.site, result, args.day, args.format,
                                                args.units))
 
@@ -246,8 +249,12 @@ def run_plan(args) -> int:
     from bracing.report import svg
 
     site_file = scenario.load(args.site)
-    result = evaluate(site_file.site, design=args.design)
-    return _write(args.output, svg.plan_svg(result, args.day))
+    result = evaluate(site_file.site, design=args.design, base_dir=Path(args.site).parent)
+    try:
+        drawing = svg.plan_svg(result, args.day)
+    except ValueError as exc:
+        raise BadInput(f"--day: {exc}") from None
+    return _write(args.output, drawing)
 
 
 def run_tui(args) -> int:

@@ -11,7 +11,7 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from bracing import braced, layout, lines, stability
+from bracing import braced, layout, lines, plan, schedule, stability
 from bracing.model import Site
 from bracing.results import Check, Flag, PanelResult, SiteResult, UnbracedResult, WindResult
 from bracing.wind import asce7, asce37, gusts
@@ -370,13 +370,18 @@ class Evaluation:
     braced_limit_missing: np.ndarray | None = None
 
 
-def evaluate(site: Site, design: bool = False) -> SiteResult:
+ANCHOR_FINDINGS = {"anchor-off-slab", "anchor-near-edge", "ground-anchor-off-ground",
+                   "anchor-not-located", "past-line-end"}
+
+
+def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     """Check every wall of the site and return the one result object.
 
     With `design`, walls that cannot stand and have no bracing get a designed layout first
-    (the site's [design] options); the walls for which none passes say why.
+    (the site's [design] options); the walls for which none passes say why. `base_dir` is the
+    site file's folder (the forecast file is read from it).
     """
-    e = evaluate_arrays(site)
+    e = evaluate_arrays(site, _edges(site))
     designs = {}
     if design and site.design is not None:
         rows = [i for i, p in enumerate(site.panels) if p.bracing is None
@@ -386,8 +391,9 @@ def evaluate(site: Site, design: bool = False) -> SiteResult:
                 site.site.design_basis], site.rule_value("minimum_design_pressure_psf"))
             designs = {d.panel: d for d in found}
             site = layout.with_designs(site, found)
-            e = evaluate_arrays(site)
+            e = evaluate_arrays(site, _edges(site))
     panels = [_panel_result(site, i, e) for i in range(len(site.panels))]
+    by_mark = {p.mark: p for p in panels}
     for i, d in designs.items():
         if d.layout is not None:
             panels[i].braces["designed"] = True
@@ -396,9 +402,33 @@ def evaluate(site: Site, design: bool = False) -> SiteResult:
                                         "layout designer"))
         else:
             panels[i].flags.append(Flag("no-layout", "danger", d.message, "layout designer"))
+    places = plan.place(site)
+    for mark, flag in plan.plan_findings(site, places, None) if places else []:
+        if flag.code in ANCHOR_FINDINGS:
+            by_mark[mark].flags.append(flag)
+    days, peak, wall_flags = schedule.build_days(site, panels, base_dir)
+    for mark, flag in wall_flags:
+        by_mark[mark].flags.append(flag)
+    for p in panels:  # a danger flag on a braced wall (an anchor off the slab...) is unsafe
+        if p.status == "braced" and any(f.severity == "danger" for f in p.flags):
+            p.status = "unsafe"
+    geometry = None
+    if places:
+        if days:
+            geometry = {d.day: plan.plan_geometry(site, set(d.standing), day=d.day) for d in days}
+            for d in days:  # crossings and zone overlaps depend on the walls standing together
+                d.flags.extend(f.flag for f in geometry[d.day].findings
+                               if f.flag.code not in ANCHOR_FINDINGS)
+        else:
+            geometry = plan.plan_geometry(site)
     return SiteResult(
         name=site.site.name, basis=site.site.design_basis, basis_statement=basis_statement(site),
-        panels=panels)
+        panels=panels, days=days, peak_inventory=peak, plan=geometry)
+
+
+def _edges(site: Site) -> dict[str, float]:
+    """Least edge distance (in) of each wall's slab-anchor feet, from the plan (inf: none)."""
+    return plan.foot_edge_distances_in(site, plan.place(site)) if site.lines else {}
 
 
 def _masonry_over_limit(site: Site, p) -> bool:
@@ -407,7 +437,7 @@ def _masonry_over_limit(site: Site, p) -> bool:
         p.height > limit
 
 
-def evaluate_arrays(site: Site) -> Evaluation:
+def evaluate_arrays(site: Site, edges: dict[str, float] | None = None) -> Evaluation:
     """The vectorised pass: design wind, observed-gust limits and trial heights, all walls."""
     w = gather(site)
     n = len(site.panels)
@@ -440,7 +470,7 @@ def evaluate_arrays(site: Site) -> Evaluation:
                                      *HEIGHT_BRACKET_FT, n) if gust else np.full(n, np.nan))
     e = Evaluation(w, wind, checks, governing_utilization(checks), limit,
                    stand_down_speeds(site, w, limit), max_height, max_at_limit, design_speed)
-    bs = braced.gather_braces(site, site.site.design_basis)
+    bs = braced.gather_braces(site, site.site.design_basis, edges)
     if bs is not None:
         loads = braced.brace_loads(w, wind, bs, minimum)
         e.braces = bs

@@ -62,7 +62,8 @@ class Row:
     torque: str = ""
     stand_down: str = ""
     sustained: str = ""
-    zone: str = ""
+    zone_front: str = ""
+    zone_back: str = ""
     numbers: dict = field(default_factory=dict)  # CSV cells: plain numbers in the units chosen
 
 
@@ -81,7 +82,8 @@ class Page:
     lifts: list[str]
     releases: list[str]
     flags: list[tuple[str, str, str, str]]  # symbol, SEVERITY, message, source
-    rows: list[Row]
+    walls: list[Row]  # standing, then released today, as the day lists them
+    rows: list[Row]  # the braced ones
     unbraced: list[Row]
     inventory: list[tuple[str, str, str, str, str]]  # kind, type, in use, on hand, short
     rules: list[tuple[str, str, str, str]]  # name, value, source, basis
@@ -141,12 +143,12 @@ def build_pages(site: Site, result: SiteResult, day: int | None, units: str,
             sustained=_sustained(result, d, units),
             working_limit=_speed(d.working_limit_speed_mph, units),
             lifts=d.lifts, releases=[_release(site, m, d.day) for m in d.released],
-            flags=_flags(d, walls), rows=[r for r in rows if r.braced],
+            flags=_flags(d, walls), walls=rows, rows=[r for r in rows if r.braced],
             unbraced=[r for r in rows if not r.braced], inventory=_inventory(site, d),
             rules=_rules(site, walls))
         if svg is not None:
-            page.plan_svg = Markup(svg.plan_svg(result, d.day or None))
-            page.sections = [(p.mark, Markup(svg.section_svg(p))) for p in walls if p.braces]
+            page.plan_svg = _inline(svg.plan_svg(result, d.day or None))
+            page.sections = [(p.mark, _inline(svg.section_svg(p))) for p in walls if p.braces]
         pages.append(page)
     return pages
 
@@ -155,6 +157,13 @@ def _svg():
     from bracing.report import svg  # drawn by the plan views
 
     return svg
+
+
+def _inline(svg_text: str) -> Markup:
+    """An SVG document as markup to place inside HTML (its XML declaration dropped)."""
+    if svg_text.startswith("<?xml"):
+        svg_text = svg_text.split("?>", 1)[1].lstrip()
+    return Markup(svg_text)
 
 
 def _title(result: SiteResult, d: DayResult) -> str:
@@ -205,8 +214,7 @@ def _row(site: Site, p: PanelResult, bracing, d: DayResult, zone: tuple, units: 
     row = Row(p.mark, p.status, STATUS_SYMBOL[p.status], STATUS_WORD[p.status], today,
               braced=bool(p.braces), stand_down=_speed(p.stand_down_speed_mph, units),
               sustained=_speed(p.sustained_equivalents_mph.get("1-min"), units),
-              zone=f"{fmt(front, 'ft', units, 1)} braced side, {fmt(back, 'ft', units, 1)} "
-                   "behind")
+              zone_front=fmt(front, "ft", units, 1), zone_back=fmt(back, "ft", units, 1))
     row.numbers = {"stand_down": _number(p.stand_down_speed_mph, "mph", units),
                    "sustained": _number(p.sustained_equivalents_mph.get("1-min"), "mph", units),
                    "zone_front": _number(front, "ft", units, 1),
@@ -282,7 +290,10 @@ def _rules(site: Site, walls: list[PanelResult]) -> list[tuple[str, str, str, st
 def html(result: SiteResult, pages: list[Page]) -> str:
     env = Environment(loader=FileSystemLoader(TEMPLATES), autoescape=select_autoescape(
         ["html", "j2"]), trim_blocks=True, lstrip_blocks=True)
-    return env.get_template("schedule.html.j2").render(result=result, pages=pages)
+    caution = (result.caution.replace("\\", "\\\\").replace('"', '\\"')
+               .replace("<", "\\3C ").replace("\n", " "))  # a CSS string
+    return env.get_template("schedule.html.j2").render(
+        result=result, pages=pages, caution_css=Markup(f'"{caution}"'))
 
 
 CSV_COLUMNS = (
@@ -305,7 +316,7 @@ def csv_text(result: SiteResult, pages: list[Page], units: str) -> str:
                 for name, unit in CSV_COLUMNS])
     for page in pages:
         d = page.day
-        for r in page.rows + page.unbraced:
+        for r in page.walls:
             n = r.numbers
             w.writerow([
                 d.day, d.date or "", page.go[1], _number(d.forecast_gust_mph, "mph", units),
@@ -323,7 +334,8 @@ TEXT_COLUMNS = (("wall", "mark"), ("status", "status_text"), ("n", "count"),
                 ("foot from face", "anchor_distance"), ("length", "length"),
                 ("angle", "angle"), ("brace", "brace_type"), ("wall anchor", "wall_anchor"),
                 ("foot anchor", "foot_anchor"), ("torque", "torque"),
-                ("stand-down", "stand_down"), ("zone", "zone"))
+                ("stand-down", "stand_down"), ("zone front", "zone_front"),
+                ("zone behind", "zone_back"))
 
 
 def plain_text(result: SiteResult, pages: list[Page]) -> str:
@@ -342,8 +354,9 @@ def plain_text(result: SiteResult, pages: list[Page]) -> str:
         lines += ["", "BRACE SCHEDULE (walls standing on braces)"]
         lines += _table(page.rows) if page.rows else ["  none"]
         lines += ["", "WALLS STANDING WITHOUT BRACES"]
-        lines += [f"  {r.mark}: {r.word} {r.symbol}; stand-down {r.stand_down}; zone {r.zone}"
-                  for r in page.unbraced] or ["  none"]
+        lines += [f"  {r.mark}: {r.symbol} {r.word}; stand-down {r.stand_down}; zone "
+                  f"{r.zone_front} braced side, {r.zone_back} behind" for r in page.unbraced] \
+            or ["  none"]
         lines += ["", "INVENTORY (type: in use / on hand)"]
         lines += [f"  {kind} {name}: {n} / {hand}  {short}"
                   for kind, name, n, hand, short in page.inventory] or ["  none in use"]
