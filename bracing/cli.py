@@ -241,8 +241,11 @@ def run_schedule(args) -> int:
 
     site_file = scenario.load(args.site)
     result = evaluate(site_file.site, design=args.design, base_dir=Path(args.site).parent)
-    return _write(args.output, schedule.render(site_file.site, result, args.day, args.format,
-                                               args.units))
+    try:
+        text_out = schedule.render(site_file.site, result, args.day, args.format, args.units)
+    except schedule.NoSuchDay as exc:
+        raise BadInput(f"--day: {exc}") from None
+    return _write(args.output, text_out)
 
 
 def run_plan(args) -> int:

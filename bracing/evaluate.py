@@ -114,8 +114,7 @@ def gather(site: Site) -> Walls:
             solidity = STUD_SOLIDITY
         masonry = mat.kind == "masonry"
         cured = masonry and p.mortar_age is not None and p.mortar_age >= cure_days
-        grouting = "grouted" if mat.grouting == "solid" and mat.unit_weight is None else (
-            "hollow" if mat.grouting == "partly" else mat.grouting)
+        grouting = "hollow" if mat.grouting == "partly" else mat.grouting  # partly: conservative
         tension = mat.flexural_tension
         if tension is None and masonry:
             tension = stability.FLEXURAL_TENSION_PSI[(grouting, mat.mortar)]
@@ -296,12 +295,10 @@ def stability_checks(w: Walls, wind: Wind, f: Factors) -> dict[str, tuple[np.nda
 
 
 CHECK_INFO = {
-    "overturning": ("lb·ft", "resisting",
-                    "statics, W t/2 about the base edge; cured masonry: TMS 402-16 §8.2"),
+    "overturning": ("lb·ft", "resisting", "statics, W t/2 about the base edge"),
     "footing overturning": ("lb·ft", "resisting", "statics, W x footing width / 2"),
     "soil bearing": ("psf", "adding", "statics against IBC Table 1806.2 allowable bearing"),
-    "sliding at base": ("lb", "resisting", "friction, ACI 318-19 §22.9.4.2 (mu 0.6); cured "
-                        "masonry: bed-joint shear TMS 402-16 §8.2.6.2 (from memory)"),
+    "sliding at base": ("lb", "resisting", "friction, ACI 318-19 §22.9.4.2 (mu 0.6)"),
     "footing sliding": ("lb", "resisting", "friction, IBC Table 1806.2 (allowable)"),
 }
 
@@ -406,12 +403,12 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     for mark, flag in plan.plan_findings(site, places, None) if places else []:
         if flag.code in ANCHOR_FINDINGS:
             by_mark[mark].flags.append(flag)
-    days, peak, wall_flags = schedule.build_days(site, panels, base_dir)
-    for mark, flag in wall_flags:
-        by_mark[mark].flags.append(flag)
     for p in panels:  # a danger flag on a braced wall (an anchor off the slab...) is unsafe
         if p.status == "braced" and any(f.severity == "danger" for f in p.flags):
             p.status = "unsafe"
+    days, peak, wall_flags = schedule.build_days(site, panels, base_dir)
+    for mark, flag in wall_flags:  # sign-off and period flags: the wall's checks stand as they are
+        by_mark[mark].flags.append(flag)
     geometry = None
     if places:
         if days:
@@ -521,13 +518,14 @@ def strength_only(checks: dict) -> dict:
 
 def stand_down_speeds(site: Site, w: Walls, limit: np.ndarray) -> np.ndarray:
     """Stand-down ratio x working limit, capped for masonry by the industry speeds (design.md §3)."""
-    speed = (site.rule_value("stand_down_ratio") or 1.0) * limit
+    ratio = site.rule_value("stand_down_ratio")
+    speed = (1.0 if ratio is None else ratio) * limit
     initial = site.rule_value("masonry_initial_speed_mph")
     intermediate = site.rule_value("masonry_intermediate_speed_mph")
-    if initial:
-        speed = np.where(w.masonry & w.fresh, np.minimum(speed, initial), speed)
-    if intermediate:
-        speed = np.where(w.masonry, np.minimum(speed, intermediate), speed)
+    if initial is not None:  # fmin: a limit beyond the search range (NaN) still gets the cap
+        speed = np.where(w.masonry & w.fresh, np.fmin(speed, initial), speed)
+    if intermediate is not None:
+        speed = np.where(w.masonry, np.fmin(speed, intermediate), speed)
     return speed
 
 
@@ -553,14 +551,19 @@ def _panel_result(site: Site, i: int, e: Evaluation) -> PanelResult:
     mat = site.materials[p.material]
     w, wind = e.walls, e.wind
     factors = COMBINATIONS[site.site.design_basis]
-    unbraced_checks = _checks_of(e.checks, i, w, factors, CHECK_INFO)
+    per_foot = "" if w.rigid[i] else ", per ft"
+    unbraced_checks = _checks_of(e.checks, i, factors, CHECK_INFO,
+                                 "whole panel" if w.rigid[i] else "end zone",
+                                 unbraced_sources(w, i))
+    for c in unbraced_checks:
+        c.region += per_foot if c.region != "whole panel" else ""
     flags = _flags(site, p, mat, w, i, e.utilization[i])
     stands = e.utilization[i] <= 1.0 and not any(f.code == "masonry-over-8ft" for f in flags)
     limit, stand_down = float(e.limit[i]), float(e.stand_down[i])
     checks, status, details = unbraced_checks, "stands" if stands else "needs_braces", None
     if p.bracing is not None:
         r = int(np.nonzero(e.braces.index == i)[0][0])
-        checks = _checks_of(e.braced_checks, r, w, factors, braced.CHECKS)
+        checks = _checks_of(e.braced_checks, r, factors, braced.CHECKS)
         foot = site.anchor_types[p.bracing.foot_anchor].kind if p.bracing.foot_anchor else None
         specific = braced.sources(site.brace_types[p.bracing.brace_type].kind, foot)
         for c in checks:
@@ -570,6 +573,8 @@ def _panel_result(site: Site, i: int, e: Evaluation) -> PanelResult:
         limit = float(e.braced_limit[r])
         stand_down = float(e.braced_stand_down[r])
         details = braced.braced_details(e.braces, e.brace_forces, r)
+        details.update(brace_type=p.bracing.brace_type, wall_anchor=p.bracing.wall_anchor,
+                       foot_anchor=p.bracing.foot_anchor)
         brace_checks = [c for c in checks if c.element.startswith("brace")]
         details["utilization"] = max((c.utilization for c in brace_checks), default=None)
         missing = e.braced_limit_missing[r]
@@ -596,16 +601,23 @@ def _panel_result(site: Site, i: int, e: Evaluation) -> PanelResult:
         unbraced=UnbracedResult(
             utilization=float(e.utilization[i]), stands=bool(stands),
             working_limit_speed_mph=float(e.limit[i]),
-            stand_down_speed_mph=float(e.stand_down[i]), max_height_ft=_or_none(e.max_height[i]),
-            max_height_at_limit_ft=_or_none(e.max_at_limit[i])),
+            stand_down_speed_mph=float(e.stand_down[i]),
+            max_height_ft=_capped(site, mat, e.max_height[i]),
+            max_height_at_limit_ft=_capped(site, mat, e.max_at_limit[i]),
+            max_height_structural_ft=_or_none(e.max_height[i])),
         checks=checks, flags=flags, working_limit_speed_mph=limit,
         stand_down_speed_mph=stand_down,
         governing_element=f"{governing.element} ({governing.region})",
         braces=details, sustained_equivalents_mph=gusts.sustained_equivalents(stand_down))
 
 
-def _checks_of(arrays: dict, row: int, w: Walls, factors: Factors, info: dict) -> list[Check]:
-    """The Check objects of one wall (row) from a dict of demand/capacity arrays."""
+def _checks_of(arrays: dict, row: int, factors: Factors, info: dict, whole: str = "",
+               sources: dict | None = None) -> list[Check]:
+    """The Check objects of one wall (row) from a dict of demand/capacity arrays.
+
+    `whole` names the region of checks keyed '*' (the whole panel or the end zone per foot);
+    `sources` replaces the generic source of an element with the one for this wall.
+    """
     items = []
     for key, (demand, capacity) in arrays.items():
         if np.isnan(demand[row]):
@@ -614,9 +626,25 @@ def _checks_of(arrays: dict, row: int, w: Walls, factors: Factors, info: dict) -
         unit, kind, source = info[element]
         combo = {"resisting": factors.resisting, "adding": factors.adding,
                  "wind": factors.wind_only}[kind]
-        items.append(Check(element, region or "worst brace", float(demand[row]),
-                           float(capacity[row]), unit, combo, source))
+        region = whole if region == "*" else region or "worst brace"
+        items.append(Check(element, region, float(demand[row]), float(capacity[row]), unit,
+                           combo, (sources or {}).get(element, source)))
     return items
+
+
+def unbraced_sources(w: Walls, i: int) -> dict[str, str]:
+    """The sources of a wall's own checks by its material and mortar."""
+    if w.rigid[i]:
+        return {}
+    if w.masonry[i] and not w.fresh[i]:
+        return {"overturning": "TMS 402-16 §8.2 flexural tension (from memory), or W t/2 if "
+                               "larger",
+                "sliding at base": "TMS 402-16 §8.2.6.2 bed-joint shear (from memory), or "
+                                   "friction if larger"}
+    if w.masonry[i]:
+        return {"overturning": "statics, W t/2 about the bed joint (fresh mortar: weight only)",
+                "sliding at base": "friction, mu 0.6 (fresh mortar: no bond)"}
+    return {"overturning": "statics, W t/2 about the sill"}
 
 
 def braced_flags(site, p, bs, r, checks, limit, stand_down, missing) -> list[Flag]:
@@ -672,6 +700,14 @@ def braced_flags(site, p, bs, r, checks, limit, stand_down, missing) -> list[Fla
         flags.append(Flag("capacity-unknown", "warning", "a brace or anchor capacity is unknown "
                           "(outside its rated range?): no working-limit speed", "design.md §3"))
     return flags
+
+
+def _capped(site: Site, mat, height) -> float | None:
+    """The tallest a wall may stand unbraced: masonry no taller than OSHA 1926.706(b) allows."""
+    limit = site.rule_value("masonry_unbraced_height_ft")
+    if mat.kind == "masonry" and limit is not None and not np.isnan(height):
+        height = min(height, limit)
+    return _or_none(height)
 
 
 def _or_none(x) -> float | None:

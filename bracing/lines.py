@@ -44,13 +44,16 @@ def standing_days(site: Site) -> tuple[np.ndarray, np.ndarray]:
     (OSHA 1926.704(a): braces stay until the permanent connections are complete).
     """
     events = {e.name: e.day for e in site.events}
-    signed = {s.panel: s.day for s in site.signoffs}
     lift = np.array([np.nan if p.lift_day is None else p.lift_day for p in site.panels], float)
     release = np.full(len(site.panels), np.inf)
-    for i, p in enumerate(site.panels):
-        day = signed.get(p.mark)
-        if day is not None and all(events[n] <= day for n in p.release_after):
-            release[i] = day
+    by_mark = {p.mark: i for i, p in enumerate(site.panels)}
+    for so in site.signoffs:  # the earliest valid sign-off: after the lift and every event
+        i = by_mark[so.panel]
+        p = site.panels[i]
+        valid = (p.lift_day is not None and so.day >= p.lift_day
+                 and all(events[n] <= so.day for n in p.release_after))
+        if valid:
+            release[i] = min(release[i], so.day)
     return lift, release
 
 

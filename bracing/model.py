@@ -115,6 +115,18 @@ DEFAULT_RULES: dict[str, Rule] = {
 }
 
 
+# Rules whose value must lie in (low, high] to make sense.
+RULE_RANGES = {
+    "stand_down_ratio": (0.0, 1.0),
+    "minimum_design_pressure_psf": (0.0, 200.0),
+    "brace_angle_min_deg": (0.0, 90.0),
+    "brace_angle_max_deg": (0.0, 90.0),
+    "insert_min_height_ratio": (0.0, 1.0),
+    "minimum_braces_per_panel": (0.0, 20.0),
+    "masonry_unbraced_height_ft": (0.0, 100.0),
+}
+
+
 class SiteInfo(Strict):
     """Where the walls stand and the wind they must resist."""
 
@@ -150,8 +162,9 @@ class Material(Strict):
         None, gt=0, description="Weight per face area (psf); overrides the unit weight.")
     compressive_strength: Stress | None = Field(
         None, gt=0, description="f'c of concrete on the day (psi).")
-    grouting: Literal["hollow", "partly", "solid"] = Field(
-        "hollow", description="Masonry: hollow (ungrouted), partly or fully grouted/solid units.")
+    grouting: Literal["hollow", "partly", "grouted", "solid"] = Field(
+        "hollow", description="Masonry: hollow units ungrouted, partly grouted (checked as "
+                              "hollow), fully grouted, or solid units (TMS 402-16 Table 8.2.4.2).")
     mortar: Literal["M/S", "N"] = Field("M/S", description="Masonry mortar type (TMS 402).")
     flexural_tension: Stress | None = Field(
         None, ge=0, description="Masonry allowable flexural tension normal to bed joints (psi); "
@@ -527,6 +540,12 @@ def reference_problems(data) -> list[tuple[tuple, str, object]]:
         return set(value) if isinstance(value, dict) else set()
 
     problems: list[tuple[tuple, str, object]] = []
+    rules = data.get("rules") if isinstance(data.get("rules"), dict) else {}
+    for rule, (low, high) in RULE_RANGES.items():
+        value = rules.get(rule, {}).get("value") if isinstance(rules.get(rule), dict) else None
+        if isinstance(value, (int, float)) and not low < value <= high:
+            problems.append((("rules", rule, "value"), f"must be above {low:g} and at most "
+                             f"{high:g}", value))
     for rule in names("rules") - set(DEFAULT_RULES):
         problems.append((("rules", rule), f"unknown rule; known: {', '.join(DEFAULT_RULES)}", rule))
     lines = _names_of(data, "lines", problems)

@@ -101,6 +101,7 @@ class UnbracedResult:
     stand_down_speed_mph: float
     max_height_ft: float | None
     max_height_at_limit_ft: float | None
+    max_height_structural_ft: float | None = None  # before a rule's cap (OSHA 8 ft masonry)
 
 
 @dataclass(slots=True)
@@ -154,7 +155,7 @@ class DayResult:
     storm: bool
     go: bool | None
     reason: str
-    short: dict[str, int] = field(default_factory=dict)
+    short: dict[str, dict[str, int]] = field(default_factory=dict)  # {"braces": {type: n}, ...}
     flags: list[Flag] = field(default_factory=list)
 
 
@@ -168,7 +169,7 @@ class SiteResult:
     panels: list[PanelResult]
     caution: str = CAUTION
     days: list[DayResult] = field(default_factory=list)
-    peak_inventory: dict[str, int] = field(default_factory=dict)
+    peak_inventory: dict[str, dict[str, int]] = field(default_factory=dict)
     plan: object | None = None  # bracing.plan.PlanGeometry: coordinates for the views
     flags: list[Flag] = field(default_factory=list)  # site-wide findings
 

@@ -55,6 +55,8 @@ STORM_WORDS = {"yes": True, "true": True, "1": True, "no": False, "false": False
                "": False}
 STORM_SOURCE = "design.md §3, team rule"
 PERIOD_SOURCE = "ASCE 37-14 Table 6.2-1"
+# The codes of the walls' schedule flags (each also on the day it happens).
+SCHEDULE_CODES = ("signoff-before-lift", "signoff-before-event", "no-signoff", "period-slip")
 RELEASE_SOURCE = "OSHA 29 CFR 1926.704(a); design.md §7"
 
 
@@ -168,9 +170,9 @@ def date_of(site: Site, day: int) -> str | None:
 
 def hardware(bracing: Bracing | None, panel: PanelResult) -> Hardware | None:
     """A wall's brace and anchor types and brace count, from its result's `braces` record where
-    it names them (a designed layout), else from the site file's `bracing`."""
+    it names them (a designed layout), else from the site file's `bracing` (None: not named)."""
     b, d = bracing, panel.braces or {}
-    if b is None and not d.get("brace_type"):
+    if b is None and not d:
         return None
     return Hardware(d.get("brace_type", b.brace_type if b else None),
                     d.get("wall_anchor", b.wall_anchor if b else None),
@@ -179,8 +181,8 @@ def hardware(bracing: Bracing | None, panel: PanelResult) -> Hardware | None:
 
 
 def fall_zones(site: Site, panels: list[PanelResult]) -> dict[str, tuple[float, float, str]]:
-    """Zone of each wall (design.md §7): reach (ft) out from the braced face, reach behind the
-    back face, and its basis. Walls placed on a wall line take the plan's own
+    """Zone of each wall (design.md §7): reach (ft) out from the braced face, reach back from the
+    braced face on the other side (through the wall), and its basis. Walls placed on a wall line take the plan's own
     (`bracing.plan.zone_reach`); the others the same rule: masonry height + the zone rule's
     extra on the braced side (OSHA 29 CFR 1926.706(a)), never less than the brace footprint;
     other walls height + brace footprint in front and their height behind (common practice).
@@ -295,6 +297,12 @@ def _days(site: Site, walls: list[WallDays], result: dict[str, PanelResult],
     stand_down = np.array([result[w.mark].stand_down_speed_mph for w in walls], float)
     limit = np.array([result[w.mark].working_limit_speed_mph for w in walls], float)
     slips = _period_slips(walls, result, standing, lift)
+    on_day: dict[int, list[Flag]] = {}
+    for w in walls:
+        for f, fd in zip(w.flags, w.flag_days):
+            if f.code != "no-signoff":
+                on_day.setdefault(fd, []).append(f)
+    lifted, released = _by_day(walls, lambda w: w.lift), _by_day(walls, lambda w: w.release)
 
     days = []
     for n in range(last):
@@ -305,8 +313,7 @@ def _days(site: Site, walls: list[WallDays], result: dict[str, PanelResult],
         use_a = {t: int(c) for t, c in zip(anchors[0], anchor_use[n]) if c}
         short = {"braces": _short(use_b, site.brace_types),
                  "anchors": _short(use_a, site.anchor_types)}
-        flags = [f for w in walls for f, fd in zip(w.flags, w.flag_days) if fd == d
-                 and f.code != "no-signoff"] + [f for _, f in slips.get(d, [])]
+        flags = on_day.get(d, []) + [f for _, f in slips.get(d, [])]
         flags += _short_flags(short) + _status_flags(here, result)
         known = [k for k in up if math.isfinite(stand_down[k])]
         gov = min(known, key=lambda k: stand_down[k]) if known else None
@@ -315,9 +322,8 @@ def _days(site: Site, walls: list[WallDays], result: dict[str, PanelResult],
         go, reason = _go(site, here, None if gov is None else walls[gov], result, unknown, fc)
         days.append(DayResult(
             day=d, date=date_of(site, d),
-            lifts=[w.mark for w in walls if w.lift == d], standing=[w.mark for w in here],
-            braces_in_use=use_b, anchors_in_use=use_a,
-            released=[w.mark for w in walls if w.release == d],
+            lifts=lifted.get(d, []), standing=[w.mark for w in here],
+            braces_in_use=use_b, anchors_in_use=use_a, released=released.get(d, []),
             stand_down_speed_mph=None if gov is None else float(stand_down[gov]),
             working_limit_speed_mph=_least(limit[up]),
             governing_wall=None if gov is None else walls[gov].mark,
@@ -326,6 +332,15 @@ def _days(site: Site, walls: list[WallDays], result: dict[str, PanelResult],
     peak = {"braces": {t: int(c) for t, c in zip(braces[0], brace_use.max(axis=0))},
             "anchors": {t: int(c) for t, c in zip(anchors[0], anchor_use.max(axis=0))}}
     return days, peak, slips
+
+
+def _by_day(walls: list[WallDays], day_of) -> dict[int, list[str]]:
+    """Marks of the walls by the day `day_of` gives them (lift or release), in site order."""
+    out: dict[int, list[str]] = {}
+    for w in walls:
+        if day_of(w) is not None:
+            out.setdefault(day_of(w), []).append(w.mark)
+    return out
 
 
 def _counts(gear: list[Hardware | None], pick) -> tuple[list[str], np.ndarray]:

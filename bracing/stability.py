@@ -11,7 +11,16 @@ FLEXURAL_TENSION_PSI = {
     ("hollow", "M/S"): 33.0, ("hollow", "N"): 25.0,
     ("grouted", "M/S"): 86.0, ("grouted", "N"): 84.0,
 }
-FACE_SHELL_IN = 1.25  # ASTM C90 minimum face shell of 8 in and wider units (from memory)
+# ASTM C90 least face-shell thickness (in) by nominal unit width (in), from memory.
+FACE_SHELL_IN = {4.0: 0.75, 6.0: 1.0, 8.0: 1.25, 10.0: 1.375, 12.0: 1.5}
+
+
+def face_shell(thickness_in):
+    """Face shell of a hollow unit from its actual thickness (nominal = actual + 3/8 in)."""
+    nominal = np.asarray(thickness_in, dtype=float) + 0.375
+    widths = np.array(list(FACE_SHELL_IN))
+    shells = np.array(list(FACE_SHELL_IN.values()))
+    return shells[np.clip(np.searchsorted(widths, nominal - 0.5), 0, len(widths) - 1)]
 
 
 def rocking_resistance(weight, thickness_ft):
@@ -46,7 +55,7 @@ def masonry_section(thickness_in, grouting):
     """
     t = np.asarray(thickness_in, dtype=float)
     hollow = np.asarray(grouting) == "hollow"
-    fs = np.minimum(FACE_SHELL_IN, t / 2.0)
+    fs = np.minimum(face_shell(t), t / 2.0)
     lever = (t - fs) / 2.0
     i_hollow = 2.0 * (12.0 * fs**3 / 12.0 + 12.0 * fs * lever**2)
     s_hollow = i_hollow / (t / 2.0)

@@ -13,7 +13,6 @@ from functools import lru_cache
 import pint
 
 
-
 @lru_cache(maxsize=1)
 def registry() -> pint.UnitRegistry:
     """pint's registry with the trade's names it lacks; built on first use (it takes ~0.4 s)."""

@@ -102,11 +102,6 @@ def run_bracing(*args: str) -> subprocess.CompletedProcess:
                           check=False, capture_output=True, text=True, cwd=REPO, timeout=120)
 
 
-@pytest.fixture(scope="session")
-def site_toml() -> str:
-    return SITE_TOML
-
-
 @pytest.fixture
 def write_site(tmp_path):
     """Write site-file text under tmp_path and return its path."""

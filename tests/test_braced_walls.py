@@ -16,7 +16,7 @@ from bracing import evaluate as ev
 from bracing.model import Site
 from bracing.wind import asce7
 
-SOME = settings(max_examples=30, deadline=None)
+SOME = settings(max_examples=50, deadline=None)
 
 BRACE_TYPES = {
     # an adjustable brace: the maker's table of allowable load by length (invented)

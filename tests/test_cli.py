@@ -212,3 +212,15 @@ def test_schema_is_valid_json_with_the_top_level_keys(capsys):
     height = schema["$defs"]["Panel"]["properties"]["height"]
     assert {"type": "number"} in height["anyOf"] and {"type": "string"} in height["anyOf"]
     assert "ft" in height["description"]
+
+
+@pytest.mark.parametrize("ratio", ["5", "0", "-1"])
+def test_a_stand_down_ratio_outside_0_to_1_is_refused(capsys, ratio):
+    assert cli.main(PANEL + [f"--stand-down-ratio={ratio}"]) == 2
+    assert "--stand-down-ratio" in capsys.readouterr().err
+
+
+def test_a_negative_value_is_read_after_an_equals_sign(capsys):
+    # argparse reads "--ground-elevation -282ft" as two flags; "=" keeps the value (Death Valley).
+    got = _json(capsys, PANEL + ["--ground-elevation=-282ft"])
+    assert got["wind"]["ke"] == pytest.approx(math.exp(-0.0000362 * -282.0), rel=1e-12)

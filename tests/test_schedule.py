@@ -15,7 +15,7 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from bracing import plan, schedule
+from bracing import schedule
 from bracing.evaluate import evaluate
 from bracing.model import Site
 from bracing.report import json_view
@@ -150,14 +150,18 @@ def write_tiny(tmp_path, toml=TINY_TOML, wx=WX_CSV):
 
 
 def tiny_result(tmp_path, toml=TINY_TOML, wx=WX_CSV):
-    """The tiny site, evaluated, with its days and a plan of each day filled in."""
+    """The tiny site evaluated (its days and plans filled in), and its walls' schedule flags."""
     site = parse(toml, "site.toml").site
     (tmp_path / "wx.csv").write_text(wx, encoding="utf-8")
-    result = evaluate(site)
-    result.days, result.peak_inventory, wall_flags = schedule.build_days(
-        site, result.panels, tmp_path)
-    result.plan = {d.day: plan.plan_geometry(site, set(d.standing), d.day) for d in result.days}
+    result = evaluate(site, base_dir=tmp_path)
+    days, peak, wall_flags = schedule.build_days(site, result.panels, tmp_path)
+    assert [d.standing for d in days] == [d.standing for d in result.days]
+    assert peak == result.peak_inventory
     return site, result, wall_flags
+
+
+def no_forecast(toml=TINY_TOML) -> Site:
+    return parse(toml).site.model_copy(update={"forecast": None})
 
 
 @pytest.fixture
@@ -229,7 +233,7 @@ def test_no_release_from_dates_alone(tmp_path):
 def test_stand_down_go_and_reasons(tiny):
     """Day stand-down = the lowest among standing walls; go only when the forecast gust is below
     it and no storm (design.md §3); no forecast, no call."""
-    site, result, _ = tiny
+    _, result, _ = tiny
     days = by_day(result)
     for d in result.days:
         walls = [result.panel(m) for m in d.standing]
@@ -354,16 +358,16 @@ def test_forecast_dates_need_a_start_date(tmp_path):
 
 def test_forecast_file_missing_is_an_error_naming_it(tmp_path):
     site = parse(TINY_TOML).site
-    result = evaluate(site)
-    with pytest.raises(SiteFileError, match="cannot read the forecast file"):
-        schedule.build_days(site, result.panels, tmp_path / "elsewhere")
+    panels = evaluate(no_forecast()).panels
+    with pytest.raises(SiteFileError, match="elsewhere/wx.csv: cannot read the forecast file"):
+        schedule.build_days(site, panels, tmp_path / "elsewhere")
 
 
 def test_forecast_path_is_relative_to_the_site_folder(tmp_path):
     """The same site read from another working folder finds its forecast beside it."""
     write_tiny(tmp_path)
     site = parse(TINY_TOML).site
-    days, _, _ = schedule.build_days(site, evaluate(site).panels, tmp_path)
+    days, _, _ = schedule.build_days(site, evaluate(no_forecast()).panels, tmp_path)
     assert days[0].forecast_gust_mph == 20.0
 
 
@@ -398,7 +402,7 @@ def test_zone_of_an_unplaced_wall_matches_the_plan_rule():
 def test_whole_site_when_no_lift_days():
     """No lift days: day 0 has every wall standing and the site's whole inventory."""
     toml = "\n".join(line for line in TINY_TOML.splitlines() if not line.startswith("lift_day"))
-    site = parse(toml).site
+    site = no_forecast(toml)
     result = evaluate(site)
     assert schedule.build_days(site, result.panels) == ([], {"braces": {}, "anchors": {}}, [])
     d = schedule.whole_site(site, result.panels)
@@ -425,7 +429,7 @@ def test_json_record_has_days_and_peak_inventory(tiny):
 # --- a property: the inventory is the count over walls, whatever the schedule -------------------
 @pytest.fixture(scope="module")
 def evaluated():
-    site = parse(TINY_TOML).site
+    site = no_forecast()
     return site, evaluate(site).panels
 
 
@@ -443,8 +447,7 @@ def test_inventory_is_the_count_of_walls_in_use(evaluated, lifts, signs, event):
         "signoffs": [site0.signoffs[0].model_copy(update={"panel": p.mark, "day": s})
                      for p, s in zip(site0.panels, signs) if s is not None],
         "panels": [p.model_copy(update={"lift_day": n, "release_after": ["roof-1"]})
-                   for p, n in zip(site0.panels, lifts)],
-        "forecast": None})
+                   for p, n in zip(site0.panels, lifts)]})
     days, peak, _ = schedule.build_days(site, panels)
     count = {p.mark: p.bracing.count if p.bracing else 0 for p in site.panels}
     for d in days:

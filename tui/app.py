@@ -11,6 +11,7 @@ from __future__ import annotations
 import re
 import sys
 from pathlib import Path
+from typing import ClassVar
 
 from textual import on, work
 from textual.app import App, ComposeResult
@@ -59,8 +60,9 @@ WIDGET_KEYS = (
 
 
 def compute(site_file: SiteFile) -> SiteResult:
-    """The engine's result for a site file (the interface computes nothing itself)."""
-    return evaluate(site_file.site)
+    """The engine's result for a site file (the interface computes nothing itself); the
+    forecast file is read from the site file's folder."""
+    return evaluate(site_file.site, base_dir=Path(site_file.path).parent)
 
 
 def problems_text(exc: SiteFileError) -> str:
@@ -75,7 +77,7 @@ class BracingApp(App[int]):
     CSS_PATH = "app.tcss"
     TITLE = "Wall bracing"
     ENABLE_COMMAND_PALETTE = False
-    BINDINGS = [
+    BINDINGS: ClassVar[list[Binding]] = [
         Binding("1", "show('walls')", "Walls", tooltip="every wall, worst first, with filters"),
         Binding("2", "show('wall')", "Wall", tooltip="one wall: inputs, checks, drawings"),
         Binding("3", "show('day')", "Day", tooltip="a day: lifts, inventory, go / no-go"),
@@ -134,6 +136,7 @@ class BracingApp(App[int]):
         self.generation = 0
         self.view = "walls"
         self.quit_after_save = False
+        self.edit_next = False
 
     def compose(self) -> ComposeResult:
         with Vertical(id="banner"):
@@ -142,24 +145,29 @@ class BracingApp(App[int]):
                 BracingApp.result, BracingApp.file_name, BracingApp.dirty, BracingApp.busy,
                 BracingApp.units)
         with TabbedContent(initial="walls", id="views"):
-            with TabPane(VIEWS["walls"], id="walls"):
-                yield WallsView(id="walls-view").data_bind(BracingApp.result, BracingApp.units)
-            with TabPane(VIEWS["wall"], id="wall"):
-                yield WallView(id="wall-view").data_bind(
-                    BracingApp.result, BracingApp.site_file, BracingApp.mark, BracingApp.units,
-                    BracingApp.errors)
-            with TabPane(VIEWS["day"], id="day"):
-                yield DayView(id="day-view").data_bind(
-                    BracingApp.result, BracingApp.site_file, BracingApp.day, BracingApp.units)
-            with TabPane(VIEWS["plan"], id="plan"):
-                yield PlanView(id="plan-view").data_bind(
-                    BracingApp.result, BracingApp.day, BracingApp.units)
-            with TabPane(VIEWS["settings"], id="settings"):
-                yield SettingsView(id="settings-view").data_bind(
-                    BracingApp.result, BracingApp.site_file, BracingApp.errors)
-            with TabPane(VIEWS["keys"], id="keys"):
-                yield KeysView(id="keys-view").data_bind(BracingApp.keys)
+            for view, title in VIEWS.items():
+                with TabPane(title, id=view):
+                    if view == "walls":
+                        yield self.make_view(view)
         yield Footer()
+
+    def make_view(self, view: str):
+        """A view, its attributes bound to the app's (a view is built when first shown)."""
+        app = BracingApp
+        if view == "walls":
+            return WallsView(id="walls-view").data_bind(app.result, app.site_file, app.units)
+        if view == "wall":
+            return WallView(id="wall-view").data_bind(app.result, app.site_file, app.mark,
+                                                      app.units, app.errors)
+        if view == "day":
+            return DayView(id="day-view").data_bind(app.result, app.site_file, app.day,
+                                                    app.units)
+        if view == "plan":
+            return PlanView(id="plan-view").data_bind(app.result, app.day, app.units)
+        if view == "settings":
+            return SettingsView(id="settings-view").data_bind(app.result, app.site_file,
+                                                              app.errors)
+        return KeysView(id="keys-view").data_bind(app.keys)
 
     def on_mount(self) -> None:
         self.query_one("#walls-table").focus()
@@ -192,18 +200,32 @@ class BracingApp(App[int]):
         return True
 
     @on(TabbedContent.TabActivated)
-    def _tab(self, event: TabbedContent.TabActivated) -> None:
+    async def _tab(self, event: TabbedContent.TabActivated) -> None:
         self.view = event.pane.id or "walls"
+        if not event.pane.children:
+            await event.pane.mount(self.make_view(self.view))
         self.refresh_bindings()
         self.call_after_refresh(self._focus_view)
 
     def _focus_view(self) -> None:
+        if self.edit_next and self.view in ("wall", "settings"):
+            self.edit_next = False
+            form = "#wall-form" if self.view == "wall" else "#settings-form"
+            fields = self.query(f"{form} Input, {form} Select")
+            if fields:
+                fields.first().focus()
+                return
         target = self.query(FOCUS[self.view])
         if target:
             target.first().focus()
 
     def action_show(self, view: str) -> None:
-        self.query_one(TabbedContent).active = view
+        tabs = self.query_one(TabbedContent)
+        if tabs.active == view:
+            self._focus_view()
+            return
+        self.screen.set_focus(None)  # focus left in the old view would bring it back
+        tabs.active = view
 
     def action_step(self, delta: int) -> None:
         """The next or previous wall (worst first) or day."""
@@ -219,15 +241,12 @@ class BracingApp(App[int]):
                 self.day = days[max(0, min(len(days) - 1, k + delta))]
 
     def action_edit(self) -> None:
-        if self.view not in ("wall", "settings"):
+        """Go to the first input of the Wall view (or of Settings when it is on view)."""
+        self.edit_next = True
+        if self.view in ("wall", "settings"):
+            self.call_after_refresh(self._focus_view)
+        else:
             self.action_show("wall")
-        form = "#wall-form" if self.view != "settings" else "#settings-form"
-
-        def first_field() -> None:
-            inputs = self.query(f"{form} Input, {form} Select")
-            if inputs:
-                inputs.first().focus()
-        self.call_after_refresh(first_field)
 
     def action_leave_field(self) -> None:
         if isinstance(self.focused, (Input, Select)):
@@ -281,7 +300,7 @@ class BracingApp(App[int]):
     def _evaluate(self, generation: int, site_file: SiteFile) -> None:
         try:
             result = compute(site_file)
-        except Exception as exc:  # an engine failure must not take the interface down
+        except Exception as exc:  # noqa: BLE001 - an engine failure must not end the session
             self.call_from_thread(self._failed, generation, exc)
             return
         self.call_from_thread(self._computed, generation, result)

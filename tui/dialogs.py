@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import ClassVar
 
 from textual import on
 from textual.app import ComposeResult
@@ -10,6 +11,8 @@ from textual.binding import Binding
 from textual.containers import Horizontal, Vertical
 from textual.screen import ModalScreen
 from textual.widgets import Button, Input, Label, RadioButton, RadioSet, Select, Static
+
+from tui.views import choice
 
 FORMATS = (("html", "HTML (print it)"), ("csv", "CSV (a spreadsheet)"), ("text", "plain text"))
 EXTENSIONS = {"html": "html", "csv": "csv", "text": "txt"}
@@ -19,7 +22,7 @@ EVERY_DAY = -1
 class UnsavedChanges(ModalScreen[str]):
     """Quit with unsaved changes: save them, drop them or stay."""
 
-    BINDINGS = [Binding("escape", "dismiss('stay')", "Stay"),
+    BINDINGS: ClassVar[list[Binding]] = [Binding("escape", "dismiss('stay')", "Stay"),
                 Binding("s", "dismiss('save')", "Save and quit"),
                 Binding("d", "dismiss('drop')", "Quit without saving")]
 
@@ -39,7 +42,7 @@ class UnsavedChanges(ModalScreen[str]):
 class SaveAs(ModalScreen[str | None]):
     """Ask for the path to save the site file to."""
 
-    BINDINGS = [Binding("escape", "dismiss(None)", "Cancel")]
+    BINDINGS: ClassVar[list[Binding]] = [Binding("escape", "dismiss(None)", "Cancel")]
 
     def __init__(self, path: str):
         super().__init__()
@@ -81,7 +84,7 @@ class ExportRequest:
 class Export(ModalScreen[ExportRequest | None]):
     """Choose the format, the day and the file for the crew's schedule."""
 
-    BINDINGS = [Binding("escape", "dismiss(None)", "Cancel")]
+    BINDINGS: ClassVar[list[Binding]] = [Binding("escape", "dismiss(None)", "Cancel")]
 
     def __init__(self, stem: str, days: list[tuple[str, int]], day: int | None):
         super().__init__()
@@ -99,8 +102,7 @@ class Export(ModalScreen[ExportRequest | None]):
                 yield Label("Day", classes="field-label")
                 options = [("every day", EVERY_DAY)] + self.days
                 value = self.day if any(v == self.day for _, v in self.days) else EVERY_DAY
-                yield Select(options, value=value, allow_blank=False, compact=True,
-                             id="export-day")
+                yield choice(options, value=value, allow_blank=False, id="export-day")
             with Horizontal(classes="dialog-line"):
                 yield Label("File", classes="field-label")
                 yield Input(self._path("html"), id="export-path", compact=True)

@@ -8,6 +8,7 @@ legend that prints the real values beside the symbols.
 from __future__ import annotations
 
 from collections.abc import Iterable, Sequence
+from itertools import pairwise
 
 from bracing.report.text import fmt
 
@@ -68,7 +69,7 @@ class Canvas:
 
 def section(height_ft: float, thickness_in: float, braces: dict | None,
             footing: tuple[float, float] | None, resultant_ft: float | None,
-            units: str = "us", cols: int = 36, rows: int = 14) -> list[str]:
+            units: str = "us", cols: int = 32, rows: int = 14) -> list[str]:
     """The wall cut across: wall, footing, brace, insert, foot anchor, with a legend.
 
     `braces` is PanelResult.braces (angle, insert height, anchor distance, length, count);
@@ -129,7 +130,7 @@ def section(height_ft: float, thickness_in: float, braces: dict | None,
 
 def elevation(width_ft: float, height_ft: float, positions_ft: Sequence[float],
               insert_ft: float | None, openings: Iterable[tuple[float, float, float, float]],
-              resultant_ft: float | None, units: str = "us", cols: int = 40,
+              resultant_ft: float | None, units: str = "us", cols: int = 32,
               rows: int = 12) -> list[str]:
     """The wall's face: outline, openings (x, y, width, height in ft), brace positions."""
     sx = (cols - 4) / width_ft
@@ -213,7 +214,7 @@ class PlanCanvas(Canvas):
 PLAN_SYMBOLS = (
     ("█", "wall standing"), ("□", "wall not yet standing"), ("•", "brace"),
     ("▲", "slab anchor"), ("◆", "ground anchor"), ("░", "fall zone"),
-    ("#", "area kept clear"), ("·", "slab edge"), ("x", "slab hole"), ("┆", "slab joint"),
+    ("#", "named area (below)"), ("·", "slab edge"), ("x", "slab hole"), ("┆", "slab joint"),
     ("~", "open ground"), ("!", "finding"),
 )
 AREA_WORDS = {"keep_clear": "keep clear", "crane_path": "crane path", "public_way": "public way",
@@ -231,7 +232,7 @@ def pick_plan(plan, day: int | None):
     return plan
 
 
-def plan(g, cols: int = 100, rows: int = 30) -> list[str]:
+def plan(g, cols: int = 100, rows: int = 30, units: str = "us") -> list[str]:
     """The site in plan from a `bracing.plan.PlanGeometry`: what stands that day, its braces,
     anchors and zones, the areas kept clear, with a legend and the plan's findings."""
     canvas = PlanCanvas(g.bounds, cols, rows)
@@ -245,7 +246,7 @@ def plan(g, cols: int = 100, rows: int = 30) -> list[str]:
     for hole in g.slab_holes:
         canvas.ring(hole, "x", over=" ░·~")
     for joint in g.joints:
-        for a, b in zip(joint, joint[1:]):
+        for a, b in pairwise(joint):
             canvas.segment(a, b, "┆", over=" ░")
     for area in g.areas:
         canvas.ring(area.coords, "#", over=" ░·~┆")
@@ -272,7 +273,8 @@ def plan(g, cols: int = 100, rows: int = 30) -> list[str]:
             canvas.text(start, row, label)
     used = set("".join(canvas.lines()))
     legend = "  ".join(f"{ch} {words}" for ch, words in PLAN_SYMBOLS if ch in used)
-    scale = f"one column = {1 / canvas.scale:.1f} ft, one row = {CELL_ASPECT / canvas.scale:.1f} ft"
+    scale = (f"one column = {fmt(1 / canvas.scale, 'ft', units, 1)}, one row = "
+             f"{fmt(CELL_ASPECT / canvas.scale, 'ft', units, 1)}")
     out = canvas.lines() + ["", legend, scale + "; north is up"]
     for a in g.areas:
         out.append(f"# {AREA_WORDS.get(a.kind, a.kind)}: {a.name}")

@@ -61,6 +61,11 @@ def speed(value: float | None, units: str) -> str:
     return fmt(value, "mph", units)
 
 
+def choice(options, **kwargs) -> Select:
+    """A one-line list of choices; letters and digits stay free for the app's keys."""
+    return Select(options, compact=True, type_to_search=False, **kwargs)
+
+
 def set_options(select: Select, options: list[tuple[str, object]], value) -> None:
     """Give a Select new options only when they change, and a value only when it is offered."""
     if getattr(select, "_offered", None) != options:
@@ -133,8 +138,8 @@ class FieldRow(Vertical):
             if s.kind == "fixed":
                 yield Static(s.value, classes="field-fixed")
             elif s.kind == "choice":
-                yield Select([(c, c) for c in s.choices], value=s.value or Select.NULL,
-                             allow_blank=not s.value, prompt="not set", compact=True)
+                yield choice([(c, c) for c in s.choices], value=s.value or Select.NULL,
+                             allow_blank=not s.value, prompt="not set")
             else:
                 yield Input(s.value, placeholder=f"not set ({s.hint})" if s.hint else "not set",
                             compact=True, select_on_focus=False)
@@ -214,6 +219,7 @@ class WallsView(Vertical):
             self.mark = mark
 
     result = reactive(None, always_update=True, init=False)
+    site_file = reactive(None, always_update=True, init=False)
     units = reactive("us", init=False)
 
     COLUMNS = ("Status", "Wall", "Material", "Utilization", "Governing element",
@@ -222,16 +228,16 @@ class WallsView(Vertical):
     def compose(self) -> ComposeResult:
         with Horizontal(id="walls-filters"):
             yield Label("Day", classes="filter-label")
-            yield Select([("every day", ALL)], value=ALL, allow_blank=False, compact=True,
+            yield choice([("every day", ALL)], value=ALL, allow_blank=False,
                          id="filter-day")
             yield Label("Status", classes="filter-label")
-            yield Select([("every status", ALL)] + [(STATUS_LOOK[s][1].lower(), s)
+            yield choice([("every status", ALL)] + [(STATUS_LOOK[s][1].lower(), s)
                                                     for s in STATUSES],
-                         value=ALL, allow_blank=False, compact=True, id="filter-status")
+                         value=ALL, allow_blank=False, id="filter-status")
             yield Label("Material", classes="filter-label")
-            yield Select([("every material", ALL)] + [(m, m) for m in
+            yield choice([("every material", ALL)] + [(m, m) for m in
                                                       ("concrete", "masonry", "framed")],
-                         value=ALL, allow_blank=False, compact=True, id="filter-material")
+                         value=ALL, allow_blank=False, id="filter-material")
             yield Static("", id="walls-count")
         yield DataTable(id="walls-table", cursor_type="row", zebra_stripes=True)
 
@@ -245,6 +251,9 @@ class WallsView(Vertical):
         select = self.query_one("#filter-day", Select)
         set_options(select, [("every day", ALL)] + days,
                     select.value if select.value != Select.NULL else ALL)
+        self.refill()
+
+    def watch_site_file(self) -> None:
         self.refill()
 
     def watch_units(self) -> None:
@@ -294,11 +303,9 @@ class WallsView(Vertical):
         self.query_one("#walls-count", Static).update(f"{len(panels)} of {total} walls")
 
     def _lift_days(self) -> dict[str, str]:
-        out: dict[str, str] = {}
-        for d in self.result.days if self.result else []:
-            for mark in d.lifts:
-                out.setdefault(mark, str(d.day))
-        return out
+        """Each wall's lift day as the site file gives it."""
+        panels = self.site_file.site.panels if self.site_file is not None else []
+        return {p.mark: str(p.lift_day) for p in panels if p.lift_day is not None}
 
     @on(DataTable.RowSelected)
     def _open(self, event: DataTable.RowSelected) -> None:
@@ -327,7 +334,7 @@ class WallView(Horizontal):
         with VerticalScroll(id="wall-inputs"):
             with Horizontal(classes="field-line"):
                 yield Label("Wall", classes="field-label")
-                yield Select([], prompt="choose a wall", compact=True, id="wall-select")
+                yield choice([], prompt="choose a wall", id="wall-select")
             yield Static("Enter applies a value; Esc puts it back.", classes="hint")
             yield Form(id="wall-form").data_bind(WallView.errors)
         with VerticalScroll(id="wall-results"):
@@ -463,7 +470,7 @@ class DayPicker(Horizontal):
 
     def compose(self) -> ComposeResult:
         yield Label("Day", classes="filter-label")
-        yield Select([], prompt="no days in the schedule", compact=True)
+        yield choice([], prompt="no days in the schedule")
         yield Static("", classes="day-verdict")
 
     def watch_result(self) -> None:
@@ -487,11 +494,19 @@ class DayPicker(Horizontal):
 
 
 def verdict_text(d) -> Text:
+    """Go / no-go in a word and a symbol; undecided when the engine had no forecast to compare."""
     if d.go is True:
         return Text("✓ GO", style="bold green")
     if d.go is False:
         return Text("✗ NO-GO", style="bold red")
-    return Text("? no forecast: decide on the morning's forecast gust", style="bold yellow")
+    return Text("? NOT DECIDED", style="bold yellow")
+
+
+def shortage(d, kind: str, name: str) -> int:
+    """How many of a type the day is short (DayResult.short, by kind or flat)."""
+    by_kind = d.short.get("braces" if kind == "brace" else "anchors")
+    table = by_kind if isinstance(by_kind, dict) else d.short
+    return int(table.get(name, 0) or 0)
 
 
 NO_SCHEDULE = ("No days to show: the site file gives no lift days, or the schedule is not "
@@ -544,21 +559,28 @@ class DayView(Vertical):
         out.append(f"Day {d.day}" + (f", {d.date}" if d.date else "") + ": ", style="bold")
         out.append_text(verdict_text(d))
         out.append(f"  {d.reason}\n" if d.reason else "\n")
-        out.append(f"Forecast gust {speed(d.forecast_gust_mph, units)}"
+        forecast = ("no forecast gust" if d.forecast_gust_mph is None else
+                    f"forecast gust {speed(d.forecast_gust_mph, units)}")
+        out.append(forecast.capitalize()
                    + ("  (thunderstorm warning: counts as exceeding)" if d.storm else "")
-                   + f" against the stand-down gust {speed(d.stand_down_speed_mph, units)}"
+                   + f"; stand-down gust {speed(d.stand_down_speed_mph, units)}"
                    + (f" (governing wall {d.governing_wall})" if d.governing_wall else "")
                    + f"; working limit {speed(d.working_limit_speed_mph, units)}\n")
         out.append(f"Lifts ({len(d.lifts)}): {', '.join(d.lifts) or 'none'}\n")
         out.append(f"Walls standing ({len(d.standing)}): {', '.join(d.standing) or 'none'}\n")
         out.append(f"Released ({len(d.released)}): {', '.join(d.released) or 'none'}")
+        peak = self.result.peak_inventory
+        if any(peak.get(k) for k in ("braces", "anchors")):
+            most = ", ".join(f"{n} {name}" for k in ("braces", "anchors")
+                             for name, n in peak.get(k, {}).items())
+            out.append(f"\nMost in use on any day of the job: {most}")
         summary.update(out)
         site = self.site_file.site if self.site_file is not None else None
         for kind, used, stock in (("brace", d.braces_in_use, site and site.brace_types),
                                   ("anchor", d.anchors_in_use, site and site.anchor_types)):
             for name, n in used.items():
                 on_hand = stock[name].on_hand if stock and name in stock else None
-                short = d.short.get(name, 0)
+                short = shortage(d, kind, name)
                 table.add_row(name, kind, str(n), "-" if on_hand is None else str(on_hand),
                               Text(f"✗ {short} short", style="bold red") if short
                               else Text("✓ enough", style="green"))
@@ -603,7 +625,7 @@ class PlanView(Vertical):
             return
         cols = max(self.size.width - 4, 40)
         rows = max(self.size.height - 8, 12)
-        lines = drawing.plan(plan, cols, rows)
+        lines = drawing.plan(plan, cols, rows, self.units)
         if plan.day is None:
             lines.insert(0, "Every wall placed (the result holds no plan of each day).")
         elif plan.day != self.day:

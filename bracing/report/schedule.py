@@ -197,9 +197,11 @@ def _release(site: Site, mark: str, day: int) -> str:
 
 
 def _flags(d: DayResult, walls: list[PanelResult]) -> list[tuple[str, str, str, str]]:
-    """The day's flags, then the standing walls' danger and warning flags, worst first."""
+    """The day's flags, then the standing walls' danger and warning flags (their schedule flags
+    are among the day's flags of the day they happen), worst first."""
     items = [(f, "") for f in d.flags]
-    items += [(f, p.mark) for p in walls for f in p.flags if f.severity != "notice"]
+    items += [(f, p.mark) for p in walls for f in p.flags
+              if f.severity != "notice" and f.code not in schedule.SCHEDULE_CODES]
     order = ("danger", "warning", "notice")
     items.sort(key=lambda item: order.index(item[0].severity))
     return [(FLAG_SYMBOL[f.severity], f.severity.upper(),
@@ -230,9 +232,9 @@ def _row(site: Site, p: PanelResult, bracing, d: DayResult, zone: tuple, units: 
     row.anchor_distance = fmt(b["anchor_distance_ft"], "ft", units, 1)
     row.length = fmt(b["length_ft"], "ft", units, 2)
     row.angle = f"{b['angle_deg']:.0f}°"
-    row.brace_type = gear.brace_type or ""
-    row.wall_anchor = gear.wall_anchor or ""
-    row.foot_anchor = gear.foot_anchor or ""
+    row.brace_type = gear.brace_type or "not named"
+    row.wall_anchor = gear.wall_anchor or "none"
+    row.foot_anchor = gear.foot_anchor or "none"
     torque = b.get("installation_torque_ftlb")
     row.torque = fmt(torque, "ft*lbf", units) if torque is not None else ""
     row.numbers.update(
