@@ -321,10 +321,9 @@ def _strip_loads(walls, wind, bs, minimum_psf, s, b, b_over_s, s_over_h):
     cf = np.where(walls.solidity[i][:, None] >= 0.7, cf, asce7.cf_open(walls.solidity[i])[:, None])
     strip = np.maximum(wind.q[i][:, None] * asce7.GUST_FACTOR * cf * ss * width,
                        (minimum_psf or 0.0) * ss * width)  # ASCE 7-16 Eq. 29.3-1 and §29.7
-    strip = np.where(bs.mask, strip, 0.0)
     # strips follow the sorted positions: map them back to each brace's own slot
     rank = np.argsort(np.argsort(np.where(bs.mask, bs.positions, np.inf), axis=1), axis=1)
-    return np.take_along_axis(strip, rank, axis=1)
+    return np.where(bs.mask, np.take_along_axis(strip, rank, axis=1), 0.0)
 
 
 SERVICEABILITY = {"wall cracking"}  # shown and flagged, not counted in the status or the speeds
@@ -372,6 +371,7 @@ def sources(brace_kind: str, foot_kind: str | None) -> dict[str, str]:
     return out
 
 
+@np.errstate(divide="ignore", invalid="ignore", over="ignore")  # infinities and NaN mean 'fails'
 def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads | None = None):
     """Demand and capacity of every braced element, worst brace of each wall (arrays over m).
 
@@ -387,7 +387,8 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
     # Self-weight bending (dead load adds) amplified by B1, AISC 360-16 Appendix 8 Eq. A-8-3.
     amplified = f.dead_adds * bs.self_weight_ratio / np.maximum(
         1.0 - bs.amplifier_alpha * p / bs.euler_load, 1e-9)
-    ratio = np.asarray(members.pipe_axial_bending_ratio(p, bs.compression, amplified, 1.0))
+    with np.errstate(divide="ignore", invalid="ignore"):  # a zero rating fails below, visibly
+        ratio = np.asarray(members.pipe_axial_bending_ratio(p, bs.compression, amplified, 1.0))
     comp_cap = np.where(bs.self_weight_ratio > 0, p / np.maximum(ratio, 1e-12), bs.compression)
     comp_cap = np.where(p > 0, comp_cap, bs.compression)
     checks = {

@@ -64,13 +64,18 @@ def brace_shares(total_h, force_lb, force_at_ft, wall_centre_ft, positions_ft, m
     twist = force_lb * (force_at_ft - xc) - (force_lb - total_h) * (wall_centre_ft - xc)
     with np.errstate(divide="ignore", invalid="ignore"):
         per_arm = np.where(polar > 0, twist / polar, 0.0)
-    # One brace alone cannot carry twist: its wall twists on the base (flagged by the caller).
-    return np.where(mask, (total_h / n)[..., None] + per_arm[..., None] * arm, np.nan)
+    # Braces at one point (a single brace) have no lever against twist, and the base is given
+    # none (design.md §6): any twist left is more than they can carry.
+    loose = (polar <= 0) & (np.abs(twist) > 1e-9 * (np.abs(force_lb) + np.abs(total_h) + 1.0))
+    share = np.where(loose, np.inf, total_h / n)
+    with np.errstate(invalid="ignore"):
+        return np.where(mask, share[..., None] + per_arm[..., None] * arm, np.nan)
 
 
 def axial_force(horizontal_lb, angle_deg):
     """Brace axial force from its horizontal reaction, P = R_h / cos(theta) (statics)."""
-    return horizontal_lb / np.cos(np.radians(angle_deg))
+    with np.errstate(over="ignore"):
+        return horizontal_lb / np.cos(np.radians(angle_deg))
 
 
 def components(axial_lb, angle_deg):

@@ -59,6 +59,10 @@ def design(site: Site, rows: list[int], walls, wind, factors, minimum_psf) -> li
     feet = options.foot_anchors or [None]
     combos = [(b, a, r, t) for b in options.brace_types for a in feet
               for r in ratios for t in angles]
+    if not combos or least > options.most_braces:
+        why = ("the site's brace angle range is empty" if not len(angles) else
+               f"the minimum of {least} braces is above most_braces ({options.most_braces})")
+        return [Design(w, None, np.inf, "", f"no layout can be tried: {why}") for w in rows]
     pending = np.array(rows)
     best: dict[int, Design] = {}
     for count in range(least, options.most_braces + 1):

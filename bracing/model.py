@@ -336,6 +336,15 @@ class Bracing(Strict):
             raise ValueError("give exactly one of anchor_distance or angle")
         if self.positions and len(self.positions) != self.count:
             raise ValueError(f"{len(self.positions)} positions for {self.count} braces")
+        if len(set(self.positions)) < len(self.positions):
+            raise ValueError("two braces at the same position")
+        rise = self.insert_height - self.base_below_slab - self.foot_offset / 12.0
+        if rise <= 0:
+            raise ValueError("insert_height is not above the brace foot (base_below_slab and "
+                             "foot_offset leave no rise)")
+        if self.anchor_distance is not None and self.anchor_distance <= self.insert_offset / 12.0:
+            raise ValueError("anchor_distance is not beyond the insert_offset: the brace has no "
+                             "run")
         return self
 
 

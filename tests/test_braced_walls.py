@@ -8,6 +8,7 @@ from dataclasses import replace
 
 import numpy as np
 import pytest
+from pydantic import ValidationError
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
@@ -168,17 +169,13 @@ def _without_each_brace(p: dict) -> list[dict]:
              "bracing": {**b, "count": n - 1, "positions": x[:k] + x[k + 1:]}} for k in range(n)]
 
 
-STRIP_BUG = pytest.mark.xfail(strict=True, reason=(
-    "engine bug, braced._strip_forces: with a brace other than the last one masked out, the "
-    "slot mask is applied to strips still in sorted order; fix: apply "
-    "`strip = np.where(bs.mask, strip, 0.0)` after the `np.take_along_axis` back to slots"))
 
 
 def _one_missing_cases():
     by_mark = {p["mark"]: p for p in LIMIT_SITE}
     return [pytest.param(by_mark["T-5"], id="rigid panel, uneven positions"),
             pytest.param(by_mark["M-1"], id="masonry, even positions"),
-            pytest.param(by_mark["F-1"], id="framed, uneven positions", marks=STRIP_BUG)]
+            pytest.param(by_mark["F-1"], id="framed, uneven positions")]
 
 
 @pytest.mark.parametrize("p", _one_missing_cases())
@@ -190,7 +187,6 @@ def test_one_missing_limit_is_the_worst_wall_rebraced_without_one_brace(p):
     assert e.braced_limit_missing[0] == pytest.approx(rebraced.min(), rel=1e-6)
 
 
-@STRIP_BUG
 def test_forces_of_a_wall_built_in_place_ignore_an_empty_slot(limits):
     site, e = limits
     r = [site.panels[i].mark for i in e.braces.index].index("F-1")
@@ -201,6 +197,7 @@ def test_forces_of_a_wall_built_in_place_ignore_an_empty_slot(limits):
     packed = np.zeros_like(one.positions)  # the other three in the first three slots
     packed[0, :n - 1] = one.positions[0, 1:n]
     first = np.arange(one.mask.shape[1])[None, :] < n - 1
+    # 0.75 x 115 mph (ASCE 37-14 Table 6.2-1, from memory), 16 psf (ASCE 7-16 §29.7, from memory)
     wind = ev.wind_on(e.walls, 86.25, asce7.KD_WALLS, 16.0)
     f = ev.COMBINATIONS["ASD"]
     _, with_hole = braced.braced_checks(e.walls, wind, replace(one, mask=holed), f, 16.0)
@@ -213,13 +210,13 @@ def test_forces_of_a_wall_built_in_place_ignore_an_empty_slot(limits):
 
 
 # --- twist that no brace pattern can carry ---------------------------------------------------
-@pytest.mark.xfail(strict=True, reason=(
-    "engine bug, braces.brace_shares: braces that all stand at one point (or a single brace) "
-    "have no polar moment, and the twist of Case B is silently dropped instead of failing"))
-@pytest.mark.parametrize("bracing", [
-    pytest.param({"count": 2, "positions": [12.0, 12.0]}, id="two braces at one point"),
-    pytest.param({"count": 1}, id="a single brace"),
-])
+def test_two_braces_at_one_point_are_refused():
+    # design.md §6: braces at one point have no lever against the twist of Case B
+    with pytest.raises(ValidationError, match="same position"):
+        site_of([wall("P-1", insert_height=20.0, angle=55.0, count=2, positions=[12.0, 12.0])])
+
+
+@pytest.mark.parametrize("bracing", [pytest.param({"count": 1}, id="a single brace")])
 def test_braces_that_cannot_carry_twist_do_not_pass(bracing):
     rules = {"minimum_braces_per_panel": {"value": 2, "source": "common practice",
                                           "enabled": False}}

@@ -5,6 +5,7 @@ Brace and anchor ratings below are invented for the tests (a maker's data sheet 
 """
 
 import json
+from pathlib import Path
 
 import numpy as np
 import pytest
@@ -188,8 +189,8 @@ def test_weaker_braces_need_more_of_them(rated_lb, count):
 
 
 def test_designer_on_the_demo_site_end_to_end(capsys):
-    assert cli.main(["check", str(cli.Path(__file__).parents[1] / "scenarios" /
-                                  "demo-mixed.toml"), "--design", "--json"]) == 0
+    demo = Path(__file__).resolve().parents[1] / "scenarios" / "demo-mixed.toml"
+    assert cli.main(["check", str(demo), "--design", "--json"]) == 0
     panels = json.loads(capsys.readouterr().out)["panels"]
     designed = [p for p in panels if (p["braces"] or {}).get("designed")]
     assert designed, "the demo has walls that need braces and have none"
@@ -204,13 +205,8 @@ def test_designer_on_the_demo_site_end_to_end(capsys):
 
 
 # --- inconsistent rules and options: an answer, never a traceback ----------------------------
-INCONSISTENT = pytest.mark.xfail(strict=True, reason=(
-    "engine bug, layout.design: an empty grid (more braces required than allowed, or the angle "
-    "range inverted) raises KeyError / ValueError instead of a no-layout answer or a validation "
-    "error"))
 
 
-@INCONSISTENT
 @pytest.mark.parametrize(("rules", "most"), [
     pytest.param({"minimum_braces_per_panel": {"value": 4, "source": "engineer"}}, 3,
                  id="more braces required than allowed"),
@@ -225,9 +221,6 @@ def test_an_empty_design_grid_is_answered_not_raised(rules, most):
     assert [d.layout for d in found] == [None] and found[0].message
 
 
-@pytest.mark.xfail(strict=True, reason=(
-    "engine bug, braces.brace_shares: a single brace carries no twist, so with the minimum-"
-    "braces rule switched off the designer offers one brace that ignores Case B"))
 def test_designer_never_offers_a_layout_that_cannot_carry_twist():
     rules = {"minimum_braces_per_panel": {"value": 2, "source": "common practice",
                                           "enabled": False}}

@@ -90,6 +90,10 @@ class BracingApp(App[int]):
                 tooltip="previous wall (worst first) or day"),
         Binding("right_square_bracket", "step(1)", "Next", key_display="]",
                 tooltip="next wall (worst first) or day"),
+        Binding("plus,equals_sign", "zoom(2)", "Zoom in", key_display="+", show=False,
+                tooltip="zoom the plan in (x2, x4, x8)"),
+        Binding("minus", "zoom(0.5)", "Zoom out", key_display="-", show=False,
+                tooltip="zoom the plan out"),
         Binding("i", "edit", "Edit inputs", show=False, tooltip="go to the first input"),
         Binding("ctrl+z", "undo", "Undo", tooltip="undo the last change of a value"),
         Binding("ctrl+y", "redo", "Redo", show=False, tooltip="redo the change undone"),
@@ -176,7 +180,7 @@ class BracingApp(App[int]):
     @classmethod
     def key_list(cls) -> list[tuple[str, str, str]]:
         """Every key: the app's bindings, then the keys the widgets handle."""
-        where = {"step": "Wall, Day and Plan", "edit": "Wall and Settings"}
+        where = {"step": "Wall, Day and Plan", "edit": "Wall and Settings", "zoom": "Plan"}
         rows = []
         for b in cls.BINDINGS:
             keys = " / ".join(k.strip().replace("question_mark", "?")
@@ -193,6 +197,8 @@ class BracingApp(App[int]):
     def check_action(self, action: str, parameters: tuple) -> bool | None:
         if action == "step":
             return self.view in ("wall", "day", "plan")
+        if action == "zoom":
+            return self.view == "plan"
         if action == "undo":
             return True if self.undo_stack else None
         if action == "redo":
@@ -239,6 +245,10 @@ class BracingApp(App[int]):
             if days:
                 k = days.index(self.day) if self.day in days else -delta
                 self.day = days[max(0, min(len(days) - 1, k + delta))]
+
+    def action_zoom(self, factor: float) -> None:
+        view = self.query_one(PlanView)
+        view.zoom = int(min(8, max(1, view.zoom * factor)))
 
     def action_edit(self) -> None:
         """Go to the first input of the Wall view (or of Settings when it is on view)."""

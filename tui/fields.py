@@ -9,7 +9,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from bracing.model import DEFAULT_RULES
+from bracing.model import DEFAULT_RULES, SiteInfo
 from bracing.scenario import SiteFile
 
 
@@ -130,13 +130,19 @@ SITE_FIELDS = (
 def site_fields(site_file: SiteFile) -> list[FieldSpec]:
     """The site's wind basis, and the value of every rule the file itself sets."""
     node = site_file.document["site"]
-    specs = [FieldSpec(f"site-{key}".replace("_", "-"), label, ("site", key), kind,
-                       raw_text(node, key), hint, choices)
-             for key, label, kind, hint, choices in SITE_FIELDS]
+    specs = []
+    for key, label, kind, hint, choices in SITE_FIELDS:
+        default = SiteInfo.model_fields[key].default
+        if default is not None and not hint:
+            hint = f"{default:g} by default" if isinstance(default, float) else \
+                f"{default} by default"
+        specs.append(FieldSpec(f"site-{key}".replace("_", "-"), label, ("site", key), kind,
+                               raw_text(node, key), hint, choices))
     rules = site_file.document.get("rules", {})
     for name in DEFAULT_RULES:
         if name in rules and "value" in rules[name]:
-            specs.append(FieldSpec(f"rule-{name}".replace("_", "-"), name.replace("_", " "),
+            specs.append(FieldSpec(f"rule-{name}".replace("_", "-"),
+                                   name.replace("_", " ").capitalize(),
                                    ("rules", name, "value"), "number",
                                    raw_text(rules[name], "value")))
     return specs

@@ -11,7 +11,7 @@ import math
 from rich.text import Text
 from textual import on
 from textual.app import ComposeResult
-from textual.containers import Horizontal, Vertical, VerticalScroll
+from textual.containers import Horizontal, ScrollableContainer, Vertical, VerticalScroll
 from textual.message import Message
 from textual.reactive import reactive
 from textual.widgets import DataTable, Input, Label, Select, Static
@@ -96,10 +96,8 @@ class StatusLine(Static):
     def render(self) -> Text:
         out = Text()
         if self.result is not None:
-            out.append(self.result.name, style="bold")
-            counts = {s: sum(p.status == s for p in self.result.panels) for s in STATUSES}
-            out.append("  ·  ")
-            for status, n in counts.items():
+            for status in STATUSES:
+                n = sum(p.status == status for p in self.result.panels)
                 if n:
                     symbol, word, style = STATUS_LOOK[status]
                     out.append(f"{n} {symbol} {word.lower()}  ", style=style)
@@ -109,6 +107,8 @@ class StatusLine(Static):
         out.append(f"  ·  {self.units.upper()} units")
         if self.busy:
             out.append("  ·  recomputing…", style="italic")
+        if self.result is not None:
+            out.append(f"  ·  {self.result.name}", style="bold")
         return out
 
 
@@ -139,7 +139,8 @@ class FieldRow(Vertical):
                 yield Static(s.value, classes="field-fixed")
             elif s.kind == "choice":
                 yield choice([(c, c) for c in s.choices], value=s.value or Select.NULL,
-                             allow_blank=not s.value, prompt="not set")
+                             allow_blank=not s.value,
+                             prompt=f"not set ({s.hint})" if s.hint else "not set")
             else:
                 yield Input(s.value, placeholder=f"not set ({s.hint})" if s.hint else "not set",
                             compact=True, select_on_focus=False)
@@ -593,10 +594,11 @@ class PlanView(Vertical):
     result = reactive(None, always_update=True, init=False)
     day = reactive(None, init=False)
     units = reactive("us", init=False)
+    zoom = reactive(1, init=False)
 
     def compose(self) -> ComposeResult:
         yield DayPicker(id="plan-picker").data_bind(PlanView.result, PlanView.day)
-        with VerticalScroll(id="plan-body"):
+        with ScrollableContainer(id="plan-body"):
             yield Static("", id="plan-canvas")
 
     def on_mount(self) -> None:
@@ -614,6 +616,9 @@ class PlanView(Vertical):
     def watch_units(self) -> None:
         self._show()
 
+    def watch_zoom(self) -> None:
+        self._show()
+
     def _show(self) -> None:
         if not self.is_mounted:
             return
@@ -623,14 +628,16 @@ class PlanView(Vertical):
             canvas.update("No plan to draw: the site file gives no plan geometry, or the plan is "
                           "not available in this version of the engine.")
             return
-        cols = max(self.size.width - 4, 40)
-        rows = max(self.size.height - 8, 12)
+        cols = max(self.size.width - 4, 40) * self.zoom
+        rows = max(self.size.height - 8, 12) * self.zoom
         lines = drawing.plan(plan, cols, rows, self.units)
         if plan.day is None:
             lines.insert(0, "Every wall placed (the result holds no plan of each day).")
         elif plan.day != self.day:
             lines.insert(0, f"The plan of day {plan.day} (the result holds none for day "
                             f"{self.day}).")
+        lines.insert(0, f"Zoom x{self.zoom} (+ and - keys)" + (": scroll with the arrows or the "
+                                                                 "wheel" if self.zoom > 1 else ""))
         canvas.update(Text("\n".join(lines)))
 
 
