@@ -537,7 +537,8 @@ def basis_statement(site: Site) -> list[str]:
     return [
         f"Construction-stage wind: ASCE 37-14 applied with ASCE 7-16 wind (ASCE 37-14 was written "
         f"against ASCE 7-10); Risk Category {s.risk_category}; {factor}.",
-        f"Basic wind speed {s.basic_wind_speed:.0f} mph, exposure {s.exposure}, Kzt "
+        f"Basic wind speed {s.basic_wind_speed:.0f} mph ({s.basic_wind_speed * 0.44704:.1f} m/s), "
+        f"exposure {s.exposure}, Kzt "
         f"{s.topographic_factor:g}, ground elevation {s.ground_elevation:.0f} ft.",
         f"Load combinations: {site.site.design_basis} (ASCE 7-16 §2.4.1 / §2.3.1).",
         "Speeds the crew reads are peak 3-second gusts at 33 ft in open terrain (Kd 1.0, no "
@@ -679,10 +680,11 @@ def braced_flags(site, p, bs, r, checks, limit, stand_down, missing) -> list[Fla
         flags.append(Flag("unequal-sharing", "notice", "3 or more braces share unevenly through "
                           "slop unless pre-tensioned", "common practice"))
     if b.count == 2:
-        flags.append(Flag("two-braces", "notice", "if one of the two braces is struck, only "
-                          "friction at the base keeps the wall from twisting",
+        flags.append(Flag("no-margin", "warning", "if one of its two braces is struck, nothing "
+                          "but friction at the base holds the wall against twist (none is "
+                          "credited): keep equipment clear of the braces",
                           "design.md §6 robustness"))
-    if b.count >= 2 and not np.isnan(missing) and missing < stand_down:
+    elif b.count > 2 and not np.isnan(missing) and missing < stand_down:
         flags.append(Flag("no-margin", "warning", f"with one brace struck, the wall's limit "
                           f"falls to {missing:.0f} mph, below the stand-down gust "
                           f"{stand_down:.0f} mph", "design.md §6 robustness (team rule)"))

@@ -12,7 +12,7 @@ from textual.containers import Horizontal, Vertical
 from textual.screen import ModalScreen
 from textual.widgets import Button, Input, Label, RadioButton, RadioSet, Select, Static
 
-from tui.views import choice
+from tui.views import Choice
 
 FORMATS = (("html", "HTML (print it)"), ("csv", "CSV (a spreadsheet)"), ("text", "plain text"))
 EXTENSIONS = {"html": "html", "csv": "csv", "text": "txt"}
@@ -102,7 +102,7 @@ class Export(ModalScreen[ExportRequest | None]):
                 yield Label("Day", classes="field-label")
                 options = [("every day", EVERY_DAY)] + self.days
                 value = self.day if any(v == self.day for _, v in self.days) else EVERY_DAY
-                yield choice(options, value=value, allow_blank=False, id="export-day")
+                yield Choice(options, value=value, allow_blank=False, id="export-day")
             with Horizontal(classes="dialog-line"):
                 yield Label("File", classes="field-label")
                 yield Input(self._path("html"), id="export-path", compact=True)

@@ -16,6 +16,7 @@ from textual.message import Message
 from textual.reactive import reactive
 from textual.widgets import DataTable, Input, Label, Select, Static
 
+from bracing.model import DEFAULT_RULES
 from bracing.report.text import fmt
 from bracing.results import CAUTION, STATUSES
 from tui import drawing
@@ -61,18 +62,20 @@ def speed(value: float | None, units: str) -> str:
     return fmt(value, "mph", units)
 
 
-def choice(options, **kwargs) -> Select:
+class Choice(Select):
     """A one-line list of choices; letters and digits stay free for the app's keys."""
-    return Select(options, compact=True, type_to_search=False, **kwargs)
 
+    def __init__(self, options, **kwargs):
+        super().__init__(options, compact=True, type_to_search=False, **kwargs)
+        self.offered = list(options)
 
-def set_options(select: Select, options: list[tuple[str, object]], value) -> None:
-    """Give a Select new options only when they change, and a value only when it is offered."""
-    if getattr(select, "_offered", None) != options:
-        select._offered = options
-        select.set_options(options)
-    if any(v == value for _, v in options) and select.value != value:
-        select.value = value
+    def offer(self, options: list[tuple[str, object]], value) -> None:
+        """New options only when they change; a value only when it is offered."""
+        if options != self.offered:
+            self.offered = options
+            self.set_options(options)
+        if any(v == value for _, v in options) and self.value != value:
+            self.value = value
 
 
 class Caution(Static):
@@ -138,7 +141,7 @@ class FieldRow(Vertical):
             if s.kind == "fixed":
                 yield Static(s.value, classes="field-fixed")
             elif s.kind == "choice":
-                yield choice([(c, c) for c in s.choices], value=s.value or Select.NULL,
+                yield Choice([(c, c) for c in s.choices], value=s.value or Select.NULL,
                              allow_blank=not s.value,
                              prompt=f"not set ({s.hint})" if s.hint else "not set")
             else:
@@ -229,14 +232,14 @@ class WallsView(Vertical):
     def compose(self) -> ComposeResult:
         with Horizontal(id="walls-filters"):
             yield Label("Day", classes="filter-label")
-            yield choice([("every day", ALL)], value=ALL, allow_blank=False,
+            yield Choice([("every day", ALL)], value=ALL, allow_blank=False,
                          id="filter-day")
             yield Label("Status", classes="filter-label")
-            yield choice([("every status", ALL)] + [(STATUS_LOOK[s][1].lower(), s)
+            yield Choice([("every status", ALL)] + [(STATUS_LOOK[s][1].lower(), s)
                                                     for s in STATUSES],
                          value=ALL, allow_blank=False, id="filter-status")
             yield Label("Material", classes="filter-label")
-            yield choice([("every material", ALL)] + [(m, m) for m in
+            yield Choice([("every material", ALL)] + [(m, m) for m in
                                                       ("concrete", "masonry", "framed")],
                          value=ALL, allow_blank=False, id="filter-material")
             yield Static("", id="walls-count")
@@ -249,9 +252,9 @@ class WallsView(Vertical):
     def watch_result(self) -> None:
         days = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day)
                 for d in (self.result.days if self.result else [])]
-        select = self.query_one("#filter-day", Select)
-        set_options(select, [("every day", ALL)] + days,
-                    select.value if select.value != Select.NULL else ALL)
+        select = self.query_one("#filter-day", Choice)
+        select.offer([("every day", ALL)] + days,
+                     select.value if select.value != Select.NULL else ALL)
         self.refill()
 
     def watch_site_file(self) -> None:
@@ -335,7 +338,7 @@ class WallView(Horizontal):
         with VerticalScroll(id="wall-inputs"):
             with Horizontal(classes="field-line"):
                 yield Label("Wall", classes="field-label")
-                yield choice([], prompt="choose a wall", id="wall-select")
+                yield Choice([], prompt="choose a wall", id="wall-select")
             yield Static("Enter applies a value; Esc puts it back.", classes="hint")
             yield Form(id="wall-form").data_bind(WallView.errors)
         with VerticalScroll(id="wall-results"):
@@ -368,7 +371,7 @@ class WallView(Horizontal):
         if self.site_file is None:
             return
         marks = [p.mark for p in self.site_file.site.panels]
-        set_options(self.query_one("#wall-select", Select), [(m, m) for m in marks], self.mark)
+        self.query_one("#wall-select", Choice).offer([(m, m) for m in marks], self.mark)
         await self.query_one(Form).show(wall_fields(self.site_file, self.mark))
 
     @on(Select.Changed, "#wall-select")
@@ -471,7 +474,7 @@ class DayPicker(Horizontal):
 
     def compose(self) -> ComposeResult:
         yield Label("Day", classes="filter-label")
-        yield choice([], prompt="no days in the schedule")
+        yield Choice([], prompt="no days in the schedule")
         yield Static("", classes="day-verdict")
 
     def watch_result(self) -> None:
@@ -483,7 +486,7 @@ class DayPicker(Horizontal):
     def _sync(self) -> None:
         days = self.result.days if self.result is not None else []
         options = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day) for d in days]
-        set_options(self.query_one(Select), options, self.day)
+        self.query_one(Choice).offer(options, self.day)
         d = next((d for d in days if d.day == self.day), None)
         self.query_one(".day-verdict", Static).update(verdict_text(d) if d else "")
 
@@ -664,8 +667,6 @@ class SettingsView(VerticalScroll):
         if self.site_file is None:
             return
         await self.query_one(Form).show(site_fields(self.site_file))
-        from bracing.model import DEFAULT_RULES
-
         table = self.query_one(DataTable)
         table.clear()
         site = self.site_file.site

@@ -4,7 +4,7 @@ from __future__ import annotations
 
 import math
 
-from bracing.results import SEVERITIES, STATUSES, Check, PanelResult, SiteResult
+from bracing.results import SEVERITIES, STATUSES, Check, Flag, PanelResult, SiteResult
 from bracing.units import convert
 
 SYMBOL = {"danger": "!!", "warning": "! ", "notice": "- "}
@@ -53,9 +53,33 @@ def panel_text(p: PanelResult, system: str = "us") -> list[str]:
         f"  unbraced: utilization {u.utilization:.2f}; tallest unbraced at design wind "
         f"{fmt(u.max_height_ft, 'ft', system, 1)}",
     ]
+    if p.braces:
+        lines += brace_lines(p.braces, system)
     for f in p.flags_worst_first():
         lines.append(f"  {SYMBOL[f.severity]} {f.severity.upper()}: {f.message} [{f.source}]")
     lines += [check_line(c, system) for c in p.worst_first()]
+    return lines
+
+
+def brace_lines(b: dict, system: str) -> list[str]:
+    """The bracing layout as the crew sets it out."""
+    at = ", ".join(fmt(x, "ft", system, 1) for x in b["positions_ft"])
+    hardware = " / ".join(str(b[k]) for k in ("brace_type", "wall_anchor", "foot_anchor")
+                          if b.get(k))
+    lines = [
+        f"  braces: {b['count']}{' (designed)' if b.get('designed') else ''}"
+        f"{f' [{hardware}]' if hardware else ''} at {at} from the first edge; insert "
+        f"{fmt(b['insert_height_ft'], 'ft', system, 2)}, foot "
+        f"{fmt(b['anchor_distance_ft'], 'ft', system, 2)} from the face, angle "
+        f"{b['angle_deg']:.1f} deg, length {fmt(b['length_ft'], 'ft', system, 2)}",
+        f"  governing brace force {fmt(b['axial_force_lb'], 'lbf', system)} (anchor uplift "
+        f"{fmt(b['anchor_uplift_lb'], 'lbf', system)}, pull {fmt(b['anchor_shear_lb'], 'lbf', system)});"
+        f" working limit with one brace struck "
+        f"{fmt(b.get('working_limit_one_missing_mph'), 'mph', system)}",
+    ]
+    if b.get("installation_torque_ftlb"):
+        lines.append(f"  helical anchors: install to at least "
+                     f"{fmt(b['installation_torque_ftlb'], 'ft*lbf', system)} (ICC-ES AC358)")
     return lines
 
 
@@ -68,11 +92,24 @@ def site_text(result: SiteResult, system: str = "us") -> str:
     lines.append("  " + ", ".join(f"{n} {s.replace('_', ' ')}" for s, n in counts.items() if n))
     failing = sorted(((p, c) for p in panels for c in p.checks if not c.passes),
                      key=lambda pc: -pc[1].utilization)
-    # flags that repeat a failing check ("...-over") are not listed twice
-    found = sorted(((p.mark, f) for p in panels for f in p.flags
-                    if f.severity != "notice" and not f.code.endswith("-over")),
-                   key=lambda mf: SEVERITY_RANK[mf[1].severity])
+    # flags that repeat a failing check ("...-over") are not listed twice; a warning that many
+    # walls share is listed once with their marks
+    found = [(p.mark, f) for p in panels for f in p.flags
+             if f.severity == "danger" and not f.code.endswith("-over")]
+    shared: dict[tuple, list[str]] = {}
+    for p in panels:
+        for f in p.flags:
+            if f.severity == "warning":
+                shared.setdefault((f.code, f.message if f.code != "no-margin" else ""),
+                                  []).append(p.mark)
+    for (code, _), marks in shared.items():
+        f = next(f for p in panels for f in p.flags if f.code == code and p.mark == marks[0])
+        if len(marks) > 1:
+            f = Flag(f.code, f.severity, f"{f.code} on {len(marks)} walls; for {marks[0]}: "
+                     f"{f.message}", f.source)
+        found.append((", ".join(marks), f))
     found += [("site", f) for f in result.flags if f.severity != "notice"]
+    found.sort(key=lambda mf: SEVERITY_RANK[mf[1].severity])
     if failing or found:
         lines += ["", f"DEFICIENCIES: {len(failing)} failing check(s), {len(found)} finding(s)"]
         for p, c in failing:
