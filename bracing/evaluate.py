@@ -315,7 +315,7 @@ def _ratio(demand, capacity):
 
 
 def solve_increasing(g, lo: float, hi: float, size: int, iterations: int = 60,
-                     tolerance: float = 1e-12) -> np.ndarray:
+                     tolerance: float = 1e-11) -> np.ndarray:
     """Root of an increasing g(x) on [lo, hi] for many walls at once; NaN where none in range.
 
     Illinois regula falsi (a bracketing secant step that halves a stale end's weight), falling
@@ -339,7 +339,8 @@ def solve_increasing(g, lo: float, hi: float, size: int, iterations: int = 60,
         fb = np.where(below & (side == 1), fb / 2.0, fb)
         fa = np.where(~below & (side == -1), fa / 2.0, fa)
         side = np.where(below, 1, -1)
-        if np.all((np.abs(gx) < tolerance) | (b - a < tolerance * (1.0 + np.abs(b)))):
+        settled = (np.abs(gx) < tolerance) | (b - a < tolerance * (1.0 + np.abs(b)))
+        if np.all(settled | (ga >= 0.0) | ~(gb >= 0.0)):  # walls without a root need no more
             break
     root = np.where(np.abs(fa) < np.abs(fb), a, b)
     root = np.where(ga >= 0.0, lo, root)
@@ -412,10 +413,11 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     geometry = None
     if places:
         if days:
-            geometry = {d.day: plan.plan_geometry(site, set(d.standing), day=d.day) for d in days}
+            standing = {d.day: d.standing for d in days}
+            geometry = plan.DayPlans(site, standing)
+            found = plan.day_findings(site, places, standing)
             for d in days:  # crossings and zone overlaps depend on the walls standing together
-                d.flags.extend(f.flag for f in geometry[d.day].findings
-                               if f.flag.code not in ANCHOR_FINDINGS)
+                d.flags.extend(f for f in found[d.day] if f.code not in ANCHOR_FINDINGS)
         else:
             geometry = plan.plan_geometry(site)
     return SiteResult(
@@ -499,8 +501,10 @@ def braced_limit(w: Walls, unit: Wind, bs: braced.BraceSet) -> np.ndarray:
 
 def braced_limit_one_missing(w: Walls, unit: Wind, bs: braced.BraceSet) -> np.ndarray:
     """The working-limit gust with the worst single brace missing (equipment strikes one)."""
-    rows, slots = np.nonzero(bs.mask & (bs.mask.sum(axis=1) >= 2)[:, None])
-    out = np.full(len(bs.index), np.nan)
+    count = bs.mask.sum(axis=1)
+    # One brace left cannot carry the twist of Case B (no base restraint credited, §6): 0 mph.
+    out = np.where(count == 2, 0.0, np.nan)
+    rows, slots = np.nonzero(bs.mask & (count >= 3)[:, None])
     if len(rows) == 0:
         return out
     variant = braced.take(bs, rows)

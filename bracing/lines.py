@@ -98,37 +98,47 @@ def line_loads(site: Site) -> LineLoads | None:
             breaks = np.concatenate([[0], np.cumsum(start[members][1:] - ends[:-1] > gap)])
             for g in np.unique(breaks):
                 groups[(name, g)] = members[breaks == g]
+        if not groups:  # every wall on the lines released that day
+            continue
         returns = _corner_returns(groups, lines, length, start, width)
-        for (name, _), members in groups.items():
-            lo = start[members].min()
-            hi = (start[members] + width[members]).max()
-            s = height[members]
-            b_over_s = (hi - lo) / s
-            s_over_h = s / top[members]
-            x0 = (start[members] - lo) / s
-            x1 = x0 + width[members] / s
-            ret_lo, ret_hi = returns.get((name, lo), 0.0), returns.get((name, hi), 0.0)
-            left, cx_left = asce7.case_c_mean(x0, x1, b_over_s, s_over_h, ret_lo / s)
-            right, cx_right = asce7.case_c_mean(b_over_s - x1, b_over_s - x0, b_over_s,
-                                                s_over_h, ret_hi / s)
-            grid = x0[:, None] + np.linspace(0.0, 1.0, 9)[None, :] * (x1 - x0)[:, None]
-            local = np.maximum(
-                asce7.case_c_cf(grid, b_over_s[:, None], s_over_h[:, None], ret_lo / s[:, None]),
-                asce7.case_c_cf(b_over_s[:, None] - grid, b_over_s[:, None], s_over_h[:, None],
-                                ret_hi / s[:, None]))
-            case_a = asce7.cf_cases_ab(b_over_s, s_over_h)
-            _keep(out, "case_a", members, case_a)
-            _keep(out, "local_max", members, local.max(axis=1))
-            _keep(out, "local_mid", members, local[:, 4])
-            # the panel's own x of each resultant: from its first edge
-            better = left > best_left[members]
-            out["left_mean"][members[better]] = left[better]
-            out["left_x"][members[better]] = (cx_left * s - (start[members] - lo))[better]
-            best_left[members[better]] = left[better]
-            better = right > best_right[members]
-            out["right_mean"][members[better]] = right[better]
-            out["right_x"][members[better]] = (hi - start[members] - cx_right * s)[better]
-            best_right[members[better]] = right[better]
+        # every group of the day in one vectorised pass: each member with its group's extent
+        members, lo, hi, ret_lo, ret_hi = [], [], [], [], []
+        for (name, _), m in groups.items():
+            g_lo = start[m].min()
+            g_hi = (start[m] + width[m]).max()
+            members.append(m)
+            lo.append(np.full(len(m), g_lo))
+            hi.append(np.full(len(m), g_hi))
+            ret_lo.append(np.full(len(m), returns.get((name, g_lo), 0.0)))
+            ret_hi.append(np.full(len(m), returns.get((name, g_hi), 0.0)))
+        members = np.concatenate(members)
+        lo, hi = np.concatenate(lo), np.concatenate(hi)
+        s = height[members]
+        ret_lo, ret_hi = np.concatenate(ret_lo) / s, np.concatenate(ret_hi) / s
+        b_over_s = (hi - lo) / s
+        s_over_h = s / top[members]
+        x0 = (start[members] - lo) / s
+        x1 = x0 + width[members] / s
+        left, cx_left = asce7.case_c_mean(x0, x1, b_over_s, s_over_h, ret_lo)
+        right, cx_right = asce7.case_c_mean(b_over_s - x1, b_over_s - x0, b_over_s, s_over_h,
+                                            ret_hi)
+        grid = x0[:, None] + np.linspace(0.0, 1.0, 9)[None, :] * (x1 - x0)[:, None]
+        local = np.maximum(
+            asce7.case_c_cf(grid, b_over_s[:, None], s_over_h[:, None], ret_lo[:, None]),
+            asce7.case_c_cf(b_over_s[:, None] - grid, b_over_s[:, None], s_over_h[:, None],
+                            ret_hi[:, None]))
+        _keep(out, "case_a", members, asce7.cf_cases_ab(b_over_s, s_over_h))
+        _keep(out, "local_max", members, local.max(axis=1))
+        _keep(out, "local_mid", members, local[:, 4])
+        # the resultant of each end's wind, from the panel's own first edge
+        better = left > best_left[members]
+        out["left_mean"][members[better]] = left[better]
+        out["left_x"][members[better]] = (cx_left * s - (start[members] - lo))[better]
+        best_left[members[better]] = left[better]
+        better = right > best_right[members]
+        out["right_mean"][members[better]] = right[better]
+        out["right_x"][members[better]] = (hi - start[members] - cx_right * s)[better]
+        best_right[members[better]] = right[better]
     return LineLoads(**out)
 
 

@@ -13,7 +13,8 @@ neighbour or the crane path.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from collections.abc import Mapping
+from dataclasses import dataclass, replace
 
 import numpy as np
 import shapely
@@ -109,6 +110,7 @@ class PlanFinding:
     mark: str
     flag: Flag
     at: list[Point]
+    others: tuple[str, ...] = ()  # other walls involved: it holds on days they all stand
 
 
 @dataclass(slots=True)
@@ -470,7 +472,7 @@ def _brace_crossings(t: _Braces) -> list[PlanFinding]:
                 "braces-cross", "danger", f"brace {t.number[me]} crosses brace "
                 f"{t.number[other]} of {t.mark[other]} at {_xy(xy)}, {h_me:.1f} ft and "
                 f"{h_other:.1f} ft above the slab there: one cannot be set as drawn",
-                "common practice (design.md §7)"), [xy]))
+                "common practice (design.md §7)"), [xy], (str(t.mark[other]),)))
     return found
 
 
@@ -488,7 +490,8 @@ def _braces_through_walls(t: _Braces, places: dict[str, PanelPlace],
         pt = shapely.point_on_surface(shapely.intersection(segs[i], shapes[k]))
         found.append(PlanFinding(t.mark[i], Flag(
             "brace-crosses-wall", "danger", f"brace {t.number[i]} runs through wall "
-            f"{walls[k]} at {_xy((pt.x, pt.y))}", "design.md §7"), [(pt.x, pt.y)]))
+            f"{walls[k]} at {_xy((pt.x, pt.y))}", "design.md §7"), [(pt.x, pt.y)],
+            (str(walls[k]),)))
     return found
 
 
@@ -556,7 +559,7 @@ def _overlapping_walls(places: dict[str, PanelPlace], marks: list[str]) -> list[
             pt = shapely.point_on_surface(part)
             found.append(PlanFinding(marks[i], Flag(
                 "walls-overlap", "warning", f"overlaps wall {marks[j]} in plan: check the "
-                "offsets along the wall line", "site file"), [(pt.x, pt.y)]))
+                "offsets along the wall line", "site file"), [(pt.x, pt.y)], (marks[j],)))
     return found
 
 
@@ -606,6 +609,44 @@ def plan_geometry(site: Site, standing: set[str] | None = None, day: int | None 
         bounds=(0.0, 0.0, 1.0, 1.0))
     geometry.bounds = _bounds(geometry)
     return geometry
+
+
+class DayPlans(Mapping):
+    """The plan of each day, drawn when a view first asks for it, once per set of walls standing
+    (drawing every day of a long job up front would cost more than the whole engine)."""
+
+    def __init__(self, site: Site, standing_by_day: dict[int, list[str]]):
+        self._site = site
+        self._standing = {d: frozenset(s) for d, s in standing_by_day.items()}
+        self._drawn: dict[frozenset, PlanGeometry] = {}
+
+    def __getitem__(self, day: int) -> PlanGeometry:
+        key = self._standing[day]
+        if key not in self._drawn:
+            self._drawn[key] = plan_geometry(self._site, set(key))
+        return replace(self._drawn[key], day=day)
+
+    def __iter__(self):
+        return iter(self._standing)
+
+    def __len__(self) -> int:
+        return len(self._standing)
+
+    def busiest_day(self) -> int:
+        """The day with the most walls standing (the earliest of equals)."""
+        return max(sorted(self._standing), key=lambda d: (len(self._standing[d]), -d))
+
+
+def day_findings(site: Site, places: dict[str, PanelPlace],
+                 standing_by_day: dict[int, list[str]]) -> dict[int, list[Flag]]:
+    """Each day's plan findings, from one look at every placed wall: a finding holds on the days
+    its wall and the walls it involves all stand (crossings, overlaps, zones over areas)."""
+    found = _findings(site, places, None)
+    out = {}
+    for day, marks in standing_by_day.items():
+        up = set(marks)
+        out[day] = [f.flag for f in found if f.mark in up and all(o in up for o in f.others)]
+    return out
 
 
 def _bounds(g: PlanGeometry) -> tuple[float, float, float, float]:

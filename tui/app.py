@@ -46,8 +46,13 @@ VIEWS = {"walls": "1 Walls", "wall": "2 Wall", "day": "3 Day", "plan": "4 Plan",
 FOCUS = {"walls": "#walls-table", "wall": "#wall-results", "day": "#day-inventory",
          "plan": "#plan-body", "settings": "#rules-table", "keys": "#keys-table"}
 
+KEY_NAMES = {"question_mark": "?", "left_square_bracket": "[", "right_square_bracket": "]",
+             "plus": "+", "equals_sign": "=", "minus": "-"}
+
 # Keys handled by the widgets themselves, for the Keys view (the app's own come from BINDINGS).
 WIDGET_KEYS = (
+    ("ctrl+q", "quit, also from inside a field (asks first when there are unsaved changes)",
+     "everywhere"),
     ("up / down, page up / down", "move in a table or list", "tables"),
     ("enter", "open the wall under the cursor", "Walls"),
     ("enter", "apply the value typed", "a field"),
@@ -78,14 +83,17 @@ class BracingApp(App[int]):
     TITLE = "Wall bracing"
     ENABLE_COMMAND_PALETTE = False
     BINDINGS: ClassVar[list[Binding]] = [
-        Binding("1", "show('walls')", "Walls", tooltip="every wall, worst first, with filters"),
-        Binding("2", "show('wall')", "Wall", tooltip="one wall: inputs, checks, drawings"),
-        Binding("3", "show('day')", "Day", tooltip="a day: lifts, inventory, go / no-go"),
-        Binding("4", "show('plan')", "Plan", tooltip="the site in plan for a day"),
+        Binding("1", "show('walls')", "Walls",
+                tooltip="the Walls view: every wall, worst first, with filters"),
+        Binding("2", "show('wall')", "Wall",
+                tooltip="the Wall view: its inputs, checks and drawings"),
+        Binding("3", "show('day')", "Day",
+                tooltip="the Day view: lifts, braces and anchors, go / no-go"),
+        Binding("4", "show('plan')", "Plan", tooltip="the Plan view: the site in plan on a day"),
         Binding("5", "show('settings')", "Settings",
-                tooltip="wind basis, exposure, period, site rules"),
+                tooltip="the Settings view: wind basis, exposure, period, rules"),
         Binding("question_mark,f1", "show('keys')", "Keys", key_display="?",
-                tooltip="this list of keys"),
+                tooltip="the Keys view: this list"),
         Binding("left_square_bracket", "step(-1)", "Previous", key_display="[",
                 tooltip="previous wall (worst first) or day"),
         Binding("right_square_bracket", "step(1)", "Next", key_display="]",
@@ -183,11 +191,9 @@ class BracingApp(App[int]):
         where = {"step": "Wall, Day and Plan", "edit": "Wall and Settings", "zoom": "Plan"}
         rows = []
         for b in cls.BINDINGS:
-            keys = " / ".join(k.strip().replace("question_mark", "?")
-                              .replace("left_square_bracket", "[")
-                              .replace("right_square_bracket", "]")
-                              for k in b.key.split(","))
-            rows.append((keys, b.tooltip or b.description, where.get(b.action.split("(")[0], "everywhere")))
+            keys = " / ".join(KEY_NAMES.get(k.strip(), k.strip()) for k in b.key.split(","))
+            action = b.action.split("(")[0]
+            rows.append((keys, b.tooltip or b.description, where.get(action, "everywhere")))
         return rows + list(WIDGET_KEYS)
 
     def _file_label(self, site_file: SiteFile) -> str:
@@ -264,6 +270,9 @@ class BracingApp(App[int]):
 
     def action_toggle_units(self) -> None:
         self.units = "si" if self.units == "us" else "us"
+
+    def watch_mark(self) -> None:
+        self.errors = {}  # a message belongs to the field of the wall it was typed for
 
     @on(WallsView.WallChosen)
     def _open_wall(self, event: WallsView.WallChosen) -> None:

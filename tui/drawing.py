@@ -10,6 +10,7 @@ from __future__ import annotations
 from collections.abc import Iterable, Sequence
 from itertools import pairwise
 
+from bracing.report import svg
 from bracing.report.text import fmt
 
 CELL_ASPECT = 2.0  # a terminal cell is about twice as tall as it is wide
@@ -222,14 +223,11 @@ AREA_WORDS = {"keep_clear": "keep clear", "crane_path": "crane path", "public_wa
 
 
 def pick_plan(plan, day: int | None):
-    """The plan geometry of `day` when the result holds one per day, else the one it holds."""
-    if isinstance(plan, dict):
-        if not plan:
-            return None
-        if day in plan:
-            return plan[day]
-        return max(sorted(plan.items()), key=lambda kv: (len(kv[1].standing), -kv[0]))[1]
-    return plan
+    """The plan geometry of `day` when the result holds one per day (else the busiest day's)."""
+    try:
+        return svg.pick_plan(plan, day)
+    except ValueError:
+        return svg.pick_plan(plan, None)
 
 
 def plan(g, cols: int = 100, rows: int = 30, units: str = "us") -> list[str]:

@@ -438,7 +438,8 @@ class WallView(Horizontal):
                        f"{fmt(b['anchor_uplift_lb'], 'lbf', units)}, shear "
                        f"{fmt(b['anchor_shear_lb'], 'lbf', units)}")
             if b.get("installation_torque_ftlb") is not None:
-                out.append(f"; helical torque {fmt(b['installation_torque_ftlb'], 'ft*lbf', units)}")
+                torque = fmt(b["installation_torque_ftlb"], "ft*lbf", units)
+                out.append(f"; helical installation torque {torque}")
             if b.get("designed"):
                 out.append(" (laid out by the designer)")
         return out

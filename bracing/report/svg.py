@@ -10,6 +10,7 @@ from __future__ import annotations
 
 import math
 import textwrap
+from collections.abc import Mapping
 from xml.sax.saxutils import escape, quoteattr
 
 from shapely.geometry import Polygon
@@ -56,7 +57,7 @@ def _text(x, y, words, size, anchor="start", weight="normal", fill="#000", extra
 def pick_plan(plan, day: int | None = None):
     """The PlanGeometry to draw: the given day's, else the busiest day's (most walls standing,
     the earliest of equals); None when the result has no plan."""
-    if plan is None or not isinstance(plan, dict):
+    if plan is None or not isinstance(plan, Mapping):
         return plan
     if not plan:
         return None
@@ -65,6 +66,8 @@ def pick_plan(plan, day: int | None = None):
             raise ValueError(f"no plan for day {day}; days planned: "
                              f"{', '.join(str(d) for d in sorted(plan))}")
         return plan[day]
+    if hasattr(plan, "busiest_day"):
+        return plan[plan.busiest_day()]
     return max(sorted(plan.items()), key=lambda kv: (len(kv[1].standing), -kv[0]))[1]
 
 
