@@ -368,8 +368,12 @@ class Evaluation:
     braced_limit_missing: np.ndarray | None = None
 
 
+# Plan findings that depend on one wall alone go on the wall (and its days); crossings and
+# overlaps between walls depend on which walls stand together and go on the days only.
 ANCHOR_FINDINGS = {"anchor-off-slab", "anchor-near-edge", "ground-anchor-off-ground",
                    "anchor-not-located", "past-line-end"}
+WALL_FINDINGS = ANCHOR_FINDINGS | {"brace-crosses-keep-clear", "zone-overlap",
+                                   "zone-overlaps-crane-path"}
 
 
 def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
@@ -402,7 +406,7 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
             panels[i].flags.append(Flag("no-layout", "danger", d.message, "layout designer"))
     places = plan.place(site)
     for mark, flag in plan.plan_findings(site, places, None) if places else []:
-        if flag.code in ANCHOR_FINDINGS:
+        if flag.code in WALL_FINDINGS:
             by_mark[mark].flags.append(flag)
     for p in panels:  # a danger flag on a braced wall (an anchor off the slab...) is unsafe
         if p.status == "braced" and any(f.severity == "danger" for f in p.flags):
