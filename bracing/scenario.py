@@ -30,31 +30,59 @@ class SiteFileError(Exception):
 
 @dataclass
 class SiteFile:
-    """A site file on disk: its text document (comments kept) and the validated model."""
+    """A site file: its text document (comments kept), edits not yet written into it, the plain
+    data with those edits, and the validated model.
+
+    Edits are kept apart from the document so that changing one value re-validates the plain
+    data only (tomlkit re-parses a large file slowly); the document takes them on `save`.
+    """
 
     path: Path
     document: tomlkit.TOMLDocument
     site: Site
+    edits: tuple = ()
+    data: dict | None = None
 
-    def save(self, path: str | Path | None = None) -> Path:
-        """Write the document atomically, keeping the previous file as `.bak`."""
-        target = Path(path) if path else self.path
-        atomic_write(target, tomlkit.dumps(self.document))
-        self.path = target
-        return target
+    def __post_init__(self):
+        if self.data is None:
+            self.data = self.document.unwrap()
 
     def with_value(self, keys: tuple, value) -> SiteFile:
         """A copy with one value changed, validated; raises SiteFileError and changes nothing."""
-        document = tomlkit.parse(tomlkit.dumps(self.document))
-        node = document
+        data = dict(self.data)
+        node = data
         try:
             for key in keys[:-1]:
-                node = node[key]
+                child = node[key]
+                child = list(child) if isinstance(child, list) else dict(child)
+                node[key] = child
+                node = child
         except (KeyError, IndexError, TypeError):
             where = ".".join(str(k) for k in keys[:-1])
             raise SiteFileError(str(self.path), [f"{self.path}: no {where} in the file"]) from None
         node[keys[-1]] = value
-        return SiteFile(self.path, document, validate(document, str(self.path), document.as_string()))
+        site = validate_data(data, str(self.path), self.document.as_string())
+        return SiteFile(self.path, self.document, site, self.edits + ((tuple(keys), value),), data)
+
+    def written(self) -> tomlkit.TOMLDocument:
+        """The document with the edits written into it (a new document when there are any)."""
+        if not self.edits:
+            return self.document
+        document = tomlkit.parse(tomlkit.dumps(self.document))
+        for keys, value in self.edits:
+            node = document
+            for key in keys[:-1]:
+                node = node[key]
+            node[keys[-1]] = value
+        return document
+
+    def save(self, path: str | Path | None = None) -> Path:
+        """Write the document atomically, keeping the previous file as `.bak`."""
+        target = Path(path) if path else self.path
+        document = self.written()
+        atomic_write(target, tomlkit.dumps(document))
+        self.path, self.document, self.edits = target, document, ()
+        return target
 
 
 def atomic_write(target: Path, text: str) -> None:
@@ -103,7 +131,12 @@ def parse(text: str, name: str = "<site>") -> SiteFile:
 
 def validate(document, name: str, text: str) -> Site:
     """Validate a parsed document into a Site, or raise SiteFileError with every problem."""
-    data = document.unwrap() if hasattr(document, "unwrap") else document
+    return validate_data(document.unwrap() if hasattr(document, "unwrap") else document, name,
+                         text)
+
+
+def validate_data(data: dict, name: str, text: str) -> Site:
+    """Validate plain site data into a Site, or raise SiteFileError with every problem."""
     try:
         return Site.model_validate(data)
     except ValidationError as exc:

@@ -10,6 +10,7 @@ from __future__ import annotations
 
 import re
 import sys
+from dataclasses import replace
 from pathlib import Path
 from typing import ClassVar
 
@@ -306,10 +307,10 @@ class BracingApp(App[int]):
     def _install(self, site_file: SiteFile) -> None:
         """Make `site_file` the current state (its path is the current file's) and recompute."""
         if self.site_file is not None and site_file.path != self.site_file.path:
-            site_file = SiteFile(self.site_file.path, site_file.document, site_file.site)
+            site_file = replace(site_file, path=self.site_file.path)
         self.site_file = site_file
         self.errors = {}
-        self.dirty = site_file.document is not self.saved_document
+        self.dirty = bool(site_file.edits) or site_file.document is not self.saved_document
         self.refresh_bindings()
         self.generation += 1
         self.busy = True
@@ -343,7 +344,8 @@ class BracingApp(App[int]):
                     "kept.", severity="error", timeout=10)
         if self.undo_stack:
             self.site_file = self.undo_stack.pop()
-            self.dirty = self.site_file.document is not self.saved_document
+            self.dirty = (bool(self.site_file.edits)
+                          or self.site_file.document is not self.saved_document)
             self.refresh_bindings()
 
     def action_undo(self) -> None:

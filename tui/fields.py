@@ -64,7 +64,7 @@ def wall_fields(site_file: SiteFile, mark: str) -> list[FieldSpec]:
         return []
     site = site_file.site
     panel = site.panels[i]
-    node = site_file.document["panels"][i]
+    node = site_file.data["panels"][i]
     base = ("panels", i)
 
     def spec(key, label, kind, hint="", choices=(), table=None, prefix=()):
@@ -129,7 +129,7 @@ SITE_FIELDS = (
 
 def site_fields(site_file: SiteFile) -> list[FieldSpec]:
     """The site's wind basis, and the value of every rule the file itself sets."""
-    node = site_file.document["site"]
+    node = site_file.data["site"]
     specs = []
     for key, label, kind, hint, choices in SITE_FIELDS:
         default = SiteInfo.model_fields[key].default
@@ -138,7 +138,7 @@ def site_fields(site_file: SiteFile) -> list[FieldSpec]:
                 f"{default} by default"
         specs.append(FieldSpec(f"site-{key}".replace("_", "-"), label, ("site", key), kind,
                                raw_text(node, key), hint, choices))
-    rules = site_file.document.get("rules", {})
+    rules = site_file.data.get("rules", {})
     for name in DEFAULT_RULES:
         if name in rules and "value" in rules[name]:
             specs.append(FieldSpec(f"rule-{name}".replace("_", "-"),
