@@ -227,6 +227,10 @@ class BraceLoads:
     case_at: np.ndarray     # (cases, m) resultant position from the wall's first edge, ft
     strip: np.ndarray       # (m, k) per brace slot
 
+    def take(self, rows) -> BraceLoads:
+        """The loads of the walls `rows` only."""
+        return BraceLoads(self.case_force[:, rows], self.case_at[:, rows], self.strip[rows])
+
     def scaled(self, factor) -> BraceLoads:
         factor = np.asarray(factor, dtype=float)
         return replace(self, case_force=self.case_force * factor,
@@ -267,8 +271,9 @@ def brace_forces(walls, wind, loads: BraceLoads, bs: BraceSet, f) -> BraceForces
     lean_total = f.dead_adds * braces.lean_reaction(
         dead, walls.centroid_ratio[i] * s, s, hb, bs.lean, bs.slop)
     centre = b / 2.0
+    lever_of = braces.brace_lever(bs.positions, bs.mask)
     lean = braces.brace_shares(lean_total, np.zeros_like(hb), centre, centre, bs.positions,
-                               bs.mask)
+                               bs.mask, lever_of)
     lever = wind.lever[i]
     horizontal = np.zeros(bs.positions.shape)
     total = np.zeros(len(i))
@@ -276,7 +281,8 @@ def brace_forces(walls, wind, loads: BraceLoads, bs: BraceSet, f) -> BraceForces
     force = np.zeros(len(i))
     for case_force, at in zip(loads.case_force, loads.case_at):
         sum_h = f.wind * braces.total_brace_reaction(case_force, lever, hb)
-        r = braces.brace_shares(sum_h, f.wind * case_force, at, centre, bs.positions, bs.mask)
+        r = braces.brace_shares(sum_h, f.wind * case_force, at, centre, bs.positions, bs.mask,
+                                lever_of)
         horizontal = np.maximum(horizontal, np.abs(np.nan_to_num(r + lean)))
         force = np.where(sum_h > total, case_force, force)
         total = np.maximum(total, sum_h)

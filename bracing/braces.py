@@ -49,18 +49,24 @@ def lean_reaction(weight_lb, centroid_height_ft, wall_height_ft, insert_height_f
     return weight_lb * offset / insert_height_ft
 
 
-def brace_shares(total_h, force_lb, force_at_ft, wall_centre_ft, positions_ft, mask):
-    """Horizontal reaction of each brace: the even share plus the twist (design.md §6).
-
-    R_i = sum(R)/n + M_t (x_i - x_c) / sum((x_j - x_c)^2), with
-    M_t = F (x_F - x_c) - (F - sum(R)) (x_w - x_c). Arrays: (..., walls) for loads, (walls,
-    braces) for positions with `mask` true where a brace exists.
-    """
+def brace_lever(positions_ft, mask):
+    """Count, centroid, arms from the centroid and polar sum of a brace pattern (statics);
+    constant for a layout, so computed once and shared by every load case."""
     n = mask.sum(axis=-1)
     x = np.where(mask, positions_ft, 0.0)
     xc = x.sum(axis=-1) / n
     arm = np.where(mask, positions_ft - xc[..., None], 0.0)
-    polar = (arm**2).sum(axis=-1)
+    return n, xc, arm, (arm**2).sum(axis=-1)
+
+
+def brace_shares(total_h, force_lb, force_at_ft, wall_centre_ft, positions_ft, mask, lever=None):
+    """Horizontal reaction of each brace: the even share plus the twist (design.md §6).
+
+    R_i = sum(R)/n + M_t (x_i - x_c) / sum((x_j - x_c)^2), with
+    M_t = F (x_F - x_c) - (F - sum(R)) (x_w - x_c). Arrays: (..., walls) for loads, (walls,
+    braces) for positions with `mask` true where a brace exists; `lever` from `brace_lever`.
+    """
+    n, xc, arm, polar = lever if lever is not None else brace_lever(positions_ft, mask)
     twist = force_lb * (force_at_ft - xc) - (force_lb - total_h) * (wall_centre_ft - xc)
     with np.errstate(divide="ignore", invalid="ignore"):
         per_arm = np.where(polar > 0, twist / polar, 0.0)

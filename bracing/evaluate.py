@@ -7,11 +7,13 @@ them together, for the design wind, for observed gusts (working-limit speed) and
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass, replace
 
 import numpy as np
 
 from bracing import braced, layout, lines, plan, schedule, stability
+from bracing.braced import take
 from bracing.model import Site
 from bracing.results import Check, Flag, PanelResult, SiteResult, UnbracedResult, WindResult
 from bracing.wind import asce7, asce37, gusts
@@ -118,8 +120,6 @@ def gather(site: Site) -> Walls:
         tension = mat.flexural_tension
         if tension is None and masonry:
             tension = stability.FLEXURAL_TENSION_PSI[(grouting, mat.mortar)]
-        s_in3, a_in2 = stability.masonry_section(p.thickness, "hollow" if grouting == "hollow"
-                                                 else "solid")
         f = p.footing
         returns = {r.end: r.length / p.height for r in p.return_walls}
         weeks = p.standing_time or (None if np.isnan(planned[len(rows)]) else
@@ -128,15 +128,18 @@ def gather(site: Site) -> Walls:
             p.height, p.width, t_ft, p.base_elevation, face, solidity, centroid / p.height,
             centroid_x / p.width,
             mat.kind == "concrete", masonry and not cured, masonry, mat.kind == "framed",
-            tension if cured else 0.0, float(s_in3), float(a_in2),
+            tension if cured else 0.0, p.thickness, "hollow" if grouting == "hollow" else "solid",
             returns.get("left", 0.0), returns.get("right", 0.0),
             f.width if f else np.nan, f.thickness if f else np.nan,
             (f.unit_weight * f.thickness + f.soil_unit_weight * f.soil_depth) if f else np.nan,
             f.allowable_bearing if f else np.nan, f.friction_coefficient if f else np.nan,
-            site.site.friction_coefficient,
-            site.site.period_factor or float(asce37.period_factor(weeks)),
+            site.site.friction_coefficient, weeks,
         ))
     cols = [np.array(c) for c in zip(*rows)]
+    # the arrays that formulas give at once for every wall
+    cols[13], cols[14] = stability.masonry_section(cols[13], cols[14])
+    cols[-1] = (np.full(len(rows), site.site.period_factor) if site.site.period_factor
+                else asce37.period_factor(cols[-1].astype(float)))
     loads = lines.line_loads(site)
     along = ([getattr(loads, k) for k in lines.LineLoads.__dataclass_fields__] if loads
              else [np.full(len(rows), np.nan)] * 7)
@@ -315,33 +318,43 @@ def _ratio(demand, capacity):
 
 
 def solve_increasing(g, lo: float, hi: float, size: int, iterations: int = 60,
-                     tolerance: float = 1e-11) -> np.ndarray:
-    """Root of an increasing g(x) on [lo, hi] for many walls at once; NaN where none in range.
+                     tolerance: float = 1e-9) -> np.ndarray:
+    """Root of an increasing g(x, rows) on [lo, hi] for many walls at once; NaN where none.
 
-    Illinois regula falsi (a bracketing secant step that halves a stale end's weight), falling
-    back to bisection where the step leaves the bracket: robust like bisection, fast like
-    secant on the smooth, nearly linear utilizations here.
+    `g(x, rows)` gives g of the walls `rows` (an index array) at their trial values `x`; each
+    step asks only for the walls not yet settled. Illinois regula falsi (a bracketing secant
+    step that halves a stale end's weight), falling back to bisection where the step leaves
+    the bracket: robust like bisection, fast like secant on these nearly linear utilizations.
     """
+    rows = np.arange(size)
     a = np.full(size, float(lo))
     b = np.full(size, float(hi))
-    ga, gb = g(a), g(b)
+    ga, gb = g(a, rows), g(b, rows)
     fa, fb = ga.copy(), gb.copy()
     side = np.zeros(size)
+    active = rows[(ga < 0.0) & (gb >= 0.0)]  # walls without a root need no search
     for _ in range(iterations):
-        with np.errstate(divide="ignore", invalid="ignore"):
-            x = (a * fb - b * fa) / (fb - fa)
-        x = np.where(np.isfinite(x) & (x > a) & (x < b), x, 0.5 * (a + b))
-        gx = g(x)
-        below = gx < 0.0
-        a, fa = np.where(below, x, a), np.where(below, gx, fa)
-        b, fb = np.where(below, b, x), np.where(below, fb, gx)
-        # Illinois: the end that stayed twice in a row has its value halved
-        fb = np.where(below & (side == 1), fb / 2.0, fb)
-        fa = np.where(~below & (side == -1), fa / 2.0, fa)
-        side = np.where(below, 1, -1)
-        settled = (np.abs(gx) < tolerance) | (b - a < tolerance * (1.0 + np.abs(b)))
-        if np.all(settled | (ga >= 0.0) | ~(gb >= 0.0)):  # walls without a root need no more
+        if len(active) == 0:
             break
+        ai, bi, fai, fbi = a[active], b[active], fa[active], fb[active]
+        with np.errstate(divide="ignore", invalid="ignore"):
+            x = (ai * fbi - bi * fai) / (fbi - fai)
+        x = np.where(np.isfinite(x) & (x > ai) & (x < bi), x, 0.5 * (ai + bi))
+        gx = g(x, active)
+        below = gx < 0.0
+        a[active] = np.where(below, x, ai)
+        fa[active] = np.where(below, gx, fai)
+        b[active] = np.where(below, bi, x)
+        fb[active] = np.where(below, fbi, gx)
+        # Illinois: the end that stayed twice in a row has its value halved
+        stale_b = below & (side[active] == 1)
+        stale_a = ~below & (side[active] == -1)
+        fb[active[stale_b]] /= 2.0
+        fa[active[stale_a]] /= 2.0
+        side[active] = np.where(below, 1, -1)
+        settled = (np.abs(gx) < tolerance) | (
+            b[active] - a[active] < tolerance * (1.0 + np.abs(b[active])))
+        active = active[~settled]
     root = np.where(np.abs(fa) < np.abs(fb), a, b)
     root = np.where(ga >= 0.0, lo, root)
     return np.where(gb < 0.0, np.nan, root)
@@ -366,6 +379,34 @@ class Evaluation:
     braced_limit: np.ndarray | None = None
     braced_stand_down: np.ndarray | None = None
     braced_limit_missing: np.ndarray | None = None
+    row: dict | None = None        # per-wall values as lists (as_lists)
+    brace_row: dict | None = None  # panel index -> row of the brace set
+
+    def as_lists(self) -> None:
+        """Arrays as Python lists: building thousands of result objects reads them one value at
+        a time, which lists do far faster than numpy arrays."""
+        for name in ("checks", "braced_checks"):
+            arrays = getattr(self, name)
+            if arrays is not None:
+                setattr(self, name, {k: (d.tolist(), c.tolist()) for k, (d, c) in arrays.items()})
+        w, wind = self.walls, self.wind
+        self.row = {
+            "weight": (w.face_weight * w.height * w.width * w.solidity).tolist(),
+            "period_factor": w.period_factor.tolist(), "design_speed": self.design_speed.tolist(),
+            "kz": wind.kz.tolist(), "q": wind.q.tolist(), "cf": wind.cf_case_a.tolist(),
+            "opening": wind.opening.tolist(), "force": wind.force_a.tolist(),
+            "lever": np.where(w.rigid, wind.lever, wind.lever_strip).tolist(),
+            "solidity": w.solidity.tolist(), "minimum": wind.minimum_governs.tolist(),
+            "cf_end": wind.cf_end.tolist(), "cf_interior": wind.cf_interior.tolist(),
+            "utilization": self.utilization.tolist(), "limit": self.limit.tolist(),
+            "stand_down": self.stand_down.tolist(), "max_height": self.max_height.tolist(),
+            "max_at_limit": self.max_at_limit.tolist(), "rigid": w.rigid.tolist(),
+        }
+        if self.braces is not None:
+            self.brace_row = {int(i): r for r, i in enumerate(self.braces.index)}
+            self.braced_limit = self.braced_limit.tolist()
+            self.braced_stand_down = self.braced_stand_down.tolist()
+            self.braced_limit_missing = self.braced_limit_missing.tolist()
 
 
 # Plan findings that depend on one wall alone go on the wall (and its days); crossings and
@@ -383,7 +424,8 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     (the site's [design] options); the walls for which none passes say why. `base_dir` is the
     site file's folder (the forecast file is read from it).
     """
-    e = evaluate_arrays(site, _edges(site))
+    places = plan.place(site)
+    e = evaluate_arrays(site, plan.foot_edge_distances_in(site, places) if places else {})
     designs = {}
     if design and site.design is not None:
         rows = [i for i, p in enumerate(site.panels) if p.bracing is None
@@ -393,7 +435,9 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
                 site.site.design_basis], site.rule_value("minimum_design_pressure_psf"))
             designs = {d.panel: d for d in found}
             site = layout.with_designs(site, found)
-            e = evaluate_arrays(site, _edges(site))
+            places = plan.place(site)
+            e = evaluate_arrays(site, plan.foot_edge_distances_in(site, places) if places else {})
+    e.as_lists()
     panels = [_panel_result(site, i, e) for i in range(len(site.panels))]
     by_mark = {p.mark: p for p in panels}
     for i, d in designs.items():
@@ -404,10 +448,10 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
                                         "layout designer"))
         else:
             panels[i].flags.append(Flag("no-layout", "danger", d.message, "layout designer"))
-    places = plan.place(site)
-    for mark, flag in plan.plan_findings(site, places, None) if places else []:
-        if flag.code in WALL_FINDINGS:
-            by_mark[mark].flags.append(flag)
+    found = plan.findings(site, places) if places else []  # one look at every placed wall
+    for f in found:
+        if f.flag.code in WALL_FINDINGS:
+            by_mark[f.mark].flags.append(f.flag)
     for p in panels:  # a danger flag on a braced wall (an anchor off the slab...) is unsafe
         if p.status == "braced" and any(f.severity == "danger" for f in p.flags):
             p.status = "unsafe"
@@ -419,19 +463,14 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
         if days:
             standing = {d.day: d.standing for d in days}
             geometry = plan.DayPlans(site, standing)
-            found = plan.day_findings(site, places, standing)
+            by_day = plan.day_findings(found, standing)
             for d in days:  # crossings and zone overlaps depend on the walls standing together
-                d.flags.extend(f for f in found[d.day] if f.code not in ANCHOR_FINDINGS)
+                d.flags.extend(f for f in by_day[d.day] if f.code not in ANCHOR_FINDINGS)
         else:
             geometry = plan.plan_geometry(site)
     return SiteResult(
         name=site.site.name, basis=site.site.design_basis, basis_statement=basis_statement(site),
         panels=panels, days=days, peak_inventory=peak, plan=geometry)
-
-
-def _edges(site: Site) -> dict[str, float]:
-    """Least edge distance (in) of each wall's slab-anchor feet, from the plan (inf: none)."""
-    return plan.foot_edge_distances_in(site, plan.place(site)) if site.lines else {}
 
 
 def _masonry_over_limit(site: Site, p) -> bool:
@@ -459,17 +498,18 @@ def evaluate_arrays(site: Site, edges: dict[str, float] | None = None) -> Evalua
     # V^2, so the wind of a 1 mph gust is scaled rather than recomputed.
     unit = wind_on(w, 1.0, 1.0, None)
     checks = stability_checks(w, wind, factors)
-    limit = solve_increasing(lambda v: unbraced_at(w, unit.scaled(v**2), SERVICE),
-                             *SPEED_BRACKET_MPH, n)
+    limit = solve_increasing(
+        lambda v, rows: unbraced_at(take(w, rows), take(unit, rows).scaled(v**2), SERVICE),
+        *SPEED_BRACKET_MPH, n)
 
-    def at_height(h, speed, kd, floor, f):
-        trial = w.at_height(h)
-        return unbraced_at(trial, wind_on(trial, speed, kd, floor), f)
+    def at_height(h, rows, speed, kd, floor, f):
+        trial = take(w, rows).at_height(h)
+        return unbraced_at(trial, wind_on(trial, np.broadcast_to(speed, n)[rows], kd, floor), f)
     max_height = solve_increasing(
-        lambda h: at_height(h, design_speed, asce7.KD_WALLS, minimum, factors),
+        lambda h, rows: at_height(h, rows, design_speed, asce7.KD_WALLS, minimum, factors),
         *HEIGHT_BRACKET_FT, n)
     gust = site.site.limit_speed
-    max_at_limit = (solve_increasing(lambda h: at_height(h, gust, 1.0, None, SERVICE),
+    max_at_limit = (solve_increasing(lambda h, rows: at_height(h, rows, gust, 1.0, None, SERVICE),
                                      *HEIGHT_BRACKET_FT, n) if gust else np.full(n, np.nan))
     e = Evaluation(w, wind, checks, governing_utilization(checks), limit,
                    stand_down_speeds(site, w, limit), max_height, max_at_limit, design_speed)
@@ -491,14 +531,15 @@ def braced_limit(w: Walls, unit: Wind, bs: braced.BraceSet) -> np.ndarray:
     `unit` is the observed wind of a 1 mph gust on every wall; `bs` may list a wall more than
     once (variants with a brace missing): each row gets its own trial speed.
     """
-    own = braced.take(w, bs.index)
-    wind = braced.take(unit, bs.index)
+    own = take(w, bs.index)
+    wind = take(unit, bs.index)
     mine = replace(bs, index=np.arange(len(bs.index)))
     loads = braced.brace_loads(own, wind, mine, None)
 
-    def g(v):
-        checks, _ = braced.braced_checks(own, wind.scaled(v**2), mine, SERVICE, None,
-                                         loads.scaled(v**2))
+    def g(v, rows):
+        sub = replace(take(mine, rows), index=np.arange(len(rows)))
+        checks, _ = braced.braced_checks(take(own, rows), take(wind, rows).scaled(v**2), sub,
+                                         SERVICE, None, loads.take(rows).scaled(v**2))
         return governing_utilization(strength_only(checks)) - 1.0
     return solve_increasing(g, *SPEED_BRACKET_MPH, len(bs.index))
 
@@ -558,20 +599,21 @@ def _panel_result(site: Site, i: int, e: Evaluation) -> PanelResult:
     """Per-wall result objects from the arrays (the only per-wall loop after gathering)."""
     p = site.panels[i]
     mat = site.materials[p.material]
-    w, wind = e.walls, e.wind
+    v = {k: values[i] for k, values in e.row.items()}
     factors = COMBINATIONS[site.site.design_basis]
-    per_foot = "" if w.rigid[i] else ", per ft"
+    rigid = v["rigid"]
     unbraced_checks = _checks_of(e.checks, i, factors, CHECK_INFO,
-                                 "whole panel" if w.rigid[i] else "end zone",
-                                 unbraced_sources(w, i))
-    for c in unbraced_checks:
-        c.region += per_foot if c.region != "whole panel" else ""
-    flags = _flags(site, p, mat, w, i, e.utilization[i])
-    stands = e.utilization[i] <= 1.0 and not any(f.code == "masonry-over-8ft" for f in flags)
-    limit, stand_down = float(e.limit[i]), float(e.stand_down[i])
+                                 "whole panel" if rigid else "end zone",
+                                 unbraced_sources(e.walls, i))
+    if not rigid:
+        for c in unbraced_checks:
+            c.region += ", per ft"
+    flags = _flags(site, p, mat, e.walls, i, v["utilization"])
+    stands = v["utilization"] <= 1.0 and not any(f.code == "masonry-over-8ft" for f in flags)
+    limit, stand_down = v["limit"], v["stand_down"]
     checks, status, details = unbraced_checks, "stands" if stands else "needs_braces", None
     if p.bracing is not None:
-        r = int(np.nonzero(e.braces.index == i)[0][0])
+        r = e.brace_row[i]
         checks = _checks_of(e.braced_checks, r, factors, braced.CHECKS)
         foot = site.anchor_types[p.bracing.foot_anchor].kind if p.bracing.foot_anchor else None
         specific = braced.sources(site.brace_types[p.bracing.brace_type].kind, foot)
@@ -579,8 +621,8 @@ def _panel_result(site: Site, i: int, e: Evaluation) -> PanelResult:
             c.source = specific.get(c.element, c.source)
         strength = [c for c in checks if c.element not in braced.SERVICEABILITY]
         status = "braced" if all(c.passes for c in strength) else "unsafe"
-        limit = float(e.braced_limit[r])
-        stand_down = float(e.braced_stand_down[r])
+        limit = e.braced_limit[r]
+        stand_down = e.braced_stand_down[r]
         details = braced.braced_details(e.braces, e.brace_forces, r)
         details.update(brace_type=p.bracing.brace_type, wall_anchor=p.bracing.wall_anchor,
                        foot_anchor=p.bracing.foot_anchor)
@@ -593,27 +635,24 @@ def _panel_result(site: Site, i: int, e: Evaluation) -> PanelResult:
     governing = max((c for c in checks if c.element not in braced.SERVICEABILITY),
                     key=lambda c: c.utilization)
     return PanelResult(
-        mark=p.mark, material=mat.kind, status=status,
-        weight_lb=float(w.face_weight[i] * w.height[i] * w.width[i] * w.solidity[i]),
+        mark=p.mark, material=mat.kind, status=status, weight_lb=v["weight"],
         height_ft=p.height, width_ft=p.width, thickness_in=p.thickness,
         wind=WindResult(
-            basic_speed_mph=site.site.basic_wind_speed, period_factor=float(w.period_factor[i]),
+            basic_speed_mph=site.site.basic_wind_speed, period_factor=v["period_factor"],
             period_factor_from="set" if site.site.period_factor else "standing time",
-            design_speed_mph=float(e.design_speed[i]), kz=float(wind.kz[i]), kd=asce7.KD_WALLS,
-            kzt=w.kzt, ke=w.ke, gust_factor=asce7.GUST_FACTOR,
-            velocity_pressure_psf=float(wind.q[i]), force_coefficient=float(wind.cf_case_a[i]),
-            opening_factor=float(wind.opening[i]), force_lb=float(wind.force_a[i]),
-            resultant_height_ft=float(wind.lever[i] if w.rigid[i] else wind.lever_strip[i]),
-            solidity=float(w.solidity[i]), minimum_pressure_governs=bool(wind.minimum_governs[i]),
-            end_zone_force_coefficient=float(wind.cf_end[i]),
-            interior_force_coefficient=float(wind.cf_interior[i])),
+            design_speed_mph=v["design_speed"], kz=v["kz"], kd=asce7.KD_WALLS,
+            kzt=e.walls.kzt, ke=e.walls.ke, gust_factor=asce7.GUST_FACTOR,
+            velocity_pressure_psf=v["q"], force_coefficient=v["cf"],
+            opening_factor=v["opening"], force_lb=v["force"],
+            resultant_height_ft=v["lever"], solidity=v["solidity"],
+            minimum_pressure_governs=v["minimum"], end_zone_force_coefficient=v["cf_end"],
+            interior_force_coefficient=v["cf_interior"]),
         unbraced=UnbracedResult(
-            utilization=float(e.utilization[i]), stands=bool(stands),
-            working_limit_speed_mph=float(e.limit[i]),
-            stand_down_speed_mph=float(e.stand_down[i]),
-            max_height_ft=_capped(site, mat, e.max_height[i]),
-            max_height_at_limit_ft=_capped(site, mat, e.max_at_limit[i]),
-            max_height_structural_ft=_or_none(e.max_height[i])),
+            utilization=v["utilization"], stands=stands, working_limit_speed_mph=v["limit"],
+            stand_down_speed_mph=v["stand_down"],
+            max_height_ft=_capped(site, mat, v["max_height"]),
+            max_height_at_limit_ft=_capped(site, mat, v["max_at_limit"]),
+            max_height_structural_ft=_or_none(v["max_height"])),
         checks=checks, flags=flags, working_limit_speed_mph=limit,
         stand_down_speed_mph=stand_down,
         governing_element=f"{governing.element} ({governing.region})",
@@ -628,16 +667,16 @@ def _checks_of(arrays: dict, row: int, factors: Factors, info: dict, whole: str 
     `sources` replaces the generic source of an element with the one for this wall.
     """
     items = []
+    combos = {"resisting": factors.resisting, "adding": factors.adding, "wind": factors.wind_only}
     for key, (demand, capacity) in arrays.items():
-        if np.isnan(demand[row]):
+        d = demand[row]
+        if math.isnan(d):  # the check does not apply to this wall
             continue
         element, _, region = key.partition("|")
         unit, kind, source = info[element]
-        combo = {"resisting": factors.resisting, "adding": factors.adding,
-                 "wind": factors.wind_only}[kind]
         region = whole if region == "*" else region or "worst brace"
-        items.append(Check(element, region, float(demand[row]), float(capacity[row]), unit,
-                           combo, (sources or {}).get(element, source)))
+        items.append(Check(element, region, d, capacity[row], unit, combos[kind],
+                           (sources or {}).get(element, source)))
     return items
 
 
@@ -715,13 +754,13 @@ def braced_flags(site, p, bs, r, checks, limit, stand_down, missing) -> list[Fla
 def _capped(site: Site, mat, height) -> float | None:
     """The tallest a wall may stand unbraced: masonry no taller than OSHA 1926.706(b) allows."""
     limit = site.rule_value("masonry_unbraced_height_ft")
-    if mat.kind == "masonry" and limit is not None and not np.isnan(height):
+    if mat.kind == "masonry" and limit is not None and not math.isnan(height):
         height = min(height, limit)
     return _or_none(height)
 
 
 def _or_none(x) -> float | None:
-    return None if np.isnan(x) else float(x)
+    return None if math.isnan(x) else float(x)
 
 
 def _flags(site: Site, p, mat, w: Walls, i: int, utilization: float) -> list[Flag]:

@@ -84,37 +84,31 @@ def line_loads(site: Site) -> LineLoads | None:
     width = np.array([p.width for p in site.panels])
     height = np.array([p.height for p in site.panels])
     top = height + np.array([p.base_elevation for p in site.panels])
-    line_of = np.array([p.line or "" for p in site.panels], dtype=object)
+    names = list(lines)
+    line_id = np.array([names.index(p.line) if on_line[i] else -1
+                        for i, p in enumerate(site.panels)])
+    order = np.lexsort((start, line_id))
+    order = order[on_line[order]]  # walls on lines, by line then along it
+    corners = _corners(lines)
     days = np.unique(np.concatenate([lift[on_line], release[on_line & np.isfinite(release)]]))
     for day in days:
-        standing = on_line & (lift <= day) & (release > day)
-        groups = {}  # (line, group) -> member indices
-        for name in lines:
-            members = np.nonzero(standing & (line_of == name))[0]
-            if len(members) == 0:
-                continue
-            members = members[np.argsort(start[members])]
-            ends = np.maximum.accumulate(start[members] + width[members])
-            breaks = np.concatenate([[0], np.cumsum(start[members][1:] - ends[:-1] > gap)])
-            for g in np.unique(breaks):
-                groups[(name, g)] = members[breaks == g]
-        if not groups:  # every wall on the lines released that day
+        members = order[(lift[order] <= day) & (release[order] > day)]
+        if len(members) == 0:  # every wall on the lines released that day
             continue
-        returns = _corner_returns(groups, lines, length, start, width)
-        # every group of the day in one vectorised pass: each member with its group's extent
-        members, lo, hi, ret_lo, ret_hi = [], [], [], [], []
-        for (name, _), m in groups.items():
-            g_lo = start[m].min()
-            g_hi = (start[m] + width[m]).max()
-            members.append(m)
-            lo.append(np.full(len(m), g_lo))
-            hi.append(np.full(len(m), g_hi))
-            ret_lo.append(np.full(len(m), returns.get((name, g_lo), 0.0)))
-            ret_hi.append(np.full(len(m), returns.get((name, g_hi), 0.0)))
-        members = np.concatenate(members)
-        lo, hi = np.concatenate(lo), np.concatenate(hi)
+        # groups: a new one where the line changes or a gap wider than a joint opens
+        lid, lo_m, hi_m = line_id[members], start[members], start[members] + width[members]
+        breaks = (np.diff(lid) != 0) | (lo_m[1:] - hi_m[:-1] > gap)
+        first = np.concatenate([[0], np.nonzero(breaks)[0] + 1])
+        group = np.cumsum(np.concatenate([[0], breaks]))
+        g_lo = np.minimum.reduceat(lo_m, first)
+        g_hi = np.maximum.reduceat(hi_m, first)
+        g_line = [names[k] for k in lid[first]]
+        returns = _corner_returns(g_line, g_lo, g_hi, lines, corners, length)
+        lo, hi = g_lo[group], g_hi[group]
+        ret_lo = np.array([returns.get((g_line[g], "start"), 0.0) for g in range(len(first))])
+        ret_hi = np.array([returns.get((g_line[g], "end"), 0.0) for g in range(len(first))])
         s = height[members]
-        ret_lo, ret_hi = np.concatenate(ret_lo) / s, np.concatenate(ret_hi) / s
+        ret_lo, ret_hi = ret_lo[group] / s, ret_hi[group] / s
         b_over_s = (hi - lo) / s
         s_over_h = s / top[members]
         x0 = (start[members] - lo) / s
@@ -122,14 +116,16 @@ def line_loads(site: Site) -> LineLoads | None:
         left, cx_left = asce7.case_c_mean(x0, x1, b_over_s, s_over_h, ret_lo)
         right, cx_right = asce7.case_c_mean(b_over_s - x1, b_over_s - x0, b_over_s, s_over_h,
                                             ret_hi)
-        grid = x0[:, None] + np.linspace(0.0, 1.0, 9)[None, :] * (x1 - x0)[:, None]
-        local = np.maximum(
-            asce7.case_c_cf(grid, b_over_s[:, None], s_over_h[:, None], ret_lo[:, None]),
-            asce7.case_c_cf(b_over_s[:, None] - grid, b_over_s[:, None], s_over_h[:, None],
-                            ret_hi[:, None]))
+        # Case C falls away from the windward end: over a panel's width its largest local value
+        # is at the edge nearer that end, from either end of the line
+        mid = (x0 + x1) / 2.0
+        local_max = np.maximum(asce7.case_c_cf(x0, b_over_s, s_over_h, ret_lo),
+                               asce7.case_c_cf(b_over_s - x1, b_over_s, s_over_h, ret_hi))
+        local_mid = np.maximum(asce7.case_c_cf(mid, b_over_s, s_over_h, ret_lo),
+                               asce7.case_c_cf(b_over_s - mid, b_over_s, s_over_h, ret_hi))
         _keep(out, "case_a", members, asce7.cf_cases_ab(b_over_s, s_over_h))
-        _keep(out, "local_max", members, local.max(axis=1))
-        _keep(out, "local_mid", members, local[:, 4])
+        _keep(out, "local_max", members, local_max)
+        _keep(out, "local_mid", members, local_mid)
         # the resultant of each end's wind, from the panel's own first edge
         better = left > best_left[members]
         out["left_mean"][members[better]] = left[better]
@@ -147,29 +143,36 @@ def _keep(out, key, members, values):
     out[key][members] = np.fmax(out[key][members], values)
 
 
-def _corner_returns(groups, lines, length, start, width) -> dict:
-    """Length of wall standing at right angles at each group end that meets a corner.
+def _corners(lines: dict) -> dict[tuple[str, str], list[tuple[str, str]]]:
+    """For each line end ('start'/'end'), the ends of other lines that meet it at a corner."""
+    ends = [(name, tip, np.asarray(getattr(ln, tip), float))
+            for name, ln in lines.items() for tip in ("start", "end")]
+    if not ends:
+        return {}
+    xy = np.array([e[2] for e in ends])
+    near = np.hypot(*(xy[:, None, :] - xy[None, :, :]).transpose(2, 0, 1)) <= CORNER_TOLERANCE_FT
+    out: dict[tuple[str, str], list[tuple[str, str]]] = {}
+    for a, b in zip(*np.nonzero(near)):
+        if ends[a][0] != ends[b][0]:
+            out.setdefault(ends[a][:2], []).append(ends[b][:2])
+    return out
 
-    Returns {(line, group end position along the line): return length (ft)}.
+
+def _corner_returns(g_line, g_lo, g_hi, lines, corners, length) -> dict:
+    """Length of wall standing at right angles where a group's end meets a corner.
+
+    Groups are given by their line and extent along it; returns {(line, 'start'|'end'): return
+    length (ft)} for the group ends that touch their line's end at a corner.
     """
-    tips = {}  # corner point -> [(line, along, group extent from that corner)]
-    for (name, _), members in groups.items():
-        lo = start[members].min()
-        hi = (start[members] + width[members]).max()
-        ln = lines[name]
-        for along, point in ((lo, ln.start), (hi, ln.end)):
-            at_tip = along <= CORNER_TOLERANCE_FT if point is ln.start else \
-                along >= length[name] - CORNER_TOLERANCE_FT
-            if at_tip:
-                tips.setdefault(point, []).append((name, along, hi - lo))
+    at_tip = {}  # (line, 'start'|'end') -> extent of the group standing at that end
+    for name, lo, hi in zip(g_line, g_lo.tolist(), g_hi.tolist()):
+        if lo <= CORNER_TOLERANCE_FT:
+            at_tip[(name, "start")] = hi - lo
+        if hi >= length[name] - CORNER_TOLERANCE_FT:
+            at_tip[(name, "end")] = hi - lo
     out = {}
-    for point, here in tips.items():
-        for other_point, there in tips.items():
-            if np.hypot(point[0] - other_point[0], point[1] - other_point[1]) > \
-                    CORNER_TOLERANCE_FT:
-                continue
-            for name, along, _ in here:
-                other = [extent for n, _, extent in there if n != name]
-                if other:
-                    out[(name, along)] = max(out.get((name, along), 0.0), max(other))
+    for tip in at_tip:
+        other = [at_tip[p] for p in corners.get(tip, []) if p in at_tip]
+        if other:
+            out[tip] = max(other)
     return out

@@ -637,11 +637,15 @@ class DayPlans(Mapping):
         return max(sorted(self._standing), key=lambda d: (len(self._standing[d]), -d))
 
 
-def day_findings(site: Site, places: dict[str, PanelPlace],
+def findings(site: Site, places: dict[str, PanelPlace]) -> list[PlanFinding]:
+    """Everything found in the plan with every placed wall standing."""
+    return _findings(site, places, None)
+
+
+def day_findings(found: list[PlanFinding],
                  standing_by_day: dict[int, list[str]]) -> dict[int, list[Flag]]:
-    """Each day's plan findings, from one look at every placed wall: a finding holds on the days
-    its wall and the walls it involves all stand (crossings, overlaps, zones over areas)."""
-    found = _findings(site, places, None)
+    """Each day's plan findings, from one look at every placed wall (`findings`): a finding
+    holds on the days its wall and the walls it involves all stand."""
     out = {}
     for day, marks in standing_by_day.items():
         up = set(marks)

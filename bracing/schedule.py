@@ -209,6 +209,9 @@ def wall_days(site: Site) -> list[WallDays]:
     """Lift and release day of every scheduled wall, with the sign-off flags (see the module)."""
     events = {e.name: e for e in site.events}
     planned = lines.planned_weeks(site)
+    signed: dict[str, list] = {}
+    for s in site.signoffs:
+        signed.setdefault(s.panel, []).append(s)
     out = []
     for i, p in enumerate(site.panels):
         if p.lift_day is None:
@@ -220,7 +223,7 @@ def wall_days(site: Site) -> list[WallDays]:
         else:
             weeks, source = site.site.construction_period, "the site's construction_period"
         w = WallDays(i, p.mark, p.lift_day, None, weeks, source)
-        for s in sorted((s for s in site.signoffs if s.panel == p.mark), key=lambda s: s.day):
+        for s in sorted(signed.get(p.mark, []), key=lambda s: s.day):
             pending = [n for n in p.release_after if events[n].day > s.day]
             if s.day < p.lift_day:
                 _flag(w, s.day, "signoff-before-lift", "warning",
@@ -303,26 +306,29 @@ def _days(site: Site, walls: list[WallDays], result: dict[str, PanelResult],
             if f.code != "no-signoff":
                 on_day.setdefault(fd, []).append(f)
     lifted, released = _by_day(walls, lambda w: w.lift), _by_day(walls, lambda w: w.release)
+    marks = np.array([w.mark for w in walls], dtype=object)
+    failing = np.array([result[w.mark].status in STATUS_WORDS for w in walls], dtype=bool)
+    known_speed = np.isfinite(stand_down)
 
     days = []
-    for n in range(last):
+    for n in range(last):  # per day, numpy over the walls: a long job has many of both
         d = n + 1
         up = np.nonzero(standing[n])[0]
-        here = [walls[k] for k in up]
         use_b = {t: int(c) for t, c in zip(braces[0], brace_use[n]) if c}
         use_a = {t: int(c) for t, c in zip(anchors[0], anchor_use[n]) if c}
         short = {"braces": _short(use_b, site.brace_types),
                  "anchors": _short(use_a, site.anchor_types)}
         flags = on_day.get(d, []) + [f for _, f in slips.get(d, [])]
-        flags += _short_flags(short) + _status_flags(here, result)
-        known = [k for k in up if math.isfinite(stand_down[k])]
-        gov = min(known, key=lambda k: stand_down[k]) if known else None
-        unknown = [walls[k].mark for k in up if not math.isfinite(stand_down[k])]
+        flags += _short_flags(short) + _status_flags([walls[k] for k in up[failing[up]]], result)
+        known = up[known_speed[up]]
+        gov = int(known[np.argmin(stand_down[known])]) if len(known) else None
+        unknown = marks[up[~known_speed[up]]].tolist()
         fc = forecast.get(d)
-        go, reason = _go(site, here, None if gov is None else walls[gov], result, unknown, fc)
+        go, reason = _go(site, len(up) > 0, None if gov is None else walls[gov], result, unknown,
+                         fc)
         days.append(DayResult(
             day=d, date=date_of(site, d),
-            lifts=lifted.get(d, []), standing=[w.mark for w in here],
+            lifts=lifted.get(d, []), standing=marks[up].tolist(),
             braces_in_use=use_b, anchors_in_use=use_a, released=released.get(d, []),
             stand_down_speed_mph=None if gov is None else float(stand_down[gov]),
             working_limit_speed_mph=_least(limit[up]),
@@ -366,14 +372,16 @@ def _short_flags(short: dict) -> list[Flag]:
             for kind, items in short.items() for t, n in items.items()]
 
 
+STATUS_WORDS = {"unsafe": "braced, but a check fails",
+                "needs_braces": "cannot stand on its own and has no braces"}
+
+
 def _status_flags(here: list[WallDays], result: dict) -> list[Flag]:
     """Standing walls that fail: unsafe braced walls, walls that need braces and have none."""
-    words = {"unsafe": "braced, but a check fails", "needs_braces": "cannot stand on its own and "
-             "has no braces"}
     return [Flag(f"{result[w.mark].status.replace('_', '-')}-standing", "danger",
-                 f"{w.mark} stands today: {words[result[w.mark].status]}",
+                 f"{w.mark} stands today: {STATUS_WORDS[result[w.mark].status]}",
                  "the wall's checks (`bracing check`)")
-            for w in here if result[w.mark].status in words]
+            for w in here if result[w.mark].status in STATUS_WORDS]
 
 
 def _period_slips(walls: list[WallDays], result: dict, standing: np.ndarray, lift: np.ndarray
@@ -420,10 +428,10 @@ def stand_down_rule(site: Site, panel: PanelResult) -> str:
     return "engine"
 
 
-def _go(site: Site, here: list[WallDays], gov: WallDays | None, result: dict,
+def _go(site: Site, anyone: bool, gov: WallDays | None, result: dict,
         unknown: list[str], fc: ForecastDay | None) -> tuple[bool | None, str]:
-    """The day's go / no-go and its reason (see the module)."""
-    if not here:
+    """The day's go / no-go and its reason (see the module); `anyone`: a wall stands."""
+    if not anyone:
         return None, "no walls standing"
     if fc is None:
         return None, "no forecast"
