@@ -100,16 +100,19 @@ def gather(site: Site) -> Walls:
     """Read the site's walls into arrays (the only per-wall Python loop before the results)."""
     rows = []
     cure_days = site.rule_value("masonry_cure_days") or 0.0
-    planned = lines.planned_weeks(site)
+    planned = lines.planned_weeks(site).tolist()
     for p in site.panels:
         mat = site.materials[p.material]
         t_ft = p.thickness / 12.0
         face = (p.face_weight or (p.unit_weight * t_ft if p.unit_weight else None)
                 or mat.face_weight or mat.unit_weight * t_ft)
-        opens = [(o.x, o.y, o.width, o.height) for o in p.openings]
-        solid, centroid = stability.rectangle_centroid(p.width, p.height, opens)
-        _, centroid_x = stability.rectangle_centroid(
-            p.height, p.width, [(y, x, h, w) for x, y, w, h in opens])
+        if p.openings:
+            opens = [(o.x, o.y, o.width, o.height) for o in p.openings]
+            solid, centroid = stability.rectangle_centroid(p.width, p.height, opens)
+            _, centroid_x = stability.rectangle_centroid(
+                p.height, p.width, [(y, x, h, w) for x, y, w, h in opens])
+        else:
+            solid, centroid, centroid_x = p.width * p.height, p.height / 2.0, p.width / 2.0
         solid -= p.opening_area or 0.0
         solidity = solid / (p.width * p.height)
         if mat.kind == "framed" and not mat.sheathed:
@@ -122,7 +125,7 @@ def gather(site: Site) -> Walls:
             tension = stability.FLEXURAL_TENSION_PSI[(grouting, mat.mortar)]
         f = p.footing
         returns = {r.end: r.length / p.height for r in p.return_walls}
-        weeks = p.standing_time or (None if np.isnan(planned[len(rows)]) else
+        weeks = p.standing_time or (None if math.isnan(planned[len(rows)]) else
                                     planned[len(rows)]) or site.site.construction_period
         rows.append((
             p.height, p.width, t_ft, p.base_elevation, face, solidity, centroid / p.height,

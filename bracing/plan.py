@@ -15,6 +15,7 @@ from __future__ import annotations
 
 from collections.abc import Mapping
 from dataclasses import dataclass, replace
+from functools import cached_property
 
 import numpy as np
 import shapely
@@ -190,30 +191,43 @@ class _Braces:
     top_ft: np.ndarray  # brace pin heights above the slab, at the insert and at the foot
     low_ft: np.ndarray
 
-    @property
+    @cached_property
     def segments(self) -> np.ndarray:
         return shapely.linestrings(np.stack([self.insert, self.foot], axis=1))
 
 
 def _brace_table(site: Site, places: dict[str, PanelPlace], marks: list[str]) -> _Braces:
-    rows = []
+    """Every brace of the walls `marks`, its points computed for all braces at once."""
+    who, along, out, kinds, anchors, tops, lows, numbers = [], [], [], [], [], [], [], []
     for mark in marks:
-        b = site.panels[places[mark].index].bracing
+        pl = places[mark]
+        b = site.panels[pl.index].bracing
         if b is None:
             continue
-        inserts, feet = brace_points(site, places[mark])
+        x = b.positions or braces.default_positions(pl.width_ft, b.count).tolist()
+        k = len(x)
+        who += [mark] * k
+        along += list(x)
+        out += [anchor_distance_ft(b)] * k
         kind = site.anchor_types[b.foot_anchor].kind if b.foot_anchor else ""
-        for n, (ins, foot) in enumerate(zip(inserts, feet), 1):
-            rows.append((mark, n, ins, foot, kind, b.foot_anchor or "",
-                         b.insert_height - b.base_below_slab, b.foot_offset / IN_PER_FT))
-    if not rows:
+        kinds += [kind] * k
+        anchors += [b.foot_anchor or ""] * k
+        tops += [b.insert_height - b.base_below_slab] * k
+        lows += [b.foot_offset / IN_PER_FT] * k
+        numbers += range(1, k + 1)
+    if not who:
         empty = np.empty(0)
         return _Braces(empty.astype(str), empty.astype(int), np.empty((0, 2)),
                        np.empty((0, 2)), empty.astype(str), empty.astype(str), empty, empty)
-    mark, number, ins, foot, kind, anchor, top, low = zip(*rows)
-    return _Braces(np.array(mark), np.array(number), np.array(ins), np.array(foot),
-                   np.array(kind), np.array(anchor), np.array(top, dtype=float),
-                   np.array(low, dtype=float))
+    mark = np.array(who)
+    origin = np.array([places[m].origin for m in who])
+    direction = np.array([places[m].direction for m in who])
+    normal = np.array([places[m].normal for m in who])
+    a = np.array(along)[:, None]
+    insert = origin + a * direction
+    foot = insert + np.array(out)[:, None] * normal
+    return _Braces(mark, np.array(numbers), insert, foot, np.array(kinds), np.array(anchors),
+                   np.array(tops, dtype=float), np.array(lows, dtype=float))
 
 
 def _standing_marks(places: dict[str, PanelPlace], standing: set[str] | None) -> list[str]:
