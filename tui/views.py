@@ -518,7 +518,20 @@ NO_SCHEDULE = ("No days to show: the site file gives no lift days, or the schedu
                "available in this version of the engine.")
 
 
-class DayView(Vertical):
+class RedrawsForTheDay:
+    """A view that draws itself again when the result, the day or the units change."""
+
+    def watch_result(self) -> None:
+        self._show()
+
+    def watch_day(self) -> None:
+        self._show()
+
+    def watch_units(self) -> None:
+        self._show()
+
+
+class DayView(RedrawsForTheDay, Vertical):
     """A day: lifts, walls standing, braces and anchors in use against those on hand, go/no-go."""
 
     result = reactive(None, always_update=True, init=False)
@@ -535,15 +548,6 @@ class DayView(Vertical):
 
     def on_mount(self) -> None:
         self.query_one(DataTable).add_columns("Item", "Kind", "In use", "On hand", "Short")
-        self._show()
-
-    def watch_result(self) -> None:
-        self._show()
-
-    def watch_day(self) -> None:
-        self._show()
-
-    def watch_units(self) -> None:
         self._show()
 
     def _show(self) -> None:
@@ -592,7 +596,7 @@ class DayView(Vertical):
         self.query_one("#day-flags", Static).update(flag_lines(d.flags))
 
 
-class PlanView(Vertical):
+class PlanView(RedrawsForTheDay, Vertical):
     """The site in plan for a chosen day: walls, braces, anchors, fall zones, keep-clear areas."""
 
     result = reactive(None, always_update=True, init=False)
@@ -609,15 +613,6 @@ class PlanView(Vertical):
         self._show()
 
     def on_resize(self) -> None:
-        self._show()
-
-    def watch_result(self) -> None:
-        self._show()
-
-    def watch_day(self) -> None:
-        self._show()
-
-    def watch_units(self) -> None:
         self._show()
 
     def watch_zoom(self) -> None:
