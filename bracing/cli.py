@@ -20,7 +20,6 @@ from bracing.model import Site
 from bracing.report import json_view, text
 
 EXIT_BAD_INPUT = 2
-EXIT_FAILING = 1
 
 # `bracing panel` flag -> (path in the one-panel site, how the value is stored)
 PANEL_FLAGS = {

@@ -12,7 +12,7 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from bracing import braced, layout, lines, plan, schedule, stability
+from bracing import anchors, braced, layout, lines, plan, schedule, stability
 from bracing.braced import take
 from bracing.model import Site
 from bracing.results import Check, Flag, PanelResult, SiteResult, UnbracedResult, WindResult
@@ -748,6 +748,12 @@ def braced_flags(site, p, bs, r, checks, limit, stand_down, missing) -> list[Fla
         flags.append(Flag("outside-rated-range", "danger", f"brace length {bs.length[r]:.1f} ft "
                           f"is outside the rated table ({bt.lengths[0]:g} to {bt.lengths[-1]:g} "
                           "ft): no rating", "maker's rated table"))
+    fa = site.anchor_types.get(b.foot_anchor) if b.foot_anchor else None
+    if fa is not None and fa.kind == "slab" and not fa.cast_in and not bool(
+            anchors.post_installed_embedment_ok(fa.embedment, fa.slab_thickness)):
+        flags.append(Flag("anchor-too-deep", "warning", f"post-installed anchor {b.foot_anchor}: "
+                          f"h_ef {fa.embedment:g} in is more than the {fa.slab_thickness:g} in "
+                          "slab allows", "ACI 318-19 §17.9.4 (from memory)"))
     if np.isnan(limit):
         flags.append(Flag("capacity-unknown", "warning", "a brace or anchor capacity is unknown "
                           "(outside its rated range?): no working-limit speed", "design.md §3"))

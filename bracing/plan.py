@@ -659,11 +659,13 @@ def findings(site: Site, places: dict[str, PanelPlace]) -> list[PlanFinding]:
 def day_findings(found: list[PlanFinding],
                  standing_by_day: dict[int, list[str]]) -> dict[int, list[Flag]]:
     """Each day's plan findings, from one look at every placed wall (`findings`): a finding
-    holds on the days its wall and the walls it involves all stand."""
+    holds on the days its wall and the walls it involves all stand; its message names the wall."""
+    named = [(f, Flag(f.flag.code, f.flag.severity, f"{f.mark}: {f.flag.message}",
+                      f.flag.source)) for f in found]
     out = {}
     for day, marks in standing_by_day.items():
         up = set(marks)
-        out[day] = [f.flag for f in found if f.mark in up and all(o in up for o in f.others)]
+        out[day] = [flag for f, flag in named if f.mark in up and all(o in up for o in f.others)]
     return out
 
 

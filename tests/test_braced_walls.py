@@ -8,9 +8,9 @@ from dataclasses import replace
 
 import numpy as np
 import pytest
-from pydantic import ValidationError
 from hypothesis import given, settings
 from hypothesis import strategies as st
+from pydantic import ValidationError
 
 from bracing import braced
 from bracing import evaluate as ev

@@ -127,7 +127,7 @@ def site_text(result: SiteResult, system: str = "us") -> str:
 
 def day_line(day, system: str = "us") -> str:
     """One line per day: lifts, standing walls, stand-down gust against the forecast."""
-    go = {True: "GO", False: "NO-GO x", None: "no forecast"}[day.go]
+    go = {True: "GO: ", False: "NO-GO x: ", None: ""}[day.go]
     return (f"  day {day.day}{f' ({day.date})' if day.date else ''}: {len(day.lifts)} lift(s), "
             f"{len(day.standing)} standing, stand-down {fmt(day.stand_down_speed_mph, 'mph', system)}"
-            f", forecast {fmt(day.forecast_gust_mph, 'mph', system)}: {go} {day.reason}")
+            f", forecast {fmt(day.forecast_gust_mph, 'mph', system)}: {go}{day.reason}")
