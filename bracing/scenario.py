@@ -28,6 +28,9 @@ class SiteFileError(Exception):
         super().__init__("\n".join(problems))
 
 
+REMOVE = object()  # with_value(keys, REMOVE) takes a key out of the file
+
+
 @dataclass
 class SiteFile:
     """A site file: its text document (comments kept), edits not yet written into it, the plain
@@ -48,7 +51,9 @@ class SiteFile:
             self.data = self.document.unwrap()
 
     def with_value(self, keys: tuple, value) -> SiteFile:
-        """A copy with one value changed, validated; raises SiteFileError and changes nothing."""
+        """A copy with one value changed, validated; raises SiteFileError and changes nothing.
+
+        `value` REMOVE takes the key out of the file (an optional value back to its default)."""
         data = dict(self.data)
         node = data
         try:
@@ -60,7 +65,10 @@ class SiteFile:
         except (KeyError, IndexError, TypeError):
             where = ".".join(str(k) for k in keys[:-1])
             raise SiteFileError(str(self.path), [f"{self.path}: no {where} in the file"]) from None
-        node[keys[-1]] = value
+        if value is REMOVE:
+            node.pop(keys[-1], None)
+        else:
+            node[keys[-1]] = value
         site = validate_data(data, str(self.path), self.document.as_string())
         return SiteFile(self.path, self.document, site, self.edits + ((tuple(keys), value),), data)
 
@@ -73,7 +81,11 @@ class SiteFile:
             node = document
             for key in keys[:-1]:
                 node = node[key]
-            node[keys[-1]] = value
+            if value is REMOVE:
+                if keys[-1] in node:
+                    del node[keys[-1]]
+            else:
+                node[keys[-1]] = value
         return document
 
     def save(self, path: str | Path | None = None) -> Path:

@@ -24,7 +24,7 @@ from textual.widgets import Footer, Input, Select, TabbedContent, TabPane
 from bracing import scenario
 from bracing.evaluate import evaluate
 from bracing.results import SiteResult
-from bracing.scenario import SiteFile, SiteFileError
+from bracing.scenario import REMOVE, SiteFile, SiteFileError
 from tui.dialogs import Export, ExportRequest, SaveAs, UnsavedChanges
 from tui.fields import typed
 from tui.views import (
@@ -292,11 +292,9 @@ class BracingApp(App[int]):
     @on(FieldRow.Edited)
     def _edited(self, event: FieldRow.Edited) -> None:
         spec = event.spec
-        if not event.text.strip():
-            self.errors = {spec.field_id: "give a value (a key cannot be removed here)"}
-            return
+        value = typed(event.text, spec.kind) if event.text.strip() else REMOVE
         try:
-            changed = self.site_file.with_value(spec.keys, typed(event.text, spec.kind))
+            changed = self.site_file.with_value(spec.keys, value)
         except SiteFileError as exc:
             self.errors = {spec.field_id: problems_text(exc)}
             return
