@@ -9,7 +9,9 @@ from __future__ import annotations
 import os
 import re
 import tempfile
+import tomllib
 from dataclasses import dataclass
+from functools import cached_property
 from pathlib import Path
 
 import tomlkit
@@ -33,22 +35,28 @@ REMOVE = object()  # with_value(keys, REMOVE) takes a key out of the file
 
 @dataclass
 class SiteFile:
-    """A site file: its text document (comments kept), edits not yet written into it, the plain
+    """A site file: its text as read or last saved, edits not yet written into it, the plain
     data with those edits, and the validated model.
 
-    Edits are kept apart from the document so that changing one value re-validates the plain
-    data only (tomlkit re-parses a large file slowly); the document takes them on `save`.
+    Edits are kept apart from the text so that changing one value re-validates the plain data
+    only; the style-keeping TOML document (tomlkit, slow on a large file) is parsed when it is
+    needed: to save, with the user's comments and layout.
     """
 
     path: Path
-    document: tomlkit.TOMLDocument
+    text: str
     site: Site
     edits: tuple = ()
     data: dict | None = None
 
     def __post_init__(self):
         if self.data is None:
-            self.data = self.document.unwrap()
+            self.data = tomllib.loads(self.text)
+
+    @cached_property
+    def document(self) -> tomlkit.TOMLDocument:
+        """The file as tomlkit reads it (comments and layout kept), without the edits."""
+        return tomlkit.parse(self.text)
 
     def with_value(self, keys: tuple, value) -> SiteFile:
         """A copy with one value changed, validated; raises SiteFileError and changes nothing.
@@ -69,14 +77,12 @@ class SiteFile:
             node.pop(keys[-1], None)
         else:
             node[keys[-1]] = value
-        site = validate_data(data, str(self.path), self.document.as_string())
-        return SiteFile(self.path, self.document, site, self.edits + ((tuple(keys), value),), data)
+        site = validate_data(data, str(self.path), self.text)
+        return SiteFile(self.path, self.text, site, self.edits + ((tuple(keys), value),), data)
 
     def written(self) -> tomlkit.TOMLDocument:
-        """The document with the edits written into it (a new document when there are any)."""
-        if not self.edits:
-            return self.document
-        document = tomlkit.parse(tomlkit.dumps(self.document))
+        """The document with the edits written into it."""
+        document = tomlkit.parse(self.text) if self.edits else self.document
         for keys, value in self.edits:
             node = document
             for key in keys[:-1]:
@@ -89,11 +95,12 @@ class SiteFile:
         return document
 
     def save(self, path: str | Path | None = None) -> Path:
-        """Write the document atomically, keeping the previous file as `.bak`."""
+        """Write the file atomically, keeping the previous one as `.bak`."""
         target = Path(path) if path else self.path
-        document = self.written()
-        atomic_write(target, tomlkit.dumps(document))
-        self.path, self.document, self.edits = target, document, ()
+        text = tomlkit.dumps(self.written())
+        atomic_write(target, text)
+        self.path, self.text, self.edits = target, text, ()
+        self.__dict__.pop("document", None)
         return target
 
 
@@ -133,12 +140,16 @@ def load(path: str | Path) -> SiteFile:
 def parse(text: str, name: str = "<site>") -> SiteFile:
     """Parse and validate site-file text; `name` is used in messages."""
     try:
-        document = tomlkit.parse(text)
-    except TOMLKitError as exc:  # a ParseError knows its line; a repeated key may not
-        line = getattr(exc, "line", None) or _repeated_key_line(str(exc), text)
-        where = f"{name}:{line}" if line else name
-        raise SiteFileError(name, [f"{where}: not valid TOML: {exc}"]) from None
-    return SiteFile(Path(name), document, validate(document, name, text))
+        data = tomllib.loads(text)  # fast; tomlkit (style-keeping) is parsed only to save
+    except tomllib.TOMLDecodeError as fast_error:
+        try:  # tomlkit names the line of most problems, a repeated key included
+            tomlkit.parse(text)
+        except TOMLKitError as exc:
+            line = getattr(exc, "line", None) or _repeated_key_line(str(exc), text)
+            where = f"{name}:{line}" if line else name
+            raise SiteFileError(name, [f"{where}: not valid TOML: {exc}"]) from None
+        raise SiteFileError(name, [f"{name}: not valid TOML: {fast_error}"]) from None
+    return SiteFile(Path(name), text, validate_data(data, name, text), data=data)
 
 
 def validate(document, name: str, text: str) -> Site:

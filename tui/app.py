@@ -143,7 +143,7 @@ class BracingApp(App[int]):
         self.set_reactive(BracingApp.day, first.days[0].day if first.days else None)
         self.set_reactive(BracingApp.keys, self.key_list())
         self.set_reactive(BracingApp.file_name, self._file_label(site_file))
-        self.saved_document = site_file.document
+        self.saved_text = site_file.text
         self.undo_stack: list[SiteFile] = []
         self.redo_stack: list[SiteFile] = []
         self.generation = 0
@@ -308,7 +308,7 @@ class BracingApp(App[int]):
             site_file = replace(site_file, path=self.site_file.path)
         self.site_file = site_file
         self.errors = {}
-        self.dirty = bool(site_file.edits) or site_file.document is not self.saved_document
+        self.dirty = bool(site_file.edits) or site_file.text is not self.saved_text
         self.refresh_bindings()
         self.generation += 1
         self.busy = True
@@ -342,8 +342,7 @@ class BracingApp(App[int]):
                     "kept.", severity="error", timeout=10)
         if self.undo_stack:
             self.site_file = self.undo_stack.pop()
-            self.dirty = (bool(self.site_file.edits)
-                          or self.site_file.document is not self.saved_document)
+            self.dirty = bool(self.site_file.edits) or self.site_file.text is not self.saved_text
             self.refresh_bindings()
 
     def action_undo(self) -> None:
@@ -384,7 +383,7 @@ class BracingApp(App[int]):
             self.notify(f"Not saved: {exc}", severity="error", timeout=10)
             self.quit_after_save = False
             return False
-        self.saved_document = self.site_file.document
+        self.saved_text = self.site_file.text
         self.demo = False
         self.dirty = False
         self.file_name = self._file_label(self.site_file)
