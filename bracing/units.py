@@ -10,12 +10,13 @@ from __future__ import annotations
 import math
 from functools import lru_cache
 
-import pint
-
 
 @lru_cache(maxsize=1)
-def registry() -> pint.UnitRegistry:
-    """pint's registry with the trade's names it lacks; built on first use (it takes ~0.4 s)."""
+def registry():
+    """pint's registry with the trade's names it lacks; imported and built on first use (a bare
+    number never needs it, and it takes a few tenths of a second)."""
+    import pint
+
     ureg = pint.UnitRegistry()
     ureg.define("pcf = force_pound / foot ** 3")  # weights per unit volume, area and length
     ureg.define("psf = force_pound / foot ** 2")
@@ -64,7 +65,7 @@ class UnitError(ValueError):
     """A value that cannot be read as the field's kind of quantity."""
 
 
-def _mass_to_force(q: pint.Quantity) -> pint.Quantity:
+def _mass_to_force(q):
     """Read pounds and kilograms as their weight where the trade writes them for forces."""
     return (q * registry().Quantity(1.0, "standard_gravity")).to_base_units()
 
