@@ -476,6 +476,23 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
         panels=panels, days=days, peak_inventory=peak, plan=geometry)
 
 
+def evaluate_walls(site: Site, marks: set[str]) -> list[PanelResult]:
+    """The wall checks of `marks` alone, fast: the walls and those on the same wall lines (they
+    load each other), without the days and the plan findings (`evaluate` gives those).
+
+    For a quick answer after an edit to one wall while the whole site is checked again."""
+    lines_of = {p.line for p in site.panels if p.mark in marks and p.line is not None}
+    keep = [p for p in site.panels if p.mark in marks or (p.line is not None
+                                                            and p.line in lines_of)]
+    kept = {p.mark for p in keep}
+    sub = site.model_copy(update={
+        "panels": keep, "signoffs": [s for s in site.signoffs if s.panel in kept]})
+    places = plan.place(sub)
+    e = evaluate_arrays(sub, plan.foot_edge_distances_in(sub, places) if places else {})
+    e.as_lists()
+    return [_panel_result(sub, i, e) for i, p in enumerate(keep) if p.mark in marks]
+
+
 def _masonry_over_limit(site: Site, p) -> bool:
     limit = site.rule_value("masonry_unbraced_height_ft")
     return site.materials[p.material].kind == "masonry" and limit is not None and \

@@ -473,3 +473,18 @@ def test_section_and_elevation_draw_the_results_values():
     assert "░" in picture and "6.0 ft, 18.0 ft from the left edge" in picture
     si = drawing.section(32.0, 7.25, braces, None, None, units="si")
     assert "9.75 m tall" in "\n".join(si)
+
+
+@pytest.mark.parametrize("keys, text", [(("panels", 0, "height"), "30 ft"),
+                                        (("panels", 3, "thickness"), "9.25 in")])
+def test_the_quick_answer_after_a_wall_edit_is_the_whole_site_answer_for_that_wall(keys, text):
+    """The wall checked alone with its line-mates gives what the whole site's check gives it."""
+    site_file = scenario.load(Path(__file__).parent.parent / "scenarios" / "tilt-up-warehouse.toml")
+    changed = site_file.with_value(keys, text)
+    sooner = tui_app.quick(tui_app.compute(site_file), changed, keys)
+    full = tui_app.compute(changed)
+    mark = changed.site.panels[keys[1]].mark
+    a, b = sooner.panel(mark), full.panel(mark)
+    assert a.status == b.status
+    assert a.utilization == pytest.approx(b.utilization, rel=1e-9)
+    assert a.stand_down_speed_mph == pytest.approx(b.stand_down_speed_mph, rel=1e-6)

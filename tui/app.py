@@ -22,7 +22,7 @@ from textual.reactive import reactive
 from textual.widgets import Footer, Input, Select, TabbedContent, TabPane
 
 from bracing import scenario
-from bracing.evaluate import evaluate
+from bracing.evaluate import evaluate, evaluate_walls
 from bracing.results import SiteResult
 from bracing.scenario import REMOVE, SiteFile, SiteFileError
 from tui.dialogs import Export, ExportRequest, SaveAs, UnsavedChanges
@@ -69,6 +69,18 @@ def compute(site_file: SiteFile) -> SiteResult:
     """The engine's result for a site file (the interface computes nothing itself); the
     forecast file is read from the site file's folder."""
     return evaluate(site_file.site, base_dir=Path(site_file.path).parent)
+
+
+def quick(result: SiteResult, site_file: SiteFile, keys: tuple) -> SiteResult | None:
+    """After an edit to one wall: the engine's checks of that wall spliced into the last
+    result at once (the days and the plan follow with the whole site's result)."""
+    if result is None or len(keys) < 2 or keys[0] != "panels":
+        return None
+    mark = site_file.site.panels[keys[1]].mark
+    fresh = {p.mark: p for p in evaluate_walls(site_file.site, {mark})}
+    if mark not in {p.mark for p in result.panels}:
+        return None
+    return replace(result, panels=[fresh.get(p.mark, p) for p in result.panels])
 
 
 def problems_text(exc: SiteFileError) -> str:
@@ -301,6 +313,9 @@ class BracingApp(App[int]):
         self.undo_stack.append(self.site_file)
         self.redo_stack.clear()
         self._install(changed)
+        sooner = quick(self.result, changed, spec.keys)
+        if sooner is not None:
+            self.result = sooner  # the whole site's result replaces it when it is ready
 
     def _install(self, site_file: SiteFile) -> None:
         """Make `site_file` the current state (its path is the current file's) and recompute."""
