@@ -109,7 +109,11 @@ def atomic_write(target: Path, text: str) -> None:
     target = Path(target)
     target.parent.mkdir(parents=True, exist_ok=True)
     fd, tmp = tempfile.mkstemp(dir=target.parent, prefix=f".{target.name}.", suffix=".tmp")
+    umask = os.umask(0)
+    os.umask(umask)
+    mode = target.stat().st_mode & 0o777 if target.exists() else 0o666 & ~umask
     try:
+        os.chmod(tmp, mode)  # mkstemp makes 0600: keep the file's own or the usual permissions
         with os.fdopen(fd, "w", encoding="utf-8") as handle:
             handle.write(text)
             handle.flush()
