@@ -11,6 +11,7 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 from pydantic import ValidationError
+from wall_materials import MATERIALS, THICKNESS_IN
 
 from bracing import braced
 from bracing import evaluate as ev
@@ -38,13 +39,6 @@ ANCHOR_TYPES = {
     "block": {"kind": "deadman", "weight": 8000.0},
     "stake": {"kind": "stake", "rated_tension": 3000.0, "rated_shear": 3000.0},
 }
-MATERIALS = {
-    "concrete": {"kind": "concrete", "unit_weight": 150.0,  # ASCE 7 Table C3.1-2, from memory
-                 "compressive_strength": 3000.0},
-    "masonry": {"kind": "masonry", "face_weight": 36.0},  # 8 in hollow CMU, HUD RSDG, secondary
-    "framed": {"kind": "framed", "face_weight": 6.0},  # 2x4 sheathed, HUD RSDG, secondary
-}
-THICKNESS_IN = {"concrete": 7.25, "masonry": 7.625, "framed": 4.5}
 
 
 def wall(mark, material="concrete", height=30.0, width=24.0, **bracing) -> dict:

@@ -11,6 +11,7 @@ import numpy as np
 import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
+from wall_materials import MATERIALS, THICKNESS_IN
 
 from bracing import braced, cli, layout
 from bracing import evaluate as ev
@@ -37,13 +38,6 @@ ANCHOR_TYPES = {
     "helix": {"kind": "helical", "installation_torque": 4000.0},
     "block": {"kind": "deadman", "weight": 10000.0},
 }
-MATERIALS = {
-    "concrete": {"kind": "concrete", "unit_weight": 150.0,  # ASCE 7 Table C3.1-2, from memory
-                 "compressive_strength": 3000.0},
-    "masonry": {"kind": "masonry", "face_weight": 36.0},  # 8 in hollow CMU, HUD RSDG, secondary
-    "framed": {"kind": "framed", "face_weight": 6.0},  # 2x4 sheathed, HUD RSDG, secondary
-}
-THICKNESS_IN = {"concrete": 7.25, "masonry": 7.625, "framed": 4.5}
 
 
 def site_of(panels, options, rules=None, wind=115.0, brace_types=None) -> Site:
