@@ -308,6 +308,8 @@ def _days(site: Site, walls: list[WallDays], result: dict[str, PanelResult],
     lifted, released = _by_day(walls, lambda w: w.lift), _by_day(walls, lambda w: w.release)
     marks = np.array([w.mark for w in walls], dtype=object)
     failing = np.array([result[w.mark].status in STATUS_WORDS for w in walls], dtype=bool)
+    failing_flag = dict(zip(np.nonzero(failing)[0].tolist(),
+                            _status_flags([w for w, f in zip(walls, failing) if f], result)))
     known_speed = np.isfinite(stand_down)
 
     days = []
@@ -319,7 +321,7 @@ def _days(site: Site, walls: list[WallDays], result: dict[str, PanelResult],
         short = {"braces": _short(use_b, site.brace_types),
                  "anchors": _short(use_a, site.anchor_types)}
         flags = on_day.get(d, []) + [f for _, f in slips.get(d, [])]
-        flags += _short_flags(short) + _status_flags([walls[k] for k in up[failing[up]]], result)
+        flags += _short_flags(short) + [failing_flag[k] for k in up[failing[up]].tolist()]
         known = up[known_speed[up]]
         gov = int(known[np.argmin(stand_down[known])]) if len(known) else None
         unknown = marks[up[~known_speed[up]]].tolist()
