@@ -42,12 +42,13 @@ class BraceSet:
     foot_tension: np.ndarray    # slab/stake allowable tension, helical allowable, deadman weight
     foot_shear: np.ndarray      # slab/stake allowable shear
     foot_mu: np.ndarray         # deadman friction / FS
-    helical_factor: np.ndarray  # Kt / FS (1/ft) for the required torque
+    torque_factor: np.ndarray   # helical K_t (1/ft) and factor of safety, for the torque
+    torque_safety: np.ndarray
     rupture: np.ndarray         # concrete modulus of rupture, psi (NaN: not concrete)
     pretensioned: np.ndarray
     slenderness: np.ndarray     # governing Lc/r (pipe) or le/d (lumber), NaN for rated braces
     slenderness_limit: np.ndarray
-    amplifier_alpha: float      # AISC 360-16 Appendix 8 alpha: 1.6 ASD, 1.0 LRFD
+    basis: str                  # "ASD" | "LRFD" (the amplifier's alpha)
 
 
 def take(obj, rows):
@@ -100,7 +101,7 @@ def brace_set(site, rows, positions, anchor_distance, angle, column: dict, basis
                     insert=c["insert_height"].astype(float), anchor_distance=distance,
                     angle=theta, length=length, lean=c["lean"] * IN, slop=c["slop"] * IN,
                     pretensioned=c["pretensioned"].astype(bool), **caps,
-                    amplifier_alpha=members.ALPHA_B1[basis])
+                    basis=basis)
 
 
 def _capacities(site, rows, c, length, angle, basis) -> dict[str, np.ndarray]:
@@ -108,7 +109,7 @@ def _capacities(site, rows, c, length, angle, basis) -> dict[str, np.ndarray]:
     m = len(rows)
     out = {n: np.full(m, np.nan) for n in (
         "compression", "tension", "connection", "insert_tension", "insert_shear",
-        "foot_tension", "foot_shear", "foot_mu", "helical_factor", "slenderness",
+        "foot_tension", "foot_shear", "foot_mu", "torque_factor", "torque_safety", "slenderness",
         "slenderness_limit")}
     out["self_weight_ratio"] = np.zeros(m)
     out["euler_load"] = np.full(m, np.inf)
@@ -159,8 +160,7 @@ def _brace_capacity(bt, length, angle, basis):
         span = lc_in  # self weight bends the brace in its vertical plane between supports
         m_sw = members.self_weight_moment(s.weight_plf, span, angle)
         mc = members.pipe_flexure(s.od_in, s.t_design_in, fy, basis)
-        # Euler load of the span for the amplifier B1, AISC 360-16 Appendix 8 Eq. A-8-5
-        pe = np.pi**2 * members.STEEL_E_KSI * s.i_in4 / (12.0 * span) ** 2 * 1000.0
+        pe = members.euler_load(members.STEEL_E_KSI, s.i_in4, span)
         kl_r = members.slenderness(np.maximum(lc_in, lc_out), s.r_in)
         return comp, ten, m_sw / mc, pe, kl_r, members.LC_OVER_R_ADVISORY
     d_thin, d_wide = DRESSED_SIZES_IN[bt.size]
@@ -198,7 +198,7 @@ def _foot_capacity(fa, sel, out, basis, plan_edge=np.inf):
     elif fa.kind == "helical":
         out["foot_tension"][sel] = float(anchors.helical_capacity(
             fa.installation_torque, fa.torque_factor, fa.factor_of_safety))
-        out["helical_factor"][sel] = fa.torque_factor / fa.factor_of_safety
+        out["torque_factor"][sel], out["torque_safety"][sel] = fa.torque_factor, fa.factor_of_safety
     elif fa.kind == "deadman":
         out["foot_tension"][sel] = fa.weight
         # IBC Table 1806.2 values are allowable; concrete on concrete is nominal (design.md §6).
@@ -391,8 +391,8 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
     theta = np.radians(bs.angle)
     na = np.full(len(i), np.nan)
     # Self-weight bending (dead load adds) amplified by B1, AISC 360-16 Appendix 8 Eq. A-8-3.
-    amplified = f.dead_adds * bs.self_weight_ratio / np.maximum(
-        1.0 - bs.amplifier_alpha * p / bs.euler_load, 1e-9)
+    amplified = f.dead_adds * bs.self_weight_ratio * members.amplifier_of(p, bs.euler_load,
+                                                                          bs.basis)
     with np.errstate(divide="ignore", invalid="ignore"):  # a zero rating fails below, visibly
         ratio = np.asarray(members.pipe_axial_bending_ratio(p, bs.compression, amplified, 1.0))
     comp_cap = np.where(bs.self_weight_ratio > 0, p / np.maximum(ratio, 1e-12), bs.compression)
@@ -402,12 +402,13 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
         "brace tension": (p, bs.tension),
         "brace end fittings": (np.where(np.isnan(bs.connection), na, p), bs.connection),
     }
-    insert_ratio = p * np.cos(theta) / bs.insert_tension + p * np.sin(theta) / bs.insert_shear
+    pull, up = braces.components(p, bs.angle)
+    # the insert: the horizontal component pulls it out of the face, the vertical one shears it
+    insert_ratio = pull / bs.insert_tension + up / bs.insert_shear
     checks["wall insert"] = (np.where(np.isnan(insert_ratio), na, p),
                              p / np.maximum(insert_ratio, 1e-12))
     # The foot anchor: uplift P sin(theta) and pull P cos(theta) with the brace in tension.
     kind = bs.foot_kind
-    up, pull = p * np.sin(theta), p * np.cos(theta)
     slab_ratio = np.where(kind == "slab", anchors.tension_shear_interaction(
         up, bs.foot_tension, pull, bs.foot_shear), np.nan)
     rated_ratio = up / bs.foot_tension + pull / bs.foot_shear
@@ -453,7 +454,7 @@ def braced_details(bs: BraceSet, forces: BraceForces, r: int) -> dict:
     """The §8 `braces` record of braced wall r (design wind, governing brace)."""
     k = int(bs.mask[r].sum())
     p = float(forces.axial[r].max())
-    theta = np.radians(bs.angle[r])
+    pull, up = braces.components(p, bs.angle[r])
     details = {
         "count": k,
         "angle_deg": float(bs.angle[r]),
@@ -461,13 +462,14 @@ def braced_details(bs: BraceSet, forces: BraceForces, r: int) -> dict:
         "anchor_distance_ft": float(bs.anchor_distance[r]),
         "length_ft": float(bs.length[r]),
         "axial_force_lb": p,
-        "anchor_uplift_lb": p * float(np.sin(theta)),
-        "anchor_shear_lb": p * float(np.cos(theta)),
+        "anchor_uplift_lb": float(up),
+        "anchor_shear_lb": float(pull),
         "positions_ft": [float(x) for x in bs.positions[r, :k]],
         "brace_forces_lb": [float(x) for x in forces.axial[r, :k]],
         "base_shear_lb": float(forces.base_shear[r]),
-        "base_uplift_lb": float(forces.total[r] * np.tan(theta)),
+        "base_uplift_lb": float(forces.total[r] * np.tan(np.radians(bs.angle[r]))),
     }
     if bs.foot_kind[r] == "helical":  # ICC-ES AC358: T = FS P / Kt, the torque the crew reaches
-        details["installation_torque_ftlb"] = p / float(bs.helical_factor[r])
+        details["installation_torque_ftlb"] = float(anchors.required_torque(
+            p, bs.torque_factor[r], bs.torque_safety[r]))
     return details

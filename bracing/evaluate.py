@@ -12,8 +12,9 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from bracing import anchors, braced, layout, lines, plan, schedule, stability
+from bracing import anchors, braced, layout, lines, members, plan, schedule, stability
 from bracing.braced import take
+from bracing.data_members import PIPES
 from bracing.model import Site
 from bracing.results import Check, Flag, PanelResult, SiteResult, UnbracedResult, WindResult
 from bracing.wind import asce7, asce37, gusts
@@ -761,6 +762,13 @@ def braced_flags(site, p, bs, r, checks, limit, stand_down, missing) -> list[Fla
                           f"{limit_ratio:.0f}: add lateral struts or a knee brace",
                           "AISC 360-16 §E2 user note / NDS 2018 §3.7.1.4"))
     bt = site.brace_types[b.brace_type]
+    if bt.kind == "pipe":
+        pipe = PIPES[bt.section]
+        if not members.pipe_wall_nonslender(pipe.od_in, pipe.t_design_in,
+                                            bt.yield_strength / 1000.0):
+            flags.append(Flag("slender-pipe-wall", "danger", f"{bt.section} at Fy "
+                              f"{bt.yield_strength / 1000.0:g} ksi has a slender wall: its "
+                              "local buckling is not checked here", "AISC 360-16 Table B4.1a"))
     if bt.kind == "rated" and not bt.lengths[0] <= bs.length[r] <= bt.lengths[-1]:
         flags.append(Flag("outside-rated-range", "danger", f"brace length {bs.length[r]:.1f} ft "
                           f"is outside the rated table ({bt.lengths[0]:g} to {bt.lengths[-1]:g} "

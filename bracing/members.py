@@ -148,16 +148,25 @@ def self_weight_moment(weight_plf, length_ft, angle_deg):
             * np.asarray(length_ft, dtype=float) ** 2 / 8.0)[()]
 
 
+def euler_load(E_ksi, I_in4, Lc_ft):
+    """Elastic critical load Pe1 = pi^2 EI / Lc^2, lb (AISC 360-16 Eq. A-8-5, EI* = EI, K = 1)."""
+    return np.pi**2 * E_ksi * I_in4 / (12.0 * np.asarray(Lc_ft, dtype=float)) ** 2 * KSI_IN2_TO_LB
+
+
 def moment_amplifier_b1(Pr_lb, E_ksi, I_in4, Lc_ft, basis="ASD"):
     """P-delta amplifier of the self-weight moment: B1 = Cm / (1 - alpha Pr / Pe1) >= 1.
 
     AISC 360-16 Appendix 8 Eq. A-8-3, Cm = 1.0 (transverse load, §8.2.1(b)), Pe1 = pi^2 EI / Lc^2
     (Eq. A-8-5, EI* = EI with K = 1). Inf where alpha Pr >= Pe1; 1.0 for tension (Pr <= 0).
     """
+    return amplifier_of(Pr_lb, euler_load(E_ksi, I_in4, Lc_ft), basis)
+
+
+def amplifier_of(Pr_lb, pe1_lb, basis="ASD"):
+    """B1 from a known Pe1 (lb): AISC 360-16 Appendix 8 Eq. A-8-3 with Cm = 1.0."""
     if basis not in ALPHA_B1:
         raise ValueError(f"basis must be 'ASD' or 'LRFD', not {basis!r}")
-    pe1 = np.pi**2 * E_ksi * I_in4 / (12.0 * np.asarray(Lc_ft, dtype=float)) ** 2 * KSI_IN2_TO_LB
-    margin = 1.0 - ALPHA_B1[basis] * np.maximum(Pr_lb, 0.0) / pe1
+    margin = 1.0 - ALPHA_B1[basis] * np.maximum(Pr_lb, 0.0) / pe1_lb
     with np.errstate(divide="ignore"):
         b1 = np.where(margin > 0, 1.0 / margin, np.inf)
     return np.maximum(b1, 1.0)[()]

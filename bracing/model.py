@@ -53,7 +53,6 @@ Duration = _quantity("duration")
 Age = _quantity("age")
 
 Positive = Field(gt=0)
-NonNegative = Field(ge=0)
 
 
 class Strict(BaseModel):

@@ -156,12 +156,6 @@ def parse(text: str, name: str = "<site>") -> SiteFile:
     return SiteFile(Path(name), text, validate_data(data, name, text), data=data)
 
 
-def validate(document, name: str, text: str) -> Site:
-    """Validate a parsed document into a Site, or raise SiteFileError with every problem."""
-    return validate_data(document.unwrap() if hasattr(document, "unwrap") else document, name,
-                         text)
-
-
 def validate_data(data: dict, name: str, text: str) -> Site:
     """Validate plain site data into a Site, or raise SiteFileError with every problem."""
     try:

@@ -131,9 +131,17 @@ def build_pages(site: Site, result: SiteResult, day: int | None, units: str,
     zones = schedule.fall_zones(site, [p for p in result.panels if p.mark in marks])
     bracing = {p.mark: p.bracing for p in site.panels}
     svg = _svg() if pictures else None
+    by_mark = {p.mark: p for p in result.panels}
+    sections: dict[str, Markup] = {}
+
+    def drawn_section(p: PanelResult) -> Markup:  # drawn once per wall, shown every day
+        if p.mark not in sections:
+            sections[p.mark] = _inline(svg.section_svg(p))
+        return sections[p.mark]
+
     pages = []
     for d in days:
-        walls = [result.panel(m) for m in d.standing + d.released]
+        walls = [by_mark[m] for m in d.standing + d.released]
         rows = [_row(site, p, bracing[p.mark], d, zones[p.mark], units) for p in walls]
         page = Page(
             day=d, title=_title(result, d), go=GO[d.go], reason=d.reason,
@@ -148,7 +156,7 @@ def build_pages(site: Site, result: SiteResult, day: int | None, units: str,
             rules=_rules(site, walls))
         if svg is not None:
             page.plan_svg = _inline(svg.plan_svg(result, d.day or None))
-            page.sections = [(p.mark, _inline(svg.section_svg(p))) for p in walls if p.braces]
+            page.sections = [(p.mark, drawn_section(p)) for p in walls if p.braces]
         pages.append(page)
     return pages
 
