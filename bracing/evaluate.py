@@ -22,6 +22,7 @@ from bracing.wind import asce7, asce37, gusts
 STUD_SOLIDITY = 1.5 / 16.0  # open framing: 1.5 in studs at 16 in on centre (common practice)
 SPEED_BRACKET_MPH = (0.0, 400.0)
 HEIGHT_BRACKET_FT = (0.01, 300.0)
+TYPICAL_LIMIT_MPH = 90.0  # first trial of a speed search: near most working limits
 
 
 @dataclass(frozen=True)
@@ -321,22 +322,35 @@ def _ratio(demand, capacity):
         return np.where(capacity > 0, demand / capacity, np.where(demand > 0, np.inf, 0.0))
 
 
-def solve_increasing(g, lo: float, hi: float, size: int, iterations: int = 60,
-                     tolerance: float = 1e-9) -> np.ndarray:
+def solve_increasing(g, lo: float, hi: float, size: int, start=None, iterations: int = 60,
+                     tolerance: float = 1e-7) -> np.ndarray:
     """Root of an increasing g(x, rows) on [lo, hi] for many walls at once; NaN where none.
 
     `g(x, rows)` gives g of the walls `rows` (an index array) at their trial values `x`; each
-    step asks only for the walls not yet settled. Illinois regula falsi (a bracketing secant
-    step that halves a stale end's weight), falling back to bisection where the step leaves
-    the bracket: robust like bisection, fast like secant on these nearly linear utilizations.
+    step asks only for the walls not yet settled. `start` (a value or one per wall) is tried
+    first: it halves the bracket, and a start near the root saves most of the steps. Illinois
+    regula falsi (a bracketing secant step that halves a stale end's weight), falling back to
+    bisection where the step leaves the bracket: robust like bisection, fast like secant on
+    these nearly linear utilizations.
     """
     rows = np.arange(size)
     a = np.full(size, float(lo))
     b = np.full(size, float(hi))
-    ga, gb = g(a, rows), g(b, rows)
-    fa, fb = ga.copy(), gb.copy()
+    fa, fb = np.empty(size), np.empty(size)
+    known_a, known_b = np.zeros(size, bool), np.zeros(size, bool)
+    if start is not None:
+        x0 = np.clip(np.broadcast_to(np.asarray(start, dtype=float), size), lo, hi)
+        g0 = g(x0, rows)
+        known_a, known_b = g0 < 0.0, g0 >= 0.0  # NaN: neither; both ends are asked below
+        a[known_a], fa[known_a] = x0[known_a], g0[known_a]
+        b[known_b], fb[known_b] = x0[known_b], g0[known_b]
+    for x, f, known in ((a, fa, known_a), (b, fb, known_b)):
+        need = rows[~known]
+        f[need] = g(x[need], need)
+    at_lo = (a == lo) & (fa >= 0.0)  # g(lo) >= 0: the root is at (or below) lo
+    no_root = (b == hi) & (fb < 0.0)
     side = np.zeros(size)
-    active = rows[(ga < 0.0) & (gb >= 0.0)]  # walls without a root need no search
+    active = rows[(fa < 0.0) & (fb >= 0.0)]  # walls without a root need no search
     for _ in range(iterations):
         if len(active) == 0:
             break
@@ -360,8 +374,19 @@ def solve_increasing(g, lo: float, hi: float, size: int, iterations: int = 60,
             b[active] - a[active] < tolerance * (1.0 + np.abs(b[active])))
         active = active[~settled]
     root = np.where(np.abs(fa) < np.abs(fb), a, b)
-    root = np.where(ga >= 0.0, lo, root)
-    return np.where(gb < 0.0, np.nan, root)
+    root = np.where(at_lo, lo, root)
+    return np.where(no_root, np.nan, root)
+
+
+def solve_speed(g, size: int, start_mph=TYPICAL_LIMIT_MPH) -> np.ndarray:
+    """Gust speed (mph) at which an increasing g of the squared speed crosses 0, many walls at
+    once (NaN where none in the bracket).
+
+    Wind loads grow with V^2 (ASCE 7-16 Eq. 26.10-1), so `g(v2, rows)` is given the squared
+    speed: the utilizations are then nearly linear and the secant steps settle in a few passes.
+    """
+    lo, hi = SPEED_BRACKET_MPH
+    return np.sqrt(solve_increasing(g, lo**2, hi**2, size, start=np.square(start_mph)))
 
 
 @dataclass
@@ -519,19 +544,19 @@ def evaluate_arrays(site: Site, edges: dict[str, float] | None = None) -> Evalua
     # V^2, so the wind of a 1 mph gust is scaled rather than recomputed.
     unit = wind_on(w, 1.0, 1.0, None)
     checks = stability_checks(w, wind, factors)
-    limit = solve_increasing(
-        lambda v, rows: unbraced_at(take(w, rows), take(unit, rows).scaled(v**2), SERVICE),
-        *SPEED_BRACKET_MPH, n)
+    limit = solve_speed(
+        lambda v2, rows: unbraced_at(take(w, rows), take(unit, rows).scaled(v2), SERVICE), n)
 
     def at_height(h, rows, speed, kd, floor, f):
         trial = take(w, rows).at_height(h)
         return unbraced_at(trial, wind_on(trial, np.broadcast_to(speed, n)[rows], kd, floor), f)
     max_height = solve_increasing(
         lambda h, rows: at_height(h, rows, design_speed, asce7.KD_WALLS, minimum, factors),
-        *HEIGHT_BRACKET_FT, n)
+        *HEIGHT_BRACKET_FT, n, start=w.height)
     gust = site.site.limit_speed
     max_at_limit = (solve_increasing(lambda h, rows: at_height(h, rows, gust, 1.0, None, SERVICE),
-                                     *HEIGHT_BRACKET_FT, n) if gust else np.full(n, np.nan))
+                                     *HEIGHT_BRACKET_FT, n, start=w.height)
+                    if gust else np.full(n, np.nan))
     e = Evaluation(w, wind, checks, governing_utilization(checks), limit,
                    stand_down_speeds(site, w, limit), max_height, max_at_limit, design_speed)
     bs = braced.gather_braces(site, site.site.design_basis, edges)
@@ -557,12 +582,12 @@ def braced_limit(w: Walls, unit: Wind, bs: braced.BraceSet) -> np.ndarray:
     mine = replace(bs, index=np.arange(len(bs.index)))
     loads = braced.brace_loads(own, wind, mine, None)
 
-    def g(v, rows):
+    def g(v2, rows):
         sub = replace(take(mine, rows), index=np.arange(len(rows)))
-        checks, _ = braced.braced_checks(take(own, rows), take(wind, rows).scaled(v**2), sub,
-                                         SERVICE, None, loads.take(rows).scaled(v**2))
+        checks, _ = braced.braced_checks(take(own, rows), take(wind, rows).scaled(v2), sub,
+                                         SERVICE, None, loads.take(rows).scaled(v2))
         return governing_utilization(strength_only(checks)) - 1.0
-    return solve_increasing(g, *SPEED_BRACKET_MPH, len(bs.index))
+    return solve_speed(g, len(bs.index))
 
 
 def braced_limit_one_missing(w: Walls, unit: Wind, bs: braced.BraceSet) -> np.ndarray:
