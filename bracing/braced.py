@@ -450,26 +450,30 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
     return checks, forces
 
 
-def braced_details(bs: BraceSet, forces: BraceForces, r: int) -> dict:
-    """The §8 `braces` record of braced wall r (design wind, governing brace)."""
-    k = int(bs.mask[r].sum())
-    p = float(forces.axial[r].max())
-    pull, up = braces.components(p, bs.angle[r])
-    details = {
-        "count": k,
-        "angle_deg": float(bs.angle[r]),
-        "insert_height_ft": float(bs.insert[r]),
-        "anchor_distance_ft": float(bs.anchor_distance[r]),
-        "length_ft": float(bs.length[r]),
-        "axial_force_lb": p,
-        "anchor_uplift_lb": float(up),
-        "anchor_shear_lb": float(pull),
-        "positions_ft": [float(x) for x in bs.positions[r, :k]],
-        "brace_forces_lb": [float(x) for x in forces.axial[r, :k]],
-        "base_shear_lb": float(forces.base_shear[r]),
-        "base_uplift_lb": float(forces.total[r] * np.tan(np.radians(bs.angle[r]))),
-    }
-    if bs.foot_kind[r] == "helical":  # ICC-ES AC358: T = FS P / Kt, the torque the crew reaches
-        details["installation_torque_ftlb"] = float(anchors.required_torque(
-            p, bs.torque_factor[r], bs.torque_safety[r]))
-    return details
+def braced_records(bs: BraceSet, forces: BraceForces) -> list[dict]:
+    """The §8 `braces` record of every braced wall (design wind, governing brace), in row order."""
+    count = bs.mask.sum(axis=1)
+    p = forces.axial.max(axis=1)
+    pull, up = braces.components(p, bs.angle)
+    uplift = forces.total * np.tan(np.radians(bs.angle))
+    helical = bs.foot_kind == "helical"
+    # ICC-ES AC358: T = FS P / Kt, the torque the crew reaches
+    torque = np.where(helical, anchors.required_torque(p, bs.torque_factor, bs.torque_safety),
+                      np.nan)
+    out = []
+    for k, angle, insert, distance, length, axial, lift, shear, at, each, base, uplift_lb, \
+            helix, torque_ftlb in zip(
+                count.tolist(), bs.angle.tolist(), bs.insert.tolist(),
+                bs.anchor_distance.tolist(), bs.length.tolist(), p.tolist(), up.tolist(),
+                pull.tolist(), bs.positions.tolist(), forces.axial.tolist(),
+                forces.base_shear.tolist(), uplift.tolist(), helical.tolist(), torque.tolist()):
+        record = {
+            "count": k, "angle_deg": angle, "insert_height_ft": insert,
+            "anchor_distance_ft": distance, "length_ft": length, "axial_force_lb": axial,
+            "anchor_uplift_lb": lift, "anchor_shear_lb": shear, "positions_ft": at[:k],
+            "brace_forces_lb": each[:k], "base_shear_lb": base, "base_uplift_lb": uplift_lb,
+        }
+        if helix:
+            record["installation_torque_ftlb"] = torque_ftlb
+        out.append(record)
+    return out

@@ -7,7 +7,9 @@ them together, for the design wind, for observed gusts (working-limit speed) and
 
 from __future__ import annotations
 
+import gc
 import math
+from contextlib import contextmanager
 from dataclasses import dataclass, replace
 
 import numpy as np
@@ -408,34 +410,6 @@ class Evaluation:
     braced_limit: np.ndarray | None = None
     braced_stand_down: np.ndarray | None = None
     braced_limit_missing: np.ndarray | None = None
-    row: dict | None = None        # per-wall values as lists (as_lists)
-    brace_row: dict | None = None  # panel index -> row of the brace set
-
-    def as_lists(self) -> None:
-        """Arrays as Python lists: building thousands of result objects reads them one value at
-        a time, which lists do far faster than numpy arrays."""
-        for name in ("checks", "braced_checks"):
-            arrays = getattr(self, name)
-            if arrays is not None:
-                setattr(self, name, {k: (d.tolist(), c.tolist()) for k, (d, c) in arrays.items()})
-        w, wind = self.walls, self.wind
-        self.row = {
-            "weight": (w.face_weight * w.height * w.width * w.solidity).tolist(),
-            "period_factor": w.period_factor.tolist(), "design_speed": self.design_speed.tolist(),
-            "kz": wind.kz.tolist(), "q": wind.q.tolist(), "cf": wind.cf_case_a.tolist(),
-            "opening": wind.opening.tolist(), "force": wind.force_a.tolist(),
-            "lever": np.where(w.rigid, wind.lever, wind.lever_strip).tolist(),
-            "solidity": w.solidity.tolist(), "minimum": wind.minimum_governs.tolist(),
-            "cf_end": wind.cf_end.tolist(), "cf_interior": wind.cf_interior.tolist(),
-            "utilization": self.utilization.tolist(), "limit": self.limit.tolist(),
-            "stand_down": self.stand_down.tolist(), "max_height": self.max_height.tolist(),
-            "max_at_limit": self.max_at_limit.tolist(), "rigid": w.rigid.tolist(),
-        }
-        if self.braces is not None:
-            self.brace_row = {int(i): r for r, i in enumerate(self.braces.index)}
-            self.braced_limit = self.braced_limit.tolist()
-            self.braced_stand_down = self.braced_stand_down.tolist()
-            self.braced_limit_missing = self.braced_limit_missing.tolist()
 
 
 # Plan findings that depend on one wall alone go on the wall (and its days); crossings and
@@ -446,6 +420,21 @@ WALL_FINDINGS = ANCHOR_FINDINGS | {"brace-crosses-keep-clear", "zone-overlap",
                                    "zone-overlaps-crane-path"}
 
 
+@contextmanager
+def paused_cycle_collector():
+    """Python's cycle collector paused (and resumed if it ran): an evaluation builds many
+    thousands of objects, none in reference cycles, and each full collection would walk them
+    all again (a third of the time at 10,000 walls)."""
+    running = gc.isenabled()
+    gc.disable()
+    try:
+        yield
+    finally:
+        if running:
+            gc.enable()
+
+
+@paused_cycle_collector()
 def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     """Check every wall of the site and return the one result object.
 
@@ -466,8 +455,8 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
             site = layout.with_designs(site, found)
             places = plan.place(site)
             e = evaluate_arrays(site, plan.foot_edge_distances_in(site, places) if places else {})
-    e.as_lists()
-    panels = [_panel_result(site, i, e) for i in range(len(site.panels))]
+    build = _Results(site, e)
+    panels = [build.panel(i) for i in range(len(site.panels))]
     by_mark = {p.mark: p for p in panels}
     for i, d in designs.items():
         if d.layout is not None:
@@ -502,6 +491,7 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
         panels=panels, days=days, peak_inventory=peak, plan=geometry)
 
 
+@paused_cycle_collector()
 def evaluate_walls(site: Site, marks: set[str]) -> list[PanelResult]:
     """The wall checks of `marks` alone, fast: the walls and those on the same wall lines (they
     load each other), without the days and the plan findings (`evaluate` gives those).
@@ -515,8 +505,8 @@ def evaluate_walls(site: Site, marks: set[str]) -> list[PanelResult]:
         "panels": keep, "signoffs": [s for s in site.signoffs if s.panel in kept]})
     places = plan.place(sub)
     e = evaluate_arrays(sub, plan.foot_edge_distances_in(sub, places) if places else {})
-    e.as_lists()
-    return [_panel_result(sub, i, e) for i, p in enumerate(keep) if p.mark in marks]
+    build = _Results(sub, e)
+    return [build.panel(i) for i, p in enumerate(keep) if p.mark in marks]
 
 
 def _masonry_over_limit(site: Site, p) -> bool:
@@ -641,218 +631,285 @@ def basis_statement(site: Site) -> list[str]:
     ]
 
 
-def _panel_result(site: Site, i: int, e: Evaluation) -> PanelResult:
-    """Per-wall result objects from the arrays (the only per-wall loop after gathering)."""
-    p = site.panels[i]
-    mat = site.materials[p.material]
-    v = {k: values[i] for k, values in e.row.items()}
-    factors = COMBINATIONS[site.site.design_basis]
-    rigid = v["rigid"]
-    unbraced_checks = _checks_of(e.checks, i, factors, CHECK_INFO,
-                                 "whole panel" if rigid else "end zone",
-                                 unbraced_sources(e.walls, i))
-    if not rigid:
-        for c in unbraced_checks:
-            c.region += ", per ft"
-    flags = _flags(site, p, mat, e.walls, i, v["utilization"])
-    stands = v["utilization"] <= 1.0 and not any(f.code == "masonry-over-8ft" for f in flags)
-    limit, stand_down = v["limit"], v["stand_down"]
-    checks, status, details = unbraced_checks, "stands" if stands else "needs_braces", None
-    if p.bracing is not None:
-        r = e.brace_row[i]
-        checks = _checks_of(e.braced_checks, r, factors, braced.CHECKS)
-        foot = site.anchor_types[p.bracing.foot_anchor].kind if p.bracing.foot_anchor else None
-        specific = braced.sources(site.brace_types[p.bracing.brace_type].kind, foot)
-        for c in checks:
-            c.source = specific.get(c.element, c.source)
-        strength = [c for c in checks if c.element not in braced.SERVICEABILITY]
-        status = "braced" if all(c.passes for c in strength) else "unsafe"
-        limit = e.braced_limit[r]
-        stand_down = e.braced_stand_down[r]
-        details = braced.braced_details(e.braces, e.brace_forces, r)
-        details.update(brace_type=p.bracing.brace_type, wall_anchor=p.bracing.wall_anchor,
-                       foot_anchor=p.bracing.foot_anchor)
-        brace_checks = [c for c in checks if c.element.startswith("brace")]
-        details["utilization"] = max((c.utilization for c in brace_checks), default=None)
-        missing = e.braced_limit_missing[r]
-        details["working_limit_one_missing_mph"] = _or_none(missing)
-        flags.extend(braced_flags(site, p, e.braces, r, checks, limit, stand_down, missing))
-        flags = [f for f in flags if f.code not in ("fails-unbraced", "masonry-over-8ft")]
-    governing = max((c for c in checks if c.element not in braced.SERVICEABILITY),
-                    key=lambda c: c.utilization)
-    return PanelResult(
-        mark=p.mark, material=mat.kind, status=status, weight_lb=v["weight"],
-        height_ft=p.height, width_ft=p.width, thickness_in=p.thickness,
-        wind=WindResult(
-            basic_speed_mph=site.site.basic_wind_speed, period_factor=v["period_factor"],
-            period_factor_from="set" if site.site.period_factor else "standing time",
-            design_speed_mph=v["design_speed"], kz=v["kz"], kd=asce7.KD_WALLS,
-            kzt=e.walls.kzt, ke=e.walls.ke, gust_factor=asce7.GUST_FACTOR,
-            velocity_pressure_psf=v["q"], force_coefficient=v["cf"],
-            opening_factor=v["opening"], force_lb=v["force"],
-            resultant_height_ft=v["lever"], solidity=v["solidity"],
-            minimum_pressure_governs=v["minimum"], end_zone_force_coefficient=v["cf_end"],
-            interior_force_coefficient=v["cf_interior"]),
-        unbraced=UnbracedResult(
-            utilization=v["utilization"], stands=stands, working_limit_speed_mph=v["limit"],
-            stand_down_speed_mph=v["stand_down"],
-            max_height_ft=_capped(site, mat, v["max_height"]),
-            max_height_at_limit_ft=_capped(site, mat, v["max_at_limit"]),
-            max_height_structural_ft=_or_none(v["max_height"])),
-        checks=checks, flags=flags, working_limit_speed_mph=limit,
-        stand_down_speed_mph=stand_down,
-        governing_element=f"{governing.element} ({governing.region})",
-        braces=details, sustained_equivalents_mph=gusts.sustained_equivalents(stand_down))
+class _Results:
+    """Builds the per-wall result objects from one evaluation's arrays.
 
-
-def _checks_of(arrays: dict, row: int, factors: Factors, info: dict, whole: str = "",
-               sources: dict | None = None) -> list[Check]:
-    """The Check objects of one wall (row) from a dict of demand/capacity arrays.
-
-    `whole` names the region of checks keyed '*' (the whole panel or the end zone per foot);
-    `sources` replaces the generic source of an element with the one for this wall.
+    Every value the walls share (rules, sources, load combinations) is read once, and the
+    arrays become Python lists, which give single values far faster than numpy arrays do.
     """
-    items = []
-    combos = {"resisting": factors.resisting, "adding": factors.adding, "wind": factors.wind_only}
-    for key, (demand, capacity) in arrays.items():
-        d = demand[row]
-        if math.isnan(d):  # the check does not apply to this wall
-            continue
-        element, _, region = key.partition("|")
-        unit, kind, source = info[element]
-        region = whole if region == "*" else region or "worst brace"
-        items.append(Check(element, region, d, capacity[row], unit, combos[kind],
-                           (sources or {}).get(element, source)))
-    return items
+
+    def __init__(self, site: Site, e: Evaluation):
+        self.site, self.panels = site, site.panels
+        f = COMBINATIONS[site.site.design_basis]
+        combos = {"resisting": f.resisting, "adding": f.adding, "wind": f.wind_only}
+        self.unbraced = _check_columns(e.checks, CHECK_INFO, combos)
+        w, wind = e.walls, e.wind
+        self.row = {
+            "weight": (w.face_weight * w.height * w.width * w.solidity).tolist(),
+            "period_factor": w.period_factor.tolist(), "design_speed": e.design_speed.tolist(),
+            "kz": wind.kz.tolist(), "q": wind.q.tolist(), "cf": wind.cf_case_a.tolist(),
+            "opening": wind.opening.tolist(), "force": wind.force_a.tolist(),
+            "lever": np.where(w.rigid, wind.lever, wind.lever_strip).tolist(),
+            "solidity": w.solidity.tolist(), "minimum": wind.minimum_governs.tolist(),
+            "cf_end": wind.cf_end.tolist(), "cf_interior": wind.cf_interior.tolist(),
+            "utilization": e.utilization.tolist(), "limit": e.limit.tolist(),
+            "stand_down": e.stand_down.tolist(), "max_height": e.max_height.tolist(),
+            "max_at_limit": e.max_at_limit.tolist(), "rigid": w.rigid.tolist(),
+            "masonry": w.masonry.tolist(), "fresh": w.fresh.tolist(),
+        }
+        self.wind_common = {
+            "basic_speed_mph": site.site.basic_wind_speed,
+            "period_factor_from": "set" if site.site.period_factor else "standing time",
+            "kd": asce7.KD_WALLS, "kzt": w.kzt, "ke": w.ke, "gust_factor": asce7.GUST_FACTOR}
+        self.rule = {name: site.rule_value(name) for name in (
+            "masonry_unbraced_height_ft", "minimum_braces_per_panel", "brace_angle_min_deg",
+            "brace_angle_max_deg", "insert_min_height_ratio")}
+        self.source = {name: site.rule(name).source for name in self.rule}
+        self.hardware: dict[tuple, tuple[dict, list[Flag], list[Flag]]] = {}
+        if e.braces is not None:
+            bs = e.braces
+            self.braced = _check_columns(e.braced_checks, braced.CHECKS, combos)
+            self.brace_row = {int(i): r for r, i in enumerate(bs.index)}
+            self.records = braced.braced_records(bs, e.brace_forces)
+            self.brace_row_values = {
+                "limit": e.braced_limit.tolist(), "stand_down": e.braced_stand_down.tolist(),
+                "missing": e.braced_limit_missing.tolist(), "angle": bs.angle.tolist(),
+                "length": bs.length.tolist(), "slenderness": bs.slenderness.tolist(),
+                "slenderness_limit": bs.slenderness_limit.tolist()}
+
+    def panel(self, i: int) -> PanelResult:
+        """The result object of wall i."""
+        site, p, v = self.site, self.panels[i], {k: values[i] for k, values in self.row.items()}
+        mat = site.materials[p.material]
+        rigid = v["rigid"]
+        kind = "rigid" if rigid else "masonry" if v["masonry"] and not v["fresh"] else \
+            "fresh" if v["masonry"] else "strip"
+        checks = _checks(self.unbraced, i, kind, UNBRACED_SOURCES[kind])
+        flags = self._wall_flags(p, mat, v)
+        utilization = v["utilization"]
+        stands = utilization <= 1.0 and not any(f.code == "masonry-over-8ft" for f in flags)
+        limit, stand_down = v["limit"], v["stand_down"]
+        status, details = "stands" if stands else "needs_braces", None
+        if p.bracing is not None:
+            r = self.brace_row[i]
+            specific, *hardware_flags = self._hardware(p.bracing)
+            checks = _checks(self.braced, r, "braced", specific)
+            status = "braced" if all(c.passes for c in checks
+                                     if c.element not in braced.SERVICEABILITY) else "unsafe"
+            b = self.brace_row_values
+            limit, stand_down, missing = b["limit"][r], b["stand_down"][r], b["missing"][r]
+            details = dict(self.records[r], brace_type=p.bracing.brace_type,
+                           wall_anchor=p.bracing.wall_anchor, foot_anchor=p.bracing.foot_anchor)
+            details["utilization"] = max((c.utilization for c in checks
+                                          if c.element.startswith("brace")), default=None)
+            details["working_limit_one_missing_mph"] = _or_none(missing)
+            flags = [f for f in flags if f.code not in ("fails-unbraced", "masonry-over-8ft")]
+            flags += self._braced_flags(p, r, checks, limit, stand_down, missing,
+                                        *hardware_flags)
+        governing = max((c for c in checks if c.element not in braced.SERVICEABILITY),
+                        key=lambda c: c.utilization)
+        return PanelResult(
+            mark=p.mark, material=mat.kind, status=status, weight_lb=v["weight"],
+            height_ft=p.height, width_ft=p.width, thickness_in=p.thickness,
+            wind=WindResult(
+                period_factor=v["period_factor"], design_speed_mph=v["design_speed"],
+                kz=v["kz"], velocity_pressure_psf=v["q"], force_coefficient=v["cf"],
+                opening_factor=v["opening"], force_lb=v["force"],
+                resultant_height_ft=v["lever"], solidity=v["solidity"],
+                minimum_pressure_governs=v["minimum"], end_zone_force_coefficient=v["cf_end"],
+                interior_force_coefficient=v["cf_interior"], **self.wind_common),
+            unbraced=UnbracedResult(
+                utilization=utilization, stands=stands, working_limit_speed_mph=v["limit"],
+                stand_down_speed_mph=v["stand_down"],
+                max_height_ft=self._capped(mat, v["max_height"]),
+                max_height_at_limit_ft=self._capped(mat, v["max_at_limit"]),
+                max_height_structural_ft=_or_none(v["max_height"])),
+            checks=checks, flags=flags, working_limit_speed_mph=limit,
+            stand_down_speed_mph=stand_down,
+            governing_element=f"{governing.element} ({governing.region})",
+            braces=details, sustained_equivalents_mph=gusts.sustained_equivalents(stand_down))
+
+    def _capped(self, mat, height: float) -> float | None:
+        """The tallest a wall may stand unbraced: masonry no taller than OSHA 1926.706(b)
+        allows."""
+        limit = self.rule["masonry_unbraced_height_ft"]
+        if mat.kind == "masonry" and limit is not None and not math.isnan(height):
+            height = min(height, limit)
+        return _or_none(height)
+
+    def _wall_flags(self, p, mat, v: dict) -> list[Flag]:
+        """Flags of the wall standing on its own."""
+        flags: list[Flag] = []
+        utilization = v["utilization"]
+        if utilization > 1.0:
+            flags.append(Flag("fails-unbraced", "danger",
+                              f"cannot stand on its own at the design wind (utilization "
+                              f"{utilization:.2f}): brace it before release from the crane",
+                              "ASCE 7-16 §29.3, statics"))
+        limit = self.rule["masonry_unbraced_height_ft"]
+        if mat.kind == "masonry" and limit is not None and p.height > limit:
+            flags.append(Flag("masonry-over-8ft", "danger",
+                              f"masonry wall {p.height:.1f} ft tall: over {limit:g} ft it must "
+                              f"be braced until permanent supports are in place",
+                              self.source["masonry_unbraced_height_ft"]))
+        open_share = 1.0 - v["solidity"]
+        if open_share > 0.3:
+            flags.append(Flag("mostly-open", "warning",
+                              f"{open_share:.0%} open: checked as an open wall (open-sign "
+                              f"coefficients on the solid area)", "ASCE 7-16 Figure 29.3-1 note 3"))
+        if p.opening_area:
+            flags.append(Flag("opening-position-unknown", "notice",
+                              "openings given by area only: resultant kept at 0.55 h",
+                              "ASCE 7-16 Figure 29.3-1"))
+        if p.base_elevation > 0:
+            flags.append(Flag("raised-base", "notice",
+                              f"base {p.base_elevation:g} ft above grade: s/h < 1 coefficients",
+                              "ASCE 7-16 Figure 29.3-1"))
+        if v["masonry"] and v["fresh"]:
+            flags.append(Flag("fresh-mortar", "notice",
+                              "mortar not yet cured: stability by weight only, no flexural "
+                              "tension", "TMS 402-16 §8.2 (from memory)"))
+        if mat.kind == "framed" and not mat.sheathed:
+            flags.append(Flag("open-framing", "notice",
+                              "unsheathed framing checked as an open wall", "ASCE 7-16 §29.3"))
+        return flags
+
+    def _hardware(self, b) -> tuple[dict, list[Flag], list[Flag]]:
+        """The check sources, brace flags and anchor flags that follow from a brace and foot
+        anchor type alone (the same for every wall that uses them), worked out once per pair."""
+        key = (b.brace_type, b.foot_anchor)
+        if key not in self.hardware:
+            site = self.site
+            bt = site.brace_types[b.brace_type]
+            fa = site.anchor_types[b.foot_anchor] if b.foot_anchor else None
+            brace_flags, anchor_flags = [], []
+            if bt.kind == "pipe":
+                pipe = PIPES[bt.section]
+                if not members.pipe_wall_nonslender(pipe.od_in, pipe.t_design_in,
+                                                    bt.yield_strength / 1000.0):
+                    brace_flags.append(Flag(
+                        "slender-pipe-wall", "danger", f"{bt.section} at Fy "
+                        f"{bt.yield_strength / 1000.0:g} ksi has a slender wall: its local "
+                        "buckling is not checked here", "AISC 360-16 Table B4.1a"))
+            if fa is not None and fa.kind == "slab" and not fa.cast_in and not bool(
+                    anchors.post_installed_embedment_ok(fa.embedment, fa.slab_thickness)):
+                anchor_flags.append(Flag(
+                    "anchor-too-deep", "warning", f"post-installed anchor {b.foot_anchor}: "
+                    f"h_ef {fa.embedment:g} in is more than the {fa.slab_thickness:g} in slab "
+                    "allows", "ACI 318-19 §17.9.4 (from memory)"))
+            self.hardware[key] = (braced.sources(bt.kind, fa.kind if fa else None),
+                                  brace_flags, anchor_flags)
+        return self.hardware[key]
+
+    def _braced_flags(self, p, r: int, checks: list[Check], limit: float, stand_down: float,
+                      missing: float, brace_flags: list[Flag], anchor_flags: list[Flag]
+                      ) -> list[Flag]:
+        """Flags of a braced wall: failing elements, rules of practice, robustness (§6), with
+        those of its brace and anchor types."""
+        b, rule, source = p.bracing, self.rule, self.source
+        values = self.brace_row_values
+        flags = []
+        for c in checks:
+            if not c.passes:
+                serviceability = c.element in braced.SERVICEABILITY
+                flags.append(Flag(
+                    f"{c.element.replace(' ', '-')}-over",
+                    "warning" if serviceability else "danger",
+                    f"{c.element}: utilization {c.utilization:.2f}"
+                    + (" (the wall would crack)" if serviceability else ""), c.source))
+        if any(c.element == "base uplift" and not c.passes for c in checks):
+            flags.append(Flag("braces-lift-wall", "danger", "the braces in compression lift "
+                              "the wall off its base", "statics, design.md §6"))
+        least = rule["minimum_braces_per_panel"]
+        if least and b.count < least:
+            flags.append(Flag("too-few-braces", "danger", f"{b.count} brace(s); at least "
+                              f"{least:g} per wall", source["minimum_braces_per_panel"]))
+        lo, hi = rule["brace_angle_min_deg"], rule["brace_angle_max_deg"]
+        angle = values["angle"][r]
+        if lo and hi and not lo - 1e-9 <= angle <= hi + 1e-9:
+            flags.append(Flag("brace-angle", "warning", f"brace angle {angle:.0f} deg is outside "
+                              f"{lo:g} to {hi:g} deg", source["brace_angle_min_deg"]))
+        ratio = rule["insert_min_height_ratio"]
+        if ratio and b.insert_height < ratio * p.height - 1e-9:
+            flags.append(Flag("low-insert", "notice", f"insert at {b.insert_height / p.height:.0%}"
+                              f" of the height, below {ratio:.0%}",
+                              source["insert_min_height_ratio"]))
+        if b.count >= 3 and not b.pretensioned:
+            flags.append(Flag("unequal-sharing", "notice", "3 or more braces share unevenly "
+                              "through slop unless pre-tensioned", "common practice"))
+        if b.count == 2:
+            flags.append(Flag("no-margin", "warning", "if one of its two braces is struck, "
+                              "nothing but friction at the base holds the wall against twist "
+                              "(none is credited): keep equipment clear of the braces",
+                              "design.md §6 robustness"))
+        elif b.count > 2 and not math.isnan(missing) and missing < stand_down:
+            flags.append(Flag("no-margin", "warning", f"with one brace struck, the wall's limit "
+                              f"falls to {missing:.0f} mph, below the stand-down gust "
+                              f"{stand_down:.0f} mph", "design.md §6 robustness (team rule)"))
+        slender, limit_ratio = values["slenderness"][r], values["slenderness_limit"][r]
+        if slender > limit_ratio:
+            flags.append(Flag("slender-brace", "danger", f"brace slenderness {slender:.0f} "
+                              f"exceeds {limit_ratio:.0f}: add lateral struts or a knee brace",
+                              "AISC 360-16 §E2 user note / NDS 2018 §3.7.1.4"))
+        flags += brace_flags
+        bt = self.site.brace_types[b.brace_type]
+        length = values["length"][r]
+        if bt.kind == "rated" and not bt.lengths[0] <= length <= bt.lengths[-1]:
+            flags.append(Flag("outside-rated-range", "danger", f"brace length {length:.1f} ft "
+                              f"is outside the rated table ({bt.lengths[0]:g} to "
+                              f"{bt.lengths[-1]:g} ft): no rating", "maker's rated table"))
+        flags += anchor_flags
+        if math.isnan(limit):
+            flags.append(Flag("capacity-unknown", "warning", "a brace or anchor capacity is "
+                              "unknown (outside its rated range?): no working-limit speed",
+                              "design.md §3"))
+        return flags
 
 
-def unbraced_sources(w: Walls, i: int) -> dict[str, str]:
-    """The sources of a wall's own checks by its material and mortar."""
-    if w.rigid[i]:
-        return {}
-    if w.masonry[i] and not w.fresh[i]:
-        return {"overturning": "TMS 402-16 §8.2 flexural tension (from memory), or W t/2 if "
+# The sources of a wall's own checks by how it stands: a rigid panel, cured or fresh masonry,
+# another wall built in place.
+UNBRACED_SOURCES = {
+    "rigid": {},
+    "masonry": {"overturning": "TMS 402-16 §8.2 flexural tension (from memory), or W t/2 if "
                                "larger",
                 "sliding at base": "TMS 402-16 §8.2.6.2 bed-joint shear (from memory), or "
-                                   "friction if larger"}
-    if w.masonry[i]:
-        return {"overturning": "statics, W t/2 about the bed joint (fresh mortar: weight only)",
-                "sliding at base": "friction, mu 0.6 (fresh mortar: no bond)"}
-    return {"overturning": "statics, W t/2 about the sill"}
+                                   "friction if larger"},
+    "fresh": {"overturning": "statics, W t/2 about the bed joint (fresh mortar: weight only)",
+              "sliding at base": "friction, mu 0.6 (fresh mortar: no bond)"},
+    "strip": {"overturning": "statics, W t/2 about the sill"},
+}
+UNBRACED_SOURCES["braced"] = {}
 
 
-def braced_flags(site, p, bs, r, checks, limit, stand_down, missing) -> list[Flag]:
-    """Flags of a braced wall: failing elements, rules of practice, robustness (design.md §6)."""
-    b = p.bracing
-    flags = []
-    for c in checks:
-        if not c.passes:
-            serviceability = c.element in braced.SERVICEABILITY
-            flags.append(Flag(
-                f"{c.element.replace(' ', '-')}-over", "warning" if serviceability else "danger",
-                f"{c.element}: utilization {c.utilization:.2f}"
-                + (" (the wall would crack)" if serviceability else ""), c.source))
-    if any(c.element == "base uplift" and not c.passes for c in checks):
-        flags.append(Flag("braces-lift-wall", "danger", "the braces in compression lift the "
-                          "wall off its base", "statics, design.md §6"))
-    least = site.rule_value("minimum_braces_per_panel")
-    if least and b.count < least:
-        flags.append(Flag("too-few-braces", "danger", f"{b.count} brace(s); at least {least:g} "
-                          "per wall", site.rule("minimum_braces_per_panel").source))
-    lo, hi = site.rule_value("brace_angle_min_deg"), site.rule_value("brace_angle_max_deg")
-    angle = float(bs.angle[r])
-    if lo and hi and not lo - 1e-9 <= angle <= hi + 1e-9:
-        flags.append(Flag("brace-angle", "warning", f"brace angle {angle:.0f} deg is outside "
-                          f"{lo:g} to {hi:g} deg", site.rule("brace_angle_min_deg").source))
-    ratio = site.rule_value("insert_min_height_ratio")
-    if ratio and b.insert_height < ratio * p.height - 1e-9:
-        flags.append(Flag("low-insert", "notice", f"insert at {b.insert_height / p.height:.0%} "
-                          f"of the height, below {ratio:.0%}",
-                          site.rule("insert_min_height_ratio").source))
-    if b.count >= 3 and not b.pretensioned:
-        flags.append(Flag("unequal-sharing", "notice", "3 or more braces share unevenly through "
-                          "slop unless pre-tensioned", "common practice"))
-    if b.count == 2:
-        flags.append(Flag("no-margin", "warning", "if one of its two braces is struck, nothing "
-                          "but friction at the base holds the wall against twist (none is "
-                          "credited): keep equipment clear of the braces",
-                          "design.md §6 robustness"))
-    elif b.count > 2 and not np.isnan(missing) and missing < stand_down:
-        flags.append(Flag("no-margin", "warning", f"with one brace struck, the wall's limit "
-                          f"falls to {missing:.0f} mph, below the stand-down gust "
-                          f"{stand_down:.0f} mph", "design.md §6 robustness (team rule)"))
-    slender, limit_ratio = bs.slenderness[r], bs.slenderness_limit[r]
-    if slender > limit_ratio:
-        flags.append(Flag("slender-brace", "danger", f"brace slenderness {slender:.0f} exceeds "
-                          f"{limit_ratio:.0f}: add lateral struts or a knee brace",
-                          "AISC 360-16 §E2 user note / NDS 2018 §3.7.1.4"))
-    bt = site.brace_types[b.brace_type]
-    if bt.kind == "pipe":
-        pipe = PIPES[bt.section]
-        if not members.pipe_wall_nonslender(pipe.od_in, pipe.t_design_in,
-                                            bt.yield_strength / 1000.0):
-            flags.append(Flag("slender-pipe-wall", "danger", f"{bt.section} at Fy "
-                              f"{bt.yield_strength / 1000.0:g} ksi has a slender wall: its "
-                              "local buckling is not checked here", "AISC 360-16 Table B4.1a"))
-    if bt.kind == "rated" and not bt.lengths[0] <= bs.length[r] <= bt.lengths[-1]:
-        flags.append(Flag("outside-rated-range", "danger", f"brace length {bs.length[r]:.1f} ft "
-                          f"is outside the rated table ({bt.lengths[0]:g} to {bt.lengths[-1]:g} "
-                          "ft): no rating", "maker's rated table"))
-    fa = site.anchor_types.get(b.foot_anchor) if b.foot_anchor else None
-    if fa is not None and fa.kind == "slab" and not fa.cast_in and not bool(
-            anchors.post_installed_embedment_ok(fa.embedment, fa.slab_thickness)):
-        flags.append(Flag("anchor-too-deep", "warning", f"post-installed anchor {b.foot_anchor}: "
-                          f"h_ef {fa.embedment:g} in is more than the {fa.slab_thickness:g} in "
-                          "slab allows", "ACI 318-19 §17.9.4 (from memory)"))
-    if np.isnan(limit):
-        flags.append(Flag("capacity-unknown", "warning", "a brace or anchor capacity is unknown "
-                          "(outside its rated range?): no working-limit speed", "design.md §3"))
-    return flags
+def _check_columns(arrays: dict, info: dict, combos: dict) -> list[tuple]:
+    """Each check of a dict of demand/capacity arrays as (element, region by kind of wall, unit,
+    combination, source, demands, capacities), the arrays as lists.
+
+    A key 'element|region' names its region; '*' is the whole panel, or the end zone of a wall
+    built in place; no region is the worst brace. Walls built in place are checked per ft.
+    """
+    out = []
+    for key, (demand, capacity) in arrays.items():
+        element, _, region = key.partition("|")
+        unit, kind, source = info[element]
+        regions = {"rigid": "whole panel" if region == "*" else region,
+                   "braced": region or "worst brace"}
+        strip = f"{'end zone' if region == '*' else region}, per ft"
+        regions.update(masonry=strip, fresh=strip, strip=strip)
+        out.append((element, regions, unit, combos[kind], source, demand.tolist(),
+                    capacity.tolist()))
+    return out
 
 
-def _capped(site: Site, mat, height) -> float | None:
-    """The tallest a wall may stand unbraced: masonry no taller than OSHA 1926.706(b) allows."""
-    limit = site.rule_value("masonry_unbraced_height_ft")
-    if mat.kind == "masonry" and limit is not None and not math.isnan(height):
-        height = min(height, limit)
-    return _or_none(height)
+def _checks(columns: list[tuple], row: int, kind: str, sources: dict) -> list[Check]:
+    """The Check objects of one wall (`row` of the arrays) that apply to it (demand not NaN)."""
+    return [Check(element, regions[kind], demand[row], capacity[row], unit, combination,
+                  sources.get(element, source))
+            for element, regions, unit, combination, source, demand, capacity in columns
+            if not math.isnan(demand[row])]
 
 
 def _or_none(x) -> float | None:
     return None if math.isnan(x) else float(x)
 
 
-def _flags(site: Site, p, mat, w: Walls, i: int, utilization: float) -> list[Flag]:
-    flags: list[Flag] = []
-    if utilization > 1.0:
-        flags.append(Flag("fails-unbraced", "danger",
-                          f"cannot stand on its own at the design wind (utilization "
-                          f"{utilization:.2f}): brace it before release from the crane",
-                          "ASCE 7-16 §29.3, statics"))
-    limit = site.rule_value("masonry_unbraced_height_ft")
-    if _masonry_over_limit(site, p):
-        flags.append(Flag("masonry-over-8ft", "danger",
-                          f"masonry wall {p.height:.1f} ft tall: over {limit:g} ft it must be "
-                          f"braced until permanent supports are in place",
-                          site.rule("masonry_unbraced_height_ft").source))
-    open_share = 1.0 - w.solidity[i]
-    if open_share > 0.3:
-        flags.append(Flag("mostly-open", "warning",
-                          f"{open_share:.0%} open: checked as an open wall (open-sign "
-                          f"coefficients on the solid area)", "ASCE 7-16 Figure 29.3-1 note 3"))
-    if p.opening_area:
-        flags.append(Flag("opening-position-unknown", "notice",
-                          "openings given by area only: resultant kept at 0.55 h",
-                          "ASCE 7-16 Figure 29.3-1"))
-    if p.base_elevation > 0:
-        flags.append(Flag("raised-base", "notice",
-                          f"base {p.base_elevation:g} ft above grade: s/h < 1 coefficients",
-                          "ASCE 7-16 Figure 29.3-1"))
-    if w.masonry[i] and w.fresh[i]:
-        flags.append(Flag("fresh-mortar", "notice",
-                          "mortar not yet cured: stability by weight only, no flexural tension",
-                          "TMS 402-16 §8.2 (from memory)"))
-    if mat.kind == "framed" and not mat.sheathed:
-        flags.append(Flag("open-framing", "notice", "unsheathed framing checked as an open wall",
-                          "ASCE 7-16 §29.3"))
-    return flags
