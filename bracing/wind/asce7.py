@@ -47,7 +47,6 @@ _C_CF = np.array([
     [4.30, 2.55, 1.95, 1.85, 1.85, 1.10, 0.55],  # >= 45
 ])
 _C_STARRED = _C_B_OVER_S >= 5.0  # asterisked 0-s cells: B/s 5 to 10, 13, >= 45
-_C_FIRST_BIN = np.arange(_C_CF.shape[1]) == 0
 
 # ASCE 7-16 Figure 29.3-1, Case C return-corner note: Lr/s 0.3, 1.0, >= 2 -> 0.90, 0.75, 0.60.
 # Team's reading: 1.0 at Lr/s = 0 (no return), linear from 0 to 0.3 like the rest of the table.
@@ -133,15 +132,16 @@ def _return_corner_factor(return_ratio):
 
 
 def _case_c_bins(b_over_s, s_over_h, return_ratio):
-    """Case C Cf in each x/s bin (last axis), interpolated linearly in B/s column by column."""
+    """Case C Cf in each x/s bin (last axis), interpolated linearly in B/s column by column,
+    the asterisked 0-s cells reduced for a return corner."""
     i, w = _interp_index(_C_B_OVER_S, b_over_s)
-    reduction = _return_corner_factor(return_ratio)[..., None]
+    bins = (1.0 - w)[..., None] * _C_CF[i] + w[..., None] * _C_CF[i + 1]
+    if np.any(return_ratio):
+        reduction = _return_corner_factor(return_ratio)
 
-    def column(k):  # one tabulated column, asterisked cells reduced for a return corner
-        starred = _C_FIRST_BIN & _C_STARRED[k][..., None]
-        return _C_CF[k] * np.where(starred, reduction, 1.0)
-
-    bins = (1.0 - w)[..., None] * column(i) + w[..., None] * column(i + 1)
+        def first(k):  # the 0-s cell of one tabulated column
+            return _C_CF[k, 0] * np.where(_C_STARRED[k], reduction, 1.0)
+        bins[..., 0] = (1.0 - w) * first(i) + w * first(i + 1)
     tall = np.minimum(1.0, 1.8 - np.minimum(s_over_h, 1.0))  # Figure 29.3-1 note 4: s/h > 0.8
     return bins * tall[..., None]
 
