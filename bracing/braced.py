@@ -52,12 +52,14 @@ class BraceSet:
 
 
 def take(obj, rows):
-    """The same arrays restricted (or repeated) to `rows` along their first axis."""
-    values = {}
-    for f in fields(obj):
-        v = getattr(obj, f.name)
-        values[f.name] = v[rows] if isinstance(v, np.ndarray) and v.ndim >= 1 else v
-    return replace(obj, **values)
+    """The same arrays restricted (or repeated) to `rows` along their first axis; the object
+    itself when `rows` is every row in order (its arrays are never changed in place)."""
+    arrays = {f.name: v for f in fields(obj)
+              if isinstance(v := getattr(obj, f.name), np.ndarray) and v.ndim >= 1}
+    size = len(next(iter(arrays.values())))
+    if len(rows) == size and np.array_equal(rows, np.arange(size)):
+        return obj
+    return replace(obj, **{name: v[rows] for name, v in arrays.items()})
 
 
 def gather_braces(site, basis: str, edges: dict[str, float] | None = None) -> BraceSet | None:
@@ -238,8 +240,30 @@ class BraceLoads:
 
 
 def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
-    """The wind load cases on each braced wall (design.md §4, §6)."""
-    i = bs.index
+    """The wind load cases on each braced wall (design.md §4, §6): a rigid panel's cases as a
+    whole, the strips of a wall built in place (each worked out for the walls that use it)."""
+    rigid = walls.rigid[bs.index]
+    m, k = bs.mask.shape
+    case_force, case_at = np.zeros((LOAD_CASES, m)), np.zeros((LOAD_CASES, m))
+    strip = np.zeros((m, k))
+    rows = np.nonzero(rigid)[0]
+    if len(rows):
+        case_force[:, rows], case_at[:, rows] = _case_loads(walls, wind, bs.index[rows],
+                                                            minimum_psf)
+    rows = np.nonzero(~rigid)[0]
+    if len(rows):
+        strip[rows] = _strip_loads(walls, wind, take(bs, rows), minimum_psf)
+    return BraceLoads(case_force, case_at, strip)
+
+
+LOAD_CASES = 7  # Case A, Case B from either edge, Case C from either end, the line's two ends
+
+
+def _case_loads(walls, wind, i, minimum_psf) -> tuple[np.ndarray, np.ndarray]:
+    """Forces (lb) of a rigid panel's load cases and where they act from its first edge (ft).
+
+    Cases A, B (either edge) and C (either end), the braces carrying the twist; on a wall
+    line, the line's Case C over this panel's width from either end."""
     s, b = walls.height[i], walls.width[i]
     b_over_s = b / s
     s_over_h = s / (walls.base[i] + s)
@@ -248,8 +272,6 @@ def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
         return np.where(np.isnan(cf), 0.0, np.maximum(
             wind.q[i] * asce7.GUST_FACTOR * np.nan_to_num(cf) * wind.opening[i] * wind.area[i],
             (minimum_psf or 0.0) * b * s))  # ASCE 7-16 Eq. 29.3-1 and §29.7
-    # Rigid panels: Cases A, B (either edge) and C (either end), the braces carrying the twist;
-    # on a wall line, the line's Case C over this panel's width from either end.
     centroid = walls.centroid_x_ratio[i] * b
     cf_c, xc_c = asce7.case_c_mean(0.0, b_over_s, b_over_s, s_over_h)
     alone = (b_over_s >= 2.0) & ~walls.in_line[i]
@@ -258,8 +280,7 @@ def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
     forces = [wind.force_a[i]] * 3 + [force_c, force_c, line_left, line_right]
     at = [centroid, centroid + 0.2 * b, centroid - 0.2 * b, xc_c * s, b - xc_c * s,
           np.nan_to_num(walls.line_left_x[i]), np.nan_to_num(walls.line_right_x[i])]
-    return BraceLoads(np.array(forces), np.array(at),
-                      _strip_loads(walls, wind, bs, minimum_psf, s, b, b_over_s, s_over_h))
+    return np.array(forces), np.array(at)
 
 
 def brace_forces(walls, wind, loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
@@ -302,9 +323,12 @@ def brace_forces(walls, wind, loads: BraceLoads, bs: BraceSet, f) -> BraceForces
     return BraceForces(horizontal, axial, total, shear, force)
 
 
-def _strip_loads(walls, wind, bs, minimum_psf, s, b, b_over_s, s_over_h):
+def _strip_loads(walls, wind, bs, minimum_psf):
     """Wind on each brace's tributary strip of a wall built in place (lb, in slot order)."""
     i = bs.index
+    s, b = walls.height[i], walls.width[i]
+    b_over_s = b / s
+    s_over_h = s / (walls.base[i] + s)
     x = np.where(bs.mask, bs.positions, np.nan)
     order = np.sort(x, axis=1)
     mids = (order[:, 1:] + order[:, :-1]) / 2.0
