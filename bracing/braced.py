@@ -284,7 +284,10 @@ def _case_loads(walls, wind, i, minimum_psf) -> tuple[np.ndarray, np.ndarray]:
 
 
 def brace_forces(walls, wind, loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
-    """Per-brace factored forces, the governing load case of each brace (design.md §6)."""
+    """Per-brace factored forces, the governing load case of each brace (design.md §6).
+
+    A rigid panel's braces share each load case with the twist; a wall built in place gives
+    each brace its own strip. Both add the wall's lean on the braces."""
     i = bs.index
     s, b = walls.height[i], walls.width[i]
     hb = bs.insert
@@ -295,29 +298,31 @@ def brace_forces(walls, wind, loads: BraceLoads, bs: BraceSet, f) -> BraceForces
     lever_of = braces.brace_lever(bs.positions, bs.mask)
     lean = braces.brace_shares(lean_total, np.zeros_like(hb), centre, centre, bs.positions,
                                bs.mask, lever_of)
-    lever = wind.lever[i]
     horizontal = np.zeros(bs.positions.shape)
-    total = np.zeros(len(i))
-    shear = np.zeros(len(i))
-    force = np.zeros(len(i))
-    for case_force, at in zip(loads.case_force, loads.case_at):
-        sum_h = f.wind * braces.total_brace_reaction(case_force, lever, hb)
-        r = braces.brace_shares(sum_h, f.wind * case_force, at, centre, bs.positions, bs.mask,
-                                lever_of)
-        horizontal = np.maximum(horizontal, np.abs(np.nan_to_num(r + lean)))
-        force = np.where(sum_h > total, case_force, force)
-        total = np.maximum(total, sum_h)
-        shear = np.maximum(shear, np.abs(f.wind * case_force - sum_h))
-    # Walls built in place: each brace takes its own strip of wall.
-    strip_h = f.wind * braces.total_brace_reaction(loads.strip, wind.lever_strip[i][:, None],
-                                                   hb[:, None])
-    strip_total = strip_h.sum(axis=1)
-    strip_force = loads.strip.sum(axis=1)
+    total, shear, force = np.zeros(len(i)), np.zeros(len(i)), np.zeros(len(i))
     rigid = walls.rigid[i]
-    horizontal = np.where(rigid[:, None], horizontal, strip_h + np.abs(np.nan_to_num(lean)))
-    total = np.where(rigid, total, strip_total) + lean_total
-    shear = np.where(rigid, shear, np.abs(f.wind * strip_force - strip_total)) + lean_total
-    force = np.where(rigid, force, strip_force)
+    r = np.nonzero(rigid)[0]
+    if len(r):
+        lever, arms = wind.lever[i[r]], tuple(v[r] for v in lever_of)
+        for case_force, at in zip(loads.case_force[:, r], loads.case_at[:, r]):
+            sum_h = f.wind * braces.total_brace_reaction(case_force, lever, hb[r])
+            shares = braces.brace_shares(sum_h, f.wind * case_force, at, centre[r],
+                                         bs.positions[r], bs.mask[r], arms)
+            horizontal[r] = np.maximum(horizontal[r], np.abs(np.nan_to_num(shares + lean[r])))
+            force[r] = np.where(sum_h > total[r], case_force, force[r])
+            total[r] = np.maximum(total[r], sum_h)
+            shear[r] = np.maximum(shear[r], np.abs(f.wind * case_force - sum_h))
+    r = np.nonzero(~rigid)[0]
+    if len(r):  # walls built in place: each brace takes its own strip of wall
+        strip = loads.strip[r]
+        strip_h = f.wind * braces.total_brace_reaction(strip, wind.lever_strip[i[r]][:, None],
+                                                       hb[r][:, None])
+        horizontal[r] = strip_h + np.abs(np.nan_to_num(lean[r]))
+        total[r] = strip_h.sum(axis=1)
+        force[r] = strip.sum(axis=1)
+        shear[r] = np.abs(f.wind * force[r] - total[r])
+    total += lean_total
+    shear += lean_total
     horizontal = np.where(bs.mask, horizontal, 0.0)
     axial = braces.axial_force(horizontal, bs.angle[:, None])
     return BraceForces(horizontal, axial, total, shear, force)
