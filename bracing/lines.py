@@ -73,17 +73,58 @@ def line_loads(site: Site) -> LineLoads | None:
     on_line = np.array([p.line is not None and p.lift_day is not None for p in site.panels])
     if not on_line.any():
         return None
-    lift, release = standing_days(site)
+    groups = _standing_groups(site, on_line)
+    if groups is None:  # every wall on the lines is released on its lift day
+        return LineLoads(**{k: np.full(n, np.nan) for k in LineLoads.__dataclass_fields__})
+    # A wall in the same group on several days is loaded the same: work each pairing out once,
+    # on the first day it stands so (that day wins a tie in the envelope below).
+    keys = np.stack(groups, axis=1)
+    first = np.sort(np.unique(keys, axis=0, return_index=True)[1])
+    member, lo, hi, ret_lo, ret_hi = (g[first] for g in groups)
+    member = member.astype(int)
+    start = np.array([p.offset for p in site.panels])[member]
+    width = np.array([p.width for p in site.panels])[member]
+    s = np.array([p.height for p in site.panels])[member]
+    top = s + np.array([p.base_elevation for p in site.panels])[member]
+    ret_lo, ret_hi = ret_lo / s, ret_hi / s
+    b_over_s = (hi - lo) / s
+    s_over_h = s / top
+    x0 = (start - lo) / s
+    x1 = x0 + width / s
+    left, cx_left = asce7.case_c_mean(x0, x1, b_over_s, s_over_h, ret_lo)
+    right, cx_right = asce7.case_c_mean(b_over_s - x1, b_over_s - x0, b_over_s, s_over_h, ret_hi)
+    # Case C falls away from the windward end: over a panel's width its largest local value is
+    # at the edge nearer that end, from either end of the line
+    mid = (x0 + x1) / 2.0
+    local_max = np.maximum(asce7.case_c_cf(x0, b_over_s, s_over_h, ret_lo),
+                           asce7.case_c_cf(b_over_s - x1, b_over_s, s_over_h, ret_hi))
+    local_mid = np.maximum(asce7.case_c_cf(mid, b_over_s, s_over_h, ret_lo),
+                           asce7.case_c_cf(b_over_s - mid, b_over_s, s_over_h, ret_hi))
     out = {k: np.full(n, np.nan) for k in LineLoads.__dataclass_fields__}
-    best_left = np.full(n, -np.inf)
-    best_right = np.full(n, -np.inf)
+    for key, values in (("case_a", asce7.cf_cases_ab(b_over_s, s_over_h)),
+                        ("local_max", local_max), ("local_mid", local_mid)):
+        np.fmax.at(out[key], member, values)  # the envelope: the larger value of each panel
+    # each end's wind at its largest, with its resultant from the panel's own first edge
+    for end, mean, at in (("left", left, cx_left * s - (start - lo)),
+                          ("right", right, hi - start - cx_right * s)):
+        best = np.lexsort((np.arange(len(member)), -mean, member))
+        best = best[np.r_[True, np.diff(member[best]) != 0]]  # the largest, earliest, per panel
+        best = best[~np.isnan(mean[best])]
+        out[f"{end}_mean"][member[best]] = mean[best]
+        out[f"{end}_x"][member[best]] = at[best]
+    return LineLoads(**out)
+
+
+def _standing_groups(site: Site, on_line: np.ndarray) -> tuple[np.ndarray, ...] | None:
+    """Every wall standing on a line, day by day, in the group it stands in: (panel index, the
+    group's extent lo and hi along the line, the return wall at its start and at its end, ft),
+    one entry per wall and day, days in order (None when no wall on a line ever stands)."""
+    lift, release = standing_days(site)
     gap = site.plan.joint_gap if site.plan else 1.0
     lines = {ln.name: ln for ln in site.lines}
     length = {name: float(np.hypot(*np.subtract(ln.end, ln.start))) for name, ln in lines.items()}
     start = np.array([p.offset for p in site.panels])
     width = np.array([p.width for p in site.panels])
-    height = np.array([p.height for p in site.panels])
-    top = height + np.array([p.base_elevation for p in site.panels])
     names = list(lines)
     line_id = np.array([names.index(p.line) if on_line[i] else -1
                         for i, p in enumerate(site.panels)])
@@ -91,6 +132,7 @@ def line_loads(site: Site) -> LineLoads | None:
     order = order[on_line[order]]  # walls on lines, by line then along it
     corners = _corners(lines)
     days = np.unique(np.concatenate([lift[on_line], release[on_line & np.isfinite(release)]]))
+    found = []
     for day in days:
         members = order[(lift[order] <= day) & (release[order] > day)]
         if len(members) == 0:  # every wall on the lines released that day
@@ -104,43 +146,12 @@ def line_loads(site: Site) -> LineLoads | None:
         g_hi = np.maximum.reduceat(hi_m, first)
         g_line = [names[k] for k in lid[first]]
         returns = _corner_returns(g_line, g_lo, g_hi, lines, corners, length)
-        lo, hi = g_lo[group], g_hi[group]
         ret_lo = np.array([returns.get((g_line[g], "start"), 0.0) for g in range(len(first))])
         ret_hi = np.array([returns.get((g_line[g], "end"), 0.0) for g in range(len(first))])
-        s = height[members]
-        ret_lo, ret_hi = ret_lo[group] / s, ret_hi[group] / s
-        b_over_s = (hi - lo) / s
-        s_over_h = s / top[members]
-        x0 = (start[members] - lo) / s
-        x1 = x0 + width[members] / s
-        left, cx_left = asce7.case_c_mean(x0, x1, b_over_s, s_over_h, ret_lo)
-        right, cx_right = asce7.case_c_mean(b_over_s - x1, b_over_s - x0, b_over_s, s_over_h,
-                                            ret_hi)
-        # Case C falls away from the windward end: over a panel's width its largest local value
-        # is at the edge nearer that end, from either end of the line
-        mid = (x0 + x1) / 2.0
-        local_max = np.maximum(asce7.case_c_cf(x0, b_over_s, s_over_h, ret_lo),
-                               asce7.case_c_cf(b_over_s - x1, b_over_s, s_over_h, ret_hi))
-        local_mid = np.maximum(asce7.case_c_cf(mid, b_over_s, s_over_h, ret_lo),
-                               asce7.case_c_cf(b_over_s - mid, b_over_s, s_over_h, ret_hi))
-        _keep(out, "case_a", members, asce7.cf_cases_ab(b_over_s, s_over_h))
-        _keep(out, "local_max", members, local_max)
-        _keep(out, "local_mid", members, local_mid)
-        # the resultant of each end's wind, from the panel's own first edge
-        better = left > best_left[members]
-        out["left_mean"][members[better]] = left[better]
-        out["left_x"][members[better]] = (cx_left * s - (start[members] - lo))[better]
-        best_left[members[better]] = left[better]
-        better = right > best_right[members]
-        out["right_mean"][members[better]] = right[better]
-        out["right_x"][members[better]] = (hi - start[members] - cx_right * s)[better]
-        best_right[members[better]] = right[better]
-    return LineLoads(**out)
-
-
-def _keep(out, key, members, values):
-    """Envelope: keep the larger value for each member."""
-    out[key][members] = np.fmax(out[key][members], values)
+        found.append((members, g_lo[group], g_hi[group], ret_lo[group], ret_hi[group]))
+    if not found:
+        return None
+    return tuple(np.concatenate(column).astype(float) for column in zip(*found))
 
 
 def _corners(lines: dict) -> dict[tuple[str, str], list[tuple[str, str]]]:
