@@ -642,7 +642,7 @@ class _Results:
         self.site, self.panels = site, site.panels
         f = COMBINATIONS[site.site.design_basis]
         combos = {"resisting": f.resisting, "adding": f.adding, "wind": f.wind_only}
-        self.unbraced = _check_columns(e.checks, CHECK_INFO, combos)
+        self.unbraced = _check_set(e.checks, CHECK_INFO, combos)
         w, wind = e.walls, e.wind
         self.row = {
             "weight": (w.face_weight * w.height * w.width * w.solidity).tolist(),
@@ -668,7 +668,7 @@ class _Results:
         self.hardware: dict[tuple, tuple[dict, list[Flag], list[Flag]]] = {}
         if e.braces is not None:
             bs = e.braces
-            self.braced = _check_columns(e.braced_checks, braced.CHECKS, combos)
+            self.braced = _check_set(e.braced_checks, braced.CHECKS, combos)
             self.brace_row = {int(i): r for r, i in enumerate(bs.index)}
             self.records = braced.braced_records(bs, e.brace_forces)
             self.brace_row_values = {
@@ -684,30 +684,30 @@ class _Results:
         rigid = v["rigid"]
         kind = "rigid" if rigid else "masonry" if v["masonry"] and not v["fresh"] else \
             "fresh" if v["masonry"] else "strip"
-        checks = _checks(self.unbraced, i, kind, UNBRACED_SOURCES[kind])
         flags = self._wall_flags(p, mat, v)
         utilization = v["utilization"]
         stands = utilization <= 1.0 and not any(f.code == "masonry-over-8ft" for f in flags)
         limit, stand_down = v["limit"], v["stand_down"]
         status, details = "stands" if stands else "needs_braces", None
-        if p.bracing is not None:
-            r = self.brace_row[i]
+        if p.bracing is None:
+            found, row = self.unbraced, i
+            checks = _checks(found.columns, i, kind, UNBRACED_SOURCES[kind])
+        else:
+            found, row = self.braced, self.brace_row[i]
+            kind = "braced"
             specific, *hardware_flags = self._hardware(p.bracing)
-            checks = _checks(self.braced, r, "braced", specific)
-            status = "braced" if all(c.passes for c in checks
-                                     if c.element not in braced.SERVICEABILITY) else "unsafe"
+            checks = _checks(found.columns, row, kind, specific)
+            status = "braced" if found.strength_ok[row] else "unsafe"
             b = self.brace_row_values
-            limit, stand_down, missing = b["limit"][r], b["stand_down"][r], b["missing"][r]
-            details = dict(self.records[r], brace_type=p.bracing.brace_type,
-                           wall_anchor=p.bracing.wall_anchor, foot_anchor=p.bracing.foot_anchor)
-            details["utilization"] = max((c.utilization for c in checks
-                                          if c.element.startswith("brace")), default=None)
-            details["working_limit_one_missing_mph"] = _or_none(missing)
+            limit, stand_down, missing = b["limit"][row], b["stand_down"][row], b["missing"][row]
+            details = dict(self.records[row], brace_type=p.bracing.brace_type,
+                           wall_anchor=p.bracing.wall_anchor, foot_anchor=p.bracing.foot_anchor,
+                           utilization=found.brace_utilization[row],
+                           working_limit_one_missing_mph=_or_none(missing))
             flags = [f for f in flags if f.code not in ("fails-unbraced", "masonry-over-8ft")]
-            flags += self._braced_flags(p, r, checks, limit, stand_down, missing,
-                                        *hardware_flags)
-        governing = max((c for c in checks if c.element not in braced.SERVICEABILITY),
-                        key=lambda c: c.utilization)
+            flags += self._braced_flags(p, row, checks if found.any_over[row] else [], limit,
+                                        stand_down, missing, *hardware_flags)
+        element, regions = found.columns[found.governing[row]][:2]
         return PanelResult(
             mark=p.mark, material=mat.kind, status=status, weight_lb=v["weight"],
             height_ft=p.height, width_ft=p.width, thickness_in=p.thickness,
@@ -726,7 +726,7 @@ class _Results:
                 max_height_structural_ft=_or_none(v["max_height"])),
             checks=checks, flags=flags, working_limit_speed_mph=limit,
             stand_down_speed_mph=stand_down,
-            governing_element=f"{governing.element} ({governing.region})",
+            governing_element=f"{element} ({regions[kind]})",
             braces=details, sustained_equivalents_mph=gusts.sustained_equivalents(stand_down))
 
     def _capped(self, mat, height: float) -> float | None:
@@ -804,8 +804,8 @@ class _Results:
     def _braced_flags(self, p, r: int, checks: list[Check], limit: float, stand_down: float,
                       missing: float, brace_flags: list[Flag], anchor_flags: list[Flag]
                       ) -> list[Flag]:
-        """Flags of a braced wall: failing elements, rules of practice, robustness (§6), with
-        those of its brace and anchor types."""
+        """Flags of a braced wall: failing elements (`checks` may hold only those that could
+        fail), rules of practice, robustness (§6), with those of its brace and anchor types."""
         b, rule, source = p.bracing, self.rule, self.source
         values = self.brace_row_values
         flags = []
@@ -878,7 +878,31 @@ UNBRACED_SOURCES = {
               "sliding at base": "friction, mu 0.6 (fresh mortar: no bond)"},
     "strip": {"overturning": "statics, W t/2 about the sill"},
 }
-UNBRACED_SOURCES["braced"] = {}
+
+
+@dataclass(frozen=True)
+class _CheckSet:
+    """The checks of every wall on its own, or of every braced wall: their columns (see
+    `_check_columns`) and, per wall, what the views ask of them first."""
+
+    columns: list[tuple]
+    governing: list[int]                  # column of the largest strength utilization
+    strength_ok: list[bool]               # every strength check passes
+    any_over: list[bool]                  # some check (serviceability too) is over 1.0
+    brace_utilization: list[float | None]  # the largest of the brace's own checks
+
+
+def _check_set(arrays: dict, info: dict, combos: dict) -> _CheckSet:
+    """The checks of `arrays` (demand and capacity arrays by name) with their summaries."""
+    names = [key.partition("|")[0] for key in arrays]
+    ratios = np.array([np.where(np.isnan(d), -np.inf, _ratio(d, c)) for d, c in arrays.values()])
+    strength = np.where(np.array([n not in braced.SERVICEABILITY for n in names])[:, None],
+                        ratios, -np.inf)
+    brace = np.where(np.array([n.startswith("brace") for n in names])[:, None], ratios, -np.inf)
+    brace = brace.max(axis=0)
+    return _CheckSet(_check_columns(arrays, info, combos), strength.argmax(axis=0).tolist(),
+                     (strength.max(axis=0) <= 1.0).tolist(), (ratios.max(axis=0) > 1.0).tolist(),
+                     [None if x == -math.inf else x for x in brace.tolist()])
 
 
 def _check_columns(arrays: dict, info: dict, combos: dict) -> list[tuple]:
