@@ -76,11 +76,7 @@ def line_loads(site: Site) -> LineLoads | None:
     groups = _standing_groups(site, on_line)
     if groups is None:  # every wall on the lines is released on its lift day
         return LineLoads(**{k: np.full(n, np.nan) for k in LineLoads.__dataclass_fields__})
-    # A wall in the same group on several days is loaded the same: work each pairing out once,
-    # on the first day it stands so (that day wins a tie in the envelope below).
-    keys = np.stack(groups, axis=1)
-    first = np.sort(np.unique(keys, axis=0, return_index=True)[1])
-    member, lo, hi, ret_lo, ret_hi = (g[first] for g in groups)
+    member, lo, hi, ret_lo, ret_hi = groups
     member = member.astype(int)
     start = np.array([p.offset for p in site.panels])[member]
     width = np.array([p.width for p in site.panels])[member]
@@ -116,9 +112,11 @@ def line_loads(site: Site) -> LineLoads | None:
 
 
 def _standing_groups(site: Site, on_line: np.ndarray) -> tuple[np.ndarray, ...] | None:
-    """Every wall standing on a line, day by day, in the group it stands in: (panel index, the
-    group's extent lo and hi along the line, the return wall at its start and at its end, ft),
-    one entry per wall and day, days in order (None when no wall on a line ever stands)."""
+    """The groups each wall on a line stands in, day by day: (panel index, the group's extent
+    lo and hi along the line, the return wall at its start and at its end, ft), in day order.
+
+    A wall in the same group as on its last standing day is loaded the same, so only changes
+    are listed (None when no wall on a line ever stands)."""
     lift, release = standing_days(site)
     gap = site.plan.joint_gap if site.plan else 1.0
     lines = {ln.name: ln for ln in site.lines}
@@ -126,13 +124,14 @@ def _standing_groups(site: Site, on_line: np.ndarray) -> tuple[np.ndarray, ...] 
     start = np.array([p.offset for p in site.panels])
     width = np.array([p.width for p in site.panels])
     names = list(lines)
-    line_id = np.array([names.index(p.line) if on_line[i] else -1
-                        for i, p in enumerate(site.panels)])
+    number = {name: k for k, name in enumerate(names)}
+    line_id = np.array([number[p.line] if on_line[i] else -1 for i, p in enumerate(site.panels)])
     order = np.lexsort((start, line_id))
     order = order[on_line[order]]  # walls on lines, by line then along it
     corners = _corners(lines)
     days = np.unique(np.concatenate([lift[on_line], release[on_line & np.isfinite(release)]]))
     found = []
+    last = np.full((4, len(site.panels)), np.nan)  # each wall's group on its last standing day
     for day in days:
         members = order[(lift[order] <= day) & (release[order] > day)]
         if len(members) == 0:  # every wall on the lines released that day
@@ -148,7 +147,10 @@ def _standing_groups(site: Site, on_line: np.ndarray) -> tuple[np.ndarray, ...] 
         returns = _corner_returns(g_line, g_lo, g_hi, lines, corners, length)
         ret_lo = np.array([returns.get((g_line[g], "start"), 0.0) for g in range(len(first))])
         ret_hi = np.array([returns.get((g_line[g], "end"), 0.0) for g in range(len(first))])
-        found.append((members, g_lo[group], g_hi[group], ret_lo[group], ret_hi[group]))
+        now = np.array([g_lo[group], g_hi[group], ret_lo[group], ret_hi[group]])
+        changed = (last[:, members] != now).any(axis=0)
+        last[:, members] = now
+        found.append((members[changed], *now[:, changed]))
     if not found:
         return None
     return tuple(np.concatenate(column).astype(float) for column in zip(*found))
@@ -156,16 +158,23 @@ def _standing_groups(site: Site, on_line: np.ndarray) -> tuple[np.ndarray, ...] 
 
 def _corners(lines: dict) -> dict[tuple[str, str], list[tuple[str, str]]]:
     """For each line end ('start'/'end'), the ends of other lines that meet it at a corner."""
-    ends = [(name, tip, np.asarray(getattr(ln, tip), float))
-            for name, ln in lines.items() for tip in ("start", "end")]
+    ends = [(name, tip) for name, ln in lines.items() for tip in ("start", "end")]
     if not ends:
         return {}
-    xy = np.array([e[2] for e in ends])
-    near = np.hypot(*(xy[:, None, :] - xy[None, :, :]).transpose(2, 0, 1)) <= CORNER_TOLERANCE_FT
+    xy = np.array([getattr(lines[name], tip) for name, tip in ends], float)
+    by_x = np.argsort(xy[:, 0], kind="stable")
     out: dict[tuple[str, str], list[tuple[str, str]]] = {}
-    for a, b in zip(*np.nonzero(near)):
-        if ends[a][0] != ends[b][0]:
-            out.setdefault(ends[a][:2], []).append(ends[b][:2])
+    for step in range(1, len(ends)):  # ends ever further apart in x, until none is near in x
+        a, b = by_x[:-step], by_x[step:]
+        near_x = xy[b, 0] - xy[a, 0] <= CORNER_TOLERANCE_FT
+        if not near_x.any():
+            break
+        a, b = a[near_x], b[near_x]
+        near = np.hypot(*(xy[a] - xy[b]).T) <= CORNER_TOLERANCE_FT
+        for j, k in zip(a[near].tolist(), b[near].tolist()):
+            if ends[j][0] != ends[k][0]:
+                out.setdefault(ends[j], []).append(ends[k])
+                out.setdefault(ends[k], []).append(ends[j])
     return out
 
 
