@@ -70,11 +70,14 @@ def gather_braces(site, basis: str, edges: dict[str, float] | None = None) -> Br
     if not rows:
         return None
     layouts = [site.panels[i].bracing for i in rows]
-    k = max(b.count for b in layouts)
-    positions = np.full((len(rows), k), np.nan)
-    for r, (i, b) in enumerate(zip(rows, layouts)):
-        x = b.positions or braces.default_positions(site.panels[i].width, b.count)
-        positions[r, :b.count] = x
+    count = np.array([b.count for b in layouts])
+    strip = np.arange(count.max())
+    width = np.array([site.panels[i].width for i in rows])[:, None]
+    positions = np.where(strip < count[:, None],
+                         braces.default_positions(width, count[:, None], strip), np.nan)
+    for r, b in enumerate(layouts):
+        if b.positions:
+            positions[r, :b.count] = b.positions
     column = {name: np.array([getattr(b, name) for b in layouts]) for name in (
         "insert_height", "insert_offset", "foot_offset", "base_below_slab", "lean", "slop",
         "pretensioned", "brace_type", "wall_anchor", "foot_anchor")}

@@ -29,9 +29,10 @@ def anchor_distance_for_angle(insert_height_ft, angle_deg, insert_offset_ft=0.0,
     return rise / np.tan(np.radians(angle_deg)) + insert_offset_ft
 
 
-def default_positions(width_ft, count):
-    """Centres of `count` equal strips along a wall `width_ft` long (design.md §6)."""
-    return (np.arange(count) + 0.5) * width_ft / count
+def default_positions(width_ft, count, strip=None):
+    """Centres of `count` equal strips along a wall `width_ft` long (design.md §6); `strip`
+    numbers the strips wanted (default all; arrays broadcast, for many walls at once)."""
+    return ((np.arange(count) if strip is None else strip) + 0.5) * width_ft / count
 
 
 def total_brace_reaction(force_lb, lever_ft, insert_height_ft):
