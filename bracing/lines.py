@@ -67,7 +67,7 @@ def release_event_days(site: Site) -> np.ndarray:
     """Day of the last event each panel's release waits for; NaN where it waits for none."""
     events = {e.name: e.day for e in site.events}
     after = [p.release_after for p in site.panels]
-    count = np.array([len(names) for names in after], int)
+    count = np.fromiter(map(len, after), int, len(after))
     day = np.array([events[n] for names in after for n in names], float)
     last = np.full(len(after), np.nan)
     waits = count > 0

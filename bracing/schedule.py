@@ -248,42 +248,56 @@ def _walls(site: Site) -> _Walls:
     source = np.where(np.isnan(own), np.where(np.isnan(event_day), 2, 1), 0)
     weeks = np.choose(source, [own, lines.weeks_to_release(lift, event_day),
                                site.site.construction_period])
-    events = {e.name: e.day for e in site.events}
-    row = {m: k for k, m in enumerate(marks.tolist())}
-    signed: dict[int, list] = {}
-    for s in site.signoffs:
-        if s.panel in row:
-            signed.setdefault(row[s.panel], []).append(s)
-    release = np.zeros(len(index), int)
-    flags, flag_wall, flag_day = [], [], []  # in the order of each wall's sign-offs
-    for k in sorted(signed):
-        p = site.panels[index[k]]
-        for s in sorted(signed[k], key=lambda s: s.day):
-            pending = [n for n in p.release_after if events[n] > s.day]
-            if s.day < p.lift_day:
-                flags.append(Flag("signoff-before-lift", "warning", f"{p.mark}: sign-off by "
-                                  f"{s.by} on day {s.day} is before its lift on day "
-                                  f"{p.lift_day}: ignored", RELEASE_SOURCE))
-            elif pending:
-                flags.append(Flag("signoff-before-event", "danger", f"{p.mark}: sign-off by "
-                                  f"{s.by} on day {s.day} comes before "
-                                  + ", ".join(f"{n} (day {events[n]})" for n in pending)
-                                  + ": the braces stay", RELEASE_SOURCE))
-            else:
-                release[k] = s.day
-                break
-            flag_wall.append(k)
-            flag_day.append(s.day)
+    release, early, flag_wall, flag_day = _releases(site, index, marks, lift, event_day)
     stays = np.flatnonzero(release == 0)
-    flags += [Flag("no-signoff", "notice", f"{m}: no valid sign-off recorded: its braces stay "
-                   "to the end of the schedule", RELEASE_SOURCE) for m in marks[stays].tolist()]
-    flag_wall = np.concatenate([np.array(flag_wall, int), stays])
-    flag_day = np.concatenate([np.array(flag_day, int), lift[stays]])
+    flags = early + [Flag("no-signoff", "notice", f"{m}: no valid sign-off recorded: its braces "
+                          "stay to the end of the schedule", RELEASE_SOURCE)
+                     for m in marks[stays].tolist()]
+    flag_wall = np.concatenate([flag_wall, stays])
+    flag_day = np.concatenate([flag_day, lift[stays]])
     by_wall = np.argsort(flag_wall, kind="stable")  # a wall's `no-signoff` after its sign-offs
     known = event_day[~np.isnan(event_day)]
     return _Walls(index, marks, lift, release, weeks, PLANNED_FROM[source],
                   int(known.max()) if len(known) else 0, [flags[j] for j in by_wall.tolist()],
                   flag_wall[by_wall], flag_day[by_wall])
+
+
+def _releases(site: Site, index: np.ndarray, marks: np.ndarray, lift: np.ndarray,
+              event_day: np.ndarray) -> tuple[np.ndarray, list[Flag], np.ndarray, np.ndarray]:
+    """Release day of each scheduled wall (0: none) from the sign-offs, and the flags of the
+    sign-offs that come too early (before the one that releases the wall, if any), wall by
+    wall and day by day, with their walls and days. `event_day`: the last event each waits for.
+    """
+    row = dict(zip(marks.tolist(), range(len(marks))))
+    wall = np.array([row.get(s.panel, -1) for s in site.signoffs], int)
+    day = np.array([s.day for s in site.signoffs], int)
+    order = np.lexsort((day, wall))                # stable: same-day sign-offs in file order
+    order = order[wall[order] >= 0]                # sign-offs of scheduled walls
+    wall, day = wall[order], day[order]
+    valid = (day >= lift[wall]) & ~(event_day[wall] > day)  # after the lift and every event
+    first = np.full(len(marks), len(order))        # each wall's first valid sign-off
+    np.minimum.at(first, wall[valid], np.flatnonzero(valid))
+    release = np.zeros(len(marks), int)
+    signed = first < len(order)
+    release[signed] = day[first[signed]]
+    early = np.flatnonzero(np.arange(len(order)) < first[wall])
+    events = {e.name: e.day for e in site.events}
+    flags = [_early_flag(site.signoffs[j], site.panels[i], events)
+             for j, i in zip(order[early].tolist(), index[wall[early]].tolist())]
+    return release, flags, wall[early], day[early]
+
+
+def _early_flag(signoff, panel, events: dict[str, int]) -> Flag:
+    """The flag of a sign-off that cannot release its wall (OSHA 1926.704(a)): before the lift,
+    or before an event the release waits for."""
+    s, p = signoff, panel
+    if s.day < p.lift_day:
+        return Flag("signoff-before-lift", "warning", f"{p.mark}: sign-off by {s.by} on day "
+                    f"{s.day} is before its lift on day {p.lift_day}: ignored", RELEASE_SOURCE)
+    pending = [n for n in p.release_after if events[n] > s.day]
+    return Flag("signoff-before-event", "danger", f"{p.mark}: sign-off by {s.by} on day "
+                f"{s.day} comes before " + ", ".join(f"{n} (day {events[n]})" for n in pending)
+                + ": the braces stay", RELEASE_SOURCE)
 
 
 def build_days(site: Site, panels: list[PanelResult], base_dir: str | Path | None = None
@@ -330,13 +344,12 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
     day = np.arange(1, last + 1)[:, None]                                  # (days, 1)
     release = np.where(walls.release > 0, walls.release, last + 1)
     standing = (walls.lift <= day) & (day < release)                       # (days, walls)
-    brace, wall_anchor, foot_anchor, count = _gear(
-        [site.panels[i].bracing for i in walls.index.tolist()], results)
+    brace, wall_anchor, foot_anchor, count = _gear(site, walls.index, results)
     use = (walls.lift, release, np.array(count, int), last)
     braces, anchors = _in_use([brace], *use), _in_use([wall_anchor, foot_anchor], *use)
     stand_down = np.array([r.stand_down_speed_mph for r in results], float)
     limit = np.array([r.working_limit_speed_mph for r in results], float)
-    slips = _period_slips(walls, results, standing)
+    slips = _period_slips(walls, results, release, last)
     on_day: dict[int, list[Flag]] = {}
     for d, f in zip(walls.flag_day.tolist(), walls.flags):
         if f.code != "no-signoff":
@@ -344,32 +357,39 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
     lifted, released = _by_day(walls.marks, walls.lift), _by_day(walls.marks, walls.release)
     marks = walls.marks
     status = np.array([r.status for r in results], dtype=object)
-    failing = np.isin(status, list(STATUS_WORDS))
-    failing_flag = np.empty(len(results), dtype=object)
-    failing_flag[failing] = _status_flags(marks[failing].tolist(), status[failing].tolist())
-    known_speed = np.isfinite(stand_down)
+    failing = np.flatnonzero(np.isin(status, list(STATUS_WORDS)))
+    failing_flags = np.array(_status_flags(marks[failing].tolist(), status[failing].tolist()),
+                             dtype=object)
+    known = np.isfinite(stand_down)
+    unknown = np.flatnonzero(~known)
+    # each day over the walls standing: the lowest stand-down speed (the first such wall) and
+    # the lowest working limit (inf: none known)
+    up_known = standing & known
+    governing = np.where(up_known, stand_down, np.inf).argmin(axis=1)
+    governed = up_known.any(axis=1)
+    least_limit = np.where(standing & np.isfinite(limit), limit, np.inf).min(axis=1).tolist()
+    anyone = standing.any(axis=1)
 
     days = []
     for n in range(last):  # per day, numpy over the walls: a long job has many of both
         d = n + 1
-        up = np.nonzero(standing[n])[0]
+        up = standing[n]
         use_b = {t: int(c) for t, c in zip(braces[0], braces[1][n]) if c}
         use_a = {t: int(c) for t, c in zip(anchors[0], anchors[1][n]) if c}
         short = {"braces": _short(use_b, site.brace_types),
                  "anchors": _short(use_a, site.anchor_types)}
         flags = on_day.get(d, []) + [f for _, f in slips.get(d, [])]
-        flags += _short_flags(short) + failing_flag[up[failing[up]]].tolist()
-        known = up[known_speed[up]]
-        gov = int(known[np.argmin(stand_down[known])]) if len(known) else None
-        unknown = marks[up[~known_speed[up]]].tolist()
+        flags += _short_flags(short) + failing_flags[up[failing]].tolist()
+        gov = int(governing[n]) if governed[n] else None
         fc = forecast.get(d)
-        go, reason = _go(site, len(up) > 0, None if gov is None else results[gov], unknown, fc)
+        go, reason = _go(site, bool(anyone[n]), None if gov is None else results[gov],
+                         marks[unknown[up[unknown]]].tolist(), fc)
         days.append(DayResult(
             day=d, date=date_of(site, d),
             lifts=lifted.get(d, []), standing=marks[up].tolist(),
             braces_in_use=use_b, anchors_in_use=use_a, released=released.get(d, []),
             stand_down_speed_mph=None if gov is None else float(stand_down[gov]),
-            working_limit_speed_mph=_least(limit[up]),
+            working_limit_speed_mph=None if least_limit[n] == math.inf else least_limit[n],
             governing_wall=None if gov is None else marks[gov],
             forecast_gust_mph=fc.gust_mph if fc else None, storm=bool(fc and fc.storm),
             go=go, reason=reason, short=short, flags=flags))
@@ -385,16 +405,18 @@ def _by_day(marks: np.ndarray, day: np.ndarray) -> dict[int, list[str]]:
     return {int(day[g[0]]): marks[g].tolist() for g in groups if len(g) and day[g[0]]}
 
 
-def _gear(bracing: list[Bracing | None], results: list[PanelResult]) -> list[list]:
+def _gear(site: Site, index: np.ndarray, results: list[PanelResult]) -> list[list]:
     """Each wall's brace type, wall anchor and foot anchor (None: not named) and brace count, as
-    `hardware` reads them: from its result's `braces` record, else from its `bracing`."""
+    `hardware` reads them: from its result's `braces` record, else from the site file's
+    `bracing` (`index`: the walls' rows in site.panels, `results` in their order)."""
     records = [r.braces or {} for r in results]
-    columns = []
+    rows, columns = index.tolist(), []
     for key, unnamed in (("brace_type", None), ("wall_anchor", None), ("foot_anchor", None),
                          ("count", 0)):
         column = [d.get(key, _NOT_RECORDED) for d in records]
         for k in [k for k, v in enumerate(column) if v is _NOT_RECORDED]:
-            column[k] = getattr(bracing[k], key) if bracing[k] else unnamed
+            bracing = site.panels[rows[k]].bracing
+            column[k] = getattr(bracing, key) if bracing else unnamed
         columns.append(column)
     return columns
 
@@ -407,11 +429,12 @@ def _in_use(types: list[list], lift: np.ndarray, release: np.ndarray, count: np.
     """Type names and a (days, types) table of how many of each are in use each day: each
     column of `types` names one piece per brace of a wall, in use from its lift to its
     release day."""
-    names = sorted(t for t in set().union(*types) if t)
-    column = {t: j for j, t in enumerate(names)}
+    column = dict.fromkeys(set().union(*types), -1)  # -1: not named
+    names = sorted(t for t in column if t)
+    column.update((t, j) for j, t in enumerate(names))
     change = np.zeros((last + 3, len(names)), int)  # on at the lift, off the day after release
     for col in types:
-        j = np.array([column.get(t, -1) for t in col], int)
+        j = np.array([column[t] for t in col], int)
         named = j >= 0
         np.add.at(change, (lift[named], j[named]), count[named])
         np.add.at(change, (release[named] + 1, j[named]), -count[named])
@@ -437,35 +460,38 @@ STATUS_WORDS = {"unsafe": "braced, but a check fails",
 def _status_flags(marks: list[str], statuses: list[str]) -> list[Flag]:
     """The flags of standing walls that fail: unsafe braced walls, walls that need braces and
     have none."""
-    return [Flag(f"{s.replace('_', '-')}-standing", "danger",
-                 f"{m} stands today: {STATUS_WORDS[s]}", "the wall's checks (`bracing check`)")
-            for m, s in zip(marks, statuses)]
+    code = {s: f"{s.replace('_', '-')}-standing" for s in STATUS_WORDS}
+    return [Flag(code[s], "danger", f"{m} stands today: {STATUS_WORDS[s]}",
+                 "the wall's checks (`bracing check`)") for m, s in zip(marks, statuses)]
 
 
-def _period_slips(walls: _Walls, results: list[PanelResult], standing: np.ndarray
+def _period_slips(walls: _Walls, results: list[PanelResult], release: np.ndarray, last: int
                   ) -> dict[int, list[tuple[str, Flag]]]:
-    """(mark, flag) by day of walls whose standing time passes into a band of higher factor."""
-    days = np.arange(1, standing.shape[0] + 1)[:, None]
-    weeks = (days - walls.lift + 1) / 7.0                   # standing time on each day, weeks
-    needed = np.where(standing, asce37.period_factor(np.maximum(weeks, 0.0)), 0.0)
+    """(mark, flag) by day of walls whose standing time passes into a band of higher factor;
+    `release`: the day each wall stops standing."""
+    stood = np.arange(1, last + 1)                 # days stood, the lift day counted
+    factor = asce37.period_factor(stood / 7.0)     # ASCE 37-14 Table 6.2-1, weeks stood
+    enters = np.flatnonzero(np.r_[True, factor[1:] != factor[:-1]])  # a band's first day stood
+    day = walls.lift[:, None] + enters             # (walls, bands): the day each band begins
     used = np.array([r.wind.period_factor for r in results], float)
-    enters = needed > used + 1e-12
-    enters[1:] &= needed[1:] != needed[:-1]  # flagged on the day it enters the band only
-    n, k = np.nonzero(enters)                # day by day, walls in site order
+    k, band = np.nonzero((day < release[:, None]) & (factor[enters] > used[:, None] + 1e-12))
     if not len(k):
         return {}
+    on = day[k, band]
+    by_day = np.lexsort((k, on))                   # day by day, walls in site order
+    k, on, band = k[by_day], on[by_day], enters[band[by_day]]
     slipping = np.unique(k)
-    checked = {j: _checked(results[j].wind, band, planned, source) for j, band, planned, source
+    checked = {j: _checked(results[j].wind, limit, planned, source) for j, limit, planned, source
                in zip(slipping.tolist(),
                       asce37.period_band_limit_weeks(walls.planned_weeks[slipping]).tolist(),
                       walls.planned_weeks[slipping].tolist(),
                       walls.planned_from[slipping].tolist())}
     out: dict[int, list[tuple[str, Flag]]] = {}
-    for d, j, mark, stood, factor in zip((n + 1).tolist(), k.tolist(), walls.marks[k].tolist(),
-                                         weeks[n, k].tolist(), needed[n, k].tolist()):
+    for d, j, mark, weeks, now in zip(on.tolist(), k.tolist(), walls.marks[k].tolist(),
+                                      (stood[band] / 7.0).tolist(), factor[band].tolist()):
         out.setdefault(d, []).append((mark, Flag(
-            "period-slip", "warning", f"{mark}: stood {stood:.1f} weeks on day {d}, past "
-            f"{checked[j]}; factor now {factor:.2f}: re-check the wall", PERIOD_SOURCE)))
+            "period-slip", "warning", f"{mark}: stood {weeks:.1f} weeks on day {d}, past "
+            f"{checked[j]}; factor now {now:.2f}: re-check the wall", PERIOD_SOURCE)))
     return out
 
 
@@ -475,11 +501,6 @@ def _checked(wind, band_weeks: float, planned_weeks: float, planned_from: str) -
         return f"the factor {wind.period_factor:.2f} set for the site"
     return (f"the {band_weeks:.0f}-week band of its check (planned {planned_weeks:.1f} weeks "
             f"from {planned_from}, factor {wind.period_factor:.2f})")
-
-
-def _least(values: np.ndarray) -> float | None:
-    finite = values[np.isfinite(values)]
-    return float(finite.min()) if len(finite) else None
 
 
 def stand_down_rule(site: Site, panel: PanelResult) -> str:
