@@ -10,6 +10,7 @@ with its own lone-panel Cases A and B (the state before its neighbours were set)
 from __future__ import annotations
 
 from dataclasses import dataclass
+from itertools import chain
 
 import numpy as np
 
@@ -68,7 +69,7 @@ def release_event_days(site: Site) -> np.ndarray:
     events = {e.name: e.day for e in site.events}
     after = [p.release_after for p in site.panels]
     count = np.fromiter(map(len, after), int, len(after))
-    day = np.array([events[n] for names in after for n in names], float)
+    day = np.fromiter(map(events.__getitem__, chain.from_iterable(after)), float, count.sum())
     last = np.full(len(after), np.nan)
     waits = count > 0
     if waits.any():

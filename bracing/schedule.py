@@ -46,7 +46,7 @@ from pathlib import Path
 import numpy as np
 
 from bracing import lines, plan, units
-from bracing.model import Bracing, Site
+from bracing.model import Bracing, Panel, SignOff, Site
 from bracing.results import DayResult, Flag, PanelResult
 from bracing.scenario import SiteFileError
 from bracing.wind import asce37
@@ -228,9 +228,9 @@ class _Walls:
     planned_weeks: np.ndarray
     planned_from: np.ndarray   # (object) what the planned time comes from
     last_event: int            # last day an event the walls' releases wait for falls on (0: none)
-    flags: list[Flag]          # the sign-off flags, wall by wall, with their walls and days:
-    flag_wall: np.ndarray
-    flag_day: np.ndarray
+    flags: list[Flag]          # sign-off and no-signoff flags, wall by wall (see wall_days)
+    flag_wall: np.ndarray      # the wall of each flag
+    flag_day: np.ndarray       # the day of each flag
 
 
 PLANNED_FROM = np.array(["the wall's standing_time", "its release events",
@@ -245,7 +245,7 @@ def _walls(site: Site) -> _Walls:
     marks = np.array([p.mark for p in site.panels], dtype=object)[index]
     event_day = lines.release_event_days(site)[index]
     own = np.array([p.standing_time for p in site.panels], float)[index]  # None: NaN, not given
-    source = np.where(np.isnan(own), np.where(np.isnan(event_day), 2, 1), 0)
+    source = np.where(np.isnan(own), np.where(np.isnan(event_day), 2, 1), 0)  # PLANNED_FROM
     weeks = np.choose(source, [own, lines.weeks_to_release(lift, event_day),
                                site.site.construction_period])
     release, early, flag_wall, flag_day = _releases(site, index, marks, lift, event_day)
@@ -287,7 +287,7 @@ def _releases(site: Site, index: np.ndarray, marks: np.ndarray, lift: np.ndarray
     return release, flags, wall[early], day[early]
 
 
-def _early_flag(signoff, panel, events: dict[str, int]) -> Flag:
+def _early_flag(signoff: SignOff, panel: Panel, events: dict[str, int]) -> Flag:
     """The flag of a sign-off that cannot release its wall (OSHA 1926.704(a)): before the lift,
     or before an event the release waits for."""
     s, p = signoff, panel
@@ -327,11 +327,10 @@ def build_days(site: Site, panels: list[PanelResult], base_dir: str | Path | Non
 def whole_site(site: Site, panels: list[PanelResult]) -> DayResult:
     """Every wall of the site standing together, as day 0: the sheet of a site file that gives
     no lift days (inventory, stand-down speed; no forecast, no lifts, no releases)."""
-    n = len(site.panels)
-    none = np.zeros(0, int)
+    n, no_flags = len(site.panels), np.zeros(0, int)
     walls = _Walls(np.arange(n), np.array([p.mark for p in site.panels], dtype=object),
                    np.ones(n, int), np.zeros(n, int), np.zeros(n), np.full(n, "", dtype=object),
-                   0, [], none, none)
+                   0, [], no_flags, no_flags)
     result = {p.mark: p for p in panels}
     days, _, _ = _days(site, walls, [result[m] for m in walls.marks.tolist()], {}, 1)
     return replace(days[0], day=0, lifts=[])
