@@ -10,6 +10,7 @@ with its own lone-panel Cases A and B (the state before its neighbours were set)
 from __future__ import annotations
 
 from dataclasses import dataclass
+from itertools import chain
 
 import numpy as np
 
@@ -59,12 +60,27 @@ def standing_days(site: Site) -> tuple[np.ndarray, np.ndarray]:
 
 def planned_weeks(site: Site) -> np.ndarray:
     """Planned standing time (weeks) from lift to the last event that releases the wall."""
+    lift = np.array([p.lift_day for p in site.panels], float)  # None: NaN
+    return weeks_to_release(lift, release_event_days(site))
+
+
+def release_event_days(site: Site) -> np.ndarray:
+    """Day of the last event each panel's release waits for; NaN where it waits for none."""
     events = {e.name: e.day for e in site.events}
-    weeks = np.full(len(site.panels), np.nan)
-    for i, p in enumerate(site.panels):
-        if p.lift_day is not None and p.release_after:
-            weeks[i] = max(1.0, max(events[n] for n in p.release_after) - p.lift_day + 1) / 7.0
-    return weeks
+    after = [p.release_after for p in site.panels]
+    count = np.fromiter(map(len, after), int, len(after))
+    day = np.fromiter(map(events.__getitem__, chain.from_iterable(after)), float, count.sum())
+    last = np.full(len(after), np.nan)
+    waits = count > 0
+    if waits.any():
+        last[waits] = np.maximum.reduceat(day, (np.cumsum(count) - count)[waits])
+    return last
+
+
+def weeks_to_release(lift_day, event_day):
+    """Weeks from the lift to the last release event, both days counted (at least one day);
+    NaN where either day is NaN."""
+    return np.maximum(1.0, event_day - lift_day + 1.0) / 7.0
 
 
 def line_loads(site: Site) -> LineLoads | None:

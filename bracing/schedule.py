@@ -46,7 +46,7 @@ from pathlib import Path
 import numpy as np
 
 from bracing import lines, plan, units
-from bracing.model import Bracing, Site
+from bracing.model import Bracing, Panel, SignOff, Site
 from bracing.results import DayResult, Flag, PanelResult
 from bracing.scenario import SiteFileError
 from bracing.wind import asce37
@@ -207,48 +207,97 @@ def fall_zones(site: Site, panels: list[PanelResult]) -> dict[str, tuple[float, 
 
 def wall_days(site: Site) -> list[WallDays]:
     """Lift and release day of every scheduled wall, with the sign-off flags (see the module)."""
-    events = {e.name: e for e in site.events}
-    planned = lines.planned_weeks(site)
-    signed: dict[str, list] = {}
-    for s in site.signoffs:
-        signed.setdefault(s.panel, []).append(s)
-    out = []
-    for i, p in enumerate(site.panels):
-        if p.lift_day is None:
-            continue
-        if p.standing_time is not None:
-            weeks, source = p.standing_time, "the wall's standing_time"
-        elif p.release_after:
-            weeks, source = float(planned[i]), "its release events"
-        else:
-            weeks, source = site.site.construction_period, "the site's construction_period"
-        w = WallDays(i, p.mark, p.lift_day, None, weeks, source)
-        for s in sorted(signed.get(p.mark, []), key=lambda s: s.day):
-            pending = [n for n in p.release_after if events[n].day > s.day]
-            if s.day < p.lift_day:
-                _flag(w, s.day, "signoff-before-lift", "warning",
-                      f"{p.mark}: sign-off by {s.by} on day {s.day} is before its lift on day "
-                      f"{p.lift_day}: ignored")
-            elif pending:
-                _flag(w, s.day, "signoff-before-event", "danger",
-                      f"{p.mark}: sign-off by {s.by} on day {s.day} comes before "
-                      + ", ".join(f"{n} (day {events[n].day})" for n in pending)
-                      + ": the braces stay")
-            else:
-                w.release = s.day
-                break
-        if w.release is None:
-            _flag(w, p.lift_day, "no-signoff", "notice",
-                  f"{p.mark}: no valid sign-off recorded: its braces stay to the end of the "
-                  "schedule")
-        out.append(w)
+    w = _walls(site)
+    out = [WallDays(i, m, lift, release or None, weeks, source) for i, m, lift, release, weeks,
+           source in zip(w.index.tolist(), w.marks.tolist(), w.lift.tolist(), w.release.tolist(),
+                         w.planned_weeks.tolist(), w.planned_from.tolist())]
+    for k, day, f in zip(w.flag_wall.tolist(), w.flag_day.tolist(), w.flags):
+        out[k].flags.append(f)
+        out[k].flag_days.append(day)
     return out
 
 
-def _flag(w: WallDays, day: int, code: str, severity: str, message: str,
-          source: str = RELEASE_SOURCE) -> None:
-    w.flags.append(Flag(code, severity, message, source))
-    w.flag_days.append(day)
+@dataclass
+class _Walls:
+    """The scheduled walls as arrays, in site order (the days are counted over all at once)."""
+
+    index: np.ndarray          # row in site.panels
+    marks: np.ndarray          # (object)
+    lift: np.ndarray           # lift day
+    release: np.ndarray        # release day; 0: no valid sign-off, stands to the last day
+    planned_weeks: np.ndarray
+    planned_from: np.ndarray   # (object) what the planned time comes from
+    last_event: int            # last day an event the walls' releases wait for falls on (0: none)
+    flags: list[Flag]          # sign-off and no-signoff flags, wall by wall (see wall_days)
+    flag_wall: np.ndarray      # the wall of each flag
+    flag_day: np.ndarray       # the day of each flag
+
+
+PLANNED_FROM = np.array(["the wall's standing_time", "its release events",
+                         "the site's construction_period"], dtype=object)
+
+
+def _walls(site: Site) -> _Walls:
+    """The scheduled walls, their release days and sign-off flags (see the module)."""
+    lift = np.array([p.lift_day for p in site.panels], float)  # None: NaN, not scheduled
+    index = np.flatnonzero(~np.isnan(lift))
+    lift = lift[index].astype(int)
+    marks = np.array([p.mark for p in site.panels], dtype=object)[index]
+    event_day = lines.release_event_days(site)[index]
+    own = np.array([p.standing_time for p in site.panels], float)[index]  # None: NaN, not given
+    source = np.where(np.isnan(own), np.where(np.isnan(event_day), 2, 1), 0)  # PLANNED_FROM
+    weeks = np.choose(source, [own, lines.weeks_to_release(lift, event_day),
+                               site.site.construction_period])
+    release, early, flag_wall, flag_day = _releases(site, index, marks, lift, event_day)
+    stays = np.flatnonzero(release == 0)
+    flags = early + [Flag("no-signoff", "notice", f"{m}: no valid sign-off recorded: its braces "
+                          "stay to the end of the schedule", RELEASE_SOURCE)
+                     for m in marks[stays].tolist()]
+    flag_wall = np.concatenate([flag_wall, stays])
+    flag_day = np.concatenate([flag_day, lift[stays]])
+    by_wall = np.argsort(flag_wall, kind="stable")  # a wall's `no-signoff` after its sign-offs
+    known = event_day[~np.isnan(event_day)]
+    return _Walls(index, marks, lift, release, weeks, PLANNED_FROM[source],
+                  int(known.max()) if len(known) else 0, [flags[j] for j in by_wall.tolist()],
+                  flag_wall[by_wall], flag_day[by_wall])
+
+
+def _releases(site: Site, index: np.ndarray, marks: np.ndarray, lift: np.ndarray,
+              event_day: np.ndarray) -> tuple[np.ndarray, list[Flag], np.ndarray, np.ndarray]:
+    """Release day of each scheduled wall (0: none) from the sign-offs, and the flags of the
+    sign-offs that come too early (before the one that releases the wall, if any), wall by
+    wall and day by day, with their walls and days. `event_day`: the last event each waits for.
+    """
+    row = dict(zip(marks.tolist(), range(len(marks))))
+    wall = np.array([row.get(s.panel, -1) for s in site.signoffs], int)
+    day = np.array([s.day for s in site.signoffs], int)
+    order = np.lexsort((day, wall))                # stable: same-day sign-offs in file order
+    order = order[wall[order] >= 0]                # sign-offs of scheduled walls
+    wall, day = wall[order], day[order]
+    valid = (day >= lift[wall]) & ~(event_day[wall] > day)  # after the lift and every event
+    first = np.full(len(marks), len(order))        # each wall's first valid sign-off
+    np.minimum.at(first, wall[valid], np.flatnonzero(valid))
+    release = np.zeros(len(marks), int)
+    signed = first < len(order)
+    release[signed] = day[first[signed]]
+    early = np.flatnonzero(np.arange(len(order)) < first[wall])
+    events = {e.name: e.day for e in site.events}
+    flags = [_early_flag(site.signoffs[j], site.panels[i], events)
+             for j, i in zip(order[early].tolist(), index[wall[early]].tolist())]
+    return release, flags, wall[early], day[early]
+
+
+def _early_flag(signoff: SignOff, panel: Panel, events: dict[str, int]) -> Flag:
+    """The flag of a sign-off that cannot release its wall (OSHA 1926.704(a)): before the lift,
+    or before an event the release waits for."""
+    s, p = signoff, panel
+    if s.day < p.lift_day:
+        return Flag("signoff-before-lift", "warning", f"{p.mark}: sign-off by {s.by} on day "
+                    f"{s.day} is before its lift on day {p.lift_day}: ignored", RELEASE_SOURCE)
+    pending = [n for n in p.release_after if events[n] > s.day]
+    return Flag("signoff-before-event", "danger", f"{p.mark}: sign-off by {s.by} on day "
+                f"{s.day} comes before " + ", ".join(f"{n} (day {events[n]})" for n in pending)
+                + ": the braces stay", RELEASE_SOURCE)
 
 
 def build_days(site: Site, panels: list[PanelResult], base_dir: str | Path | None = None
@@ -259,19 +308,18 @@ def build_days(site: Site, panels: list[PanelResult], base_dir: str | Path | Non
     `base_dir` (the site file's folder; default the working folder). Returns (days,
     {"braces": {type: peak}, "anchors": {type: peak}}, [(mark, flag)]).
     """
-    walls = wall_days(site)
-    if not walls:
+    walls = _walls(site)
+    if not len(walls.index):
         return [], {"braces": {}, "anchors": {}}, []
     forecast = (read_forecast(Path(base_dir or ".") / site.forecast.file, site.site.start_date)
                 if site.forecast else {})
-    events = {e.name: e.day for e in site.events}
-    last = max([w.lift for w in walls] + [w.release or 0 for w in walls]
-               + [events[n] for w in walls for n in site.panels[w.index].release_after]
-               + [d for w in walls for d in w.flag_days])
-    if any(w.release is None for w in walls):  # a wall stands on: forecast days still count
+    last = max(int(walls.lift.max()), int(walls.release.max()), walls.last_event,
+               int(walls.flag_day.max(initial=0)))
+    if not walls.release.all():  # a wall stands on: forecast days still count
         last = max([last, *forecast])
-    days, peak, slips = _days(site, walls, {p.mark: p for p in panels}, forecast, last)
-    wall_flags = [(w.mark, f) for w in walls for f in w.flags]
+    result, marks = {p.mark: p for p in panels}, walls.marks.tolist()
+    days, peak, slips = _days(site, walls, [result[m] for m in marks], forecast, last)
+    wall_flags = list(zip(walls.marks[walls.flag_wall].tolist(), walls.flags))
     wall_flags += [item for d in sorted(slips) for item in slips[d]]
     return days, peak, wall_flags
 
@@ -279,87 +327,117 @@ def build_days(site: Site, panels: list[PanelResult], base_dir: str | Path | Non
 def whole_site(site: Site, panels: list[PanelResult]) -> DayResult:
     """Every wall of the site standing together, as day 0: the sheet of a site file that gives
     no lift days (inventory, stand-down speed; no forecast, no lifts, no releases)."""
-    walls = [WallDays(i, p.mark, 1, None, 0.0, "") for i, p in enumerate(site.panels)]
-    days, _, _ = _days(site, walls, {p.mark: p for p in panels}, {}, 1)
+    n, no_flags = len(site.panels), np.zeros(0, int)
+    walls = _Walls(np.arange(n), np.array([p.mark for p in site.panels], dtype=object),
+                   np.ones(n, int), np.zeros(n, int), np.zeros(n), np.full(n, "", dtype=object),
+                   0, [], no_flags, no_flags)
+    result = {p.mark: p for p in panels}
+    days, _, _ = _days(site, walls, [result[m] for m in walls.marks.tolist()], {}, 1)
     return replace(days[0], day=0, lifts=[])
 
 
-def _days(site: Site, walls: list[WallDays], result: dict[str, PanelResult],
+def _days(site: Site, walls: _Walls, results: list[PanelResult],
           forecast: dict[int, ForecastDay], last: int):
-    """Days 1 to `last` of the scheduled walls: (days, peak inventory, period slips by day)."""
+    """Days 1 to `last` of the scheduled walls (`results` in their order): (days, peak
+    inventory, period slips by day)."""
     day = np.arange(1, last + 1)[:, None]                                  # (days, 1)
-    lift = np.array([w.lift for w in walls])
-    release = np.array([w.release or last + 1 for w in walls])
-    standing = (lift <= day) & (day < release)                             # (days, walls)
-    in_use = (lift <= day) & (day <= release)  # braces come off after the release sign-off
-    gear = [hardware(site.panels[w.index].bracing, result[w.mark]) for w in walls]
-    braces, anchors = _counts(gear, lambda g: [(g.brace_type, g.count)]), _counts(
-        gear, lambda g: [(g.wall_anchor, g.count), (g.foot_anchor, g.count)])
-    brace_use = in_use.astype(int) @ braces[1] if braces[0] else np.zeros((last, 0), int)
-    anchor_use = in_use.astype(int) @ anchors[1] if anchors[0] else np.zeros((last, 0), int)
-    stand_down = np.array([result[w.mark].stand_down_speed_mph for w in walls], float)
-    limit = np.array([result[w.mark].working_limit_speed_mph for w in walls], float)
-    slips = _period_slips(walls, result, standing, lift)
+    release = np.where(walls.release > 0, walls.release, last + 1)
+    standing = (walls.lift <= day) & (day < release)                       # (days, walls)
+    brace, wall_anchor, foot_anchor, count = _gear(site, walls.index, results)
+    use = (walls.lift, release, np.array(count, int), last)
+    braces, anchors = _in_use([brace], *use), _in_use([wall_anchor, foot_anchor], *use)
+    stand_down = np.array([r.stand_down_speed_mph for r in results], float)
+    limit = np.array([r.working_limit_speed_mph for r in results], float)
+    slips = _period_slips(walls, results, release, last)
     on_day: dict[int, list[Flag]] = {}
-    for w in walls:
-        for f, fd in zip(w.flags, w.flag_days):
-            if f.code != "no-signoff":
-                on_day.setdefault(fd, []).append(f)
-    lifted, released = _by_day(walls, lambda w: w.lift), _by_day(walls, lambda w: w.release)
-    marks = np.array([w.mark for w in walls], dtype=object)
-    failing = np.array([result[w.mark].status in STATUS_WORDS for w in walls], dtype=bool)
-    failing_flag = dict(zip(np.nonzero(failing)[0].tolist(),
-                            _status_flags([w for w, f in zip(walls, failing) if f], result)))
-    known_speed = np.isfinite(stand_down)
+    for d, f in zip(walls.flag_day.tolist(), walls.flags):
+        if f.code != "no-signoff":
+            on_day.setdefault(d, []).append(f)
+    lifted, released = _by_day(walls.marks, walls.lift), _by_day(walls.marks, walls.release)
+    marks = walls.marks
+    status = np.array([r.status for r in results], dtype=object)
+    failing = np.flatnonzero(np.isin(status, list(STATUS_WORDS)))
+    failing_flags = np.array(_status_flags(marks[failing].tolist(), status[failing].tolist()),
+                             dtype=object)
+    known = np.isfinite(stand_down)
+    unknown = np.flatnonzero(~known)
+    # each day over the walls standing: the lowest stand-down speed (the first such wall) and
+    # the lowest working limit (inf: none known)
+    up_known = standing & known
+    governing = np.where(up_known, stand_down, np.inf).argmin(axis=1)
+    governed = up_known.any(axis=1)
+    least_limit = np.where(standing & np.isfinite(limit), limit, np.inf).min(axis=1).tolist()
+    anyone = standing.any(axis=1)
 
     days = []
     for n in range(last):  # per day, numpy over the walls: a long job has many of both
         d = n + 1
-        up = np.nonzero(standing[n])[0]
-        use_b = {t: int(c) for t, c in zip(braces[0], brace_use[n]) if c}
-        use_a = {t: int(c) for t, c in zip(anchors[0], anchor_use[n]) if c}
+        up = standing[n]
+        use_b = {t: int(c) for t, c in zip(braces[0], braces[1][n]) if c}
+        use_a = {t: int(c) for t, c in zip(anchors[0], anchors[1][n]) if c}
         short = {"braces": _short(use_b, site.brace_types),
                  "anchors": _short(use_a, site.anchor_types)}
         flags = on_day.get(d, []) + [f for _, f in slips.get(d, [])]
-        flags += _short_flags(short) + [failing_flag[k] for k in up[failing[up]].tolist()]
-        known = up[known_speed[up]]
-        gov = int(known[np.argmin(stand_down[known])]) if len(known) else None
-        unknown = marks[up[~known_speed[up]]].tolist()
+        flags += _short_flags(short) + failing_flags[up[failing]].tolist()
+        gov = int(governing[n]) if governed[n] else None
         fc = forecast.get(d)
-        go, reason = _go(site, len(up) > 0, None if gov is None else walls[gov], result, unknown,
-                         fc)
+        go, reason = _go(site, bool(anyone[n]), None if gov is None else results[gov],
+                         marks[unknown[up[unknown]]].tolist(), fc)
         days.append(DayResult(
             day=d, date=date_of(site, d),
             lifts=lifted.get(d, []), standing=marks[up].tolist(),
             braces_in_use=use_b, anchors_in_use=use_a, released=released.get(d, []),
             stand_down_speed_mph=None if gov is None else float(stand_down[gov]),
-            working_limit_speed_mph=_least(limit[up]),
-            governing_wall=None if gov is None else walls[gov].mark,
+            working_limit_speed_mph=None if least_limit[n] == math.inf else least_limit[n],
+            governing_wall=None if gov is None else marks[gov],
             forecast_gust_mph=fc.gust_mph if fc else None, storm=bool(fc and fc.storm),
             go=go, reason=reason, short=short, flags=flags))
-    peak = {"braces": {t: int(c) for t, c in zip(braces[0], brace_use.max(axis=0))},
-            "anchors": {t: int(c) for t, c in zip(anchors[0], anchor_use.max(axis=0))}}
+    peak = {"braces": {t: int(c) for t, c in zip(braces[0], braces[1].max(axis=0))},
+            "anchors": {t: int(c) for t, c in zip(anchors[0], anchors[1].max(axis=0))}}
     return days, peak, slips
 
 
-def _by_day(walls: list[WallDays], day_of) -> dict[int, list[str]]:
-    """Marks of the walls by the day `day_of` gives them (lift or release), in site order."""
-    out: dict[int, list[str]] = {}
-    for w in walls:
-        if day_of(w) is not None:
-            out.setdefault(day_of(w), []).append(w.mark)
-    return out
+def _by_day(marks: np.ndarray, day: np.ndarray) -> dict[int, list[str]]:
+    """Marks of the walls by their day in `day` (lift or release; 0: none), in site order."""
+    order = np.argsort(day, kind="stable")
+    groups = np.split(order, np.flatnonzero(np.diff(day[order])) + 1)
+    return {int(day[g[0]]): marks[g].tolist() for g in groups if len(g) and day[g[0]]}
 
 
-def _counts(gear: list[Hardware | None], pick) -> tuple[list[str], np.ndarray]:
-    """Type names and a (walls, types) matrix of how many of each type every wall uses."""
-    names = sorted({t for g in gear if g for t, _ in pick(g) if t})
-    matrix = np.zeros((len(gear), len(names)), int)
-    for k, g in enumerate(gear):
-        for t, c in pick(g) if g else []:
-            if t:
-                matrix[k, names.index(t)] += c
-    return names, matrix
+def _gear(site: Site, index: np.ndarray, results: list[PanelResult]) -> list[list]:
+    """Each wall's brace type, wall anchor and foot anchor (None: not named) and brace count, as
+    `hardware` reads them: from its result's `braces` record, else from the site file's
+    `bracing` (`index`: the walls' rows in site.panels, `results` in their order)."""
+    records = [r.braces or {} for r in results]
+    rows, columns = index.tolist(), []
+    for key, unnamed in (("brace_type", None), ("wall_anchor", None), ("foot_anchor", None),
+                         ("count", 0)):
+        column = [d.get(key, _NOT_RECORDED) for d in records]
+        for k in [k for k, v in enumerate(column) if v is _NOT_RECORDED]:
+            bracing = site.panels[rows[k]].bracing
+            column[k] = getattr(bracing, key) if bracing else unnamed
+        columns.append(column)
+    return columns
+
+
+_NOT_RECORDED = object()  # a key missing from a wall's `braces` record
+
+
+def _in_use(types: list[list], lift: np.ndarray, release: np.ndarray, count: np.ndarray,
+            last: int) -> tuple[list[str], np.ndarray]:
+    """Type names and a (days, types) table of how many of each are in use each day: each
+    column of `types` names one piece per brace of a wall, in use from its lift to its
+    release day."""
+    column = dict.fromkeys(set().union(*types), -1)  # -1: not named
+    names = sorted(t for t in column if t)
+    column.update((t, j) for j, t in enumerate(names))
+    change = np.zeros((last + 3, len(names)), int)  # on at the lift, off the day after release
+    for col in types:
+        j = np.array([column[t] for t in col], int)
+        named = j >= 0
+        np.add.at(change, (lift[named], j[named]), count[named])
+        np.add.at(change, (release[named] + 1, j[named]), -count[named])
+    return names, np.cumsum(change, axis=0)[1:last + 1]
 
 
 def _short(use: dict[str, int], types: dict) -> dict[str, int]:
@@ -378,41 +456,50 @@ STATUS_WORDS = {"unsafe": "braced, but a check fails",
                 "needs_braces": "cannot stand on its own and has no braces"}
 
 
-def _status_flags(here: list[WallDays], result: dict) -> list[Flag]:
-    """Standing walls that fail: unsafe braced walls, walls that need braces and have none."""
-    return [Flag(f"{result[w.mark].status.replace('_', '-')}-standing", "danger",
-                 f"{w.mark} stands today: {STATUS_WORDS[result[w.mark].status]}",
-                 "the wall's checks (`bracing check`)")
-            for w in here if result[w.mark].status in STATUS_WORDS]
+def _status_flags(marks: list[str], statuses: list[str]) -> list[Flag]:
+    """The flags of standing walls that fail: unsafe braced walls, walls that need braces and
+    have none."""
+    code = {s: f"{s.replace('_', '-')}-standing" for s in STATUS_WORDS}
+    return [Flag(code[s], "danger", f"{m} stands today: {STATUS_WORDS[s]}",
+                 "the wall's checks (`bracing check`)") for m, s in zip(marks, statuses)]
 
 
-def _period_slips(walls: list[WallDays], result: dict, standing: np.ndarray, lift: np.ndarray
+def _period_slips(walls: _Walls, results: list[PanelResult], release: np.ndarray, last: int
                   ) -> dict[int, list[tuple[str, Flag]]]:
-    """(mark, flag) by day of walls whose standing time passes into a band of higher factor."""
-    days = np.arange(1, standing.shape[0] + 1)[:, None]
-    weeks = (days - lift + 1) / 7.0                         # standing time on each day, weeks
-    needed = np.where(standing, asce37.period_factor(np.maximum(weeks, 0.0)), 0.0)
+    """(mark, flag) by day of walls whose standing time passes into a band of higher factor;
+    `release`: the day each wall stops standing."""
+    stood = np.arange(1, last + 1)                 # days stood, the lift day counted
+    factor = asce37.period_factor(stood / 7.0)     # ASCE 37-14 Table 6.2-1, weeks stood
+    enters = np.flatnonzero(np.r_[True, factor[1:] != factor[:-1]])  # a band's first day stood
+    day = walls.lift[:, None] + enters             # (walls, bands): the day each band begins
+    used = np.array([r.wind.period_factor for r in results], float)
+    k, band = np.nonzero((day < release[:, None]) & (factor[enters] > used[:, None] + 1e-12))
+    if not len(k):
+        return {}
+    on = day[k, band]
+    by_day = np.lexsort((k, on))                   # day by day, walls in site order
+    k, on, band = k[by_day], on[by_day], enters[band[by_day]]
+    slipping = np.unique(k)
+    checked = {j: _checked(results[j].wind, limit, planned, source) for j, limit, planned, source
+               in zip(slipping.tolist(),
+                      asce37.period_band_limit_weeks(walls.planned_weeks[slipping]).tolist(),
+                      walls.planned_weeks[slipping].tolist(),
+                      walls.planned_from[slipping].tolist())}
     out: dict[int, list[tuple[str, Flag]]] = {}
-    for k, w in enumerate(walls):
-        wind = result[w.mark].wind
-        used = wind.period_factor
-        checked = (f"the factor {used:.2f} set for the site" if wind.period_factor_from == "set"
-                   else f"the {float(asce37.period_band_limit_weeks(w.planned_weeks)):.0f}-week "
-                        f"band of its check (planned {w.planned_weeks:.1f} weeks from "
-                        f"{w.planned_from}, factor {used:.2f})")
-        for n in np.nonzero(needed[:, k] > used + 1e-12)[0]:
-            if n > 0 and needed[n - 1, k] == needed[n, k]:
-                continue  # flagged when it entered this band
-            out.setdefault(int(n) + 1, []).append((w.mark, Flag(
-                "period-slip", "warning",
-                f"{w.mark}: stood {weeks[n, k]:.1f} weeks on day {n + 1}, past {checked}; "
-                f"factor now {needed[n, k]:.2f}: re-check the wall", PERIOD_SOURCE)))
+    for d, j, mark, weeks, now in zip(on.tolist(), k.tolist(), walls.marks[k].tolist(),
+                                      (stood[band] / 7.0).tolist(), factor[band].tolist()):
+        out.setdefault(d, []).append((mark, Flag(
+            "period-slip", "warning", f"{mark}: stood {weeks:.1f} weeks on day {d}, past "
+            f"{checked[j]}; factor now {now:.2f}: re-check the wall", PERIOD_SOURCE)))
     return out
 
 
-def _least(values: np.ndarray) -> float | None:
-    finite = values[np.isfinite(values)]
-    return float(finite.min()) if len(finite) else None
+def _checked(wind, band_weeks: float, planned_weeks: float, planned_from: str) -> str:
+    """What a wall's wind check took its period factor from, for its period-slip flag."""
+    if wind.period_factor_from == "set":
+        return f"the factor {wind.period_factor:.2f} set for the site"
+    return (f"the {band_weeks:.0f}-week band of its check (planned {planned_weeks:.1f} weeks "
+            f"from {planned_from}, factor {wind.period_factor:.2f})")
 
 
 def stand_down_rule(site: Site, panel: PanelResult) -> str:
@@ -430,9 +517,10 @@ def stand_down_rule(site: Site, panel: PanelResult) -> str:
     return "engine"
 
 
-def _go(site: Site, anyone: bool, gov: WallDays | None, result: dict,
-        unknown: list[str], fc: ForecastDay | None) -> tuple[bool | None, str]:
-    """The day's go / no-go and its reason (see the module); `anyone`: a wall stands."""
+def _go(site: Site, anyone: bool, gov: PanelResult | None, unknown: list[str],
+        fc: ForecastDay | None) -> tuple[bool | None, str]:
+    """The day's go / no-go and its reason (see the module); `anyone`: a wall stands, `gov`: the
+    one with the lowest stand-down speed."""
     if not anyone:
         return None, "no walls standing"
     if fc is None:
@@ -442,9 +530,8 @@ def _go(site: Site, anyone: bool, gov: WallDays | None, result: dict,
     if unknown:
         return False, (f"no stand-down speed is known for {', '.join(unknown)} (a brace or "
                        "anchor capacity is unknown)")
-    p = result[gov.mark]
-    compare = (f"forecast gust {fc.gust_mph:.0f} mph {{}} stand-down {p.stand_down_speed_mph:.0f}"
-               f" mph of {gov.mark} ({stand_down_rule(site, p)})")
-    if fc.gust_mph < p.stand_down_speed_mph:
+    compare = (f"forecast gust {fc.gust_mph:.0f} mph {{}} stand-down "
+               f"{gov.stand_down_speed_mph:.0f} mph of {gov.mark} ({stand_down_rule(site, gov)})")
+    if fc.gust_mph < gov.stand_down_speed_mph:
         return True, compare.format("<")
     return False, compare.format(">=") + ": no lifts, clear the fall zones"
