@@ -644,19 +644,16 @@ class _Results:
         combos = {"resisting": f.resisting, "adding": f.adding, "wind": f.wind_only}
         self.unbraced = _check_set(e.checks, CHECK_INFO, combos)
         w, wind = e.walls, e.wind
-        self.row = {
-            "weight": (w.face_weight * w.height * w.width * w.solidity).tolist(),
-            "period_factor": w.period_factor.tolist(), "design_speed": e.design_speed.tolist(),
-            "kz": wind.kz.tolist(), "q": wind.q.tolist(), "cf": wind.cf_case_a.tolist(),
-            "opening": wind.opening.tolist(), "force": wind.force_a.tolist(),
-            "lever": np.where(w.rigid, wind.lever, wind.lever_strip).tolist(),
-            "solidity": w.solidity.tolist(), "minimum": wind.minimum_governs.tolist(),
-            "cf_end": wind.cf_end.tolist(), "cf_interior": wind.cf_interior.tolist(),
-            "utilization": e.utilization.tolist(), "limit": e.limit.tolist(),
-            "stand_down": e.stand_down.tolist(), "max_height": e.max_height.tolist(),
-            "max_at_limit": e.max_at_limit.tolist(), "rigid": w.rigid.tolist(),
-            "masonry": w.masonry.tolist(), "fresh": w.fresh.tolist(),
-        }
+        self.row = list(zip(  # per wall, in the order `panel` unpacks them
+            (w.face_weight * w.height * w.width * w.solidity).tolist(),
+            w.period_factor.tolist(), e.design_speed.tolist(), wind.kz.tolist(),
+            wind.q.tolist(), wind.cf_case_a.tolist(), wind.opening.tolist(),
+            wind.force_a.tolist(), np.where(w.rigid, wind.lever, wind.lever_strip).tolist(),
+            w.solidity.tolist(), wind.minimum_governs.tolist(), wind.cf_end.tolist(),
+            wind.cf_interior.tolist(), e.utilization.tolist(), e.limit.tolist(),
+            e.stand_down.tolist(), e.max_height.tolist(), e.max_at_limit.tolist(),
+            np.select([w.rigid, w.masonry & ~w.fresh, w.masonry], ["rigid", "masonry", "fresh"],
+                      "strip").tolist()))
         self.wind_common = {
             "basic_speed_mph": site.site.basic_wind_speed,
             "period_factor_from": "set" if site.site.period_factor else "standing time",
@@ -679,24 +676,23 @@ class _Results:
 
     def panel(self, i: int) -> PanelResult:
         """The result object of wall i."""
-        site, p, v = self.site, self.panels[i], {k: values[i] for k, values in self.row.items()}
+        site, p = self.site, self.panels[i]
+        (weight, period_factor, design_speed, kz, q, cf, opening, force, lever, solidity,
+         minimum, cf_end, cf_interior, utilization, own_limit, own_stand_down, max_height,
+         max_at_limit, kind) = self.row[i]
         mat = site.materials[p.material]
-        rigid = v["rigid"]
-        kind = "rigid" if rigid else "masonry" if v["masonry"] and not v["fresh"] else \
-            "fresh" if v["masonry"] else "strip"
-        flags = self._wall_flags(p, mat, v)
-        utilization = v["utilization"]
+        flags = self._wall_flags(p, mat, utilization, solidity, kind)
         stands = utilization <= 1.0 and not any(f.code == "masonry-over-8ft" for f in flags)
-        limit, stand_down = v["limit"], v["stand_down"]
+        limit, stand_down = own_limit, own_stand_down
         status, details = "stands" if stands else "needs_braces", None
         if p.bracing is None:
             found, row = self.unbraced, i
-            checks = _checks(found.columns, i, kind, UNBRACED_SOURCES[kind])
+            checks = _checks(found, i, kind, UNBRACED_SOURCES[kind])
         else:
             found, row = self.braced, self.brace_row[i]
             kind = "braced"
             specific, *hardware_flags = self._hardware(p.bracing)
-            checks = _checks(found.columns, row, kind, specific)
+            checks = _checks(found, row, kind, specific)
             status = "braced" if found.strength_ok[row] else "unsafe"
             b = self.brace_row_values
             limit, stand_down, missing = b["limit"][row], b["stand_down"][row], b["missing"][row]
@@ -709,21 +705,20 @@ class _Results:
                                         stand_down, missing, *hardware_flags)
         element, regions = found.columns[found.governing[row]][:2]
         return PanelResult(
-            mark=p.mark, material=mat.kind, status=status, weight_lb=v["weight"],
+            mark=p.mark, material=mat.kind, status=status, weight_lb=weight,
             height_ft=p.height, width_ft=p.width, thickness_in=p.thickness,
             wind=WindResult(
-                period_factor=v["period_factor"], design_speed_mph=v["design_speed"],
-                kz=v["kz"], velocity_pressure_psf=v["q"], force_coefficient=v["cf"],
-                opening_factor=v["opening"], force_lb=v["force"],
-                resultant_height_ft=v["lever"], solidity=v["solidity"],
-                minimum_pressure_governs=v["minimum"], end_zone_force_coefficient=v["cf_end"],
-                interior_force_coefficient=v["cf_interior"], **self.wind_common),
+                period_factor=period_factor, design_speed_mph=design_speed, kz=kz,
+                velocity_pressure_psf=q, force_coefficient=cf, opening_factor=opening,
+                force_lb=force, resultant_height_ft=lever, solidity=solidity,
+                minimum_pressure_governs=minimum, end_zone_force_coefficient=cf_end,
+                interior_force_coefficient=cf_interior, **self.wind_common),
             unbraced=UnbracedResult(
-                utilization=utilization, stands=stands, working_limit_speed_mph=v["limit"],
-                stand_down_speed_mph=v["stand_down"],
-                max_height_ft=self._capped(mat, v["max_height"]),
-                max_height_at_limit_ft=self._capped(mat, v["max_at_limit"]),
-                max_height_structural_ft=_or_none(v["max_height"])),
+                utilization=utilization, stands=stands, working_limit_speed_mph=own_limit,
+                stand_down_speed_mph=own_stand_down,
+                max_height_ft=self._capped(mat, max_height),
+                max_height_at_limit_ft=self._capped(mat, max_at_limit),
+                max_height_structural_ft=_or_none(max_height)),
             checks=checks, flags=flags, working_limit_speed_mph=limit,
             stand_down_speed_mph=stand_down,
             governing_element=f"{element} ({regions[kind]})",
@@ -737,10 +732,10 @@ class _Results:
             height = min(height, limit)
         return _or_none(height)
 
-    def _wall_flags(self, p, mat, v: dict) -> list[Flag]:
-        """Flags of the wall standing on its own."""
+    def _wall_flags(self, p, mat, utilization: float, solidity: float, kind: str
+                    ) -> list[Flag]:
+        """Flags of the wall standing on its own (`kind` as in UNBRACED_SOURCES)."""
         flags: list[Flag] = []
-        utilization = v["utilization"]
         if utilization > 1.0:
             flags.append(Flag("fails-unbraced", "danger",
                               f"cannot stand on its own at the design wind (utilization "
@@ -752,7 +747,7 @@ class _Results:
                               f"masonry wall {p.height:.1f} ft tall: over {limit:g} ft it must "
                               f"be braced until permanent supports are in place",
                               self.source["masonry_unbraced_height_ft"]))
-        open_share = 1.0 - v["solidity"]
+        open_share = 1.0 - solidity
         if open_share > 0.3:
             flags.append(Flag("mostly-open", "warning",
                               f"{open_share:.0%} open: checked as an open wall (open-sign "
@@ -765,7 +760,7 @@ class _Results:
             flags.append(Flag("raised-base", "notice",
                               f"base {p.base_elevation:g} ft above grade: s/h < 1 coefficients",
                               "ASCE 7-16 Figure 29.3-1"))
-        if v["masonry"] and v["fresh"]:
+        if kind == "fresh":
             flags.append(Flag("fresh-mortar", "notice",
                               "mortar not yet cured: stability by weight only, no flexural "
                               "tension", "TMS 402-16 §8.2 (from memory)"))
@@ -886,6 +881,7 @@ class _CheckSet:
     `_check_columns`) and, per wall, what the views ask of them first."""
 
     columns: list[tuple]
+    applies: list[tuple[int, ...]]        # the columns that apply to each wall (demand known)
     governing: list[int]                  # column of the largest strength utilization
     strength_ok: list[bool]               # every strength check passes
     any_over: list[bool]                  # some check (serviceability too) is over 1.0
@@ -900,7 +896,14 @@ def _check_set(arrays: dict, info: dict, combos: dict) -> _CheckSet:
                         ratios, -np.inf)
     brace = np.where(np.array([n.startswith("brace") for n in names])[:, None], ratios, -np.inf)
     brace = brace.max(axis=0)
-    return _CheckSet(_check_columns(arrays, info, combos), strength.argmax(axis=0).tolist(),
+    # which checks apply to a wall, as bits: walls of one pattern share one tuple of columns
+    pattern = (~np.isnan(np.array([d for d, _ in arrays.values()]))).T @ (
+        1 << np.arange(len(arrays), dtype=np.int64))
+    columns_of = {int(bits): tuple(k for k in range(len(arrays)) if bits >> k & 1)
+                  for bits in np.unique(pattern)}
+    return _CheckSet(_check_columns(arrays, info, combos),
+                     [columns_of[bits] for bits in pattern.tolist()],
+                     strength.argmax(axis=0).tolist(),
                      (strength.max(axis=0) <= 1.0).tolist(), (ratios.max(axis=0) > 1.0).tolist(),
                      [None if x == -math.inf else x for x in brace.tolist()])
 
@@ -925,12 +928,14 @@ def _check_columns(arrays: dict, info: dict, combos: dict) -> list[tuple]:
     return out
 
 
-def _checks(columns: list[tuple], row: int, kind: str, sources: dict) -> list[Check]:
-    """The Check objects of one wall (`row` of the arrays) that apply to it (demand not NaN)."""
-    return [Check(element, regions[kind], demand[row], capacity[row], unit, combination,
-                  sources.get(element, source))
-            for element, regions, unit, combination, source, demand, capacity in columns
-            if not math.isnan(demand[row])]
+def _checks(found: _CheckSet, row: int, kind: str, sources: dict) -> list[Check]:
+    """The Check objects of one wall (`row` of the arrays) that apply to it."""
+    out = []
+    for k in found.applies[row]:
+        element, regions, unit, combination, source, demand, capacity = found.columns[k]
+        out.append(Check(element, regions[kind], demand[row], capacity[row], unit, combination,
+                         sources.get(element, source)))
+    return out
 
 
 def _or_none(x) -> float | None:
