@@ -208,20 +208,43 @@ def anchor_distance_ft(b: Bracing) -> float:
         b.base_below_slab))
 
 
-def _anchor_distances_ft(bs: list[Bracing]) -> np.ndarray:
-    """`anchor_distance_ft` of many bracings at once."""
-    given = np.array([np.nan if b.anchor_distance is None else b.anchor_distance for b in bs],
-                     dtype=float)
-    angled = np.isnan(given)
-    if angled.any():
-        b_angled = [b for b, a in zip(bs, angled) if a]
-        given[angled] = braces.anchor_distance_for_angle(
-            np.array([b.insert_height for b in b_angled], dtype=float),
-            np.array([b.angle for b in b_angled], dtype=float),
-            np.array([b.insert_offset for b in b_angled], dtype=float) / IN_PER_FT,
-            np.array([b.foot_offset for b in b_angled], dtype=float) / IN_PER_FT,
-            np.array([b.base_below_slab for b in b_angled], dtype=float))
-    return given
+@dataclass(frozen=True)
+class _Bracing:
+    """The bracing of some walls (`walls`, rows in the places), one row per braced wall."""
+
+    walls: np.ndarray
+    braced: np.ndarray     # which of the walls have bracing
+    count: np.ndarray
+    given: np.ndarray      # whether the wall gives its brace positions
+    positions: list[float]  # those given, wall after wall
+    anchor_ft: np.ndarray  # foot from the wall face (`anchor_distance_ft`)
+    kind: np.ndarray       # foot anchor kind, '' when none named
+    anchor: np.ndarray     # foot anchor type name, '' when none named
+    top_ft: np.ndarray     # brace pin heights above the slab, at the insert and at the foot
+    low_ft: np.ndarray
+
+
+def _bracing(site: Site, places: Places, rows: np.ndarray) -> _Bracing:
+    """The bracing of the walls at `rows` of the places, read once for all of them."""
+    bs = [site.panels[i].bracing for i in places.index[rows].tolist()]
+    braced = np.array([b is not None for b in bs], dtype=bool)
+    bs = [b for b in bs if b is not None]
+    height = np.array([b.insert_height for b in bs], dtype=float)
+    base = np.array([b.base_below_slab for b in bs], dtype=float)
+    foot_offset = np.array([b.foot_offset for b in bs], dtype=float) / IN_PER_FT
+    given_ft = np.array([np.nan if b.anchor_distance is None else b.anchor_distance for b in bs],
+                        dtype=float)
+    for_angle_ft = braces.anchor_distance_for_angle(
+        height, np.array([np.nan if b.angle is None else b.angle for b in bs], dtype=float),
+        np.array([b.insert_offset for b in bs], dtype=float) / IN_PER_FT, foot_offset, base)
+    kind_of = {name: a.kind for name, a in site.anchor_types.items()}
+    return _Bracing(
+        rows, braced, np.array([b.count for b in bs], dtype=int),
+        np.array([bool(b.positions) for b in bs], dtype=bool),
+        [x for b in bs for x in b.positions],
+        np.where(np.isnan(given_ft), for_angle_ft, given_ft),
+        np.array([kind_of[b.foot_anchor] if b.foot_anchor else "" for b in bs], dtype=str),
+        np.array([b.foot_anchor or "" for b in bs], dtype=str), height - base, foot_offset)
 
 
 def brace_points(site: Site, place: PanelPlace) -> tuple[np.ndarray, np.ndarray]:
@@ -252,28 +275,20 @@ class _Braces:
         return shapely.linestrings(np.stack([self.insert, self.foot], axis=1))
 
 
-def _brace_table(site: Site, places: Places, rows: np.ndarray) -> _Braces:
-    """Every brace of the walls at `rows` of the places, computed for all braces at once."""
-    bracing = [site.panels[i].bracing for i in places.index[rows].tolist()]
-    walls = np.array([k for k, b in zip(rows.tolist(), bracing) if b is not None], dtype=int)
-    bs = [b for b in bracing if b is not None]
-    count = np.array([b.count for b in bs], dtype=int)
-    wall = np.repeat(walls, count)
+def _brace_table(places: Places, bracing: _Bracing) -> _Braces:
+    """Every brace of the walls braced, computed for all braces at once."""
+    count = bracing.count
+    wall = np.repeat(bracing.walls[bracing.braced], count)
     first = np.repeat(np.cumsum(count) - count, count)
     number = np.arange(len(wall)) - first + 1
     # the centres of equal strips (braces.default_positions), or the positions given
     along = (number - 0.5) * places.width_ft[wall] / count.repeat(count)
-    given = np.repeat(np.array([bool(b.positions) for b in bs], dtype=bool), count)
-    along[given] = [x for b in bs for x in b.positions]
-    kind_of = {name: a.kind for name, a in site.anchor_types.items()}
-    anchor = np.array([b.foot_anchor or "" for b in bs], dtype=str)
-    kind = np.array([kind_of[b.foot_anchor] if b.foot_anchor else "" for b in bs], dtype=str)
-    top = np.array([b.insert_height - b.base_below_slab for b in bs], dtype=float)
-    low = np.array([b.foot_offset for b in bs], dtype=float) / IN_PER_FT
+    along[bracing.given.repeat(count)] = bracing.positions
     insert = places.origin[wall] + along[:, None] * places.direction[wall]
-    foot = insert + np.repeat(_anchor_distances_ft(bs), count)[:, None] * places.normal[wall]
-    return _Braces(wall, places.mark[wall], number, insert, foot, kind.repeat(count),
-                   anchor.repeat(count), top.repeat(count), low.repeat(count))
+    foot = insert + bracing.anchor_ft.repeat(count)[:, None] * places.normal[wall]
+    return _Braces(wall, places.mark[wall], number, insert, foot, bracing.kind.repeat(count),
+                   bracing.anchor.repeat(count), bracing.top_ft.repeat(count),
+                   bracing.low_ft.repeat(count))
 
 
 # --- slab and ground ----------------------------------------------------------------------------
@@ -351,7 +366,7 @@ def foot_edge_distances_in(site: Site, places: Places) -> dict[str, float]:
     inf where the wall has no slab anchor, is not placed or the plan has no slab outline."""
     out = {p.mark: np.inf for p in site.panels}
     slab = _slab(site)
-    table = _brace_table(site, places, places.rows())
+    table = _brace_table(places, _bracing(site, places, places.rows()))
     sel = table.kind == "slab"
     if slab is None or not sel.any():
         return out
@@ -375,25 +390,24 @@ def edge_distance_needed_in(site: Site, anchor: str) -> tuple[float, str]:
 
 
 # --- zones --------------------------------------------------------------------------------------
-def _zone_reach_ft(site: Site, places: Places, rows: np.ndarray,
+def _zone_reach_ft(site: Site, places: Places, bracing: _Bracing,
                    heights: dict[str, float] | None):
-    """Heights, brace footprints, which are masonry under the zone rule, and the reach out in
-    front and back behind (ft) of the walls at `rows` (the rules are in `zone_reach`)."""
+    """Heights, which are masonry under the zone rule, and the reach out in front and back
+    behind (ft) of the walls of `bracing` (the rules are in `zone_reach`)."""
     extra = site.rule_value("masonry_zone_extra_ft")
-    panels = [site.panels[i] for i in places.index[rows].tolist()]
+    panels = [site.panels[i] for i in places.index[bracing.walls].tolist()]
     h = np.array([heights.get(p.mark, p.height) for p in panels] if heights else
                  [p.height for p in panels], dtype=float)
-    braced = np.array([p.bracing is not None for p in panels], dtype=bool)
     footprint = np.zeros(len(panels))
-    footprint[braced] = _anchor_distances_ft([p.bracing for p in panels if p.bracing is not None])
+    footprint[bracing.braced] = bracing.anchor_ft
     kind_of = {name: m.kind for name, m in site.materials.items()}
     masonry = np.array([kind_of[p.material] == "masonry" and extra is not None for p in panels],
                        dtype=bool)
     front = h + footprint
     if extra is not None:  # OSHA 29 CFR 1926.706(a): h + 4 ft
         front = np.where(masonry, np.maximum(h + extra, front), front)
-    back = np.where(masonry, 0.0, places.thickness_ft[rows] + h)
-    return h, footprint, masonry, front, back
+    back = np.where(masonry, 0.0, places.thickness_ft[bracing.walls] + h)
+    return h, masonry, front, back
 
 
 def zone_reach(site: Site, places: Places, heights: dict[str, float] | None = None,
@@ -407,7 +421,7 @@ def zone_reach(site: Site, places: Places, heights: dict[str, float] | None = No
     height behind its back face. Both run the wall's whole length, no farther.
     """
     rows = places.rows(standing)
-    h, _, masonry, front, back = _zone_reach_ft(site, places, rows, heights)
+    h, masonry, front, back = _zone_reach_ft(site, places, _bracing(site, places, rows), heights)
     extra = site.rule_value("masonry_zone_extra_ft")
     source = site.rule("masonry_zone_extra_ft").source
     out = {}
@@ -422,10 +436,12 @@ def zone_reach(site: Site, places: Places, heights: dict[str, float] | None = No
     return out
 
 
-def _zone_corners(site: Site, places: Places, rows: np.ndarray,
+def _zone_corners(site: Site, places: Places, bracing: _Bracing,
                   heights: dict[str, float] | None) -> np.ndarray:
-    """Corners of the zones of the walls at `rows`, rectangles along their length, (n, 4, 2)."""
-    *_, front, back = _zone_reach_ft(site, places, rows, heights)
+    """Corners of the zones of the walls of `bracing`, rectangles along their length,
+    (n, 4, 2)."""
+    *_, front, back = _zone_reach_ft(site, places, bracing, heights)
+    rows = bracing.walls
     along = places.width_ft[rows][:, None] * [0.0, 1.0, 1.0, 0.0]
     out = np.stack([-back, -back, front, front], axis=1)
     return (places.origin[rows][:, None] + along[..., None] * places.direction[rows][:, None]
@@ -441,7 +457,7 @@ def zones(site: Site, places: Places, heights: dict[str, float] | None = None,
     published reason was found to make it larger; what changes is who may be inside.
     """
     rows = places.rows(standing)
-    corners = _zone_corners(site, places, rows, heights)
+    corners = _zone_corners(site, places, _bracing(site, places, rows), heights)
     return dict(zip(places.mark[rows].tolist(), shapely.polygons(corners)))
 
 
@@ -455,14 +471,15 @@ def plan_findings(site: Site, places: Places,
 def _findings(site: Site, places: Places, standing: set[str] | None,
               heights: dict[str, float] | None = None) -> list[PlanFinding]:
     rows = places.rows(standing)
-    table = _brace_table(site, places, rows)
+    bracing = _bracing(site, places, rows)
+    table = _brace_table(places, bracing)
     return (_line_findings(site)
             + _slab_anchor_findings(site, table)
             + _ground_anchor_findings(site, table)
             + _brace_crossings(table)
             + _braces_through_walls(table, places, rows)
             + _braces_in_areas(site, table)
-            + _zone_overlaps(site, places, rows, _zone_corners(site, places, rows, heights))
+            + _zone_overlaps(site, places, rows, _zone_corners(site, places, bracing, heights))
             + _overlapping_walls(places, rows))
 
 
