@@ -135,22 +135,24 @@ class PlanGeometry:
 
 
 # --- placing walls and braces -------------------------------------------------------------------
+@dataclass(eq=False)
 class Places(Mapping):
     """Every panel that names a wall line, by mark in site order (what `place` returns): arrays
     over all of them, one row each, and the `PanelPlace` of one built when it is asked for."""
 
-    def __init__(self, index: np.ndarray, mark: np.ndarray, line: list[str], origin: np.ndarray,
-                 direction: np.ndarray, normal: np.ndarray, width_ft: np.ndarray,
-                 thickness_ft: np.ndarray):
-        self.index = index  # rows in site.panels
-        self.mark = mark
-        self.line = line
-        self.origin = origin
-        self.direction = direction
-        self.normal = normal
-        self.width_ft = width_ft
-        self.thickness_ft = thickness_ft
-        self._row = dict(zip(mark.tolist(), range(len(mark))))
+    index: np.ndarray      # rows in site.panels
+    mark: np.ndarray
+    line: list[str]
+    origin: np.ndarray     # (n, 2) first edges on the face
+    direction: np.ndarray  # (n, 2) unit vectors along the lines
+    normal: np.ndarray     # (n, 2) unit vectors toward the braced sides
+    width_ft: np.ndarray
+    thickness_ft: np.ndarray
+    offset_ft: np.ndarray  # from the line's start to the first edge
+    line_ft: np.ndarray    # the line's length
+
+    def __post_init__(self):
+        self._row = dict(zip(self.mark.tolist(), range(len(self.mark))))
 
     @cached_property
     def footprints(self) -> np.ndarray:
@@ -189,14 +191,16 @@ def place(site: Site) -> Places:
     panels = [site.panels[i] for i in rows]
     on = np.array([line_no[p.line] for p in panels], dtype=int)
     run = ends[on, 1] - ends[on, 0]
-    u = run / np.hypot(run[:, 0], run[:, 1])[:, None]
+    length = np.hypot(run[:, 0], run[:, 1])
+    u = run / length[:, None]
     left = np.stack([-u[:, 1], u[:, 0]], axis=1)  # the left hand, looking from start to end
     normal = left * sides[on][:, None]
-    origin = ends[on, 0] + np.array([p.offset for p in panels], dtype=float)[:, None] * u
+    offset = np.array([p.offset for p in panels], dtype=float)
     return Places(np.array(rows, dtype=int), np.array([p.mark for p in panels], dtype=str),
-                  [p.line for p in panels], origin, u, normal,
+                  [p.line for p in panels], ends[on, 0] + offset[:, None] * u, u, normal,
                   np.array([p.width for p in panels], dtype=float),
-                  np.array([p.thickness for p in panels], dtype=float) / IN_PER_FT)
+                  np.array([p.thickness for p in panels], dtype=float) / IN_PER_FT,
+                  offset, length)
 
 
 def anchor_distance_ft(b: Bracing) -> float:
@@ -210,9 +214,9 @@ def anchor_distance_ft(b: Bracing) -> float:
 
 @dataclass(frozen=True)
 class _Bracing:
-    """The bracing of some walls (`walls`, rows in the places), one row per braced wall."""
+    """The bracing of some walls: which are braced, then one row per braced wall."""
 
-    walls: np.ndarray
+    walls: np.ndarray      # rows in the places
     braced: np.ndarray     # which of the walls have bracing
     count: np.ndarray
     given: np.ndarray      # whether the wall gives its brace positions
@@ -276,7 +280,7 @@ class _Braces:
 
 
 def _brace_table(places: Places, bracing: _Bracing) -> _Braces:
-    """Every brace of the walls braced, computed for all braces at once."""
+    """Every brace of the braced walls of `bracing`, computed for all braces at once."""
     count = bracing.count
     wall = np.repeat(bracing.walls[bracing.braced], count)
     first = np.repeat(np.cumsum(count) - count, count)
@@ -296,8 +300,7 @@ def _brace_table(places: Places, bracing: _Bracing) -> _Braces:
 class _Slab:
     area: object               # the slab less its holes
     holes: object              # union of the holes (may be empty)
-    edges: list[tuple[str, np.ndarray]]  # (what, its straight pieces (m, 2, 2)): the edge, the
-                                         # holes, the joints
+    edges: list[tuple[str, np.ndarray]]  # the edge, the holes, the joints: (what, pieces)
 
 
 def _pieces(lines) -> np.ndarray:
@@ -364,7 +367,7 @@ def foot_edge_distances_in(site: Site, places: Places) -> dict[str, float]:
     """Least distance (in) from each wall's slab-anchor feet to the slab edge, a hole or a joint,
     for ACI 318-19 §17.6.2.4 (psi_ed,N) and §17.7.2 (c_a1); 0 where a foot is off the slab;
     inf where the wall has no slab anchor, is not placed or the plan has no slab outline."""
-    out = {p.mark: np.inf for p in site.panels}
+    out = dict.fromkeys([p.mark for p in site.panels], np.inf)
     slab = _slab(site)
     table = _brace_table(places, _bracing(site, places, places.rows()))
     sel = table.kind == "slab"
@@ -473,7 +476,7 @@ def _findings(site: Site, places: Places, standing: set[str] | None,
     rows = places.rows(standing)
     bracing = _bracing(site, places, rows)
     table = _brace_table(places, bracing)
-    return (_line_findings(site)
+    return (_line_findings(places)
             + _slab_anchor_findings(site, table)
             + _ground_anchor_findings(site, table)
             + _brace_crossings(table)
@@ -487,15 +490,13 @@ def _xy(p) -> str:
     return f"({p[0]:.1f}, {p[1]:.1f}) ft"
 
 
-def _line_findings(site: Site) -> list[PlanFinding]:
+def _line_findings(places: Places) -> list[PlanFinding]:
     """Walls running past the end of their line (the model checks that the line exists)."""
-    length = {line.name: float(np.hypot(line.end[0] - line.start[0], line.end[1] - line.start[1]))
-              for line in site.lines}
-    return [PlanFinding(p.mark, Flag(
-        "past-line-end", "notice", f"the wall runs to {p.offset + p.width:.1f} ft along "
-        f"line '{p.line}', which is {length[p.line]:.1f} ft long", "site file"), [])
-        for p in site.panels
-        if p.line is not None and p.offset + p.width > length[p.line] + TOLERANCE_FT]
+    end = places.offset_ft + places.width_ft
+    return [PlanFinding(str(places.mark[k]), Flag(
+        "past-line-end", "notice", f"the wall runs to {end[k]:.1f} ft along line "
+        f"'{places.line[k]}', which is {places.line_ft[k]:.1f} ft long", "site file"), [])
+        for k in np.flatnonzero(end > places.line_ft + TOLERANCE_FT)]
 
 
 def _by_mark(marks: np.ndarray, mask: np.ndarray) -> dict[str, np.ndarray]:
@@ -522,9 +523,13 @@ def _slab_anchor_findings(site: Site, t: _Braces) -> list[PlanFinding]:
     in_hole = _covered(slab.holes, feet) if not slab.holes.is_empty else np.zeros_like(on)
     dist_in, which = _edge_distances_ft(slab, feet)
     dist_in = dist_in * IN_PER_FT
-    anchors, anchor_of = np.unique(t.anchor[sel], return_inverse=True)
-    need = [edge_distance_needed_in(site, a) for a in anchors]
-    need_in = np.array([needed for needed, _ in need])[anchor_of]
+    anchors = t.anchor[sel]
+    need, need_in = {}, np.zeros(len(sel))
+    for name in site.anchor_types:
+        used = anchors == name
+        if used.any():
+            need[name] = edge_distance_needed_in(site, name)
+            need_in[used] = need[name][0]
     found = []
     for mark, rows in _by_mark(marks, ~on).items():
         where = "in a slab hole" if in_hole[rows].any() else "off the slab"
@@ -535,7 +540,7 @@ def _slab_anchor_findings(site: Site, t: _Braces) -> list[PlanFinding]:
             [tuple(p) for p in feet[rows]]))
     for mark, rows in _by_mark(marks, on & (dist_in < need_in - TOLERANCE_FT)).items():
         k = rows[np.argmin(dist_in[rows])]
-        needed, said = need[anchor_of[k]]
+        needed, said = need[anchors[k]]
         found.append(PlanFinding(mark, Flag(
             "anchor-near-edge", "danger", f"slab anchor at {_numbers(t, sel[rows])}: "
             f"{dist_in[k]:.1f} in from {slab.edges[which[k]][0]}; {said} needs {needed:g} in",
