@@ -153,6 +153,14 @@ class Places(Mapping):
 
     def __post_init__(self):
         self._row = dict(zip(self.mark.tolist(), range(len(self.mark))))
+        self._read: tuple[Site, _Bracing] | None = None
+
+    def bracing(self, site: Site) -> _Bracing:
+        """The bracing of every wall placed, read from `site` (the site placed) only once for
+        the foot edge distances and the findings."""
+        if self._read is None or self._read[0] is not site:
+            self._read = (site, _bracing(site, self, self.rows()))
+        return self._read[1]
 
     @cached_property
     def footprints(self) -> np.ndarray:
@@ -369,7 +377,7 @@ def foot_edge_distances_in(site: Site, places: Places) -> dict[str, float]:
     inf where the wall has no slab anchor, is not placed or the plan has no slab outline."""
     out = dict.fromkeys([p.mark for p in site.panels], np.inf)
     slab = _slab(site)
-    table = _brace_table(places, _bracing(site, places, places.rows()))
+    table = _brace_table(places, places.bracing(site))
     sel = table.kind == "slab"
     if slab is None or not sel.any():
         return out
@@ -474,7 +482,7 @@ def plan_findings(site: Site, places: Places,
 def _findings(site: Site, places: Places, standing: set[str] | None,
               heights: dict[str, float] | None = None) -> list[PlanFinding]:
     rows = places.rows(standing)
-    bracing = _bracing(site, places, rows)
+    bracing = places.bracing(site) if standing is None else _bracing(site, places, rows)
     table = _brace_table(places, bracing)
     return (_line_findings(places)
             + _slab_anchor_findings(site, table)
