@@ -163,13 +163,17 @@ class Places(Mapping):
         return self._read[1]
 
     @cached_property
-    def footprints(self) -> np.ndarray:
-        """Each panel's footprint, a thickness-deep strip behind its face."""
+    def footprint_corners(self) -> np.ndarray:
+        """Corners of each panel's footprint, a thickness-deep strip behind its face, (n, 4, 2)."""
         along = self.width_ft[:, None] * [0.0, 1.0, 1.0, 0.0]
         back = self.thickness_ft[:, None] * [0.0, 0.0, 1.0, 1.0]
         corners = (self.origin[:, None] + along[..., None] * self.direction[:, None]
                    - back[..., None] * self.normal[:, None])
-        return shapely.polygons(corners.reshape(-1, 4, 2))
+        return corners.reshape(-1, 4, 2)
+
+    @cached_property
+    def footprints(self) -> np.ndarray:
+        return shapely.polygons(self.footprint_corners)
 
     def rows(self, standing: set[str] | None = None) -> np.ndarray:
         """Rows of the walls standing (None: all), in site order."""
@@ -209,6 +213,20 @@ def place(site: Site) -> Places:
                   np.array([p.width for p in panels], dtype=float),
                   np.array([p.thickness for p in panels], dtype=float) / IN_PER_FT,
                   offset, length)
+
+
+def _at(places: Places, rows, along_ft, out_ft) -> np.ndarray:
+    """`PanelPlace.at` of the walls at `rows` of the places (arrays broadcast; (..., 2))."""
+    a = np.asarray(along_ft, dtype=float)[..., None]
+    o = np.asarray(out_ft, dtype=float)[..., None]
+    return places.origin[rows] + a * places.direction[rows] + o * places.normal[rows]
+
+
+def _read_bracing(site: Site, places: Places, standing: set[str] | None) -> _Bracing:
+    """The bracing of the walls standing (None: every placed wall, read once per places)."""
+    if standing is None:
+        return places.bracing(site)
+    return _bracing(site, places, places.rows(standing))
 
 
 def anchor_distance_ft(b: Bracing) -> float:
@@ -275,6 +293,7 @@ class _Braces:
     wall: np.ndarray    # its wall's row in the places
     mark: np.ndarray
     number: np.ndarray  # 1-based within its wall
+    along_ft: np.ndarray  # from the wall's first edge
     insert: np.ndarray  # (m, 2)
     foot: np.ndarray    # (m, 2)
     kind: np.ndarray    # foot anchor kind, '' when none named
@@ -298,7 +317,7 @@ def _brace_table(places: Places, bracing: _Bracing) -> _Braces:
     along[bracing.given.repeat(count)] = bracing.positions
     insert = places.origin[wall] + along[:, None] * places.direction[wall]
     foot = insert + bracing.anchor_ft.repeat(count)[:, None] * places.normal[wall]
-    return _Braces(wall, places.mark[wall], number, insert, foot, bracing.kind.repeat(count),
+    return _Braces(wall, places.mark[wall], number, along, insert, foot, bracing.kind.repeat(count),
                    bracing.anchor.repeat(count), bracing.top_ft.repeat(count),
                    bracing.low_ft.repeat(count))
 
@@ -431,8 +450,14 @@ def zone_reach(site: Site, places: Places, heights: dict[str, float] | None = No
     practice: a wall can fall either way): height + brace footprint on the braced side, the
     height behind its back face. Both run the wall's whole length, no farther.
     """
-    rows = places.rows(standing)
-    h, masonry, front, back = _zone_reach_ft(site, places, _bracing(site, places, rows), heights)
+    return _zone_reach(site, places, _read_bracing(site, places, standing), heights)
+
+
+def _zone_reach(site: Site, places: Places, bracing: _Bracing,
+                heights: dict[str, float] | None) -> dict[str, tuple[float, float, str]]:
+    """`zone_reach` of the walls of `bracing`."""
+    h, masonry, front, back = _zone_reach_ft(site, places, bracing, heights)
+    rows = bracing.walls
     extra = site.rule_value("masonry_zone_extra_ft")
     source = site.rule("masonry_zone_extra_ft").source
     out = {}
@@ -455,8 +480,7 @@ def _zone_corners(site: Site, places: Places, bracing: _Bracing,
     rows = bracing.walls
     along = places.width_ft[rows][:, None] * [0.0, 1.0, 1.0, 0.0]
     out = np.stack([-back, -back, front, front], axis=1)
-    return (places.origin[rows][:, None] + along[..., None] * places.direction[rows][:, None]
-            + out[..., None] * places.normal[rows][:, None]).reshape(-1, 4, 2)
+    return _at(places, rows[:, None], along, out).reshape(-1, 4, 2)
 
 
 def zones(site: Site, places: Places, heights: dict[str, float] | None = None,
@@ -467,22 +491,23 @@ def zones(site: Site, places: Places, heights: dict[str, float] | None = None,
     same footprint: OSHA 29 CFR 1926.706(a) and the common practice name one zone, and no
     published reason was found to make it larger; what changes is who may be inside.
     """
-    rows = places.rows(standing)
-    corners = _zone_corners(site, places, _bracing(site, places, rows), heights)
-    return dict(zip(places.mark[rows].tolist(), shapely.polygons(corners)))
+    bracing = _read_bracing(site, places, standing)
+    corners = _zone_corners(site, places, bracing, heights)
+    return dict(zip(places.mark[bracing.walls].tolist(), shapely.polygons(corners)))
 
 
 # --- findings -----------------------------------------------------------------------------------
 def plan_findings(site: Site, places: Places,
                   standing: set[str] | None = None) -> list[tuple[str, Flag]]:
     """(mark, flag) of everything wrong in the plan for the walls standing (None: all placed)."""
-    return [(f.mark, f.flag) for f in _findings(site, places, standing)]
+    return [(f.mark, f.flag) for f in _findings(site, places,
+                                                 _read_bracing(site, places, standing))]
 
 
-def _findings(site: Site, places: Places, standing: set[str] | None,
+def _findings(site: Site, places: Places, bracing: _Bracing,
               heights: dict[str, float] | None = None) -> list[PlanFinding]:
-    rows = places.rows(standing)
-    bracing = places.bracing(site) if standing is None else _bracing(site, places, rows)
+    """Everything found in the plan with the walls of `bracing` standing."""
+    rows = bracing.walls
     table = _brace_table(places, bracing)
     return (_line_findings(places)
             + _slab_anchor_findings(site, table)
@@ -709,34 +734,42 @@ def _overlapping_walls(places: Places, rows: np.ndarray) -> list[PlanFinding]:
 
 
 # --- the whole plan -----------------------------------------------------------------------------
-def _coords(geom) -> Coords:
-    return [(float(x), float(y)) for x, y in shapely.get_coordinates(geom)]
+def _rings(corners: np.ndarray) -> list[Coords]:
+    """Each outline of `corners` (n, k, 2) as a closed ring of plan points."""
+    return [[*map(tuple, c), tuple(c[0])] for c in corners.tolist()]
 
 
 def plan_geometry(site: Site, standing: set[str] | None = None, day: int | None = None,
                   heights: dict[str, float] | None = None) -> PlanGeometry:
     """The plan of a day (`standing`: marks standing; None: every placed wall) for the views."""
     places = place(site)
-    reach = zone_reach(site, places, heights, standing)
-    zone_of = zones(site, places, heights, standing)
+    bracing = _read_bracing(site, places, standing)
+    reach = _zone_reach(site, places, bracing, heights)
+    zone_of = dict(zip(bracing.walls.tolist(),
+                       _rings(_zone_corners(site, places, bracing, heights))))
+    t = _brace_table(places, bracing)
+    pairs = list(zip(map(tuple, _at(places, t.wall, t.along_ft, 0.0).tolist()),
+                     map(tuple, t.foot.tolist())))
+    first = np.searchsorted(t.wall, np.arange(len(places) + 1)).tolist()  # walls in order
+    every = places.bracing(site)  # the foot anchors of every placed wall, standing or not
+    kind, anchor = [""] * len(places), [None] * len(places)
+    for k, foot_kind, foot_anchor in zip(every.walls[every.braced].tolist(), every.kind.tolist(),
+                                         every.anchor.tolist()):
+        kind[k], anchor[k] = foot_kind, foot_anchor or None
+    faces = _at(places, places.rows()[:, None], places.width_ft[:, None] * [0.0, 1.0], 0.0)
     panels: list[PlanPanel] = []
-    for mark, pl in places.items():
-        p = site.panels[pl.index]
-        up = standing is None or mark in standing
-        inserts, feet = brace_points(site, pl) if up else (np.empty((0, 2)),) * 2
-        b = p.bracing
-        face = pl.face
-        zone = _coords(zone_of[mark].exterior) if up else []
+    for k, (mark, i, footprint, face) in enumerate(zip(
+            places.mark.tolist(), places.index.tolist(), _rings(places.footprint_corners),
+            faces.tolist())):
+        p = site.panels[i]
+        zone = zone_of.get(k, [])
         panels.append(PlanPanel(
-            mark=mark, line=pl.line, standing=up,
+            mark=mark, line=places.line[k], standing=k in zone_of,
             height_ft=heights.get(mark, p.height) if heights else p.height,
-            footprint=_coords(pl.footprint.exterior),
-            face=(tuple(map(float, face[0])), tuple(map(float, face[1]))),
-            braces=[(tuple(map(float, i)), tuple(map(float, f))) for i, f in zip(inserts, feet)],
-            foot_kind=site.anchor_types[b.foot_anchor].kind if b and b.foot_anchor else "",
-            foot_anchor=b.foot_anchor if b else None,
+            footprint=footprint, face=(tuple(face[0]), tuple(face[1])),
+            braces=pairs[first[k]:first[k + 1]], foot_kind=kind[k], foot_anchor=anchor[k],
             restricted_zone=zone, evacuated_zone=list(zone),
-            zone_basis=reach[mark][2] if up else ""))
+            zone_basis=reach[mark][2] if k in zone_of else ""))
     plan = site.plan
     geometry = PlanGeometry(
         day=day,
@@ -749,7 +782,7 @@ def plan_geometry(site: Site, standing: set[str] | None = None, day: int | None 
         lines=[PlanLine(line.name, tuple(line.start), tuple(line.end), line.braced_side)
                for line in site.lines],
         panels=panels,
-        findings=_findings(site, places, standing, heights),
+        findings=_findings(site, places, bracing, heights),
         bounds=(0.0, 0.0, 1.0, 1.0))
     geometry.bounds = _bounds(geometry)
     return geometry
@@ -783,7 +816,7 @@ class DayPlans(Mapping):
 
 def findings(site: Site, places: Places) -> list[PlanFinding]:
     """Everything found in the plan with every placed wall standing."""
-    return _findings(site, places, None)
+    return _findings(site, places, places.bracing(site))
 
 
 def day_findings(found: list[PlanFinding],
