@@ -367,14 +367,14 @@ def _distances_ft(points: np.ndarray, pieces: np.ndarray) -> np.ndarray:
     least = np.full(len(points), np.inf)
     for block in range(0, len(pieces), 64):  # keeps the (points x pieces) arrays small
         (ax, ay), (bx, by) = pieces[block:block + 64].transpose(1, 2, 0)
-        dx, dy = bx - ax, by - ay
+        dx, dy, ux, uy = bx - ax, by - ay, px - ax, py - ay
         len2 = dx * dx + dy * dy
         with np.errstate(divide="ignore", invalid="ignore"):  # a piece of no length: its end
-            r = ((px - ax) * dx + (py - ay) * dy) / len2
-            square = np.abs(((ay - py) * dx - (ax - px) * dy) / len2) * np.sqrt(len2)
-        to_a = np.sqrt((px - ax) * (px - ax) + (py - ay) * (py - ay))
-        to_b = np.sqrt((px - bx) * (px - bx) + (py - by) * (py - by))
-        d = np.where(((ax == bx) & (ay == by)) | (r <= 0.0), to_a, np.where(r >= 1.0, to_b, square))
+            r = (ux * dx + uy * dy) / len2
+            square = np.abs((uy * dx - ux * dy) / len2) * np.sqrt(len2)
+        to_a = ((ax == bx) & (ay == by)) | (r <= 0.0)
+        end2 = np.where(to_a, ux * ux + uy * uy, (px - bx) * (px - bx) + (py - by) * (py - by))
+        d = np.where(to_a | (r >= 1.0), np.sqrt(end2), square)
         least = np.minimum(least, d.min(axis=1))
     return least
 
