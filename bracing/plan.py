@@ -327,14 +327,20 @@ def _brace_table(places: Places, bracing: _Bracing) -> _Braces:
 class _Slab:
     area: object               # the slab less its holes
     holes: object              # union of the holes (may be empty)
-    edges: list[tuple[str, np.ndarray]]  # the edge, the holes, the joints: (what, pieces)
+    edges: list[tuple[str, np.ndarray | None]]  # the edge, the holes, the joints: (what, pieces)
 
 
-def _pieces(lines) -> np.ndarray:
-    """The straight pieces of a line or lines, each by its two ends, shape (m, 2, 2)."""
+def _pieces(lines) -> np.ndarray | None:
+    """The straight pieces of a line or lines, each by its two ends, shape (m, 2, 2); a lone
+    point (the boundary of a slab drawn flat) is a piece of no length. None when shapely gives
+    no boundary (that of a collection, from an outline drawn doubling back on itself)."""
+    if lines is None:
+        return None
     xy, part = shapely.get_coordinates(shapely.get_parts(lines), return_index=True)
-    same = part[1:] == part[:-1]
-    return np.stack([xy[:-1][same], xy[1:][same]], axis=1)
+    start = np.flatnonzero(part[1:] == part[:-1])
+    alone = np.flatnonzero(np.bincount(part)[part] == 1)
+    return np.concatenate([np.stack([xy[start], xy[start + 1]], axis=1),
+                           np.stack([xy[alone], xy[alone]], axis=1)])
 
 
 def _slab(site: Site) -> _Slab | None:
@@ -380,8 +386,10 @@ def _distances_ft(points: np.ndarray, pieces: np.ndarray) -> np.ndarray:
 
 
 def _edge_distances_ft(slab: _Slab, points: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
-    """Least distance (ft) of each point to the slab edge, a hole or a joint, and which one."""
-    d = np.stack([_distances_ft(points, pieces) for _, pieces in slab.edges])
+    """Least distance (ft) of each point to the slab edge, a hole or a joint, and which one
+    (nan when one of them has no boundary: the distance is not known)."""
+    d = np.stack([np.full(len(points), np.nan) if pieces is None else
+                  _distances_ft(points, pieces) for _, pieces in slab.edges])
     return d.min(axis=0), d.argmin(axis=0)
 
 
@@ -405,7 +413,8 @@ def foot_edge_distances_in(site: Site, places: Places) -> dict[str, float]:
     dist = np.where(_covered(slab.area, feet), dist, 0.0) * IN_PER_FT
     wall = table.wall[sel]
     first = np.flatnonzero(np.r_[True, wall[1:] != wall[:-1]])  # a wall's braces are together
-    out.update(zip(places.mark[wall[first]].tolist(), np.minimum.reduceat(dist, first).tolist()))
+    least = np.fmin.reduceat(dist, first)  # a distance not known (nan) leaves the others
+    out.update(zip(places.mark[wall[first]].tolist(), np.fmin(least, np.inf).tolist()))
     return out
 
 
