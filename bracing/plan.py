@@ -135,29 +135,98 @@ class PlanGeometry:
 
 
 # --- placing walls and braces -------------------------------------------------------------------
-def place(site: Site) -> dict[str, PanelPlace]:
+@dataclass(eq=False)
+class Places(Mapping):
+    """Every panel that names a wall line, by mark in site order (what `place` returns): arrays
+    over all of them, one row each, and the `PanelPlace` of one built when it is asked for."""
+
+    index: np.ndarray      # rows in site.panels
+    mark: np.ndarray
+    line: list[str]
+    origin: np.ndarray     # (n, 2) first edges on the face
+    direction: np.ndarray  # (n, 2) unit vectors along the lines
+    normal: np.ndarray     # (n, 2) unit vectors toward the braced sides
+    width_ft: np.ndarray
+    thickness_ft: np.ndarray
+    offset_ft: np.ndarray  # from the line's start to the first edge
+    line_ft: np.ndarray    # the line's length
+
+    def __post_init__(self):
+        self._row = dict(zip(self.mark.tolist(), range(len(self.mark))))
+        self._read: tuple[Site, _Bracing] | None = None
+
+    def bracing(self, site: Site) -> _Bracing:
+        """The bracing of every wall placed, read from `site` (the site placed) only once for
+        the foot edge distances and the findings."""
+        if self._read is None or self._read[0] is not site:
+            self._read = (site, _bracing(site, self, self.rows()))
+        return self._read[1]
+
+    @cached_property
+    def footprint_corners(self) -> np.ndarray:
+        """Corners of each panel's footprint, a thickness-deep strip behind its face, (n, 4, 2)."""
+        along = self.width_ft[:, None] * [0.0, 1.0, 1.0, 0.0]
+        back = self.thickness_ft[:, None] * [0.0, 0.0, 1.0, 1.0]
+        corners = (self.origin[:, None] + along[..., None] * self.direction[:, None]
+                   - back[..., None] * self.normal[:, None])
+        return corners.reshape(-1, 4, 2)
+
+    @cached_property
+    def footprints(self) -> np.ndarray:
+        return shapely.polygons(self.footprint_corners)
+
+    def rows(self, standing: set[str] | None = None) -> np.ndarray:
+        """Rows of the walls standing (None: all), in site order."""
+        if standing is None:
+            return np.arange(len(self.mark))
+        return np.array([k for m, k in self._row.items() if m in standing], dtype=int)
+
+    def __getitem__(self, mark: str) -> PanelPlace:
+        k = self._row[mark]
+        return PanelPlace(int(self.index[k]), mark, self.line[k], self.origin[k],
+                          self.direction[k], self.normal[k], float(self.width_ft[k]),
+                          self.thickness_ft[k], self.footprints[k])
+
+    def __iter__(self):
+        return iter(self._row)
+
+    def __len__(self) -> int:
+        return len(self._row)
+
+
+def place(site: Site) -> Places:
     """Every panel that names a wall line, placed along it (the others are skipped)."""
-    lines = {line.name: line for line in site.lines}
+    line_no = {line.name: k for k, line in enumerate(site.lines)}
+    ends = np.array([(line.start, line.end) for line in site.lines], dtype=float).reshape(-1, 2, 2)
+    sides = np.array([1.0 if line.braced_side == "left" else -1.0 for line in site.lines])
     rows = [i for i, p in enumerate(site.panels) if p.line is not None]
-    if not rows:
-        return {}
     panels = [site.panels[i] for i in rows]
-    ends = np.array([(lines[p.line].start, lines[p.line].end) for p in panels], dtype=float)
-    run = ends[:, 1] - ends[:, 0]
-    u = run / np.hypot(run[:, 0], run[:, 1])[:, None]
+    on = np.array([line_no[p.line] for p in panels], dtype=int)
+    run = ends[on, 1] - ends[on, 0]
+    length = np.hypot(run[:, 0], run[:, 1])
+    u = run / length[:, None]
     left = np.stack([-u[:, 1], u[:, 0]], axis=1)  # the left hand, looking from start to end
-    side = np.array([1.0 if lines[p.line].braced_side == "left" else -1.0 for p in panels])
-    normal = left * side[:, None]
-    width = np.array([p.width for p in panels])
-    t = np.array([p.thickness for p in panels]) / IN_PER_FT
-    origin = ends[:, 0] + np.array([p.offset for p in panels])[:, None] * u
-    along = width[:, None] * [0.0, 1.0, 1.0, 0.0]
-    back = t[:, None] * [0.0, 0.0, 1.0, 1.0]
-    corners = origin[:, None] + along[..., None] * u[:, None] - back[..., None] * normal[:, None]
-    shapes = shapely.polygons(corners)
-    return {p.mark: PanelPlace(i, p.mark, p.line, origin[k], u[k], normal[k], p.width, t[k],
-                               shapes[k])
-            for k, (i, p) in enumerate(zip(rows, panels))}
+    normal = left * sides[on][:, None]
+    offset = np.array([p.offset for p in panels], dtype=float)
+    return Places(np.array(rows, dtype=int), np.array([p.mark for p in panels], dtype=str),
+                  [p.line for p in panels], ends[on, 0] + offset[:, None] * u, u, normal,
+                  np.array([p.width for p in panels], dtype=float),
+                  np.array([p.thickness for p in panels], dtype=float) / IN_PER_FT,
+                  offset, length)
+
+
+def _at(places: Places, rows, along_ft, out_ft) -> np.ndarray:
+    """`PanelPlace.at` of the walls at `rows` of the places (arrays broadcast; (..., 2))."""
+    a = np.asarray(along_ft, dtype=float)[..., None]
+    o = np.asarray(out_ft, dtype=float)[..., None]
+    return places.origin[rows] + a * places.direction[rows] + o * places.normal[rows]
+
+
+def _read_bracing(site: Site, places: Places, standing: set[str] | None) -> _Bracing:
+    """The bracing of the walls standing (None: every placed wall, read once per places)."""
+    if standing is None:
+        return places.bracing(site)
+    return _bracing(site, places, places.rows(standing))
 
 
 def anchor_distance_ft(b: Bracing) -> float:
@@ -167,6 +236,45 @@ def anchor_distance_ft(b: Bracing) -> float:
     return float(braces.anchor_distance_for_angle(
         b.insert_height, b.angle, b.insert_offset / IN_PER_FT, b.foot_offset / IN_PER_FT,
         b.base_below_slab))
+
+
+@dataclass(frozen=True)
+class _Bracing:
+    """The bracing of some walls: which are braced, then one row per braced wall."""
+
+    walls: np.ndarray      # rows in the places
+    braced: np.ndarray     # which of the walls have bracing
+    count: np.ndarray
+    given: np.ndarray      # whether the wall gives its brace positions
+    positions: list[float]  # those given, wall after wall
+    anchor_ft: np.ndarray  # foot from the wall face (`anchor_distance_ft`)
+    kind: np.ndarray       # foot anchor kind, '' when none named
+    anchor: np.ndarray     # foot anchor type name, '' when none named
+    top_ft: np.ndarray     # brace pin heights above the slab, at the insert and at the foot
+    low_ft: np.ndarray
+
+
+def _bracing(site: Site, places: Places, rows: np.ndarray) -> _Bracing:
+    """The bracing of the walls at `rows` of the places, read once for all of them."""
+    bs = [site.panels[i].bracing for i in places.index[rows].tolist()]
+    braced = np.array([b is not None for b in bs], dtype=bool)
+    bs = [b for b in bs if b is not None]
+    height = np.array([b.insert_height for b in bs], dtype=float)
+    base = np.array([b.base_below_slab for b in bs], dtype=float)
+    foot_offset = np.array([b.foot_offset for b in bs], dtype=float) / IN_PER_FT
+    given_ft = np.array([np.nan if b.anchor_distance is None else b.anchor_distance for b in bs],
+                        dtype=float)
+    for_angle_ft = braces.anchor_distance_for_angle(
+        height, np.array([np.nan if b.angle is None else b.angle for b in bs], dtype=float),
+        np.array([b.insert_offset for b in bs], dtype=float) / IN_PER_FT, foot_offset, base)
+    kind_of = {name: a.kind for name, a in site.anchor_types.items()}
+    return _Bracing(
+        rows, braced, np.array([b.count for b in bs], dtype=int),
+        np.array([bool(b.positions) for b in bs], dtype=bool),
+        [x for b in bs for x in b.positions],
+        np.where(np.isnan(given_ft), for_angle_ft, given_ft),
+        np.array([kind_of[b.foot_anchor] if b.foot_anchor else "" for b in bs], dtype=str),
+        np.array([b.foot_anchor or "" for b in bs], dtype=str), height - base, foot_offset)
 
 
 def brace_points(site: Site, place: PanelPlace) -> tuple[np.ndarray, np.ndarray]:
@@ -182,8 +290,10 @@ def brace_points(site: Site, place: PanelPlace) -> tuple[np.ndarray, np.ndarray]
 class _Braces:
     """Every brace of the walls standing, one row each."""
 
+    wall: np.ndarray    # its wall's row in the places
     mark: np.ndarray
     number: np.ndarray  # 1-based within its wall
+    along_ft: np.ndarray  # from the wall's first edge
     insert: np.ndarray  # (m, 2)
     foot: np.ndarray    # (m, 2)
     kind: np.ndarray    # foot anchor kind, '' when none named
@@ -196,42 +306,20 @@ class _Braces:
         return shapely.linestrings(np.stack([self.insert, self.foot], axis=1))
 
 
-def _brace_table(site: Site, places: dict[str, PanelPlace], marks: list[str]) -> _Braces:
-    """Every brace of the walls `marks`, its points computed for all braces at once."""
-    who, along, out, kinds, anchors, tops, lows, numbers = [], [], [], [], [], [], [], []
-    for mark in marks:
-        pl = places[mark]
-        b = site.panels[pl.index].bracing
-        if b is None:
-            continue
-        x = b.positions or braces.default_positions(pl.width_ft, b.count).tolist()
-        k = len(x)
-        who += [mark] * k
-        along += list(x)
-        out += [anchor_distance_ft(b)] * k
-        kind = site.anchor_types[b.foot_anchor].kind if b.foot_anchor else ""
-        kinds += [kind] * k
-        anchors += [b.foot_anchor or ""] * k
-        tops += [b.insert_height - b.base_below_slab] * k
-        lows += [b.foot_offset / IN_PER_FT] * k
-        numbers += range(1, k + 1)
-    if not who:
-        empty = np.empty(0)
-        return _Braces(empty.astype(str), empty.astype(int), np.empty((0, 2)),
-                       np.empty((0, 2)), empty.astype(str), empty.astype(str), empty, empty)
-    mark = np.array(who)
-    origin = np.array([places[m].origin for m in who])
-    direction = np.array([places[m].direction for m in who])
-    normal = np.array([places[m].normal for m in who])
-    a = np.array(along)[:, None]
-    insert = origin + a * direction
-    foot = insert + np.array(out)[:, None] * normal
-    return _Braces(mark, np.array(numbers), insert, foot, np.array(kinds), np.array(anchors),
-                   np.array(tops, dtype=float), np.array(lows, dtype=float))
-
-
-def _standing_marks(places: dict[str, PanelPlace], standing: set[str] | None) -> list[str]:
-    return [m for m in places if standing is None or m in standing]
+def _brace_table(places: Places, bracing: _Bracing) -> _Braces:
+    """Every brace of the braced walls of `bracing`, computed for all braces at once."""
+    count = bracing.count
+    wall = np.repeat(bracing.walls[bracing.braced], count)
+    first = np.repeat(np.cumsum(count) - count, count)
+    number = np.arange(len(wall)) - first + 1
+    # the centres of equal strips (braces.default_positions), or the positions given
+    along = (number - 0.5) * places.width_ft[wall] / count.repeat(count)
+    along[bracing.given.repeat(count)] = bracing.positions
+    insert = places.origin[wall] + along[:, None] * places.direction[wall]
+    foot = insert + bracing.anchor_ft.repeat(count)[:, None] * places.normal[wall]
+    return _Braces(wall, places.mark[wall], number, along, insert, foot, bracing.kind.repeat(count),
+                   bracing.anchor.repeat(count), bracing.top_ft.repeat(count),
+                   bracing.low_ft.repeat(count))
 
 
 # --- slab and ground ----------------------------------------------------------------------------
@@ -239,7 +327,20 @@ def _standing_marks(places: dict[str, PanelPlace], standing: set[str] | None) ->
 class _Slab:
     area: object               # the slab less its holes
     holes: object              # union of the holes (may be empty)
-    edges: list[tuple[str, object]]  # (what, lines): the edge, the holes, the joints
+    edges: list[tuple[str, np.ndarray | None]]  # the edge, the holes, the joints: (what, pieces)
+
+
+def _pieces(lines) -> np.ndarray | None:
+    """The straight pieces of a line or lines, each by its two ends, shape (m, 2, 2); a lone
+    point (the boundary of a slab drawn flat) is a piece of no length. None when shapely gives
+    no boundary (that of a collection, from an outline drawn doubling back on itself)."""
+    if lines is None:
+        return None
+    xy, part = shapely.get_coordinates(shapely.get_parts(lines), return_index=True)
+    start = np.flatnonzero(part[1:] == part[:-1])
+    alone = np.flatnonzero(np.bincount(part)[part] == 1)
+    return np.concatenate([np.stack([xy[start], xy[start + 1]], axis=1),
+                           np.stack([xy[alone], xy[alone]], axis=1)])
 
 
 def _slab(site: Site) -> _Slab | None:
@@ -249,12 +350,12 @@ def _slab(site: Site) -> _Slab | None:
     outline = shapely.make_valid(Polygon(plan.slab))
     holes = shapely.union_all([shapely.make_valid(Polygon(h)) for h in plan.slab_holes
                                if len(h) >= 3])
-    edges = [("the slab edge", outline.boundary)]
+    edges = [("the slab edge", _pieces(outline.boundary))]
     if not holes.is_empty:
-        edges.append(("a slab hole", holes.boundary))
+        edges.append(("a slab hole", _pieces(holes.boundary)))
     joints = [j for j in plan.slab_joints if len(j) >= 2]
     if joints:
-        edges.append(("a slab joint", MultiLineString(joints)))
+        edges.append(("a slab joint", _pieces(MultiLineString(joints))))
     return _Slab(outline.difference(holes), holes, edges)
 
 
@@ -264,28 +365,56 @@ def _ground(site: Site):
     return shapely.union_all(shapes) if shapes else None
 
 
+def _distances_ft(points: np.ndarray, pieces: np.ndarray) -> np.ndarray:
+    """Least distance (ft) of each point to the straight pieces (m, 2, 2): square to a piece
+    where the foot of the perpendicular falls between its ends, else to its nearer end
+    (geometry; the same arithmetic as shapely's distance, so the same values to the last bit)."""
+    px, py = points[:, 0, None], points[:, 1, None]
+    least = np.full(len(points), np.inf)
+    for block in range(0, len(pieces), 64):  # keeps the (points x pieces) arrays small
+        (ax, ay), (bx, by) = pieces[block:block + 64].transpose(1, 2, 0)
+        dx, dy, ux, uy = bx - ax, by - ay, px - ax, py - ay
+        len2 = dx * dx + dy * dy
+        with np.errstate(divide="ignore", invalid="ignore"):  # a piece of no length: its end
+            r = (ux * dx + uy * dy) / len2
+            square = np.abs((uy * dx - ux * dy) / len2) * np.sqrt(len2)
+        to_a = ((ax == bx) & (ay == by)) | (r <= 0.0)
+        end2 = np.where(to_a, ux * ux + uy * uy, (px - bx) * (px - bx) + (py - by) * (py - by))
+        d = np.where(to_a | (r >= 1.0), np.sqrt(end2), square)
+        least = np.minimum(least, d.min(axis=1))
+    return least
+
+
 def _edge_distances_ft(slab: _Slab, points: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
-    """Least distance (ft) of each point to the slab edge, a hole or a joint, and which one."""
-    pts = shapely.points(points)
-    d = np.stack([shapely.distance(geom, pts) for _, geom in slab.edges])
+    """Least distance (ft) of each point to the slab edge, a hole or a joint, and which one
+    (nan when one of them has no boundary: the distance is not known)."""
+    d = np.stack([np.full(len(points), np.nan) if pieces is None else
+                  _distances_ft(points, pieces) for _, pieces in slab.edges])
     return d.min(axis=0), d.argmin(axis=0)
 
 
-def foot_edge_distances_in(site: Site, places: dict[str, PanelPlace]) -> dict[str, float]:
+def _covered(area, points: np.ndarray) -> np.ndarray:
+    """Whether each point lies inside `area` or on its boundary."""
+    return shapely.intersects_xy(area, points[:, 0], points[:, 1])
+
+
+def foot_edge_distances_in(site: Site, places: Places) -> dict[str, float]:
     """Least distance (in) from each wall's slab-anchor feet to the slab edge, a hole or a joint,
     for ACI 318-19 §17.6.2.4 (psi_ed,N) and §17.7.2 (c_a1); 0 where a foot is off the slab;
     inf where the wall has no slab anchor, is not placed or the plan has no slab outline."""
-    out = {p.mark: np.inf for p in site.panels}
+    out = dict.fromkeys([p.mark for p in site.panels], np.inf)
     slab = _slab(site)
-    table = _brace_table(site, places, list(places))
+    table = _brace_table(places, places.bracing(site))
     sel = table.kind == "slab"
     if slab is None or not sel.any():
         return out
     feet = table.foot[sel]
     dist, _ = _edge_distances_ft(slab, feet)
-    dist = np.where(shapely.covers(slab.area, shapely.points(feet)), dist, 0.0) * IN_PER_FT
-    for mark, d in zip(table.mark[sel], dist):
-        out[mark] = min(out[mark], float(d))
+    dist = np.where(_covered(slab.area, feet), dist, 0.0) * IN_PER_FT
+    wall = table.wall[sel]
+    first = np.flatnonzero(np.r_[True, wall[1:] != wall[:-1]])  # a wall's braces are together
+    least = np.fmin.reduceat(dist, first)  # a distance not known (nan) leaves the others
+    out.update(zip(places.mark[wall[first]].tolist(), np.fmin(least, np.inf).tolist()))
     return out
 
 
@@ -300,7 +429,27 @@ def edge_distance_needed_in(site: Site, anchor: str) -> tuple[float, str]:
 
 
 # --- zones --------------------------------------------------------------------------------------
-def zone_reach(site: Site, places: dict[str, PanelPlace], heights: dict[str, float] | None = None,
+def _zone_reach_ft(site: Site, places: Places, bracing: _Bracing,
+                   heights: dict[str, float] | None):
+    """Heights, which are masonry under the zone rule, and the reach out in front and back
+    behind (ft) of the walls of `bracing` (the rules are in `zone_reach`)."""
+    extra = site.rule_value("masonry_zone_extra_ft")
+    panels = [site.panels[i] for i in places.index[bracing.walls].tolist()]
+    h = np.array([heights.get(p.mark, p.height) for p in panels] if heights else
+                 [p.height for p in panels], dtype=float)
+    footprint = np.zeros(len(panels))
+    footprint[bracing.braced] = bracing.anchor_ft
+    kind_of = {name: m.kind for name, m in site.materials.items()}
+    masonry = np.array([kind_of[p.material] == "masonry" and extra is not None for p in panels],
+                       dtype=bool)
+    front = h + footprint
+    if extra is not None:  # OSHA 29 CFR 1926.706(a): h + 4 ft
+        front = np.where(masonry, np.maximum(h + extra, front), front)
+    back = np.where(masonry, 0.0, places.thickness_ft[bracing.walls] + h)
+    return h, masonry, front, back
+
+
+def zone_reach(site: Site, places: Places, heights: dict[str, float] | None = None,
                standing: set[str] | None = None) -> dict[str, tuple[float, float, str]]:
     """Reach of each standing wall's zone (ft): out from the face on the braced side, back from
     the face on the other side, and its basis (design.md §7).
@@ -310,26 +459,40 @@ def zone_reach(site: Site, places: dict[str, PanelPlace], heights: dict[str, flo
     practice: a wall can fall either way): height + brace footprint on the braced side, the
     height behind its back face. Both run the wall's whole length, no farther.
     """
+    return _zone_reach(site, places, _read_bracing(site, places, standing), heights)
+
+
+def _zone_reach(site: Site, places: Places, bracing: _Bracing,
+                heights: dict[str, float] | None) -> dict[str, tuple[float, float, str]]:
+    """`zone_reach` of the walls of `bracing`."""
+    h, masonry, front, back = _zone_reach_ft(site, places, bracing, heights)
+    rows = bracing.walls
     extra = site.rule_value("masonry_zone_extra_ft")
+    source = site.rule("masonry_zone_extra_ft").source
     out = {}
-    for mark in _standing_marks(places, standing):
-        pl = places[mark]
-        p = site.panels[pl.index]
-        h = heights.get(mark, p.height) if heights else p.height
-        footprint = anchor_distance_ft(p.bracing) if p.bracing else 0.0
-        if site.materials[p.material].kind == "masonry" and extra is not None:
-            reach = max(h + extra, h + footprint)  # OSHA 29 CFR 1926.706(a): h + 4 ft
-            source = site.rule("masonry_zone_extra_ft").source
-            out[mark] = (reach, 0.0, f"{reach:.1f} ft on the braced (unscaffolded) side: "
-                                     f"wall height + {extra:g} ft ({source})")
+    for mark, m, hh, f, b in zip(places.mark[rows].tolist(), masonry.tolist(), h.tolist(),
+                                 front.tolist(), back.tolist()):
+        if m:
+            out[mark] = (f, 0.0, f"{f:.1f} ft on the braced (unscaffolded) side: "
+                                 f"wall height + {extra:g} ft ({source})")
         else:
-            out[mark] = (h + footprint, pl.thickness_ft + h,
-                         f"{h + footprint:.1f} ft on the braced side (height + brace "
-                         f"footprint), {h:.1f} ft behind (height) (common practice)")
+            out[mark] = (f, b, f"{f:.1f} ft on the braced side (height + brace footprint), "
+                               f"{hh:.1f} ft behind (height) (common practice)")
     return out
 
 
-def zones(site: Site, places: dict[str, PanelPlace], heights: dict[str, float] | None = None,
+def _zone_corners(site: Site, places: Places, bracing: _Bracing,
+                  heights: dict[str, float] | None) -> np.ndarray:
+    """Corners of the zones of the walls of `bracing`, rectangles along their length,
+    (n, 4, 2)."""
+    *_, front, back = _zone_reach_ft(site, places, bracing, heights)
+    rows = bracing.walls
+    along = places.width_ft[rows][:, None] * [0.0, 1.0, 1.0, 0.0]
+    out = np.stack([-back, -back, front, front], axis=1)
+    return _at(places, rows[:, None], along, out).reshape(-1, 4, 2)
+
+
+def zones(site: Site, places: Places, heights: dict[str, float] | None = None,
           standing: set[str] | None = None) -> dict[str, Polygon]:
     """Restricted zone of each standing wall (design.md §7), a rectangle along its length.
 
@@ -337,56 +500,45 @@ def zones(site: Site, places: dict[str, PanelPlace], heights: dict[str, float] |
     same footprint: OSHA 29 CFR 1926.706(a) and the common practice name one zone, and no
     published reason was found to make it larger; what changes is who may be inside.
     """
-    reach = zone_reach(site, places, heights, standing)
-    if not reach:
-        return {}
-    corners = np.stack([places[m].at([0.0, places[m].width_ft, places[m].width_ft, 0.0],
-                                     [-back, -back, front, front])
-                        for m, (front, back, _) in reach.items()])
-    return dict(zip(reach, shapely.polygons(corners)))
+    bracing = _read_bracing(site, places, standing)
+    corners = _zone_corners(site, places, bracing, heights)
+    return dict(zip(places.mark[bracing.walls].tolist(), shapely.polygons(corners)))
 
 
 # --- findings -----------------------------------------------------------------------------------
-def plan_findings(site: Site, places: dict[str, PanelPlace],
+def plan_findings(site: Site, places: Places,
                   standing: set[str] | None = None) -> list[tuple[str, Flag]]:
     """(mark, flag) of everything wrong in the plan for the walls standing (None: all placed)."""
-    return [(f.mark, f.flag) for f in _findings(site, places, standing)]
+    return [(f.mark, f.flag) for f in _findings(site, places,
+                                                 _read_bracing(site, places, standing))]
 
 
-def _findings(site: Site, places: dict[str, PanelPlace], standing: set[str] | None,
-              zone_of: dict[str, Polygon] | None = None) -> list[PlanFinding]:
-    marks = _standing_marks(places, standing)
-    table = _brace_table(site, places, marks)
-    if zone_of is None:
-        zone_of = zones(site, places, None, standing)
-    return (_line_findings(site)
+def _findings(site: Site, places: Places, bracing: _Bracing,
+              heights: dict[str, float] | None = None) -> list[PlanFinding]:
+    """Everything found in the plan with the walls of `bracing` standing."""
+    rows = bracing.walls
+    table = _brace_table(places, bracing)
+    return (_line_findings(places)
             + _slab_anchor_findings(site, table)
             + _ground_anchor_findings(site, table)
             + _brace_crossings(table)
-            + _braces_through_walls(table, places, marks)
+            + _braces_through_walls(table, places, rows)
             + _braces_in_areas(site, table)
-            + _zone_overlaps(site, zone_of)
-            + _overlapping_walls(places, marks))
+            + _zone_overlaps(site, places, rows, _zone_corners(site, places, bracing, heights))
+            + _overlapping_walls(places, rows))
 
 
 def _xy(p) -> str:
     return f"({p[0]:.1f}, {p[1]:.1f}) ft"
 
 
-def _line_findings(site: Site) -> list[PlanFinding]:
+def _line_findings(places: Places) -> list[PlanFinding]:
     """Walls running past the end of their line (the model checks that the line exists)."""
-    names = {line.name: line for line in site.lines}
-    found = []
-    for p in site.panels:
-        if p.line is None:
-            continue
-        line = names[p.line]
-        length = float(np.hypot(line.end[0] - line.start[0], line.end[1] - line.start[1]))
-        if p.offset + p.width > length + TOLERANCE_FT:
-            found.append(PlanFinding(p.mark, Flag(
-                "past-line-end", "notice", f"the wall runs to {p.offset + p.width:.1f} ft along "
-                f"line '{p.line}', which is {length:.1f} ft long", "site file"), []))
-    return found
+    end = places.offset_ft + places.width_ft
+    return [PlanFinding(str(places.mark[k]), Flag(
+        "past-line-end", "notice", f"the wall runs to {end[k]:.1f} ft along line "
+        f"'{places.line[k]}', which is {places.line_ft[k]:.1f} ft long", "site file"), [])
+        for k in np.flatnonzero(end > places.line_ft + TOLERANCE_FT)]
 
 
 def _by_mark(marks: np.ndarray, mask: np.ndarray) -> dict[str, np.ndarray]:
@@ -409,13 +561,17 @@ def _slab_anchor_findings(site: Site, t: _Braces) -> list[PlanFinding]:
             "positions and edge distances are not checked", "design.md §7"), [])
             for m in dict.fromkeys(marks)]
     feet = t.foot[sel]
-    pts = shapely.points(feet)
-    on = shapely.covers(slab.area, pts)
-    in_hole = shapely.covers(slab.holes, pts) if not slab.holes.is_empty else np.zeros_like(on)
+    on = _covered(slab.area, feet)
+    in_hole = _covered(slab.holes, feet) if not slab.holes.is_empty else np.zeros_like(on)
     dist_in, which = _edge_distances_ft(slab, feet)
     dist_in = dist_in * IN_PER_FT
-    need = {a: edge_distance_needed_in(site, a) for a in dict.fromkeys(t.anchor[sel])}
-    need_in = np.array([need[a][0] for a in t.anchor[sel]])
+    anchors = t.anchor[sel]
+    need, need_in = {}, np.zeros(len(sel))
+    for name in site.anchor_types:
+        used = anchors == name
+        if used.any():
+            need[name] = edge_distance_needed_in(site, name)
+            need_in[used] = need[name][0]
     found = []
     for mark, rows in _by_mark(marks, ~on).items():
         where = "in a slab hole" if in_hole[rows].any() else "off the slab"
@@ -426,7 +582,7 @@ def _slab_anchor_findings(site: Site, t: _Braces) -> list[PlanFinding]:
             [tuple(p) for p in feet[rows]]))
     for mark, rows in _by_mark(marks, on & (dist_in < need_in - TOLERANCE_FT)).items():
         k = rows[np.argmin(dist_in[rows])]
-        needed, said = need[t.anchor[sel][k]]
+        needed, said = need[anchors[k]]
         found.append(PlanFinding(mark, Flag(
             "anchor-near-edge", "danger", f"slab anchor at {_numbers(t, sel[rows])}: "
             f"{dist_in[k]:.1f} in from {slab.edges[which[k]][0]}; {said} needs {needed:g} in",
@@ -442,10 +598,9 @@ def _ground_anchor_findings(site: Site, t: _Braces) -> list[PlanFinding]:
         return []
     ground, slab = _ground(site), _slab(site)
     feet, kinds, marks = t.foot[sel], t.kind[sel], t.mark[sel]
-    pts = shapely.points(feet)
     deadman = kinds == "deadman"
-    on_ground = shapely.covers(ground, pts) if ground is not None else np.zeros(len(sel), bool)
-    on_slab = shapely.covers(slab.area, pts) if slab is not None else np.zeros(len(sel), bool)
+    on_ground = _covered(ground, feet) if ground is not None else np.zeros(len(sel), bool)
+    on_slab = _covered(slab.area, feet) if slab is not None else np.zeros(len(sel), bool)
     drawn = (ground is not None) | (deadman & (slab is not None))
     found = [PlanFinding(mark, Flag(
         "anchor-not-located", "notice", f"the plan has no open ground: the {kinds[rows[0]]} "
@@ -472,9 +627,11 @@ def _brace_crossings(t: _Braces) -> list[PlanFinding]:
     segs = t.segments
     if len(segs) < 2:
         return []
-    a, b = shapely.STRtree(segs).query(segs, predicate="intersects")
-    keep = (a < b) & (t.mark[a] != t.mark[b])
+    a, b = shapely.STRtree(segs).query(segs)  # whose boxes meet; then the few that matter
+    keep = (a < b) & (t.wall[a] != t.wall[b])
     a, b = a[keep], b[keep]
+    meet = shapely.intersects(segs[a], segs[b])
+    a, b = a[meet], b[meet]
     meet = shapely.point_on_surface(shapely.intersection(segs[a], segs[b]))
     found = []
     for i, j, pt in zip(a, b, meet):
@@ -490,22 +647,22 @@ def _brace_crossings(t: _Braces) -> list[PlanFinding]:
     return found
 
 
-def _braces_through_walls(t: _Braces, places: dict[str, PanelPlace],
-                          marks: list[str]) -> list[PlanFinding]:
+def _braces_through_walls(t: _Braces, places: Places, rows: np.ndarray) -> list[PlanFinding]:
     segs = t.segments
     if len(segs) == 0:
         return []
-    walls = np.array(marks)
-    shapes = np.array([places[m].footprint for m in marks])
-    a, w = shapely.STRtree(shapes).query(segs, predicate="intersects")
-    keep = (t.mark[a] != walls[w]) & ~shapely.touches(segs[a], shapes[w])
+    shapes = places.footprints[rows]
+    a, w = shapely.STRtree(shapes).query(segs)  # whose boxes meet; then the few that matter
+    other = t.wall[a] != rows[w]  # a brace stands on its own wall's face
+    a, w = a[other], w[other]
+    keep = shapely.intersects(segs[a], shapes[w]) & ~shapely.touches(segs[a], shapes[w])
     found = []
     for i, k in zip(a[keep], w[keep]):
         pt = shapely.point_on_surface(shapely.intersection(segs[i], shapes[k]))
+        wall = places.mark[rows[k]]
         found.append(PlanFinding(t.mark[i], Flag(
             "brace-crosses-wall", "danger", f"brace {t.number[i]} runs through wall "
-            f"{walls[k]} at {_xy((pt.x, pt.y))}", "design.md §7"), [(pt.x, pt.y)],
-            (str(walls[k]),)))
+            f"{wall} at {_xy((pt.x, pt.y))}", "design.md §7"), [(pt.x, pt.y)], (str(wall),)))
     return found
 
 
@@ -531,24 +688,29 @@ def _braces_in_areas(site: Site, t: _Braces) -> list[PlanFinding]:
     return found
 
 
-def _zone_overlaps(site: Site, zone_of: dict[str, Polygon]) -> list[PlanFinding]:
+def _zone_overlaps(site: Site, places: Places, rows: np.ndarray,
+                   corners: np.ndarray) -> list[PlanFinding]:
+    """Zones (`corners`, of the walls at `rows`) over the plan's areas."""
     areas = [a for a in (site.plan.areas if site.plan else []) if a.kind in ZONE_OVER_AREA]
-    if not areas or not zone_of:
+    if not areas or len(rows) == 0:
         return []
-    marks = list(zone_of)
-    zs = np.array([zone_of[m] for m in marks])
     shapes = np.array([shapely.make_valid(Polygon(a.polygon)) for a in areas])
+    # only a zone whose bounding box meets an area's can overlap it: the others are not drawn
+    lo, hi, box = corners.min(axis=1), corners.max(axis=1), shapely.bounds(shapes)
+    near = ((lo[:, None, 0] <= box[:, 2]) & (hi[:, None, 0] >= box[:, 0])
+            & (lo[:, None, 1] <= box[:, 3]) & (hi[:, None, 1] >= box[:, 1])).any(axis=1)
+    rows, zs = rows[near], shapely.polygons(corners[near])
     z, k = shapely.STRtree(shapes).query(zs, predicate="intersects")
     common = shapely.intersection(zs[z], shapes[k])
     size = shapely.area(common)
     masonry_source = site.rule("masonry_zone_extra_ft").source
-    panel_of = {p.mark: p for p in site.panels}
     found = []
     for zi, ki, part, a_ft2 in zip(z, k, common, size):
         if a_ft2 <= TOLERANCE_FT:
             continue
-        area, mark = areas[ki], marks[zi]
-        masonry = site.materials[panel_of[mark].material].kind == "masonry" and \
+        area, mark = areas[ki], str(places.mark[rows[zi]])
+        panel = site.panels[places.index[rows[zi]]]
+        masonry = site.materials[panel.material].kind == "masonry" and \
             site.rule_value("masonry_zone_extra_ft") is not None
         code = "zone-overlaps-crane-path" if area.kind == "crane_path" else "zone-overlap"
         pt = shapely.point_on_surface(part)
@@ -560,15 +722,18 @@ def _zone_overlaps(site: Site, zone_of: dict[str, Polygon]) -> list[PlanFinding]
     return found
 
 
-def _overlapping_walls(places: dict[str, PanelPlace], marks: list[str]) -> list[PlanFinding]:
-    if len(marks) < 2:
+def _overlapping_walls(places: Places, rows: np.ndarray) -> list[PlanFinding]:
+    if len(rows) < 2:
         return []
-    shapes = np.array([places[m].footprint for m in marks])
-    a, b = shapely.STRtree(shapes).query(shapes, predicate="intersects")
-    keep = a < b
-    common = shapely.intersection(shapes[a[keep]], shapes[b[keep]])
+    marks = places.mark[rows].tolist()
+    shapes = places.footprints[rows]
+    a, b = shapely.STRtree(shapes).query(shapes)  # whose boxes meet; then those that matter
+    a, b = a[a < b], b[a < b]
+    meet = shapely.intersects(shapes[a], shapes[b])
+    a, b = a[meet], b[meet]
+    common = shapely.intersection(shapes[a], shapes[b])
     found = []
-    for i, j, part in zip(a[keep], b[keep], common):
+    for i, j, part in zip(a, b, common):
         if shapely.area(part) > TOLERANCE_FT:
             pt = shapely.point_on_surface(part)
             found.append(PlanFinding(marks[i], Flag(
@@ -578,35 +743,42 @@ def _overlapping_walls(places: dict[str, PanelPlace], marks: list[str]) -> list[
 
 
 # --- the whole plan -----------------------------------------------------------------------------
-def _coords(geom) -> Coords:
-    return [(float(x), float(y)) for x, y in shapely.get_coordinates(geom)]
+def _rings(corners: np.ndarray) -> list[Coords]:
+    """Each outline of `corners` (n, k, 2) as a closed ring of plan points."""
+    return [[*map(tuple, c), tuple(c[0])] for c in corners.tolist()]
 
 
 def plan_geometry(site: Site, standing: set[str] | None = None, day: int | None = None,
                   heights: dict[str, float] | None = None) -> PlanGeometry:
     """The plan of a day (`standing`: marks standing; None: every placed wall) for the views."""
     places = place(site)
-    marks = set(_standing_marks(places, standing))
-    reach = zone_reach(site, places, heights, standing)
-    zone_of = zones(site, places, heights, standing)
+    bracing = _read_bracing(site, places, standing)
+    reach = _zone_reach(site, places, bracing, heights)
+    zone_of = dict(zip(bracing.walls.tolist(),
+                       _rings(_zone_corners(site, places, bracing, heights))))
+    t = _brace_table(places, bracing)
+    pairs = list(zip(map(tuple, _at(places, t.wall, t.along_ft, 0.0).tolist()),
+                     map(tuple, t.foot.tolist())))
+    first = np.searchsorted(t.wall, np.arange(len(places) + 1)).tolist()  # walls in order
+    every = places.bracing(site)  # the foot anchors of every placed wall, standing or not
+    kind, anchor = [""] * len(places), [None] * len(places)
+    for k, foot_kind, foot_anchor in zip(every.walls[every.braced].tolist(), every.kind.tolist(),
+                                         every.anchor.tolist()):
+        kind[k], anchor[k] = foot_kind, foot_anchor or None
+    faces = _at(places, places.rows()[:, None], places.width_ft[:, None] * [0.0, 1.0], 0.0)
     panels: list[PlanPanel] = []
-    for mark, pl in places.items():
-        p = site.panels[pl.index]
-        up = mark in marks
-        inserts, feet = brace_points(site, pl) if up else (np.empty((0, 2)),) * 2
-        b = p.bracing
-        face = pl.face
-        zone = _coords(zone_of[mark].exterior) if up else []
+    for k, (mark, i, footprint, face) in enumerate(zip(
+            places.mark.tolist(), places.index.tolist(), _rings(places.footprint_corners),
+            faces.tolist())):
+        p = site.panels[i]
+        zone = zone_of.get(k, [])
         panels.append(PlanPanel(
-            mark=mark, line=pl.line, standing=up,
+            mark=mark, line=places.line[k], standing=k in zone_of,
             height_ft=heights.get(mark, p.height) if heights else p.height,
-            footprint=_coords(pl.footprint.exterior),
-            face=(tuple(map(float, face[0])), tuple(map(float, face[1]))),
-            braces=[(tuple(map(float, i)), tuple(map(float, f))) for i, f in zip(inserts, feet)],
-            foot_kind=site.anchor_types[b.foot_anchor].kind if b and b.foot_anchor else "",
-            foot_anchor=b.foot_anchor if b else None,
+            footprint=footprint, face=(tuple(face[0]), tuple(face[1])),
+            braces=pairs[first[k]:first[k + 1]], foot_kind=kind[k], foot_anchor=anchor[k],
             restricted_zone=zone, evacuated_zone=list(zone),
-            zone_basis=reach[mark][2] if up else ""))
+            zone_basis=reach[mark][2] if k in zone_of else ""))
     plan = site.plan
     geometry = PlanGeometry(
         day=day,
@@ -619,7 +791,7 @@ def plan_geometry(site: Site, standing: set[str] | None = None, day: int | None 
         lines=[PlanLine(line.name, tuple(line.start), tuple(line.end), line.braced_side)
                for line in site.lines],
         panels=panels,
-        findings=_findings(site, places, standing, zone_of),
+        findings=_findings(site, places, bracing, heights),
         bounds=(0.0, 0.0, 1.0, 1.0))
     geometry.bounds = _bounds(geometry)
     return geometry
@@ -651,9 +823,9 @@ class DayPlans(Mapping):
         return max(sorted(self._standing), key=lambda d: (len(self._standing[d]), -d))
 
 
-def findings(site: Site, places: dict[str, PanelPlace]) -> list[PlanFinding]:
+def findings(site: Site, places: Places) -> list[PlanFinding]:
     """Everything found in the plan with every placed wall standing."""
-    return _findings(site, places, None)
+    return _findings(site, places, places.bracing(site))
 
 
 def day_findings(found: list[PlanFinding],

@@ -8,6 +8,7 @@ import math
 
 import numpy as np
 import pytest
+import shapely
 from hypothesis import given
 from hypothesis import strategies as st
 
@@ -354,3 +355,24 @@ def test_geometry_does_not_depend_on_the_line_direction(theta, side, width, thic
     cross = u[0] * feet[:, 1] - u[1] * feet[:, 0]  # signed distance, + on the left
     assert cross == pytest.approx(np.full(2, d if side == "left" else -d))
     assert plan.zones(site, places)["M-1"].area == pytest.approx(14.0 * width)
+
+
+@given(angles, sides, st.floats(2.0, 30.0), st.floats(-10.0, 60.0), st.floats(-10.0, 50.0))
+def test_foot_edge_distance_is_the_distance_to_the_nearest_edge(theta, side, d, x, y):
+    # Geometry: the least distance from a wall's slab-anchor feet to the slab edge, a hole or a
+    # joint (0 for a foot off the slab), equal to shapely's point-to-line distance to the bit.
+    slab = [[0, 0], [50, -5], [65, 30], [30, 55], [-5, 35]]
+    hole, joint = rect(20, 20, 26, 24), [[-5, 10], [40, 52]]
+    line = {"name": "A", "start": [x, y], "end": [x + 30 * math.cos(theta),
+                                                 y + 30 * math.sin(theta)], "braced_side": side}
+    site = make_site([wall(anchor_distance=d, foot_anchor="wedge", count=3)], lines=[line],
+                     plan_data={"slab": slab, "slab_holes": [hole], "slab_joints": [joint]})
+    places = plan.place(site)
+    _, feet = plan.brace_points(site, places["P-1"])
+    area = shapely.Polygon(slab).difference(shapely.Polygon(hole))
+    edges = [shapely.Polygon(slab).exterior, shapely.Polygon(hole).exterior,
+             shapely.LineString(joint)]
+    pts = shapely.points(feet)
+    near = np.min([shapely.distance(e, pts) for e in edges], axis=0)
+    expected = np.where(shapely.covers(area, pts), near, 0.0).min() * 12.0
+    assert plan.foot_edge_distances_in(site, places)["P-1"] == expected
