@@ -224,19 +224,26 @@ class BraceForces:
 
 @dataclass(frozen=True)
 class BraceLoads:
-    """Unfactored wind forces on the braced walls (lb): rigid panels' load cases and the strips
-    that each brace of a wall built in place carries. Linear in q, so an observed gust's loads
-    are those of 1 mph scaled by V^2."""
+    """Unfactored loads on the braced walls (lb): the wind of rigid panels' load cases and of
+    the strips that each brace of a wall built in place carries, and the lean of the wall's
+    weight on its braces, with the levers of each brace pattern. The wind is linear in q, so
+    an observed gust's loads are those of 1 mph scaled by V^2; the lean does not scale."""
 
     case_force: np.ndarray  # (cases, m)
     case_at: np.ndarray     # (cases, m) resultant position from the wall's first edge, ft
     strip: np.ndarray       # (m, k) per brace slot
+    lean_total: np.ndarray  # (m,) sum of the braces' horizontal reactions to the lean
+    lean: np.ndarray        # (m, k) each brace's share of it
+    lever: tuple            # braces.brace_lever of each wall's pattern
 
     def take(self, rows) -> BraceLoads:
         """The loads of the walls `rows` only."""
-        return BraceLoads(self.case_force[:, rows], self.case_at[:, rows], self.strip[rows])
+        return BraceLoads(self.case_force[:, rows], self.case_at[:, rows], self.strip[rows],
+                          self.lean_total[rows], self.lean[rows],
+                          tuple(v[rows] for v in self.lever))
 
     def scaled(self, factor) -> BraceLoads:
+        """The wind times `factor` (one value, or one per wall); the lean as it is."""
         factor = np.asarray(factor, dtype=float)
         return replace(self, case_force=self.case_force * factor,
                        strip=self.strip * (factor[..., None] if factor.ndim else factor))
@@ -256,7 +263,15 @@ def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
     rows = np.nonzero(~rigid)[0]
     if len(rows):
         strip[rows] = _strip_loads(walls, wind, take(bs, rows), minimum_psf)
-    return BraceLoads(case_force, case_at, strip)
+    i = bs.index
+    s, b = walls.height[i], walls.width[i]
+    dead = walls.face_weight[i] * s * b * walls.solidity[i]
+    lean_total = braces.lean_reaction(dead, walls.centroid_ratio[i] * s, s, bs.insert, bs.lean,
+                                      bs.slop)
+    lever = braces.brace_lever(bs.positions, bs.mask)
+    lean = braces.brace_shares(lean_total, np.zeros(m), b / 2.0, b / 2.0, bs.positions,
+                               bs.mask, lever)
+    return BraceLoads(case_force, case_at, strip, lean_total, lean, lever)
 
 
 LOAD_CASES = 7  # Case A, Case B from either edge, Case C from either end, the line's two ends
@@ -292,29 +307,26 @@ def brace_forces(walls, wind, loads: BraceLoads, bs: BraceSet, f) -> BraceForces
     A rigid panel's braces share each load case with the twist; a wall built in place gives
     each brace its own strip. Both add the wall's lean on the braces."""
     i = bs.index
-    s, b = walls.height[i], walls.width[i]
     hb = bs.insert
-    dead = walls.face_weight[i] * s * b * walls.solidity[i]
-    lean_total = f.dead_adds * braces.lean_reaction(
-        dead, walls.centroid_ratio[i] * s, s, hb, bs.lean, bs.slop)
-    centre = b / 2.0
-    lever_of = braces.brace_lever(bs.positions, bs.mask)
-    lean = braces.brace_shares(lean_total, np.zeros_like(hb), centre, centre, bs.positions,
-                               bs.mask, lever_of)
+    lean_total, lean = f.dead_adds * loads.lean_total, f.dead_adds * loads.lean
     horizontal = np.zeros(bs.positions.shape)
     total, shear, force = np.zeros(len(i)), np.zeros(len(i)), np.zeros(len(i))
     rigid = walls.rigid[i]
     r = np.nonzero(rigid)[0]
     if len(r):
-        lever, arms = wind.lever[i[r]], tuple(v[r] for v in lever_of)
+        lever, centre, lean_r = wind.lever[i[r]], walls.width[i[r]] / 2.0, lean[r]
+        positions, mask, arms = bs.positions[r], bs.mask[r], tuple(v[r] for v in loads.lever)
+        h, sums, pushed, out = (np.zeros(positions.shape), np.zeros(len(r)), np.zeros(len(r)),
+                                np.zeros(len(r)))
         for case_force, at in zip(loads.case_force[:, r], loads.case_at[:, r]):
             sum_h = f.wind * braces.total_brace_reaction(case_force, lever, hb[r])
-            shares = braces.brace_shares(sum_h, f.wind * case_force, at, centre[r],
-                                         bs.positions[r], bs.mask[r], arms)
-            horizontal[r] = np.maximum(horizontal[r], np.abs(np.nan_to_num(shares + lean[r])))
-            force[r] = np.where(sum_h > total[r], case_force, force[r])
-            total[r] = np.maximum(total[r], sum_h)
-            shear[r] = np.maximum(shear[r], np.abs(f.wind * case_force - sum_h))
+            shares = braces.brace_shares(sum_h, f.wind * case_force, at, centre, positions, mask,
+                                         arms)
+            h = np.maximum(h, np.abs(np.nan_to_num(shares + lean_r, copy=False)))
+            pushed = np.where(sum_h > sums, case_force, pushed)
+            sums = np.maximum(sums, sum_h)
+            out = np.maximum(out, np.abs(f.wind * case_force - sum_h))
+        horizontal[r], total[r], force[r], shear[r] = h, sums, pushed, out
     r = np.nonzero(~rigid)[0]
     if len(r):  # walls built in place: each brace takes its own strip of wall
         strip = loads.strip[r]
