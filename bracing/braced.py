@@ -360,15 +360,24 @@ def _strip_loads(walls, wind, bs, minimum_psf):
     hi = np.where(last, b[:, None], hi)
     lo, hi = np.where(np.isnan(lo), 0.0, lo), np.where(np.isnan(hi), 0.0, hi)
     width = np.maximum(hi - lo, 0.0)
-    ss, bos, soh = s[:, None], b_over_s[:, None], s_over_h[:, None]
-    cf_ab = asce7.cf_cases_ab(bos, soh)
-    left = asce7.case_c_mean(lo / ss, hi / ss, bos, soh, walls.return_left[i][:, None])[0]
-    right = asce7.case_c_mean((b[:, None] - hi) / ss, (b[:, None] - lo) / ss, bos, soh,
-                              walls.return_right[i][:, None])[0]
-    cf = np.where(bos >= 2.0, np.maximum(cf_ab, np.maximum(left, right)), cf_ab)
-    on_line = walls.in_line[i][:, None]
-    cf = np.where(on_line, np.fmax(cf_ab, walls.line_local_max[i][:, None]), cf)
-    cf = np.where(walls.solidity[i][:, None] >= 0.7, cf, asce7.cf_open(walls.solidity[i])[:, None])
+    cf_ab = asce7.cf_cases_ab(b_over_s, s_over_h)
+    cf = np.repeat(cf_ab[:, None], lo.shape[1], axis=1)
+    on_line, solid = walls.in_line[i], walls.solidity[i] >= 0.7
+    # Case C over each strip where it applies (B/s >= 2) to a solid wall on its own (a wall
+    # on a line takes its line's coefficient below); strips in sorted order, the real ones first
+    own_c = (np.arange(lo.shape[1])[None, :] < count[:, None]) & (
+        (b_over_s >= 2.0) & ~on_line & solid)[:, None]
+    if own_c.any():
+        row = np.nonzero(own_c)[0]
+        sr, bos, soh = s[row], b_over_s[row], s_over_h[row]
+        left = asce7.case_c_mean(lo[own_c] / sr, hi[own_c] / sr, bos, soh,
+                                 walls.return_left[i][row])[0]
+        right = asce7.case_c_mean((b[row] - hi[own_c]) / sr, (b[row] - lo[own_c]) / sr, bos,
+                                  soh, walls.return_right[i][row])[0]
+        cf[own_c] = np.maximum(cf_ab[row], np.maximum(left, right))
+    cf = np.where(on_line[:, None], np.fmax(cf_ab, walls.line_local_max[i])[:, None], cf)
+    cf = np.where(solid[:, None], cf, asce7.cf_open(walls.solidity[i])[:, None])
+    ss = s[:, None]
     strip = np.maximum(wind.q[i][:, None] * asce7.GUST_FACTOR * cf * ss * width,
                        (minimum_psf or 0.0) * ss * width)  # ASCE 7-16 Eq. 29.3-1 and §29.7
     # strips follow the sorted positions: map them back to each brace's own slot
