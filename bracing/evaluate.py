@@ -194,8 +194,11 @@ def wind_on(w: Walls, speed, kd: float, minimum_psf: float | None) -> Wind:
     opening = np.where(solid, asce7.opening_factor(np.minimum(w.solidity, 1.0)), 1.0)
     cf_ab = asce7.cf_cases_ab(b_over_s, s_over_h)
     # A lone wall's own Case C; a wall on a line takes its line's Cases A and C instead (§4).
-    lone_c = np.where(b_over_s >= 2.0, asce7.case_c_mean(0.0, b_over_s, b_over_s, s_over_h)[0],
-                      0.0)
+    lone_c = np.zeros(len(s))
+    alone = (b_over_s >= 2.0) & ~w.in_line
+    if alone.any():
+        lone_c[alone] = asce7.case_c_mean(0.0, b_over_s[alone], b_over_s[alone],
+                                          s_over_h[alone])[0]
     line_c = np.fmax(np.fmax(w.line_case_a, w.line_left), w.line_right)
     case_c = np.where(w.in_line, line_c, lone_c)
     cf_open = asce7.cf_open(w.solidity)
@@ -225,14 +228,15 @@ def strip_coefficients(w: Walls, b_over_s, s_over_h, cf_ab, solid, cf_open):
     Interior: the worst beyond s from both ends, wind from either end (the s to 2s region, as
     the coefficients fall away from the windward end). Never below Cases A/B.
     """
-    has_c = b_over_s >= 2.0
-    left = asce7.case_c_cf(0.5, b_over_s, s_over_h, w.return_left)
-    right = asce7.case_c_cf(0.5, b_over_s, s_over_h, w.return_right)
-    end = np.where(has_c, np.maximum(left, right), cf_ab)
-    # Every Case C column falls (or stays) with distance from the windward end, so the worst
-    # point beyond s from both ends is at s from one of them: the s-2s region.
-    inner = asce7.case_c_cf(1.0, b_over_s, s_over_h)
-    interior = np.where(b_over_s > 2.0, inner, end)
+    end, interior = cf_ab.copy(), cf_ab.copy()
+    own = (b_over_s >= 2.0) & ~w.in_line  # a wall on a line takes its line's coefficients
+    if own.any():
+        bos, soh = b_over_s[own], s_over_h[own]
+        end[own] = np.maximum(asce7.case_c_cf(0.5, bos, soh, w.return_left[own]),
+                              asce7.case_c_cf(0.5, bos, soh, w.return_right[own]))
+        # Every Case C column falls (or stays) with distance from the windward end, so the
+        # worst point beyond s from both ends is at s from one of them: the s-2s region.
+        interior[own] = np.where(bos > 2.0, asce7.case_c_cf(1.0, bos, soh), end[own])
     end = np.where(w.in_line, w.line_local_max, end)
     interior = np.where(w.in_line, w.line_local_mid, interior)
     end = np.where(solid, np.maximum(end, cf_ab), cf_open)
