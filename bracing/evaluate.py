@@ -352,11 +352,13 @@ def solve_increasing(g, lo: float, hi: float, size: int, start=None, iterations:
         b[known_b], fb[known_b] = x0[known_b], g0[known_b]
     for x, f, known in ((a, fa, known_a), (b, fb, known_b)):
         need = rows[~known]
-        f[need] = g(x[need], need)
+        if len(need):
+            f[need] = g(x[need], need)
     at_lo = (a == lo) & (fa >= 0.0)  # g(lo) >= 0: the root is at (or below) lo
     no_root = (b == hi) & (fb < 0.0)
     side = np.zeros(size)
-    active = rows[(fa < 0.0) & (fb >= 0.0)]  # walls without a root need no search
+    # walls without a root need no search, nor those where a trial already gave g = 0
+    active = rows[(fa < 0.0) & (fb >= 0.0) & (np.minimum(-fa, fb) >= tolerance)]
     for _ in range(iterations):
         if len(active) == 0:
             break
