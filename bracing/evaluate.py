@@ -25,6 +25,7 @@ STUD_SOLIDITY = 1.5 / 16.0  # open framing: 1.5 in studs at 16 in on centre (com
 SPEED_BRACKET_MPH = (0.0, 400.0)
 HEIGHT_BRACKET_FT = (0.01, 300.0)
 TYPICAL_LIMIT_MPH = 90.0  # first trial of a speed search: near most working limits
+ROOT_TOLERANCE = 1e-7  # a search settles where |g| (a utilization less 1) is below this
 
 
 @dataclass(frozen=True)
@@ -328,13 +329,14 @@ def _ratio(demand, capacity):
         return np.where(capacity > 0, demand / capacity, np.where(demand > 0, np.inf, 0.0))
 
 
-def solve_increasing(g, lo: float, hi: float, size: int, start=None, iterations: int = 60,
-                     tolerance: float = 1e-7) -> np.ndarray:
+def solve_increasing(g, lo: float, hi: float, size: int, start=None, start_value=None,
+                     iterations: int = 60, tolerance: float = ROOT_TOLERANCE) -> np.ndarray:
     """Root of an increasing g(x, rows) on [lo, hi] for many walls at once; NaN where none.
 
     `g(x, rows)` gives g of the walls `rows` (an index array) at their trial values `x`; each
     step asks only for the walls not yet settled. `start` (a value or one per wall) is tried
-    first: it halves the bracket, and a start near the root saves most of the steps. Illinois
+    first (`start_value`: g there, when already known): it halves the bracket, and a start
+    near the root saves most of the steps. Illinois
     regula falsi (a bracketing secant step that halves a stale end's weight), falling back to
     bisection where the step leaves the bracket: robust like bisection, fast like secant on
     these nearly linear utilizations.
@@ -346,7 +348,7 @@ def solve_increasing(g, lo: float, hi: float, size: int, start=None, iterations:
     known_a, known_b = np.zeros(size, bool), np.zeros(size, bool)
     if start is not None:
         x0 = np.clip(np.broadcast_to(np.asarray(start, dtype=float), size), lo, hi)
-        g0 = g(x0, rows)
+        g0 = g(x0, rows) if start_value is None else np.asarray(start_value, dtype=float)
         known_a, known_b = g0 < 0.0, g0 >= 0.0  # NaN: neither; both ends are asked below
         a[known_a], fa[known_a] = x0[known_a], g0[known_a]
         b[known_b], fb[known_b] = x0[known_b], g0[known_b]
@@ -386,7 +388,7 @@ def solve_increasing(g, lo: float, hi: float, size: int, start=None, iterations:
     return np.where(no_root, np.nan, root)
 
 
-def solve_speed(g, size: int, start_mph=TYPICAL_LIMIT_MPH) -> np.ndarray:
+def solve_speed(g, size: int, start_mph=TYPICAL_LIMIT_MPH, start_value=None) -> np.ndarray:
     """Gust speed (mph) at which an increasing g of the squared speed crosses 0, many walls at
     once (NaN where none in the bracket).
 
@@ -394,7 +396,8 @@ def solve_speed(g, size: int, start_mph=TYPICAL_LIMIT_MPH) -> np.ndarray:
     speed: the utilizations are then nearly linear and the secant steps settle in a few passes.
     """
     lo, hi = SPEED_BRACKET_MPH
-    return np.sqrt(solve_increasing(g, lo**2, hi**2, size, start=np.square(start_mph)))
+    return np.sqrt(solve_increasing(g, lo**2, hi**2, size, start=np.square(start_mph),
+                                    start_value=start_value))
 
 
 @dataclass
@@ -567,15 +570,16 @@ def evaluate_arrays(site: Site, edges: dict[str, float] | None = None) -> Evalua
                                                                loads)
         e.braced_limit = braced_limit(w, unit, bs)
         e.braced_stand_down = stand_down_speeds(site, braced.take(w, bs.index), e.braced_limit)
-        e.braced_limit_missing = braced_limit_one_missing(w, unit, bs)
+        e.braced_limit_missing = braced_limit_one_missing(w, unit, bs, e.braced_limit)
     return e
 
 
-def braced_limit(w: Walls, unit: Wind, bs: braced.BraceSet) -> np.ndarray:
-    """Working-limit gust of each braced wall: its most utilized element reaches 1.0 (§3).
+def braced_utilization(w: Walls, unit: Wind, bs: braced.BraceSet):
+    """g(v2, rows): the largest strength utilization, less 1, of the braced walls `rows` of `bs`
+    in an observed gust whose speed squared is v2 (mph^2).
 
     `unit` is the observed wind of a 1 mph gust on every wall; `bs` may list a wall more than
-    once (variants with a brace missing): each row gets its own trial speed.
+    once (variants with a brace missing): each row is its own wall.
     """
     own = take(w, bs.index)
     wind = take(unit, bs.index)
@@ -587,11 +591,24 @@ def braced_limit(w: Walls, unit: Wind, bs: braced.BraceSet) -> np.ndarray:
         checks, _ = braced.braced_checks(take(own, rows), take(wind, rows).scaled(v2), sub,
                                          SERVICE, None, loads.take(rows).scaled(v2))
         return governing_utilization(strength_only(checks)) - 1.0
-    return solve_speed(g, len(bs.index))
+    return g
 
 
-def braced_limit_one_missing(w: Walls, unit: Wind, bs: braced.BraceSet) -> np.ndarray:
-    """The working-limit gust with the worst single brace missing (equipment strikes one)."""
+def braced_limit(w: Walls, unit: Wind, bs: braced.BraceSet) -> np.ndarray:
+    """Working-limit gust of each braced wall: its most utilized element reaches 1.0 (§3)."""
+    return solve_speed(braced_utilization(w, unit, bs), len(bs.index))
+
+
+def braced_limit_one_missing(w: Walls, unit: Wind, bs: braced.BraceSet,
+                             full: np.ndarray) -> np.ndarray:
+    """The working-limit gust with the worst single brace missing (equipment strikes one).
+
+    Each wall's variants (one brace struck each) are tried at the wall's limit with all its
+    braces (`full`; where it has none, at a typical limit); the one
+    most utilized there is searched, and the others are only checked at its limit: a variant
+    whose utilization there is still within 1.0 cannot fail sooner. Those that do fail sooner,
+    and every variant of a wall whose first search found no limit, are searched too.
+    """
     count = bs.mask.sum(axis=1)
     # One brace left cannot carry the twist of Case B (no base restraint credited, §6): 0 mph.
     out = np.where(count == 2, 0.0, np.nan)
@@ -601,7 +618,27 @@ def braced_limit_one_missing(w: Walls, unit: Wind, bs: braced.BraceSet) -> np.nd
     variant = braced.take(bs, rows)
     mask = variant.mask.copy()
     mask[np.arange(len(rows)), slots] = False
-    limits = braced_limit(w, unit, replace(variant, mask=mask))
+    g = braced_utilization(w, unit, replace(variant, mask=mask))
+
+    def search(which, start=TYPICAL_LIMIT_MPH, start_value=None):
+        return solve_speed(lambda v2, r: g(v2, which[r]), len(which), start, start_value)
+    every = np.arange(len(rows))
+    start = np.where(np.isfinite(full[rows]), full[rows], TYPICAL_LIMIT_MPH)
+    first_g = g(np.square(start), every)
+    by_wall = np.lexsort((-np.nan_to_num(first_g, nan=-np.inf), rows))  # most utilized first
+    first = by_wall[np.r_[True, np.diff(rows[by_wall]) != 0]]
+    limits = np.full(len(rows), np.inf)  # not the least of its wall
+    limits[first] = search(first, start[first], first_g[first])
+    best = np.full(len(bs.index), np.nan)
+    best[rows[first]] = limits[first]
+    rest = np.setdiff1d(every, first)
+    found = best[rows[rest]]
+    known = rest[found > 0.0]  # a limit of 0 is the least there can be
+    # (a mirror image of the first, say, is at 0 there, within the search's own tolerance)
+    fails_sooner = known[g(np.square(best[rows[known]]), known) > ROOT_TOLERANCE]
+    again = np.concatenate([fails_sooner, rest[np.isnan(found)]])
+    if len(again):
+        limits[again] = search(again)
     np.fmin.at(out, rows, limits)
     return out
 
