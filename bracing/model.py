@@ -17,6 +17,7 @@ from pydantic import (
     Field,
     ValidationError,
     WithJsonSchema,
+    field_validator,
     model_validator,
 )
 from pydantic_core import InitErrorDetails, PydanticCustomError
@@ -387,6 +388,36 @@ class Plan(Strict):
     areas: list[Area_] = Field(default_factory=list)
     joint_gap: Length = Field(1.0, ge=0, description="Largest gap (ft) between panels that "
                                                      "still act as one wall to the wind.")
+
+    @field_validator("slab")
+    @classmethod
+    def _slab_outline(cls, corners: list[Point]) -> list[Point]:
+        if corners:
+            _simple_polygon(corners, "the slab outline")
+        return corners
+
+    @field_validator("slab_holes", "ground")
+    @classmethod
+    def _outlines(cls, polygons: list[list[Point]]) -> list[list[Point]]:
+        for k, corners in enumerate(polygons, start=1):
+            _simple_polygon(corners, f"outline {k}")
+        return polygons
+
+
+def _simple_polygon(corners: list[Point], what: str) -> None:
+    """Refuse an outline that crosses, touches or doubles back on itself: it has no clear inside
+    and edge, so anchors on it could not be placed nor their edge distances measured."""
+    import shapely  # only sites with a plan need it
+    from shapely.geometry import Polygon
+
+    if len(corners) < 3:
+        raise ValueError(f"{what} needs at least 3 corners, got {len(corners)}")
+    reason = shapely.is_valid_reason(Polygon(corners))
+    if reason != "Valid Geometry":
+        where = reason.partition("[")[2].rstrip("]").split()
+        near = f" near ({float(where[0]):g}, {float(where[1]):g})" if len(where) == 2 else ""
+        raise ValueError(f"{what} crosses, touches or doubles back on itself{near}: draw it as "
+                         "one simple loop of corners")
 
 
 class WallLine(Strict):

@@ -11,6 +11,7 @@ import pytest
 import shapely
 from hypothesis import given
 from hypothesis import strategies as st
+from pydantic import ValidationError
 
 from bracing import plan
 from bracing.model import Site
@@ -187,6 +188,19 @@ def test_slab_anchor_in_a_hole_is_off_the_slab():
     assert codes(found) == [("P-1", "anchor-off-slab", "danger")]
     assert "in a slab hole" in found[0][1].message
     assert plan.foot_edge_distances_in(site, plan.place(site))["P-1"] == 0.0
+
+
+@pytest.mark.parametrize("key, polygon, words", [
+    ("slab", [[0, 0], [40, 0], [0, 30], [40, 30]], "the slab outline crosses"),  # a bow tie
+    ("slab_holes", [[[8, 8], [12, 8], [10, 8], [10, 12]]], "outline 1 crosses"),  # doubles back
+    ("ground", [[[0, 0], [10, 0]]], "outline 1 needs at least 3 corners"),
+])
+def test_an_outline_that_is_not_one_simple_loop_is_refused(key, polygon, words):
+    # A crossed or doubled-back outline has no clear edge: the anchors' edge distances could
+    # not be measured, so the file is refused instead of the check going quiet.
+    data = {"slab": rect(-10, -10, 50, 50), key: polygon}
+    with pytest.raises(ValidationError, match=words):
+        make_site([wall()], plan_data=data)
 
 
 def test_slab_anchor_past_the_slab_edge_is_off_the_slab():
