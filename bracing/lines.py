@@ -136,7 +136,7 @@ def _standing_groups(site: Site, on_line: np.ndarray) -> tuple[np.ndarray, ...] 
     lift, release = standing_days(site)
     gap = site.plan.joint_gap if site.plan else 1.0
     lines = {ln.name: ln for ln in site.lines}
-    length = {name: float(np.hypot(*np.subtract(ln.end, ln.start))) for name, ln in lines.items()}
+    line_length = np.array([np.hypot(*np.subtract(ln.end, ln.start)) for ln in lines.values()])
     start = np.array([p.offset for p in site.panels])
     width = np.array([p.width for p in site.panels])
     names = list(lines)
@@ -159,10 +159,7 @@ def _standing_groups(site: Site, on_line: np.ndarray) -> tuple[np.ndarray, ...] 
         group = np.cumsum(np.concatenate([[0], breaks]))
         g_lo = np.minimum.reduceat(lo_m, first)
         g_hi = np.maximum.reduceat(hi_m, first)
-        g_line = [names[k] for k in lid[first]]
-        returns = _corner_returns(g_line, g_lo, g_hi, lines, corners, length)
-        ret_lo = np.array([returns.get((g_line[g], "start"), 0.0) for g in range(len(first))])
-        ret_hi = np.array([returns.get((g_line[g], "end"), 0.0) for g in range(len(first))])
+        ret_lo, ret_hi = _corner_returns(lid[first], g_lo, g_hi, names, line_length, corners)
         now = np.array([g_lo[group], g_hi[group], ret_lo[group], ret_hi[group]])
         changed = (last[:, members] != now).any(axis=0)
         last[:, members] = now
@@ -194,21 +191,23 @@ def _corners(lines: dict) -> dict[tuple[str, str], list[tuple[str, str]]]:
     return out
 
 
-def _corner_returns(g_line, g_lo, g_hi, lines, corners, length) -> dict:
-    """Length of wall standing at right angles where a group's end meets a corner.
+def _corner_returns(g_line, g_lo, g_hi, names, length, corners) -> tuple[np.ndarray, ...]:
+    """Length of wall standing at right angles where each group's start and end meet a corner
+    (0 where none).
 
-    Groups are given by their line and extent along it; returns {(line, 'start'|'end'): return
-    length (ft)} for the group ends that touch their line's end at a corner.
+    Groups are given by their line's number in `names` and their extent along it; `length` is
+    each line's length and `corners` comes from `_corners`.
     """
-    at_tip = {}  # (line, 'start'|'end') -> extent of the group standing at that end
-    for name, lo, hi in zip(g_line, g_lo.tolist(), g_hi.tolist()):
-        if lo <= CORNER_TOLERANCE_FT:
-            at_tip[(name, "start")] = hi - lo
-        if hi >= length[name] - CORNER_TOLERANCE_FT:
-            at_tip[(name, "end")] = hi - lo
-    out = {}
-    for tip in at_tip:
-        other = [at_tip[p] for p in corners.get(tip, []) if p in at_tip]
+    returns = np.zeros((2, len(g_line)))
+    if not corners:
+        return returns[0], returns[1]
+    at_tip = {}  # (line, 'start'|'end') -> (group, 0|1, extent of the group standing there)
+    for end, (tip, at) in enumerate((("start", g_lo <= CORNER_TOLERANCE_FT),
+                                     ("end", g_hi >= length[g_line] - CORNER_TOLERANCE_FT))):
+        for g in np.nonzero(at)[0].tolist():
+            at_tip[(names[g_line[g]], tip)] = (g, end, float(g_hi[g] - g_lo[g]))
+    for tip, (g, end, _) in at_tip.items():
+        other = [at_tip[p][2] for p in corners.get(tip, []) if p in at_tip]
         if other:
-            out[tip] = max(other)
-    return out
+            returns[end, g] = max(other)
+    return returns[0], returns[1]
