@@ -42,6 +42,11 @@ class BraceSet:
     foot_tension: np.ndarray    # slab/stake allowable tension, helical allowable, deadman weight
     foot_shear: np.ndarray      # slab/stake allowable shear
     foot_mu: np.ndarray         # deadman friction / FS
+    block_length: np.ndarray    # deadman length along the brace, ft (NaN: not given)
+    pin_height: np.ndarray      # deadman: brace foot pin above the block's base, ft
+    pin_from_toe: np.ndarray    # deadman: the pin from the toe (the edge nearer the wall), ft
+    block_width: np.ndarray     # deadman width across the brace, ft (NaN: not given)
+    block_bearing: np.ndarray   # allowable bearing under the block, psf
     torque_factor: np.ndarray   # helical K_t (1/ft) and factor of safety, for the torque
     torque_safety: np.ndarray
     rupture: np.ndarray         # concrete modulus of rupture, psi (NaN: not concrete)
@@ -114,7 +119,8 @@ def _capacities(site, rows, c, length, angle, basis) -> dict[str, np.ndarray]:
     m = len(rows)
     out = {n: np.full(m, np.nan) for n in (
         "compression", "tension", "connection", "insert_tension", "insert_shear",
-        "foot_tension", "foot_shear", "foot_mu", "torque_factor", "torque_safety", "slenderness",
+        "foot_tension", "foot_shear", "foot_mu", "block_length", "pin_height", "pin_from_toe",
+        "block_width", "block_bearing", "torque_factor", "torque_safety", "slenderness",
         "slenderness_limit")}
     out["self_weight_ratio"] = np.zeros(m)
     out["euler_load"] = np.full(m, np.inf)
@@ -209,6 +215,12 @@ def _foot_capacity(fa, sel, out, basis, plan_edge=np.inf):
         # IBC Table 1806.2 values are allowable; concrete on concrete is nominal (design.md §6).
         fs = 1.0 if fa.friction_basis == "allowable" else anchors.SLIDING_FS_ULTIMATE
         out["foot_mu"][sel] = fa.friction_coefficient / fs
+        if fa.length is not None:
+            out["block_length"][sel], out["pin_height"][sel] = fa.length, fa.pin_height
+            out["pin_from_toe"][sel] = (fa.length / 2.0 if fa.pin_from_toe is None
+                                        else fa.pin_from_toe)
+        if fa.width is not None:
+            out["block_width"][sel], out["block_bearing"][sel] = fa.width, fa.allowable_bearing
 
 
 @dataclass(frozen=True)
@@ -397,6 +409,10 @@ CHECKS = {
     "foot anchor": ("lb", "wind", "ACI 318-19 §17.6-17.8 / ICC-ES AC358 / maker's rating"),
     "deadman uplift": ("lb", "resisting", "weight, ASCE 7-16 §2.4.1"),
     "deadman sliding": ("lb", "resisting", "friction, IBC Table 1806.2 / ACI 318-19 §22.9.4.2"),
+    "deadman overturning": ("lb·ft", "resisting", "statics about the block's toe, weight at "
+                            "mid-length, ASCE 7-16 §2.4.1"),
+    "deadman bearing": ("psf", "adding", "statics, linear pressure, against the "
+                            "allowable bearing (IBC Table 1806.2)"),
     "base uplift": ("lb", "resisting", "statics: 0.6D - sum(P sin theta) >= 0"),
     "base kick-out": ("lb", "resisting", "friction, ACI 318-19 §22.9.4.2 (mu 0.6)"),
     "wall bending": ("lb·ft", "resisting", "TMS 402-16 §8.2 flexural tension, or weight above "
@@ -475,6 +491,24 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
     checks["deadman uplift"] = (np.where(deadman, up, na), f.dead_resists * weight)
     checks["deadman sliding"] = (np.where(deadman, pull, na), bs.foot_mu * np.maximum(
         f.dead_resists * weight - up, 0.0))
+    # Tipping about the block's toe: the pull at the pin's height and the uplift at its distance
+    # from the toe against the factored weight at mid-length (statics, ASCE 7-16 §2.4.1).
+    sized = deadman & ~np.isnan(bs.block_length)
+    checks["deadman overturning"] = (
+        np.where(sized, anchors.deadman_overturning_moment(pull, up, bs.pin_height,
+                                                           bs.pin_from_toe), na),
+        np.where(sized, f.dead_resists * weight * bs.block_length / 2.0, na))
+    # The soil under the block's more loaded edge (the toe, unless the uplift sits far back):
+    # its weight (dead load adds) less the uplift, with the moment about its middle of the pull
+    # at the pin's height and of the uplift off the middle (statics; linear pressure, no
+    # tension), against the allowable bearing. Lifted off (no weight left): no bearing at all.
+    bearing = deadman & ~np.isnan(bs.block_width)
+    net = f.dead_adds * weight - up
+    peak = stability.max_soil_pressure(
+        net, np.abs(pull * bs.pin_height + up * (bs.pin_from_toe - bs.block_length / 2.0)),
+        bs.block_length, bs.block_width)
+    checks["deadman bearing"] = (np.where(bearing, np.where(net > 0.0, peak, np.inf), na),
+                                 np.where(bearing, bs.block_bearing, na))
     # The wall's base: lifted by the braces in compression, pushed out by the base shear.
     s, b = walls.height[i], walls.width[i]
     dead = walls.face_weight[i] * s * b * walls.solidity[i]

@@ -839,6 +839,11 @@ class _Results:
                     "anchor-too-deep", "warning", f"post-installed anchor {b.foot_anchor}: "
                     f"h_ef {fa.embedment:g} in is more than the {fa.slab_thickness:g} in slab "
                     "allows", "ACI 318-19 §17.9.4 (from memory)"))
+            if fa is not None and fa.kind == "deadman" and fa.length is None:
+                anchor_flags.append(Flag(
+                    "deadman-tipping-unchecked", "warning", f"deadman {b.foot_anchor}: its "
+                    "overturning about the toe is not checked; give its length and pin_height",
+                    "statics"))
             self.hardware[key] = (braced.sources(bt.kind, fa.kind if fa else None),
                                   brace_flags, anchor_flags)
         return self.hardware[key]

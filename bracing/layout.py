@@ -29,6 +29,8 @@ ADVICE = {
     "foot anchor": "another foot anchor (deeper embedment, a helical anchor or a deadman)",
     "deadman uplift": "a heavier deadman, or a flatter brace",
     "deadman sliding": "a heavier deadman or one keyed into the ground",
+    "deadman overturning": "a longer or heavier deadman, or the brace pinned lower on it",
+    "deadman bearing": "a longer or wider deadman, or the brace pinned lower on it",
     "base uplift": "flatter braces (a smaller angle) or a heavier wall base",
     "base kick-out": "a base restraint (dowels, a shoe or a kicker), or an insert nearer the "
                      "wind's resultant",

@@ -289,6 +289,20 @@ class AnchorType(Strict):
         "ultimate", description="'allowable' for IBC Table 1806.2 values (used as they are); "
                                 "'ultimate' for NAVFAC DM-7.02 or concrete on concrete (a "
                                 "factor of safety of 1.5 applies).")
+    length: Length | None = Field(None, gt=0, description="Block length along the brace (ft); "
+                                                          "with pin_height, its overturning is "
+                                                          "checked.")
+    pin_height: Length | None = Field(None, ge=0, description="Brace foot pin above the block's "
+                                                              "base (ft).")
+    pin_from_toe: Length | None = Field(None, ge=0, description="Brace foot pin from the block's "
+                                                                "toe, its edge nearer the wall, "
+                                                                "in plan (ft); default mid-length.")
+    width: Length | None = Field(None, gt=0, description="Block width across the brace (ft); "
+                                                         "with allowable_bearing, the pressure "
+                                                         "under it is checked.")
+    allowable_bearing: Pressure | None = Field(None, gt=0, description="Allowable bearing under "
+                                                                       "the block (psf), e.g. IBC "
+                                                                       "Table 1806.2.")
     on_hand: int | None = Field(None, ge=0, description="How many the site has.")
 
     @model_validator(mode="after")
@@ -304,6 +318,15 @@ class AnchorType(Strict):
         missing = [k for k in needed if getattr(self, k) is None]
         if missing:
             raise ValueError(f"a {self.kind} anchor needs {', '.join(missing)}")
+        if (self.length is None) != (self.pin_height is None):
+            raise ValueError("a deadman's overturning needs both length and pin_height")
+        if self.pin_from_toe is not None and (self.length is None
+                                              or self.pin_from_toe > self.length):
+            raise ValueError("pin_from_toe must lie within the block's length")
+        if (self.width is None) != (self.allowable_bearing is None) or (
+                self.width is not None and self.length is None):
+            raise ValueError("the bearing under a deadman needs width and allowable_bearing, "
+                             "with length and pin_height")
         return self
 
 

@@ -38,6 +38,8 @@ ANCHOR_TYPES = {
               "pullout": 9000.0, "slab_thickness": 6.0, "concrete_strength": 3000.0},
     "helix": {"kind": "helical", "installation_torque": 3000.0},
     "block": {"kind": "deadman", "weight": 8000.0},
+    "sized block": {"kind": "deadman", "weight": 20000.0, "length": 8.0, "pin_height": 1.0,
+                    "pin_from_toe": 2.0, "width": 4.0, "allowable_bearing": 2000.0},
     "stake": {"kind": "stake", "rated_tension": 3000.0, "rated_shear": 3000.0},
 }
 
@@ -253,3 +255,50 @@ def test_an_evaluation_leaves_the_cycle_collector_as_it_found_it(running):
         assert gc.isenabled() is running
     finally:
         (gc.enable if was else gc.disable)()
+
+
+def test_a_sized_deadman_is_checked_for_tipping_about_its_toe():
+    site = site_of([wall("D-1", brace_type="adjustable", foot_anchor="sized block", count=2,
+                         insert_height=20.0, angle=50.0)])
+    p = ev.evaluate(site).panels[0]
+    b = p.braces
+    pull, uplift = b["anchor_shear_lb"], b["anchor_uplift_lb"]
+    tipping = next(c for c in p.checks if c.element == "deadman overturning")
+    # Statics about the toe: the pull at the pin's height, the uplift at its distance from the
+    # toe; resisting 0.6 W (ASCE 7-16 §2.4.1, ASD) at mid-length: 0.6 x 20,000 x 4 = 48,000
+    assert tipping.demand == pytest.approx(pull * 1.0 + uplift * 2.0, rel=1e-9)
+    assert tipping.capacity == pytest.approx(48_000.0, rel=1e-12)
+    assert tipping.combination == "0.6D + 0.6W" and tipping.passes
+    assert "deadman-tipping-unchecked" not in {f.code for f in p.flags}
+    # The soil under it (statics, linear pressure, no tension): N = D - uplift, M about the
+    # middle = pull x 1.0 + uplift x (2.0 - 4.0); 8 ft long, 4 ft wide, e = M / N
+    n = 20_000.0 - uplift
+    e = abs(pull * 1.0 - uplift * 2.0) / n
+    assert e < 8.0 / 2.0  # it does not tip
+    peak = n / 32.0 * (1.0 + 6.0 * e / 8.0) if e <= 8.0 / 6.0 else 2.0 * n / (3.0 * 4.0 * (4.0 - e))
+    bearing = next(c for c in p.checks if c.element == "deadman bearing")
+    assert bearing.demand == pytest.approx(peak, rel=1e-9)
+    assert bearing.capacity == 2000.0 and bearing.combination == "D + 0.6W"
+
+
+def test_a_deadman_without_its_size_is_flagged_unchecked_for_tipping():
+    site = site_of([wall("D-1", brace_type="adjustable", foot_anchor="block", count=2,
+                         insert_height=20.0, angle=50.0)])
+    p = ev.evaluate(site).panels[0]
+    assert "deadman overturning" not in {c.element for c in p.checks}
+    flag = next(f for f in p.flags if f.code == "deadman-tipping-unchecked")
+    assert flag.severity == "warning" and "length and pin_height" in flag.message
+
+
+@pytest.mark.parametrize("block, words", [
+    ({"length": 6.0}, "both length and pin_height"),
+    ({"length": 6.0, "pin_height": 2.0, "pin_from_toe": 7.0}, "within the block's length"),
+    ({"length": 6.0, "pin_height": 2.0, "width": 4.0}, "width and allowable_bearing"),
+    ({"width": 4.0, "allowable_bearing": 2000.0}, "with length and pin_height"),
+])
+def test_a_deadman_size_must_be_whole(block, words):
+    anchors = {**ANCHOR_TYPES, "odd": {"kind": "deadman", "weight": 8000.0, **block}}
+    with pytest.raises(ValidationError, match=words):
+        Site.model_validate({"site": {"name": "x", "basic_wind_speed": 115.0},
+                             "materials": MATERIALS, "brace_types": BRACE_TYPES,
+                             "anchor_types": anchors, "panels": [wall("D-1")]})
