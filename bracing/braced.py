@@ -16,6 +16,7 @@ from bracing.data_members import DRESSED_SIZES_IN, LUMBER_GRADES, PIPES
 from bracing.wind import asce7
 
 IN = 1.0 / 12.0  # ft per in
+RATED_FEET = ("stake", "insert", "deck")  # foot anchors checked by their allowable ratings
 
 
 @dataclass(frozen=True)
@@ -38,7 +39,7 @@ class BraceSet:
     euler_load: np.ndarray      # pipe: Pe1 for the moment amplifier (lb), inf otherwise
     insert_tension: np.ndarray  # wall insert ratings (lb), NaN if no wall anchor given
     insert_shear: np.ndarray
-    foot_kind: np.ndarray       # '', 'slab', 'helical', 'deadman', 'stake', 'insert'
+    foot_kind: np.ndarray       # '', 'slab', 'helical', 'deadman', 'stake', 'insert', 'deck'
     foot_tension: np.ndarray    # slab/stake allowable tension, helical allowable, deadman weight
     foot_shear: np.ndarray      # slab/stake allowable shear
     foot_mu: np.ndarray         # deadman friction / FS
@@ -193,7 +194,7 @@ def _foot_capacity(fa, sel, out, basis, plan_edge=np.inf):
 
     Slab anchors take the edge distance found on the plan where there is one (0 off the slab:
     no capacity), else the least distance their type needs (ACI 318-19 §17.6.2.4, §17.7.2)."""
-    if fa.kind in ("stake", "insert"):
+    if fa.kind in RATED_FEET:
         out["foot_tension"][sel], out["foot_shear"][sel] = fa.rated_tension, fa.rated_shear
     elif fa.kind == "slab":
         edge = np.where(np.isfinite(plan_edge), plan_edge, fa.edge_distance or np.inf)
@@ -433,6 +434,7 @@ FOOT_SOURCE = {
     "slab": "ACI 318-19 §17.6-17.8 (cracked), phi Nn x 0.6 for ASD",
     "helical": "ICC-ES AC358: K_t T / FS",
     "stake": "maker's ratings, T/Ta + V/Va <= 1 (common practice)",
+    "deck": "ratings of the deck fastening, T/Ta + V/Va <= 1 (common practice)",
     "insert": "maker's ratings, T/Ta + V/Va <= 1 (common practice)",
 }
 
@@ -481,7 +483,7 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
     slab_ratio = np.where(kind == "slab", anchors.tension_shear_interaction(
         up, bs.foot_tension, pull, bs.foot_shear), np.nan)
     rated_ratio = up / bs.foot_tension + pull / bs.foot_shear
-    foot_ratio = np.select([kind == "slab", (kind == "stake") | (kind == "insert"),
+    foot_ratio = np.select([kind == "slab", np.isin(kind, RATED_FEET),
                             kind == "helical"],
                            [slab_ratio, rated_ratio, p / bs.foot_tension], np.nan)
     checks["foot anchor"] = (np.where(np.isnan(foot_ratio), na, p),

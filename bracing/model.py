@@ -252,10 +252,11 @@ class BraceType(Strict):
 
 
 class AnchorType(Strict):
-    """An anchor at either end of a brace: panel insert, slab anchor, helical, deadman, stake."""
+    """An anchor at either end of a brace: panel insert, slab anchor, helical, deadman, stake,
+    or a fastening to an upper-floor deck."""
 
-    kind: Literal["insert", "slab", "helical", "deadman", "stake"]
-    # insert and stake: the maker's allowable ratings at the angle used
+    kind: Literal["insert", "slab", "helical", "deadman", "stake", "deck"]
+    # insert, stake and deck: the maker's (or the engineer's) allowable ratings at the angle used
     rated_tension: Force | None = Field(None, gt=0, description="Allowable tension (lb).")
     rated_shear: Force | None = Field(None, gt=0, description="Allowable shear (lb).")
     # slab anchor (ACI 318-19 Ch. 17)
@@ -310,6 +311,7 @@ class AnchorType(Strict):
         needed = {
             "insert": ("rated_tension", "rated_shear"),
             "stake": ("rated_tension", "rated_shear"),
+            "deck": ("rated_tension", "rated_shear"),
             "slab": ("embedment", "diameter", "steel_area", "slab_thickness",
                      "concrete_strength"),
             "helical": ("installation_torque",),

@@ -41,6 +41,7 @@ ANCHOR_TYPES = {
     "sized block": {"kind": "deadman", "weight": 20000.0, "length": 8.0, "pin_height": 1.0,
                     "pin_from_toe": 2.0, "width": 4.0, "allowable_bearing": 2000.0},
     "stake": {"kind": "stake", "rated_tension": 3000.0, "rated_shear": 3000.0},
+    "deck": {"kind": "deck", "rated_tension": 1500.0, "rated_shear": 2500.0},
 }
 
 
@@ -302,3 +303,16 @@ def test_a_deadman_size_must_be_whole(block, words):
         Site.model_validate({"site": {"name": "x", "basic_wind_speed": 115.0},
                              "materials": MATERIALS, "brace_types": BRACE_TYPES,
                              "anchor_types": anchors, "panels": [wall("D-1")]})
+
+
+def test_a_brace_fastened_to_an_upper_floor_deck_is_checked_by_its_ratings():
+    site = site_of([wall("F-2", "framed", height=9.0, width=20.0, brace_type="stud",
+                         foot_anchor="deck", count=3, insert_height=7.0, angle=45.0)])
+    p = ev.evaluate(site).panels[0]
+    foot = next(c for c in p.checks if c.element == "foot anchor")
+    b = p.braces
+    # common practice: linear interaction of the ratings, T/Ta + V/Va <= 1
+    ratio = b["anchor_uplift_lb"] / 1500.0 + b["anchor_shear_lb"] / 2500.0
+    assert foot.demand == pytest.approx(b["axial_force_lb"], rel=1e-12)
+    assert foot.utilization == pytest.approx(ratio, rel=1e-9)
+    assert "deck fastening" in foot.source

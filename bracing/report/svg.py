@@ -34,7 +34,8 @@ SLAB, SLAB_EDGE, GROUND = "#e3e3e3", "#4d4d4d", "#efe5cc"
 WALL, BRACE, ZONE, EVACUATED = "#3b3b3b", "#1f4e9c", "#e69b1e", "#b03a2e"
 DANGER, WARNING = "#c0392b", "#b9770e"
 ANCHOR_WORDS = {"slab": "slab anchor", "helical": "helical anchor", "deadman": "deadman",
-                "stake": "stake", "insert": "insert", "": "foot (no anchor named)"}
+                "stake": "stake", "insert": "insert", "deck": "deck anchor",
+                "": "foot (no anchor named)"}
 STATUS_WORDS = {"unsafe": "UNSAFE", "needs_braces": "NEEDS BRACES"}
 MOST_FINDINGS = 40
 
@@ -289,6 +290,9 @@ def _anchor(kind: str, x: float, y: float, r: float, u: float) -> str:
     if kind == "stake":
         return (f'<polygon points="{_f(x)},{_f(-y - 1.2 * r)} {_f(x - r)},{_f(-y + 0.8 * r)} '
                 f'{_f(x + r)},{_f(-y + 0.8 * r)}" fill="#000"/>')
+    if kind == "deck":
+        return (f'<polygon points="{_f(x)},{_f(-y - r)} {_f(x + r)},{sy} {_f(x)},{_f(-y + r)} '
+                f'{_f(x - r)},{sy}" fill="#000"/>')
     return (f'<circle cx="{sx}" cy="{sy}" r="{_f(r)}" fill="#fff" stroke="#000" '
             f'stroke-width="{w}"/>')
 
