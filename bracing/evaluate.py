@@ -419,6 +419,8 @@ class Evaluation:
     braced_limit: np.ndarray | None = None
     braced_stand_down: np.ndarray | None = None
     braced_limit_missing: np.ndarray | None = None
+    fresh_limit: np.ndarray | None = None       # masonry with fresh mortar (NaN: other walls)
+    fresh_stand_down: np.ndarray | None = None
 
 
 # Plan findings that depend on one wall alone go on the wall (and its days); crossings and
@@ -539,9 +541,6 @@ def evaluate_arrays(site: Site, edges: dict[str, float] | None = None) -> Evalua
         design_speed = np.maximum(design_speed, floor_rule)
     minimum = site.rule_value("minimum_design_pressure_psf")
 
-    def unbraced_at(walls: Walls, wind: Wind, f: Factors):
-        return governing_utilization(stability_checks(walls, wind, f)) - 1.0
-
     wind = wind_on(w, design_speed, asce7.KD_WALLS, minimum)
     # An observed gust: Kd 1.0, no minimum, no period factor (design.md §3); loads grow with
     # V^2, so the wind of a 1 mph gust is scaled rather than recomputed.
@@ -571,7 +570,46 @@ def evaluate_arrays(site: Site, edges: dict[str, float] | None = None) -> Evalua
         e.braced_limit = braced_limit(w, unit, bs)
         e.braced_stand_down = stand_down_speeds(site, braced.take(w, bs.index), e.braced_limit)
         e.braced_limit_missing = braced_limit_one_missing(w, unit, bs, e.braced_limit)
+    e.fresh_limit, e.fresh_stand_down = fresh_mortar_limits(site, w, unit, bs, e)
     return e
+
+
+def unbraced_at(walls: Walls, wind: Wind, f: Factors) -> np.ndarray:
+    """The largest utilization, less 1, of each wall standing on its own."""
+    return governing_utilization(stability_checks(walls, wind, f)) - 1.0
+
+
+def fresh_mortar_limits(site: Site, w: Walls, unit: Wind, bs: braced.BraceSet | None,
+                        e: Evaluation) -> tuple[np.ndarray, np.ndarray]:
+    """Working limit and stand-down gust of each masonry wall with fresh mortar (by weight
+    only, no bond: TMS 402-16 §8.2, from memory), braced or on its own; NaN for other walls.
+
+    A wall checked with fresh mortar keeps its own values; one checked with cured mortar that
+    has a lift day is checked again as fresh, for the days after its lift while the mortar is
+    younger than the cure rule (the day-by-day schedule)."""
+    limit = e.limit.copy()
+    stand_down = e.stand_down.copy()
+    if bs is not None:
+        limit[bs.index], stand_down[bs.index] = e.braced_limit, e.braced_stand_down
+    limit, stand_down = (np.where(w.masonry, v, np.nan) for v in (limit, stand_down))
+    scheduled = np.array([p.lift_day is not None for p in site.panels], dtype=bool)
+    again = w.masonry & ~w.fresh & scheduled
+    if not again.any():
+        return limit, stand_down
+    fresh = replace(w, fresh=w.fresh | again, flex_tension=np.where(again, 0.0, w.flex_tension))
+    has_braces = np.zeros(len(again), bool)
+    if bs is not None:
+        has_braces[bs.index] = True
+    alone = np.flatnonzero(again & ~has_braces)
+    if len(alone):
+        limit[alone] = solve_speed(lambda v2, rows: unbraced_at(
+            take(fresh, alone[rows]), take(unit, alone[rows]).scaled(v2), SERVICE), len(alone))
+        stand_down[alone] = stand_down_speeds(site, take(fresh, alone), limit[alone])
+    if bs is not None and again[bs.index].any():
+        sub = braced.take(bs, np.flatnonzero(again[bs.index]))
+        limit[sub.index] = braced_limit(fresh, unit, sub)
+        stand_down[sub.index] = stand_down_speeds(site, take(fresh, sub.index), limit[sub.index])
+    return limit, stand_down
 
 
 def braced_utilization(w: Walls, unit: Wind, bs: braced.BraceSet):
@@ -700,7 +738,7 @@ class _Results:
             wind.cf_interior.tolist(), e.utilization.tolist(), e.limit.tolist(),
             e.stand_down.tolist(), e.max_height.tolist(), e.max_at_limit.tolist(),
             np.select([w.rigid, w.masonry & ~w.fresh, w.masonry], ["rigid", "masonry", "fresh"],
-                      "strip").tolist()))
+                      "strip").tolist(), e.fresh_limit.tolist(), e.fresh_stand_down.tolist()))
         self.wind_common = {
             "basic_speed_mph": site.site.basic_wind_speed,
             "period_factor_from": "set" if site.site.period_factor else "standing time",
@@ -726,7 +764,7 @@ class _Results:
         site, p = self.site, self.panels[i]
         (weight, period_factor, design_speed, kz, q, cf, opening, force, lever, solidity,
          minimum, cf_end, cf_interior, utilization, own_limit, own_stand_down, max_height,
-         max_at_limit, kind) = self.row[i]
+         max_at_limit, kind, fresh_limit, fresh_stand_down) = self.row[i]
         mat = site.materials[p.material]
         flags = self._wall_flags(p, mat, utilization, solidity, kind)
         stands = utilization <= 1.0 and not any(f.code == "masonry-over-8ft" for f in flags)
@@ -769,7 +807,12 @@ class _Results:
             checks=checks, flags=flags, working_limit_speed_mph=limit,
             stand_down_speed_mph=stand_down,
             governing_element=f"{element} ({regions[kind]})",
-            braces=details, sustained_equivalents_mph=gusts.sustained_equivalents(stand_down))
+            braces=details, sustained_equivalents_mph=gusts.sustained_equivalents(stand_down),
+            fresh_working_limit_speed_mph=_or_none(fresh_limit),
+            fresh_stand_down_speed_mph=_or_none(fresh_stand_down),
+            fresh_sustained_equivalents_mph=(
+                {} if math.isnan(fresh_stand_down)
+                else gusts.sustained_equivalents(fresh_stand_down)))
 
     def _capped(self, mat, height: float) -> float | None:
         """The tallest a wall may stand unbraced: masonry no taller than OSHA 1926.706(b)

@@ -124,6 +124,19 @@ class PanelResult:
     governing_element: str
     braces: dict | None = None
     sustained_equivalents_mph: dict = field(default_factory=dict)
+    # masonry: its speeds with fresh mortar, which the days use until the mortar has cured
+    fresh_working_limit_speed_mph: float | None = None
+    fresh_stand_down_speed_mph: float | None = None
+    fresh_sustained_equivalents_mph: dict = field(default_factory=dict)
+
+    def speeds_on(self, fresh: bool) -> tuple[float, float, dict]:
+        """(stand-down, working limit, sustained equivalents of the stand-down) as they apply
+        on a day: with fresh mortar if `fresh` (a masonry wall in its first days)."""
+        if fresh and self.fresh_stand_down_speed_mph is not None:
+            return (self.fresh_stand_down_speed_mph, self.fresh_working_limit_speed_mph,
+                    self.fresh_sustained_equivalents_mph)
+        return (self.stand_down_speed_mph, self.working_limit_speed_mph,
+                self.sustained_equivalents_mph)
 
     @property
     def utilization(self) -> float:
@@ -157,6 +170,7 @@ class DayResult:
     reason: str
     short: dict[str, dict[str, int]] = field(default_factory=dict)  # {"braces": {type: n}, ...}
     flags: list[Flag] = field(default_factory=list)
+    fresh_mortar: list[str] = field(default_factory=list)  # masonry standing with fresh mortar
 
 
 @dataclass(slots=True)

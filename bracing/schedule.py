@@ -346,8 +346,11 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
     brace, wall_anchor, foot_anchor, count = _gear(site, walls.index, results)
     use = (walls.lift, release, np.array(count, int), last)
     braces, anchors = _in_use([brace], *use), _in_use([wall_anchor, foot_anchor], *use)
-    stand_down = np.array([r.stand_down_speed_mph for r in results], float)
-    limit = np.array([r.working_limit_speed_mph for r in results], float)
+    fresh = _fresh_mortar(site, walls, results, day)                      # (days, walls)
+    stand_down = np.where(fresh, _speeds(results, "fresh_stand_down_speed_mph"),
+                          _speeds(results, "stand_down_speed_mph"))
+    limit = np.where(fresh, _speeds(results, "fresh_working_limit_speed_mph"),
+                     _speeds(results, "working_limit_speed_mph"))
     slips = _period_slips(walls, results, release, last)
     on_day: dict[int, list[Flag]] = {}
     for d, f in zip(walls.flag_day.tolist(), walls.flags):
@@ -360,7 +363,6 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
     failing_flags = np.array(_status_flags(marks[failing].tolist(), status[failing].tolist()),
                              dtype=object)
     known = np.isfinite(stand_down)
-    unknown = np.flatnonzero(~known)
     # each day over the walls standing: the lowest stand-down speed (the first such wall) and
     # the lowest working limit (inf: none known)
     up_known = standing & known
@@ -379,22 +381,50 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
                  "anchors": _short(use_a, site.anchor_types)}
         flags = on_day.get(d, []) + [f for _, f in slips.get(d, [])]
         flags += _short_flags(short) + failing_flags[up[failing]].tolist()
+        young = np.flatnonzero(up & fresh[n])
+        if len(young):
+            flags.append(_fresh_flag(site, marks[young].tolist()))
         gov = int(governing[n]) if governed[n] else None
         fc = forecast.get(d)
         go, reason = _go(site, bool(anyone[n]), None if gov is None else results[gov],
-                         marks[unknown[up[unknown]]].tolist(), fc)
+                         gov is not None and bool(fresh[n, gov]),
+                         marks[up & ~known[n]].tolist(), fc)
         days.append(DayResult(
             day=d, date=date_of(site, d),
             lifts=lifted.get(d, []), standing=marks[up].tolist(),
             braces_in_use=use_b, anchors_in_use=use_a, released=released.get(d, []),
-            stand_down_speed_mph=None if gov is None else float(stand_down[gov]),
+            stand_down_speed_mph=None if gov is None else float(stand_down[n, gov]),
             working_limit_speed_mph=None if least_limit[n] == math.inf else least_limit[n],
             governing_wall=None if gov is None else marks[gov],
             forecast_gust_mph=fc.gust_mph if fc else None, storm=bool(fc and fc.storm),
-            go=go, reason=reason, short=short, flags=flags))
+            go=go, reason=reason, short=short, flags=flags,
+            fresh_mortar=marks[young].tolist()))
     peak = {"braces": {t: int(c) for t, c in zip(braces[0], braces[1].max(axis=0))},
             "anchors": {t: int(c) for t, c in zip(anchors[0], anchors[1].max(axis=0))}}
     return days, peak, slips
+
+
+def _speeds(results: list[PanelResult], name: str) -> np.ndarray:
+    """One speed of every wall (NaN where it has none)."""
+    return np.array([getattr(r, name) for r in results], dtype=float)
+
+
+def _fresh_mortar(site: Site, walls: _Walls, results: list[PanelResult], day: np.ndarray
+                  ) -> np.ndarray:
+    """(days, walls): the masonry walls whose mortar is fresh on each day, counted from their
+    lift day against the cure rule (none when the rule is off)."""
+    cure = site.rule_value("masonry_cure_days")
+    if cure is None:
+        return np.zeros((len(day), len(walls.lift)), bool)
+    masonry = np.array([r.material == "masonry" for r in results], dtype=bool)
+    return masonry & (day - walls.lift < cure)
+
+
+def _fresh_flag(site: Site, marks: list[str]) -> Flag:
+    cure = site.rule("masonry_cure_days")
+    return Flag("fresh-mortar-standing", "notice", f"{', '.join(marks)}: mortar younger than "
+                f"{cure.value:g} days (from the lift day): their speeds with fresh mortar apply",
+                cure.source)
 
 
 def _by_day(marks: np.ndarray, day: np.ndarray) -> dict[int, list[str]]:
@@ -502,25 +532,27 @@ def _checked(wind, band_weeks: float, planned_weeks: float, planned_from: str) -
             f"from {planned_from}, factor {wind.period_factor:.2f})")
 
 
-def stand_down_rule(site: Site, panel: PanelResult) -> str:
-    """Which site rule set a wall's stand-down speed, with its value and source."""
+def stand_down_rule(site: Site, panel: PanelResult, fresh: bool = False) -> str:
+    """Which site rule set a wall's stand-down speed (with fresh mortar, if `fresh`), with its
+    value and source."""
+    stand_down, limit, _ = panel.speeds_on(fresh)
+    mortar = "fresh mortar: " if fresh else ""
     ratio = site.rule_value("stand_down_ratio") or 1.0
-    if math.isclose(panel.stand_down_speed_mph, ratio * panel.working_limit_speed_mph,
-                    rel_tol=1e-6):
+    if math.isclose(stand_down, ratio * limit, rel_tol=1e-6):
         r = site.rule("stand_down_ratio")
-        return (f"{r.value:g} x working limit {panel.working_limit_speed_mph:.0f} mph; rule "
+        return (f"{mortar}{r.value:g} x working limit {limit:.0f} mph; rule "
                 f"stand_down_ratio: {r.source}")
     for name in ("masonry_initial_speed_mph", "masonry_intermediate_speed_mph"):
         value = site.rule_value(name)
-        if value is not None and math.isclose(panel.stand_down_speed_mph, value, rel_tol=1e-6):
-            return f"rule {name} {value:g} mph: {site.rule(name).source}"
+        if value is not None and math.isclose(stand_down, value, rel_tol=1e-6):
+            return f"{mortar}rule {name} {value:g} mph: {site.rule(name).source}"
     return "engine"
 
 
-def _go(site: Site, anyone: bool, gov: PanelResult | None, unknown: list[str],
+def _go(site: Site, anyone: bool, gov: PanelResult | None, fresh: bool, unknown: list[str],
         fc: ForecastDay | None) -> tuple[bool | None, str]:
     """The day's go / no-go and its reason (see the module); `anyone`: a wall stands, `gov`: the
-    one with the lowest stand-down speed."""
+    one with the lowest stand-down speed that day (`fresh`: its mortar is fresh that day)."""
     if not anyone:
         return None, "no walls standing"
     if fc is None:
@@ -530,8 +562,9 @@ def _go(site: Site, anyone: bool, gov: PanelResult | None, unknown: list[str],
     if unknown:
         return False, (f"no stand-down speed is known for {', '.join(unknown)} (a brace or "
                        "anchor capacity is unknown)")
-    compare = (f"forecast gust {fc.gust_mph:.0f} mph {{}} stand-down "
-               f"{gov.stand_down_speed_mph:.0f} mph of {gov.mark} ({stand_down_rule(site, gov)})")
-    if fc.gust_mph < gov.stand_down_speed_mph:
+    stand_down = gov.speeds_on(fresh)[0]
+    compare = (f"forecast gust {fc.gust_mph:.0f} mph {{}} stand-down {stand_down:.0f} mph of "
+               f"{gov.mark} ({stand_down_rule(site, gov, fresh)})")
+    if fc.gust_mph < stand_down:
         return True, compare.format("<")
     return False, compare.format(">=") + ": no lifts, clear the fall zones"

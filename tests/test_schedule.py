@@ -461,3 +461,57 @@ def test_inventory_is_the_count_of_walls_in_use(evaluated, lifts, signs, event):
         assert d.anchors_in_use.get("ins", 0) == in_use == d.anchors_in_use.get("helix", 0)
     assert peak["braces"].get("b1", 0) == max((d.braces_in_use.get("b1", 0) for d in days),
                                               default=0)
+
+
+MASONRY_TOML = """\
+version = 1
+[site]
+name = "Block wall"
+basic_wind_speed = 115
+[materials.cmu]
+kind = "masonry"
+face_weight = 80
+grouting = "solid"
+[[events]]
+name = "roof"
+day = 40
+[[signoffs]]
+panel = "M"
+day = 40
+by = "EOR"
+[[panels]]
+mark = "M"
+material = "cmu"
+width = 12
+height = 6
+thickness = 7.625
+mortar_age = 60
+lift_day = 3
+release_after = ["roof"]
+"""
+
+
+def test_masonry_days_use_its_fresh_mortar_speeds_until_the_mortar_has_cured():
+    """Checked with cured mortar (60 days), but laid on day 3: on days 3 to 30 its mortar is
+    younger than the 28-day cure rule (a site rule, default), so the days take its speeds with
+    fresh mortar, weight only (TMS 402-16 §8.2, from memory); from day 31 its own."""
+    site = parse(MASONRY_TOML).site
+    result = evaluate(site)
+    wall = result.panel("M")
+    assert wall.fresh_stand_down_speed_mph < wall.stand_down_speed_mph
+    assert wall.fresh_stand_down_speed_mph <= 20.0  # masonry_initial_speed_mph (secondary)
+    by_day = {d.day: d for d in result.days}
+    for day in (3, 30):
+        assert by_day[day].stand_down_speed_mph == pytest.approx(wall.fresh_stand_down_speed_mph)
+        assert by_day[day].working_limit_speed_mph == pytest.approx(
+            wall.fresh_working_limit_speed_mph)
+        assert any(f.code == "fresh-mortar-standing" for f in by_day[day].flags)
+    for day in (31, 39):
+        assert by_day[day].stand_down_speed_mph == pytest.approx(wall.stand_down_speed_mph)
+        assert not any(f.code == "fresh-mortar-standing" for f in by_day[day].flags)
+
+
+def test_fresh_mortar_speeds_are_only_for_masonry(tiny):
+    _, result, _ = tiny
+    for p in result.panels:
+        assert (p.fresh_stand_down_speed_mph is None) == (p.material != "masonry")

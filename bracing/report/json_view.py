@@ -23,6 +23,8 @@ def panel_record(p: PanelResult, basis: str, caution: str) -> dict:
         "working_limit_speed_mph": p.working_limit_speed_mph,
         "stand_down_speed_mph": p.stand_down_speed_mph,
         "sustained_equivalents_of_stand_down_mph": p.sustained_equivalents_mph,
+        "fresh_mortar_working_limit_speed_mph": p.fresh_working_limit_speed_mph,
+        "fresh_mortar_stand_down_speed_mph": p.fresh_stand_down_speed_mph,
         "governing_element": p.governing_element,
         "governing_utilization": p.utilization,
         "checks": [c.as_dict() for c in p.worst_first()],

@@ -194,7 +194,7 @@ def _sustained(result: SiteResult, d: DayResult, units: str) -> str:
     """The sustained-wind equivalents of the day's stand-down gust (its governing wall's)."""
     if d.governing_wall is None:
         return ""
-    eq = result.panel(d.governing_wall).sustained_equivalents_mph
+    eq = result.panel(d.governing_wall).speeds_on(d.governing_wall in d.fresh_mortar)[2]
     return ", ".join(f"{name} mean {_speed(eq[name], units)}" for name in ("1-min", "2-min",
                                                                           "10-min") if name in eq)
 
@@ -221,12 +221,13 @@ def _row(site: Site, p: PanelResult, bracing, d: DayResult, zone: tuple, units: 
     front, back, _ = zone
     today = "lifted today" if p.mark in d.lifts else ""
     today = "released today" if p.mark in d.released else today
+    stand_down, _, sustained = p.speeds_on(p.mark in d.fresh_mortar)  # fresh mortar today?
     row = Row(p.mark, p.status, STATUS_SYMBOL[p.status], STATUS_WORD[p.status], today,
-              braced=bool(p.braces), stand_down=_speed(p.stand_down_speed_mph, units),
-              sustained=_speed(p.sustained_equivalents_mph.get("1-min"), units),
+              braced=bool(p.braces), stand_down=_speed(stand_down, units),
+              sustained=_speed(sustained.get("1-min"), units),
               zone_front=fmt(front, "ft", units, 1), zone_back=fmt(back, "ft", units, 1))
-    row.numbers = {"stand_down": _number(p.stand_down_speed_mph, "mph", units),
-                   "sustained": _number(p.sustained_equivalents_mph.get("1-min"), "mph", units),
+    row.numbers = {"stand_down": _number(stand_down, "mph", units),
+                   "sustained": _number(sustained.get("1-min"), "mph", units),
                    "zone_front": _number(front, "ft", units, 1),
                    "zone_back": _number(back, "ft", units, 1)}
     if not p.braces:

@@ -53,6 +53,11 @@ def panel_text(p: PanelResult, system: str = "us") -> list[str]:
         f"  unbraced: utilization {u.utilization:.2f}; tallest unbraced at design wind "
         f"{fmt(u.max_height_ft, 'ft', system, 1)}",
     ]
+    if p.fresh_stand_down_speed_mph is not None and (
+            p.fresh_stand_down_speed_mph != p.stand_down_speed_mph):
+        lines.append(f"  with fresh mortar (its first days): stand-down gust "
+                     f"{fmt(p.fresh_stand_down_speed_mph, 'mph', system)}, working limit "
+                     f"{fmt(p.fresh_working_limit_speed_mph, 'mph', system)}")
     if p.braces:
         lines += brace_lines(p.braces, system)
     for f in p.flags_worst_first():
