@@ -753,6 +753,7 @@ class _Results:
             self.braced = _check_set(e.braced_checks, braced.CHECKS, combos)
             self.brace_row = {int(i): r for r, i in enumerate(bs.index)}
             self.records = braced.braced_records(bs, e.brace_forces)
+            self.notes = brace_notes(site, w, e).tolist()
             self.brace_row_values = {
                 "limit": e.braced_limit.tolist(), "stand_down": e.braced_stand_down.tolist(),
                 "missing": e.braced_limit_missing.tolist(), "angle": bs.angle.tolist(),
@@ -897,7 +898,7 @@ class _Results:
         """Flags of a braced wall: failing elements (`checks` may hold only those that could
         fail), rules of practice, robustness (§6), with those of its brace and anchor types."""
         b, rule, source = p.bracing, self.rule, self.source
-        values = self.brace_row_values
+        values, notes = self.brace_row_values, self.notes[r]
         flags = []
         for c in checks:
             if not c.passes:
@@ -910,50 +911,86 @@ class _Results:
         if any(c.element == "base uplift" and not c.passes for c in checks):
             flags.append(Flag("braces-lift-wall", "danger", "the braces in compression lift "
                               "the wall off its base", "statics, design.md §6"))
-        least = rule["minimum_braces_per_panel"]
-        if least and b.count < least:
+        if notes & TOO_FEW:
             flags.append(Flag("too-few-braces", "danger", f"{b.count} brace(s); at least "
-                              f"{least:g} per wall", source["minimum_braces_per_panel"]))
-        lo, hi = rule["brace_angle_min_deg"], rule["brace_angle_max_deg"]
-        angle = values["angle"][r]
-        if lo and hi and not lo - 1e-9 <= angle <= hi + 1e-9:
-            flags.append(Flag("brace-angle", "warning", f"brace angle {angle:.0f} deg is outside "
-                              f"{lo:g} to {hi:g} deg", source["brace_angle_min_deg"]))
-        ratio = rule["insert_min_height_ratio"]
-        if ratio and b.insert_height < ratio * p.height - 1e-9:
+                              f"{rule['minimum_braces_per_panel']:g} per wall",
+                              source["minimum_braces_per_panel"]))
+        if notes & ANGLE_OUTSIDE:
+            flags.append(Flag("brace-angle", "warning", f"brace angle {values['angle'][r]:.0f} "
+                              f"deg is outside {rule['brace_angle_min_deg']:g} to "
+                              f"{rule['brace_angle_max_deg']:g} deg",
+                              source["brace_angle_min_deg"]))
+        if notes & LOW_INSERT:
             flags.append(Flag("low-insert", "notice", f"insert at {b.insert_height / p.height:.0%}"
-                              f" of the height, below {ratio:.0%}",
+                              f" of the height, below {rule['insert_min_height_ratio']:.0%}",
                               source["insert_min_height_ratio"]))
-        if b.count >= 3 and not b.pretensioned:
+        if notes & UNEQUAL_SHARING:
             flags.append(Flag("unequal-sharing", "notice", "3 or more braces share unevenly "
                               "through slop unless pre-tensioned", "common practice"))
-        if b.count == 2:
+        if notes & TWO_BRACES:
             flags.append(Flag("no-margin", "warning", "if one of its two braces is struck, "
                               "nothing but friction at the base holds the wall against twist "
                               "(none is credited): keep equipment clear of the braces",
                               "design.md §6 robustness"))
-        elif b.count > 2 and not math.isnan(missing) and missing < stand_down:
+        elif notes & STRUCK_BELOW_STAND_DOWN:
             flags.append(Flag("no-margin", "warning", f"with one brace struck, the wall's limit "
                               f"falls to {missing:.0f} mph, below the stand-down gust "
                               f"{stand_down:.0f} mph", "design.md §6 robustness (team rule)"))
-        slender, limit_ratio = values["slenderness"][r], values["slenderness_limit"][r]
-        if slender > limit_ratio:
-            flags.append(Flag("slender-brace", "danger", f"brace slenderness {slender:.0f} "
-                              f"exceeds {limit_ratio:.0f}: add lateral struts or a knee brace",
-                              "AISC 360-16 §E2 user note / NDS 2018 §3.7.1.4"))
+        if notes & SLENDER:
+            flags.append(Flag("slender-brace", "danger", f"brace slenderness "
+                              f"{values['slenderness'][r]:.0f} exceeds "
+                              f"{values['slenderness_limit'][r]:.0f}: add lateral struts or a "
+                              "knee brace", "AISC 360-16 §E2 user note / NDS 2018 §3.7.1.4"))
         flags += brace_flags
-        bt = self.site.brace_types[b.brace_type]
-        length = values["length"][r]
-        if bt.kind == "rated" and not bt.lengths[0] <= length <= bt.lengths[-1]:
-            flags.append(Flag("outside-rated-range", "danger", f"brace length {length:.1f} ft "
-                              f"is outside the rated table ({bt.lengths[0]:g} to "
-                              f"{bt.lengths[-1]:g} ft): no rating", "maker's rated table"))
+        if notes & OUTSIDE_RATED:
+            bt = self.site.brace_types[b.brace_type]
+            flags.append(Flag("outside-rated-range", "danger", f"brace length "
+                              f"{values['length'][r]:.1f} ft is outside the rated table "
+                              f"({bt.lengths[0]:g} to {bt.lengths[-1]:g} ft): no rating",
+                              "maker's rated table"))
         flags += anchor_flags
         if math.isnan(limit):
             flags.append(Flag("capacity-unknown", "warning", "a brace or anchor capacity is "
                               "unknown (outside its rated range?): no working-limit speed",
                               "design.md §3"))
         return flags
+
+
+# What a braced wall's flags need, worked out for every braced wall at once (`brace_notes`).
+TOO_FEW, ANGLE_OUTSIDE, LOW_INSERT, UNEQUAL_SHARING, TWO_BRACES, STRUCK_BELOW_STAND_DOWN, \
+    SLENDER, OUTSIDE_RATED = (1 << k for k in range(8))
+
+
+def brace_notes(site: Site, w: Walls, e: Evaluation) -> np.ndarray:
+    """Per braced wall, the rules of practice and robustness notes it meets, as bits."""
+    bs = e.braces
+    count = bs.mask.sum(axis=1)
+    notes = np.zeros(len(bs.index), dtype=np.int64)
+
+    def note(bit, where):
+        np.bitwise_or(notes, np.where(where, bit, 0), out=notes)
+    least = site.rule_value("minimum_braces_per_panel")
+    if least:
+        note(TOO_FEW, count < least)
+    lo, hi = site.rule_value("brace_angle_min_deg"), site.rule_value("brace_angle_max_deg")
+    if lo and hi:
+        note(ANGLE_OUTSIDE, ~((lo - 1e-9 <= bs.angle) & (bs.angle <= hi + 1e-9)))
+    ratio = site.rule_value("insert_min_height_ratio")
+    if ratio:
+        note(LOW_INSERT, bs.insert < ratio * w.height[bs.index] - 1e-9)
+    note(UNEQUAL_SHARING, (count >= 3) & ~bs.pretensioned)
+    note(TWO_BRACES, count == 2)
+    missing = e.braced_limit_missing
+    with np.errstate(invalid="ignore"):
+        note(STRUCK_BELOW_STAND_DOWN, (count > 2) & ~np.isnan(missing)
+             & (missing < e.braced_stand_down))
+        note(SLENDER, bs.slenderness > bs.slenderness_limit)
+    table = [site.brace_types[site.panels[i].bracing.brace_type] for i in bs.index.tolist()]
+    rated = np.array([t.kind == "rated" for t in table], dtype=bool)
+    shortest = np.array([t.lengths[0] if t.kind == "rated" else np.nan for t in table])
+    longest = np.array([t.lengths[-1] if t.kind == "rated" else np.nan for t in table])
+    note(OUTSIDE_RATED, rated & ~((shortest <= bs.length) & (bs.length <= longest)))
+    return notes
 
 
 # The sources of a wall's own checks by how it stands: a rigid panel, cured or fresh masonry,
