@@ -8,6 +8,7 @@ observed gust), so the working-limit speed is found by bisection like the unbrac
 from __future__ import annotations
 
 from dataclasses import dataclass, fields, replace
+from operator import attrgetter
 
 import numpy as np
 
@@ -84,12 +85,12 @@ def gather_braces(site, basis: str, edges: dict[str, float] | None = None) -> Br
     for r, b in enumerate(layouts):
         if b.positions:
             positions[r, :b.count] = b.positions
-    column = {name: np.array([getattr(b, name) for b in layouts]) for name in (
-        "insert_height", "insert_offset", "foot_offset", "base_below_slab", "lean", "slop",
-        "pretensioned", "brace_type", "wall_anchor", "foot_anchor")}
-    distance = np.array([np.nan if b.anchor_distance is None else b.anchor_distance
-                         for b in layouts])
-    angle = np.array([np.nan if b.angle is None else b.angle for b in layouts])
+    names = ("insert_height", "insert_offset", "foot_offset", "base_below_slab", "lean", "slop",
+             "pretensioned", "brace_type", "wall_anchor", "foot_anchor", "anchor_distance",
+             "angle")
+    read = attrgetter(*names)  # one call per layout reads every field
+    column = dict(zip(names, (np.array(values) for values in zip(*map(read, layouts)))))
+    distance, angle = (np.array(column.pop(k), dtype=float) for k in ("anchor_distance", "angle"))
     column["edge_distance"] = np.array([(edges or {}).get(site.panels[i].mark, np.inf)
                                         for i in rows])
     return brace_set(site, np.array(rows), positions, distance, angle, column, basis)
