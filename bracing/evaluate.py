@@ -11,6 +11,7 @@ import gc
 import math
 from contextlib import contextmanager
 from dataclasses import dataclass, replace
+from operator import attrgetter
 
 import numpy as np
 
@@ -106,42 +107,40 @@ def gather(site: Site) -> Walls:
     rows = []
     cure_days = site.rule_value("masonry_cure_days") or 0.0
     planned = lines.planned_weeks(site).tolist()
-    for p in site.panels:
-        mat = site.materials[p.material]
-        t_ft = p.thickness / 12.0
-        face = (p.face_weight or (p.unit_weight * t_ft if p.unit_weight else None)
+    kinds = {name: _material_columns(mat) for name, mat in site.materials.items()}
+    read = attrgetter("material", "thickness", "face_weight", "unit_weight", "openings", "width",
+                      "height", "opening_area", "mortar_age", "footing", "return_walls",
+                      "standing_time", "base_elevation")
+    base_mu, period = site.site.friction_coefficient, site.site.construction_period
+    for k, p in enumerate(site.panels):
+        (material, thickness, face_weight, unit_weight, openings, width, height, opening_area,
+         mortar_age, f, return_walls, standing_time, base_elevation) = read(p)
+        mat = site.materials[material]
+        concrete, masonry, framed, open_framing, tension, bedding = kinds[material]
+        t_ft = thickness / 12.0
+        face = (face_weight or (unit_weight * t_ft if unit_weight else None)
                 or mat.face_weight or mat.unit_weight * t_ft)
-        if p.openings:
-            opens = [(o.x, o.y, o.width, o.height) for o in p.openings]
-            solid, centroid = stability.rectangle_centroid(p.width, p.height, opens)
+        if openings:
+            opens = [(o.x, o.y, o.width, o.height) for o in openings]
+            solid, centroid = stability.rectangle_centroid(width, height, opens)
             _, centroid_x = stability.rectangle_centroid(
-                p.height, p.width, [(y, x, h, w) for x, y, w, h in opens])
+                height, width, [(y, x, h, w) for x, y, w, h in opens])
         else:
-            solid, centroid, centroid_x = p.width * p.height, p.height / 2.0, p.width / 2.0
-        solid -= p.opening_area or 0.0
-        solidity = solid / (p.width * p.height)
-        if mat.kind == "framed" and not mat.sheathed:
-            solidity = STUD_SOLIDITY
-        masonry = mat.kind == "masonry"
-        cured = masonry and p.mortar_age is not None and p.mortar_age >= cure_days
-        grouting = "hollow" if mat.grouting == "partly" else mat.grouting  # partly: conservative
-        tension = mat.flexural_tension
-        if tension is None and masonry:
-            tension = stability.FLEXURAL_TENSION_PSI[(grouting, mat.mortar)]
-        f = p.footing
-        returns = {r.end: r.length / p.height for r in p.return_walls}
-        weeks = p.standing_time or (None if math.isnan(planned[len(rows)]) else
-                                    planned[len(rows)]) or site.site.construction_period
+            solid, centroid, centroid_x = width * height, height / 2.0, width / 2.0
+        solid -= opening_area or 0.0
+        solidity = STUD_SOLIDITY if open_framing else solid / (width * height)
+        cured = masonry and mortar_age is not None and mortar_age >= cure_days
+        returns = {r.end: r.length / height for r in return_walls}
+        weeks = standing_time or (None if math.isnan(planned[k]) else planned[k]) or period
         rows.append((
-            p.height, p.width, t_ft, p.base_elevation, face, solidity, centroid / p.height,
-            centroid_x / p.width,
-            mat.kind == "concrete", masonry and not cured, masonry, mat.kind == "framed",
-            tension if cured else 0.0, p.thickness, "hollow" if grouting == "hollow" else "solid",
+            height, width, t_ft, base_elevation, face, solidity, centroid / height,
+            centroid_x / width, concrete, masonry and not cured, masonry, framed,
+            tension if cured else 0.0, thickness, bedding,
             returns.get("left", 0.0), returns.get("right", 0.0),
             f.width if f else np.nan, f.thickness if f else np.nan,
             (f.unit_weight * f.thickness + f.soil_unit_weight * f.soil_depth) if f else np.nan,
             f.allowable_bearing if f else np.nan, f.friction_coefficient if f else np.nan,
-            site.site.friction_coefficient, weeks,
+            base_mu, weeks,
         ))
     cols = [np.array(c) for c in zip(*rows)]
     # the arrays that formulas give at once for every wall
@@ -153,6 +152,19 @@ def gather(site: Site) -> Walls:
              else [np.full(len(rows), np.nan)] * 7)
     return Walls(*cols, *along, exposure=site.site.exposure,
                  kzt=site.site.topographic_factor, ke=float(asce7.ke(site.site.ground_elevation)))
+
+
+def _material_columns(mat) -> tuple:
+    """What a wall's columns take from its material: concrete, masonry, framed, open framing,
+    the masonry's flexural tension (psi) and how its units are bedded (TMS 402-16 §8.2)."""
+    masonry = mat.kind == "masonry"
+    grouting = "hollow" if mat.grouting == "partly" else mat.grouting  # partly: conservative
+    tension = mat.flexural_tension
+    if tension is None and masonry:
+        tension = stability.FLEXURAL_TENSION_PSI[(grouting, mat.mortar)]
+    return (mat.kind == "concrete", masonry, mat.kind == "framed",
+            mat.kind == "framed" and not mat.sheathed, tension,
+            "hollow" if grouting == "hollow" else "solid")
 
 
 @dataclass(frozen=True)
