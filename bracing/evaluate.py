@@ -506,9 +506,8 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     geometry = None
     if places:
         if days:
-            standing = {d.day: d.standing for d in days}
-            geometry = plan.DayPlans(site, standing)
-            by_day = plan.day_findings(found, standing)
+            geometry = plan.DayPlans(site, {d.day: d.standing for d in days})
+            by_day = plan.day_findings(found, days)
             for d in days:  # crossings and zone overlaps depend on the walls standing together
                 d.flags.extend(f for f in by_day[d.day] if f.code not in ANCHOR_FINDINGS)
         else:

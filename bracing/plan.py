@@ -803,11 +803,11 @@ class DayPlans(Mapping):
 
     def __init__(self, site: Site, standing_by_day: dict[int, list[str]]):
         self._site = site
-        self._standing = {d: frozenset(s) for d, s in standing_by_day.items()}
+        self._standing = standing_by_day
         self._drawn: dict[frozenset, PlanGeometry] = {}
 
     def __getitem__(self, day: int) -> PlanGeometry:
-        key = self._standing[day]
+        key = frozenset(self._standing[day])
         if key not in self._drawn:
             self._drawn[key] = plan_geometry(self._site, set(key))
         return replace(self._drawn[key], day=day)
@@ -828,16 +828,29 @@ def findings(site: Site, places: Places) -> list[PlanFinding]:
     return _findings(site, places, places.bracing(site))
 
 
-def day_findings(found: list[PlanFinding],
-                 standing_by_day: dict[int, list[str]]) -> dict[int, list[Flag]]:
+def day_findings(found: list[PlanFinding], days) -> dict[int, list[Flag]]:
     """Each day's plan findings, from one look at every placed wall (`findings`): a finding
-    holds on the days its wall and the walls it involves all stand; its message names the wall."""
-    named = [(f, Flag(f.flag.code, f.flag.severity, f"{f.mark}: {f.flag.message}",
-                      f.flag.source)) for f in found]
-    out = {}
-    for day, marks in standing_by_day.items():
-        up = set(marks)
-        out[day] = [flag for f, flag in named if f.mark in up and all(o in up for o in f.others)]
+    holds on the days its wall and the walls it involves all stand; its message names the wall.
+
+    `days` are the job's days in order (`DayResult`s): a wall stands from the day it is lifted
+    until the day it is released."""
+    out: dict[int, list[Flag]] = {d.day: [] for d in days}
+    if not found:
+        return out
+    first, end = {}, {}
+    for d in days:
+        first.update(dict.fromkeys(d.lifts, d.day))
+        end.update(dict.fromkeys(d.released, d.day))
+    last = days[-1].day + 1
+    for f in found:
+        walls = (f.mark, *f.others)
+        if not all(m in first for m in walls):
+            continue  # a wall that never stands
+        lo = max(first[m] for m in walls)
+        hi = min(end.get(m, last) for m in walls)
+        flag = Flag(f.flag.code, f.flag.severity, f"{f.mark}: {f.flag.message}", f.flag.source)
+        for day in range(lo, hi):
+            out[day].append(flag)
     return out
 
 
