@@ -11,6 +11,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 from itertools import chain
+from operator import attrgetter
 
 import numpy as np
 
@@ -86,18 +87,19 @@ def weeks_to_release(lift_day, event_day):
 def line_loads(site: Site) -> LineLoads | None:
     """The enveloped line loads of every panel (None when no panel stands on a line)."""
     n = len(site.panels)
-    on_line = np.array([p.line is not None and p.lift_day is not None for p in site.panels])
+    line, lift_day, *columns = zip(*map(attrgetter(
+        "line", "lift_day", "offset", "width", "height", "base_elevation"), site.panels))
+    on_line = np.array([a is not None and b is not None for a, b in zip(line, lift_day)])
     if not on_line.any():
         return None
-    groups = _standing_groups(site, on_line)
+    offset, width, height, base = (np.array(c, dtype=float) for c in columns)
+    groups = _standing_groups(site, on_line, line, offset, width)
     if groups is None:  # every wall on the lines is released on its lift day
         return LineLoads(**{k: np.full(n, np.nan) for k in LineLoads.__dataclass_fields__})
     member, lo, hi, ret_lo, ret_hi = groups
     member = member.astype(int)
-    start = np.array([p.offset for p in site.panels])[member]
-    width = np.array([p.width for p in site.panels])[member]
-    s = np.array([p.height for p in site.panels])[member]
-    top = s + np.array([p.base_elevation for p in site.panels])[member]
+    start, width, s = offset[member], width[member], height[member]
+    top = s + base[member]
     ret_lo, ret_hi = ret_lo / s, ret_hi / s
     b_over_s = (hi - lo) / s
     s_over_h = s / top
@@ -127,21 +129,21 @@ def line_loads(site: Site) -> LineLoads | None:
     return LineLoads(**out)
 
 
-def _standing_groups(site: Site, on_line: np.ndarray) -> tuple[np.ndarray, ...] | None:
+def _standing_groups(site: Site, on_line: np.ndarray, line: tuple, start: np.ndarray,
+                     width: np.ndarray) -> tuple[np.ndarray, ...] | None:
     """The groups each wall on a line stands in, day by day: (panel index, the group's extent
     lo and hi along the line, the return wall at its start and at its end, ft), in day order.
 
-    A wall in the same group as on its last standing day is loaded the same, so only changes
-    are listed (None when no wall on a line ever stands)."""
+    `line`, `start` and `width` are each panel's line, offset along it and width. A wall in the
+    same group as on its last standing day is loaded the same, so only changes are listed
+    (None when no wall on a line ever stands)."""
     lift, release = standing_days(site)
     gap = site.plan.joint_gap if site.plan else 1.0
     lines = {ln.name: ln for ln in site.lines}
     line_length = np.array([np.hypot(*np.subtract(ln.end, ln.start)) for ln in lines.values()])
-    start = np.array([p.offset for p in site.panels])
-    width = np.array([p.width for p in site.panels])
     names = list(lines)
     number = {name: k for k, name in enumerate(names)}
-    line_id = np.array([number[p.line] if on_line[i] else -1 for i, p in enumerate(site.panels)])
+    line_id = np.array([number[name] if on else -1 for name, on in zip(line, on_line.tolist())])
     order = np.lexsort((start, line_id))
     order = order[on_line[order]]  # walls on lines, by line then along it
     corners = _corners(lines)
