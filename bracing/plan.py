@@ -97,7 +97,7 @@ class PlanPanel:
     footprint: Coords
     face: tuple[Point, Point]
     braces: list[tuple[Point, Point]]  # (insert point on the face, foot point)
-    foot_kind: str  # 'slab', 'helical', 'deadman', 'stake', 'insert' or '' (none named)
+    foot_kind: str  # 'slab', 'helical', 'deadman', 'stake', 'insert', 'deck' or ''
     foot_anchor: str | None
     restricted_zone: Coords
     evacuated_zone: Coords
