@@ -341,14 +341,13 @@ def _ratio(demand, capacity):
         return np.where(capacity > 0, demand / capacity, np.where(demand > 0, np.inf, 0.0))
 
 
-def solve_increasing(g, lo: float, hi: float, size: int, start=None, start_value=None,
-                     iterations: int = 60, tolerance: float = ROOT_TOLERANCE) -> np.ndarray:
+def solve_increasing(g, lo: float, hi: float, size: int, start=None, iterations: int = 60,
+                     tolerance: float = ROOT_TOLERANCE) -> np.ndarray:
     """Root of an increasing g(x, rows) on [lo, hi] for many walls at once; NaN where none.
 
     `g(x, rows)` gives g of the walls `rows` (an index array) at their trial values `x`; each
     step asks only for the walls not yet settled. `start` (a value or one per wall) is tried
-    first (`start_value`: g there, when already known): it halves the bracket, and a start
-    near the root saves most of the steps. Illinois
+    first: it halves the bracket, and a start near the root saves most of the steps. Illinois
     regula falsi (a bracketing secant step that halves a stale end's weight), falling back to
     bisection where the step leaves the bracket: robust like bisection, fast like secant on
     these nearly linear utilizations.
@@ -360,7 +359,7 @@ def solve_increasing(g, lo: float, hi: float, size: int, start=None, start_value
     known_a, known_b = np.zeros(size, bool), np.zeros(size, bool)
     if start is not None:
         x0 = np.clip(np.broadcast_to(np.asarray(start, dtype=float), size), lo, hi)
-        g0 = g(x0, rows) if start_value is None else np.asarray(start_value, dtype=float)
+        g0 = g(x0, rows)
         known_a, known_b = g0 < 0.0, g0 >= 0.0  # NaN: neither; both ends are asked below
         a[known_a], fa[known_a] = x0[known_a], g0[known_a]
         b[known_b], fb[known_b] = x0[known_b], g0[known_b]
@@ -400,7 +399,7 @@ def solve_increasing(g, lo: float, hi: float, size: int, start=None, start_value
     return np.where(no_root, np.nan, root)
 
 
-def solve_speed(g, size: int, start_mph=TYPICAL_LIMIT_MPH, start_value=None) -> np.ndarray:
+def solve_speed(g, size: int, start_mph=TYPICAL_LIMIT_MPH) -> np.ndarray:
     """Gust speed (mph) at which an increasing g of the squared speed crosses 0, many walls at
     once (NaN where none in the bracket).
 
@@ -408,8 +407,7 @@ def solve_speed(g, size: int, start_mph=TYPICAL_LIMIT_MPH, start_value=None) -> 
     speed: the utilizations are then nearly linear and the secant steps settle in a few passes.
     """
     lo, hi = SPEED_BRACKET_MPH
-    return np.sqrt(solve_increasing(g, lo**2, hi**2, size, start=np.square(start_mph),
-                                    start_value=start_value))
+    return np.sqrt(solve_increasing(g, lo**2, hi**2, size, start=np.square(start_mph)))
 
 
 @dataclass
@@ -447,9 +445,9 @@ WALL_FINDINGS = ANCHOR_FINDINGS | {"brace-crosses-keep-clear", "zone-overlap",
 def paused_cycle_collector():
     """Python's cycle collector paused (and resumed if it ran): an evaluation builds many
     thousands of objects, none in reference cycles, and each collection would walk them all
-    again (a third of the time at 10,000 walls). On the way out they go straight to the oldest
-    generation, where a young collection would have moved them after walking them once more;
-    cycles among them are still found by the next full collection."""
+    again. On the way out they go straight to the oldest generation, where a young collection
+    would have moved them after walking them once more; cycles among them are still found by
+    the next full collection."""
     running = gc.isenabled()
     gc.disable()
     try:
