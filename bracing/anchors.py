@@ -62,6 +62,10 @@ DEAD_LOAD_FACTOR_RESISTING = {"ASD": 0.6, "LRFD": 0.9}  # ASCE 7-16 §2.4.1 / §
 
 
 def _dead_load_factor(basis):
+    """The factor on dead load that resists: by basis name, or given as a number (a load
+    combination's own factor, such as 0.6 for an observed gust)."""
+    if isinstance(basis, (int, float)):
+        return float(basis)
     if basis not in DEAD_LOAD_FACTOR_RESISTING:
         raise ValueError(f"basis must be 'ASD' or 'LRFD', not {basis!r}")
     return DEAD_LOAD_FACTOR_RESISTING[basis]

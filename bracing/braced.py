@@ -414,7 +414,7 @@ CHECKS = {
     "deadman overturning": ("lb·ft", "resisting", "statics about the block's toe, weight at "
                             "mid-length, ASCE 7-16 §2.4.1"),
     "deadman bearing": ("psf", "adding", "statics, linear pressure, against the "
-                            "allowable bearing (IBC Table 1806.2)"),
+                        "allowable bearing (IBC Table 1806.2)"),
     "base uplift": ("lb", "resisting", "statics: 0.6D - sum(P sin theta) >= 0"),
     "base kick-out": ("lb", "resisting", "friction, ACI 318-19 §22.9.4.2 (mu 0.6)"),
     "wall bending": ("lb·ft", "resisting", "TMS 402-16 §8.2 flexural tension, or weight above "
@@ -491,16 +491,19 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
                              p / np.maximum(foot_ratio, 1e-12))
     deadman = kind == "deadman"
     weight = np.where(deadman, bs.foot_tension, np.nan)
-    checks["deadman uplift"] = (np.where(deadman, up, na), f.dead_resists * weight)
-    checks["deadman sliding"] = (np.where(deadman, pull, na), bs.foot_mu * np.maximum(
-        f.dead_resists * weight - up, 0.0))
+    checks["deadman uplift"] = (np.where(deadman, up, na),
+                                anchors.deadman_uplift(weight, f.dead_resists))
+    # foot_mu is already the friction over its factor of safety
+    checks["deadman sliding"] = (np.where(deadman, pull, na), anchors.deadman_sliding(
+        weight, up, bs.foot_mu, basis=f.dead_resists))
     # Tipping about the block's toe: the pull at the pin's height and the uplift at its distance
     # from the toe against the factored weight at mid-length (statics, ASCE 7-16 §2.4.1).
     sized = deadman & ~np.isnan(bs.block_length)
     checks["deadman overturning"] = (
         np.where(sized, anchors.deadman_overturning_moment(pull, up, bs.pin_height,
                                                            bs.pin_from_toe), na),
-        np.where(sized, f.dead_resists * weight * bs.block_length / 2.0, na))
+        np.where(sized, anchors.deadman_resisting_moment(weight, bs.block_length / 2.0,
+                                                         f.dead_resists), na))
     # The soil under the block's more loaded edge (the toe, unless the uplift sits far back):
     # its weight (dead load adds) less the uplift, with the moment about its middle of the pull
     # at the pin's height and of the uplift off the middle (statics; linear pressure, no

@@ -579,7 +579,7 @@ def evaluate_arrays(site: Site, edges: dict[str, float] | None = None) -> Evalua
         e.braced_limit = braced_limit(w, unit, bs)
         e.braced_stand_down = stand_down_speeds(site, braced.take(w, bs.index), e.braced_limit)
         e.braced_limit_missing = braced_limit_one_missing(w, unit, bs, e.braced_limit)
-    e.fresh_limit, e.fresh_stand_down = fresh_mortar_limits(site, w, unit, bs, e)
+    e.fresh_limit, e.fresh_stand_down = fresh_mortar_limits(site, unit, e)
     return e
 
 
@@ -588,14 +588,14 @@ def unbraced_at(walls: Walls, wind: Wind, f: Factors) -> np.ndarray:
     return governing_utilization(stability_checks(walls, wind, f)) - 1.0
 
 
-def fresh_mortar_limits(site: Site, w: Walls, unit: Wind, bs: braced.BraceSet | None,
-                        e: Evaluation) -> tuple[np.ndarray, np.ndarray]:
+def fresh_mortar_limits(site: Site, unit: Wind, e: Evaluation) -> tuple[np.ndarray, np.ndarray]:
     """Working limit and stand-down gust of each masonry wall with fresh mortar (by weight
     only, no bond: TMS 402-16 §8.2, from memory), braced or on its own; NaN for other walls.
 
     A wall checked with fresh mortar keeps its own values; one checked with cured mortar that
     has a lift day is checked again as fresh, for the days after its lift while the mortar is
-    younger than the cure rule (the day-by-day schedule)."""
+    younger than the cure rule (the day-by-day schedule). `unit`: the wind of a 1 mph gust."""
+    w, bs = e.walls, e.braces
     limit = e.limit.copy()
     stand_down = e.stand_down.copy()
     if bs is not None:
@@ -762,7 +762,7 @@ class _Results:
             self.braced = _check_set(e.braced_checks, braced.CHECKS, combos)
             self.brace_row = {int(i): r for r, i in enumerate(bs.index)}
             self.records = braced.braced_records(bs, e.brace_forces)
-            self.notes = brace_notes(site, w, e).tolist()
+            self.notes = brace_notes(site, e).tolist()
             self.brace_row_values = {
                 "limit": e.braced_limit.tolist(), "stand_down": e.braced_stand_down.tolist(),
                 "missing": e.braced_limit_missing.tolist(), "angle": bs.angle.tolist(),
@@ -970,9 +970,9 @@ TOO_FEW, ANGLE_OUTSIDE, LOW_INSERT, UNEQUAL_SHARING, TWO_BRACES, STRUCK_BELOW_ST
     SLENDER, OUTSIDE_RATED = (1 << k for k in range(8))
 
 
-def brace_notes(site: Site, w: Walls, e: Evaluation) -> np.ndarray:
+def brace_notes(site: Site, e: Evaluation) -> np.ndarray:
     """Per braced wall, the rules of practice and robustness notes it meets, as bits."""
-    bs = e.braces
+    w, bs = e.walls, e.braces
     count = bs.mask.sum(axis=1)
     notes = np.zeros(len(bs.index), dtype=np.int64)
 
