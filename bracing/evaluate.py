@@ -347,23 +347,47 @@ def solve_increasing(g, lo: float, hi: float, size: int, start=None, iterations:
 
     `g(x, rows)` gives g of the walls `rows` (an index array) at their trial values `x`; each
     step asks only for the walls not yet settled. `start` (a value or one per wall) is tried
-    first: it halves the bracket, and a start near the root saves most of the steps. Illinois
-    regula falsi (a bracketing secant step that halves a stale end's weight), falling back to
-    bisection where the step leaves the bracket: robust like bisection, fast like secant on
-    these nearly linear utilizations.
+    first; then, while a wall's trials all fall on one side of its root, the value where its
+    utilization (g + 1) would reach 1 if it grew in proportion to x (exact for a wind moment
+    against a weight, in V^2), and the secant through its two trials (exact for any linear
+    utilization). The ends of [lo, hi] are asked only where all three fall on one side. Then
+    Illinois regula falsi (a bracketing secant step that halves a stale end's weight), falling
+    back to bisection where the step leaves the bracket: robust like bisection, fast like
+    secant on these nearly linear utilizations.
     """
     rows = np.arange(size)
     a = np.full(size, float(lo))
     b = np.full(size, float(hi))
-    fa, fb = np.empty(size), np.empty(size)
+    fa, fb = np.full(size, np.nan), np.full(size, np.nan)
     known_a, known_b = np.zeros(size, bool), np.zeros(size, bool)
+
+    def settled():
+        return (known_a & (np.abs(fa) < tolerance)) | (known_b & (np.abs(fb) < tolerance))
+
+    def trial(x, before=None):
+        """g at trial values x of the walls neither settled nor bracketed (NaN for others),
+        each trial narrowing its wall's bracket."""
+        x = np.clip(x, lo, hi)
+        open_ = ~settled() & ~(known_a & known_b) & ~np.isnan(x)
+        which = rows[open_ if before is None else open_ & (x != before)]
+        gx = np.full(size, np.nan)
+        if len(which):
+            gx[which] = found = g(x[which], which)
+            below, above = which[found < 0.0], which[found >= 0.0]  # NaN: neither
+            move_a = below[~known_a[below] | (x[below] > a[below])]
+            move_b = above[~known_b[above] | (x[above] < b[above])]
+            a[move_a], fa[move_a], known_a[below] = x[move_a], gx[move_a], True
+            b[move_b], fb[move_b], known_b[above] = x[move_b], gx[move_b], True
+        return x, gx
     if start is not None:
-        x0 = np.clip(np.broadcast_to(np.asarray(start, dtype=float), size), lo, hi)
-        g0 = g(x0, rows)
-        known_a, known_b = g0 < 0.0, g0 >= 0.0  # NaN: neither; both ends are asked below
-        a[known_a], fa[known_a] = x0[known_a], g0[known_a]
-        b[known_b], fb[known_b] = x0[known_b], g0[known_b]
-    for x, f, known in ((a, fa, known_a), (b, fb, known_b)):
+        x0, g0 = trial(np.broadcast_to(np.asarray(start, dtype=float), size))
+        with np.errstate(divide="ignore", invalid="ignore", over="ignore"):
+            x1, g1 = trial(x0 / (1.0 + g0), x0)  # utilization in proportion to x
+            trial(x1 - g1 * (x1 - x0) / (g1 - g0), x1)  # the secant through both
+    # a trial at g = 0 settles its wall: the other end is not asked
+    done = settled()
+    fa[done & ~known_a], fb[done & ~known_b] = -np.inf, np.inf
+    for x, f, known in ((a, fa, known_a | done), (b, fb, known_b | done)):
         need = rows[~known]
         if len(need):
             f[need] = g(x[need], need)
@@ -378,6 +402,9 @@ def solve_increasing(g, lo: float, hi: float, size: int, start=None, iterations:
         ai, bi, fai, fbi = a[active], b[active], fa[active], fb[active]
         with np.errstate(divide="ignore", invalid="ignore"):
             x = (ai * fbi - bi * fai) / (fbi - fai)
+            la, lb, ua, ub = np.log(ai), np.log(bi), np.log1p(fai), np.log1p(fbi)
+            x_log = np.exp(la - ua * (lb - la) / (ub - ua))
+        x = np.where(np.isfinite(x_log) & (x_log > ai) & (x_log < bi), x_log, x)
         x = np.where(np.isfinite(x) & (x > ai) & (x < bi), x, 0.5 * (ai + bi))
         gx = g(x, active)
         below = gx < 0.0
