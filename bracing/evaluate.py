@@ -351,9 +351,10 @@ def solve_increasing(g, lo: float, hi: float, size: int, start=None, iterations:
     utilization (g + 1) would reach 1 if it grew in proportion to x (exact for a wind moment
     against a weight, in V^2), and the secant through its two trials (exact for any linear
     utilization). The ends of [lo, hi] are asked only where all three fall on one side. Then
-    Illinois regula falsi (a bracketing secant step that halves a stale end's weight), falling
-    back to bisection where the step leaves the bracket: robust like bisection, fast like
-    secant on these nearly linear utilizations.
+    Illinois regula falsi (a bracketing secant step that halves a stale end's weight), the
+    secant taken through log x and log utilization where both are positive (exact for a
+    utilization that grows as a power of x, as a wind moment does with height), falling back
+    to bisection where the step leaves the bracket: robust like bisection, fast like secant.
     """
     rows = np.arange(size)
     a = np.full(size, float(lo))
