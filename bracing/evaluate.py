@@ -804,12 +804,13 @@ class _Results:
         site, bs = self.site, e.braces
         bracings = [site.panels[i].bracing for i in bs.index.tolist()]
         ways: dict[tuple, int] = {}  # brace and foot anchor types: each pair's checks' sources
-        way = [ways.setdefault((b.brace_type, b.foot_anchor), len(ways)) for b in bracings]
+        way = np.array([ways.setdefault((b.brace_type, b.foot_anchor), len(ways))
+                        for b in bracings], dtype=np.int64)
         hardware = [self._hardware(pair) for pair in ways]
         self.braced = _check_set(e.braced_checks, braced.CHECKS, combos,
-                                 [("braced", sources) for sources, *_ in hardware], np.array(way))
-        self.hardware_flags = [hardware[k][1:] for k in way]
-        self.notes = brace_notes(site, e).tolist()
+                                 [("braced", sources) for sources, *_ in hardware], way)
+        self.hardware_flags = [hardware[k][1:] for k in way.tolist()]
+        self.notes = brace_notes(site, e, [site.brace_types[t] for t, _ in ways], way).tolist()
         self.missing = e.braced_limit_missing.tolist()
         self.brace_values = {
             "angle": bs.angle.tolist(), "length": bs.length.tolist(),
@@ -845,8 +846,7 @@ class _Results:
                 found = self.braced
                 status.append("braced" if found.strength_ok[row] else "unsafe")
                 braces.append(self.records[row])
-                own += self._braced_flags(p, row, found.checks[row] if found.any_over[row] else [],
-                                          limit, stand_down)
+                own += self._braced_flags(p, row, found.failing.get(row, ()), limit, stand_down)
             else:
                 found = self.unbraced
                 status.append("stands" if alone.stands else "needs_braces")
@@ -928,24 +928,22 @@ class _Results:
                                   brace_flags, anchor_flags)
         return self.hardware[key]
 
-    def _braced_flags(self, p, r: int, checks: list[Check], limit: float, stand_down: float
+    def _braced_flags(self, p, r: int, failing: list[Check], limit: float, stand_down: float
                       ) -> list[Flag]:
-        """Flags of a braced wall: failing elements (`checks` may hold only those that could
-        fail), rules of practice, robustness (§6), with those of its brace and anchor types."""
+        """Flags of a braced wall: its `failing` checks, rules of practice, robustness (§6),
+        with those of its brace and anchor types."""
         b, rule, source = p.bracing, self.rule, self.source
         values, notes, missing = self.brace_values, self.notes[r], self.missing[r]
         brace_flags, anchor_flags = self.hardware_flags[r]
         flags = []
         lifted = False
-        for c in checks:
-            if not c.passes:
-                serviceability = c.element in braced.SERVICEABILITY
-                flags.append(Flag(
-                    f"{c.element.replace(' ', '-')}-over",
-                    "warning" if serviceability else "danger",
-                    f"{c.element}: utilization {c.utilization:.2f}"
-                    + (" (the wall would crack)" if serviceability else ""), c.source))
-                lifted = lifted or c.element == "base uplift"
+        for c in failing:
+            serviceability = c.element in braced.SERVICEABILITY
+            flags.append(Flag(
+                f"{c.element.replace(' ', '-')}-over", "warning" if serviceability else "danger",
+                f"{c.element}: utilization {c.utilization:.2f}"
+                + (" (the wall would crack)" if serviceability else ""), c.source))
+            lifted = lifted or c.element == "base uplift"
         if lifted:
             flags.append(FIXED_FLAGS["braces-lift-wall"])
         if notes & TOO_FEW:
@@ -1036,8 +1034,9 @@ TOO_FEW, ANGLE_OUTSIDE, LOW_INSERT, UNEQUAL_SHARING, TWO_BRACES, STRUCK_BELOW_ST
     SLENDER, OUTSIDE_RATED = (1 << k for k in range(8))
 
 
-def brace_notes(site: Site, e: Evaluation) -> np.ndarray:
-    """Per braced wall, the rules of practice and robustness notes it meets, as bits."""
+def brace_notes(site: Site, e: Evaluation, types: list, way: np.ndarray) -> np.ndarray:
+    """Per braced wall, the rules of practice and robustness notes it meets, as bits
+    (`types[way]`: each wall's brace type)."""
     w, bs = e.walls, e.braces
     count = bs.mask.sum(axis=1)
     notes = np.zeros(len(bs.index), dtype=np.int64)
@@ -1057,10 +1056,9 @@ def brace_notes(site: Site, e: Evaluation) -> np.ndarray:
         _note(notes, STRUCK_BELOW_STAND_DOWN, (count > 2) & ~np.isnan(missing)
               & (missing < e.braced_stand_down))
         _note(notes, SLENDER, bs.slenderness > bs.slenderness_limit)
-    table = [site.brace_types[site.panels[i].bracing.brace_type] for i in bs.index.tolist()]
-    rated = np.array([t.kind == "rated" for t in table], dtype=bool)
-    shortest = np.array([t.lengths[0] if t.kind == "rated" else np.nan for t in table])
-    longest = np.array([t.lengths[-1] if t.kind == "rated" else np.nan for t in table])
+    rated = np.array([t.kind == "rated" for t in types], dtype=bool)[way]
+    shortest = np.array([t.lengths[0] if t.kind == "rated" else np.nan for t in types])[way]
+    longest = np.array([t.lengths[-1] if t.kind == "rated" else np.nan for t in types])[way]
     _note(notes, OUTSIDE_RATED, rated & ~((shortest <= bs.length) & (bs.length <= longest)))
     return notes
 
@@ -1092,7 +1090,7 @@ class _CheckSet:
     checks: list[list[Check]]             # each wall's checks that apply to it (demand known)
     governing: list[str]                  # the check of the largest strength utilization
     strength_ok: list[bool]               # every strength check passes
-    any_over: list[bool]                  # some check (serviceability too) is over 1.0
+    failing: dict[int, list[Check]]       # the checks over 1.0 (serviceability too), by wall
     brace_utilization: list[float | None]  # the largest of the brace's own checks
 
 
@@ -1123,13 +1121,18 @@ def _check_set(arrays: dict, info: dict, combos: dict, ways: list[tuple[str, dic
     made = list(map(Check, element, region, demand.T[applies].tolist(),
                     capacity.T[applies].tolist(), unit, combination, source))
     ends = np.cumsum(applies.sum(axis=1)).tolist()
+    # a wall with some check over 1.0: the checks that do not pass (Check.passes)
+    fails = np.flatnonzero((ratios.max(axis=0, initial=-np.inf) > 1.0)[wall]
+                           & ~(ratios.T[applies] <= 1.0))
+    failing: dict[int, list[Check]] = {}
+    for at, k in zip(wall[fails].tolist(), fails.tolist()):
+        failing.setdefault(at, []).append(made[k])
     governing = [f"{element} ({region})" for element, region, *_ in named]
     return _CheckSet([made[start:end] for start, end in zip([0, *ends], ends)],
                      [governing[k] for k in (way * len(arrays)
                                              + strength.argmax(axis=0)).tolist()],
                      (strength.max(axis=0, initial=-np.inf) <= 1.0).tolist(),
-                     (ratios.max(axis=0, initial=-np.inf) > 1.0).tolist(),
-                     [None if x == -math.inf else x for x in brace.tolist()])
+                     failing, [None if x == -math.inf else x for x in brace.tolist()])
 
 
 def _check_columns(arrays: dict, info: dict, combos: dict) -> list[tuple]:
