@@ -744,6 +744,10 @@ class _Results:
         self.source = {name: site.rule(name).source for name in self.rule}
         self.hardware: dict[tuple, tuple[dict, list[Flag], list[Flag]]] = {}
         w, wind, n = e.walls, e.wind, len(site.panels)
+        # each panel's fields, read in one pass (a large site's panels lie far apart in memory)
+        mark, material, height, width, thickness, opening_area, bracing = _fields(
+            site.panels, "mark", "material", "height", "width", "thickness", "opening_area",
+            "bracing")
         self.kind = np.select([w.rigid, w.masonry & ~w.fresh, w.masonry],
                               ["rigid", "masonry", "fresh"], "strip")
         # each wall's row in the checks of the walls on their own, or of the braced walls; a
@@ -756,7 +760,7 @@ class _Results:
             self.row[bs.index] = np.arange(len(bs.index))
             limit, stand_down = limit.copy(), stand_down.copy()
             limit[bs.index], stand_down[bs.index] = e.braced_limit, e.braced_stand_down
-            self._braced_walls(e, combos)
+            self._braced_walls(e, combos, [bracing[i] for i in bs.index.tolist()])
         alone = np.flatnonzero(~self.is_braced)
         self.row[alone] = np.arange(len(alone))
         kinds, way = np.unique(self.kind[alone], return_inverse=True)
@@ -764,11 +768,12 @@ class _Results:
             {name: (d[alone], c[alone]) for name, (d, c) in e.checks.items()}, CHECK_INFO,
             combos, [(k, UNBRACED_SOURCES[k]) for k in kinds.tolist()], way)
         over_height = self._over_height(w)
-        self.wall_notes = wall_notes(site, w, e.utilization, over_height, self.kind,
-                                     self.is_braced)
+        self.wall_notes = self._wall_notes(w, e.utilization, over_height, material, opening_area)
         fresh_stand_down = _or_none(e.fresh_stand_down)
-        # the fields of every wall's PanelResult that come straight from the arrays
+        # the fields of every wall's PanelResult that come straight from its panel or the arrays
         self.columns = {
+            "mark": mark, "material": [site.materials[m].kind for m in material],
+            "height_ft": height, "width_ft": width, "thickness_in": thickness,
             "weight_lb": (w.face_weight * w.height * w.width * w.solidity).tolist(),
             "wind": _each(
                 WindResult, n, basic_speed_mph=site.site.basic_wind_speed,
@@ -799,13 +804,15 @@ class _Results:
             "fresh_sustained_equivalents_mph": [{} if s is None else means for s, means in zip(
                 fresh_stand_down, gusts.sustained_equivalents_of_each(e.fresh_stand_down))]}
 
-    def _braced_walls(self, e: Evaluation, combos: dict):
-        """The checks, §8 records, notes and hardware of the braced walls, by row."""
+    def _braced_walls(self, e: Evaluation, combos: dict, bracings: list):
+        """The checks, §8 records, notes and hardware of the braced walls (`bracings`: their
+        panels' bracing), by row."""
         site, bs = self.site, e.braces
-        bracings = [site.panels[i].bracing for i in bs.index.tolist()]
+        brace_type, foot_anchor, wall_anchor = _fields(
+            bracings, "brace_type", "foot_anchor", "wall_anchor")
         ways: dict[tuple, int] = {}  # brace and foot anchor types: each pair's checks' sources
-        way = np.array([ways.setdefault((b.brace_type, b.foot_anchor), len(ways))
-                        for b in bracings], dtype=np.int64)
+        way = np.array([ways.setdefault(pair, len(ways)) for pair in zip(brace_type, foot_anchor)],
+                       dtype=np.int64)
         hardware = [self._hardware(pair) for pair in ways]
         self.braced = _check_set(e.braced_checks, braced.CHECKS, combos,
                                  [("braced", sources) for sources, *_ in hardware], way)
@@ -817,30 +824,23 @@ class _Results:
             "slenderness": bs.slenderness.tolist(),
             "slenderness_limit": bs.slenderness_limit.tolist()}
         self.records = braced.braced_records(bs, e.brace_forces)
-        for record, b, utilization, missing in zip(self.records, bracings,
-                                                   self.braced.brace_utilization, self.missing):
-            record.update(brace_type=b.brace_type, wall_anchor=b.wall_anchor,
-                          foot_anchor=b.foot_anchor, utilization=utilization,
+        for record, brace, wall, foot, utilization, missing in zip(
+                self.records, brace_type, wall_anchor, foot_anchor, self.braced.brace_utilization,
+                self.missing):
+            record.update(brace_type=brace, wall_anchor=wall, foot_anchor=foot,
+                          utilization=utilization,
                           working_limit_one_missing_mph=None if math.isnan(missing) else missing)
 
     def panels(self) -> list[PanelResult]:
         """The result object of every wall, in the site's order."""
-        materials = self.site.materials
         made = {name: [] for name in (
-            "mark", "material", "status", "height_ft", "width_ft", "thickness_in", "checks",
-            "flags", "governing_element", "braces")}
-        mark, material, status, height, width, thickness, checks, flags, governing, braces = \
-            made.values()
+            "status", "checks", "flags", "governing_element", "braces")}
+        status, checks, flags, governing, braces = made.values()
         c = self.columns
         for p, is_braced, row, notes, wind, alone, limit, stand_down in zip(
                 self.site.panels, self.is_braced.tolist(), self.row.tolist(),
                 self.wall_notes.tolist(), c["wind"], c["unbraced"], c["working_limit_speed_mph"],
                 c["stand_down_speed_mph"]):
-            mark.append(p.mark)
-            material.append(materials[p.material].kind)
-            height.append(p.height)
-            width.append(p.width)
-            thickness.append(p.thickness)
             own = self._wall_flags(p, notes, alone.utilization, wind.solidity) if notes else []
             if is_braced:
                 found = self.braced
@@ -854,7 +854,7 @@ class _Results:
             checks.append(found.checks[row])
             flags.append(own)
             governing.append(found.governing[row])
-        return _each(PanelResult, len(mark), **made, **c)
+        return _each(PanelResult, len(status), **made, **c)
 
     def _capped(self, w: Walls, height: np.ndarray) -> np.ndarray:
         """The tallest each wall may stand unbraced: masonry no taller than OSHA 1926.706(b)
@@ -867,8 +867,24 @@ class _Results:
         limit = self.rule["masonry_unbraced_height_ft"]
         return w.masonry & (w.height > limit) if limit is not None else np.zeros_like(w.masonry)
 
+    def _wall_notes(self, w: Walls, utilization: np.ndarray, over_height: np.ndarray,
+                    material: list[str], opening_area: list) -> np.ndarray:
+        """Per wall, what its own flags need, as bits; a braced wall's leave out how it would
+        stand alone (its bracing answers for that)."""
+        notes = np.zeros(len(material), dtype=np.int64)
+        _note(notes, FAILS_UNBRACED, (utilization > 1.0) & ~self.is_braced)
+        _note(notes, OVER_HEIGHT, over_height & ~self.is_braced)
+        _note(notes, MOSTLY_OPEN, 1.0 - w.solidity > 0.3)
+        _note(notes, OPENING_BY_AREA, np.array([bool(a) for a in opening_area], dtype=bool))
+        _note(notes, RAISED_BASE, w.base > 0)
+        _note(notes, FRESH_MORTAR, self.kind == "fresh")
+        unsheathed = {name: m.kind == "framed" and not m.sheathed
+                      for name, m in self.site.materials.items()}
+        _note(notes, OPEN_FRAMING, np.array([unsheathed[m] for m in material], dtype=bool))
+        return notes
+
     def _wall_flags(self, p, notes: int, utilization: float, solidity: float) -> list[Flag]:
-        """Flags of the wall standing on its own (`notes` as `wall_notes` gives them)."""
+        """Flags of the wall standing on its own (`notes` as `_wall_notes` gives them)."""
         flags: list[Flag] = []
         if notes & FAILS_UNBRACED:
             flags.append(Flag("fails-unbraced", "danger",
@@ -932,7 +948,7 @@ class _Results:
                       ) -> list[Flag]:
         """Flags of a braced wall: its `failing` checks, rules of practice, robustness (§6),
         with those of its brace and anchor types."""
-        b, rule, source = p.bracing, self.rule, self.source
+        rule, source = self.rule, self.source
         values, notes, missing = self.brace_values, self.notes[r], self.missing[r]
         brace_flags, anchor_flags = self.hardware_flags[r]
         flags = []
@@ -947,7 +963,7 @@ class _Results:
         if lifted:
             flags.append(FIXED_FLAGS["braces-lift-wall"])
         if notes & TOO_FEW:
-            flags.append(Flag("too-few-braces", "danger", f"{b.count} brace(s); at least "
+            flags.append(Flag("too-few-braces", "danger", f"{p.bracing.count} brace(s); at least "
                               f"{rule['minimum_braces_per_panel']:g} per wall",
                               source["minimum_braces_per_panel"]))
         if notes & ANGLE_OUTSIDE:
@@ -956,7 +972,8 @@ class _Results:
                               f"{rule['brace_angle_max_deg']:g} deg",
                               source["brace_angle_min_deg"]))
         if notes & LOW_INSERT:
-            flags.append(Flag("low-insert", "notice", f"insert at {b.insert_height / p.height:.0%}"
+            flags.append(Flag("low-insert", "notice", f"insert at "
+                              f"{p.bracing.insert_height / p.height:.0%}"
                               f" of the height, below {rule['insert_min_height_ratio']:.0%}",
                               source["insert_min_height_ratio"]))
         if notes & UNEQUAL_SHARING:
@@ -974,7 +991,7 @@ class _Results:
                               "knee brace", "AISC 360-16 §E2 user note / NDS 2018 §3.7.1.4"))
         flags += brace_flags
         if notes & OUTSIDE_RATED:
-            bt = self.site.brace_types[b.brace_type]
+            bt = self.site.brace_types[p.bracing.brace_type]
             flags.append(Flag("outside-rated-range", "danger", f"brace length "
                               f"{values['length'][r]:.1f} ft is outside the rated table "
                               f"({bt.lengths[0]:g} to {bt.lengths[-1]:g} ft): no rating",
@@ -1005,28 +1022,9 @@ FIXED_FLAGS = {f.code: f for f in (
          "rated range?): no working-limit speed", "design.md §3"),
 )}
 
-# What a wall's own flags need, worked out for every wall at once (`wall_notes`).
+# What a wall's own flags need, worked out for every wall at once (`_Results._wall_notes`).
 FAILS_UNBRACED, OVER_HEIGHT, MOSTLY_OPEN, OPENING_BY_AREA, RAISED_BASE, FRESH_MORTAR, \
     OPEN_FRAMING = (1 << k for k in range(7))
-
-
-def wall_notes(site: Site, w: Walls, utilization: np.ndarray, over_height: np.ndarray,
-               kind: np.ndarray, is_braced: np.ndarray) -> np.ndarray:
-    """Per wall, what its own flags need, as bits; a braced wall's leave out how it would
-    stand alone (its bracing answers for that)."""
-    notes = np.zeros(len(kind), dtype=np.int64)
-    _note(notes, FAILS_UNBRACED, (utilization > 1.0) & ~is_braced)
-    _note(notes, OVER_HEIGHT, over_height & ~is_braced)
-    _note(notes, MOSTLY_OPEN, 1.0 - w.solidity > 0.3)
-    _note(notes, OPENING_BY_AREA, np.array([bool(p.opening_area) for p in site.panels],
-                                           dtype=bool))
-    _note(notes, RAISED_BASE, w.base > 0)
-    _note(notes, FRESH_MORTAR, kind == "fresh")
-    unsheathed = {name: m.kind == "framed" and not m.sheathed
-                  for name, m in site.materials.items()}
-    _note(notes, OPEN_FRAMING, np.array([unsheathed[p.material] for p in site.panels],
-                                        dtype=bool))
-    return notes
 
 
 # What a braced wall's flags need, worked out for every braced wall at once (`brace_notes`).
@@ -1152,6 +1150,12 @@ def _check_columns(arrays: dict, info: dict, combos: dict) -> list[tuple]:
         regions.update(masonry=strip, fresh=strip, strip=strip)
         out.append((element, regions, unit, combos[kind], source))
     return out
+
+
+def _fields(objects: list, *names: str) -> list[list]:
+    """The named attributes of every object, a list per name, read in one pass."""
+    rows = list(map(attrgetter(*names), objects))
+    return [list(column) for column in zip(*rows)] if rows else [[] for _ in names]
 
 
 def _each(cls, n: int, **fields_of) -> list:
