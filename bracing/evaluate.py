@@ -832,9 +832,9 @@ class _Results:
                           working_limit_one_missing_mph=None if math.isnan(missing) else missing)
 
     def panels(self) -> list[PanelResult]:
-        """The result object of every wall, in the site's order."""
-        made = {name: [] for name in (
-            "status", "checks", "flags", "governing_element", "braces")}
+        """The result object of every wall, in the site's order (asked once: the objects take
+        the lists and records made for this evaluation)."""
+        made = {name: [] for name in ("status", "checks", "flags", "governing_element", "braces")}
         status, checks, flags, governing, braces = made.values()
         c = self.columns
         for p, is_braced, row, notes, wind, alone, limit, stand_down in zip(
