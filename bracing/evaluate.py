@@ -10,7 +10,8 @@ from __future__ import annotations
 import gc
 import math
 from contextlib import contextmanager
-from dataclasses import dataclass, replace
+from dataclasses import dataclass, fields, replace
+from itertools import repeat
 from operator import attrgetter
 
 import numpy as np
@@ -508,8 +509,7 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
             site = layout.with_designs(site, found)
             places = plan.place(site)
             e = evaluate_arrays(site, plan.foot_edge_distances_in(site, places) if places else {})
-    build = _Results(site, e)
-    panels = [build.panel(i) for i in range(len(site.panels))]
+    panels = _Results(site, e).panels()
     by_mark = {p.mark: p for p in panels}
     for i, d in designs.items():
         if d.layout is not None:
@@ -557,8 +557,7 @@ def evaluate_walls(site: Site, marks: set[str]) -> list[PanelResult]:
         "panels": keep, "signoffs": [s for s in site.signoffs if s.panel in kept]})
     places = plan.place(sub)
     e = evaluate_arrays(sub, plan.foot_edge_distances_in(sub, places) if places else {})
-    build = _Results(sub, e)
-    return [build.panel(i) for i, p in enumerate(keep) if p.mark in marks]
+    return [p for p in _Results(sub, e).panels() if p.mark in marks]
 
 
 def _masonry_over_limit(site: Site, p) -> bool:
@@ -756,155 +755,199 @@ def basis_statement(site: Site) -> list[str]:
 class _Results:
     """Builds the per-wall result objects from one evaluation's arrays.
 
-    Every value the walls share (rules, sources, load combinations) is read once, and the
-    arrays become Python lists, which give single values far faster than numpy arrays do.
+    What decides each wall's values, checks and flags is worked out for every wall at once with
+    numpy and read out as Python lists, which give single values far faster than numpy arrays
+    do, in the order the objects are made (a large site's objects then come from memory read
+    straight through). What walls share is made once: rules and sources, the names, regions
+    and sources of their checks, the flags that read the same on every wall.
     """
 
     def __init__(self, site: Site, e: Evaluation):
-        self.site, self.panels = site, site.panels
+        self.site = site
         f = COMBINATIONS[site.site.design_basis]
         combos = {"resisting": f.resisting, "adding": f.adding, "wind": f.wind_only}
-        self.unbraced = _check_set(e.checks, CHECK_INFO, combos)
-        w, wind = e.walls, e.wind
-        self.row = list(zip(  # per wall, in the order `panel` unpacks them
-            (w.face_weight * w.height * w.width * w.solidity).tolist(),
-            w.period_factor.tolist(), e.design_speed.tolist(), wind.kz.tolist(),
-            wind.q.tolist(), wind.cf_case_a.tolist(), wind.opening.tolist(),
-            wind.force_a.tolist(), np.where(w.rigid, wind.lever, wind.lever_strip).tolist(),
-            w.solidity.tolist(), wind.minimum_governs.tolist(), wind.cf_end.tolist(),
-            wind.cf_interior.tolist(), e.utilization.tolist(), e.limit.tolist(),
-            e.stand_down.tolist(), e.max_height.tolist(), e.max_at_limit.tolist(),
-            np.select([w.rigid, w.masonry & ~w.fresh, w.masonry], ["rigid", "masonry", "fresh"],
-                      "strip").tolist(), e.fresh_limit.tolist(), e.fresh_stand_down.tolist()))
-        self.wind_common = {
-            "basic_speed_mph": site.site.basic_wind_speed,
-            "period_factor_from": "set" if site.site.period_factor else "standing time",
-            "kd": asce7.KD_WALLS, "kzt": w.kzt, "ke": w.ke, "gust_factor": asce7.GUST_FACTOR}
         self.rule = {name: site.rule_value(name) for name in (
             "masonry_unbraced_height_ft", "minimum_braces_per_panel", "brace_angle_min_deg",
             "brace_angle_max_deg", "insert_min_height_ratio")}
         self.source = {name: site.rule(name).source for name in self.rule}
         self.hardware: dict[tuple, tuple[dict, list[Flag], list[Flag]]] = {}
+        w, wind, n = e.walls, e.wind, len(site.panels)
+        # each panel's fields, read in one pass (a large site's panels lie far apart in memory)
+        mark, material, height, width, thickness, opening_area, bracing = _fields(
+            site.panels, "mark", "material", "height", "width", "thickness", "opening_area",
+            "bracing")
+        self.kind = np.select([w.rigid, w.masonry & ~w.fresh, w.masonry],
+                              ["rigid", "masonry", "fresh"], "strip")
+        # each wall's row in the checks of the walls on their own, or of the braced walls; a
+        # braced wall's speeds are those of its bracing
+        self.is_braced, self.row = np.zeros(n, dtype=bool), np.zeros(n, dtype=np.int64)
+        limit, stand_down = e.limit, e.stand_down
         if e.braces is not None:
             bs = e.braces
-            self.braced = _check_set(e.braced_checks, braced.CHECKS, combos)
-            self.brace_row = {int(i): r for r, i in enumerate(bs.index)}
-            self.records = braced.braced_records(bs, e.brace_forces)
-            self.notes = brace_notes(site, e).tolist()
-            self.brace_row_values = {
-                "limit": e.braced_limit.tolist(), "stand_down": e.braced_stand_down.tolist(),
-                "missing": e.braced_limit_missing.tolist(), "angle": bs.angle.tolist(),
-                "length": bs.length.tolist(), "slenderness": bs.slenderness.tolist(),
-                "slenderness_limit": bs.slenderness_limit.tolist()}
+            self.is_braced[bs.index] = True
+            self.row[bs.index] = np.arange(len(bs.index))
+            limit, stand_down = limit.copy(), stand_down.copy()
+            limit[bs.index], stand_down[bs.index] = e.braced_limit, e.braced_stand_down
+            self._braced_walls(e, combos, [bracing[i] for i in bs.index.tolist()])
+        alone = np.flatnonzero(~self.is_braced)
+        self.row[alone] = np.arange(len(alone))
+        kinds, way = np.unique(self.kind[alone], return_inverse=True)
+        self.unbraced = _check_set(
+            {name: (d[alone], c[alone]) for name, (d, c) in e.checks.items()}, CHECK_INFO,
+            combos, [(k, UNBRACED_SOURCES[k]) for k in kinds.tolist()], way)
+        over_height = self._over_height(w)
+        self.wall_notes = self._wall_notes(w, e.utilization, over_height, material, opening_area)
+        fresh_stand_down = _or_none(e.fresh_stand_down)
+        # the fields of every wall's PanelResult that come straight from its panel or the arrays
+        self.columns = {
+            "mark": mark, "material": [site.materials[m].kind for m in material],
+            "height_ft": height, "width_ft": width, "thickness_in": thickness,
+            "weight_lb": (w.face_weight * w.height * w.width * w.solidity).tolist(),
+            "wind": _each(
+                WindResult, n, basic_speed_mph=site.site.basic_wind_speed,
+                period_factor=w.period_factor.tolist(),
+                period_factor_from="set" if site.site.period_factor else "standing time",
+                design_speed_mph=e.design_speed.tolist(), kz=wind.kz.tolist(),
+                kd=asce7.KD_WALLS, kzt=w.kzt, ke=w.ke, gust_factor=asce7.GUST_FACTOR,
+                velocity_pressure_psf=wind.q.tolist(), force_coefficient=wind.cf_case_a.tolist(),
+                opening_factor=wind.opening.tolist(), force_lb=wind.force_a.tolist(),
+                resultant_height_ft=np.where(w.rigid, wind.lever, wind.lever_strip).tolist(),
+                solidity=w.solidity.tolist(),
+                minimum_pressure_governs=wind.minimum_governs.tolist(),
+                end_zone_force_coefficient=wind.cf_end.tolist(),
+                interior_force_coefficient=wind.cf_interior.tolist()),
+            "unbraced": _each(
+                UnbracedResult, n, utilization=e.utilization.tolist(),
+                stands=((e.utilization <= 1.0) & ~over_height).tolist(),
+                working_limit_speed_mph=e.limit.tolist(),
+                stand_down_speed_mph=e.stand_down.tolist(),
+                max_height_ft=_or_none(self._capped(w, e.max_height)),
+                max_height_at_limit_ft=_or_none(self._capped(w, e.max_at_limit)),
+                max_height_structural_ft=_or_none(e.max_height)),
+            "working_limit_speed_mph": limit.tolist(),
+            "stand_down_speed_mph": stand_down.tolist(),
+            "sustained_equivalents_mph": gusts.sustained_equivalents_of_each(stand_down),
+            "fresh_working_limit_speed_mph": _or_none(e.fresh_limit),
+            "fresh_stand_down_speed_mph": fresh_stand_down,
+            "fresh_sustained_equivalents_mph": [{} if s is None else means for s, means in zip(
+                fresh_stand_down, gusts.sustained_equivalents_of_each(e.fresh_stand_down))]}
 
-    def panel(self, i: int) -> PanelResult:
-        """The result object of wall i."""
-        site, p = self.site, self.panels[i]
-        (weight, period_factor, design_speed, kz, q, cf, opening, force, lever, solidity,
-         minimum, cf_end, cf_interior, utilization, own_limit, own_stand_down, max_height,
-         max_at_limit, kind, fresh_limit, fresh_stand_down) = self.row[i]
-        mat = site.materials[p.material]
-        flags = self._wall_flags(p, mat, utilization, solidity, kind)
-        stands = utilization <= 1.0 and not any(f.code == "masonry-over-8ft" for f in flags)
-        limit, stand_down = own_limit, own_stand_down
-        status, details = "stands" if stands else "needs_braces", None
-        if p.bracing is None:
-            found, row = self.unbraced, i
-            checks = _checks(found, i, kind, UNBRACED_SOURCES[kind])
-        else:
-            found, row = self.braced, self.brace_row[i]
-            kind = "braced"
-            specific, *hardware_flags = self._hardware(p.bracing)
-            checks = _checks(found, row, kind, specific)
-            status = "braced" if found.strength_ok[row] else "unsafe"
-            b = self.brace_row_values
-            limit, stand_down, missing = b["limit"][row], b["stand_down"][row], b["missing"][row]
-            details = dict(self.records[row], brace_type=p.bracing.brace_type,
-                           wall_anchor=p.bracing.wall_anchor, foot_anchor=p.bracing.foot_anchor,
-                           utilization=found.brace_utilization[row],
-                           working_limit_one_missing_mph=_or_none(missing))
-            flags = [f for f in flags if f.code not in ("fails-unbraced", "masonry-over-8ft")]
-            flags += self._braced_flags(p, row, checks if found.any_over[row] else [], limit,
-                                        stand_down, missing, *hardware_flags)
-        element, regions = found.columns[found.governing[row]][:2]
-        return PanelResult(
-            mark=p.mark, material=mat.kind, status=status, weight_lb=weight,
-            height_ft=p.height, width_ft=p.width, thickness_in=p.thickness,
-            wind=WindResult(
-                period_factor=period_factor, design_speed_mph=design_speed, kz=kz,
-                velocity_pressure_psf=q, force_coefficient=cf, opening_factor=opening,
-                force_lb=force, resultant_height_ft=lever, solidity=solidity,
-                minimum_pressure_governs=minimum, end_zone_force_coefficient=cf_end,
-                interior_force_coefficient=cf_interior, **self.wind_common),
-            unbraced=UnbracedResult(
-                utilization=utilization, stands=stands, working_limit_speed_mph=own_limit,
-                stand_down_speed_mph=own_stand_down,
-                max_height_ft=self._capped(mat, max_height),
-                max_height_at_limit_ft=self._capped(mat, max_at_limit),
-                max_height_structural_ft=_or_none(max_height)),
-            checks=checks, flags=flags, working_limit_speed_mph=limit,
-            stand_down_speed_mph=stand_down,
-            governing_element=f"{element} ({regions[kind]})",
-            braces=details, sustained_equivalents_mph=gusts.sustained_equivalents(stand_down),
-            fresh_working_limit_speed_mph=_or_none(fresh_limit),
-            fresh_stand_down_speed_mph=_or_none(fresh_stand_down),
-            fresh_sustained_equivalents_mph=(
-                {} if math.isnan(fresh_stand_down)
-                else gusts.sustained_equivalents(fresh_stand_down)))
+    def _braced_walls(self, e: Evaluation, combos: dict, bracings: list):
+        """The checks, §8 records, notes and hardware of the braced walls (`bracings`: their
+        panels' bracing), by row."""
+        site, bs = self.site, e.braces
+        brace_type, foot_anchor, wall_anchor = _fields(
+            bracings, "brace_type", "foot_anchor", "wall_anchor")
+        ways: dict[tuple, int] = {}  # brace and foot anchor types: each pair's checks' sources
+        way = np.array([ways.setdefault(pair, len(ways)) for pair in zip(brace_type, foot_anchor)],
+                       dtype=np.int64)
+        hardware = [self._hardware(pair) for pair in ways]
+        self.braced = _check_set(e.braced_checks, braced.CHECKS, combos,
+                                 [("braced", sources) for sources, *_ in hardware], way)
+        self.hardware_flags = [hardware[k][1:] for k in way.tolist()]
+        self.notes = brace_notes(site, e, [site.brace_types[t] for t, _ in ways], way).tolist()
+        self.missing = e.braced_limit_missing.tolist()
+        self.brace_values = {
+            "angle": bs.angle.tolist(), "length": bs.length.tolist(),
+            "slenderness": bs.slenderness.tolist(),
+            "slenderness_limit": bs.slenderness_limit.tolist()}
+        self.records = braced.braced_records(bs, e.brace_forces)
+        for record, brace, wall, foot, utilization, missing in zip(
+                self.records, brace_type, wall_anchor, foot_anchor, self.braced.brace_utilization,
+                self.missing):
+            record.update(brace_type=brace, wall_anchor=wall, foot_anchor=foot,
+                          utilization=utilization,
+                          working_limit_one_missing_mph=None if math.isnan(missing) else missing)
 
-    def _capped(self, mat, height: float) -> float | None:
-        """The tallest a wall may stand unbraced: masonry no taller than OSHA 1926.706(b)
+    def panels(self) -> list[PanelResult]:
+        """The result object of every wall, in the site's order (asked once: the objects take
+        the lists and records made for this evaluation)."""
+        made = {name: [] for name in ("status", "checks", "flags", "governing_element", "braces")}
+        status, checks, flags, governing, braces = made.values()
+        c = self.columns
+        for p, is_braced, row, notes, wind, alone, limit, stand_down in zip(
+                self.site.panels, self.is_braced.tolist(), self.row.tolist(),
+                self.wall_notes.tolist(), c["wind"], c["unbraced"], c["working_limit_speed_mph"],
+                c["stand_down_speed_mph"]):
+            own = self._wall_flags(p, notes, alone.utilization, wind.solidity) if notes else []
+            if is_braced:
+                found = self.braced
+                status.append("braced" if found.strength_ok[row] else "unsafe")
+                braces.append(self.records[row])
+                own += self._braced_flags(p, row, found.failing.get(row, ()), limit, stand_down)
+            else:
+                found = self.unbraced
+                status.append("stands" if alone.stands else "needs_braces")
+                braces.append(None)
+            checks.append(found.checks[row])
+            flags.append(own)
+            governing.append(found.governing[row])
+        return _each(PanelResult, len(status), **made, **c)
+
+    def _capped(self, w: Walls, height: np.ndarray) -> np.ndarray:
+        """The tallest each wall may stand unbraced: masonry no taller than OSHA 1926.706(b)
         allows."""
         limit = self.rule["masonry_unbraced_height_ft"]
-        if mat.kind == "masonry" and limit is not None and not math.isnan(height):
-            height = min(height, limit)
-        return _or_none(height)
+        return height if limit is None else np.where(w.masonry, np.minimum(height, limit), height)
 
-    def _wall_flags(self, p, mat, utilization: float, solidity: float, kind: str
-                    ) -> list[Flag]:
-        """Flags of the wall standing on its own (`kind` as in UNBRACED_SOURCES)."""
+    def _over_height(self, w: Walls) -> np.ndarray:
+        """The masonry walls taller than OSHA 1926.706(b) lets stand unbraced."""
+        limit = self.rule["masonry_unbraced_height_ft"]
+        return w.masonry & (w.height > limit) if limit is not None else np.zeros_like(w.masonry)
+
+    def _wall_notes(self, w: Walls, utilization: np.ndarray, over_height: np.ndarray,
+                    material: list[str], opening_area: list) -> np.ndarray:
+        """Per wall, what its own flags need, as bits; a braced wall's leave out how it would
+        stand alone (its bracing answers for that)."""
+        notes = np.zeros(len(material), dtype=np.int64)
+        _note(notes, FAILS_UNBRACED, (utilization > 1.0) & ~self.is_braced)
+        _note(notes, OVER_HEIGHT, over_height & ~self.is_braced)
+        _note(notes, MOSTLY_OPEN, 1.0 - w.solidity > 0.3)
+        _note(notes, OPENING_BY_AREA, np.array([bool(a) for a in opening_area], dtype=bool))
+        _note(notes, RAISED_BASE, w.base > 0)
+        _note(notes, FRESH_MORTAR, self.kind == "fresh")
+        unsheathed = {name: m.kind == "framed" and not m.sheathed
+                      for name, m in self.site.materials.items()}
+        _note(notes, OPEN_FRAMING, np.array([unsheathed[m] for m in material], dtype=bool))
+        return notes
+
+    def _wall_flags(self, p, notes: int, utilization: float, solidity: float) -> list[Flag]:
+        """Flags of the wall standing on its own (`notes` as `_wall_notes` gives them)."""
         flags: list[Flag] = []
-        if utilization > 1.0:
+        if notes & FAILS_UNBRACED:
             flags.append(Flag("fails-unbraced", "danger",
                               f"cannot stand on its own at the design wind (utilization "
                               f"{utilization:.2f}): brace it before release from the crane",
                               "ASCE 7-16 §29.3, statics"))
-        limit = self.rule["masonry_unbraced_height_ft"]
-        if mat.kind == "masonry" and limit is not None and p.height > limit:
+        if notes & OVER_HEIGHT:
             flags.append(Flag("masonry-over-8ft", "danger",
-                              f"masonry wall {p.height:.1f} ft tall: over {limit:g} ft it must "
-                              f"be braced until permanent supports are in place",
+                              f"masonry wall {p.height:.1f} ft tall: over "
+                              f"{self.rule['masonry_unbraced_height_ft']:g} ft it must be braced "
+                              f"until permanent supports are in place",
                               self.source["masonry_unbraced_height_ft"]))
-        open_share = 1.0 - solidity
-        if open_share > 0.3:
+        if notes & MOSTLY_OPEN:
             flags.append(Flag("mostly-open", "warning",
-                              f"{open_share:.0%} open: checked as an open wall (open-sign "
+                              f"{1.0 - solidity:.0%} open: checked as an open wall (open-sign "
                               f"coefficients on the solid area)", "ASCE 7-16 Figure 29.3-1 note 3"))
-        if p.opening_area:
-            flags.append(Flag("opening-position-unknown", "notice",
-                              "openings given by area only: resultant kept at 0.55 h",
-                              "ASCE 7-16 Figure 29.3-1"))
-        if p.base_elevation > 0:
+        if notes & OPENING_BY_AREA:
+            flags.append(FIXED_FLAGS["opening-position-unknown"])
+        if notes & RAISED_BASE:
             flags.append(Flag("raised-base", "notice",
                               f"base {p.base_elevation:g} ft above grade: s/h < 1 coefficients",
                               "ASCE 7-16 Figure 29.3-1"))
-        if kind == "fresh":
-            flags.append(Flag("fresh-mortar", "notice",
-                              "mortar not yet cured: stability by weight only, no flexural "
-                              "tension", "TMS 402-16 §8.2 (from memory)"))
-        if mat.kind == "framed" and not mat.sheathed:
-            flags.append(Flag("open-framing", "notice",
-                              "unsheathed framing checked as an open wall", "ASCE 7-16 §29.3"))
+        if notes & FRESH_MORTAR:
+            flags.append(FIXED_FLAGS["fresh-mortar"])
+        if notes & OPEN_FRAMING:
+            flags.append(FIXED_FLAGS["open-framing"])
         return flags
 
-    def _hardware(self, b) -> tuple[dict, list[Flag], list[Flag]]:
+    def _hardware(self, key: tuple[str, str | None]) -> tuple[dict, list[Flag], list[Flag]]:
         """The check sources, brace flags and anchor flags that follow from a brace and foot
-        anchor type alone (the same for every wall that uses them), worked out once per pair."""
-        key = (b.brace_type, b.foot_anchor)
+        anchor type (`key`) alone, the same for every wall that uses them: worked out once."""
         if key not in self.hardware:
-            site = self.site
-            bt = site.brace_types[b.brace_type]
-            fa = site.anchor_types[b.foot_anchor] if b.foot_anchor else None
+            site, (brace_type, foot_anchor) = self.site, key
+            bt = site.brace_types[brace_type]
+            fa = site.anchor_types[foot_anchor] if foot_anchor else None
             brace_flags, anchor_flags = [], []
             if bt.kind == "pipe":
                 pipe = PIPES[bt.section]
@@ -917,39 +960,38 @@ class _Results:
             if fa is not None and fa.kind == "slab" and not fa.cast_in and not bool(
                     anchors.post_installed_embedment_ok(fa.embedment, fa.slab_thickness)):
                 anchor_flags.append(Flag(
-                    "anchor-too-deep", "warning", f"post-installed anchor {b.foot_anchor}: "
+                    "anchor-too-deep", "warning", f"post-installed anchor {foot_anchor}: "
                     f"h_ef {fa.embedment:g} in is more than the {fa.slab_thickness:g} in slab "
                     "allows", "ACI 318-19 §17.9.4 (from memory)"))
             if fa is not None and fa.kind == "deadman" and fa.length is None:
                 anchor_flags.append(Flag(
-                    "deadman-tipping-unchecked", "warning", f"deadman {b.foot_anchor}: its "
+                    "deadman-tipping-unchecked", "warning", f"deadman {foot_anchor}: its "
                     "overturning about the toe is not checked; give its length and pin_height",
                     "statics"))
             self.hardware[key] = (braced.sources(bt.kind, fa.kind if fa else None),
                                   brace_flags, anchor_flags)
         return self.hardware[key]
 
-    def _braced_flags(self, p, r: int, checks: list[Check], limit: float, stand_down: float,
-                      missing: float, brace_flags: list[Flag], anchor_flags: list[Flag]
+    def _braced_flags(self, p, r: int, failing: list[Check], limit: float, stand_down: float
                       ) -> list[Flag]:
-        """Flags of a braced wall: failing elements (`checks` may hold only those that could
-        fail), rules of practice, robustness (§6), with those of its brace and anchor types."""
-        b, rule, source = p.bracing, self.rule, self.source
-        values, notes = self.brace_row_values, self.notes[r]
+        """Flags of a braced wall: its `failing` checks, rules of practice, robustness (§6),
+        with those of its brace and anchor types."""
+        rule, source = self.rule, self.source
+        values, notes, missing = self.brace_values, self.notes[r], self.missing[r]
+        brace_flags, anchor_flags = self.hardware_flags[r]
         flags = []
-        for c in checks:
-            if not c.passes:
-                serviceability = c.element in braced.SERVICEABILITY
-                flags.append(Flag(
-                    f"{c.element.replace(' ', '-')}-over",
-                    "warning" if serviceability else "danger",
-                    f"{c.element}: utilization {c.utilization:.2f}"
-                    + (" (the wall would crack)" if serviceability else ""), c.source))
-        if any(c.element == "base uplift" and not c.passes for c in checks):
-            flags.append(Flag("braces-lift-wall", "danger", "the braces in compression lift "
-                              "the wall off its base", "statics, design.md §6"))
+        lifted = False
+        for c in failing:
+            serviceability = c.element in braced.SERVICEABILITY
+            flags.append(Flag(
+                f"{c.element.replace(' ', '-')}-over", "warning" if serviceability else "danger",
+                f"{c.element}: utilization {c.utilization:.2f}"
+                + (" (the wall would crack)" if serviceability else ""), c.source))
+            lifted = lifted or c.element == "base uplift"
+        if lifted:
+            flags.append(FIXED_FLAGS["braces-lift-wall"])
         if notes & TOO_FEW:
-            flags.append(Flag("too-few-braces", "danger", f"{b.count} brace(s); at least "
+            flags.append(Flag("too-few-braces", "danger", f"{p.bracing.count} brace(s); at least "
                               f"{rule['minimum_braces_per_panel']:g} per wall",
                               source["minimum_braces_per_panel"]))
         if notes & ANGLE_OUTSIDE:
@@ -958,17 +1000,14 @@ class _Results:
                               f"{rule['brace_angle_max_deg']:g} deg",
                               source["brace_angle_min_deg"]))
         if notes & LOW_INSERT:
-            flags.append(Flag("low-insert", "notice", f"insert at {b.insert_height / p.height:.0%}"
+            flags.append(Flag("low-insert", "notice", f"insert at "
+                              f"{p.bracing.insert_height / p.height:.0%}"
                               f" of the height, below {rule['insert_min_height_ratio']:.0%}",
                               source["insert_min_height_ratio"]))
         if notes & UNEQUAL_SHARING:
-            flags.append(Flag("unequal-sharing", "notice", "3 or more braces share unevenly "
-                              "through slop unless pre-tensioned", "common practice"))
+            flags.append(FIXED_FLAGS["unequal-sharing"])
         if notes & TWO_BRACES:
-            flags.append(Flag("no-margin", "warning", "if one of its two braces is struck, "
-                              "nothing but friction at the base holds the wall against twist "
-                              "(none is credited): keep equipment clear of the braces",
-                              "design.md §6 robustness"))
+            flags.append(FIXED_FLAGS["no-margin"])
         elif notes & STRUCK_BELOW_STAND_DOWN:
             flags.append(Flag("no-margin", "warning", f"with one brace struck, the wall's limit "
                               f"falls to {missing:.0f} mph, below the stand-down gust "
@@ -980,17 +1019,40 @@ class _Results:
                               "knee brace", "AISC 360-16 §E2 user note / NDS 2018 §3.7.1.4"))
         flags += brace_flags
         if notes & OUTSIDE_RATED:
-            bt = self.site.brace_types[b.brace_type]
+            bt = self.site.brace_types[p.bracing.brace_type]
             flags.append(Flag("outside-rated-range", "danger", f"brace length "
                               f"{values['length'][r]:.1f} ft is outside the rated table "
                               f"({bt.lengths[0]:g} to {bt.lengths[-1]:g} ft): no rating",
                               "maker's rated table"))
         flags += anchor_flags
         if math.isnan(limit):
-            flags.append(Flag("capacity-unknown", "warning", "a brace or anchor capacity is "
-                              "unknown (outside its rated range?): no working-limit speed",
-                              "design.md §3"))
+            flags.append(FIXED_FLAGS["capacity-unknown"])
         return flags
+
+
+# Flags that read the same on every wall they are on: made once, shared by those walls.
+FIXED_FLAGS = {f.code: f for f in (
+    Flag("opening-position-unknown", "notice",
+         "openings given by area only: resultant kept at 0.55 h", "ASCE 7-16 Figure 29.3-1"),
+    Flag("fresh-mortar", "notice",
+         "mortar not yet cured: stability by weight only, no flexural tension",
+         "TMS 402-16 §8.2 (from memory)"),
+    Flag("open-framing", "notice", "unsheathed framing checked as an open wall",
+         "ASCE 7-16 §29.3"),
+    Flag("braces-lift-wall", "danger", "the braces in compression lift the wall off its base",
+         "statics, design.md §6"),
+    Flag("unequal-sharing", "notice",
+         "3 or more braces share unevenly through slop unless pre-tensioned", "common practice"),
+    Flag("no-margin", "warning", "if one of its two braces is struck, nothing but friction at "
+         "the base holds the wall against twist (none is credited): keep equipment clear of the "
+         "braces", "design.md §6 robustness"),
+    Flag("capacity-unknown", "warning", "a brace or anchor capacity is unknown (outside its "
+         "rated range?): no working-limit speed", "design.md §3"),
+)}
+
+# What a wall's own flags need, worked out for every wall at once (`_Results._wall_notes`).
+FAILS_UNBRACED, OVER_HEIGHT, MOSTLY_OPEN, OPENING_BY_AREA, RAISED_BASE, FRESH_MORTAR, \
+    OPEN_FRAMING = (1 << k for k in range(7))
 
 
 # What a braced wall's flags need, worked out for every braced wall at once (`brace_notes`).
@@ -998,36 +1060,38 @@ TOO_FEW, ANGLE_OUTSIDE, LOW_INSERT, UNEQUAL_SHARING, TWO_BRACES, STRUCK_BELOW_ST
     SLENDER, OUTSIDE_RATED = (1 << k for k in range(8))
 
 
-def brace_notes(site: Site, e: Evaluation) -> np.ndarray:
-    """Per braced wall, the rules of practice and robustness notes it meets, as bits."""
+def brace_notes(site: Site, e: Evaluation, types: list, way: np.ndarray) -> np.ndarray:
+    """Per braced wall, the rules of practice and robustness notes it meets, as bits
+    (`types[way]`: each wall's brace type)."""
     w, bs = e.walls, e.braces
     count = bs.mask.sum(axis=1)
     notes = np.zeros(len(bs.index), dtype=np.int64)
-
-    def note(bit, where):
-        np.bitwise_or(notes, np.where(where, bit, 0), out=notes)
     least = site.rule_value("minimum_braces_per_panel")
     if least:
-        note(TOO_FEW, count < least)
+        _note(notes, TOO_FEW, count < least)
     lo, hi = site.rule_value("brace_angle_min_deg"), site.rule_value("brace_angle_max_deg")
     if lo and hi:
-        note(ANGLE_OUTSIDE, ~((lo - 1e-9 <= bs.angle) & (bs.angle <= hi + 1e-9)))
+        _note(notes, ANGLE_OUTSIDE, ~((lo - 1e-9 <= bs.angle) & (bs.angle <= hi + 1e-9)))
     ratio = site.rule_value("insert_min_height_ratio")
     if ratio:
-        note(LOW_INSERT, bs.insert < ratio * w.height[bs.index] - 1e-9)
-    note(UNEQUAL_SHARING, (count >= 3) & ~bs.pretensioned)
-    note(TWO_BRACES, count == 2)
+        _note(notes, LOW_INSERT, bs.insert < ratio * w.height[bs.index] - 1e-9)
+    _note(notes, UNEQUAL_SHARING, (count >= 3) & ~bs.pretensioned)
+    _note(notes, TWO_BRACES, count == 2)
     missing = e.braced_limit_missing
     with np.errstate(invalid="ignore"):
-        note(STRUCK_BELOW_STAND_DOWN, (count > 2) & ~np.isnan(missing)
-             & (missing < e.braced_stand_down))
-        note(SLENDER, bs.slenderness > bs.slenderness_limit)
-    table = [site.brace_types[site.panels[i].bracing.brace_type] for i in bs.index.tolist()]
-    rated = np.array([t.kind == "rated" for t in table], dtype=bool)
-    shortest = np.array([t.lengths[0] if t.kind == "rated" else np.nan for t in table])
-    longest = np.array([t.lengths[-1] if t.kind == "rated" else np.nan for t in table])
-    note(OUTSIDE_RATED, rated & ~((shortest <= bs.length) & (bs.length <= longest)))
+        _note(notes, STRUCK_BELOW_STAND_DOWN, (count > 2) & ~np.isnan(missing)
+              & (missing < e.braced_stand_down))
+        _note(notes, SLENDER, bs.slenderness > bs.slenderness_limit)
+    rated = np.array([t.kind == "rated" for t in types], dtype=bool)[way]
+    shortest = np.array([t.lengths[0] if t.kind == "rated" else np.nan for t in types])[way]
+    longest = np.array([t.lengths[-1] if t.kind == "rated" else np.nan for t in types])[way]
+    _note(notes, OUTSIDE_RATED, rated & ~((shortest <= bs.length) & (bs.length <= longest)))
     return notes
+
+
+def _note(notes: np.ndarray, bit: int, where: np.ndarray):
+    """Sets `bit` in the notes of the walls `where` holds."""
+    np.bitwise_or(notes, np.where(where, bit, 0), out=notes)
 
 
 # The sources of a wall's own checks by how it stands: a rigid panel, cured or fresh masonry,
@@ -1046,68 +1110,92 @@ UNBRACED_SOURCES = {
 
 @dataclass(frozen=True)
 class _CheckSet:
-    """The checks of every wall on its own, or of every braced wall: their columns (see
-    `_check_columns`) and, per wall, what the views ask of them first."""
+    """The checks of the walls on their own, or of the braced walls, and per wall what the
+    views ask of them first."""
 
-    columns: list[tuple]
-    applies: list[tuple[int, ...]]        # the columns that apply to each wall (demand known)
-    governing: list[int]                  # column of the largest strength utilization
+    checks: list[list[Check]]             # each wall's checks that apply to it (demand known)
+    governing: list[str]                  # the check of the largest strength utilization
     strength_ok: list[bool]               # every strength check passes
-    any_over: list[bool]                  # some check (serviceability too) is over 1.0
+    failing: dict[int, list[Check]]       # the checks over 1.0 (serviceability too), by wall
     brace_utilization: list[float | None]  # the largest of the brace's own checks
 
 
-def _check_set(arrays: dict, info: dict, combos: dict) -> _CheckSet:
-    """The checks of `arrays` (demand and capacity arrays by name) with their summaries."""
+def _check_set(arrays: dict, info: dict, combos: dict, ways: list[tuple[str, dict]],
+               way: np.ndarray) -> _CheckSet:
+    """The checks of `arrays` (demand and capacity arrays by name, one entry per wall) with
+    their summaries. Each wall is checked one of `ways` (`way` gives which): its kind as in
+    UNBRACED_SOURCES or 'braced', which names the regions, and the sources it has of its own."""
     names = [key.partition("|")[0] for key in arrays]
-    ratios = np.array([np.where(np.isnan(d), -np.inf, _ratio(d, c)) for d, c in arrays.values()])
+    demand = np.array([d for d, _ in arrays.values()]).reshape(len(arrays), len(way))
+    capacity = np.array([c for _, c in arrays.values()]).reshape(demand.shape)
+    ratios = np.where(np.isnan(demand), -np.inf, _ratio(demand, capacity))
     strength = np.where(np.array([n not in braced.SERVICEABILITY for n in names])[:, None],
                         ratios, -np.inf)
     brace = np.where(np.array([n.startswith("brace") for n in names])[:, None], ratios, -np.inf)
-    brace = brace.max(axis=0)
-    # which checks apply to a wall, as bits: walls of one pattern share one tuple of columns
-    pattern = (~np.isnan(np.array([d for d, _ in arrays.values()]))).T @ (
-        1 << np.arange(len(arrays), dtype=np.int64))
-    columns_of = {int(bits): tuple(k for k in range(len(arrays)) if bits >> k & 1)
-                  for bits in np.unique(pattern)}
-    return _CheckSet(_check_columns(arrays, info, combos),
-                     [columns_of[bits] for bits in pattern.tolist()],
-                     strength.argmax(axis=0).tolist(),
-                     (strength.max(axis=0) <= 1.0).tolist(), (ratios.max(axis=0) > 1.0).tolist(),
-                     [None if x == -math.inf else x for x in brace.tolist()])
+    brace = brace.max(axis=0, initial=-np.inf)
+    # each way's checks, named once: element, region, unit, combination, source
+    named = [(element, regions[kind], unit, combination, sources.get(element, source))
+             for kind, sources in ways
+             for element, regions, unit, combination, source in _check_columns(arrays, info,
+                                                                                combos)]
+    # every check that applies, wall by wall, in the order of the arrays; each field a list
+    applies = ~np.isnan(demand.T)
+    wall, column = np.nonzero(applies)
+    which = way[wall] * len(arrays) + column
+    element, region, unit, combination, source = np.array(
+        named, dtype=object).reshape(-1, 5)[which].T.tolist()
+    made = list(map(Check, element, region, demand.T[applies].tolist(),
+                    capacity.T[applies].tolist(), unit, combination, source))
+    ends = np.cumsum(applies.sum(axis=1)).tolist()
+    # a wall with some check over 1.0: the checks that do not pass (Check.passes)
+    fails = np.flatnonzero((ratios.max(axis=0, initial=-np.inf) > 1.0)[wall]
+                           & ~(ratios.T[applies] <= 1.0))
+    failing: dict[int, list[Check]] = {}
+    for at, k in zip(wall[fails].tolist(), fails.tolist()):
+        failing.setdefault(at, []).append(made[k])
+    governing = [f"{element} ({region})" for element, region, *_ in named]
+    return _CheckSet([made[start:end] for start, end in zip([0, *ends], ends)],
+                     [governing[k] for k in (way * len(arrays)
+                                             + strength.argmax(axis=0)).tolist()],
+                     (strength.max(axis=0, initial=-np.inf) <= 1.0).tolist(),
+                     failing, [None if x == -math.inf else x for x in brace.tolist()])
 
 
 def _check_columns(arrays: dict, info: dict, combos: dict) -> list[tuple]:
     """Each check of a dict of demand/capacity arrays as (element, region by kind of wall, unit,
-    combination, source, demands, capacities), the arrays as lists.
+    combination, source).
 
     A key 'element|region' names its region; '*' is the whole panel, or the end zone of a wall
     built in place; no region is the worst brace. Walls built in place are checked per ft.
     """
     out = []
-    for key, (demand, capacity) in arrays.items():
+    for key in arrays:
         element, _, region = key.partition("|")
         unit, kind, source = info[element]
         regions = {"rigid": "whole panel" if region == "*" else region,
                    "braced": region or "worst brace"}
         strip = f"{'end zone' if region == '*' else region}, per ft"
         regions.update(masonry=strip, fresh=strip, strip=strip)
-        out.append((element, regions, unit, combos[kind], source, demand.tolist(),
-                    capacity.tolist()))
+        out.append((element, regions, unit, combos[kind], source))
     return out
 
 
-def _checks(found: _CheckSet, row: int, kind: str, sources: dict) -> list[Check]:
-    """The Check objects of one wall (`row` of the arrays) that apply to it."""
-    out = []
-    for k in found.applies[row]:
-        element, regions, unit, combination, source, demand, capacity = found.columns[k]
-        out.append(Check(element, regions[kind], demand[row], capacity[row], unit, combination,
-                         sources.get(element, source)))
-    return out
+def _fields(objects: list, *names: str) -> list[list]:
+    """The named attributes of every object, a list per name, read in one pass."""
+    rows = list(map(attrgetter(*names), objects))
+    return [list(column) for column in zip(*rows)] if rows else [[] for _ in names]
 
 
-def _or_none(x) -> float | None:
-    return None if math.isnan(x) else float(x)
+def _each(cls, n: int, **fields_of) -> list:
+    """`n` objects of the dataclass `cls` from each field's values by name: a list holds one
+    per object, anything else is every object's."""
+    names = [f.name for f in fields(cls)]
+    if set(fields_of) != set(names):
+        raise TypeError(f"{cls.__name__} fields not given: {set(names) ^ set(fields_of)}")
+    return list(map(cls, *(v if isinstance(v, list) else repeat(v, n)
+                           for v in map(fields_of.get, names))))
 
 
+def _or_none(x: np.ndarray) -> list[float | None]:
+    """The values as a list, None where not known (NaN)."""
+    return np.where(np.isnan(x), None, x).tolist()

@@ -21,6 +21,13 @@ def sustained_equivalents(gust_mph):
     return {name: (gust / ratio)[()] for name, ratio in SUSTAINED_RATIOS.items()}
 
 
+def sustained_equivalents_of_each(gust_mph) -> list[dict[str, float]]:
+    """`sustained_equivalents` of each gust of an array: one dict of plain floats per gust."""
+    gust = np.asarray(gust_mph, dtype=float)
+    means = [(gust / ratio).tolist() for ratio in SUSTAINED_RATIOS.values()]
+    return [dict(zip(SUSTAINED_RATIOS, each)) for each in zip(*means)]
+
+
 def _kz_power_law(z_ft, exposure):
     """Kz by the power law WITHOUT the 15 ft floor (for speeds at a measuring height)."""
     alpha, zg = terrain_constants(exposure)
