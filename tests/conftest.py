@@ -7,11 +7,17 @@ import sys
 from pathlib import Path
 
 import pytest
+from hypothesis import settings
 
 from bracing.evaluate import evaluate
 from bracing.model import Site
 
 REPO = Path(__file__).resolve().parents[1]
+
+# No test asserts on time: hypothesis's per-example deadline is off for every property test
+# (a busy machine would otherwise fail them at random).
+settings.register_profile("no-deadline", deadline=None)
+settings.load_profile("no-deadline")
 
 # A small valid site file with comments, blank lines and units, as a user writes one.
 SITE_TOML = """\
