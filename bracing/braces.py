@@ -7,6 +7,8 @@ share the wind by statics, carrying all the twist (no twist restraint credited a
 
 from __future__ import annotations
 
+import functools
+
 import numpy as np
 
 
@@ -114,3 +116,9 @@ def modulus_of_rupture(fc_psi, lam=1.0):
 def cracking_moment(fr_psi, thickness_in):
     """Moment per ft of width that cracks a solid section, f_r S with S = 12 t^2 / 6 (lb-ft/ft)."""
     return fr_psi * 12.0 * thickness_in**2 / 6.0 / 12.0
+
+
+def worst_brace(values):
+    """Each wall's largest value over its brace slots (the last axis), taken a slot at a time:
+    numpy's own reduction over so short an axis is many times slower."""
+    return functools.reduce(np.maximum, np.moveaxis(values, -1, 0))

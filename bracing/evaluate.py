@@ -626,17 +626,14 @@ def braced_utilization(w: Walls, unit: Wind, bs: braced.BraceSet):
     in an observed gust whose speed squared is v2 (mph^2).
 
     `unit` is the observed wind of a 1 mph gust on every wall; `bs` may list a wall more than
-    once (variants with a brace missing): each row is its own wall.
+    once (variants with a brace missing): each row is its own wall. The wind's loads are linear
+    in q: worked out once at 1 mph, then scaled.
     """
-    own = take(w, bs.index)
-    wind = take(unit, bs.index)
-    mine = replace(bs, index=np.arange(len(bs.index)))
-    loads = braced.brace_loads(own, wind, mine, None)
+    loads = braced.brace_loads(w, unit, bs, None)
 
     def g(v2, rows):
-        sub = replace(take(mine, rows), index=np.arange(len(rows)))
-        checks, _ = braced.braced_checks(take(own, rows), take(wind, rows).scaled(v2), sub,
-                                         SERVICE, None, loads.take(rows).scaled(v2))
+        checks, _ = braced.braced_checks(w, None, braced.take(bs, rows), SERVICE, None,
+                                         loads.take(rows).scaled(v2))
         return governing_utilization(strength_only(checks)) - 1.0
     return g
 
