@@ -18,6 +18,7 @@ from bracing.wind import asce7
 
 IN = 1.0 / 12.0  # ft per in
 RATED_FEET = ("stake", "insert", "deck")  # foot anchors checked by their allowable ratings
+HARDWARE = ("brace_type", "wall_anchor", "foot_anchor")  # a layout's type names
 
 
 @dataclass(frozen=True)
@@ -79,26 +80,26 @@ def gather_braces(site, basis: str, edges: dict[str, float] | None = None) -> Br
     """Read every braced wall's layout and capacities (None when no wall is braced).
 
     `edges`: least edge distance (in) of each wall's slab-anchor feet from the plan."""
-    rows = [i for i, p in enumerate(site.panels) if p.bracing is not None]
+    rows = [i for i, b in enumerate(map(attrgetter("bracing"), site.panels)) if b is not None]
     if not rows:
         return None
-    layouts = [site.panels[i].bracing for i in rows]
-    count = np.array([b.count for b in layouts])
-    strip = np.arange(count.max())
-    width = np.array([site.panels[i].width for i in rows])[:, None]
-    positions = np.where(strip < count[:, None],
-                         braces.default_positions(width, count[:, None], strip), np.nan)
-    for r, b in enumerate(layouts):
-        if b.positions:
-            positions[r, :b.count] = b.positions
-    names = ("insert_height", "insert_offset", "foot_offset", "base_below_slab", "lean", "slop",
-             "pretensioned", "brace_type", "wall_anchor", "foot_anchor", "anchor_distance",
-             "angle")
+    layouts, width, marks = zip(*map(attrgetter("bracing", "width", "mark"),
+                                     (site.panels[i] for i in rows)))
+    names = ("count", "positions", "insert_height", "insert_offset", "foot_offset",
+             "base_below_slab", "lean", "slop", "pretensioned", "brace_type", "wall_anchor",
+             "foot_anchor", "anchor_distance", "angle")
     read = attrgetter(*names)  # one call per layout reads every field
-    column = dict(zip(names, (np.array(values) for values in zip(*map(read, layouts)))))
+    column = dict(zip(names, zip(*map(read, layouts))))
+    count, given = np.array(column.pop("count")), column.pop("positions")
+    strip = np.arange(count.max())
+    positions = np.where(strip < count[:, None], braces.default_positions(
+        np.array(width)[:, None], count[:, None], strip), np.nan)
+    for r in [r for r, at in enumerate(given) if at]:
+        positions[r, :count[r]] = given[r]
     distance, angle = (np.array(column.pop(k), dtype=float) for k in ("anchor_distance", "angle"))
-    column["edge_distance"] = np.array([(edges or {}).get(site.panels[i].mark, np.inf)
-                                        for i in rows])
+    column = {k: np.array(v, dtype=object if k in HARDWARE else None) for k, v in column.items()}
+    edge_of = edges or {}
+    column["edge_distance"] = np.array([edge_of.get(mark, np.inf) for mark in marks])
     return brace_set(site, np.array(rows), positions, distance, angle, column, basis)
 
 
@@ -133,9 +134,9 @@ def _capacities(site, rows, c, length, angle, basis) -> dict[str, np.ndarray]:
     out["self_weight_ratio"] = np.zeros(m)
     out["euler_load"] = np.full(m, np.inf)
     out["foot_kind"] = np.full(m, "", dtype=object)
-    mats = [site.materials[site.panels[i].material] for i in rows]
-    out["rupture"] = np.array([braces.modulus_of_rupture(mat.compressive_strength or 2500.0)
-                               if mat.kind == "concrete" else np.nan for mat in mats])
+    rupture = {name: braces.modulus_of_rupture(mat.compressive_strength or 2500.0)
+               if mat.kind == "concrete" else np.nan for name, mat in site.materials.items()}
+    out["rupture"] = np.array([rupture[site.panels[i].material] for i in rows], dtype=float)
     for name in set(c["brace_type"]):
         sel = c["brace_type"] == name
         bt = site.brace_types[name]
@@ -279,9 +280,10 @@ def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
     case_force, case_at = np.zeros((LOAD_CASES, m)), np.zeros((LOAD_CASES, m))
     strip = np.zeros((m, k))
     rows = np.nonzero(rigid)[0]
-    if len(rows):
-        case_force[:, rows], case_at[:, rows] = _case_loads(walls, wind, bs.index[rows],
-                                                            minimum_psf)
+    if len(rows):  # a wall listed more than once (variants of its layout) is worked out once
+        each, listed = np.unique(bs.index[rows], return_inverse=True)
+        forces, at = _case_loads(walls, wind, each, minimum_psf)
+        case_force[:, rows], case_at[:, rows] = forces[:, listed], at[:, listed]
     rows = np.nonzero(~rigid)[0]
     if len(rows):
         strip[rows] = _strip_loads(walls, wind, take(bs, rows), minimum_psf)
@@ -337,20 +339,24 @@ def brace_forces(walls, loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
     rigid = walls.rigid[i]
     r = np.flatnonzero(rigid)
     if len(r):
-        centre, mask, arms = (walls.width[i[r]] / 2.0, rows_of(bs.mask, r),
-                              tuple(rows_of(v, r) for v in loads.lever))
-        lean_r = rows_of(lean, r)
+        centre, arms = walls.width[i[r]] / 2.0, tuple(rows_of(v, r) for v in loads.lever)
+        lean_r = rows_of(lean, r)  # NaN at an empty slot
         case_force = loads.case_force[:, r]
         sum_h = f.wind * braces.total_brace_reaction(case_force, loads.height[r], hb[r])
-        h, pushed, sums = np.zeros(mask.shape), np.zeros(len(r)), np.zeros(len(r))
-        for case, case_sum, at in zip(case_force, sum_h, loads.case_at[:, r]):
-            shares = braces.brace_shares(case_sum, f.wind * case, at, centre, None, mask, arms)
+        share, per_arm = braces.share_and_twist(sum_h, f.wind * case_force,
+                                                loads.case_at[:, r], centre, arms)
+        h = np.zeros(lean_r.shape)
+        pushed, sums, out = np.zeros(len(r)), np.zeros(len(r)), np.zeros(len(r))
+        for case, case_sum, even, twist in zip(case_force, sum_h, share, per_arm):
+            # each brace's share (as braces.brace_shares) plus its lean, NaN at an empty slot
+            shares = twist[:, None] * arms[2]
+            shares += even[:, None]
             shares += lean_r
-            np.fmax(h, np.abs(shares, out=shares), out=h)  # an empty slot (NaN) takes nothing
+            np.fmax(h, np.abs(shares, out=shares), out=h)  # an empty slot takes nothing
             pushed = np.where(case_sum > sums, case, pushed)  # the first case of the largest sum
             sums = np.maximum(sums, case_sum)
-        horizontal[r], total[r], force[r] = np.nan_to_num(h), sums, pushed
-        shear[r] = np.abs(f.wind * case_force - sum_h).max(axis=0)
+            out = np.maximum(out, np.abs(f.wind * case - case_sum))
+        horizontal[r], total[r], force[r], shear[r] = np.nan_to_num(h), sums, pushed, out
     r = np.flatnonzero(~rigid)
     if len(r):  # walls built in place: each brace takes its own strip of wall
         strip = rows_of(loads.strip, r)
