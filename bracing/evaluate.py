@@ -675,7 +675,9 @@ def braced_limit_one_missing(w: Walls, unit: Wind, bs: braced.BraceSet,
     limits[first] = search(first)
     best = np.full(len(bs.index), np.nan)
     best[rows[first]] = limits[first]
-    rest = np.setdiff1d(np.arange(len(rows)), first)
+    searched = np.zeros(len(rows), bool)
+    searched[first] = True
+    rest = np.flatnonzero(~searched)
     found = best[rows[rest]]
     known = rest[found > 0.0]  # a limit of 0 is the least there can be
     # (a mirror image of the first, say, is at 0 there, within the search's own tolerance)
