@@ -156,6 +156,7 @@ def _capacities(site, rows, c, length, angle, basis) -> dict[str, np.ndarray]:
         out["foot_kind"][sel] = fa.kind
         plan_edge = c["edge_distance"][sel] if "edge_distance" in c else np.inf
         _foot_capacity(fa, sel, out, basis, plan_edge)
+    out["foot_kind"] = out["foot_kind"].astype(str)  # numpy strings compare many times faster
     return out
 
 
