@@ -284,10 +284,12 @@ def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
     if len(rows):  # a wall listed more than once (variants of its layout) is worked out once
         each, listed = np.unique(bs.index[rows], return_inverse=True)
         forces, at = _case_loads(walls, wind, each, minimum_psf)
-        case_force[:, rows], case_at[:, rows] = forces[:, listed], at[:, listed]
+        case_force[:, rows] = np.take(forces, listed, axis=1)
+        case_at[:, rows] = np.take(at, listed, axis=1)
     rows = np.nonzero(~rigid)[0]
     if len(rows):
-        strip[rows] = _strip_loads(walls, wind, take(bs, rows), minimum_psf)
+        strip[rows] = _strip_loads(walls, wind, bs.index[rows], rows_of(bs.positions, rows),
+                                   rows_of(bs.mask, rows), minimum_psf)
     i = bs.index
     s, b = walls.height[i], walls.width[i]
     dead = walls.face_weight[i] * s * b * walls.solidity[i]
@@ -374,20 +376,20 @@ def brace_forces(walls, loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
     return BraceForces(horizontal, axial, total, shear, force)
 
 
-def _strip_loads(walls, wind, bs, minimum_psf):
-    """Wind on each brace's tributary strip of a wall built in place (lb, in slot order)."""
-    i = bs.index
+def _strip_loads(walls, wind, i, positions, mask, minimum_psf):
+    """Wind on each brace's tributary strip of walls `i` built in place (lb, in slot order);
+    `positions` and `mask` are their braces as in BraceSet."""
     s, b = walls.height[i], walls.width[i]
     b_over_s = b / s
     s_over_h = s / (walls.base[i] + s)
-    x = np.where(bs.mask, bs.positions, np.nan)
+    x = np.where(mask, positions, np.nan)
     order = np.sort(x, axis=1)
     mids = (order[:, 1:] + order[:, :-1]) / 2.0
     lo = np.concatenate([np.zeros((len(i), 1)), mids], axis=1)
     hi = np.concatenate([mids, np.full((len(i), 1), np.inf)], axis=1)
     hi = np.minimum(np.where(np.isnan(hi), b[:, None], hi), b[:, None])
-    count = bs.mask.sum(axis=1)
-    last = np.arange(bs.mask.shape[1])[None, :] == (count - 1)[:, None]
+    count = mask.sum(axis=1)
+    last = np.arange(mask.shape[1])[None, :] == (count - 1)[:, None]
     hi = np.where(last, b[:, None], hi)
     lo, hi = np.where(np.isnan(lo), 0.0, lo), np.where(np.isnan(hi), 0.0, hi)
     width = np.maximum(hi - lo, 0.0)
@@ -412,8 +414,8 @@ def _strip_loads(walls, wind, bs, minimum_psf):
     strip = np.maximum(wind.q[i][:, None] * asce7.GUST_FACTOR * cf * ss * width,
                        (minimum_psf or 0.0) * ss * width)  # ASCE 7-16 Eq. 29.3-1 and §29.7
     # strips follow the sorted positions: map them back to each brace's own slot
-    rank = np.argsort(np.argsort(np.where(bs.mask, bs.positions, np.inf), axis=1), axis=1)
-    return np.where(bs.mask, np.take_along_axis(strip, rank, axis=1), 0.0)
+    rank = np.argsort(np.argsort(np.where(mask, positions, np.inf), axis=1), axis=1)
+    return np.where(mask, np.take_along_axis(strip, rank, axis=1), 0.0)
 
 
 SERVICEABILITY = {"wall cracking"}  # shown and flagged, not counted in the status or the speeds

@@ -27,6 +27,7 @@ SPEED_BRACKET_MPH = (0.0, 400.0)
 HEIGHT_BRACKET_FT = (0.01, 300.0)
 TYPICAL_LIMIT_MPH = 90.0  # first trial of a speed search: near most working limits
 ROOT_TOLERANCE = 1e-7  # a search settles where |g| (a utilization less 1) is below this
+BRACED_WALLS_AT_ONCE = 8192  # braced walls checked in one pass of a search
 
 
 @dataclass(frozen=True)
@@ -632,6 +633,10 @@ def braced_utilization(w: Walls, unit: Wind, bs: braced.BraceSet):
     loads = braced.brace_loads(w, unit, bs, None)
 
     def g(v2, rows):
+        parts = -(-len(rows) // BRACED_WALLS_AT_ONCE)
+        if parts > 1:  # in parts: the arrays of many more walls outgrow the processor's cache
+            return np.concatenate([g(*part) for part in zip(np.array_split(v2, parts),
+                                                            np.array_split(rows, parts))])
         checks, _ = braced.braced_checks(w, None, braced.take(bs, rows), SERVICE, None,
                                          loads.take(rows).scaled(v2))
         return governing_utilization(strength_only(checks)) - 1.0
