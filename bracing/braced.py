@@ -582,7 +582,7 @@ def _masonry_bending(walls, bs: BraceSet, f, masonry, s, moment, na):
 def braced_records(bs: BraceSet, forces: BraceForces) -> list[dict]:
     """The §8 `braces` record of every braced wall (design wind, governing brace), in row order."""
     count = bs.mask.sum(axis=1)
-    p = forces.axial.max(axis=1)
+    p = braces.worst_brace(forces.axial)
     pull, up = braces.components(p, bs.angle)
     uplift = forces.total * np.tan(np.radians(bs.angle))
     helical = bs.foot_kind == "helical"
