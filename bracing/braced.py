@@ -18,6 +18,7 @@ from bracing.wind import asce7
 
 IN = 1.0 / 12.0  # ft per in
 RATED_FEET = ("stake", "insert", "deck")  # foot anchors checked by their allowable ratings
+HARDWARE = ("brace_type", "wall_anchor", "foot_anchor")  # a layout's type names
 
 
 @dataclass(frozen=True)
@@ -66,33 +67,39 @@ def take(obj, rows):
     size = len(next(iter(arrays.values())))
     if len(rows) == size and np.array_equal(rows, np.arange(size)):
         return obj
-    return replace(obj, **{name: v[rows] for name, v in arrays.items()})
+    return replace(obj, **{name: rows_of(v, rows) for name, v in arrays.items()})
+
+
+def rows_of(array, rows):
+    """`array[rows]` along the first axis (np.take copies the rows of a 2-D array many times
+    faster than indexing does)."""
+    return np.take(array, rows, axis=0)
 
 
 def gather_braces(site, basis: str, edges: dict[str, float] | None = None) -> BraceSet | None:
     """Read every braced wall's layout and capacities (None when no wall is braced).
 
     `edges`: least edge distance (in) of each wall's slab-anchor feet from the plan."""
-    rows = [i for i, p in enumerate(site.panels) if p.bracing is not None]
+    rows = [i for i, b in enumerate(map(attrgetter("bracing"), site.panels)) if b is not None]
     if not rows:
         return None
-    layouts = [site.panels[i].bracing for i in rows]
-    count = np.array([b.count for b in layouts])
-    strip = np.arange(count.max())
-    width = np.array([site.panels[i].width for i in rows])[:, None]
-    positions = np.where(strip < count[:, None],
-                         braces.default_positions(width, count[:, None], strip), np.nan)
-    for r, b in enumerate(layouts):
-        if b.positions:
-            positions[r, :b.count] = b.positions
-    names = ("insert_height", "insert_offset", "foot_offset", "base_below_slab", "lean", "slop",
-             "pretensioned", "brace_type", "wall_anchor", "foot_anchor", "anchor_distance",
-             "angle")
+    layouts, width, marks = zip(*map(attrgetter("bracing", "width", "mark"),
+                                     (site.panels[i] for i in rows)))
+    names = ("count", "positions", "insert_height", "insert_offset", "foot_offset",
+             "base_below_slab", "lean", "slop", "pretensioned", "brace_type", "wall_anchor",
+             "foot_anchor", "anchor_distance", "angle")
     read = attrgetter(*names)  # one call per layout reads every field
-    column = dict(zip(names, (np.array(values) for values in zip(*map(read, layouts)))))
+    column = dict(zip(names, zip(*map(read, layouts))))
+    count, given = np.array(column.pop("count")), column.pop("positions")
+    strip = np.arange(count.max())
+    positions = np.where(strip < count[:, None], braces.default_positions(
+        np.array(width)[:, None], count[:, None], strip), np.nan)
+    for r in [r for r, at in enumerate(given) if at]:
+        positions[r, :count[r]] = given[r]
     distance, angle = (np.array(column.pop(k), dtype=float) for k in ("anchor_distance", "angle"))
-    column["edge_distance"] = np.array([(edges or {}).get(site.panels[i].mark, np.inf)
-                                        for i in rows])
+    column = {k: np.array(v, dtype=object if k in HARDWARE else None) for k, v in column.items()}
+    edge_of = edges or {}
+    column["edge_distance"] = np.array([edge_of.get(mark, np.inf) for mark in marks])
     return brace_set(site, np.array(rows), positions, distance, angle, column, basis)
 
 
@@ -127,9 +134,9 @@ def _capacities(site, rows, c, length, angle, basis) -> dict[str, np.ndarray]:
     out["self_weight_ratio"] = np.zeros(m)
     out["euler_load"] = np.full(m, np.inf)
     out["foot_kind"] = np.full(m, "", dtype=object)
-    mats = [site.materials[site.panels[i].material] for i in rows]
-    out["rupture"] = np.array([braces.modulus_of_rupture(mat.compressive_strength or 2500.0)
-                               if mat.kind == "concrete" else np.nan for mat in mats])
+    rupture = {name: braces.modulus_of_rupture(mat.compressive_strength or 2500.0)
+               if mat.kind == "concrete" else np.nan for name, mat in site.materials.items()}
+    out["rupture"] = np.array([rupture[site.panels[i].material] for i in rows], dtype=float)
     for name in set(c["brace_type"]):
         sel = c["brace_type"] == name
         bt = site.brace_types[name]
@@ -149,6 +156,7 @@ def _capacities(site, rows, c, length, angle, basis) -> dict[str, np.ndarray]:
         out["foot_kind"][sel] = fa.kind
         plan_edge = c["edge_distance"][sel] if "edge_distance" in c else np.inf
         _foot_capacity(fa, sel, out, basis, plan_edge)
+    out["foot_kind"] = out["foot_kind"].astype(str)  # numpy strings compare many times faster
     return out
 
 
@@ -246,15 +254,17 @@ class BraceLoads:
     case_force: np.ndarray  # (cases, m)
     case_at: np.ndarray     # (cases, m) resultant position from the wall's first edge, ft
     strip: np.ndarray       # (m, k) per brace slot
+    height: np.ndarray      # (m,) the wind's resultant above the wall's base (of a rigid
+    #                         panel as a whole, of a strip otherwise), ft: the same at any speed
     lean_total: np.ndarray  # (m,) sum of the braces' horizontal reactions to the lean
     lean: np.ndarray        # (m, k) each brace's share of it
     lever: tuple            # braces.brace_lever of each wall's pattern
 
     def take(self, rows) -> BraceLoads:
         """The loads of the walls `rows` only."""
-        return BraceLoads(self.case_force[:, rows], self.case_at[:, rows], self.strip[rows],
-                          self.lean_total[rows], self.lean[rows],
-                          tuple(v[rows] for v in self.lever))
+        return BraceLoads(self.case_force[:, rows], self.case_at[:, rows],
+                          rows_of(self.strip, rows), self.height[rows], self.lean_total[rows],
+                          rows_of(self.lean, rows), tuple(rows_of(v, rows) for v in self.lever))
 
     def scaled(self, factor) -> BraceLoads:
         """The wind times `factor` (one value, or one per wall); the lean as it is."""
@@ -271,12 +281,15 @@ def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
     case_force, case_at = np.zeros((LOAD_CASES, m)), np.zeros((LOAD_CASES, m))
     strip = np.zeros((m, k))
     rows = np.nonzero(rigid)[0]
-    if len(rows):
-        case_force[:, rows], case_at[:, rows] = _case_loads(walls, wind, bs.index[rows],
-                                                            minimum_psf)
+    if len(rows):  # a wall listed more than once (variants of its layout) is worked out once
+        each, listed = np.unique(bs.index[rows], return_inverse=True)
+        forces, at = _case_loads(walls, wind, each, minimum_psf)
+        case_force[:, rows] = np.take(forces, listed, axis=1)
+        case_at[:, rows] = np.take(at, listed, axis=1)
     rows = np.nonzero(~rigid)[0]
     if len(rows):
-        strip[rows] = _strip_loads(walls, wind, take(bs, rows), minimum_psf)
+        strip[rows] = _strip_loads(walls, wind, bs.index[rows], rows_of(bs.positions, rows),
+                                   rows_of(bs.mask, rows), minimum_psf)
     i = bs.index
     s, b = walls.height[i], walls.width[i]
     dead = walls.face_weight[i] * s * b * walls.solidity[i]
@@ -285,7 +298,8 @@ def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
     lever = braces.brace_lever(bs.positions, bs.mask)
     lean = braces.brace_shares(lean_total, np.zeros(m), b / 2.0, b / 2.0, bs.positions,
                                bs.mask, lever)
-    return BraceLoads(case_force, case_at, strip, lean_total, lean, lever)
+    height = np.where(rigid, wind.lever[i], wind.lever_strip[i])
+    return BraceLoads(case_force, case_at, strip, height, lean_total, lean, lever)
 
 
 LOAD_CASES = 7  # Case A, Case B from either edge, Case C from either end, the line's two ends
@@ -315,7 +329,7 @@ def _case_loads(walls, wind, i, minimum_psf) -> tuple[np.ndarray, np.ndarray]:
     return np.array(forces), np.array(at)
 
 
-def brace_forces(walls, wind, loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
+def brace_forces(walls, loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
     """Per-brace factored forces, the governing load case of each brace (design.md §6).
 
     A rigid panel's braces share each load case with the twist; a wall built in place gives
@@ -326,27 +340,32 @@ def brace_forces(walls, wind, loads: BraceLoads, bs: BraceSet, f) -> BraceForces
     horizontal = np.zeros(bs.positions.shape)
     total, shear, force = np.zeros(len(i)), np.zeros(len(i)), np.zeros(len(i))
     rigid = walls.rigid[i]
-    r = np.nonzero(rigid)[0]
+    r = np.flatnonzero(rigid)
     if len(r):
-        lever, centre, lean_r = wind.lever[i[r]], walls.width[i[r]] / 2.0, lean[r]
-        positions, mask, arms = bs.positions[r], bs.mask[r], tuple(v[r] for v in loads.lever)
-        h, sums, pushed, out = (np.zeros(positions.shape), np.zeros(len(r)), np.zeros(len(r)),
-                                np.zeros(len(r)))
-        for case_force, at in zip(loads.case_force[:, r], loads.case_at[:, r]):
-            sum_h = f.wind * braces.total_brace_reaction(case_force, lever, hb[r])
-            shares = braces.brace_shares(sum_h, f.wind * case_force, at, centre, positions, mask,
-                                         arms)
-            h = np.maximum(h, np.abs(np.nan_to_num(shares + lean_r, copy=False)))
-            pushed = np.where(sum_h > sums, case_force, pushed)
-            sums = np.maximum(sums, sum_h)
-            out = np.maximum(out, np.abs(f.wind * case_force - sum_h))
-        horizontal[r], total[r], force[r], shear[r] = h, sums, pushed, out
-    r = np.nonzero(~rigid)[0]
+        centre, arms = walls.width[i[r]] / 2.0, tuple(rows_of(v, r) for v in loads.lever)
+        lean_r = rows_of(lean, r)  # NaN at an empty slot
+        case_force = loads.case_force[:, r]
+        sum_h = f.wind * braces.total_brace_reaction(case_force, loads.height[r], hb[r])
+        share, per_arm = braces.share_and_twist(sum_h, f.wind * case_force,
+                                                loads.case_at[:, r], centre, arms)
+        h = np.zeros(lean_r.shape)
+        pushed, sums, out = np.zeros(len(r)), np.zeros(len(r)), np.zeros(len(r))
+        for case, case_sum, even, twist in zip(case_force, sum_h, share, per_arm):
+            # each brace's share (as braces.brace_shares) plus its lean, NaN at an empty slot
+            shares = twist[:, None] * arms[2]
+            shares += even[:, None]
+            shares += lean_r
+            np.fmax(h, np.abs(shares, out=shares), out=h)  # an empty slot takes nothing
+            pushed = np.where(case_sum > sums, case, pushed)  # the first case of the largest sum
+            sums = np.maximum(sums, case_sum)
+            out = np.maximum(out, np.abs(f.wind * case - case_sum))
+        horizontal[r], total[r], force[r], shear[r] = np.nan_to_num(h), sums, pushed, out
+    r = np.flatnonzero(~rigid)
     if len(r):  # walls built in place: each brace takes its own strip of wall
-        strip = loads.strip[r]
-        strip_h = f.wind * braces.total_brace_reaction(strip, wind.lever_strip[i[r]][:, None],
+        strip = rows_of(loads.strip, r)
+        strip_h = f.wind * braces.total_brace_reaction(strip, loads.height[r][:, None],
                                                        hb[r][:, None])
-        horizontal[r] = strip_h + np.abs(np.nan_to_num(lean[r]))
+        horizontal[r] = strip_h + np.abs(np.nan_to_num(rows_of(lean, r)))
         total[r] = strip_h.sum(axis=1)
         force[r] = strip.sum(axis=1)
         shear[r] = np.abs(f.wind * force[r] - total[r])
@@ -357,20 +376,20 @@ def brace_forces(walls, wind, loads: BraceLoads, bs: BraceSet, f) -> BraceForces
     return BraceForces(horizontal, axial, total, shear, force)
 
 
-def _strip_loads(walls, wind, bs, minimum_psf):
-    """Wind on each brace's tributary strip of a wall built in place (lb, in slot order)."""
-    i = bs.index
+def _strip_loads(walls, wind, i, positions, mask, minimum_psf):
+    """Wind on each brace's tributary strip of walls `i` built in place (lb, in slot order);
+    `positions` and `mask` are their braces as in BraceSet."""
     s, b = walls.height[i], walls.width[i]
     b_over_s = b / s
     s_over_h = s / (walls.base[i] + s)
-    x = np.where(bs.mask, bs.positions, np.nan)
+    x = np.where(mask, positions, np.nan)
     order = np.sort(x, axis=1)
     mids = (order[:, 1:] + order[:, :-1]) / 2.0
     lo = np.concatenate([np.zeros((len(i), 1)), mids], axis=1)
     hi = np.concatenate([mids, np.full((len(i), 1), np.inf)], axis=1)
     hi = np.minimum(np.where(np.isnan(hi), b[:, None], hi), b[:, None])
-    count = bs.mask.sum(axis=1)
-    last = np.arange(bs.mask.shape[1])[None, :] == (count - 1)[:, None]
+    count = mask.sum(axis=1)
+    last = np.arange(mask.shape[1])[None, :] == (count - 1)[:, None]
     hi = np.where(last, b[:, None], hi)
     lo, hi = np.where(np.isnan(lo), 0.0, lo), np.where(np.isnan(hi), 0.0, hi)
     width = np.maximum(hi - lo, 0.0)
@@ -395,8 +414,8 @@ def _strip_loads(walls, wind, bs, minimum_psf):
     strip = np.maximum(wind.q[i][:, None] * asce7.GUST_FACTOR * cf * ss * width,
                        (minimum_psf or 0.0) * ss * width)  # ASCE 7-16 Eq. 29.3-1 and §29.7
     # strips follow the sorted positions: map them back to each brace's own slot
-    rank = np.argsort(np.argsort(np.where(bs.mask, bs.positions, np.inf), axis=1), axis=1)
-    return np.where(bs.mask, np.take_along_axis(strip, rank, axis=1), 0.0)
+    rank = np.argsort(np.argsort(np.where(mask, positions, np.inf), axis=1), axis=1)
+    return np.where(mask, np.take_along_axis(strip, rank, axis=1), 0.0)
 
 
 SERVICEABILITY = {"wall cracking"}  # shown and flagged, not counted in the status or the speeds
@@ -453,72 +472,50 @@ def sources(brace_kind: str, foot_kind: str | None) -> dict[str, str]:
 def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads | None = None):
     """Demand and capacity of every braced element, worst brace of each wall (arrays over m).
 
-    `loads` (from `brace_loads`) may be given to skip recomputing the wind's load cases.
+    `loads` (from `brace_loads`) may be given to skip working out the wind's load cases (the
+    wind is then not read). A check that applies to none of the walls is NaN throughout.
     """
     i = bs.index
     if loads is None:
         loads = brace_loads(walls, wind, bs, minimum_psf)
-    forces = brace_forces(walls, wind, loads, bs, f)
-    p = forces.axial.max(axis=1)
-    theta = np.radians(bs.angle)
+    forces = brace_forces(walls, loads, bs, f)
+    p = braces.worst_brace(forces.axial)
     na = np.full(len(i), np.nan)
-    # Self-weight bending (dead load adds) amplified by B1, AISC 360-16 Appendix 8 Eq. A-8-3.
-    amplified = f.dead_adds * bs.self_weight_ratio * members.amplifier_of(p, bs.euler_load,
-                                                                          bs.basis)
-    with np.errstate(divide="ignore", invalid="ignore"):  # a zero rating fails below, visibly
-        ratio = np.asarray(members.pipe_axial_bending_ratio(p, bs.compression, amplified, 1.0))
-    comp_cap = np.where(bs.self_weight_ratio > 0, p / np.maximum(ratio, 1e-12), bs.compression)
-    comp_cap = np.where(p > 0, comp_cap, bs.compression)
+    comp_cap = bs.compression
+    pipe = bs.self_weight_ratio > 0
+    if pipe.any():
+        # Self-weight bending (dead load adds) amplified by B1, AISC 360-16 Appendix 8 Eq. A-8-3.
+        amplified = f.dead_adds * bs.self_weight_ratio * members.amplifier_of(p, bs.euler_load,
+                                                                              bs.basis)
+        with np.errstate(divide="ignore", invalid="ignore"):  # a zero rating fails below, visibly
+            ratio = np.asarray(members.pipe_axial_bending_ratio(p, bs.compression, amplified,
+                                                                1.0))
+        comp_cap = np.where(pipe & (p > 0), p / np.maximum(ratio, 1e-12), bs.compression)
     checks = {
         "brace compression": (p, comp_cap),
         "brace tension": (p, bs.tension),
-        "brace end fittings": (np.where(np.isnan(bs.connection), na, p), bs.connection),
+        "brace end fittings": (p, bs.connection),
     }
     pull, up = braces.components(p, bs.angle)
     # the insert: the horizontal component pulls it out of the face, the vertical one shears it
     insert_ratio = pull / bs.insert_tension + up / bs.insert_shear
-    checks["wall insert"] = (np.where(np.isnan(insert_ratio), na, p),
-                             p / np.maximum(insert_ratio, 1e-12))
+    checks["wall insert"] = (p, p / np.maximum(insert_ratio, 1e-12))
     # The foot anchor: uplift P sin(theta) and pull P cos(theta) with the brace in tension.
     kind = bs.foot_kind
-    slab_ratio = np.where(kind == "slab", anchors.tension_shear_interaction(
-        up, bs.foot_tension, pull, bs.foot_shear), np.nan)
+    slab = kind == "slab"
+    slab_ratio = (np.where(slab, anchors.tension_shear_interaction(
+        up, bs.foot_tension, pull, bs.foot_shear), np.nan) if slab.any() else na)
     rated_ratio = up / bs.foot_tension + pull / bs.foot_shear
-    foot_ratio = np.select([kind == "slab", np.isin(kind, RATED_FEET),
-                            kind == "helical"],
+    foot_ratio = np.select([slab, np.isin(kind, RATED_FEET), kind == "helical"],
                            [slab_ratio, rated_ratio, p / bs.foot_tension], np.nan)
-    checks["foot anchor"] = (np.where(np.isnan(foot_ratio), na, p),
-                             p / np.maximum(foot_ratio, 1e-12))
+    checks["foot anchor"] = (p, p / np.maximum(foot_ratio, 1e-12))
     deadman = kind == "deadman"
-    weight = np.where(deadman, bs.foot_tension, np.nan)
-    checks["deadman uplift"] = (np.where(deadman, up, na),
-                                anchors.deadman_uplift(weight, f.dead_resists))
-    # foot_mu is already the friction over its factor of safety
-    checks["deadman sliding"] = (np.where(deadman, pull, na), anchors.deadman_sliding(
-        weight, up, bs.foot_mu, basis=f.dead_resists))
-    # Tipping about the block's toe: the pull at the pin's height and the uplift at its distance
-    # from the toe against the factored weight at mid-length (statics, ASCE 7-16 §2.4.1).
-    sized = deadman & ~np.isnan(bs.block_length)
-    checks["deadman overturning"] = (
-        np.where(sized, anchors.deadman_overturning_moment(pull, up, bs.pin_height,
-                                                           bs.pin_from_toe), na),
-        np.where(sized, anchors.deadman_resisting_moment(weight, bs.block_length / 2.0,
-                                                         f.dead_resists), na))
-    # The soil under the block's more loaded edge (the toe, unless the uplift sits far back):
-    # its weight (dead load adds) less the uplift, with the moment about its middle of the pull
-    # at the pin's height and of the uplift off the middle (statics; linear pressure, no
-    # tension), against the allowable bearing. Lifted off (no weight left): no bearing at all.
-    bearing = deadman & ~np.isnan(bs.block_width)
-    net = f.dead_adds * weight - up
-    peak = stability.max_soil_pressure(
-        net, np.abs(pull * bs.pin_height + up * (bs.pin_from_toe - bs.block_length / 2.0)),
-        bs.block_length, bs.block_width)
-    checks["deadman bearing"] = (np.where(bearing, np.where(net > 0.0, peak, np.inf), na),
-                                 np.where(bearing, bs.block_bearing, na))
+    checks.update(_deadman_checks(bs, f, deadman, pull, up, na) if deadman.any()
+                  else dict.fromkeys(DEADMAN_CHECKS, (na, na)))
     # The wall's base: lifted by the braces in compression, pushed out by the base shear.
     s, b = walls.height[i], walls.width[i]
     dead = walls.face_weight[i] * s * b * walls.solidity[i]
-    lift = forces.total * np.tan(theta)
+    lift = forces.total * np.tan(np.radians(bs.angle))
     # A framed wall's sill is nailed or bolted down: that connection is the framer's to design.
     held = ~walls.framed[i]
     checks["base uplift"] = (np.where(held, lift, na), f.dead_resists * dead)
@@ -528,14 +525,10 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
     pressure = f.wind * forces.wind_force / (b * s)
     span, cantilever = braces.propped_wall_moments(pressure, s, bs.insert)
     moment = np.maximum(span, cantilever)
-    cracking = braces.cracking_moment(bs.rupture, walls.thickness_ft[i] * 12.0)
-    above = f.dead_resists * walls.face_weight[i] * (s - bs.insert)
-    masonry_cap = np.maximum(
-        stability.rocking_resistance(above, walls.thickness_ft[i]),
-        stability.masonry_flexural_capacity(walls.flex_tension[i], walls.section[i],
-                                            walls.section_area[i], above))
     masonry = walls.masonry[i]
-    checks["wall bending"] = (np.where(masonry, moment, na), np.where(masonry, masonry_cap, na))
+    checks["wall bending"] = (_masonry_bending(walls, bs, f, masonry, s, moment, na)
+                              if masonry.any() else (na, na))
+    cracking = braces.cracking_moment(bs.rupture, walls.thickness_ft[i] * 12.0)
     concrete = ~np.isnan(cracking)
     checks["wall cracking"] = (np.where(concrete, moment, na), np.where(concrete, cracking, na))
     # A check whose capacity is not known is not made (its element is not counted).
@@ -543,10 +536,53 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
     return checks, forces
 
 
+DEADMAN_CHECKS = ("deadman uplift", "deadman sliding", "deadman overturning", "deadman bearing")
+
+
+def _deadman_checks(bs: BraceSet, f, deadman, pull, up, na) -> dict:
+    """The deadman checks (demand, capacity) of the walls whose braces stand on deadmen."""
+    weight = np.where(deadman, bs.foot_tension, np.nan)
+    # Tipping about the block's toe: the pull at the pin's height and the uplift at its distance
+    # from the toe against the factored weight at mid-length (statics, ASCE 7-16 §2.4.1).
+    sized = deadman & ~np.isnan(bs.block_length)
+    # The soil under the block's more loaded edge (the toe, unless the uplift sits far back):
+    # its weight (dead load adds) less the uplift, with the moment about its middle of the pull
+    # at the pin's height and of the uplift off the middle (statics; linear pressure, no
+    # tension), against the allowable bearing. Lifted off (no weight left): no bearing at all.
+    bearing = deadman & ~np.isnan(bs.block_width)
+    net = f.dead_adds * weight - up
+    peak = stability.max_soil_pressure(
+        net, np.abs(pull * bs.pin_height + up * (bs.pin_from_toe - bs.block_length / 2.0)),
+        bs.block_length, bs.block_width)
+    return dict(zip(DEADMAN_CHECKS, (
+        (np.where(deadman, up, na), anchors.deadman_uplift(weight, f.dead_resists)),
+        # foot_mu is already the friction over its factor of safety
+        (np.where(deadman, pull, na), anchors.deadman_sliding(weight, up, bs.foot_mu,
+                                                              basis=f.dead_resists)),
+        (np.where(sized, anchors.deadman_overturning_moment(pull, up, bs.pin_height,
+                                                            bs.pin_from_toe), na),
+         np.where(sized, anchors.deadman_resisting_moment(weight, bs.block_length / 2.0,
+                                                          f.dead_resists), na)),
+        (np.where(bearing, np.where(net > 0.0, peak, np.inf), na),
+         np.where(bearing, bs.block_bearing, na)))))
+
+
+def _masonry_bending(walls, bs: BraceSet, f, masonry, s, moment, na):
+    """Moment and capacity of the masonry walls at their base joint, per ft: rocking on the
+    weight above, or the mortar's flexural tension (TMS 402-16 §8.2)."""
+    i = bs.index
+    above = f.dead_resists * walls.face_weight[i] * (s - bs.insert)
+    capacity = np.maximum(
+        stability.rocking_resistance(above, walls.thickness_ft[i]),
+        stability.masonry_flexural_capacity(walls.flex_tension[i], walls.section[i],
+                                            walls.section_area[i], above))
+    return np.where(masonry, moment, na), np.where(masonry, capacity, na)
+
+
 def braced_records(bs: BraceSet, forces: BraceForces) -> list[dict]:
     """The §8 `braces` record of every braced wall (design wind, governing brace), in row order."""
     count = bs.mask.sum(axis=1)
-    p = forces.axial.max(axis=1)
+    p = braces.worst_brace(forces.axial)
     pull, up = braces.components(p, bs.angle)
     uplift = forces.total * np.tan(np.radians(bs.angle))
     helical = bs.foot_kind == "helical"

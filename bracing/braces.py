@@ -7,6 +7,8 @@ share the wind by statics, carrying all the twist (no twist restraint credited a
 
 from __future__ import annotations
 
+import functools
+
 import numpy as np
 
 
@@ -67,16 +69,23 @@ def brace_shares(total_h, force_lb, force_at_ft, wall_centre_ft, positions_ft, m
     M_t = F (x_F - x_c) - (F - sum(R)) (x_w - x_c). Arrays: (..., walls) for loads, (walls,
     braces) for positions with `mask` true where a brace exists; `lever` from `brace_lever`.
     """
-    n, xc, arm, polar = lever if lever is not None else brace_lever(positions_ft, mask)
+    lever = lever if lever is not None else brace_lever(positions_ft, mask)
+    share, per_arm = share_and_twist(total_h, force_lb, force_at_ft, wall_centre_ft, lever)
+    with np.errstate(invalid="ignore"):
+        return np.where(mask, share[..., None] + per_arm[..., None] * lever[2], np.nan)
+
+
+def share_and_twist(total_h, force_lb, force_at_ft, wall_centre_ft, lever):
+    """The two terms of `brace_shares` for each wall: the even share sum(R)/n and the twist per
+    ft of arm M_t / sum((x_j - x_c)^2); brace i then takes share + per_arm (x_i - x_c)."""
+    n, xc, _, polar = lever
     twist = force_lb * (force_at_ft - xc) - (force_lb - total_h) * (wall_centre_ft - xc)
     with np.errstate(divide="ignore", invalid="ignore"):
         per_arm = np.where(polar > 0, twist / polar, 0.0)
     # Braces at one point (a single brace) have no lever against twist, and the base is given
     # none (design.md §6): any twist left is more than they can carry.
     loose = (polar <= 0) & (np.abs(twist) > 1e-9 * (np.abs(force_lb) + np.abs(total_h) + 1.0))
-    share = np.where(loose, np.inf, total_h / n)
-    with np.errstate(invalid="ignore"):
-        return np.where(mask, share[..., None] + per_arm[..., None] * arm, np.nan)
+    return np.where(loose, np.inf, total_h / n), per_arm
 
 
 def axial_force(horizontal_lb, angle_deg):
@@ -114,3 +123,9 @@ def modulus_of_rupture(fc_psi, lam=1.0):
 def cracking_moment(fr_psi, thickness_in):
     """Moment per ft of width that cracks a solid section, f_r S with S = 12 t^2 / 6 (lb-ft/ft)."""
     return fr_psi * 12.0 * thickness_in**2 / 6.0 / 12.0
+
+
+def worst_brace(values):
+    """Each wall's largest value over its brace slots (the last axis), taken a slot at a time:
+    numpy's own reduction over so short an axis is many times slower."""
+    return functools.reduce(np.maximum, np.moveaxis(values, -1, 0))

@@ -28,6 +28,7 @@ SPEED_BRACKET_MPH = (0.0, 400.0)
 HEIGHT_BRACKET_FT = (0.01, 300.0)
 TYPICAL_LIMIT_MPH = 90.0  # first trial of a speed search: near most working limits
 ROOT_TOLERANCE = 1e-7  # a search settles where |g| (a utilization less 1) is below this
+BRACED_WALLS_AT_ONCE = 8192  # braced walls checked in one pass of a search
 
 
 @dataclass(frozen=True)
@@ -653,17 +654,18 @@ def braced_utilization(w: Walls, unit: Wind, bs: braced.BraceSet):
     in an observed gust whose speed squared is v2 (mph^2).
 
     `unit` is the observed wind of a 1 mph gust on every wall; `bs` may list a wall more than
-    once (variants with a brace missing): each row is its own wall.
+    once (variants with a brace missing): each row is its own wall. The wind's loads are linear
+    in q: worked out once at 1 mph, then scaled.
     """
-    own = take(w, bs.index)
-    wind = take(unit, bs.index)
-    mine = replace(bs, index=np.arange(len(bs.index)))
-    loads = braced.brace_loads(own, wind, mine, None)
+    loads = braced.brace_loads(w, unit, bs, None)
 
     def g(v2, rows):
-        sub = replace(take(mine, rows), index=np.arange(len(rows)))
-        checks, _ = braced.braced_checks(take(own, rows), take(wind, rows).scaled(v2), sub,
-                                         SERVICE, None, loads.take(rows).scaled(v2))
+        parts = -(-len(rows) // BRACED_WALLS_AT_ONCE)
+        if parts > 1:  # in parts: the arrays of many more walls outgrow the processor's cache
+            return np.concatenate([g(*part) for part in zip(np.array_split(v2, parts),
+                                                            np.array_split(rows, parts))])
+        checks, _ = braced.braced_checks(w, None, braced.take(bs, rows), SERVICE, None,
+                                         loads.take(rows).scaled(v2))
         return governing_utilization(strength_only(checks)) - 1.0
     return g
 
@@ -705,7 +707,9 @@ def braced_limit_one_missing(w: Walls, unit: Wind, bs: braced.BraceSet,
     limits[first] = search(first)
     best = np.full(len(bs.index), np.nan)
     best[rows[first]] = limits[first]
-    rest = np.setdiff1d(np.arange(len(rows)), first)
+    searched = np.zeros(len(rows), bool)
+    searched[first] = True
+    rest = np.flatnonzero(~searched)
     found = best[rows[rest]]
     known = rest[found > 0.0]  # a limit of 0 is the least there can be
     # (a mirror image of the first, say, is at 0 there, within the search's own tolerance)
