@@ -10,7 +10,7 @@ with its own lone-panel Cases A and B (the state before its neighbours were set)
 from __future__ import annotations
 
 from dataclasses import dataclass
-from itertools import chain
+from itertools import chain, repeat
 from operator import attrgetter
 
 import numpy as np
@@ -45,17 +45,13 @@ def standing_days(site: Site) -> tuple[np.ndarray, np.ndarray]:
     A wall releases on its sign-off day, and only when every event it waits for is done by then
     (OSHA 1926.704(a): braces stay until the permanent connections are complete).
     """
-    events = {e.name: e.day for e in site.events}
-    lift = np.array([np.nan if p.lift_day is None else p.lift_day for p in site.panels], float)
+    lift = np.array([p.lift_day for p in site.panels], float)  # None: NaN, not scheduled
     release = np.full(len(site.panels), np.inf)
-    by_mark = {p.mark: i for i, p in enumerate(site.panels)}
-    for so in site.signoffs:  # the earliest valid sign-off: after the lift and every event
-        i = by_mark[so.panel]
-        p = site.panels[i]
-        valid = (p.lift_day is not None and so.day >= p.lift_day
-                 and all(events[n] <= so.day for n in p.release_after))
-        if valid:
-            release[i] = min(release[i], so.day)
+    if site.signoffs:  # the earliest valid sign-off: after the lift and every event
+        row = dict(zip(map(attrgetter("mark"), site.panels), range(len(site.panels))))
+        wall, day = (np.array(c) for c in zip(*((row[s.panel], s.day) for s in site.signoffs)))
+        valid = (day >= lift[wall]) & ~(release_event_days(site)[wall] > day)
+        np.minimum.at(release, wall[valid], day[valid])
     return lift, release
 
 
@@ -143,7 +139,7 @@ def _standing_groups(site: Site, on_line: np.ndarray, line: tuple, start: np.nda
     line_length = np.array([np.hypot(*np.subtract(ln.end, ln.start)) for ln in lines.values()])
     names = list(lines)
     number = {name: k for k, name in enumerate(names)}
-    line_id = np.array([number[name] if on else -1 for name, on in zip(line, on_line.tolist())])
+    line_id = np.where(on_line, np.fromiter(map(number.get, line, repeat(-1)), int, len(line)), -1)
     order = np.lexsort((start, line_id))
     order = order[on_line[order]]  # walls on lines, by line then along it
     corners = _corners(lines)

@@ -41,6 +41,7 @@ import csv
 import math
 from dataclasses import dataclass, field, replace
 from datetime import date, timedelta
+from operator import attrgetter
 from pathlib import Path
 
 import numpy as np
@@ -239,12 +240,13 @@ PLANNED_FROM = np.array(["the wall's standing_time", "its release events",
 
 def _walls(site: Site) -> _Walls:
     """The scheduled walls, their release days and sign-off flags (see the module)."""
-    lift = np.array([p.lift_day for p in site.panels], float)  # None: NaN, not scheduled
+    lift, marks, own = zip(*map(attrgetter("lift_day", "mark", "standing_time"), site.panels))
+    lift = np.array(lift, float)  # None: NaN, not scheduled
     index = np.flatnonzero(~np.isnan(lift))
     lift = lift[index].astype(int)
-    marks = np.array([p.mark for p in site.panels], dtype=object)[index]
+    marks = np.array(marks, dtype=object)[index]
     event_day = lines.release_event_days(site)[index]
-    own = np.array([p.standing_time for p in site.panels], float)[index]  # None: NaN, not given
+    own = np.array(own, float)[index]  # None: NaN, not given
     source = np.where(np.isnan(own), np.where(np.isnan(event_day), 2, 1), 0)  # PLANNED_FROM
     weeks = np.choose(source, [own, lines.weeks_to_release(lift, event_day),
                                site.site.construction_period])
@@ -347,10 +349,9 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
     use = (walls.lift, release, np.array(count, int), last)
     braces, anchors = _in_use([brace], *use), _in_use([wall_anchor, foot_anchor], *use)
     fresh = _fresh_mortar(site, walls, results, day)                      # (days, walls)
-    stand_down = np.where(fresh, _speeds(results, "fresh_stand_down_speed_mph"),
-                          _speeds(results, "stand_down_speed_mph"))
-    limit = np.where(fresh, _speeds(results, "fresh_working_limit_speed_mph"),
-                     _speeds(results, "working_limit_speed_mph"))
+    stand_down, limit, fresh_stand_down, fresh_limit = _speeds(results)
+    stand_down = np.where(fresh, fresh_stand_down, stand_down)
+    limit = np.where(fresh, fresh_limit, limit)
     slips = _period_slips(walls, results, release, last)
     on_day: dict[int, list[Flag]] = {}
     for d, f in zip(walls.flag_day.tolist(), walls.flags):
@@ -404,9 +405,12 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
     return days, peak, slips
 
 
-def _speeds(results: list[PanelResult], name: str) -> np.ndarray:
-    """One speed of every wall (NaN where it has none)."""
-    return np.array([getattr(r, name) for r in results], dtype=float)
+def _speeds(results: list[PanelResult]) -> np.ndarray:
+    """The stand-down and working-limit speeds of every wall, then both with fresh mortar, one
+    row each (NaN where it has none)."""
+    return np.array(list(map(attrgetter(
+        "stand_down_speed_mph", "working_limit_speed_mph", "fresh_stand_down_speed_mph",
+        "fresh_working_limit_speed_mph"), results)), dtype=float).T
 
 
 def _fresh_mortar(site: Site, walls: _Walls, results: list[PanelResult], day: np.ndarray
