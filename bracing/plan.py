@@ -154,8 +154,12 @@ class Places(Mapping):
     line_ft: np.ndarray    # the line's length
 
     def __post_init__(self):
-        self._row = dict(zip(self.mark.tolist(), range(len(self.mark))))
         self._read: tuple[Site, _Bracing, _Braces] | None = None
+
+    @cached_property
+    def _row(self) -> dict[str, int]:
+        """Each mark's row, made when a wall is asked for by mark."""
+        return dict(zip(self.mark.tolist(), range(len(self.mark))))
 
     def bracing(self, site: Site) -> _Bracing:
         """The bracing of every wall placed, read from `site` (the site placed) only once for
@@ -201,7 +205,7 @@ class Places(Mapping):
         return iter(self._row)
 
     def __len__(self) -> int:
-        return len(self._row)
+        return len(self.mark)
 
 
 def place(site: Site) -> Places:
@@ -650,9 +654,7 @@ class _Reach:
 
 def _reach(places: Places, rows: np.ndarray, t: _Braces) -> _Reach:
     """The reach of the walls at `rows` (in order) with their braces `t`."""
-    c = places.footprint_corners[rows]
-    lo = np.minimum(np.minimum(c[:, 0], c[:, 1]), np.minimum(c[:, 2], c[:, 3]))
-    hi = np.maximum(np.maximum(c[:, 0], c[:, 1]), np.maximum(c[:, 2], c[:, 3]))
+    lo, hi = _box(places.footprint_corners[rows])
     first = np.searchsorted(t.wall, rows)
     count = np.searchsorted(t.wall, rows, side="right") - first
     braced = count > 0  # a wall's braces are together in the table
@@ -664,6 +666,13 @@ def _reach(places: Places, rows: np.ndarray, t: _Braces) -> _Reach:
     diagonals = shapely.linestrings(np.stack([lo, hi], axis=1))
     a, b = shapely.STRtree(diagonals).query(diagonals)
     return _Reach(rows, lo, hi, first, count, np.stack([a[a < b], b[a < b]]))
+
+
+def _box(corners: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """Least and greatest x and y of each outline of four `corners` (n, 4, 2), each (n, 2)."""
+    c = corners
+    return (np.minimum(np.minimum(c[:, 0], c[:, 1]), np.minimum(c[:, 2], c[:, 3])),
+            np.maximum(np.maximum(c[:, 0], c[:, 1]), np.maximum(c[:, 2], c[:, 3])))
 
 
 def _every_pair(first_a, count_a, first_b, count_b) -> tuple[np.ndarray, np.ndarray]:
@@ -753,7 +762,7 @@ def _zone_overlaps(site: Site, places: Places, rows: np.ndarray,
         return []
     shapes = np.array([shapely.make_valid(Polygon(a.polygon)) for a in areas])
     # only a zone whose bounding box meets an area's can overlap it: the others are not drawn
-    lo, hi, box = corners.min(axis=1), corners.max(axis=1), shapely.bounds(shapes)
+    (lo, hi), box = _box(corners), shapely.bounds(shapes)
     near = ((lo[:, None, 0] <= box[:, 2]) & (hi[:, None, 0] >= box[:, 0])
             & (lo[:, None, 1] <= box[:, 3]) & (hi[:, None, 1] >= box[:, 1])).any(axis=1)
     rows, zs = rows[near], shapely.polygons(corners[near])

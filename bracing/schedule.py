@@ -41,7 +41,7 @@ import csv
 import math
 from dataclasses import dataclass, field, replace
 from datetime import date, timedelta
-from operator import attrgetter
+from operator import itemgetter
 from pathlib import Path
 
 import numpy as np
@@ -240,13 +240,12 @@ PLANNED_FROM = np.array(["the wall's standing_time", "its release events",
 
 def _walls(site: Site) -> _Walls:
     """The scheduled walls, their release days and sign-off flags (see the module)."""
-    lift, marks, own = zip(*map(attrgetter("lift_day", "mark", "standing_time"), site.panels))
-    lift = np.array(lift, float)  # None: NaN, not scheduled
+    lift = np.array([p.lift_day for p in site.panels], float)  # None: NaN, not scheduled
     index = np.flatnonzero(~np.isnan(lift))
     lift = lift[index].astype(int)
-    marks = np.array(marks, dtype=object)[index]
+    marks = np.array([p.mark for p in site.panels], dtype=object)[index]
     event_day = lines.release_event_days(site)[index]
-    own = np.array(own, float)[index]  # None: NaN, not given
+    own = np.array([p.standing_time for p in site.panels], float)[index]  # None: NaN, not given
     source = np.where(np.isnan(own), np.where(np.isnan(event_day), 2, 1), 0)  # PLANNED_FROM
     weeks = np.choose(source, [own, lines.weeks_to_release(lift, event_day),
                                site.site.construction_period])
@@ -349,9 +348,10 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
     use = (walls.lift, release, np.array(count, int), last)
     braces, anchors = _in_use([brace], *use), _in_use([wall_anchor, foot_anchor], *use)
     fresh = _fresh_mortar(site, walls, results, day)                      # (days, walls)
-    stand_down, limit, fresh_stand_down, fresh_limit = _speeds(results)
-    stand_down = np.where(fresh, fresh_stand_down, stand_down)
-    limit = np.where(fresh, fresh_limit, limit)
+    stand_down = np.where(fresh, _speeds(results, "fresh_stand_down_speed_mph"),
+                          _speeds(results, "stand_down_speed_mph"))
+    limit = np.where(fresh, _speeds(results, "fresh_working_limit_speed_mph"),
+                     _speeds(results, "working_limit_speed_mph"))
     slips = _period_slips(walls, results, release, last)
     on_day: dict[int, list[Flag]] = {}
     for d, f in zip(walls.flag_day.tolist(), walls.flags):
@@ -405,12 +405,9 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
     return days, peak, slips
 
 
-def _speeds(results: list[PanelResult]) -> np.ndarray:
-    """The stand-down and working-limit speeds of every wall, then both with fresh mortar, one
-    row each (NaN where it has none)."""
-    return np.array(list(map(attrgetter(
-        "stand_down_speed_mph", "working_limit_speed_mph", "fresh_stand_down_speed_mph",
-        "fresh_working_limit_speed_mph"), results)), dtype=float).T
+def _speeds(results: list[PanelResult], name: str) -> np.ndarray:
+    """One speed of every wall (NaN where it has none)."""
+    return np.array([getattr(r, name) for r in results], dtype=float)
 
 
 def _fresh_mortar(site: Site, walls: _Walls, results: list[PanelResult], day: np.ndarray
@@ -438,23 +435,23 @@ def _by_day(marks: np.ndarray, day: np.ndarray) -> dict[int, list[str]]:
     return {int(day[g[0]]): marks[g].tolist() for g in groups if len(g) and day[g[0]]}
 
 
-def _gear(site: Site, index: np.ndarray, results: list[PanelResult]) -> list[list]:
+GEAR = ("brace_type", "wall_anchor", "foot_anchor", "count")
+
+
+def _gear(site: Site, index: np.ndarray, results: list[PanelResult]) -> list[tuple]:
     """Each wall's brace type, wall anchor and foot anchor (None: not named) and brace count, as
-    `hardware` reads them: from its result's `braces` record, else from the site file's
-    `bracing` (`index`: the walls' rows in site.panels, `results` in their order)."""
-    records = [r.braces or {} for r in results]
-    rows, columns = index.tolist(), []
-    for key, unnamed in (("brace_type", None), ("wall_anchor", None), ("foot_anchor", None),
-                         ("count", 0)):
-        column = [d.get(key, _NOT_RECORDED) for d in records]
-        for k in [k for k, v in enumerate(column) if v is _NOT_RECORDED]:
-            bracing = site.panels[rows[k]].bracing
-            column[k] = getattr(bracing, key) if bracing else unnamed
-        columns.append(column)
-    return columns
-
-
-_NOT_RECORDED = object()  # a key missing from a wall's `braces` record
+    `hardware` reads them (`index`: the walls' rows in site.panels, `results` in their order)."""
+    recorded, keys = itemgetter(*GEAR), frozenset(GEAR)
+    rows = []
+    for r, i in zip(results, index.tolist()):
+        d = r.braces
+        if d is not None and d.keys() >= keys:  # a braced wall's result names them all
+            rows.append(recorded(d))
+        else:
+            h = hardware(site.panels[i].bracing, r)
+            rows.append((None, None, None, 0) if h is None else
+                        (h.brace_type, h.wall_anchor, h.foot_anchor, h.count))
+    return list(zip(*rows))
 
 
 def _in_use(types: list[list], lift: np.ndarray, release: np.ndarray, count: np.ndarray,
