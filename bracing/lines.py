@@ -142,16 +142,19 @@ def _standing_groups(site: Site, on_line: np.ndarray, line: tuple, start: np.nda
     line_id = np.where(on_line, np.fromiter(map(number.get, line, repeat(-1)), int, len(line)), -1)
     order = np.lexsort((start, line_id))
     order = order[on_line[order]]  # walls on lines, by line then along it
+    lift_o, release_o, line_o, lo_o = lift[order], release[order], line_id[order], start[order]
+    hi_o = lo_o + width[order]
     corners = _corners(lines)
     days = np.unique(np.concatenate([lift[on_line], release[on_line & np.isfinite(release)]]))
     found = []
     last = np.full((4, len(site.panels)), np.nan)  # each wall's group on its last standing day
     for day in days:
-        members = order[(lift[order] <= day) & (release[order] > day)]
+        up = (lift_o <= day) & (release_o > day)
+        members = order[up]
         if len(members) == 0:  # every wall on the lines released that day
             continue
         # groups: a new one where the line changes or a gap wider than a joint opens
-        lid, lo_m, hi_m = line_id[members], start[members], start[members] + width[members]
+        lid, lo_m, hi_m = line_o[up], lo_o[up], hi_o[up]
         breaks = (np.diff(lid) != 0) | (lo_m[1:] - hi_m[:-1] > gap)
         first = np.concatenate([[0], np.nonzero(breaks)[0] + 1])
         group = np.cumsum(np.concatenate([[0], breaks]))

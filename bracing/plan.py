@@ -154,7 +154,7 @@ class Places(Mapping):
     line_ft: np.ndarray    # the line's length
 
     def __post_init__(self):
-        self._read: tuple[Site, _Bracing, _Braces] | None = None
+        self._read: tuple[Site, _Bracing, _Braces, _SlabFeet] | None = None
 
     @cached_property
     def _row(self) -> dict[str, int]:
@@ -170,10 +170,15 @@ class Places(Mapping):
         """Every brace of every wall placed (`_brace_table`), worked out once as `bracing`."""
         return self._every(site)[2]
 
-    def _every(self, site: Site) -> tuple[Site, _Bracing, _Braces]:
+    def slab_feet(self, site: Site) -> _SlabFeet:
+        """Where the slab-anchor feet of every wall placed stand, worked out once as `bracing`."""
+        return self._every(site)[3]
+
+    def _every(self, site: Site) -> tuple[Site, _Bracing, _Braces, _SlabFeet]:
         if self._read is None or self._read[0] is not site:
             bracing = _bracing(site, self, self.rows())
-            self._read = (site, bracing, _brace_table(self, bracing))
+            table = _brace_table(self, bracing)
+            self._read = (site, bracing, table, _slab_feet(site, table))
         return self._read
 
     @cached_property
@@ -408,6 +413,28 @@ def _edge_distances_ft(slab: _Slab, points: np.ndarray) -> tuple[np.ndarray, np.
     return d.min(axis=0), d.argmin(axis=0)
 
 
+@dataclass(frozen=True)
+class _SlabFeet:
+    """The braces on slab anchors (`rows` of a brace table) and where their feet stand: on the
+    slab or not, the least distance (ft) to its edge, a hole or a joint (nan: not known) and
+    which of `slab.edges` that is (all off the slab when the plan has none)."""
+
+    slab: _Slab | None
+    rows: np.ndarray
+    on: np.ndarray
+    edge_ft: np.ndarray
+    edge: np.ndarray
+
+
+def _slab_feet(site: Site, t: _Braces) -> _SlabFeet:
+    slab, rows = _slab(site), np.flatnonzero(t.kind == "slab")
+    if slab is None:
+        return _SlabFeet(None, rows, np.zeros(len(rows), bool), np.full(len(rows), np.nan),
+                         np.zeros(len(rows), int))
+    feet = t.foot[rows]
+    return _SlabFeet(slab, rows, _covered(slab.area, feet), *_edge_distances_ft(slab, feet))
+
+
 def _covered(area, points: np.ndarray) -> np.ndarray:
     """Whether each point lies inside `area` or on its boundary."""
     return shapely.intersects_xy(area, points[:, 0], points[:, 1])
@@ -418,15 +445,11 @@ def foot_edge_distances_in(site: Site, places: Places) -> dict[str, float]:
     for ACI 318-19 §17.6.2.4 (psi_ed,N) and §17.7.2 (c_a1); 0 where a foot is off the slab;
     inf where the wall has no slab anchor, is not placed or the plan has no slab outline."""
     out = dict.fromkeys([p.mark for p in site.panels], np.inf)
-    slab = _slab(site)
-    table = places.braces(site)
-    sel = table.kind == "slab"
-    if slab is None or not sel.any():
+    feet = places.slab_feet(site)
+    if feet.slab is None or len(feet.rows) == 0:
         return out
-    feet = table.foot[sel]
-    dist, _ = _edge_distances_ft(slab, feet)
-    dist = np.where(_covered(slab.area, feet), dist, 0.0) * IN_PER_FT
-    wall = table.wall[sel]
+    dist = np.where(feet.on, feet.edge_ft, 0.0) * IN_PER_FT
+    wall = places.braces(site).wall[feet.rows]
     first = np.flatnonzero(np.r_[True, wall[1:] != wall[:-1]])  # a wall's braces are together
     least = np.fmin.reduceat(dist, first)  # a distance not known (nan) leaves the others
     out.update(zip(places.mark[wall[first]].tolist(), np.fmin(least, np.inf).tolist()))
@@ -526,18 +549,20 @@ def plan_findings(site: Site, places: Places,
                   standing: set[str] | None = None) -> list[tuple[str, Flag]]:
     """(mark, flag) of everything wrong in the plan for the walls standing (None: all placed)."""
     bracing = _read_bracing(site, places, standing)
-    return [(f.mark, f.flag) for f in _findings(site, places, bracing,
-                                                 _brace_table(places, bracing))]
+    table = _brace_table(places, bracing)
+    return [(f.mark, f.flag) for f in _findings(site, places, bracing, table,
+                                                 _slab_feet(site, table))]
 
 
-def _findings(site: Site, places: Places, bracing: _Bracing, table: _Braces,
+def _findings(site: Site, places: Places, bracing: _Bracing, table: _Braces, feet: _SlabFeet,
               heights: dict[str, float] | None = None) -> list[PlanFinding]:
-    """Everything found in the plan with the walls of `bracing` standing (`table`: their braces)."""
+    """Everything found in the plan with the walls of `bracing` standing (`table`: their braces,
+    `feet`: those on slab anchors)."""
     rows = bracing.walls
     reach = _reach(places, rows, table)
     return (_line_findings(places)
-            + _slab_anchor_findings(site, table)
-            + _ground_anchor_findings(site, table)
+            + _slab_anchor_findings(site, table, feet)
+            + _ground_anchor_findings(site, table, feet.slab)
             + _brace_crossings(table, reach)
             + _braces_through_walls(table, places, reach)
             + _braces_in_areas(site, table, reach)
@@ -566,22 +591,19 @@ def _by_mark(marks: np.ndarray, mask: np.ndarray) -> dict[str, np.ndarray]:
     return {m: np.array(rows) for m, rows in groups.items()}
 
 
-def _slab_anchor_findings(site: Site, t: _Braces) -> list[PlanFinding]:
-    sel = np.nonzero(t.kind == "slab")[0]
+def _slab_anchor_findings(site: Site, t: _Braces, slab_feet: _SlabFeet) -> list[PlanFinding]:
+    sel, slab = slab_feet.rows, slab_feet.slab
     if len(sel) == 0:
         return []
-    slab = _slab(site)
     marks = t.mark[sel]
     if slab is None:
         return [PlanFinding(m, Flag(
             "anchor-not-located", "notice", "the plan has no slab outline: the slab anchors' "
             "positions and edge distances are not checked", "design.md §7"), [])
             for m in dict.fromkeys(marks)]
-    feet = t.foot[sel]
-    on = _covered(slab.area, feet)
+    feet, on, which = t.foot[sel], slab_feet.on, slab_feet.edge
     in_hole = _covered(slab.holes, feet) if not slab.holes.is_empty else np.zeros_like(on)
-    dist_in, which = _edge_distances_ft(slab, feet)
-    dist_in = dist_in * IN_PER_FT
+    dist_in = slab_feet.edge_ft * IN_PER_FT
     anchors = t.anchor[sel]
     need, need_in = {}, np.zeros(len(sel))
     for name in site.anchor_types:
@@ -609,11 +631,11 @@ def _slab_anchor_findings(site: Site, t: _Braces) -> list[PlanFinding]:
     return found
 
 
-def _ground_anchor_findings(site: Site, t: _Braces) -> list[PlanFinding]:
+def _ground_anchor_findings(site: Site, t: _Braces, slab: _Slab | None) -> list[PlanFinding]:
     sel = np.nonzero(np.isin(t.kind, GROUND_KINDS))[0]
     if len(sel) == 0:
         return []
-    ground, slab = _ground(site), _slab(site)
+    ground = _ground(site)
     feet, kinds, marks = t.foot[sel], t.kind[sel], t.mark[sel]
     deadman = kinds == "deadman"
     on_ground = _covered(ground, feet) if ground is not None else np.zeros(len(sel), bool)
@@ -853,7 +875,7 @@ def plan_geometry(site: Site, standing: set[str] | None = None, day: int | None 
         lines=[PlanLine(line.name, tuple(line.start), tuple(line.end), line.braced_side)
                for line in site.lines],
         panels=panels,
-        findings=_findings(site, places, bracing, t, heights),
+        findings=_findings(site, places, bracing, t, _slab_feet(site, t), heights),
         bounds=(0.0, 0.0, 1.0, 1.0))
     geometry.bounds = _bounds(geometry)
     return geometry
@@ -887,7 +909,8 @@ class DayPlans(Mapping):
 
 def findings(site: Site, places: Places) -> list[PlanFinding]:
     """Everything found in the plan with every placed wall standing."""
-    return _findings(site, places, places.bracing(site), places.braces(site))
+    return _findings(site, places, places.bracing(site), places.braces(site),
+                     places.slab_feet(site))
 
 
 def day_findings(found: list[PlanFinding], days) -> dict[int, list[Flag]]:
