@@ -15,7 +15,7 @@ from operator import attrgetter
 
 import numpy as np
 
-from bracing.model import Site
+from bracing.model import Panel, Site
 from bracing.wind import asce7
 
 CORNER_TOLERANCE_FT = 1.0  # line ends closer than this meet at a corner
@@ -50,7 +50,8 @@ def standing_days(site: Site) -> tuple[np.ndarray, np.ndarray]:
     if site.signoffs:  # the earliest valid sign-off: after the lift and every event
         row = dict(zip(map(attrgetter("mark"), site.panels), range(len(site.panels))))
         wall, day = (np.array(c) for c in zip(*((row[s.panel], s.day) for s in site.signoffs)))
-        valid = (day >= lift[wall]) & ~(release_event_days(site)[wall] > day)
+        event_day = release_event_days(site, [site.panels[i] for i in wall.tolist()])
+        valid = (day >= lift[wall]) & ~(event_day > day)
         np.minimum.at(release, wall[valid], day[valid])
     return lift, release
 
@@ -61,10 +62,11 @@ def planned_weeks(site: Site) -> np.ndarray:
     return weeks_to_release(lift, release_event_days(site))
 
 
-def release_event_days(site: Site) -> np.ndarray:
-    """Day of the last event each panel's release waits for; NaN where it waits for none."""
+def release_event_days(site: Site, panels: list[Panel] | None = None) -> np.ndarray:
+    """Day of the last event each panel's release waits for (of `panels`, default the site's);
+    NaN where it waits for none."""
     events = {e.name: e.day for e in site.events}
-    after = [p.release_after for p in site.panels]
+    after = [p.release_after for p in (site.panels if panels is None else panels)]
     count = np.fromiter(map(len, after), int, len(after))
     day = np.fromiter(map(events.__getitem__, chain.from_iterable(after)), float, count.sum())
     last = np.full(len(after), np.nan)
