@@ -175,6 +175,7 @@ class Places(Mapping):
         return self._every(site)[3]
 
     def _every(self, site: Site) -> tuple[Site, _Bracing, _Braces, _SlabFeet]:
+        """The site placed, then what `bracing`, `braces` and `slab_feet` give."""
         if self._read is None or self._read[0] is not site:
             bracing = _bracing(site, self, self.rows())
             table = _brace_table(self, bracing)
@@ -427,6 +428,7 @@ class _SlabFeet:
 
 
 def _slab_feet(site: Site, t: _Braces) -> _SlabFeet:
+    """Where the feet of the braces `t` on slab anchors stand on the site's slab."""
     slab, rows = _slab(site), np.flatnonzero(t.kind == "slab")
     if slab is None:
         return _SlabFeet(None, rows, np.zeros(len(rows), bool), np.full(len(rows), np.nan),
@@ -697,6 +699,14 @@ def _box(corners: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
             np.maximum(np.maximum(c[:, 0], c[:, 1]), np.maximum(c[:, 2], c[:, 3])))
 
 
+def _meets_any(lo: np.ndarray, hi: np.ndarray, shapes: np.ndarray) -> np.ndarray:
+    """Whether each box (least and greatest x and y, each (n, 2)) meets the bounding box of
+    any of `shapes`."""
+    box = shapely.bounds(shapes)
+    return ((lo[:, None, 0] <= box[:, 2]) & (hi[:, None, 0] >= box[:, 0])
+            & (lo[:, None, 1] <= box[:, 3]) & (hi[:, None, 1] >= box[:, 1])).any(axis=1)
+
+
 def _every_pair(first_a, count_a, first_b, count_b) -> tuple[np.ndarray, np.ndarray]:
     """For each pair of ranges, range(first, first + count) of a and of b, every (i, j) with i
     of the one and j of the other, pair after pair, i then j in order."""
@@ -755,9 +765,7 @@ def _braces_in_areas(site: Site, t: _Braces, reach: _Reach) -> list[PlanFinding]
         return []
     shapes = np.array([shapely.make_valid(Polygon(a.polygon)) for a in areas])
     # only the braces of a wall whose box meets an area's can enter it: the others are not drawn
-    box = shapely.bounds(shapes)
-    near = ((reach.lo[:, None, 0] <= box[:, 2]) & (reach.hi[:, None, 0] >= box[:, 0])
-            & (reach.lo[:, None, 1] <= box[:, 3]) & (reach.hi[:, None, 1] >= box[:, 1])).any(axis=1)
+    near = _meets_any(reach.lo, reach.hi, shapes)
     rows = np.flatnonzero(np.repeat(near, reach.count))
     segs = t.segments(rows)
     s, k = shapely.STRtree(shapes).query(segs, predicate="intersects")
@@ -784,9 +792,7 @@ def _zone_overlaps(site: Site, places: Places, rows: np.ndarray,
         return []
     shapes = np.array([shapely.make_valid(Polygon(a.polygon)) for a in areas])
     # only a zone whose bounding box meets an area's can overlap it: the others are not drawn
-    (lo, hi), box = _box(corners), shapely.bounds(shapes)
-    near = ((lo[:, None, 0] <= box[:, 2]) & (hi[:, None, 0] >= box[:, 0])
-            & (lo[:, None, 1] <= box[:, 3]) & (hi[:, None, 1] >= box[:, 1])).any(axis=1)
+    near = _meets_any(*_box(corners), shapes)
     rows, zs = rows[near], shapely.polygons(corners[near])
     z, k = shapely.STRtree(shapes).query(zs, predicate="intersects")
     common = shapely.intersection(zs[z], shapes[k])
