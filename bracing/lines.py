@@ -119,7 +119,7 @@ def line_loads(site: Site) -> LineLoads | None:
     # each end's wind at its largest, with its resultant from the panel's own first edge
     for end, mean, at in (("left", left, cx_left * s - (start - lo)),
                           ("right", right, hi - start - cx_right * s)):
-        best = np.lexsort((np.arange(len(member)), -mean, member))
+        best = np.lexsort((-mean, member))  # stable: the earliest of equals first
         best = best[np.r_[True, np.diff(member[best]) != 0]]  # the largest, earliest, per panel
         best = best[~np.isnan(mean[best])]
         out[f"{end}_mean"][member[best]] = mean[best]
