@@ -10,12 +10,12 @@ with its own lone-panel Cases A and B (the state before its neighbours were set)
 from __future__ import annotations
 
 from dataclasses import dataclass
-from itertools import chain
+from itertools import chain, repeat
 from operator import attrgetter
 
 import numpy as np
 
-from bracing.model import Site
+from bracing.model import Panel, Site
 from bracing.wind import asce7
 
 CORNER_TOLERANCE_FT = 1.0  # line ends closer than this meet at a corner
@@ -45,17 +45,14 @@ def standing_days(site: Site) -> tuple[np.ndarray, np.ndarray]:
     A wall releases on its sign-off day, and only when every event it waits for is done by then
     (OSHA 1926.704(a): braces stay until the permanent connections are complete).
     """
-    events = {e.name: e.day for e in site.events}
-    lift = np.array([np.nan if p.lift_day is None else p.lift_day for p in site.panels], float)
+    lift = np.array([p.lift_day for p in site.panels], float)  # None: NaN, not scheduled
     release = np.full(len(site.panels), np.inf)
-    by_mark = {p.mark: i for i, p in enumerate(site.panels)}
-    for so in site.signoffs:  # the earliest valid sign-off: after the lift and every event
-        i = by_mark[so.panel]
-        p = site.panels[i]
-        valid = (p.lift_day is not None and so.day >= p.lift_day
-                 and all(events[n] <= so.day for n in p.release_after))
-        if valid:
-            release[i] = min(release[i], so.day)
+    if site.signoffs:  # the earliest valid sign-off: after the lift and every event
+        row = dict(zip(map(attrgetter("mark"), site.panels), range(len(site.panels))))
+        wall, day = (np.array(c) for c in zip(*((row[s.panel], s.day) for s in site.signoffs)))
+        event_day = release_event_days(site, [site.panels[i] for i in wall.tolist()])
+        valid = (day >= lift[wall]) & ~(event_day > day)
+        np.minimum.at(release, wall[valid], day[valid])
     return lift, release
 
 
@@ -65,10 +62,11 @@ def planned_weeks(site: Site) -> np.ndarray:
     return weeks_to_release(lift, release_event_days(site))
 
 
-def release_event_days(site: Site) -> np.ndarray:
-    """Day of the last event each panel's release waits for; NaN where it waits for none."""
+def release_event_days(site: Site, panels: list[Panel] | None = None) -> np.ndarray:
+    """Day of the last event each panel's release waits for (of `panels`, default the site's);
+    NaN where it waits for none."""
     events = {e.name: e.day for e in site.events}
-    after = [p.release_after for p in site.panels]
+    after = [p.release_after for p in (site.panels if panels is None else panels)]
     count = np.fromiter(map(len, after), int, len(after))
     day = np.fromiter(map(events.__getitem__, chain.from_iterable(after)), float, count.sum())
     last = np.full(len(after), np.nan)
@@ -121,7 +119,7 @@ def line_loads(site: Site) -> LineLoads | None:
     # each end's wind at its largest, with its resultant from the panel's own first edge
     for end, mean, at in (("left", left, cx_left * s - (start - lo)),
                           ("right", right, hi - start - cx_right * s)):
-        best = np.lexsort((np.arange(len(member)), -mean, member))
+        best = np.lexsort((-mean, member))  # stable: the earliest of equals first
         best = best[np.r_[True, np.diff(member[best]) != 0]]  # the largest, earliest, per panel
         best = best[~np.isnan(mean[best])]
         out[f"{end}_mean"][member[best]] = mean[best]
@@ -143,19 +141,22 @@ def _standing_groups(site: Site, on_line: np.ndarray, line: tuple, start: np.nda
     line_length = np.array([np.hypot(*np.subtract(ln.end, ln.start)) for ln in lines.values()])
     names = list(lines)
     number = {name: k for k, name in enumerate(names)}
-    line_id = np.array([number[name] if on else -1 for name, on in zip(line, on_line.tolist())])
+    line_id = np.where(on_line, np.fromiter(map(number.get, line, repeat(-1)), int, len(line)), -1)
     order = np.lexsort((start, line_id))
     order = order[on_line[order]]  # walls on lines, by line then along it
+    lift_o, release_o, line_o, lo_o = lift[order], release[order], line_id[order], start[order]
+    hi_o = lo_o + width[order]
     corners = _corners(lines)
     days = np.unique(np.concatenate([lift[on_line], release[on_line & np.isfinite(release)]]))
     found = []
     last = np.full((4, len(site.panels)), np.nan)  # each wall's group on its last standing day
     for day in days:
-        members = order[(lift[order] <= day) & (release[order] > day)]
+        up = (lift_o <= day) & (release_o > day)
+        members = order[up]
         if len(members) == 0:  # every wall on the lines released that day
             continue
         # groups: a new one where the line changes or a gap wider than a joint opens
-        lid, lo_m, hi_m = line_id[members], start[members], start[members] + width[members]
+        lid, lo_m, hi_m = line_o[up], lo_o[up], hi_o[up]
         breaks = (np.diff(lid) != 0) | (lo_m[1:] - hi_m[:-1] > gap)
         first = np.concatenate([[0], np.nonzero(breaks)[0] + 1])
         group = np.cumsum(np.concatenate([[0], breaks]))

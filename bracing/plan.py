@@ -16,6 +16,8 @@ from __future__ import annotations
 from collections.abc import Mapping
 from dataclasses import dataclass, replace
 from functools import cached_property
+from itertools import chain, repeat
+from operator import attrgetter
 
 import numpy as np
 import shapely
@@ -152,15 +154,33 @@ class Places(Mapping):
     line_ft: np.ndarray    # the line's length
 
     def __post_init__(self):
-        self._row = dict(zip(self.mark.tolist(), range(len(self.mark))))
-        self._read: tuple[Site, _Bracing] | None = None
+        self._read: tuple[Site, _Bracing, _Braces, _SlabFeet] | None = None
+
+    @cached_property
+    def _row(self) -> dict[str, int]:
+        """Each mark's row, made when a wall is asked for by mark."""
+        return dict(zip(self.mark.tolist(), range(len(self.mark))))
 
     def bracing(self, site: Site) -> _Bracing:
         """The bracing of every wall placed, read from `site` (the site placed) only once for
         the foot edge distances and the findings."""
+        return self._every(site)[1]
+
+    def braces(self, site: Site) -> _Braces:
+        """Every brace of every wall placed (`_brace_table`), worked out once as `bracing`."""
+        return self._every(site)[2]
+
+    def slab_feet(self, site: Site) -> _SlabFeet:
+        """Where the slab-anchor feet of every wall placed stand, worked out once as `bracing`."""
+        return self._every(site)[3]
+
+    def _every(self, site: Site) -> tuple[Site, _Bracing, _Braces, _SlabFeet]:
+        """The site placed, then what `bracing`, `braces` and `slab_feet` give."""
         if self._read is None or self._read[0] is not site:
-            self._read = (site, _bracing(site, self, self.rows()))
-        return self._read[1]
+            bracing = _bracing(site, self, self.rows())
+            table = _brace_table(self, bracing)
+            self._read = (site, bracing, table, _slab_feet(site, table))
+        return self._read
 
     @cached_property
     def footprint_corners(self) -> np.ndarray:
@@ -171,9 +191,9 @@ class Places(Mapping):
                    - back[..., None] * self.normal[:, None])
         return corners.reshape(-1, 4, 2)
 
-    @cached_property
-    def footprints(self) -> np.ndarray:
-        return shapely.polygons(self.footprint_corners)
+    def footprints(self, rows) -> np.ndarray:
+        """The footprints of the panels at `rows`, as shapes."""
+        return shapely.polygons(self.footprint_corners[rows])
 
     def rows(self, standing: set[str] | None = None) -> np.ndarray:
         """Rows of the walls standing (None: all), in site order."""
@@ -185,13 +205,13 @@ class Places(Mapping):
         k = self._row[mark]
         return PanelPlace(int(self.index[k]), mark, self.line[k], self.origin[k],
                           self.direction[k], self.normal[k], float(self.width_ft[k]),
-                          self.thickness_ft[k], self.footprints[k])
+                          self.thickness_ft[k], self.footprints(k))
 
     def __iter__(self):
         return iter(self._row)
 
     def __len__(self) -> int:
-        return len(self._row)
+        return len(self.mark)
 
 
 def place(site: Site) -> Places:
@@ -199,20 +219,21 @@ def place(site: Site) -> Places:
     line_no = {line.name: k for k, line in enumerate(site.lines)}
     ends = np.array([(line.start, line.end) for line in site.lines], dtype=float).reshape(-1, 2, 2)
     sides = np.array([1.0 if line.braced_side == "left" else -1.0 for line in site.lines])
-    rows = [i for i, p in enumerate(site.panels) if p.line is not None]
-    panels = [site.panels[i] for i in rows]
-    on = np.array([line_no[p.line] for p in panels], dtype=int)
+    line, mark, offset, width, thickness = zip(*map(attrgetter(
+        "line", "mark", "offset", "width", "thickness"), site.panels))
+    on = np.fromiter(map(line_no.get, line, repeat(-1)), int, len(line))  # -1: on no line
+    rows = np.flatnonzero(on >= 0)
+    on = on[rows]
     run = ends[on, 1] - ends[on, 0]
     length = np.hypot(run[:, 0], run[:, 1])
     u = run / length[:, None]
     left = np.stack([-u[:, 1], u[:, 0]], axis=1)  # the left hand, looking from start to end
     normal = left * sides[on][:, None]
-    offset = np.array([p.offset for p in panels], dtype=float)
-    return Places(np.array(rows, dtype=int), np.array([p.mark for p in panels], dtype=str),
-                  [p.line for p in panels], ends[on, 0] + offset[:, None] * u, u, normal,
-                  np.array([p.width for p in panels], dtype=float),
-                  np.array([p.thickness for p in panels], dtype=float) / IN_PER_FT,
-                  offset, length)
+    offset = np.array(offset, dtype=float)[rows]
+    return Places(rows, np.array(mark, dtype=str)[rows], [line[i] for i in rows.tolist()],
+                  ends[on, 0] + offset[:, None] * u, u, normal,
+                  np.array(width, dtype=float)[rows],
+                  np.array(thickness, dtype=float)[rows] / IN_PER_FT, offset, length)
 
 
 def _at(places: Places, rows, along_ft, out_ft) -> np.ndarray:
@@ -259,22 +280,22 @@ def _bracing(site: Site, places: Places, rows: np.ndarray) -> _Bracing:
     bs = [site.panels[i].bracing for i in places.index[rows].tolist()]
     braced = np.array([b is not None for b in bs], dtype=bool)
     bs = [b for b in bs if b is not None]
-    height = np.array([b.insert_height for b in bs], dtype=float)
-    base = np.array([b.base_below_slab for b in bs], dtype=float)
-    foot_offset = np.array([b.foot_offset for b in bs], dtype=float) / IN_PER_FT
-    given_ft = np.array([np.nan if b.anchor_distance is None else b.anchor_distance for b in bs],
-                        dtype=float)
+    (height, base, foot_offset, given_ft, angle, insert_offset, count, positions,
+     anchor) = list(zip(*map(attrgetter(
+         "insert_height", "base_below_slab", "foot_offset", "anchor_distance", "angle",
+         "insert_offset", "count", "positions", "foot_anchor"), bs))) or [()] * 9
+    height, base, given_ft, angle = (np.array(c, dtype=float)  # None: NaN
+                                     for c in (height, base, given_ft, angle))
+    foot_offset = np.array(foot_offset, dtype=float) / IN_PER_FT
     for_angle_ft = braces.anchor_distance_for_angle(
-        height, np.array([np.nan if b.angle is None else b.angle for b in bs], dtype=float),
-        np.array([b.insert_offset for b in bs], dtype=float) / IN_PER_FT, foot_offset, base)
+        height, angle, np.array(insert_offset, dtype=float) / IN_PER_FT, foot_offset, base)
     kind_of = {name: a.kind for name, a in site.anchor_types.items()}
     return _Bracing(
-        rows, braced, np.array([b.count for b in bs], dtype=int),
-        np.array([bool(b.positions) for b in bs], dtype=bool),
-        [x for b in bs for x in b.positions],
+        rows, braced, np.array(count, dtype=int), np.array(list(map(bool, positions)), dtype=bool),
+        list(chain.from_iterable(positions)),
         np.where(np.isnan(given_ft), for_angle_ft, given_ft),
-        np.array([kind_of[b.foot_anchor] if b.foot_anchor else "" for b in bs], dtype=str),
-        np.array([b.foot_anchor or "" for b in bs], dtype=str), height - base, foot_offset)
+        np.array([kind_of[a] if a else "" for a in anchor], dtype=str),
+        np.array([a or "" for a in anchor], dtype=str), height - base, foot_offset)
 
 
 def brace_points(site: Site, place: PanelPlace) -> tuple[np.ndarray, np.ndarray]:
@@ -301,9 +322,9 @@ class _Braces:
     top_ft: np.ndarray  # brace pin heights above the slab, at the insert and at the foot
     low_ft: np.ndarray
 
-    @cached_property
-    def segments(self) -> np.ndarray:
-        return shapely.linestrings(np.stack([self.insert, self.foot], axis=1))
+    def segments(self, rows) -> np.ndarray:
+        """The braces at `rows` as plan segments, insert to foot."""
+        return shapely.linestrings(np.stack([self.insert[rows], self.foot[rows]], axis=-2))
 
 
 def _brace_table(places: Places, bracing: _Bracing) -> _Braces:
@@ -393,6 +414,29 @@ def _edge_distances_ft(slab: _Slab, points: np.ndarray) -> tuple[np.ndarray, np.
     return d.min(axis=0), d.argmin(axis=0)
 
 
+@dataclass(frozen=True)
+class _SlabFeet:
+    """The braces on slab anchors (`rows` of a brace table) and where their feet stand: on the
+    slab or not, the least distance (ft) to its edge, a hole or a joint (nan: not known) and
+    which of `slab.edges` that is (all off the slab when the plan has none)."""
+
+    slab: _Slab | None
+    rows: np.ndarray
+    on: np.ndarray
+    edge_ft: np.ndarray
+    edge: np.ndarray
+
+
+def _slab_feet(site: Site, t: _Braces) -> _SlabFeet:
+    """Where the feet of the braces `t` on slab anchors stand on the site's slab."""
+    slab, rows = _slab(site), np.flatnonzero(t.kind == "slab")
+    if slab is None:
+        return _SlabFeet(None, rows, np.zeros(len(rows), bool), np.full(len(rows), np.nan),
+                         np.zeros(len(rows), int))
+    feet = t.foot[rows]
+    return _SlabFeet(slab, rows, _covered(slab.area, feet), *_edge_distances_ft(slab, feet))
+
+
 def _covered(area, points: np.ndarray) -> np.ndarray:
     """Whether each point lies inside `area` or on its boundary."""
     return shapely.intersects_xy(area, points[:, 0], points[:, 1])
@@ -403,15 +447,11 @@ def foot_edge_distances_in(site: Site, places: Places) -> dict[str, float]:
     for ACI 318-19 §17.6.2.4 (psi_ed,N) and §17.7.2 (c_a1); 0 where a foot is off the slab;
     inf where the wall has no slab anchor, is not placed or the plan has no slab outline."""
     out = dict.fromkeys([p.mark for p in site.panels], np.inf)
-    slab = _slab(site)
-    table = _brace_table(places, places.bracing(site))
-    sel = table.kind == "slab"
-    if slab is None or not sel.any():
+    feet = places.slab_feet(site)
+    if feet.slab is None or len(feet.rows) == 0:
         return out
-    feet = table.foot[sel]
-    dist, _ = _edge_distances_ft(slab, feet)
-    dist = np.where(_covered(slab.area, feet), dist, 0.0) * IN_PER_FT
-    wall = table.wall[sel]
+    dist = np.where(feet.on, feet.edge_ft, 0.0) * IN_PER_FT
+    wall = places.braces(site).wall[feet.rows]
     first = np.flatnonzero(np.r_[True, wall[1:] != wall[:-1]])  # a wall's braces are together
     least = np.fmin.reduceat(dist, first)  # a distance not known (nan) leaves the others
     out.update(zip(places.mark[wall[first]].tolist(), np.fmin(least, np.inf).tolist()))
@@ -435,13 +475,14 @@ def _zone_reach_ft(site: Site, places: Places, bracing: _Bracing,
     behind (ft) of the walls of `bracing` (the rules are in `zone_reach`)."""
     extra = site.rule_value("masonry_zone_extra_ft")
     panels = [site.panels[i] for i in places.index[bracing.walls].tolist()]
-    h = np.array([heights.get(p.mark, p.height) for p in panels] if heights else
-                 [p.height for p in panels], dtype=float)
+    mark, h, material = list(zip(*map(attrgetter("mark", "height", "material"), panels))) \
+        or [()] * 3
+    h = np.array([heights.get(m, x) for m, x in zip(mark, h)] if heights else h, dtype=float)
     footprint = np.zeros(len(panels))
     footprint[bracing.braced] = bracing.anchor_ft
-    kind_of = {name: m.kind for name, m in site.materials.items()}
-    masonry = np.array([kind_of[p.material] == "masonry" and extra is not None for p in panels],
-                       dtype=bool)
+    masonry = np.isin(np.array(material, dtype=object),
+                      [name for name, m in site.materials.items() if m.kind == "masonry"])
+    masonry &= extra is not None
     front = h + footprint
     if extra is not None:  # OSHA 29 CFR 1926.706(a): h + 4 ft
         front = np.where(masonry, np.maximum(h + extra, front), front)
@@ -509,23 +550,26 @@ def zones(site: Site, places: Places, heights: dict[str, float] | None = None,
 def plan_findings(site: Site, places: Places,
                   standing: set[str] | None = None) -> list[tuple[str, Flag]]:
     """(mark, flag) of everything wrong in the plan for the walls standing (None: all placed)."""
-    return [(f.mark, f.flag) for f in _findings(site, places,
-                                                 _read_bracing(site, places, standing))]
-
-
-def _findings(site: Site, places: Places, bracing: _Bracing,
-              heights: dict[str, float] | None = None) -> list[PlanFinding]:
-    """Everything found in the plan with the walls of `bracing` standing."""
-    rows = bracing.walls
+    bracing = _read_bracing(site, places, standing)
     table = _brace_table(places, bracing)
+    return [(f.mark, f.flag) for f in _findings(site, places, bracing, table,
+                                                 _slab_feet(site, table))]
+
+
+def _findings(site: Site, places: Places, bracing: _Bracing, table: _Braces, feet: _SlabFeet,
+              heights: dict[str, float] | None = None) -> list[PlanFinding]:
+    """Everything found in the plan with the walls of `bracing` standing (`table`: their braces,
+    `feet`: those on slab anchors)."""
+    rows = bracing.walls
+    reach = _reach(places, rows, table)
     return (_line_findings(places)
-            + _slab_anchor_findings(site, table)
-            + _ground_anchor_findings(site, table)
-            + _brace_crossings(table)
-            + _braces_through_walls(table, places, rows)
-            + _braces_in_areas(site, table)
+            + _slab_anchor_findings(site, table, feet)
+            + _ground_anchor_findings(site, table, feet.slab)
+            + _brace_crossings(table, reach)
+            + _braces_through_walls(table, places, reach)
+            + _braces_in_areas(site, table, reach)
             + _zone_overlaps(site, places, rows, _zone_corners(site, places, bracing, heights))
-            + _overlapping_walls(places, rows))
+            + _overlapping_walls(places, reach))
 
 
 def _xy(p) -> str:
@@ -549,22 +593,19 @@ def _by_mark(marks: np.ndarray, mask: np.ndarray) -> dict[str, np.ndarray]:
     return {m: np.array(rows) for m, rows in groups.items()}
 
 
-def _slab_anchor_findings(site: Site, t: _Braces) -> list[PlanFinding]:
-    sel = np.nonzero(t.kind == "slab")[0]
+def _slab_anchor_findings(site: Site, t: _Braces, slab_feet: _SlabFeet) -> list[PlanFinding]:
+    sel, slab = slab_feet.rows, slab_feet.slab
     if len(sel) == 0:
         return []
-    slab = _slab(site)
     marks = t.mark[sel]
     if slab is None:
         return [PlanFinding(m, Flag(
             "anchor-not-located", "notice", "the plan has no slab outline: the slab anchors' "
             "positions and edge distances are not checked", "design.md §7"), [])
             for m in dict.fromkeys(marks)]
-    feet = t.foot[sel]
-    on = _covered(slab.area, feet)
+    feet, on, which = t.foot[sel], slab_feet.on, slab_feet.edge
     in_hole = _covered(slab.holes, feet) if not slab.holes.is_empty else np.zeros_like(on)
-    dist_in, which = _edge_distances_ft(slab, feet)
-    dist_in = dist_in * IN_PER_FT
+    dist_in = slab_feet.edge_ft * IN_PER_FT
     anchors = t.anchor[sel]
     need, need_in = {}, np.zeros(len(sel))
     for name in site.anchor_types:
@@ -592,11 +633,11 @@ def _slab_anchor_findings(site: Site, t: _Braces) -> list[PlanFinding]:
     return found
 
 
-def _ground_anchor_findings(site: Site, t: _Braces) -> list[PlanFinding]:
+def _ground_anchor_findings(site: Site, t: _Braces, slab: _Slab | None) -> list[PlanFinding]:
     sel = np.nonzero(np.isin(t.kind, GROUND_KINDS))[0]
     if len(sel) == 0:
         return []
-    ground, slab = _ground(site), _slab(site)
+    ground = _ground(site)
     feet, kinds, marks = t.foot[sel], t.kind[sel], t.mark[sel]
     deadman = kinds == "deadman"
     on_ground = _covered(ground, feet) if ground is not None else np.zeros(len(sel), bool)
@@ -622,22 +663,75 @@ def _numbers(t: _Braces, rows) -> str:
     return ("brace " if len(numbers) == 1 else "braces ") + ", ".join(numbers)
 
 
-def _brace_crossings(t: _Braces) -> list[PlanFinding]:
+@dataclass(frozen=True)
+class _Reach:
+    """How far the walls standing reach in plan, footprint and braces, as bounding boxes, and
+    the pairs of them whose boxes meet: only their braces and footprints can meet each other."""
+
+    rows: np.ndarray   # the walls' rows in the places
+    lo: np.ndarray     # (n, 2) least x and y of each wall's footprint and braces
+    hi: np.ndarray     # (n, 2) greatest
+    first: np.ndarray  # each wall's first brace in the brace table
+    count: np.ndarray  # and how many it has
+    near: np.ndarray   # (2, p): positions in `rows` of the walls whose boxes meet, first < second
+
+
+def _reach(places: Places, rows: np.ndarray, t: _Braces) -> _Reach:
+    """The reach of the walls at `rows` (in order) with their braces `t`."""
+    lo, hi = _box(places.footprint_corners[rows])
+    first = np.searchsorted(t.wall, rows)
+    count = np.searchsorted(t.wall, rows, side="right") - first
+    braced = count > 0  # a wall's braces are together in the table
+    lo[braced] = np.minimum(lo[braced], np.minimum(np.minimum.reduceat(t.insert, first[braced]),
+                                                   np.minimum.reduceat(t.foot, first[braced])))
+    hi[braced] = np.maximum(hi[braced], np.maximum(np.maximum.reduceat(t.insert, first[braced]),
+                                                   np.maximum.reduceat(t.foot, first[braced])))
+    # the tree compares bounding boxes: each wall's is given by its diagonal
+    diagonals = shapely.linestrings(np.stack([lo, hi], axis=1))
+    a, b = shapely.STRtree(diagonals).query(diagonals)
+    return _Reach(rows, lo, hi, first, count, np.stack([a[a < b], b[a < b]]))
+
+
+def _box(corners: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """Least and greatest x and y of each outline of four `corners` (n, 4, 2), each (n, 2)."""
+    c = corners
+    return (np.minimum(np.minimum(c[:, 0], c[:, 1]), np.minimum(c[:, 2], c[:, 3])),
+            np.maximum(np.maximum(c[:, 0], c[:, 1]), np.maximum(c[:, 2], c[:, 3])))
+
+
+def _meets_any(lo: np.ndarray, hi: np.ndarray, shapes: np.ndarray) -> np.ndarray:
+    """Whether each box (least and greatest x and y, each (n, 2)) meets the bounding box of
+    any of `shapes`."""
+    box = shapely.bounds(shapes)
+    return ((lo[:, None, 0] <= box[:, 2]) & (hi[:, None, 0] >= box[:, 0])
+            & (lo[:, None, 1] <= box[:, 3]) & (hi[:, None, 1] >= box[:, 1])).any(axis=1)
+
+
+def _every_pair(first_a, count_a, first_b, count_b) -> tuple[np.ndarray, np.ndarray]:
+    """For each pair of ranges, range(first, first + count) of a and of b, every (i, j) with i
+    of the one and j of the other, pair after pair, i then j in order."""
+    n = count_a * count_b
+    pair = np.repeat(np.arange(len(n)), n)
+    step = np.arange(n.sum()) - np.repeat(np.cumsum(n) - n, n)
+    return first_a[pair] + step // count_b[pair], first_b[pair] + step % count_b[pair]
+
+
+def _brace_crossings(t: _Braces, reach: _Reach) -> list[PlanFinding]:
     """Braces of different walls that cross in plan, with their heights where they cross."""
-    segs = t.segments
-    if len(segs) < 2:
-        return []
-    a, b = shapely.STRtree(segs).query(segs)  # whose boxes meet; then the few that matter
-    keep = (a < b) & (t.wall[a] != t.wall[b])
-    a, b = a[keep], b[keep]
-    meet = shapely.intersects(segs[a], segs[b])
-    a, b = a[meet], b[meet]
-    meet = shapely.point_on_surface(shapely.intersection(segs[a], segs[b]))
+    one, two = reach.near
+    a, b = _every_pair(reach.first[one], reach.count[one], reach.first[two], reach.count[two])
+    by_brace = np.lexsort((b, a))
+    a, b = a[by_brace], b[by_brace]
+    seg_a, seg_b = t.segments(a), t.segments(b)
+    meet = shapely.intersects(seg_a, seg_b)
+    a, b, seg_a, seg_b = a[meet], b[meet], seg_a[meet], seg_b[meet]
+    meet = shapely.point_on_surface(shapely.intersection(seg_a, seg_b))
     found = []
-    for i, j, pt in zip(a, b, meet):
+    for i, j, pt, seg_i, seg_j in zip(a, b, meet, seg_a, seg_b):
         xy = (pt.x, pt.y)
         hi, hj = (t.top_ft[k] + (t.low_ft[k] - t.top_ft[k])
-                  * shapely.line_locate_point(segs[k], pt, normalized=True) for k in (i, j))
+                  * shapely.line_locate_point(seg, pt, normalized=True)
+                  for k, seg in ((i, seg_i), (j, seg_j)))
         for me, other, h_me, h_other in ((i, j, hi, hj), (j, i, hj, hi)):
             found.append(PlanFinding(t.mark[me], Flag(
                 "braces-cross", "danger", f"brace {t.number[me]} crosses brace "
@@ -647,42 +741,44 @@ def _brace_crossings(t: _Braces) -> list[PlanFinding]:
     return found
 
 
-def _braces_through_walls(t: _Braces, places: Places, rows: np.ndarray) -> list[PlanFinding]:
-    segs = t.segments
-    if len(segs) == 0:
-        return []
-    shapes = places.footprints[rows]
-    a, w = shapely.STRtree(shapes).query(segs)  # whose boxes meet; then the few that matter
-    other = t.wall[a] != rows[w]  # a brace stands on its own wall's face
-    a, w = a[other], w[other]
-    keep = shapely.intersects(segs[a], shapes[w]) & ~shapely.touches(segs[a], shapes[w])
+def _braces_through_walls(t: _Braces, places: Places, reach: _Reach) -> list[PlanFinding]:
+    """Braces that run through another wall standing (a brace stands on its own wall's face)."""
+    own, other = np.concatenate([reach.near, reach.near[::-1]], axis=1)
+    a, w = _every_pair(reach.first[own], reach.count[own], other, np.ones_like(other))
+    by_brace = np.lexsort((w, a))
+    a, w = a[by_brace], reach.rows[w[by_brace]]
+    segs, shapes = t.segments(a), places.footprints(w)
+    keep = shapely.intersects(segs, shapes) & ~shapely.touches(segs, shapes)
     found = []
-    for i, k in zip(a[keep], w[keep]):
-        pt = shapely.point_on_surface(shapely.intersection(segs[i], shapes[k]))
-        wall = places.mark[rows[k]]
+    for i, k, seg, shape in zip(a[keep], w[keep], segs[keep], shapes[keep]):
+        pt = shapely.point_on_surface(shapely.intersection(seg, shape))
+        wall = places.mark[k]
         found.append(PlanFinding(t.mark[i], Flag(
             "brace-crosses-wall", "danger", f"brace {t.number[i]} runs through wall "
             f"{wall} at {_xy((pt.x, pt.y))}", "design.md §7"), [(pt.x, pt.y)], (str(wall),)))
     return found
 
 
-def _braces_in_areas(site: Site, t: _Braces) -> list[PlanFinding]:
+def _braces_in_areas(site: Site, t: _Braces, reach: _Reach) -> list[PlanFinding]:
     areas = [a for a in (site.plan.areas if site.plan else []) if a.kind in BRACE_IN_AREA]
-    segs = t.segments
-    if not areas or len(segs) == 0:
+    if not areas or len(t.wall) == 0:
         return []
     shapes = np.array([shapely.make_valid(Polygon(a.polygon)) for a in areas])
+    # only the braces of a wall whose box meets an area's can enter it: the others are not drawn
+    near = _meets_any(reach.lo, reach.hi, shapes)
+    rows = np.flatnonzero(np.repeat(near, reach.count))
+    segs = t.segments(rows)
     s, k = shapely.STRtree(shapes).query(segs, predicate="intersects")
     keep = ~shapely.touches(segs[s], shapes[k])
     s, k = s[keep], k[keep]
     found = []
-    for mark, area in dict.fromkeys(zip(t.mark[s], k)):
-        rows = s[(t.mark[s] == mark) & (k == area)]
+    for mark, area in dict.fromkeys(zip(t.mark[rows[s]], k)):
+        mine = s[(t.mark[rows[s]] == mark) & (k == area)]
         a = areas[area]
         pts = [shapely.point_on_surface(shapely.intersection(segs[r], shapes[area]))
-               for r in rows]
+               for r in mine]
         found.append(PlanFinding(mark, Flag(
-            "brace-crosses-keep-clear", BRACE_IN_AREA[a.kind], f"{_numbers(t, rows)} "
+            "brace-crosses-keep-clear", BRACE_IN_AREA[a.kind], f"{_numbers(t, rows[mine])} "
             f"enters the {AREA_WORDS[a.kind]} '{a.name}'", "site plan areas (design.md §7)"),
             [(p.x, p.y) for p in pts]))
     return found
@@ -696,9 +792,7 @@ def _zone_overlaps(site: Site, places: Places, rows: np.ndarray,
         return []
     shapes = np.array([shapely.make_valid(Polygon(a.polygon)) for a in areas])
     # only a zone whose bounding box meets an area's can overlap it: the others are not drawn
-    lo, hi, box = corners.min(axis=1), corners.max(axis=1), shapely.bounds(shapes)
-    near = ((lo[:, None, 0] <= box[:, 2]) & (hi[:, None, 0] >= box[:, 0])
-            & (lo[:, None, 1] <= box[:, 3]) & (hi[:, None, 1] >= box[:, 1])).any(axis=1)
+    near = _meets_any(*_box(corners), shapes)
     rows, zs = rows[near], shapely.polygons(corners[near])
     z, k = shapely.STRtree(shapes).query(zs, predicate="intersects")
     common = shapely.intersection(zs[z], shapes[k])
@@ -722,23 +816,19 @@ def _zone_overlaps(site: Site, places: Places, rows: np.ndarray,
     return found
 
 
-def _overlapping_walls(places: Places, rows: np.ndarray) -> list[PlanFinding]:
-    if len(rows) < 2:
-        return []
-    marks = places.mark[rows].tolist()
-    shapes = places.footprints[rows]
-    a, b = shapely.STRtree(shapes).query(shapes)  # whose boxes meet; then those that matter
-    a, b = a[a < b], b[a < b]
-    meet = shapely.intersects(shapes[a], shapes[b])
+def _overlapping_walls(places: Places, reach: _Reach) -> list[PlanFinding]:
+    a, b = reach.rows[reach.near]
+    shapes_a, shapes_b = places.footprints(a), places.footprints(b)
+    meet = shapely.intersects(shapes_a, shapes_b)
     a, b = a[meet], b[meet]
-    common = shapely.intersection(shapes[a], shapes[b])
+    common = shapely.intersection(shapes_a[meet], shapes_b[meet])
     found = []
-    for i, j, part in zip(a, b, common):
+    for i, j, part in zip(places.mark[a].tolist(), places.mark[b].tolist(), common):
         if shapely.area(part) > TOLERANCE_FT:
             pt = shapely.point_on_surface(part)
-            found.append(PlanFinding(marks[i], Flag(
-                "walls-overlap", "warning", f"overlaps wall {marks[j]} in plan: check the "
-                "offsets along the wall line", "site file"), [(pt.x, pt.y)], (marks[j],)))
+            found.append(PlanFinding(i, Flag(
+                "walls-overlap", "warning", f"overlaps wall {j} in plan: check the "
+                "offsets along the wall line", "site file"), [(pt.x, pt.y)], (j,)))
     return found
 
 
@@ -791,7 +881,7 @@ def plan_geometry(site: Site, standing: set[str] | None = None, day: int | None 
         lines=[PlanLine(line.name, tuple(line.start), tuple(line.end), line.braced_side)
                for line in site.lines],
         panels=panels,
-        findings=_findings(site, places, bracing, heights),
+        findings=_findings(site, places, bracing, t, _slab_feet(site, t), heights),
         bounds=(0.0, 0.0, 1.0, 1.0))
     geometry.bounds = _bounds(geometry)
     return geometry
@@ -825,7 +915,8 @@ class DayPlans(Mapping):
 
 def findings(site: Site, places: Places) -> list[PlanFinding]:
     """Everything found in the plan with every placed wall standing."""
-    return _findings(site, places, places.bracing(site))
+    return _findings(site, places, places.bracing(site), places.braces(site),
+                     places.slab_feet(site))
 
 
 def day_findings(found: list[PlanFinding], days) -> dict[int, list[Flag]]:

@@ -41,6 +41,7 @@ import csv
 import math
 from dataclasses import dataclass, field, replace
 from datetime import date, timedelta
+from operator import itemgetter
 from pathlib import Path
 
 import numpy as np
@@ -434,23 +435,23 @@ def _by_day(marks: np.ndarray, day: np.ndarray) -> dict[int, list[str]]:
     return {int(day[g[0]]): marks[g].tolist() for g in groups if len(g) and day[g[0]]}
 
 
-def _gear(site: Site, index: np.ndarray, results: list[PanelResult]) -> list[list]:
+GEAR = ("brace_type", "wall_anchor", "foot_anchor", "count")
+
+
+def _gear(site: Site, index: np.ndarray, results: list[PanelResult]) -> list[tuple]:
     """Each wall's brace type, wall anchor and foot anchor (None: not named) and brace count, as
-    `hardware` reads them: from its result's `braces` record, else from the site file's
-    `bracing` (`index`: the walls' rows in site.panels, `results` in their order)."""
-    records = [r.braces or {} for r in results]
-    rows, columns = index.tolist(), []
-    for key, unnamed in (("brace_type", None), ("wall_anchor", None), ("foot_anchor", None),
-                         ("count", 0)):
-        column = [d.get(key, _NOT_RECORDED) for d in records]
-        for k in [k for k, v in enumerate(column) if v is _NOT_RECORDED]:
-            bracing = site.panels[rows[k]].bracing
-            column[k] = getattr(bracing, key) if bracing else unnamed
-        columns.append(column)
-    return columns
-
-
-_NOT_RECORDED = object()  # a key missing from a wall's `braces` record
+    `hardware` reads them (`index`: the walls' rows in site.panels, `results` in their order)."""
+    recorded, keys = itemgetter(*GEAR), frozenset(GEAR)
+    rows = []
+    for r, i in zip(results, index.tolist()):
+        d = r.braces
+        if d is not None and d.keys() >= keys:  # a braced wall's result names them all
+            rows.append(recorded(d))
+        else:
+            h = hardware(site.panels[i].bracing, r)
+            rows.append((None, None, None, 0) if h is None else
+                        (h.brace_type, h.wall_anchor, h.foot_anchor, h.count))
+    return list(zip(*rows))
 
 
 def _in_use(types: list[list], lift: np.ndarray, release: np.ndarray, count: np.ndarray,
