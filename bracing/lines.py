@@ -103,15 +103,19 @@ def line_loads(site: Site) -> LineLoads | None:
     s_over_h = s / top
     x0 = (start - lo) / s
     x1 = x0 + width / s
-    left, cx_left = asce7.case_c_mean(x0, x1, b_over_s, s_over_h, ret_lo)
-    right, cx_right = asce7.case_c_mean(b_over_s - x1, b_over_s - x0, b_over_s, s_over_h, ret_hi)
+    # the wind from the line's start (its return wall there) and from its end
+    bins_lo = asce7.case_c_bins(b_over_s, s_over_h, ret_lo)
+    bins_hi = asce7.case_c_bins(b_over_s, s_over_h, ret_hi)
+    left, cx_left = asce7.case_c_mean(x0, x1, b_over_s, s_over_h, bins=bins_lo)
+    right, cx_right = asce7.case_c_mean(b_over_s - x1, b_over_s - x0, b_over_s, s_over_h,
+                                        bins=bins_hi)
     # Case C falls away from the windward end: over a panel's width its largest local value is
     # at the edge nearer that end, from either end of the line
     mid = (x0 + x1) / 2.0
-    local_max = np.maximum(asce7.case_c_cf(x0, b_over_s, s_over_h, ret_lo),
-                           asce7.case_c_cf(b_over_s - x1, b_over_s, s_over_h, ret_hi))
-    local_mid = np.maximum(asce7.case_c_cf(mid, b_over_s, s_over_h, ret_lo),
-                           asce7.case_c_cf(b_over_s - mid, b_over_s, s_over_h, ret_hi))
+    local_max = np.maximum(asce7.case_c_cf(x0, b_over_s, s_over_h, bins=bins_lo),
+                           asce7.case_c_cf(b_over_s - x1, b_over_s, s_over_h, bins=bins_hi))
+    local_mid = np.maximum(asce7.case_c_cf(mid, b_over_s, s_over_h, bins=bins_lo),
+                           asce7.case_c_cf(b_over_s - mid, b_over_s, s_over_h, bins=bins_hi))
     out = {k: np.full(n, np.nan) for k in LineLoads.__dataclass_fields__}
     for key, values in (("case_a", asce7.cf_cases_ab(b_over_s, s_over_h)),
                         ("local_max", local_max), ("local_mid", local_mid)):

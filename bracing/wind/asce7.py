@@ -131,9 +131,10 @@ def _return_corner_factor(return_ratio):
     return np.interp(np.asarray(return_ratio, dtype=float), _RETURN_RATIO, _RETURN_FACTOR)
 
 
-def _case_c_bins(b_over_s, s_over_h, return_ratio):
+def case_c_bins(b_over_s, s_over_h, return_ratio=0.0):
     """Case C Cf in each x/s bin (last axis), interpolated linearly in B/s column by column,
-    the asterisked 0-s cells reduced for a return corner."""
+    the asterisked 0-s cells reduced for a return corner. `case_c_cf` and `case_c_mean` take
+    them from a caller that asks about several points of the same walls."""
     i, w = _interp_index(_C_B_OVER_S, b_over_s)
     bins = (1.0 - w)[..., None] * _C_CF[i] + w[..., None] * _C_CF[i + 1]
     if np.any(return_ratio):
@@ -146,41 +147,50 @@ def _case_c_bins(b_over_s, s_over_h, return_ratio):
     return bins * tall[..., None]
 
 
-def case_c_cf(x_over_s, b_over_s, s_over_h, return_ratio=0.0):
+def case_c_cf(x_over_s, b_over_s, s_over_h, return_ratio=0.0, bins=None):
     """Local Case C Cf at x_over_s from the windward end of a wall B/s long.
 
     Regions 0-s, s-2s, ... of Figure 29.3-1; a point on a region edge belongs to the region
     downwind of it. Between tabulated B/s the coefficient is interpolated linearly in B/s at the
-    same position x. return_ratio = Lr/s of a return wall at the windward end. Where B/s < 2
-    Case C does not apply and the Case A/B value is returned, so callers may envelope freely.
+    same position x. return_ratio = Lr/s of a return wall at the windward end (or `bins`, the
+    walls' `case_c_bins`). Where B/s < 2 Case C does not apply and the Case A/B value is
+    returned, so callers may envelope freely.
     """
     x, b, r, lr = np.broadcast_arrays(*(np.asarray(a, dtype=float) for a in
                                         (x_over_s, b_over_s, s_over_h, return_ratio)))
-    bins = _case_c_bins(b, r, lr)
+    if bins is None:
+        bins = case_c_bins(b, r, lr)
     k = np.searchsorted(_C_EDGES, x, side="right")
     local = np.take_along_axis(bins, k[..., None], axis=-1)[..., 0]
     return np.where(b >= 2.0, local, cf_cases_ab(b, r))[()]  # Case C for B/s >= 2 only
 
 
-def case_c_mean(x0_over_s, x1_over_s, b_over_s, s_over_h, return_ratio=0.0):
+def case_c_mean(x0_over_s, x1_over_s, b_over_s, s_over_h, return_ratio=0.0, bins=None):
     """Mean Case C Cf over [x0, x1] (in s from the windward end) and the load's centroid (in s).
 
     Exact integration of the piecewise-constant regional coefficients: a panel occupying
     [x0, x1] of a longer wall line takes mean_cf times its area, acting at centroid_over_s.
-    Where B/s < 2 it returns the Case A/B value at the middle of the interval.
+    Where B/s < 2 it returns the Case A/B value at the middle of the interval. `bins`: the
+    walls' `case_c_bins`, if the caller has them.
     """
     x0, x1, b, r, lr = np.broadcast_arrays(*(np.asarray(a, dtype=float) for a in
                                              (x0_over_s, x1_over_s, b_over_s, s_over_h,
                                               return_ratio)))
+    if bins is None:
+        bins = case_c_bins(b, r, lr)
     lo, hi = np.minimum(x0, x1), np.maximum(x0, x1)
     start = np.maximum(lo[..., None], _C_BIN_LO)
     end = np.minimum(hi[..., None], _C_BIN_HI)
-    force = _case_c_bins(b, r, lr) * np.maximum(end - start, 0.0)  # Cf x length, per region
+    force = bins * np.maximum(end - start, 0.0)  # Cf x length, per region
     total = force.sum(axis=-1)
     moment = (force * 0.5 * (start + end)).sum(axis=-1)
     width = hi - lo
     with np.errstate(divide="ignore", invalid="ignore"):
-        mean = np.where(width > 0.0, total / width, case_c_cf(lo, b, r, lr))
+        mean = total / width
+        point = width <= 0.0  # an interval of no width: the local value there
+        if point.any():
+            mean = np.where(point, case_c_cf(lo, b, r, lr, np.broadcast_to(bins, force.shape)),
+                            mean)
         centroid = np.where(total > 0.0, moment / total, 0.5 * (lo + hi))
     short = b < 2.0  # Case C applies for B/s >= 2 only
     mean = np.where(short, cf_cases_ab(b, r), mean)
