@@ -366,8 +366,8 @@ def brace_forces(walls, loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
         strip_h = f.wind * braces.total_brace_reaction(strip, loads.height[r][:, None],
                                                        hb[r][:, None])
         horizontal[r] = strip_h + np.abs(np.nan_to_num(rows_of(lean, r)))
-        total[r] = strip_h.sum(axis=1)
-        force[r] = strip.sum(axis=1)
+        total[r] = braces.slot_sum(strip_h)
+        force[r] = braces.slot_sum(strip)
         shear[r] = np.abs(f.wind * force[r] - total[r])
     total += lean_total
     shear += lean_total
@@ -383,12 +383,13 @@ def _strip_loads(walls, wind, i, positions, mask, minimum_psf):
     b_over_s = b / s
     s_over_h = s / (walls.base[i] + s)
     x = np.where(mask, positions, np.nan)
-    order = np.sort(x, axis=1)
+    by_position = np.argsort(x, axis=1)  # the empty slots (NaN) last
+    order = np.take_along_axis(x, by_position, axis=1)
     mids = (order[:, 1:] + order[:, :-1]) / 2.0
     lo = np.concatenate([np.zeros((len(i), 1)), mids], axis=1)
     hi = np.concatenate([mids, np.full((len(i), 1), np.inf)], axis=1)
     hi = np.minimum(np.where(np.isnan(hi), b[:, None], hi), b[:, None])
-    count = mask.sum(axis=1)
+    count = braces.slot_sum(mask, 0)
     last = np.arange(mask.shape[1])[None, :] == (count - 1)[:, None]
     hi = np.where(last, b[:, None], hi)
     lo, hi = np.where(np.isnan(lo), 0.0, lo), np.where(np.isnan(hi), 0.0, hi)
@@ -413,9 +414,10 @@ def _strip_loads(walls, wind, i, positions, mask, minimum_psf):
     ss = s[:, None]
     strip = np.maximum(wind.q[i][:, None] * asce7.GUST_FACTOR * cf * ss * width,
                        (minimum_psf or 0.0) * ss * width)  # ASCE 7-16 Eq. 29.3-1 and §29.7
-    # strips follow the sorted positions: map them back to each brace's own slot
-    rank = np.argsort(np.argsort(np.where(mask, positions, np.inf), axis=1), axis=1)
-    return np.where(mask, np.take_along_axis(strip, rank, axis=1), 0.0)
+    # strips follow the sorted positions: put them back in each brace's own slot
+    in_slots = np.empty_like(strip)
+    np.put_along_axis(in_slots, by_position, strip, axis=1)
+    return np.where(mask, in_slots, 0.0)
 
 
 SERVICEABILITY = {"wall cracking"}  # shown and flagged, not counted in the status or the speeds

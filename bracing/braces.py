@@ -55,11 +55,11 @@ def lean_reaction(weight_lb, centroid_height_ft, wall_height_ft, insert_height_f
 def brace_lever(positions_ft, mask):
     """Count, centroid, arms from the centroid and polar sum of a brace pattern (statics);
     constant for a layout, so computed once and shared by every load case."""
-    n = mask.sum(axis=-1)
+    n = slot_sum(mask, 0)
     x = np.where(mask, positions_ft, 0.0)
-    xc = x.sum(axis=-1) / n
+    xc = slot_sum(x) / n
     arm = np.where(mask, positions_ft - xc[..., None], 0.0)
-    return n, xc, arm, (arm**2).sum(axis=-1)
+    return n, xc, arm, slot_sum(arm**2)
 
 
 def brace_shares(total_h, force_lb, force_at_ft, wall_centre_ft, positions_ft, mask, lever=None):
@@ -123,6 +123,12 @@ def modulus_of_rupture(fc_psi, lam=1.0):
 def cracking_moment(fr_psi, thickness_in):
     """Moment per ft of width that cracks a solid section, f_r S with S = 12 t^2 / 6 (lb-ft/ft)."""
     return fr_psi * 12.0 * thickness_in**2 / 6.0 / 12.0
+
+
+def slot_sum(values, start=0.0):
+    """Each wall's sum over its brace slots (the last axis), taken a slot at a time like
+    `worst_brace`; with `start` 0 it counts the true slots of a mask."""
+    return functools.reduce(np.add, np.moveaxis(values, -1, 0), start)
 
 
 def worst_brace(values):
