@@ -70,6 +70,16 @@ def take(obj, rows):
     return replace(obj, **{name: rows_of(v, rows) for name, v in arrays.items()})
 
 
+UNCHECKED = ("positions", "anchor_distance", "length", "lean", "slop", "pretensioned",
+             "slenderness", "slenderness_limit", "torque_factor", "torque_safety")
+
+
+def for_checks(bs: BraceSet) -> BraceSet:
+    """`bs` without the arrays `braced_checks` does not read (None: `take` leaves them), for a
+    search that takes its rows again at every step; its loads are worked out beforehand."""
+    return replace(bs, **dict.fromkeys(UNCHECKED))
+
+
 def rows_of(array, rows):
     """`array[rows]` along the first axis (np.take copies the rows of a 2-D array many times
     faster than indexing does)."""
@@ -337,7 +347,7 @@ def brace_forces(walls, loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
     i = bs.index
     hb = bs.insert
     lean_total, lean = f.dead_adds * loads.lean_total, f.dead_adds * loads.lean
-    horizontal = np.zeros(bs.positions.shape)
+    horizontal = np.zeros(bs.mask.shape)
     total, shear, force = np.zeros(len(i)), np.zeros(len(i)), np.zeros(len(i))
     rigid = walls.rigid[i]
     r = np.flatnonzero(rigid)

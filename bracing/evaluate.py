@@ -658,13 +658,14 @@ def braced_utilization(w: Walls, unit: Wind, bs: braced.BraceSet):
     in q: worked out once at 1 mph, then scaled.
     """
     loads = braced.brace_loads(w, unit, bs, None)
+    checked = braced.for_checks(bs)
 
     def g(v2, rows):
         parts = -(-len(rows) // BRACED_WALLS_AT_ONCE)
         if parts > 1:  # in parts: the arrays of many more walls outgrow the processor's cache
             return np.concatenate([g(*part) for part in zip(np.array_split(v2, parts),
                                                             np.array_split(rows, parts))])
-        checks, _ = braced.braced_checks(w, None, braced.take(bs, rows), SERVICE, None,
+        checks, _ = braced.braced_checks(w, None, braced.take(checked, rows), SERVICE, None,
                                          loads.take(rows).scaled(v2))
         return governing_utilization(strength_only(checks)) - 1.0
     return g
