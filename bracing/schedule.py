@@ -362,8 +362,9 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
     day = np.arange(1, last + 1)[:, None]                                  # (days, 1)
     release = np.where(walls.release > 0, walls.release, last + 1)
     standing = (walls.lift <= day) & (day < release)                       # (days, walls)
-    brace, wall_anchor, foot_anchor, count = _gear(site, walls.index, results)
-    use = (walls.lift, release, np.array(count, int), last)
+    gear, which = _gear(site, walls.index, results)
+    brace, wall_anchor, foot_anchor, count = zip(*gear)
+    use = (which, walls.lift, release, np.array(count, int)[which], last)
     braces, anchors = _in_use([brace], *use), _in_use([wall_anchor, foot_anchor], *use)
     fresh = _fresh_mortar(site, walls, results, day)                      # (days, walls)
     stand_down = np.where(fresh, _speeds(results, "fresh_stand_down_speed_mph"),
@@ -377,9 +378,10 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
             on_day.setdefault(d, []).append(f)
     lifted, released = _by_day(walls.marks, walls.lift), _by_day(walls.marks, walls.release)
     marks = walls.marks
-    status = np.array([r.status for r in results], dtype=object)
-    failing = np.flatnonzero(np.isin(status, list(STATUS_WORDS)))
-    failing_flags = np.array(_status_flags(marks[failing].tolist(), status[failing].tolist()),
+    status = [r.status for r in results]
+    failing = np.array([k for k, s in enumerate(status) if s in STATUS_WORDS], int)
+    failing_flags = np.array(_status_flags(marks[failing].tolist(),
+                                           [status[k] for k in failing.tolist()]),
                              dtype=object)
     known = np.isfinite(stand_down)
     # each day over the walls standing: the lowest stand-down speed (the first such wall) and
@@ -456,33 +458,37 @@ def _by_day(marks: np.ndarray, day: np.ndarray) -> dict[int, list[str]]:
 GEAR = ("brace_type", "wall_anchor", "foot_anchor", "count")
 
 
-def _gear(site: Site, index: np.ndarray, results: list[PanelResult]) -> list[tuple]:
-    """Each wall's brace type, wall anchor and foot anchor (None: not named) and brace count, as
-    `hardware` reads them (`index`: the walls' rows in site.panels, `results` in their order)."""
+def _gear(site: Site, index: np.ndarray, results: list[PanelResult]
+          ) -> tuple[list[tuple], np.ndarray]:
+    """The distinct gear of the walls, each a brace type, wall anchor and foot anchor (None: not
+    named) and brace count as `hardware` reads them, and which of them each wall has (`index`:
+    the walls' rows in site.panels, `results` in their order). A site has few of them."""
     recorded, keys = itemgetter(*GEAR), frozenset(GEAR)
-    rows = []
+    distinct: dict[tuple, int] = {}
+    which = []
     for r, i in zip(results, index.tolist()):
         d = r.braces
         if d is not None and d.keys() >= keys:  # a braced wall's result names them all
-            rows.append(recorded(d))
+            gear = recorded(d)
         else:
             h = hardware(site.panels[i].bracing, r)
-            rows.append((None, None, None, 0) if h is None else
-                        (h.brace_type, h.wall_anchor, h.foot_anchor, h.count))
-    return list(zip(*rows))
+            gear = (None, None, None, 0) if h is None else (h.brace_type, h.wall_anchor,
+                                                            h.foot_anchor, h.count)
+        which.append(distinct.setdefault(gear, len(distinct)))
+    return list(distinct), np.array(which, int)
 
 
-def _in_use(types: list[list], lift: np.ndarray, release: np.ndarray, count: np.ndarray,
-            last: int) -> tuple[list[str], np.ndarray]:
+def _in_use(types: list[list], which: np.ndarray, lift: np.ndarray, release: np.ndarray,
+            count: np.ndarray, last: int) -> tuple[list[str], np.ndarray]:
     """Type names and a (days, types) table of how many of each are in use each day: each
-    column of `types` names one piece per brace of a wall, in use from its lift to its
-    release day."""
+    column of `types` names one piece per brace of each distinct gear, `which` is each wall's,
+    in use from its lift to its release day."""
     column = dict.fromkeys(set().union(*types), -1)  # -1: not named
     names = sorted(t for t in column if t)
     column.update((t, j) for j, t in enumerate(names))
     change = np.zeros((last + 3, len(names)), int)  # on at the lift, off the day after release
     for col in types:
-        j = np.array([column[t] for t in col], int)
+        j = np.array([column[t] for t in col], int)[which]
         named = j >= 0
         np.add.at(change, (lift[named], j[named]), count[named])
         np.add.at(change, (release[named] + 1, j[named]), -count[named])
