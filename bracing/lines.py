@@ -50,10 +50,20 @@ def release_days(site: Site, lift: np.ndarray) -> np.ndarray:
     if site.signoffs:  # the earliest valid sign-off: after the lift and every event
         row = dict(zip(map(attrgetter("mark"), site.panels), range(len(site.panels))))
         wall, day = (np.array(c) for c in zip(*((row[s.panel], s.day) for s in site.signoffs)))
-        event_day = release_event_days(site, [site.panels[i] for i in wall.tolist()])
-        valid = (day >= lift[wall]) & ~(event_day > day)
+        valid = (day >= lift[wall]) & ~(events_pending(site, wall, day) > day)
         np.minimum.at(release, wall[valid], day[valid])
     return release
+
+
+def events_pending(site: Site, rows: np.ndarray, day: np.ndarray) -> np.ndarray:
+    """For sign-offs on `day` of the walls at `rows` of site.panels: the day of the last event
+    each wall's release waits for; NaN where it waits for none, or where the sign-off falls on
+    or after every event of the site (none can still be pending: the walls are not read)."""
+    out = np.full(len(rows), np.nan)
+    last = max((e.day for e in site.events), default=0)
+    early = np.flatnonzero(day < last)
+    out[early] = release_event_days(site, [site.panels[i] for i in rows[early].tolist()])
+    return out
 
 
 def planned_weeks(site: Site) -> np.ndarray:

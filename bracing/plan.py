@@ -486,7 +486,7 @@ def _zone_reach_ft(site: Site, places: Places, bracing: _Bracing,
     footprint[bracing.braced] = bracing.anchor_ft
     masonry_kind = {name: m.kind == "masonry" and extra is not None
                     for name, m in site.materials.items()}
-    masonry = np.fromiter((masonry_kind[p.material] for p in panels), bool, len(panels))
+    masonry = np.array([masonry_kind[p.material] for p in panels], dtype=bool)
     front = h + footprint
     if extra is not None:  # OSHA 29 CFR 1926.706(a): h + 4 ft
         front = np.where(masonry, np.maximum(h + extra, front), front)

@@ -289,12 +289,8 @@ def _releases(site: Site, index: np.ndarray, marks: np.ndarray, lift: np.ndarray
     order = np.lexsort((day, wall))                # stable: same-day sign-offs in file order
     order = order[wall[order] >= 0]                # sign-offs of scheduled walls
     wall, day = wall[order], day[order]
-    # the last event each waits for, read for the walls signed off only
-    signed_off = np.unique(wall)
-    event_day = np.full(len(marks), np.nan)
-    event_day[signed_off] = lines.release_event_days(
-        site, [site.panels[i] for i in index[signed_off].tolist()])
-    valid = (day >= lift[wall]) & ~(event_day[wall] > day)  # after the lift and every event
+    event_day = lines.events_pending(site, index[wall], day)
+    valid = (day >= lift[wall]) & ~(event_day > day)  # after the lift and every event
     first = np.full(len(marks), len(order))        # each wall's first valid sign-off
     np.minimum.at(first, wall[valid], np.flatnonzero(valid))
     release = np.zeros(len(marks), int)
