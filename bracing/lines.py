@@ -39,21 +39,31 @@ class LineLoads:
     local_mid: np.ndarray
 
 
-def standing_days(site: Site) -> tuple[np.ndarray, np.ndarray]:
-    """(lift day, release day) of each panel; NaN lift = not scheduled, inf = not released.
+def release_days(site: Site, lift: np.ndarray) -> np.ndarray:
+    """Release day of each panel (inf: not released), from `lift`, its lift day (NaN: not
+    scheduled).
 
     A wall releases on its sign-off day, and only when every event it waits for is done by then
     (OSHA 1926.704(a): braces stay until the permanent connections are complete).
     """
-    lift = np.array([p.lift_day for p in site.panels], float)  # None: NaN, not scheduled
     release = np.full(len(site.panels), np.inf)
     if site.signoffs:  # the earliest valid sign-off: after the lift and every event
         row = dict(zip(map(attrgetter("mark"), site.panels), range(len(site.panels))))
         wall, day = (np.array(c) for c in zip(*((row[s.panel], s.day) for s in site.signoffs)))
-        event_day = release_event_days(site, [site.panels[i] for i in wall.tolist()])
-        valid = (day >= lift[wall]) & ~(event_day > day)
+        valid = (day >= lift[wall]) & ~(events_pending(site, wall, day) > day)
         np.minimum.at(release, wall[valid], day[valid])
-    return lift, release
+    return release
+
+
+def events_pending(site: Site, rows: np.ndarray, day: np.ndarray) -> np.ndarray:
+    """For sign-offs on `day` of the walls at `rows` of site.panels: the day of the last event
+    each wall's release waits for; NaN where it waits for none, or where the sign-off falls on
+    or after every event of the site (none can still be pending: the walls are not read)."""
+    out = np.full(len(rows), np.nan)
+    last = max((e.day for e in site.events), default=0)
+    early = np.flatnonzero(day < last)
+    out[early] = release_event_days(site, [site.panels[i] for i in rows[early].tolist()])
+    return out
 
 
 def planned_weeks(site: Site) -> np.ndarray:
@@ -85,13 +95,16 @@ def weeks_to_release(lift_day, event_day):
 def line_loads(site: Site) -> LineLoads | None:
     """The enveloped line loads of every panel (None when no panel stands on a line)."""
     n = len(site.panels)
-    line, lift_day, *columns = zip(*map(attrgetter(
+    line, *columns = zip(*map(attrgetter(
         "line", "lift_day", "offset", "width", "height", "base_elevation"), site.panels))
-    on_line = np.array([a is not None and b is not None for a, b in zip(line, lift_day)])
-    if not on_line.any():
+    lift, offset, width, height, base = (np.array(c, dtype=float) for c in columns)  # None: NaN
+    lines = {ln.name: ln for ln in site.lines}
+    number = {name: k for k, name in enumerate(lines)}
+    line_id = np.fromiter(map(number.get, line, repeat(-1)), int, n)  # -1: on no line
+    line_id[np.isnan(lift)] = -1  # a wall not scheduled never stands on its line
+    if not (line_id >= 0).any():
         return None
-    offset, width, height, base = (np.array(c, dtype=float) for c in columns)
-    groups = _standing_groups(site, on_line, line, offset, width)
+    groups = _standing_groups(site, lines, line_id, lift, offset, width)
     if groups is None:  # every wall on the lines is released on its lift day
         return LineLoads(**{k: np.full(n, np.nan) for k in LineLoads.__dataclass_fields__})
     member, lo, hi, ret_lo, ret_hi = groups
@@ -131,21 +144,20 @@ def line_loads(site: Site) -> LineLoads | None:
     return LineLoads(**out)
 
 
-def _standing_groups(site: Site, on_line: np.ndarray, line: tuple, start: np.ndarray,
-                     width: np.ndarray) -> tuple[np.ndarray, ...] | None:
+def _standing_groups(site: Site, lines: dict, line_id: np.ndarray, lift: np.ndarray,
+                     start: np.ndarray, width: np.ndarray) -> tuple[np.ndarray, ...] | None:
     """The groups each wall on a line stands in, day by day: (panel index, the group's extent
     lo and hi along the line, the return wall at its start and at its end, ft), in day order.
 
-    `line`, `start` and `width` are each panel's line, offset along it and width. A wall in the
-    same group as on its last standing day is loaded the same, so only changes are listed
-    (None when no wall on a line ever stands)."""
-    lift, release = standing_days(site)
+    `lines` are the site's lines by name; `line_id`, `lift`, `start` and `width` each panel's
+    line (its place in `lines`; -1: none, or not scheduled), lift day, offset along the line
+    and width. A wall in the same group as on its last standing day is loaded the same, so only
+    changes are listed (None when no wall on a line ever stands)."""
+    release = release_days(site, lift)
     gap = site.plan.joint_gap if site.plan else 1.0
-    lines = {ln.name: ln for ln in site.lines}
     line_length = np.array([np.hypot(*np.subtract(ln.end, ln.start)) for ln in lines.values()])
     names = list(lines)
-    number = {name: k for k, name in enumerate(names)}
-    line_id = np.where(on_line, np.fromiter(map(number.get, line, repeat(-1)), int, len(line)), -1)
+    on_line = line_id >= 0
     order = np.lexsort((start, line_id))
     order = order[on_line[order]]  # walls on lines, by line then along it
     lift_o, release_o, line_o, lo_o = lift[order], release[order], line_id[order], start[order]

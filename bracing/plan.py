@@ -290,12 +290,14 @@ def _bracing(site: Site, places: Places, rows: np.ndarray) -> _Bracing:
     for_angle_ft = braces.anchor_distance_for_angle(
         height, angle, np.array(insert_offset, dtype=float) / IN_PER_FT, foot_offset, base)
     kind_of = {name: a.kind for name, a in site.anchor_types.items()}
+    anchor = np.array([a or "" for a in anchor], dtype=str)
+    names, which = np.unique(anchor, return_inverse=True)  # the kinds of the few types named
     return _Bracing(
         rows, braced, np.array(count, dtype=int), np.array(list(map(bool, positions)), dtype=bool),
         list(chain.from_iterable(positions)),
         np.where(np.isnan(given_ft), for_angle_ft, given_ft),
-        np.array([kind_of[a] if a else "" for a in anchor], dtype=str),
-        np.array([a or "" for a in anchor], dtype=str), height - base, foot_offset)
+        np.array([kind_of[a] if a else "" for a in names.tolist()], dtype=str)[which], anchor,
+        height - base, foot_offset)
 
 
 def brace_points(site: Site, place: PanelPlace) -> tuple[np.ndarray, np.ndarray]:
@@ -444,9 +446,10 @@ def _covered(area, points: np.ndarray) -> np.ndarray:
 
 def foot_edge_distances_in(site: Site, places: Places) -> dict[str, float]:
     """Least distance (in) from each wall's slab-anchor feet to the slab edge, a hole or a joint,
-    for ACI 318-19 §17.6.2.4 (psi_ed,N) and §17.7.2 (c_a1); 0 where a foot is off the slab;
-    inf where the wall has no slab anchor, is not placed or the plan has no slab outline."""
-    out = dict.fromkeys([p.mark for p in site.panels], np.inf)
+    for ACI 318-19 §17.6.2.4 (psi_ed,N) and §17.7.2 (c_a1), by mark of each placed wall; 0
+    where a foot is off the slab; inf where the wall has no slab anchor or the plan has no slab
+    outline (walls not placed are not listed: they have no distance either)."""
+    out = dict.fromkeys(places.mark.tolist(), np.inf)
     feet = places.slab_feet(site)
     if feet.slab is None or len(feet.rows) == 0:
         return out
@@ -475,14 +478,15 @@ def _zone_reach_ft(site: Site, places: Places, bracing: _Bracing,
     behind (ft) of the walls of `bracing` (the rules are in `zone_reach`)."""
     extra = site.rule_value("masonry_zone_extra_ft")
     panels = [site.panels[i] for i in places.index[bracing.walls].tolist()]
-    mark, h, material = list(zip(*map(attrgetter("mark", "height", "material"), panels))) \
-        or [()] * 3
-    h = np.array([heights.get(m, x) for m, x in zip(mark, h)] if heights else h, dtype=float)
+    h = [p.height for p in panels]
+    if heights:
+        h = [heights.get(m, x) for m, x in zip(places.mark[bracing.walls].tolist(), h)]
+    h = np.array(h, dtype=float)
     footprint = np.zeros(len(panels))
     footprint[bracing.braced] = bracing.anchor_ft
-    masonry = np.isin(np.array(material, dtype=object),
-                      [name for name, m in site.materials.items() if m.kind == "masonry"])
-    masonry &= extra is not None
+    masonry_kind = {name: m.kind == "masonry" and extra is not None
+                    for name, m in site.materials.items()}
+    masonry = np.array([masonry_kind[p.material] for p in panels], dtype=bool)
     front = h + footprint
     if extra is not None:  # OSHA 29 CFR 1926.706(a): h + 4 ft
         front = np.where(masonry, np.maximum(h + extra, front), front)

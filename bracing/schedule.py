@@ -209,9 +209,10 @@ def fall_zones(site: Site, panels: list[PanelResult]) -> dict[str, tuple[float, 
 def wall_days(site: Site) -> list[WallDays]:
     """Lift and release day of every scheduled wall, with the sign-off flags (see the module)."""
     w = _walls(site)
-    out = [WallDays(i, m, lift, release or None, weeks, source) for i, m, lift, release, weeks,
-           source in zip(w.index.tolist(), w.marks.tolist(), w.lift.tolist(), w.release.tolist(),
-                         w.planned_weeks.tolist(), w.planned_from.tolist())]
+    weeks, source = _planned(site, w.index, w.lift)
+    out = [WallDays(i, m, lift, release or None, wk, src) for i, m, lift, release, wk, src
+           in zip(w.index.tolist(), w.marks.tolist(), w.lift.tolist(), w.release.tolist(),
+                  weeks.tolist(), source.tolist())]
     for k, day, f in zip(w.flag_wall.tolist(), w.flag_day.tolist(), w.flags):
         out[k].flags.append(f)
         out[k].flag_days.append(day)
@@ -226,9 +227,6 @@ class _Walls:
     marks: np.ndarray          # (object)
     lift: np.ndarray           # lift day
     release: np.ndarray        # release day; 0: no valid sign-off, stands to the last day
-    planned_weeks: np.ndarray
-    planned_from: np.ndarray   # (object) what the planned time comes from
-    last_event: int            # last day an event the walls' releases wait for falls on (0: none)
     flags: list[Flag]          # sign-off and no-signoff flags, wall by wall (see wall_days)
     flag_wall: np.ndarray      # the wall of each flag
     flag_day: np.ndarray       # the day of each flag
@@ -244,12 +242,7 @@ def _walls(site: Site) -> _Walls:
     index = np.flatnonzero(~np.isnan(lift))
     lift = lift[index].astype(int)
     marks = np.array([p.mark for p in site.panels], dtype=object)[index]
-    event_day = lines.release_event_days(site)[index]
-    own = np.array([p.standing_time for p in site.panels], float)[index]  # None: NaN, not given
-    source = np.where(np.isnan(own), np.where(np.isnan(event_day), 2, 1), 0)  # PLANNED_FROM
-    weeks = np.choose(source, [own, lines.weeks_to_release(lift, event_day),
-                               site.site.construction_period])
-    release, early, flag_wall, flag_day = _releases(site, index, marks, lift, event_day)
+    release, early, flag_wall, flag_day = _releases(site, index, marks, lift)
     stays = np.flatnonzero(release == 0)
     flags = early + [Flag("no-signoff", "notice", f"{m}: no valid sign-off recorded: its braces "
                           "stay to the end of the schedule", RELEASE_SOURCE)
@@ -257,17 +250,38 @@ def _walls(site: Site) -> _Walls:
     flag_wall = np.concatenate([flag_wall, stays])
     flag_day = np.concatenate([flag_day, lift[stays]])
     by_wall = np.argsort(flag_wall, kind="stable")  # a wall's `no-signoff` after its sign-offs
-    known = event_day[~np.isnan(event_day)]
-    return _Walls(index, marks, lift, release, weeks, PLANNED_FROM[source],
-                  int(known.max()) if len(known) else 0, [flags[j] for j in by_wall.tolist()],
+    return _Walls(index, marks, lift, release, [flags[j] for j in by_wall.tolist()],
                   flag_wall[by_wall], flag_day[by_wall])
 
 
-def _releases(site: Site, index: np.ndarray, marks: np.ndarray, lift: np.ndarray,
-              event_day: np.ndarray) -> tuple[np.ndarray, list[Flag], np.ndarray, np.ndarray]:
+def _planned(site: Site, index: np.ndarray, lift: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """Planned standing time (weeks) of the walls at `index` in site.panels (lifted on days
+    `lift`) and what it comes from (PLANNED_FROM): the wall's own, its release events, or the
+    site's."""
+    panels = [site.panels[i] for i in index.tolist()]
+    event_day = lines.release_event_days(site, panels)
+    own = np.array([p.standing_time for p in panels], float)  # None: NaN, not given
+    source = np.where(np.isnan(own), np.where(np.isnan(event_day), 2, 1), 0)
+    weeks = np.choose(source, [own, lines.weeks_to_release(lift, event_day),
+                               site.site.construction_period])
+    return weeks, PLANNED_FROM[source]
+
+
+def _last_event(site: Site, walls: _Walls, after: int) -> int:
+    """The last day after day `after` on which falls an event the release of a scheduled wall
+    waits for (0: none)."""
+    later = {e.name: e.day for e in site.events if e.day > after}
+    if not later:  # no need to read what the walls wait for
+        return 0
+    return max((later[name] for i in walls.index.tolist()
+                for name in site.panels[i].release_after if name in later), default=0)
+
+
+def _releases(site: Site, index: np.ndarray, marks: np.ndarray, lift: np.ndarray
+              ) -> tuple[np.ndarray, list[Flag], np.ndarray, np.ndarray]:
     """Release day of each scheduled wall (0: none) from the sign-offs, and the flags of the
     sign-offs that come too early (before the one that releases the wall, if any), wall by
-    wall and day by day, with their walls and days. `event_day`: the last event each waits for.
+    wall and day by day, with their walls and days.
     """
     row = dict(zip(marks.tolist(), range(len(marks))))
     wall = np.array([row.get(s.panel, -1) for s in site.signoffs], int)
@@ -275,7 +289,8 @@ def _releases(site: Site, index: np.ndarray, marks: np.ndarray, lift: np.ndarray
     order = np.lexsort((day, wall))                # stable: same-day sign-offs in file order
     order = order[wall[order] >= 0]                # sign-offs of scheduled walls
     wall, day = wall[order], day[order]
-    valid = (day >= lift[wall]) & ~(event_day[wall] > day)  # after the lift and every event
+    event_day = lines.events_pending(site, index[wall], day)
+    valid = (day >= lift[wall]) & ~(event_day > day)  # after the lift and every event
     first = np.full(len(marks), len(order))        # each wall's first valid sign-off
     np.minimum.at(first, wall[valid], np.flatnonzero(valid))
     release = np.zeros(len(marks), int)
@@ -314,8 +329,8 @@ def build_days(site: Site, panels: list[PanelResult], base_dir: str | Path | Non
         return [], {"braces": {}, "anchors": {}}, []
     forecast = (read_forecast(Path(base_dir or ".") / site.forecast.file, site.site.start_date)
                 if site.forecast else {})
-    last = max(int(walls.lift.max()), int(walls.release.max()), walls.last_event,
-               int(walls.flag_day.max(initial=0)))
+    last = max(int(walls.lift.max()), int(walls.release.max()), int(walls.flag_day.max(initial=0)))
+    last = max(last, _last_event(site, walls, last))
     if not walls.release.all():  # a wall stands on: forecast days still count
         last = max([last, *forecast])
     result, marks = {p.mark: p for p in panels}, walls.marks.tolist()
@@ -330,8 +345,7 @@ def whole_site(site: Site, panels: list[PanelResult]) -> DayResult:
     no lift days (inventory, stand-down speed; no forecast, no lifts, no releases)."""
     n, no_flags = len(site.panels), np.zeros(0, int)
     walls = _Walls(np.arange(n), np.array([p.mark for p in site.panels], dtype=object),
-                   np.ones(n, int), np.zeros(n, int), np.zeros(n), np.full(n, "", dtype=object),
-                   0, [], no_flags, no_flags)
+                   np.ones(n, int), np.zeros(n, int), [], no_flags, no_flags)
     result = {p.mark: p for p in panels}
     days, _, _ = _days(site, walls, [result[m] for m in walls.marks.tolist()], {}, 1)
     return replace(days[0], day=0, lifts=[])
@@ -344,24 +358,26 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
     day = np.arange(1, last + 1)[:, None]                                  # (days, 1)
     release = np.where(walls.release > 0, walls.release, last + 1)
     standing = (walls.lift <= day) & (day < release)                       # (days, walls)
-    brace, wall_anchor, foot_anchor, count = _gear(site, walls.index, results)
-    use = (walls.lift, release, np.array(count, int), last)
+    gear, which = _gear(site, walls.index, results)
+    brace, wall_anchor, foot_anchor, count = zip(*gear)
+    use = (which, walls.lift, release, np.array(count, int)[which], last)
     braces, anchors = _in_use([brace], *use), _in_use([wall_anchor, foot_anchor], *use)
     fresh = _fresh_mortar(site, walls, results, day)                      # (days, walls)
     stand_down = np.where(fresh, _speeds(results, "fresh_stand_down_speed_mph"),
                           _speeds(results, "stand_down_speed_mph"))
     limit = np.where(fresh, _speeds(results, "fresh_working_limit_speed_mph"),
                      _speeds(results, "working_limit_speed_mph"))
-    slips = _period_slips(walls, results, release, last)
+    slips = _period_slips(site, walls, results, release, last)
     on_day: dict[int, list[Flag]] = {}
     for d, f in zip(walls.flag_day.tolist(), walls.flags):
         if f.code != "no-signoff":
             on_day.setdefault(d, []).append(f)
     lifted, released = _by_day(walls.marks, walls.lift), _by_day(walls.marks, walls.release)
     marks = walls.marks
-    status = np.array([r.status for r in results], dtype=object)
-    failing = np.flatnonzero(np.isin(status, list(STATUS_WORDS)))
-    failing_flags = np.array(_status_flags(marks[failing].tolist(), status[failing].tolist()),
+    status = [r.status for r in results]
+    failing = np.array([k for k, s in enumerate(status) if s in STATUS_WORDS], int)
+    failing_flags = np.array(_status_flags(marks[failing].tolist(),
+                                           [status[k] for k in failing.tolist()]),
                              dtype=object)
     known = np.isfinite(stand_down)
     # each day over the walls standing: the lowest stand-down speed (the first such wall) and
@@ -438,33 +454,37 @@ def _by_day(marks: np.ndarray, day: np.ndarray) -> dict[int, list[str]]:
 GEAR = ("brace_type", "wall_anchor", "foot_anchor", "count")
 
 
-def _gear(site: Site, index: np.ndarray, results: list[PanelResult]) -> list[tuple]:
-    """Each wall's brace type, wall anchor and foot anchor (None: not named) and brace count, as
-    `hardware` reads them (`index`: the walls' rows in site.panels, `results` in their order)."""
+def _gear(site: Site, index: np.ndarray, results: list[PanelResult]
+          ) -> tuple[list[tuple], np.ndarray]:
+    """The distinct gear of the walls, each a brace type, wall anchor and foot anchor (None: not
+    named) and brace count as `hardware` reads them, and which of them each wall has (`index`:
+    the walls' rows in site.panels, `results` in their order). A site has few of them."""
     recorded, keys = itemgetter(*GEAR), frozenset(GEAR)
-    rows = []
+    distinct: dict[tuple, int] = {}
+    which = []
     for r, i in zip(results, index.tolist()):
         d = r.braces
         if d is not None and d.keys() >= keys:  # a braced wall's result names them all
-            rows.append(recorded(d))
+            gear = recorded(d)
         else:
             h = hardware(site.panels[i].bracing, r)
-            rows.append((None, None, None, 0) if h is None else
-                        (h.brace_type, h.wall_anchor, h.foot_anchor, h.count))
-    return list(zip(*rows))
+            gear = (None, None, None, 0) if h is None else (h.brace_type, h.wall_anchor,
+                                                            h.foot_anchor, h.count)
+        which.append(distinct.setdefault(gear, len(distinct)))
+    return list(distinct), np.array(which, int)
 
 
-def _in_use(types: list[list], lift: np.ndarray, release: np.ndarray, count: np.ndarray,
-            last: int) -> tuple[list[str], np.ndarray]:
+def _in_use(types: list[list], which: np.ndarray, lift: np.ndarray, release: np.ndarray,
+            count: np.ndarray, last: int) -> tuple[list[str], np.ndarray]:
     """Type names and a (days, types) table of how many of each are in use each day: each
-    column of `types` names one piece per brace of a wall, in use from its lift to its
-    release day."""
+    column of `types` names one piece per brace of each distinct gear, `which` is each wall's,
+    in use from its lift to its release day."""
     column = dict.fromkeys(set().union(*types), -1)  # -1: not named
     names = sorted(t for t in column if t)
     column.update((t, j) for j, t in enumerate(names))
     change = np.zeros((last + 3, len(names)), int)  # on at the lift, off the day after release
     for col in types:
-        j = np.array([column[t] for t in col], int)
+        j = np.array([column[t] for t in col], int)[which]
         named = j >= 0
         np.add.at(change, (lift[named], j[named]), count[named])
         np.add.at(change, (release[named] + 1, j[named]), -count[named])
@@ -495,8 +515,8 @@ def _status_flags(marks: list[str], statuses: list[str]) -> list[Flag]:
                  "the wall's checks (`bracing check`)") for m, s in zip(marks, statuses)]
 
 
-def _period_slips(walls: _Walls, results: list[PanelResult], release: np.ndarray, last: int
-                  ) -> dict[int, list[tuple[str, Flag]]]:
+def _period_slips(site: Site, walls: _Walls, results: list[PanelResult], release: np.ndarray,
+                  last: int) -> dict[int, list[tuple[str, Flag]]]:
     """(mark, flag) by day of walls whose standing time passes into a band of higher factor;
     `release`: the day each wall stops standing."""
     stood = np.arange(1, last + 1)                 # days stood, the lift day counted
@@ -511,11 +531,10 @@ def _period_slips(walls: _Walls, results: list[PanelResult], release: np.ndarray
     by_day = np.lexsort((k, on))                   # day by day, walls in site order
     k, on, band = k[by_day], on[by_day], enters[band[by_day]]
     slipping = np.unique(k)
-    checked = {j: _checked(results[j].wind, limit, planned, source) for j, limit, planned, source
-               in zip(slipping.tolist(),
-                      asce37.period_band_limit_weeks(walls.planned_weeks[slipping]).tolist(),
-                      walls.planned_weeks[slipping].tolist(),
-                      walls.planned_from[slipping].tolist())}
+    planned, planned_from = _planned(site, walls.index[slipping], walls.lift[slipping])
+    checked = {j: _checked(results[j].wind, limit, weeks, source) for j, limit, weeks, source
+               in zip(slipping.tolist(), asce37.period_band_limit_weeks(planned).tolist(),
+                      planned.tolist(), planned_from.tolist())}
     out: dict[int, list[tuple[str, Flag]]] = {}
     for d, j, mark, weeks, now in zip(on.tolist(), k.tolist(), walls.marks[k].tolist(),
                                       (stood[band] / 7.0).tolist(), factor[band].tolist()):
