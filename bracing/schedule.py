@@ -39,7 +39,7 @@ from __future__ import annotations
 
 import csv
 import math
-from dataclasses import dataclass, field, replace
+from dataclasses import dataclass, replace
 from datetime import date, timedelta
 from operator import itemgetter
 from pathlib import Path
@@ -77,20 +77,6 @@ class Hardware:
     wall_anchor: str | None
     foot_anchor: str | None
     count: int
-
-
-@dataclass
-class WallDays:
-    """One scheduled wall: lift and release days, its planned standing time, its flags."""
-
-    index: int
-    mark: str
-    lift: int
-    release: int | None
-    planned_weeks: float
-    planned_from: str
-    flags: list[Flag] = field(default_factory=list)
-    flag_days: list[int] = field(default_factory=list)
 
 
 def read_forecast(path: str | Path, start_date: date | None) -> dict[int, ForecastDay]:
@@ -206,19 +192,6 @@ def fall_zones(site: Site, panels: list[PanelResult]) -> dict[str, tuple[float, 
     return out
 
 
-def wall_days(site: Site) -> list[WallDays]:
-    """Lift and release day of every scheduled wall, with the sign-off flags (see the module)."""
-    w = _walls(site)
-    weeks, source = _planned(site, w.index, w.lift)
-    out = [WallDays(i, m, lift, release or None, wk, src) for i, m, lift, release, wk, src
-           in zip(w.index.tolist(), w.marks.tolist(), w.lift.tolist(), w.release.tolist(),
-                  weeks.tolist(), source.tolist())]
-    for k, day, f in zip(w.flag_wall.tolist(), w.flag_day.tolist(), w.flags):
-        out[k].flags.append(f)
-        out[k].flag_days.append(day)
-    return out
-
-
 @dataclass
 class _Walls:
     """The scheduled walls as arrays, in site order (the days are counted over all at once)."""
@@ -227,7 +200,7 @@ class _Walls:
     marks: np.ndarray          # (object)
     lift: np.ndarray           # lift day
     release: np.ndarray        # release day; 0: no valid sign-off, stands to the last day
-    flags: list[Flag]          # sign-off and no-signoff flags, wall by wall (see wall_days)
+    flags: list[Flag]          # sign-off and no-signoff flags, wall by wall
     flag_wall: np.ndarray      # the wall of each flag
     flag_day: np.ndarray       # the day of each flag
 
