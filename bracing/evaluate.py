@@ -524,8 +524,9 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     for f in found:
         if f.flag.code in WALL_FINDINGS:
             by_mark[f.mark].flags.append(f.flag)
+    severity = attrgetter("severity")
     for p in panels:  # a danger flag on a braced wall (an anchor off the slab...) is unsafe
-        if p.status == "braced" and any(f.severity == "danger" for f in p.flags):
+        if p.status == "braced" and "danger" in map(severity, p.flags):
             p.status = "unsafe"
     days, peak, wall_flags = schedule.build_days(site, panels, base_dir)
     for mark, flag in wall_flags:  # sign-off and period flags: the wall's checks stand as they are
@@ -808,7 +809,8 @@ class _Results:
         self.wall_notes = self._wall_notes(w, e.utilization, over_height, material, opening_area)
         # the fields of every wall's PanelResult that come straight from its panel or the arrays
         self.columns = {
-            "mark": mark, "material": [site.materials[m].kind for m in material],
+            "mark": mark, "material": list(map(
+                {name: m.kind for name, m in site.materials.items()}.__getitem__, material)),
             "height_ft": self.height, "width_ft": width, "thickness_in": thickness,
             "weight_lb": (w.face_weight * w.height * w.width * w.solidity).tolist(),
             "wind": _each(
@@ -981,16 +983,15 @@ class _Results:
         bs = e.braces
         wall = bs.index  # each row's wall
         walls = wall.tolist()
-        for r, failing in self.braced.failing.items():
-            own = flags[walls[r]]
-            for c in failing:
-                serviceability = c.element in braced.SERVICEABILITY
-                own.append(Flag(
-                    f"{c.element.replace(' ', '-')}-over", "warning" if serviceability else "danger",
-                    f"{c.element}: utilization {c.utilization:.2f}"
-                    + (" (the wall would crack)" if serviceability else ""), c.source))
-            if any(c.element == "base uplift" for c in failing):
-                own.append(FIXED_FLAGS["braces-lift-wall"])
+        failing = self.braced.failing
+        for r, c in failing:
+            serviceability = c.element in braced.SERVICEABILITY
+            flags[walls[r]].append(Flag(
+                f"{c.element.replace(' ', '-')}-over", "warning" if serviceability else "danger",
+                f"{c.element}: utilization {c.utilization:.2f}"
+                + (" (the wall would crack)" if serviceability else ""), c.source))
+        lifted = sorted({r for r, c in failing if c.element == "base uplift"})
+        _add(flags, wall[lifted], FIXED_FLAGS["braces-lift-wall"])
         rows = np.flatnonzero(notes & TOO_FEW)
         _add(flags, wall[rows], [Flag("too-few-braces", "danger", f"{self.bracings[r].count} "
                                       f"brace(s); at least {rule['minimum_braces_per_panel']:g} "
@@ -1013,12 +1014,11 @@ class _Results:
         rows = np.flatnonzero((notes & (TWO_BRACES | STRUCK_BELOW_STAND_DOWN))
                               == STRUCK_BELOW_STAND_DOWN)  # two braces: the flag above instead
         _add(flags, wall[rows], [Flag("no-margin", "warning", f"with one brace struck, the wall's "
-                                      f"limit falls to {missing:.0f} mph, below the stand-down "
-                                      f"gust {stand_down:.0f} mph",
-                                      "design.md §6 robustness (team rule)")
+                                      f"limit falls to {missing} mph, below the stand-down gust "
+                                      f"{stand_down} mph", "design.md §6 robustness (team rule)")
                                  for missing, stand_down in zip(
-                                     e.braced_limit_missing[rows].tolist(),
-                                     e.braced_stand_down[rows].tolist())])
+                                     _whole_numbers(e.braced_limit_missing[rows]),
+                                     _whole_numbers(e.braced_stand_down[rows]))])
         rows = np.flatnonzero(notes & SLENDER)
         _add(flags, wall[rows], [Flag("slender-brace", "danger", f"brace slenderness "
                                       f"{slenderness:.0f} exceeds {limit:.0f}: add lateral struts "
@@ -1139,7 +1139,8 @@ class _CheckSet:
     checks: list[list[Check]]             # each wall's checks that apply to it (demand known)
     governing: list[str]                  # the check of the largest strength utilization
     strength_ok: list[bool]               # every strength check passes
-    failing: dict[int, list[Check]]       # the checks over 1.0 (serviceability too), by wall
+    failing: list[tuple[int, Check]]      # each check over 1.0 (serviceability too) and its
+                                          # row, wall by wall
     brace_utilization: list[float | None]  # the largest of the brace's own checks
 
 
@@ -1173,15 +1174,13 @@ def _check_set(arrays: dict, info: dict, combos: dict, ways: list[tuple[str, dic
     # a wall with some check over 1.0: the checks that do not pass (Check.passes)
     fails = np.flatnonzero((ratios.max(axis=0, initial=-np.inf) > 1.0)[wall]
                            & ~(ratios.T[applies] <= 1.0))
-    failing: dict[int, list[Check]] = {}
-    for at, k in zip(wall[fails].tolist(), fails.tolist()):
-        failing.setdefault(at, []).append(made[k])
+    failing = list(zip(wall[fails].tolist(), map(made.__getitem__, fails.tolist())))
     governing = [f"{element} ({region})" for element, region, *_ in named]
     return _CheckSet([made[start:end] for start, end in zip([0, *ends], ends)],
                      [governing[k] for k in (way * len(arrays)
                                              + strength.argmax(axis=0)).tolist()],
                      (strength.max(axis=0, initial=-np.inf) <= 1.0).tolist(),
-                     failing, [None if x == -math.inf else x for x in brace.tolist()])
+                     failing, np.where(brace == -np.inf, None, brace).tolist())
 
 
 def _check_columns(arrays: dict, info: dict, combos: dict) -> list[tuple]:
@@ -1217,6 +1216,12 @@ def _each(cls, n: int, **fields_of) -> list:
         raise TypeError(f"{cls.__name__} fields not given: {set(names) ^ set(fields_of)}")
     return list(map(cls, *(v if isinstance(v, list) else repeat(v, n)
                            for v in map(fields_of.get, names))))
+
+
+def _whole_numbers(values: np.ndarray) -> list[str]:
+    """Values (finite, not negative: speeds) rounded to whole numbers as text, as f"{x:.0f}"
+    writes each (half to even), many at once."""
+    return [str(k) for k in np.rint(values).astype(np.int64).tolist()]
 
 
 def _or_none(x: np.ndarray) -> list[float | None]:
