@@ -1013,12 +1013,13 @@ class _Results:
         _add(flags, wall[np.flatnonzero(notes & TWO_BRACES)], FIXED_FLAGS["no-margin"])
         rows = np.flatnonzero((notes & (TWO_BRACES | STRUCK_BELOW_STAND_DOWN))
                               == STRUCK_BELOW_STAND_DOWN)  # two braces: the flag above instead
-        _add(flags, wall[rows], [Flag("no-margin", "warning", f"with one brace struck, the wall's "
-                                      f"limit falls to {missing} mph, below the stand-down gust "
-                                      f"{stand_down} mph", "design.md §6 robustness (team rule)")
-                                 for missing, stand_down in zip(
-                                     _whole_numbers(e.braced_limit_missing[rows]),
-                                     _whole_numbers(e.braced_stand_down[rows]))])
+        speeds = list(zip(_whole_mph(e.braced_limit_missing[rows]),
+                          _whole_mph(e.braced_stand_down[rows])))
+        said = {(missing, stand_down): Flag(  # one flag for the walls whose speeds read the same
+            "no-margin", "warning", f"with one brace struck, the wall's limit falls to {missing} "
+            f"mph, below the stand-down gust {stand_down} mph",
+            "design.md §6 robustness (team rule)") for missing, stand_down in set(speeds)}
+        _add(flags, wall[rows], list(map(said.__getitem__, speeds)))
         rows = np.flatnonzero(notes & SLENDER)
         _add(flags, wall[rows], [Flag("slender-brace", "danger", f"brace slenderness "
                                       f"{slenderness:.0f} exceeds {limit:.0f}: add lateral struts "
@@ -1218,10 +1219,10 @@ def _each(cls, n: int, **fields_of) -> list:
                            for v in map(fields_of.get, names))))
 
 
-def _whole_numbers(values: np.ndarray) -> list[str]:
-    """Values (finite, not negative: speeds) rounded to whole numbers as text, as f"{x:.0f}"
-    writes each (half to even), many at once."""
-    return [str(k) for k in np.rint(values).astype(np.int64).tolist()]
+def _whole_mph(speeds: np.ndarray) -> list[int]:
+    """Speeds (finite, not negative) rounded to whole mph as f"{x:.0f}" rounds them (half to
+    even), many at once."""
+    return np.rint(speeds).astype(np.int64).tolist()
 
 
 def _or_none(x: np.ndarray) -> list[float | None]:
