@@ -1015,7 +1015,8 @@ class _Results:
                               == STRUCK_BELOW_STAND_DOWN)  # two braces: the flag above instead
         speeds = list(zip(_whole_mph(e.braced_limit_missing[rows]),
                           _whole_mph(e.braced_stand_down[rows])))
-        said = {(missing, stand_down): Flag(  # one flag for the walls whose speeds read the same
+        # one flag for the walls whose speeds read the same
+        said = {(missing, stand_down): Flag(
             "no-margin", "warning", f"with one brace struck, the wall's limit falls to {missing} "
             f"mph, below the stand-down gust {stand_down} mph",
             "design.md §6 robustness (team rule)") for missing, stand_down in set(speeds)}
@@ -1043,8 +1044,9 @@ class _Results:
         """Adds to each braced wall the flags that `of_way` gives its brace and foot anchor
         types (by `way`)."""
         for way, shared in enumerate(of_way):
+            walls = self.e.braces.index[self.way == way]
             for flag in shared:
-                _add(flags, self.e.braces.index[self.way == way], flag)
+                _add(flags, walls, flag)
 
 
 # Flags that read the same on every wall they are on: made once, shared by those walls.
