@@ -591,8 +591,12 @@ def _masonry_bending(walls, bs: BraceSet, f, masonry, s, moment, na):
     return np.where(masonry, moment, na), np.where(masonry, capacity, na)
 
 
-def braced_records(bs: BraceSet, forces: BraceForces) -> list[dict]:
-    """The §8 `braces` record of every braced wall (design wind, governing brace), in row order."""
+def braced_records(bs: BraceSet, forces: BraceForces, brace_type: list[str],
+                   wall_anchor: list[str | None], foot_anchor: list[str | None],
+                   utilization: list[float | None], one_missing: list[float | None]) -> list[dict]:
+    """The §8 `braces` record of every braced wall (design wind, governing brace), in row order,
+    with its brace and anchor types, the largest utilization of its brace's own checks and its
+    working limit with one brace missing (None: not known)."""
     count = bs.mask.sum(axis=1)
     p = braces.worst_brace(forces.axial)
     pull, up = braces.components(p, bs.angle)
@@ -603,18 +607,32 @@ def braced_records(bs: BraceSet, forces: BraceForces) -> list[dict]:
                       np.nan)
     out = []
     for k, angle, insert, distance, length, axial, lift, shear, at, each, base, uplift_lb, \
-            helix, torque_ftlb in zip(
+            helix, torque_ftlb, brace, wall, foot, most, missing in zip(
                 count.tolist(), bs.angle.tolist(), bs.insert.tolist(),
                 bs.anchor_distance.tolist(), bs.length.tolist(), p.tolist(), up.tolist(),
-                pull.tolist(), bs.positions.tolist(), forces.axial.tolist(),
-                forces.base_shear.tolist(), uplift.tolist(), helical.tolist(), torque.tolist()):
+                pull.tolist(), _of_braces(bs.positions, count), _of_braces(forces.axial, count),
+                forces.base_shear.tolist(), uplift.tolist(), helical.tolist(), torque.tolist(),
+                brace_type, wall_anchor, foot_anchor, utilization, one_missing):
         record = {
             "count": k, "angle_deg": angle, "insert_height_ft": insert,
             "anchor_distance_ft": distance, "length_ft": length, "axial_force_lb": axial,
-            "anchor_uplift_lb": lift, "anchor_shear_lb": shear, "positions_ft": at[:k],
-            "brace_forces_lb": each[:k], "base_shear_lb": base, "base_uplift_lb": uplift_lb,
+            "anchor_uplift_lb": lift, "anchor_shear_lb": shear, "positions_ft": at,
+            "brace_forces_lb": each, "base_shear_lb": base, "base_uplift_lb": uplift_lb,
         }
         if helix:
             record["installation_torque_ftlb"] = torque_ftlb
+        record["brace_type"], record["wall_anchor"], record["foot_anchor"] = brace, wall, foot
+        record["utilization"], record["working_limit_one_missing_mph"] = most, missing
         out.append(record)
+    return out
+
+
+def _of_braces(per_slot: np.ndarray, count: np.ndarray) -> list[list]:
+    """Each wall's values of its braces (the first `count` of its slots), a list per wall: the
+    walls of each count read out together."""
+    out = [None] * len(count)
+    for k in np.unique(count).tolist():
+        rows = np.flatnonzero(count == k)
+        for r, of_wall in zip(rows.tolist(), per_slot[rows, :k].tolist()):
+            out[r] = of_wall
     return out

@@ -524,8 +524,9 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     for f in found:
         if f.flag.code in WALL_FINDINGS:
             by_mark[f.mark].flags.append(f.flag)
+    severity = attrgetter("severity")
     for p in panels:  # a danger flag on a braced wall (an anchor off the slab...) is unsafe
-        if p.status == "braced" and any(f.severity == "danger" for f in p.flags):
+        if p.status == "braced" and "danger" in map(severity, p.flags):
             p.status = "unsafe"
     days, peak, wall_flags = schedule.build_days(site, panels, base_dir)
     for mark, flag in wall_flags:  # sign-off and period flags: the wall's checks stand as they are
@@ -762,13 +763,13 @@ class _Results:
 
     What decides each wall's values, checks and flags is worked out for every wall at once with
     numpy and read out as Python lists, which give single values far faster than numpy arrays
-    do, in the order the objects are made (a large site's objects then come from memory read
-    straight through). What walls share is made once: rules and sources, the names, regions
-    and sources of their checks, the flags that read the same on every wall.
+    do; each kind of flag is made in one pass over the walls that have it. What walls share is
+    made once: rules and sources, the names, regions and sources of their checks, the flags
+    that read the same on every wall.
     """
 
     def __init__(self, site: Site, e: Evaluation):
-        self.site = site
+        self.site, self.e = site, e
         f = COMBINATIONS[site.site.design_basis]
         combos = {"resisting": f.resisting, "adding": f.adding, "wind": f.wind_only}
         self.rule = {name: site.rule_value(name) for name in (
@@ -778,7 +779,7 @@ class _Results:
         self.hardware: dict[tuple, tuple[dict, list[Flag], list[Flag]]] = {}
         w, wind, n = e.walls, e.wind, len(site.panels)
         # each panel's fields, read in one pass (a large site's panels lie far apart in memory)
-        mark, material, height, width, thickness, opening_area, bracing = _fields(
+        mark, material, self.height, width, thickness, opening_area, bracing = _fields(
             site.panels, "mark", "material", "height", "width", "thickness", "opening_area",
             "bracing")
         self.kind = np.select([w.rigid, w.masonry & ~w.fresh, w.masonry],
@@ -794,19 +795,24 @@ class _Results:
             limit, stand_down = limit.copy(), stand_down.copy()
             limit[bs.index], stand_down[bs.index] = e.braced_limit, e.braced_stand_down
             self._braced_walls(e, combos, [bracing[i] for i in bs.index.tolist()])
-        alone = np.flatnonzero(~self.is_braced)
-        self.row[alone] = np.arange(len(alone))
-        kinds, way = np.unique(self.kind[alone], return_inverse=True)
+        else:
+            self.braced, self.records = _CheckSet([], [], [], {}, []), []
+        self.alone = np.flatnonzero(~self.is_braced)
+        self.row[self.alone] = np.arange(len(self.alone))
+        # each wall's place in a list of the walls on their own followed by the braced walls
+        self.place = np.where(self.is_braced, len(self.alone) + self.row, self.row).tolist()
+        kinds, way = np.unique(self.kind[self.alone], return_inverse=True)
         self.unbraced = _check_set(
-            {name: (d[alone], c[alone]) for name, (d, c) in e.checks.items()}, CHECK_INFO,
-            combos, [(k, UNBRACED_SOURCES[k]) for k in kinds.tolist()], way)
+            {name: (d[self.alone], c[self.alone]) for name, (d, c) in e.checks.items()},
+            CHECK_INFO, combos, [(k, UNBRACED_SOURCES[k]) for k in kinds.tolist()], way)
         over_height = self._over_height(w)
+        self.stands = (e.utilization <= 1.0) & ~over_height
         self.wall_notes = self._wall_notes(w, e.utilization, over_height, material, opening_area)
-        fresh_stand_down = _or_none(e.fresh_stand_down)
         # the fields of every wall's PanelResult that come straight from its panel or the arrays
         self.columns = {
-            "mark": mark, "material": [site.materials[m].kind for m in material],
-            "height_ft": height, "width_ft": width, "thickness_in": thickness,
+            "mark": mark, "material": list(map(
+                {name: m.kind for name, m in site.materials.items()}.__getitem__, material)),
+            "height_ft": self.height, "width_ft": width, "thickness_in": thickness,
             "weight_lb": (w.face_weight * w.height * w.width * w.solidity).tolist(),
             "wind": _each(
                 WindResult, n, basic_speed_mph=site.site.basic_wind_speed,
@@ -823,7 +829,7 @@ class _Results:
                 interior_force_coefficient=wind.cf_interior.tolist()),
             "unbraced": _each(
                 UnbracedResult, n, utilization=e.utilization.tolist(),
-                stands=((e.utilization <= 1.0) & ~over_height).tolist(),
+                stands=self.stands.tolist(),
                 working_limit_speed_mph=e.limit.tolist(),
                 stand_down_speed_mph=e.stand_down.tolist(),
                 max_height_ft=_or_none(self._capped(w, e.max_height)),
@@ -833,61 +839,46 @@ class _Results:
             "stand_down_speed_mph": stand_down.tolist(),
             "sustained_equivalents_mph": gusts.sustained_equivalents_of_each(stand_down),
             "fresh_working_limit_speed_mph": _or_none(e.fresh_limit),
-            "fresh_stand_down_speed_mph": fresh_stand_down,
-            "fresh_sustained_equivalents_mph": [{} if s is None else means for s, means in zip(
-                fresh_stand_down, gusts.sustained_equivalents_of_each(e.fresh_stand_down))]}
+            "fresh_stand_down_speed_mph": _or_none(e.fresh_stand_down),
+            "fresh_sustained_equivalents_mph": _fresh_sustained(e.fresh_stand_down)}
 
     def _braced_walls(self, e: Evaluation, combos: dict, bracings: list):
         """The checks, §8 records, notes and hardware of the braced walls (`bracings`: their
         panels' bracing), by row."""
-        site, bs = self.site, e.braces
-        brace_type, foot_anchor, wall_anchor = _fields(
+        site = self.site
+        self.bracings = bracings
+        self.brace_type, foot_anchor, wall_anchor = _fields(
             bracings, "brace_type", "foot_anchor", "wall_anchor")
         ways: dict[tuple, int] = {}  # brace and foot anchor types: each pair's checks' sources
-        way = np.array([ways.setdefault(pair, len(ways)) for pair in zip(brace_type, foot_anchor)],
-                       dtype=np.int64)
-        hardware = [self._hardware(pair) for pair in ways]
+        self.way = np.array([ways.setdefault(pair, len(ways))
+                             for pair in zip(self.brace_type, foot_anchor)], dtype=np.int64)
+        self.hardware_of_way = [self._hardware(pair) for pair in ways]
         self.braced = _check_set(e.braced_checks, braced.CHECKS, combos,
-                                 [("braced", sources) for sources, *_ in hardware], way)
-        self.hardware_flags = [hardware[k][1:] for k in way.tolist()]
-        self.notes = brace_notes(site, e, [site.brace_types[t] for t, _ in ways], way).tolist()
-        self.missing = e.braced_limit_missing.tolist()
-        self.brace_values = {
-            "angle": bs.angle.tolist(), "length": bs.length.tolist(),
-            "slenderness": bs.slenderness.tolist(),
-            "slenderness_limit": bs.slenderness_limit.tolist()}
-        self.records = braced.braced_records(bs, e.brace_forces)
-        for record, brace, wall, foot, utilization, missing in zip(
-                self.records, brace_type, wall_anchor, foot_anchor, self.braced.brace_utilization,
-                self.missing):
-            record.update(brace_type=brace, wall_anchor=wall, foot_anchor=foot,
-                          utilization=utilization,
-                          working_limit_one_missing_mph=None if math.isnan(missing) else missing)
+                                 [("braced", sources) for sources, *_ in self.hardware_of_way],
+                                 self.way)
+        self.notes = brace_notes(site, e, [site.brace_types[t] for t, _ in ways], self.way)
+        self.records = braced.braced_records(
+            e.braces, e.brace_forces, self.brace_type, wall_anchor, foot_anchor,
+            self.braced.brace_utilization, _or_none(e.braced_limit_missing))
 
     def panels(self) -> list[PanelResult]:
         """The result object of every wall, in the site's order (asked once: the objects take
         the lists and records made for this evaluation)."""
-        made = {name: [] for name in ("status", "checks", "flags", "governing_element", "braces")}
-        status, checks, flags, governing, braces = made.values()
-        c = self.columns
-        for p, is_braced, row, notes, wind, alone, limit, stand_down in zip(
-                self.site.panels, self.is_braced.tolist(), self.row.tolist(),
-                self.wall_notes.tolist(), c["wind"], c["unbraced"], c["working_limit_speed_mph"],
-                c["stand_down_speed_mph"]):
-            own = self._wall_flags(p, notes, alone.utilization, wind.solidity) if notes else []
-            if is_braced:
-                found = self.braced
-                status.append("braced" if found.strength_ok[row] else "unsafe")
-                braces.append(self.records[row])
-                own += self._braced_flags(p, row, found.failing.get(row, ()), limit, stand_down)
-            else:
-                found = self.unbraced
-                status.append("stands" if alone.stands else "needs_braces")
-                braces.append(None)
-            checks.append(found.checks[row])
-            flags.append(own)
-            governing.append(found.governing[row])
-        return _each(PanelResult, len(status), **made, **c)
+        alone, found = self.unbraced, self.braced
+        status = self._in_site_order(
+            ["stands" if ok else "needs_braces" for ok in self.stands[self.alone].tolist()],
+            ["braced" if ok else "unsafe" for ok in found.strength_ok])
+        return _each(PanelResult, len(self.place), status=status,
+                     checks=self._in_site_order(alone.checks, found.checks),
+                     flags=self._flags(),
+                     governing_element=self._in_site_order(alone.governing, found.governing),
+                     braces=self._in_site_order([None] * len(self.alone), self.records),
+                     **self.columns)
+
+    def _in_site_order(self, of_alone: list, of_braced: list) -> list:
+        """Every wall's value in the site's order, from those of the walls on their own and of
+        the braced walls, each by row."""
+        return list(map((of_alone + of_braced).__getitem__, self.place))
 
     def _capped(self, w: Walls, height: np.ndarray) -> np.ndarray:
         """The tallest each wall may stand unbraced: masonry no taller than OSHA 1926.706(b)
@@ -916,35 +907,44 @@ class _Results:
         _note(notes, OPEN_FRAMING, np.array([unsheathed[m] for m in material], dtype=bool))
         return notes
 
-    def _wall_flags(self, p, notes: int, utilization: float, solidity: float) -> list[Flag]:
-        """Flags of the wall standing on its own (`notes` as `_wall_notes` gives them)."""
-        flags: list[Flag] = []
-        if notes & FAILS_UNBRACED:
-            flags.append(Flag("fails-unbraced", "danger",
+    def _flags(self) -> list[list[Flag]]:
+        """Every wall's flags in the site's order: those of the wall on its own, then those of
+        its bracing."""
+        flags: list[list[Flag]] = [[] for _ in self.place]
+        self._wall_flags(flags)
+        if self.e.braces is not None:
+            self._braced_flags(flags)
+        return flags
+
+    def _wall_flags(self, flags: list[list[Flag]]):
+        """Adds the flags of each wall standing on its own (`wall_notes` says which)."""
+        e, rule, notes = self.e, self.rule, self.wall_notes
+        at = np.flatnonzero(notes & FAILS_UNBRACED)
+        _add(flags, at, [Flag("fails-unbraced", "danger",
                               f"cannot stand on its own at the design wind (utilization "
                               f"{utilization:.2f}): brace it before release from the crane",
-                              "ASCE 7-16 §29.3, statics"))
-        if notes & OVER_HEIGHT:
-            flags.append(Flag("masonry-over-8ft", "danger",
-                              f"masonry wall {p.height:.1f} ft tall: over "
-                              f"{self.rule['masonry_unbraced_height_ft']:g} ft it must be braced "
+                              "ASCE 7-16 §29.3, statics")
+                         for utilization in e.utilization[at].tolist()])
+        at = np.flatnonzero(notes & OVER_HEIGHT)
+        _add(flags, at, [Flag("masonry-over-8ft", "danger",
+                              f"masonry wall {self.height[k]:.1f} ft tall: over "
+                              f"{rule['masonry_unbraced_height_ft']:g} ft it must be braced "
                               f"until permanent supports are in place",
-                              self.source["masonry_unbraced_height_ft"]))
-        if notes & MOSTLY_OPEN:
-            flags.append(Flag("mostly-open", "warning",
+                              self.source["masonry_unbraced_height_ft"]) for k in at.tolist()])
+        at = np.flatnonzero(notes & MOSTLY_OPEN)
+        _add(flags, at, [Flag("mostly-open", "warning",
                               f"{1.0 - solidity:.0%} open: checked as an open wall (open-sign "
-                              f"coefficients on the solid area)", "ASCE 7-16 Figure 29.3-1 note 3"))
-        if notes & OPENING_BY_AREA:
-            flags.append(FIXED_FLAGS["opening-position-unknown"])
-        if notes & RAISED_BASE:
-            flags.append(Flag("raised-base", "notice",
-                              f"base {p.base_elevation:g} ft above grade: s/h < 1 coefficients",
-                              "ASCE 7-16 Figure 29.3-1"))
-        if notes & FRESH_MORTAR:
-            flags.append(FIXED_FLAGS["fresh-mortar"])
-        if notes & OPEN_FRAMING:
-            flags.append(FIXED_FLAGS["open-framing"])
-        return flags
+                              f"coefficients on the solid area)", "ASCE 7-16 Figure 29.3-1 note 3")
+                         for solidity in e.walls.solidity[at].tolist()])
+        _add(flags, np.flatnonzero(notes & OPENING_BY_AREA),
+             FIXED_FLAGS["opening-position-unknown"])
+        at = np.flatnonzero(notes & RAISED_BASE)
+        _add(flags, at, [Flag("raised-base", "notice",
+                              f"base {self.site.panels[k].base_elevation:g} ft above grade: "
+                              f"s/h < 1 coefficients", "ASCE 7-16 Figure 29.3-1")
+                         for k in at.tolist()])
+        _add(flags, np.flatnonzero(notes & FRESH_MORTAR), FIXED_FLAGS["fresh-mortar"])
+        _add(flags, np.flatnonzero(notes & OPEN_FRAMING), FIXED_FLAGS["open-framing"])
 
     def _hardware(self, key: tuple[str, str | None]) -> tuple[dict, list[Flag], list[Flag]]:
         """The check sources, brace flags and anchor flags that follow from a brace and foot
@@ -977,62 +977,77 @@ class _Results:
                                   brace_flags, anchor_flags)
         return self.hardware[key]
 
-    def _braced_flags(self, p, r: int, failing: list[Check], limit: float, stand_down: float
-                      ) -> list[Flag]:
-        """Flags of a braced wall: its `failing` checks, rules of practice, robustness (§6),
-        with those of its brace and anchor types."""
-        rule, source = self.rule, self.source
-        values, notes, missing = self.brace_values, self.notes[r], self.missing[r]
-        brace_flags, anchor_flags = self.hardware_flags[r]
-        flags = []
-        lifted = False
-        for c in failing:
+    def _braced_flags(self, flags: list[list[Flag]]):
+        """Adds the flags of each braced wall: its failing checks, rules of practice, robustness
+        (§6), with those of its brace and anchor types (`notes` says which)."""
+        e, rule, source, notes = self.e, self.rule, self.source, self.notes
+        bs = e.braces
+        wall = bs.index  # each row's wall
+        walls = wall.tolist()
+        failing = self.braced.failing
+        for r, c in failing:
             serviceability = c.element in braced.SERVICEABILITY
-            flags.append(Flag(
+            flags[walls[r]].append(Flag(
                 f"{c.element.replace(' ', '-')}-over", "warning" if serviceability else "danger",
                 f"{c.element}: utilization {c.utilization:.2f}"
                 + (" (the wall would crack)" if serviceability else ""), c.source))
-            lifted = lifted or c.element == "base uplift"
-        if lifted:
-            flags.append(FIXED_FLAGS["braces-lift-wall"])
-        if notes & TOO_FEW:
-            flags.append(Flag("too-few-braces", "danger", f"{p.bracing.count} brace(s); at least "
-                              f"{rule['minimum_braces_per_panel']:g} per wall",
-                              source["minimum_braces_per_panel"]))
-        if notes & ANGLE_OUTSIDE:
-            flags.append(Flag("brace-angle", "warning", f"brace angle {values['angle'][r]:.0f} "
-                              f"deg is outside {rule['brace_angle_min_deg']:g} to "
-                              f"{rule['brace_angle_max_deg']:g} deg",
-                              source["brace_angle_min_deg"]))
-        if notes & LOW_INSERT:
-            flags.append(Flag("low-insert", "notice", f"insert at "
-                              f"{p.bracing.insert_height / p.height:.0%}"
-                              f" of the height, below {rule['insert_min_height_ratio']:.0%}",
-                              source["insert_min_height_ratio"]))
-        if notes & UNEQUAL_SHARING:
-            flags.append(FIXED_FLAGS["unequal-sharing"])
-        if notes & TWO_BRACES:
-            flags.append(FIXED_FLAGS["no-margin"])
-        elif notes & STRUCK_BELOW_STAND_DOWN:
-            flags.append(Flag("no-margin", "warning", f"with one brace struck, the wall's limit "
-                              f"falls to {missing:.0f} mph, below the stand-down gust "
-                              f"{stand_down:.0f} mph", "design.md §6 robustness (team rule)"))
-        if notes & SLENDER:
-            flags.append(Flag("slender-brace", "danger", f"brace slenderness "
-                              f"{values['slenderness'][r]:.0f} exceeds "
-                              f"{values['slenderness_limit'][r]:.0f}: add lateral struts or a "
-                              "knee brace", "AISC 360-16 §E2 user note / NDS 2018 §3.7.1.4"))
-        flags += brace_flags
-        if notes & OUTSIDE_RATED:
-            bt = self.site.brace_types[p.bracing.brace_type]
-            flags.append(Flag("outside-rated-range", "danger", f"brace length "
-                              f"{values['length'][r]:.1f} ft is outside the rated table "
-                              f"({bt.lengths[0]:g} to {bt.lengths[-1]:g} ft): no rating",
-                              "maker's rated table"))
-        flags += anchor_flags
-        if math.isnan(limit):
-            flags.append(FIXED_FLAGS["capacity-unknown"])
-        return flags
+        lifted = sorted({r for r, c in failing if c.element == "base uplift"})
+        _add(flags, wall[lifted], FIXED_FLAGS["braces-lift-wall"])
+        rows = np.flatnonzero(notes & TOO_FEW)
+        _add(flags, wall[rows], [Flag("too-few-braces", "danger", f"{self.bracings[r].count} "
+                                      f"brace(s); at least {rule['minimum_braces_per_panel']:g} "
+                                      "per wall", source["minimum_braces_per_panel"])
+                                 for r in rows.tolist()])
+        rows = np.flatnonzero(notes & ANGLE_OUTSIDE)
+        _add(flags, wall[rows], [Flag("brace-angle", "warning", f"brace angle {angle:.0f} deg is "
+                                      f"outside {rule['brace_angle_min_deg']:g} to "
+                                      f"{rule['brace_angle_max_deg']:g} deg",
+                                      source["brace_angle_min_deg"])
+                                 for angle in bs.angle[rows].tolist()])
+        rows = np.flatnonzero(notes & LOW_INSERT)
+        _add(flags, wall[rows], [Flag("low-insert", "notice", f"insert at "
+                                      f"{self.bracings[r].insert_height / self.height[k]:.0%}"
+                                      f" of the height, below {rule['insert_min_height_ratio']:.0%}",
+                                      source["insert_min_height_ratio"])
+                                 for r, k in zip(rows.tolist(), wall[rows].tolist())])
+        _add(flags, wall[np.flatnonzero(notes & UNEQUAL_SHARING)], FIXED_FLAGS["unequal-sharing"])
+        _add(flags, wall[np.flatnonzero(notes & TWO_BRACES)], FIXED_FLAGS["no-margin"])
+        rows = np.flatnonzero((notes & (TWO_BRACES | STRUCK_BELOW_STAND_DOWN))
+                              == STRUCK_BELOW_STAND_DOWN)  # two braces: the flag above instead
+        speeds = list(zip(_whole_mph(e.braced_limit_missing[rows]),
+                          _whole_mph(e.braced_stand_down[rows])))
+        # one flag for the walls whose speeds read the same
+        said = {(missing, stand_down): Flag(
+            "no-margin", "warning", f"with one brace struck, the wall's limit falls to {missing} "
+            f"mph, below the stand-down gust {stand_down} mph",
+            "design.md §6 robustness (team rule)") for missing, stand_down in set(speeds)}
+        _add(flags, wall[rows], list(map(said.__getitem__, speeds)))
+        rows = np.flatnonzero(notes & SLENDER)
+        _add(flags, wall[rows], [Flag("slender-brace", "danger", f"brace slenderness "
+                                      f"{slenderness:.0f} exceeds {limit:.0f}: add lateral struts "
+                                      "or a knee brace", "AISC 360-16 §E2 user note / NDS 2018 "
+                                      "§3.7.1.4")
+                                 for slenderness, limit in zip(
+                                     bs.slenderness[rows].tolist(),
+                                     bs.slenderness_limit[rows].tolist())])
+        self._shared_by_way(flags, [brace for _, brace, _ in self.hardware_of_way])
+        rows = np.flatnonzero(notes & OUTSIDE_RATED)
+        types = [self.site.brace_types[self.brace_type[r]] for r in rows.tolist()]
+        _add(flags, wall[rows], [Flag("outside-rated-range", "danger", f"brace length "
+                                      f"{length:.1f} ft is outside the rated table "
+                                      f"({bt.lengths[0]:g} to {bt.lengths[-1]:g} ft): no rating",
+                                      "maker's rated table")
+                                 for length, bt in zip(bs.length[rows].tolist(), types)])
+        self._shared_by_way(flags, [anchor for _, _, anchor in self.hardware_of_way])
+        _add(flags, wall[np.isnan(e.braced_limit)], FIXED_FLAGS["capacity-unknown"])
+
+    def _shared_by_way(self, flags: list[list[Flag]], of_way: list[list[Flag]]):
+        """Adds to each braced wall the flags that `of_way` gives its brace and foot anchor
+        types (by `way`)."""
+        for way, shared in enumerate(of_way):
+            walls = self.e.braces.index[self.way == way]
+            for flag in shared:
+                _add(flags, walls, flag)
 
 
 # Flags that read the same on every wall they are on: made once, shared by those walls.
@@ -1099,6 +1114,13 @@ def _note(notes: np.ndarray, bit: int, where: np.ndarray):
     np.bitwise_or(notes, np.where(where, bit, 0), out=notes)
 
 
+def _add(flags: list[list[Flag]], walls: np.ndarray, made: list[Flag] | Flag):
+    """Adds to the flags of each of `walls` its own of `made` (a list, one per wall), or the one
+    flag `made` that they share."""
+    for k, flag in zip(walls.tolist(), made if isinstance(made, list) else repeat(made)):
+        flags[k].append(flag)
+
+
 # The sources of a wall's own checks by how it stands: a rigid panel, cured or fresh masonry,
 # another wall built in place.
 UNBRACED_SOURCES = {
@@ -1121,7 +1143,8 @@ class _CheckSet:
     checks: list[list[Check]]             # each wall's checks that apply to it (demand known)
     governing: list[str]                  # the check of the largest strength utilization
     strength_ok: list[bool]               # every strength check passes
-    failing: dict[int, list[Check]]       # the checks over 1.0 (serviceability too), by wall
+    failing: list[tuple[int, Check]]      # each check over 1.0 (serviceability too) and its
+                                          # row, wall by wall
     brace_utilization: list[float | None]  # the largest of the brace's own checks
 
 
@@ -1155,15 +1178,13 @@ def _check_set(arrays: dict, info: dict, combos: dict, ways: list[tuple[str, dic
     # a wall with some check over 1.0: the checks that do not pass (Check.passes)
     fails = np.flatnonzero((ratios.max(axis=0, initial=-np.inf) > 1.0)[wall]
                            & ~(ratios.T[applies] <= 1.0))
-    failing: dict[int, list[Check]] = {}
-    for at, k in zip(wall[fails].tolist(), fails.tolist()):
-        failing.setdefault(at, []).append(made[k])
+    failing = list(zip(wall[fails].tolist(), map(made.__getitem__, fails.tolist())))
     governing = [f"{element} ({region})" for element, region, *_ in named]
     return _CheckSet([made[start:end] for start, end in zip([0, *ends], ends)],
                      [governing[k] for k in (way * len(arrays)
                                              + strength.argmax(axis=0)).tolist()],
                      (strength.max(axis=0, initial=-np.inf) <= 1.0).tolist(),
-                     failing, [None if x == -math.inf else x for x in brace.tolist()])
+                     failing, np.where(brace == -np.inf, None, brace).tolist())
 
 
 def _check_columns(arrays: dict, info: dict, combos: dict) -> list[tuple]:
@@ -1201,6 +1222,22 @@ def _each(cls, n: int, **fields_of) -> list:
                            for v in map(fields_of.get, names))))
 
 
+def _whole_mph(speeds: np.ndarray) -> list[int]:
+    """Speeds (finite, not negative) rounded to whole mph as f"{x:.0f}" rounds them (half to
+    even), many at once."""
+    return np.rint(speeds).astype(np.int64).tolist()
+
+
 def _or_none(x: np.ndarray) -> list[float | None]:
     """The values as a list, None where not known (NaN)."""
     return np.where(np.isnan(x), None, x).tolist()
+
+
+def _fresh_sustained(stand_down: np.ndarray) -> list[dict]:
+    """The sustained equivalents of each wall's stand-down gust with fresh mortar, where it has
+    one (none: an empty dict)."""
+    means: list[dict] = [{} for _ in range(len(stand_down))]
+    known = np.flatnonzero(~np.isnan(stand_down))
+    for k, of_wall in zip(known.tolist(), gusts.sustained_equivalents_of_each(stand_down[known])):
+        means[k] = of_wall
+    return means

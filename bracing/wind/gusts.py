@@ -24,8 +24,11 @@ def sustained_equivalents(gust_mph):
 def sustained_equivalents_of_each(gust_mph) -> list[dict[str, float]]:
     """`sustained_equivalents` of each gust of an array: one dict of plain floats per gust."""
     gust = np.asarray(gust_mph, dtype=float)
-    means = [(gust / ratio).tolist() for ratio in SUSTAINED_RATIOS.values()]
-    return [dict(zip(SUSTAINED_RATIOS, each)) for each in zip(*means)]
+    one_min, two_min, ten_min, one_hour = ((gust / ratio).tolist()
+                                           for ratio in SUSTAINED_RATIOS.values())
+    # the names of SUSTAINED_RATIOS in its order, written out: such a dict is made at once
+    return [{"1-min": a, "2-min": b, "10-min": c, "1-hour": d}
+            for a, b, c, d in zip(one_min, two_min, ten_min, one_hour)]
 
 
 def _kz_power_law(z_ft, exposure):
