@@ -8,7 +8,6 @@ them together, for the design wind, for observed gusts (working-limit speed) and
 from __future__ import annotations
 
 import gc
-import math
 from contextlib import contextmanager
 from dataclasses import dataclass, fields, replace
 from itertools import repeat
@@ -105,55 +104,70 @@ class Walls:
 
 
 def gather(site: Site) -> Walls:
-    """Read the site's walls into arrays (the only per-wall Python loop before the results)."""
-    rows = []
-    cure_days = site.rule_value("masonry_cure_days") or 0.0
-    planned = lines.planned_weeks(site).tolist()
-    kinds = {name: _material_columns(mat) for name, mat in site.materials.items()}
-    read = attrgetter("material", "thickness", "face_weight", "unit_weight", "openings", "width",
-                      "height", "opening_area", "mortar_age", "footing", "return_walls",
-                      "standing_time", "base_elevation")
-    base_mu, period = site.site.friction_coefficient, site.site.construction_period
-    for k, p in enumerate(site.panels):
-        (material, thickness, face_weight, unit_weight, openings, width, height, opening_area,
-         mortar_age, f, return_walls, standing_time, base_elevation) = read(p)
-        mat = site.materials[material]
-        concrete, masonry, framed, open_framing, tension, bedding = kinds[material]
-        t_ft = thickness / 12.0
-        face = (face_weight or (unit_weight * t_ft if unit_weight else None)
-                or mat.face_weight or mat.unit_weight * t_ft)
-        if openings:
-            opens = [(o.x, o.y, o.width, o.height) for o in openings]
-            solid, centroid = stability.rectangle_centroid(width, height, opens)
-            _, centroid_x = stability.rectangle_centroid(
-                height, width, [(y, x, h, w) for x, y, w, h in opens])
-        else:
-            solid, centroid, centroid_x = width * height, height / 2.0, width / 2.0
-        solid -= opening_area or 0.0
-        solidity = STUD_SOLIDITY if open_framing else solid / (width * height)
-        cured = masonry and mortar_age is not None and mortar_age >= cure_days
-        returns = {r.end: r.length / height for r in return_walls}
-        weeks = standing_time or (None if math.isnan(planned[k]) else planned[k]) or period
-        rows.append((
-            height, width, t_ft, base_elevation, face, solidity, centroid / height,
-            centroid_x / width, concrete, masonry and not cured, masonry, framed,
-            tension if cured else 0.0, thickness, bedding,
-            returns.get("left", 0.0), returns.get("right", 0.0),
-            f.width if f else np.nan, f.thickness if f else np.nan,
-            (f.unit_weight * f.thickness + f.soil_unit_weight * f.soil_depth) if f else np.nan,
-            f.allowable_bearing if f else np.nan, f.friction_coefficient if f else np.nan,
-            base_mu, weeks,
-        ))
-    cols = [np.array(c) for c in zip(*rows)]
-    # the arrays that formulas give at once for every wall
-    cols[13], cols[14] = stability.masonry_section(cols[13], cols[14])
-    cols[-1] = (np.full(len(rows), site.site.period_factor) if site.site.period_factor
-                else asce37.period_factor(cols[-1].astype(float)))
+    """Read the site's walls into arrays: one pass over the panels reads their fields, the
+    formulas run over arrays, and only walls with openings, return walls or a footing are
+    visited again for those."""
+    panels = site.panels
+    n = len(panels)
+    (material, thickness, face_weight, unit_weight, openings, width, height, opening_area,
+     mortar_age, footing, return_walls, standing_time, base_elevation) = zip(*map(attrgetter(
+        "material", "thickness", "face_weight", "unit_weight", "openings", "width", "height",
+        "opening_area", "mortar_age", "footing", "return_walls", "standing_time",
+        "base_elevation"), panels))
+    thickness, face_weight, unit_weight, width, height, opening_area, mortar_age, \
+        standing_time, base_elevation = (np.array(c, dtype=float) for c in (  # None: NaN
+            thickness, face_weight, unit_weight, width, height, opening_area, mortar_age,
+            standing_time, base_elevation))
+    number = {name: k for k, name in enumerate(site.materials)}
+    material = np.fromiter(map(number.__getitem__, material), int, n)
+    kinds = [_material_columns(mat) for mat in site.materials.values()]
+    concrete, masonry, framed, open_framing = (
+        np.array([kind[c] for kind in kinds], dtype=bool)[material] for c in range(4))
+    tension = np.array([kind[4] for kind in kinds], dtype=float)[material]  # None: NaN
+    bedding = np.array([kind[5] for kind in kinds])[material]
+    mat_face, mat_unit = (np.array([getattr(m, name) for m in site.materials.values()],
+                                   dtype=float)[material] for name in ("face_weight", "unit_weight"))
+    t_ft = thickness / 12.0
+    # the panel's face weight, or its unit weight, or its material's face or unit weight
+    face = np.where(~np.isnan(face_weight), face_weight, np.where(
+        ~np.isnan(unit_weight), unit_weight * t_ft,
+        np.where(~np.isnan(mat_face), mat_face, mat_unit * t_ft)))
+    solid, centroid, centroid_x = width * height, height / 2.0, width / 2.0
+    for k in [k for k, o in enumerate(openings) if o]:
+        opens = [(o.x, o.y, o.width, o.height) for o in openings[k]]
+        solid[k], centroid[k] = stability.rectangle_centroid(width[k], height[k], opens)
+        _, centroid_x[k] = stability.rectangle_centroid(
+            height[k], width[k], [(y, x, h, w) for x, y, w, h in opens])
+    solid -= np.nan_to_num(opening_area)
+    solidity = np.where(open_framing, STUD_SOLIDITY, solid / (width * height))
+    cured = masonry & (mortar_age >= (site.rule_value("masonry_cure_days") or 0.0))
+    returns = np.zeros((2, n))  # Lr/s at the left and right ends
+    for k in [k for k, r in enumerate(return_walls) if r]:
+        for r in return_walls[k]:
+            returns[int(r.end == "right"), k] = r.length / height[k]
+    base = np.full((5, n), np.nan)  # footing width, thickness, psf of plan, bearing, friction
+    for k in [k for k, f in enumerate(footing) if f is not None]:
+        f = footing[k]
+        base[:, k] = (f.width, f.thickness,
+                      f.unit_weight * f.thickness + f.soil_unit_weight * f.soil_depth,
+                      f.allowable_bearing, f.friction_coefficient)
+    planned = lines.planned_weeks(site)
+    period = site.site.construction_period
+    weeks = np.where(~np.isnan(standing_time), standing_time,
+                     np.where(np.isnan(planned), np.nan if period is None else period, planned))
+    section, section_area = stability.masonry_section(thickness, bedding)
+    period_factor = (np.full(n, site.site.period_factor) if site.site.period_factor
+                     else asce37.period_factor(weeks))
     loads = lines.line_loads(site)
     along = ([getattr(loads, k) for k in lines.LineLoads.__dataclass_fields__] if loads
-             else [np.full(len(rows), np.nan)] * 7)
-    return Walls(*cols, *along, exposure=site.site.exposure,
-                 kzt=site.site.topographic_factor, ke=float(asce7.ke(site.site.ground_elevation)))
+             else [np.full(n, np.nan)] * 7)
+    return Walls(
+        height, width, t_ft, base_elevation, face, solidity, centroid / height,
+        centroid_x / width, concrete, masonry & ~cured, masonry, framed,
+        np.where(cured, tension, 0.0), section, section_area, *returns, *base,
+        np.full(n, site.site.friction_coefficient), period_factor, *along,
+        exposure=site.site.exposure, kzt=site.site.topographic_factor,
+        ke=float(asce7.ke(site.site.ground_elevation)))
 
 
 def _material_columns(mat) -> tuple:
