@@ -14,6 +14,7 @@ import numpy as np
 
 from bracing import anchors, braces, members, stability
 from bracing.data_members import DRESSED_SIZES_IN, LUMBER_GRADES, PIPES
+from bracing.model import read_panels
 from bracing.wind import asce7
 
 IN = 1.0 / 12.0  # ft per in
@@ -86,15 +87,17 @@ def rows_of(array, rows):
     return np.take(array, rows, axis=0)
 
 
-def gather_braces(site, basis: str, edges: dict[str, float] | None = None) -> BraceSet | None:
+def gather_braces(site, basis: str, edges: dict[str, float] | None = None,
+                  columns: dict[str, tuple] | None = None) -> BraceSet | None:
     """Read every braced wall's layout and capacities (None when no wall is braced).
 
-    `edges`: least edge distance (in) of each wall's slab-anchor feet from the plan."""
-    rows = [i for i, b in enumerate(map(attrgetter("bracing"), site.panels)) if b is not None]
+    `edges`: least edge distance (in) of each wall's slab-anchor feet from the plan; `columns`:
+    the panels' fields (model.read_panels), if already read."""
+    panel = columns or read_panels(site)
+    rows = [i for i, b in enumerate(panel["bracing"]) if b is not None]
     if not rows:
         return None
-    layouts, width, marks = zip(*map(attrgetter("bracing", "width", "mark"),
-                                     (site.panels[i] for i in rows)))
+    layouts, width, marks = ([panel[k][i] for i in rows] for k in ("bracing", "width", "mark"))
     names = ("count", "positions", "insert_height", "insert_offset", "foot_offset",
              "base_below_slab", "lean", "slop", "pretensioned", "brace_type", "wall_anchor",
              "foot_anchor", "anchor_distance", "angle")

@@ -18,7 +18,7 @@ import numpy as np
 from bracing import anchors, braced, layout, lines, members, plan, schedule, stability
 from bracing.braced import take
 from bracing.data_members import PIPES
-from bracing.model import Site
+from bracing.model import Site, read_panels
 from bracing.results import Check, Flag, PanelResult, SiteResult, UnbracedResult, WindResult
 from bracing.wind import asce7, asce37, gusts
 
@@ -103,21 +103,18 @@ class Walls:
         return replace(self, height=height)
 
 
-def gather(site: Site) -> Walls:
-    """Read the site's walls into arrays: one pass over the panels reads their fields, the
-    formulas run over arrays, and only walls with openings, return walls or a footing are
+def gather(site: Site, columns: dict[str, tuple] | None = None) -> Walls:
+    """Read the site's walls into arrays (`columns`: the panels' fields, model.read_panels):
+    the formulas run over arrays, and only walls with openings, return walls or a footing are
     visited again for those."""
-    panels = site.panels
-    n = len(panels)
-    (material, thickness, face_weight, unit_weight, openings, width, height, opening_area,
-     mortar_age, footing, return_walls, standing_time, base_elevation) = zip(*map(attrgetter(
-        "material", "thickness", "face_weight", "unit_weight", "openings", "width", "height",
-        "opening_area", "mortar_age", "footing", "return_walls", "standing_time",
-        "base_elevation"), panels))
+    f = columns or read_panels(site)
+    n = len(site.panels)
+    material, openings, footing, return_walls = (
+        f[k] for k in ("material", "openings", "footing", "return_walls"))
     thickness, face_weight, unit_weight, width, height, opening_area, mortar_age, \
-        standing_time, base_elevation = (np.array(c, dtype=float) for c in (  # None: NaN
-            thickness, face_weight, unit_weight, width, height, opening_area, mortar_age,
-            standing_time, base_elevation))
+        standing_time, base_elevation = (np.array(f[k], dtype=float) for k in (  # None: NaN
+            "thickness", "face_weight", "unit_weight", "width", "height", "opening_area",
+            "mortar_age", "standing_time", "base_elevation"))
     number = {name: k for k, name in enumerate(site.materials)}
     material = np.fromiter(map(number.__getitem__, material), int, n)
     kinds = [_material_columns(mat) for mat in site.materials.values()]
@@ -146,11 +143,11 @@ def gather(site: Site) -> Walls:
         for r in return_walls[k]:
             returns[int(r.end == "right"), k] = r.length / height[k]
     base = np.full((5, n), np.nan)  # footing width, thickness, psf of plan, bearing, friction
-    for k in [k for k, f in enumerate(footing) if f is not None]:
-        f = footing[k]
-        base[:, k] = (f.width, f.thickness,
-                      f.unit_weight * f.thickness + f.soil_unit_weight * f.soil_depth,
-                      f.allowable_bearing, f.friction_coefficient)
+    for k in [k for k, given in enumerate(footing) if given is not None]:
+        ftg = footing[k]
+        base[:, k] = (ftg.width, ftg.thickness,
+                      ftg.unit_weight * ftg.thickness + ftg.soil_unit_weight * ftg.soil_depth,
+                      ftg.allowable_bearing, ftg.friction_coefficient)
     planned = lines.planned_weeks(site)
     period = site.site.construction_period
     weeks = np.where(~np.isnan(standing_time), standing_time,
@@ -475,6 +472,7 @@ class Evaluation:
     braced_limit_missing: np.ndarray | None = None
     fresh_limit: np.ndarray | None = None       # masonry with fresh mortar (NaN: other walls)
     fresh_stand_down: np.ndarray | None = None
+    columns: dict[str, tuple] | None = None  # the panels' fields (model.read_panels)
 
 
 # Plan findings that depend on one wall alone go on the wall (and its days); crossings and
@@ -584,7 +582,8 @@ def _masonry_over_limit(site: Site, p) -> bool:
 
 def evaluate_arrays(site: Site, edges: dict[str, float] | None = None) -> Evaluation:
     """The vectorised pass: design wind, observed-gust limits and trial heights, all walls."""
-    w = gather(site)
+    columns = read_panels(site)
+    w = gather(site, columns)
     n = len(site.panels)
     factors = COMBINATIONS[site.site.design_basis]
     floor_rule = site.rule_value("minimum_design_wind_mph")
@@ -613,7 +612,8 @@ def evaluate_arrays(site: Site, edges: dict[str, float] | None = None) -> Evalua
                     if gust else np.full(n, np.nan))
     e = Evaluation(w, wind, checks, governing_utilization(checks), limit,
                    stand_down_speeds(site, w, limit), max_height, max_at_limit, design_speed)
-    bs = braced.gather_braces(site, site.site.design_basis, edges)
+    e.columns = columns
+    bs = braced.gather_braces(site, site.site.design_basis, edges, columns)
     if bs is not None:
         loads = braced.brace_loads(w, wind, bs, minimum)
         e.braces = bs
@@ -644,7 +644,7 @@ def fresh_mortar_limits(site: Site, unit: Wind, e: Evaluation) -> tuple[np.ndarr
     if bs is not None:
         limit[bs.index], stand_down[bs.index] = e.braced_limit, e.braced_stand_down
     limit, stand_down = (np.where(w.masonry, v, np.nan) for v in (limit, stand_down))
-    scheduled = np.array([p.lift_day is not None for p in site.panels], dtype=bool)
+    scheduled = np.array([day is not None for day in e.columns["lift_day"]], dtype=bool)
     again = w.masonry & ~w.fresh & scheduled
     if not again.any():
         return limit, stand_down
@@ -792,10 +792,9 @@ class _Results:
         self.source = {name: site.rule(name).source for name in self.rule}
         self.hardware: dict[tuple, tuple[dict, list[Flag], list[Flag]]] = {}
         w, wind, n = e.walls, e.wind, len(site.panels)
-        # each panel's fields, read in one pass (a large site's panels lie far apart in memory)
-        mark, material, self.height, width, thickness, opening_area, bracing = _fields(
-            site.panels, "mark", "material", "height", "width", "thickness", "opening_area",
-            "bracing")
+        mark, material, self.height, width, thickness, opening_area, bracing = (
+            list(e.columns[k]) for k in ("mark", "material", "height", "width", "thickness",
+                                         "opening_area", "bracing"))
         self.kind = np.select([w.rigid, w.masonry & ~w.fresh, w.masonry],
                               ["rigid", "masonry", "fresh"], "strip")
         # each wall's row in the checks of the walls on their own, or of the braced walls; a

@@ -8,6 +8,7 @@ unit of the same kind ("31 ft", "9.5 m"). Validation lives here, at the edge: th
 from __future__ import annotations
 
 from datetime import date
+from operator import attrgetter
 from typing import Annotated, Literal
 
 from pydantic import (
@@ -659,3 +660,16 @@ def reference_problems(data) -> list[tuple[tuple, str, object]]:
         problems.append((("version",), f"version {version} is newer than this program "
                                        f"({SCHEMA_VERSION})", version))
     return problems
+
+
+# Every panel field the evaluation reads (`read_panels`).
+PANEL_FIELDS = ("mark", "material", "thickness", "face_weight", "unit_weight", "openings",
+                "width", "height", "opening_area", "mortar_age", "footing", "return_walls",
+                "standing_time", "base_elevation", "bracing", "lift_day")
+
+
+def read_panels(site: Site) -> dict[str, tuple]:
+    """Each field of PANEL_FIELDS over all panels (a tuple in site order), read in one pass:
+    a large site's panel objects lie far apart in memory, so every pass over them costs."""
+    columns = zip(*map(attrgetter(*PANEL_FIELDS), site.panels))
+    return dict(zip(PANEL_FIELDS, columns)) if site.panels else dict.fromkeys(PANEL_FIELDS, ())
