@@ -160,7 +160,7 @@ def gather(site: Site, releases: lines.Releases | None = None) -> Walls:
     section, section_area = stability.masonry_section(thickness, bedding)
     period_factor = (np.full(n, site.site.period_factor) if site.site.period_factor
                      else asce37.period_factor(weeks))
-    loads = lines.line_loads(site, releases)
+    loads = lines.line_loads(site, releases, width, height, base_elevation)
     along = ([getattr(loads, k) for k in lines.LineLoads.__dataclass_fields__] if loads
              else [np.full(n, np.nan)] * 7)
     return Walls(

@@ -49,7 +49,7 @@ class Releases:
     before the lift, or before one of those events, cannot release it.
     """
 
-    marks: list[str]
+    marks: tuple[str, ...]
     lift: np.ndarray        # lift day (NaN: not scheduled)
     event_day: np.ndarray   # day of the last event the release waits for (NaN: none)
     release: np.ndarray     # release day (inf: not released)
@@ -62,8 +62,7 @@ class Releases:
 def releases(site: Site) -> Releases:
     """Each panel's lift, last release event and release day, from the sign-offs of its
     scheduled walls (see Releases)."""
-    marks, lift, after = (list(c) for c in zip(*map(attrgetter(
-        "mark", "lift_day", "release_after"), site.panels)))
+    marks, lift, after = zip(*map(attrgetter("mark", "lift_day", "release_after"), site.panels))
     lift = np.array(lift, float)  # None: NaN
     event_day = _last_event_days(site, after)
     row = dict(zip(marks, range(len(marks)))) if site.signoffs else {}
@@ -87,7 +86,7 @@ def planned_weeks(releases: Releases) -> np.ndarray:
     return weeks_to_release(releases.lift, releases.event_day)
 
 
-def _last_event_days(site: Site, after: list[list[str]]) -> np.ndarray:
+def _last_event_days(site: Site, after: tuple[list[str], ...]) -> np.ndarray:
     """Day of the last event each panel's release waits for (`after`: the events of each);
     NaN where it waits for none."""
     events = {e.name: e.day for e in site.events}
@@ -106,13 +105,13 @@ def weeks_to_release(lift_day, event_day):
     return np.maximum(1.0, event_day - lift_day + 1.0) / 7.0
 
 
-def line_loads(site: Site, releases: Releases) -> LineLoads | None:
-    """The enveloped line loads of every panel (None when no panel stands on a line);
-    `releases`: the site's, from `releases`."""
+def line_loads(site: Site, releases: Releases, width: np.ndarray, height: np.ndarray,
+               base: np.ndarray) -> LineLoads | None:
+    """The enveloped line loads of every panel (None when no panel stands on a line), from
+    the site's `releases` and each panel's width, height and base elevation (ft)."""
     n = len(site.panels)
-    line, *columns = zip(*map(attrgetter(
-        "line", "offset", "width", "height", "base_elevation"), site.panels))
-    offset, width, height, base = (np.array(c, dtype=float) for c in columns)  # None: NaN
+    line, offset = zip(*map(attrgetter("line", "offset"), site.panels))
+    offset = np.array(offset, dtype=float)  # None: NaN
     lift = releases.lift
     lines = {ln.name: ln for ln in site.lines}
     number = {name: k for k, name in enumerate(lines)}
@@ -152,11 +151,14 @@ def line_loads(site: Site, releases: Releases) -> LineLoads | None:
     # each end's wind at its largest, with its resultant from the panel's own first edge
     for end, mean, at in (("left", left, cx_left * s - (start - lo)),
                           ("right", right, hi - start - cx_right * s)):
-        best = np.lexsort((-mean, member))  # stable: the earliest of equals first
-        best = best[np.r_[True, np.diff(member[best]) != 0]]  # the largest, earliest, per panel
-        best = best[~np.isnan(mean[best])]
-        out[f"{end}_mean"][member[best]] = mean[best]
-        out[f"{end}_x"][member[best]] = at[best]
+        largest = np.full(n, np.nan)
+        np.fmax.at(largest, member, mean)
+        best = np.full(n, len(mean))  # each panel's earliest row at its largest (none: len)
+        at_largest = np.flatnonzero(mean == largest[member])
+        np.minimum.at(best, member[at_largest], at_largest)
+        found = best < len(mean)
+        out[f"{end}_mean"][found] = mean[best[found]]
+        out[f"{end}_x"][found] = at[best[found]]
     return LineLoads(**out)
 
 
