@@ -103,10 +103,12 @@ class Walls:
         return replace(self, height=height)
 
 
-def gather(site: Site, columns: dict[str, tuple] | None = None) -> Walls:
-    """Read the site's walls into arrays (`columns`: the panels' fields, model.read_panels):
-    the formulas run over arrays, and only walls with openings, return walls or a footing are
-    visited again for those."""
+def gather(site: Site, columns: dict[str, tuple] | None = None,
+           releases: lines.Releases | None = None) -> Walls:
+    """Read the site's walls into arrays (`columns`: the panels' fields, model.read_panels;
+    `releases`: the site's `lines.releases`; each read here when not given): the formulas run
+    over arrays, and only walls with openings, return walls or a footing are visited again
+    for those."""
     f = columns or read_panels(site)
     n = len(site.panels)
     material, openings, footing, return_walls = (
@@ -148,14 +150,15 @@ def gather(site: Site, columns: dict[str, tuple] | None = None) -> Walls:
         base[:, k] = (ftg.width, ftg.thickness,
                       ftg.unit_weight * ftg.thickness + ftg.soil_unit_weight * ftg.soil_depth,
                       ftg.allowable_bearing, ftg.friction_coefficient)
-    planned = lines.planned_weeks(site)
+    releases = lines.releases(site) if releases is None else releases
+    planned = lines.planned_weeks(releases)
     period = site.site.construction_period
     weeks = np.where(~np.isnan(standing_time), standing_time,
                      np.where(np.isnan(planned), np.nan if period is None else period, planned))
     section, section_area = stability.masonry_section(thickness, bedding)
     period_factor = (np.full(n, site.site.period_factor) if site.site.period_factor
                      else asce37.period_factor(weeks))
-    loads = lines.line_loads(site)
+    loads = lines.line_loads(site, releases, width, height, base_elevation)
     along = ([getattr(loads, k) for k in lines.LineLoads.__dataclass_fields__] if loads
              else [np.full(n, np.nan)] * 7)
     return Walls(
@@ -509,8 +512,10 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     (the site's [design] options); the walls for which none passes say why. `base_dir` is the
     site file's folder (the forecast file is read from it).
     """
+    releases = lines.releases(site)  # the designed layouts below leave the lifts as they are
     places = plan.place(site)
-    e = evaluate_arrays(site, plan.foot_edge_distances_in(site, places) if places else {})
+    e = evaluate_arrays(site, plan.foot_edge_distances_in(site, places) if places else {},
+                        releases)
     designs = {}
     if design and site.design is not None:
         rows = [i for i, p in enumerate(site.panels) if p.bracing is None
@@ -521,7 +526,8 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
             designs = {d.panel: d for d in found}
             site = layout.with_designs(site, found)
             places = plan.place(site)
-            e = evaluate_arrays(site, plan.foot_edge_distances_in(site, places) if places else {})
+            e = evaluate_arrays(site, plan.foot_edge_distances_in(site, places) if places else {},
+                                releases)
     panels = _Results(site, e).panels()
     by_mark = {p.mark: p for p in panels}
     for i, d in designs.items():
@@ -540,7 +546,7 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     for p in panels:  # a danger flag on a braced wall (an anchor off the slab...) is unsafe
         if p.status == "braced" and "danger" in map(severity, p.flags):
             p.status = "unsafe"
-    days, peak, wall_flags = schedule.build_days(site, panels, base_dir)
+    days, peak, wall_flags = schedule.build_days(site, panels, base_dir, releases)
     for mark, flag in wall_flags:  # sign-off and period flags: the wall's checks stand as they are
         by_mark[mark].flags.append(flag)
     geometry = None
@@ -580,10 +586,12 @@ def _masonry_over_limit(site: Site, p) -> bool:
         p.height > limit
 
 
-def evaluate_arrays(site: Site, edges: dict[str, float] | None = None) -> Evaluation:
-    """The vectorised pass: design wind, observed-gust limits and trial heights, all walls."""
+def evaluate_arrays(site: Site, edges: dict[str, float] | None = None,
+                    releases: lines.Releases | None = None) -> Evaluation:
+    """The vectorised pass: design wind, observed-gust limits and trial heights, all walls
+    (`releases`: the site's `lines.releases`, read when not given)."""
     columns = read_panels(site)
-    w = gather(site, columns)
+    w = gather(site, columns, releases)
     n = len(site.panels)
     factors = COMBINATIONS[site.site.design_basis]
     floor_rule = site.rule_value("minimum_design_wind_mph")

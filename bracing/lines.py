@@ -15,7 +15,7 @@ from operator import attrgetter
 
 import numpy as np
 
-from bracing.model import Panel, Site
+from bracing.model import Site
 from bracing.wind import asce7
 
 CORNER_TOLERANCE_FT = 1.0  # line ends closer than this meet at a corner
@@ -39,44 +39,57 @@ class LineLoads:
     local_mid: np.ndarray
 
 
-def release_days(site: Site, lift: np.ndarray) -> np.ndarray:
-    """Release day of each panel (inf: not released), from `lift`, its lift day (NaN: not
-    scheduled).
+@dataclass(frozen=True)
+class Releases:
+    """Each panel's lift and release, read once per evaluation for the line loads, the planned
+    standing time and the days of the job (`bracing.schedule`); panels in site order.
 
     A wall releases on its sign-off day, and only when every event it waits for is done by then
-    (OSHA 1926.704(a): braces stay until the permanent connections are complete).
+    (OSHA 1926.704(a): braces stay until the permanent connections are complete). A sign-off
+    before the lift, or before one of those events, cannot release it.
     """
-    release = np.full(len(site.panels), np.inf)
-    if site.signoffs:  # the earliest valid sign-off: after the lift and every event
-        row = dict(zip(map(attrgetter("mark"), site.panels), range(len(site.panels))))
-        wall, day = (np.array(c) for c in zip(*((row[s.panel], s.day) for s in site.signoffs)))
-        valid = (day >= lift[wall]) & ~(events_pending(site, wall, day) > day)
-        np.minimum.at(release, wall[valid], day[valid])
-    return release
+
+    marks: tuple[str, ...]
+    lift: np.ndarray        # lift day (NaN: not scheduled)
+    event_day: np.ndarray   # day of the last event the release waits for (NaN: none)
+    release: np.ndarray     # release day (inf: not released)
+    early: np.ndarray       # the sign-offs (rows of site.signoffs) before the one that releases
+    #                         their wall, if any: wall by wall, day by day, then in file order
+    early_wall: np.ndarray  # the wall (row of site.panels) of each
+    early_day: np.ndarray   # and its day
 
 
-def events_pending(site: Site, rows: np.ndarray, day: np.ndarray) -> np.ndarray:
-    """For sign-offs on `day` of the walls at `rows` of site.panels: the day of the last event
-    each wall's release waits for; NaN where it waits for none, or where the sign-off falls on
-    or after every event of the site (none can still be pending: the walls are not read)."""
-    out = np.full(len(rows), np.nan)
-    last = max((e.day for e in site.events), default=0)
-    early = np.flatnonzero(day < last)
-    out[early] = release_event_days(site, [site.panels[i] for i in rows[early].tolist()])
-    return out
+def releases(site: Site) -> Releases:
+    """Each panel's lift, last release event and release day, from the sign-offs of its
+    scheduled walls (see Releases)."""
+    marks, lift, after = zip(*map(attrgetter("mark", "lift_day", "release_after"), site.panels))
+    lift = np.array(lift, float)  # None: NaN
+    event_day = _last_event_days(site, after)
+    row = dict(zip(marks, range(len(marks)))) if site.signoffs else {}
+    wall = np.array([row[s.panel] for s in site.signoffs], int)
+    day = np.array([s.day for s in site.signoffs], int)
+    order = np.lexsort((day, wall))                      # stable: same-day ones in file order
+    order = order[~np.isnan(lift[wall[order]])]          # the sign-offs of scheduled walls
+    wall, day = wall[order], day[order]
+    valid = (day >= lift[wall]) & ~(event_day[wall] > day)  # after the lift and every event
+    first = np.full(len(marks), len(order))              # each wall's first valid sign-off
+    np.minimum.at(first, wall[valid], np.flatnonzero(valid))
+    release = np.full(len(marks), np.inf)
+    signed = first < len(order)
+    release[signed] = day[first[signed]]
+    early = np.flatnonzero(np.arange(len(order)) < first[wall])
+    return Releases(marks, lift, event_day, release, order[early], wall[early], day[early])
 
 
-def planned_weeks(site: Site) -> np.ndarray:
+def planned_weeks(releases: Releases) -> np.ndarray:
     """Planned standing time (weeks) from lift to the last event that releases the wall."""
-    lift = np.array([p.lift_day for p in site.panels], float)  # None: NaN
-    return weeks_to_release(lift, release_event_days(site))
+    return weeks_to_release(releases.lift, releases.event_day)
 
 
-def release_event_days(site: Site, panels: list[Panel] | None = None) -> np.ndarray:
-    """Day of the last event each panel's release waits for (of `panels`, default the site's);
+def _last_event_days(site: Site, after: tuple[list[str], ...]) -> np.ndarray:
+    """Day of the last event each panel's release waits for (`after`: the events of each);
     NaN where it waits for none."""
     events = {e.name: e.day for e in site.events}
-    after = [p.release_after for p in (site.panels if panels is None else panels)]
     count = np.fromiter(map(len, after), int, len(after))
     day = np.fromiter(map(events.__getitem__, chain.from_iterable(after)), float, count.sum())
     last = np.full(len(after), np.nan)
@@ -92,19 +105,21 @@ def weeks_to_release(lift_day, event_day):
     return np.maximum(1.0, event_day - lift_day + 1.0) / 7.0
 
 
-def line_loads(site: Site) -> LineLoads | None:
-    """The enveloped line loads of every panel (None when no panel stands on a line)."""
+def line_loads(site: Site, releases: Releases, width: np.ndarray, height: np.ndarray,
+               base: np.ndarray) -> LineLoads | None:
+    """The enveloped line loads of every panel (None when no panel stands on a line), from
+    the site's `releases` and each panel's width, height and base elevation (ft)."""
     n = len(site.panels)
-    line, *columns = zip(*map(attrgetter(
-        "line", "lift_day", "offset", "width", "height", "base_elevation"), site.panels))
-    lift, offset, width, height, base = (np.array(c, dtype=float) for c in columns)  # None: NaN
+    line, offset = zip(*map(attrgetter("line", "offset"), site.panels))
+    offset = np.array(offset, dtype=float)  # None: NaN
+    lift = releases.lift
     lines = {ln.name: ln for ln in site.lines}
     number = {name: k for k, name in enumerate(lines)}
     line_id = np.fromiter(map(number.get, line, repeat(-1)), int, n)  # -1: on no line
     line_id[np.isnan(lift)] = -1  # a wall not scheduled never stands on its line
     if not (line_id >= 0).any():
         return None
-    groups = _standing_groups(site, lines, line_id, lift, offset, width)
+    groups = _standing_groups(site, lines, line_id, lift, releases.release, offset, width)
     if groups is None:  # every wall on the lines is released on its lift day
         return LineLoads(**{k: np.full(n, np.nan) for k in LineLoads.__dataclass_fields__})
     member, lo, hi, ret_lo, ret_hi = groups
@@ -136,24 +151,28 @@ def line_loads(site: Site) -> LineLoads | None:
     # each end's wind at its largest, with its resultant from the panel's own first edge
     for end, mean, at in (("left", left, cx_left * s - (start - lo)),
                           ("right", right, hi - start - cx_right * s)):
-        best = np.lexsort((-mean, member))  # stable: the earliest of equals first
-        best = best[np.r_[True, np.diff(member[best]) != 0]]  # the largest, earliest, per panel
-        best = best[~np.isnan(mean[best])]
-        out[f"{end}_mean"][member[best]] = mean[best]
-        out[f"{end}_x"][member[best]] = at[best]
+        largest = np.full(n, np.nan)
+        np.fmax.at(largest, member, mean)
+        best = np.full(n, len(mean))  # each panel's earliest row at its largest (none: len)
+        at_largest = np.flatnonzero(mean == largest[member])
+        np.minimum.at(best, member[at_largest], at_largest)
+        found = best < len(mean)
+        out[f"{end}_mean"][found] = mean[best[found]]
+        out[f"{end}_x"][found] = at[best[found]]
     return LineLoads(**out)
 
 
 def _standing_groups(site: Site, lines: dict, line_id: np.ndarray, lift: np.ndarray,
-                     start: np.ndarray, width: np.ndarray) -> tuple[np.ndarray, ...] | None:
+                     release: np.ndarray, start: np.ndarray, width: np.ndarray
+                     ) -> tuple[np.ndarray, ...] | None:
     """The groups each wall on a line stands in, day by day: (panel index, the group's extent
     lo and hi along the line, the return wall at its start and at its end, ft), in day order.
 
-    `lines` are the site's lines by name; `line_id`, `lift`, `start` and `width` each panel's
-    line (its place in `lines`; -1: none, or not scheduled), lift day, offset along the line
-    and width. A wall in the same group as on its last standing day is loaded the same, so only
-    changes are listed (None when no wall on a line ever stands)."""
-    release = release_days(site, lift)
+    `lines` are the site's lines by name; `line_id`, `lift`, `release`, `start` and `width` each
+    panel's line (its place in `lines`; -1: none, or not scheduled), lift and release day (inf:
+    not released), offset along the line and width. A wall in the same group as on its last
+    standing day is loaded the same, so only changes are listed (None when no wall on a line
+    ever stands)."""
     gap = site.plan.joint_gap if site.plan else 1.0
     line_length = np.array([np.hypot(*np.subtract(ln.end, ln.start)) for ln in lines.values()])
     names = list(lines)

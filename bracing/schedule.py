@@ -200,6 +200,7 @@ class _Walls:
     marks: np.ndarray          # (object)
     lift: np.ndarray           # lift day
     release: np.ndarray        # release day; 0: no valid sign-off, stands to the last day
+    event_day: np.ndarray      # day of the last event its release waits for (NaN: none)
     flags: list[Flag]          # sign-off and no-signoff flags, wall by wall
     flag_wall: np.ndarray      # the wall of each flag
     flag_day: np.ndarray       # the day of each flag
@@ -209,71 +210,46 @@ PLANNED_FROM = np.array(["the wall's standing_time", "its release events",
                          "the site's construction_period"], dtype=object)
 
 
-def _walls(site: Site) -> _Walls:
-    """The scheduled walls, their release days and sign-off flags (see the module)."""
-    lift = np.array([p.lift_day for p in site.panels], float)  # None: NaN, not scheduled
-    index = np.flatnonzero(~np.isnan(lift))
-    lift = lift[index].astype(int)
-    marks = np.array([p.mark for p in site.panels], dtype=object)[index]
-    release, early, flag_wall, flag_day = _releases(site, index, marks, lift)
+def _walls(site: Site, releases: lines.Releases) -> _Walls:
+    """The scheduled walls, their release days and sign-off flags (see the module), from the
+    site's `releases`."""
+    r = releases
+    index = np.flatnonzero(~np.isnan(r.lift))
+    lift = r.lift[index].astype(int)
+    marks = np.array(r.marks, dtype=object)[index]
+    release = r.release[index]
+    release = np.where(np.isfinite(release), release, 0).astype(int)
+    events = {e.name: e.day for e in site.events}
+    early = [_early_flag(site.signoffs[j], site.panels[i], events)
+             for j, i in zip(r.early.tolist(), r.early_wall.tolist())]
     stays = np.flatnonzero(release == 0)
     flags = early + [Flag("no-signoff", "notice", f"{m}: no valid sign-off recorded: its braces "
                           "stay to the end of the schedule", RELEASE_SOURCE)
                      for m in marks[stays].tolist()]
-    flag_wall = np.concatenate([flag_wall, stays])
-    flag_day = np.concatenate([flag_day, lift[stays]])
+    flag_wall = np.concatenate([np.searchsorted(index, r.early_wall), stays])
+    flag_day = np.concatenate([r.early_day, lift[stays]])
     by_wall = np.argsort(flag_wall, kind="stable")  # a wall's `no-signoff` after its sign-offs
-    return _Walls(index, marks, lift, release, [flags[j] for j in by_wall.tolist()],
-                  flag_wall[by_wall], flag_day[by_wall])
+    return _Walls(index, marks, lift, release, r.event_day[index],
+                  [flags[j] for j in by_wall.tolist()], flag_wall[by_wall], flag_day[by_wall])
 
 
-def _planned(site: Site, index: np.ndarray, lift: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+def _planned(site: Site, index: np.ndarray, lift: np.ndarray, event_day: np.ndarray
+             ) -> tuple[np.ndarray, np.ndarray]:
     """Planned standing time (weeks) of the walls at `index` in site.panels (lifted on days
-    `lift`) and what it comes from (PLANNED_FROM): the wall's own, its release events, or the
-    site's."""
-    panels = [site.panels[i] for i in index.tolist()]
-    event_day = lines.release_event_days(site, panels)
-    own = np.array([p.standing_time for p in panels], float)  # None: NaN, not given
+    `lift`, the last event their release waits for on `event_day`) and what it comes from
+    (PLANNED_FROM): the wall's own, its release events, or the site's."""
+    own = np.array([site.panels[i].standing_time for i in index.tolist()], float)  # None: NaN
     source = np.where(np.isnan(own), np.where(np.isnan(event_day), 2, 1), 0)
     weeks = np.choose(source, [own, lines.weeks_to_release(lift, event_day),
                                site.site.construction_period])
     return weeks, PLANNED_FROM[source]
 
 
-def _last_event(site: Site, walls: _Walls, after: int) -> int:
+def _last_event(walls: _Walls, after: int) -> int:
     """The last day after day `after` on which falls an event the release of a scheduled wall
     waits for (0: none)."""
-    later = {e.name: e.day for e in site.events if e.day > after}
-    if not later:  # no need to read what the walls wait for
-        return 0
-    return max((later[name] for i in walls.index.tolist()
-                for name in site.panels[i].release_after if name in later), default=0)
-
-
-def _releases(site: Site, index: np.ndarray, marks: np.ndarray, lift: np.ndarray
-              ) -> tuple[np.ndarray, list[Flag], np.ndarray, np.ndarray]:
-    """Release day of each scheduled wall (0: none) from the sign-offs, and the flags of the
-    sign-offs that come too early (before the one that releases the wall, if any), wall by
-    wall and day by day, with their walls and days.
-    """
-    row = dict(zip(marks.tolist(), range(len(marks))))
-    wall = np.array([row.get(s.panel, -1) for s in site.signoffs], int)
-    day = np.array([s.day for s in site.signoffs], int)
-    order = np.lexsort((day, wall))                # stable: same-day sign-offs in file order
-    order = order[wall[order] >= 0]                # sign-offs of scheduled walls
-    wall, day = wall[order], day[order]
-    event_day = lines.events_pending(site, index[wall], day)
-    valid = (day >= lift[wall]) & ~(event_day > day)  # after the lift and every event
-    first = np.full(len(marks), len(order))        # each wall's first valid sign-off
-    np.minimum.at(first, wall[valid], np.flatnonzero(valid))
-    release = np.zeros(len(marks), int)
-    signed = first < len(order)
-    release[signed] = day[first[signed]]
-    early = np.flatnonzero(np.arange(len(order)) < first[wall])
-    events = {e.name: e.day for e in site.events}
-    flags = [_early_flag(site.signoffs[j], site.panels[i], events)
-             for j, i in zip(order[early].tolist(), index[wall[early]].tolist())]
-    return release, flags, wall[early], day[early]
+    last = np.fmax.reduce(walls.event_day, initial=-np.inf)  # NaN: waits for none
+    return int(last) if last > after else 0
 
 
 def _early_flag(signoff: SignOff, panel: Panel, events: dict[str, int]) -> Flag:
@@ -289,21 +265,23 @@ def _early_flag(signoff: SignOff, panel: Panel, events: dict[str, int]) -> Flag:
                 + ": the braces stay", RELEASE_SOURCE)
 
 
-def build_days(site: Site, panels: list[PanelResult], base_dir: str | Path | None = None
+def build_days(site: Site, panels: list[PanelResult], base_dir: str | Path | None = None,
+               releases: lines.Releases | None = None
                ) -> tuple[list[DayResult], dict, list[tuple[str, Flag]]]:
     """The job day by day, the peak inventory and each wall's schedule flags (see the module).
 
     `panels` are the wall results of `site` (any order, by mark); the forecast file is read from
-    `base_dir` (the site file's folder; default the working folder). Returns (days,
+    `base_dir` (the site file's folder; default the working folder); `releases` are the site's
+    `bracing.lines.releases` (read here when not given). Returns (days,
     {"braces": {type: peak}, "anchors": {type: peak}}, [(mark, flag)]).
     """
-    walls = _walls(site)
+    walls = _walls(site, lines.releases(site) if releases is None else releases)
     if not len(walls.index):
         return [], {"braces": {}, "anchors": {}}, []
     forecast = (read_forecast(Path(base_dir or ".") / site.forecast.file, site.site.start_date)
                 if site.forecast else {})
     last = max(int(walls.lift.max()), int(walls.release.max()), int(walls.flag_day.max(initial=0)))
-    last = max(last, _last_event(site, walls, last))
+    last = max(last, _last_event(walls, last))
     if not walls.release.all():  # a wall stands on: forecast days still count
         last = max([last, *forecast])
     result, marks = {p.mark: p for p in panels}, walls.marks.tolist()
@@ -318,7 +296,7 @@ def whole_site(site: Site, panels: list[PanelResult]) -> DayResult:
     no lift days (inventory, stand-down speed; no forecast, no lifts, no releases)."""
     n, no_flags = len(site.panels), np.zeros(0, int)
     walls = _Walls(np.arange(n), np.array([p.mark for p in site.panels], dtype=object),
-                   np.ones(n, int), np.zeros(n, int), [], no_flags, no_flags)
+                   np.ones(n, int), np.zeros(n, int), np.full(n, np.nan), [], no_flags, no_flags)
     result = {p.mark: p for p in panels}
     days, _, _ = _days(site, walls, [result[m] for m in walls.marks.tolist()], {}, 1)
     return replace(days[0], day=0, lifts=[])
@@ -504,7 +482,8 @@ def _period_slips(site: Site, walls: _Walls, results: list[PanelResult], release
     by_day = np.lexsort((k, on))                   # day by day, walls in site order
     k, on, band = k[by_day], on[by_day], enters[band[by_day]]
     slipping = np.unique(k)
-    planned, planned_from = _planned(site, walls.index[slipping], walls.lift[slipping])
+    planned, planned_from = _planned(site, walls.index[slipping], walls.lift[slipping],
+                                     walls.event_day[slipping])
     checked = {j: _checked(results[j].wind, limit, weeks, source) for j, limit, weeks, source
                in zip(slipping.tolist(), asce37.period_band_limit_weeks(planned).tolist(),
                       planned.tolist(), planned_from.tolist())}
