@@ -256,60 +256,85 @@ class BraceForces:
 
 @dataclass(frozen=True)
 class BraceLoads:
-    """Unfactored loads on the braced walls (lb): the wind of rigid panels' load cases and of
-    the strips that each brace of a wall built in place carries, and the lean of the wall's
-    weight on its braces, with the levers of each brace pattern. The wind is linear in q, so
-    an observed gust's loads are those of 1 mph scaled by V^2; the lean does not scale."""
+    """Unfactored loads on the braced walls (lb): each brace's horizontal reaction to the wind,
+    the largest and the least over a rigid panel's load cases (the even share plus the twist)
+    or its own strip's of a wall built in place, and its share of the wall's weight leaning
+    out of plumb, with each wall's sums. The wind is linear in q, so an observed gust's loads
+    are those of 1 mph scaled by V^2; the lean does not scale."""
 
-    case_force: np.ndarray  # (cases, m)
-    case_at: np.ndarray     # (cases, m) resultant position from the wall's first edge, ft
-    strip: np.ndarray       # (m, k) per brace slot
-    height: np.ndarray      # (m,) the wind's resultant above the wall's base (of a rigid
-    #                         panel as a whole, of a strip otherwise), ft: the same at any speed
+    most: np.ndarray        # (m, k) largest wind reaction of each brace over the cases, NaN at
+    least: np.ndarray       # (m, k)   an empty slot; the least (a strip's: both its own)
+    lean: np.ndarray        # (m, k) each brace's share of the lean (a strip's brace: its size)
+    total: np.ndarray       # (m,) largest sum of the braces' wind reactions over the cases
+    wind_force: np.ndarray  # (m,) the whole wall's wind force in that case
+    base_shear: np.ndarray  # (m,) largest |F - sum R_h| over the cases
     lean_total: np.ndarray  # (m,) sum of the braces' horizontal reactions to the lean
-    lean: np.ndarray        # (m, k) each brace's share of it
-    lever: tuple            # braces.brace_lever of each wall's pattern
 
     def take(self, rows) -> BraceLoads:
         """The loads of the walls `rows` only."""
-        return BraceLoads(self.case_force[:, rows], self.case_at[:, rows],
-                          rows_of(self.strip, rows), self.height[rows], self.lean_total[rows],
-                          rows_of(self.lean, rows), tuple(rows_of(v, rows) for v in self.lever))
+        return BraceLoads(*(rows_of(v, rows) for v in (
+            self.most, self.least, self.lean, self.total, self.wind_force, self.base_shear,
+            self.lean_total)))
 
     def scaled(self, factor) -> BraceLoads:
         """The wind times `factor` (one value, or one per wall); the lean as it is."""
         factor = np.asarray(factor, dtype=float)
-        return replace(self, case_force=self.case_force * factor,
-                       strip=self.strip * (factor[..., None] if factor.ndim else factor))
+        each = factor[..., None] if factor.ndim else factor
+        return replace(self, most=self.most * each, least=self.least * each,
+                       total=self.total * factor, wind_force=self.wind_force * factor,
+                       base_shear=self.base_shear * factor)
 
 
 def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
-    """The wind load cases on each braced wall (design.md §4, §6): a rigid panel's cases as a
-    whole, the strips of a wall built in place (each worked out for the walls that use it)."""
+    """The wind load cases on each braced wall and each brace's reactions (design.md §4, §6).
+
+    A rigid panel's braces share each load case as a whole with the twist; a wall built in
+    place gives each brace its own strip (each worked out for the walls that use it). Worked
+    out once for a wind: the reactions of any load factor and any scale follow from them."""
     rigid = walls.rigid[bs.index]
     m, k = bs.mask.shape
-    case_force, case_at = np.zeros((LOAD_CASES, m)), np.zeros((LOAD_CASES, m))
-    strip = np.zeros((m, k))
-    rows = np.nonzero(rigid)[0]
-    if len(rows):  # a wall listed more than once (variants of its layout) is worked out once
-        each, listed = np.unique(bs.index[rows], return_inverse=True)
-        forces, at = _case_loads(walls, wind, each, minimum_psf)
-        case_force[:, rows] = np.take(forces, listed, axis=1)
-        case_at[:, rows] = np.take(at, listed, axis=1)
-    rows = np.nonzero(~rigid)[0]
-    if len(rows):
-        strip[rows] = _strip_loads(walls, wind, bs.index[rows], rows_of(bs.positions, rows),
-                                   rows_of(bs.mask, rows), minimum_psf)
     i = bs.index
     s, b = walls.height[i], walls.width[i]
-    dead = walls.face_weight[i] * s * b * walls.solidity[i]
-    lean_total = braces.lean_reaction(dead, walls.centroid_ratio[i] * s, s, bs.insert, bs.lean,
-                                      bs.slop)
+    hb = bs.insert
+    height = np.where(rigid, wind.lever[i], wind.lever_strip[i])
+    most, least = np.full((m, k), np.nan), np.full((m, k), np.nan)
+    total, force, shear = np.zeros(m), np.zeros(m), np.zeros(m)
     lever = braces.brace_lever(bs.positions, bs.mask)
+    rows = np.flatnonzero(rigid)
+    if len(rows):  # a wall listed more than once (variants of its layout) is worked out once
+        each, listed = np.unique(i[rows], return_inverse=True)
+        case_force, case_at = (np.take(v, listed, axis=1)
+                               for v in _case_loads(walls, wind, each, minimum_psf))
+        sum_h = braces.total_brace_reaction(case_force, height[rows], hb[rows])
+        arms = tuple(rows_of(v, rows) for v in lever)
+        share, per_arm = braces.share_and_twist(sum_h, case_force, case_at, b[rows] / 2.0,
+                                                arms)
+        high, low = np.full(arms[2].shape, -np.inf), np.full(arms[2].shape, np.inf)
+        pushed, sums, out = np.zeros(len(rows)), np.zeros(len(rows)), np.zeros(len(rows))
+        for case, case_sum, even, twist in zip(case_force, sum_h, share, per_arm):
+            shares = even[:, None] + twist[:, None] * arms[2]  # as braces.brace_shares
+            high, low = np.maximum(high, shares), np.minimum(low, shares)
+            pushed = np.where(case_sum > sums, case, pushed)  # the first case of the largest sum
+            sums = np.maximum(sums, case_sum)
+            out = np.maximum(out, np.abs(case - case_sum))
+        most[rows], least[rows], total[rows], force[rows], shear[rows] = high, low, sums, \
+            pushed, out
+    rows = np.flatnonzero(~rigid)
+    if len(rows):  # walls built in place: each brace takes its own strip of wall
+        strip = _strip_loads(walls, wind, i[rows], rows_of(bs.positions, rows),
+                             rows_of(bs.mask, rows), minimum_psf)
+        strip_h = braces.total_brace_reaction(strip, height[rows][:, None], hb[rows][:, None])
+        most[rows] = least[rows] = strip_h
+        total[rows], force[rows] = braces.slot_sum(strip_h), braces.slot_sum(strip)
+        shear[rows] = np.abs(force[rows] - total[rows])
+    most, least = np.where(bs.mask, most, np.nan), np.where(bs.mask, least, np.nan)
+    dead = walls.face_weight[i] * s * b * walls.solidity[i]
+    lean_total = braces.lean_reaction(dead, walls.centroid_ratio[i] * s, s, hb, bs.lean, bs.slop)
     lean = braces.brace_shares(lean_total, np.zeros(m), b / 2.0, b / 2.0, bs.positions,
                                bs.mask, lever)
-    height = np.where(rigid, wind.lever[i], wind.lever_strip[i])
-    return BraceLoads(case_force, case_at, strip, height, lean_total, lean, lever)
+    # a strip's brace takes the lean's size whichever way it leans (its strip holds it alone)
+    lean = np.where(rigid[:, None], lean, np.abs(lean))
+    return BraceLoads(most, least, lean, total, force, shear, lean_total)
 
 
 LOAD_CASES = 7  # Case A, Case B from either edge, Case C from either end, the line's two ends
@@ -339,51 +364,17 @@ def _case_loads(walls, wind, i, minimum_psf) -> tuple[np.ndarray, np.ndarray]:
     return np.array(forces), np.array(at)
 
 
-def brace_forces(walls, loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
+def brace_forces(loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
     """Per-brace factored forces, the governing load case of each brace (design.md §6).
 
-    A rigid panel's braces share each load case with the twist; a wall built in place gives
-    each brace its own strip. Both add the wall's lean on the braces."""
-    i = bs.index
-    hb = bs.insert
+    Each brace's wind reaction (factored) plus its lean: the larger in size of its largest and
+    least over the cases (|x + lean| is largest at one end of the reactions' range)."""
     lean_total, lean = f.dead_adds * loads.lean_total, f.dead_adds * loads.lean
-    horizontal = np.zeros(bs.mask.shape)
-    total, shear, force = np.zeros(len(i)), np.zeros(len(i)), np.zeros(len(i))
-    rigid = walls.rigid[i]
-    r = np.flatnonzero(rigid)
-    if len(r):
-        centre, arms = walls.width[i[r]] / 2.0, tuple(rows_of(v, r) for v in loads.lever)
-        lean_r = rows_of(lean, r)  # NaN at an empty slot
-        case_force = loads.case_force[:, r]
-        sum_h = f.wind * braces.total_brace_reaction(case_force, loads.height[r], hb[r])
-        share, per_arm = braces.share_and_twist(sum_h, f.wind * case_force,
-                                                loads.case_at[:, r], centre, arms)
-        h = np.zeros(lean_r.shape)
-        pushed, sums, out = np.zeros(len(r)), np.zeros(len(r)), np.zeros(len(r))
-        for case, case_sum, even, twist in zip(case_force, sum_h, share, per_arm):
-            # each brace's share (as braces.brace_shares) plus its lean, NaN at an empty slot
-            shares = twist[:, None] * arms[2]
-            shares += even[:, None]
-            shares += lean_r
-            np.fmax(h, np.abs(shares, out=shares), out=h)  # an empty slot takes nothing
-            pushed = np.where(case_sum > sums, case, pushed)  # the first case of the largest sum
-            sums = np.maximum(sums, case_sum)
-            out = np.maximum(out, np.abs(f.wind * case - case_sum))
-        horizontal[r], total[r], force[r], shear[r] = np.nan_to_num(h), sums, pushed, out
-    r = np.flatnonzero(~rigid)
-    if len(r):  # walls built in place: each brace takes its own strip of wall
-        strip = rows_of(loads.strip, r)
-        strip_h = f.wind * braces.total_brace_reaction(strip, loads.height[r][:, None],
-                                                       hb[r][:, None])
-        horizontal[r] = strip_h + np.abs(np.nan_to_num(rows_of(lean, r)))
-        total[r] = braces.slot_sum(strip_h)
-        force[r] = braces.slot_sum(strip)
-        shear[r] = np.abs(f.wind * force[r] - total[r])
-    total += lean_total
-    shear += lean_total
+    horizontal = np.fmax(np.abs(f.wind * loads.most + lean), np.abs(f.wind * loads.least + lean))
     horizontal = np.where(bs.mask, horizontal, 0.0)
     axial = braces.axial_force(horizontal, bs.angle[:, None])
-    return BraceForces(horizontal, axial, total, shear, force)
+    return BraceForces(horizontal, axial, f.wind * loads.total + lean_total,
+                       f.wind * loads.base_shear + lean_total, loads.wind_force)
 
 
 def _strip_loads(walls, wind, i, positions, mask, minimum_psf):
@@ -490,7 +481,7 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
     i = bs.index
     if loads is None:
         loads = brace_loads(walls, wind, bs, minimum_psf)
-    forces = brace_forces(walls, loads, bs, f)
+    forces = brace_forces(loads, bs, f)
     p = braces.worst_brace(forces.axial)
     na = np.full(len(i), np.nan)
     comp_cap = bs.compression
