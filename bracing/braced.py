@@ -70,13 +70,15 @@ def take(obj, rows):
     return replace(obj, **{name: rows_of(v, rows) for name, v in arrays.items()})
 
 
-UNCHECKED = ("positions", "anchor_distance", "length", "lean", "slop", "pretensioned",
-             "slenderness", "slenderness_limit", "torque_factor", "torque_safety")
+UNCHECKED = ("index", "positions", "anchor_distance", "length", "lean", "slop", "pretensioned",
+             "slenderness", "slenderness_limit", "torque_factor", "torque_safety", "foot_kind",
+             "rupture")
 
 
 def for_checks(bs: BraceSet) -> BraceSet:
     """`bs` without the arrays `braced_checks` does not read (None: `take` leaves them), for a
-    search that takes its rows again at every step; its loads are worked out beforehand."""
+    search that takes its rows again at every step; its loads and standing parts are worked
+    out beforehand."""
     return replace(bs, **dict.fromkeys(UNCHECKED))
 
 
@@ -471,19 +473,64 @@ def sources(brace_kind: str, foot_kind: str | None) -> dict[str, str]:
     return out
 
 
+@dataclass(frozen=True)
+class Standing:
+    """What the braced walls' checks take from the walls and their braces whatever the wind,
+    for one set of load factors (arrays over m walls): worked out once for a search."""
+
+    cos: np.ndarray         # of each wall's brace angle
+    sin: np.ndarray
+    tan: np.ndarray
+    slab: np.ndarray        # the foot anchors' kinds
+    rated: np.ndarray
+    helical: np.ndarray
+    deadman: np.ndarray
+    held: np.ndarray        # the base is checked (a framed wall's sill is the framer's)
+    weight: np.ndarray      # factored weight holding the base down, lb
+    base_mu: np.ndarray     # friction at the base
+    area: np.ndarray        # the wall's face, ft^2
+    height: np.ndarray      # ft
+    bending: np.ndarray     # masonry: moment capacity at the base joint, per ft (NaN: other)
+    cracking: np.ndarray    # concrete: cracking moment, per ft (NaN: other)
+
+    def take(self, rows) -> Standing:
+        """The same of the walls `rows` only."""
+        return Standing(*(rows_of(getattr(self, f.name), rows) for f in fields(self)))
+
+
+def standing_of(walls, bs: BraceSet, f) -> Standing:
+    """The wind-independent parts of the braced checks of `bs` with load factors `f`."""
+    i = bs.index
+    theta = np.radians(bs.angle)
+    kind = bs.foot_kind
+    s, b = walls.height[i], walls.width[i]
+    dead = walls.face_weight[i] * s * b * walls.solidity[i]
+    masonry = walls.masonry[i]
+    bending = (np.where(masonry, _masonry_bending(walls, bs, f, s), np.nan) if masonry.any()
+               else np.full(len(i), np.nan))
+    return Standing(np.cos(theta), np.sin(theta), np.tan(theta), kind == "slab",
+                    np.isin(kind, RATED_FEET), kind == "helical", kind == "deadman",
+                    # A framed wall's sill is nailed or bolted down: the framer designs it.
+                    ~walls.framed[i], f.dead_resists * dead, walls.base_mu[i], b * s, s, bending,
+                    braces.cracking_moment(bs.rupture, walls.thickness_ft[i] * 12.0))
+
+
 @np.errstate(divide="ignore", invalid="ignore", over="ignore")  # infinities and NaN mean 'fails'
-def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads | None = None):
+def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads | None = None,
+                  standing: Standing | None = None):
     """Demand and capacity of every braced element, worst brace of each wall (arrays over m).
 
     `loads` (from `brace_loads`) may be given to skip working out the wind's load cases (the
-    wind is then not read). A check that applies to none of the walls is NaN throughout.
+    wind is then not read), `standing` (from `standing_of`) the parts that do not depend on the
+    wind. A check that applies to none of the walls is NaN throughout.
     """
-    i = bs.index
     if loads is None:
         loads = brace_loads(walls, wind, bs, minimum_psf)
+    if standing is None:
+        standing = standing_of(walls, bs, f)
     forces = brace_forces(loads, bs, f)
     p = braces.worst_brace(forces.axial)
-    na = np.full(len(i), np.nan)
+    na = np.full(len(p), np.nan)
     comp_cap = bs.compression
     pipe = bs.self_weight_ratio > 0
     if pipe.any():
@@ -499,41 +546,33 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
         "brace tension": (p, bs.tension),
         "brace end fittings": (p, bs.connection),
     }
-    pull, up = braces.components(p, bs.angle)
+    pull, up = p * standing.cos, p * standing.sin  # braces.components
     # the insert: the horizontal component pulls it out of the face, the vertical one shears it
     insert_ratio = pull / bs.insert_tension + up / bs.insert_shear
     checks["wall insert"] = (p, p / np.maximum(insert_ratio, 1e-12))
     # The foot anchor: uplift P sin(theta) and pull P cos(theta) with the brace in tension.
-    kind = bs.foot_kind
-    slab = kind == "slab"
+    slab = standing.slab
     slab_ratio = (np.where(slab, anchors.tension_shear_interaction(
         up, bs.foot_tension, pull, bs.foot_shear), np.nan) if slab.any() else na)
     rated_ratio = up / bs.foot_tension + pull / bs.foot_shear
-    foot_ratio = np.select([slab, np.isin(kind, RATED_FEET), kind == "helical"],
+    foot_ratio = np.select([slab, standing.rated, standing.helical],
                            [slab_ratio, rated_ratio, p / bs.foot_tension], np.nan)
     checks["foot anchor"] = (p, p / np.maximum(foot_ratio, 1e-12))
-    deadman = kind == "deadman"
+    deadman = standing.deadman
     checks.update(_deadman_checks(bs, f, deadman, pull, up, na) if deadman.any()
                   else dict.fromkeys(DEADMAN_CHECKS, (na, na)))
     # The wall's base: lifted by the braces in compression, pushed out by the base shear.
-    s, b = walls.height[i], walls.width[i]
-    dead = walls.face_weight[i] * s * b * walls.solidity[i]
-    lift = forces.total * np.tan(np.radians(bs.angle))
-    # A framed wall's sill is nailed or bolted down: that connection is the framer's to design.
-    held = ~walls.framed[i]
-    checks["base uplift"] = (np.where(held, lift, na), f.dead_resists * dead)
-    checks["base kick-out"] = (np.where(held, forces.base_shear, na), walls.base_mu[i] * np.maximum(
-        f.dead_resists * dead - lift, 0.0))
+    lift = forces.total * standing.tan
+    held = standing.held
+    checks["base uplift"] = (np.where(held, lift, na), standing.weight)
+    checks["base kick-out"] = (np.where(held, forces.base_shear, na), standing.base_mu * np.maximum(
+        standing.weight - lift, 0.0))
     # The wall spanning from its base to the braces, per ft of width.
-    pressure = f.wind * forces.wind_force / (b * s)
-    span, cantilever = braces.propped_wall_moments(pressure, s, bs.insert)
+    pressure = f.wind * forces.wind_force / standing.area
+    span, cantilever = braces.propped_wall_moments(pressure, standing.height, bs.insert)
     moment = np.maximum(span, cantilever)
-    masonry = walls.masonry[i]
-    checks["wall bending"] = (_masonry_bending(walls, bs, f, masonry, s, moment, na)
-                              if masonry.any() else (na, na))
-    cracking = braces.cracking_moment(bs.rupture, walls.thickness_ft[i] * 12.0)
-    concrete = ~np.isnan(cracking)
-    checks["wall cracking"] = (np.where(concrete, moment, na), np.where(concrete, cracking, na))
+    checks["wall bending"] = (moment, standing.bending)
+    checks["wall cracking"] = (moment, standing.cracking)
     # A check whose capacity is not known is not made (its element is not counted).
     checks = {k: (np.where(np.isnan(c), np.nan, d), c) for k, (d, c) in checks.items()}
     return checks, forces
@@ -570,16 +609,15 @@ def _deadman_checks(bs: BraceSet, f, deadman, pull, up, na) -> dict:
          np.where(bearing, bs.block_bearing, na)))))
 
 
-def _masonry_bending(walls, bs: BraceSet, f, masonry, s, moment, na):
-    """Moment and capacity of the masonry walls at their base joint, per ft: rocking on the
-    weight above, or the mortar's flexural tension (TMS 402-16 §8.2)."""
+def _masonry_bending(walls, bs: BraceSet, f, s):
+    """Moment capacity of the masonry walls at their base joint, per ft: rocking on the weight
+    above, or the mortar's flexural tension (TMS 402-16 §8.2)."""
     i = bs.index
     above = f.dead_resists * walls.face_weight[i] * (s - bs.insert)
-    capacity = np.maximum(
+    return np.maximum(
         stability.rocking_resistance(above, walls.thickness_ft[i]),
         stability.masonry_flexural_capacity(walls.flex_tension[i], walls.section[i],
                                             walls.section_area[i], above))
-    return np.where(masonry, moment, na), np.where(masonry, capacity, na)
 
 
 def braced_records(bs: BraceSet, forces: BraceForces, brace_type: list[str],
