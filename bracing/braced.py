@@ -264,8 +264,9 @@ class BraceLoads:
     out of plumb, with each wall's sums. The wind is linear in q, so an observed gust's loads
     are those of 1 mph scaled by V^2; the lean does not scale."""
 
-    most: np.ndarray        # (m, k) largest wind reaction of each brace over the cases, NaN at
-    least: np.ndarray       # (m, k)   an empty slot; the least (a strip's: both its own)
+    most: np.ndarray        # (m, k) each brace's largest wind reaction over the load cases
+    least: np.ndarray       # (m, k) and its least (a strip's brace: both its strip's); NaN at
+    #                         an empty slot
     lean: np.ndarray        # (m, k) each brace's share of the lean (a strip's brace: its size)
     total: np.ndarray       # (m,) largest sum of the braces' wind reactions over the cases
     wind_force: np.ndarray  # (m,) the whole wall's wind force in that case
@@ -274,9 +275,7 @@ class BraceLoads:
 
     def take(self, rows) -> BraceLoads:
         """The loads of the walls `rows` only."""
-        return BraceLoads(*(rows_of(v, rows) for v in (
-            self.most, self.least, self.lean, self.total, self.wind_force, self.base_shear,
-            self.lean_total)))
+        return BraceLoads(*(rows_of(getattr(self, f.name), rows) for f in fields(self)))
 
     def scaled(self, factor) -> BraceLoads:
         """The wind times `factor` (one value, or one per wall); the lean as it is."""
@@ -489,7 +488,7 @@ class Standing:
     weight: np.ndarray      # factored weight holding the base down, lb
     base_mu: np.ndarray     # friction at the base
     area: np.ndarray        # the wall's face, ft^2
-    height: np.ndarray      # ft
+    height: np.ndarray      # the wall's, ft
     bending: np.ndarray     # masonry: moment capacity at the base joint, per ft (NaN: other)
     cracking: np.ndarray    # concrete: cracking moment, per ft (NaN: other)
 
@@ -546,7 +545,7 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
         "brace tension": (p, bs.tension),
         "brace end fittings": (p, bs.connection),
     }
-    pull, up = p * standing.cos, p * standing.sin  # braces.components
+    pull, up = p * standing.cos, p * standing.sin  # as braces.components
     # the insert: the horizontal component pulls it out of the face, the vertical one shears it
     insert_ratio = pull / bs.insert_tension + up / bs.insert_shear
     checks["wall insert"] = (p, p / np.maximum(insert_ratio, 1e-12))
