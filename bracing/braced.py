@@ -71,13 +71,15 @@ def take(obj, rows):
     return replace(obj, **{name: rows_of(v, rows) for name, v in arrays.items()})
 
 
-UNCHECKED = ("positions", "anchor_distance", "length", "lean", "slop", "pretensioned",
-             "slenderness", "slenderness_limit", "torque_factor", "torque_safety")
+UNCHECKED = ("index", "positions", "anchor_distance", "length", "lean", "slop", "pretensioned",
+             "slenderness", "slenderness_limit", "torque_factor", "torque_safety", "foot_kind",
+             "rupture")
 
 
 def for_checks(bs: BraceSet) -> BraceSet:
     """`bs` without the arrays `braced_checks` does not read (None: `take` leaves them), for a
-    search that takes its rows again at every step; its loads are worked out beforehand."""
+    search that takes its rows again at every step; its loads and standing parts are worked
+    out beforehand."""
     return replace(bs, **dict.fromkeys(UNCHECKED))
 
 
@@ -259,60 +261,84 @@ class BraceForces:
 
 @dataclass(frozen=True)
 class BraceLoads:
-    """Unfactored loads on the braced walls (lb): the wind of rigid panels' load cases and of
-    the strips that each brace of a wall built in place carries, and the lean of the wall's
-    weight on its braces, with the levers of each brace pattern. The wind is linear in q, so
-    an observed gust's loads are those of 1 mph scaled by V^2; the lean does not scale."""
+    """Unfactored loads on the braced walls (lb): each brace's horizontal reaction to the wind,
+    the largest and the least over a rigid panel's load cases (the even share plus the twist)
+    or its own strip's of a wall built in place, and its share of the wall's weight leaning
+    out of plumb, with each wall's sums. The wind is linear in q, so an observed gust's loads
+    are those of 1 mph scaled by V^2; the lean does not scale."""
 
-    case_force: np.ndarray  # (cases, m)
-    case_at: np.ndarray     # (cases, m) resultant position from the wall's first edge, ft
-    strip: np.ndarray       # (m, k) per brace slot
-    height: np.ndarray      # (m,) the wind's resultant above the wall's base (of a rigid
-    #                         panel as a whole, of a strip otherwise), ft: the same at any speed
+    most: np.ndarray        # (m, k) each brace's largest wind reaction over the load cases
+    least: np.ndarray       # (m, k) and its least (a strip's brace: both its strip's); NaN at
+    #                         an empty slot
+    lean: np.ndarray        # (m, k) each brace's share of the lean (a strip's brace: its size)
+    total: np.ndarray       # (m,) largest sum of the braces' wind reactions over the cases
+    wind_force: np.ndarray  # (m,) the whole wall's wind force in that case
+    base_shear: np.ndarray  # (m,) largest |F - sum R_h| over the cases
     lean_total: np.ndarray  # (m,) sum of the braces' horizontal reactions to the lean
-    lean: np.ndarray        # (m, k) each brace's share of it
-    lever: tuple            # braces.brace_lever of each wall's pattern
 
     def take(self, rows) -> BraceLoads:
         """The loads of the walls `rows` only."""
-        return BraceLoads(self.case_force[:, rows], self.case_at[:, rows],
-                          rows_of(self.strip, rows), self.height[rows], self.lean_total[rows],
-                          rows_of(self.lean, rows), tuple(rows_of(v, rows) for v in self.lever))
+        return BraceLoads(*(rows_of(getattr(self, f.name), rows) for f in fields(self)))
 
     def scaled(self, factor) -> BraceLoads:
         """The wind times `factor` (one value, or one per wall); the lean as it is."""
         factor = np.asarray(factor, dtype=float)
-        return replace(self, case_force=self.case_force * factor,
-                       strip=self.strip * (factor[..., None] if factor.ndim else factor))
+        each = factor[..., None] if factor.ndim else factor
+        return replace(self, most=self.most * each, least=self.least * each,
+                       total=self.total * factor, wind_force=self.wind_force * factor,
+                       base_shear=self.base_shear * factor)
 
 
 def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
-    """The wind load cases on each braced wall (design.md §4, §6): a rigid panel's cases as a
-    whole, the strips of a wall built in place (each worked out for the walls that use it)."""
+    """The wind load cases on each braced wall and each brace's reactions (design.md §4, §6).
+
+    A rigid panel's braces share each load case as a whole with the twist; a wall built in
+    place gives each brace its own strip (each worked out for the walls that use it). Worked
+    out once for a wind: the reactions of any load factor and any scale follow from them."""
     rigid = walls.rigid[bs.index]
     m, k = bs.mask.shape
-    case_force, case_at = np.zeros((LOAD_CASES, m)), np.zeros((LOAD_CASES, m))
-    strip = np.zeros((m, k))
-    rows = np.nonzero(rigid)[0]
-    if len(rows):  # a wall listed more than once (variants of its layout) is worked out once
-        each, listed = np.unique(bs.index[rows], return_inverse=True)
-        forces, at = _case_loads(walls, wind, each, minimum_psf)
-        case_force[:, rows] = np.take(forces, listed, axis=1)
-        case_at[:, rows] = np.take(at, listed, axis=1)
-    rows = np.nonzero(~rigid)[0]
-    if len(rows):
-        strip[rows] = _strip_loads(walls, wind, bs.index[rows], rows_of(bs.positions, rows),
-                                   rows_of(bs.mask, rows), minimum_psf)
     i = bs.index
     s, b = walls.height[i], walls.width[i]
-    dead = walls.face_weight[i] * s * b * walls.solidity[i]
-    lean_total = braces.lean_reaction(dead, walls.centroid_ratio[i] * s, s, bs.insert, bs.lean,
-                                      bs.slop)
+    hb = bs.insert
+    height = np.where(rigid, wind.lever[i], wind.lever_strip[i])
+    most, least = np.full((m, k), np.nan), np.full((m, k), np.nan)
+    total, force, shear = np.zeros(m), np.zeros(m), np.zeros(m)
     lever = braces.brace_lever(bs.positions, bs.mask)
+    rows = np.flatnonzero(rigid)
+    if len(rows):  # a wall listed more than once (variants of its layout) is worked out once
+        each, listed = np.unique(i[rows], return_inverse=True)
+        case_force, case_at = (np.take(v, listed, axis=1)
+                               for v in _case_loads(walls, wind, each, minimum_psf))
+        sum_h = braces.total_brace_reaction(case_force, height[rows], hb[rows])
+        arms = tuple(rows_of(v, rows) for v in lever)
+        share, per_arm = braces.share_and_twist(sum_h, case_force, case_at, b[rows] / 2.0,
+                                                arms)
+        high, low = np.full(arms[2].shape, -np.inf), np.full(arms[2].shape, np.inf)
+        pushed, sums, out = np.zeros(len(rows)), np.zeros(len(rows)), np.zeros(len(rows))
+        for case, case_sum, even, twist in zip(case_force, sum_h, share, per_arm):
+            shares = even[:, None] + twist[:, None] * arms[2]  # as braces.brace_shares
+            high, low = np.maximum(high, shares), np.minimum(low, shares)
+            pushed = np.where(case_sum > sums, case, pushed)  # the first case of the largest sum
+            sums = np.maximum(sums, case_sum)
+            out = np.maximum(out, np.abs(case - case_sum))
+        most[rows], least[rows], total[rows], force[rows], shear[rows] = high, low, sums, \
+            pushed, out
+    rows = np.flatnonzero(~rigid)
+    if len(rows):  # walls built in place: each brace takes its own strip of wall
+        strip = _strip_loads(walls, wind, i[rows], rows_of(bs.positions, rows),
+                             rows_of(bs.mask, rows), minimum_psf)
+        strip_h = braces.total_brace_reaction(strip, height[rows][:, None], hb[rows][:, None])
+        most[rows] = least[rows] = strip_h
+        total[rows], force[rows] = braces.slot_sum(strip_h), braces.slot_sum(strip)
+        shear[rows] = np.abs(force[rows] - total[rows])
+    most, least = np.where(bs.mask, most, np.nan), np.where(bs.mask, least, np.nan)
+    dead = walls.face_weight[i] * s * b * walls.solidity[i]
+    lean_total = braces.lean_reaction(dead, walls.centroid_ratio[i] * s, s, hb, bs.lean, bs.slop)
     lean = braces.brace_shares(lean_total, np.zeros(m), b / 2.0, b / 2.0, bs.positions,
                                bs.mask, lever)
-    height = np.where(rigid, wind.lever[i], wind.lever_strip[i])
-    return BraceLoads(case_force, case_at, strip, height, lean_total, lean, lever)
+    # a strip's brace takes the lean's size whichever way it leans (its strip holds it alone)
+    lean = np.where(rigid[:, None], lean, np.abs(lean))
+    return BraceLoads(most, least, lean, total, force, shear, lean_total)
 
 
 LOAD_CASES = 7  # Case A, Case B from either edge, Case C from either end, the line's two ends
@@ -342,51 +368,17 @@ def _case_loads(walls, wind, i, minimum_psf) -> tuple[np.ndarray, np.ndarray]:
     return np.array(forces), np.array(at)
 
 
-def brace_forces(walls, loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
+def brace_forces(loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
     """Per-brace factored forces, the governing load case of each brace (design.md §6).
 
-    A rigid panel's braces share each load case with the twist; a wall built in place gives
-    each brace its own strip. Both add the wall's lean on the braces."""
-    i = bs.index
-    hb = bs.insert
+    Each brace's wind reaction (factored) plus its lean: the larger in size of its largest and
+    least over the cases (|x + lean| is largest at one end of the reactions' range)."""
     lean_total, lean = f.dead_adds * loads.lean_total, f.dead_adds * loads.lean
-    horizontal = np.zeros(bs.mask.shape)
-    total, shear, force = np.zeros(len(i)), np.zeros(len(i)), np.zeros(len(i))
-    rigid = walls.rigid[i]
-    r = np.flatnonzero(rigid)
-    if len(r):
-        centre, arms = walls.width[i[r]] / 2.0, tuple(rows_of(v, r) for v in loads.lever)
-        lean_r = rows_of(lean, r)  # NaN at an empty slot
-        case_force = loads.case_force[:, r]
-        sum_h = f.wind * braces.total_brace_reaction(case_force, loads.height[r], hb[r])
-        share, per_arm = braces.share_and_twist(sum_h, f.wind * case_force,
-                                                loads.case_at[:, r], centre, arms)
-        h = np.zeros(lean_r.shape)
-        pushed, sums, out = np.zeros(len(r)), np.zeros(len(r)), np.zeros(len(r))
-        for case, case_sum, even, twist in zip(case_force, sum_h, share, per_arm):
-            # each brace's share (as braces.brace_shares) plus its lean, NaN at an empty slot
-            shares = twist[:, None] * arms[2]
-            shares += even[:, None]
-            shares += lean_r
-            np.fmax(h, np.abs(shares, out=shares), out=h)  # an empty slot takes nothing
-            pushed = np.where(case_sum > sums, case, pushed)  # the first case of the largest sum
-            sums = np.maximum(sums, case_sum)
-            out = np.maximum(out, np.abs(f.wind * case - case_sum))
-        horizontal[r], total[r], force[r], shear[r] = np.nan_to_num(h), sums, pushed, out
-    r = np.flatnonzero(~rigid)
-    if len(r):  # walls built in place: each brace takes its own strip of wall
-        strip = rows_of(loads.strip, r)
-        strip_h = f.wind * braces.total_brace_reaction(strip, loads.height[r][:, None],
-                                                       hb[r][:, None])
-        horizontal[r] = strip_h + np.abs(np.nan_to_num(rows_of(lean, r)))
-        total[r] = braces.slot_sum(strip_h)
-        force[r] = braces.slot_sum(strip)
-        shear[r] = np.abs(f.wind * force[r] - total[r])
-    total += lean_total
-    shear += lean_total
+    horizontal = np.fmax(np.abs(f.wind * loads.most + lean), np.abs(f.wind * loads.least + lean))
     horizontal = np.where(bs.mask, horizontal, 0.0)
     axial = braces.axial_force(horizontal, bs.angle[:, None])
-    return BraceForces(horizontal, axial, total, shear, force)
+    return BraceForces(horizontal, axial, f.wind * loads.total + lean_total,
+                       f.wind * loads.base_shear + lean_total, loads.wind_force)
 
 
 def _strip_loads(walls, wind, i, positions, mask, minimum_psf):
@@ -483,19 +475,64 @@ def sources(brace_kind: str, foot_kind: str | None) -> dict[str, str]:
     return out
 
 
+@dataclass(frozen=True)
+class Standing:
+    """What the braced walls' checks take from the walls and their braces whatever the wind,
+    for one set of load factors (arrays over m walls): worked out once for a search."""
+
+    cos: np.ndarray         # of each wall's brace angle
+    sin: np.ndarray
+    tan: np.ndarray
+    slab: np.ndarray        # the foot anchors' kinds
+    rated: np.ndarray
+    helical: np.ndarray
+    deadman: np.ndarray
+    held: np.ndarray        # the base is checked (a framed wall's sill is the framer's)
+    weight: np.ndarray      # factored weight holding the base down, lb
+    base_mu: np.ndarray     # friction at the base
+    area: np.ndarray        # the wall's face, ft^2
+    height: np.ndarray      # the wall's, ft
+    bending: np.ndarray     # masonry: moment capacity at the base joint, per ft (NaN: other)
+    cracking: np.ndarray    # concrete: cracking moment, per ft (NaN: other)
+
+    def take(self, rows) -> Standing:
+        """The same of the walls `rows` only."""
+        return Standing(*(rows_of(getattr(self, f.name), rows) for f in fields(self)))
+
+
+def standing_of(walls, bs: BraceSet, f) -> Standing:
+    """The wind-independent parts of the braced checks of `bs` with load factors `f`."""
+    i = bs.index
+    theta = np.radians(bs.angle)
+    kind = bs.foot_kind
+    s, b = walls.height[i], walls.width[i]
+    dead = walls.face_weight[i] * s * b * walls.solidity[i]
+    masonry = walls.masonry[i]
+    bending = (np.where(masonry, _masonry_bending(walls, bs, f, s), np.nan) if masonry.any()
+               else np.full(len(i), np.nan))
+    return Standing(np.cos(theta), np.sin(theta), np.tan(theta), kind == "slab",
+                    np.isin(kind, RATED_FEET), kind == "helical", kind == "deadman",
+                    # A framed wall's sill is nailed or bolted down: the framer designs it.
+                    ~walls.framed[i], f.dead_resists * dead, walls.base_mu[i], b * s, s, bending,
+                    braces.cracking_moment(bs.rupture, walls.thickness_ft[i] * 12.0))
+
+
 @np.errstate(divide="ignore", invalid="ignore", over="ignore")  # infinities and NaN mean 'fails'
-def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads | None = None):
+def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads | None = None,
+                  standing: Standing | None = None):
     """Demand and capacity of every braced element, worst brace of each wall (arrays over m).
 
     `loads` (from `brace_loads`) may be given to skip working out the wind's load cases (the
-    wind is then not read). A check that applies to none of the walls is NaN throughout.
+    wind is then not read), `standing` (from `standing_of`) the parts that do not depend on the
+    wind. A check that applies to none of the walls is NaN throughout.
     """
-    i = bs.index
     if loads is None:
         loads = brace_loads(walls, wind, bs, minimum_psf)
-    forces = brace_forces(walls, loads, bs, f)
+    if standing is None:
+        standing = standing_of(walls, bs, f)
+    forces = brace_forces(loads, bs, f)
     p = braces.worst_brace(forces.axial)
-    na = np.full(len(i), np.nan)
+    na = np.full(len(p), np.nan)
     comp_cap = bs.compression
     pipe = bs.self_weight_ratio > 0
     if pipe.any():
@@ -511,41 +548,33 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
         "brace tension": (p, bs.tension),
         "brace end fittings": (p, bs.connection),
     }
-    pull, up = braces.components(p, bs.angle)
+    pull, up = p * standing.cos, p * standing.sin  # as braces.components
     # the insert: the horizontal component pulls it out of the face, the vertical one shears it
     insert_ratio = pull / bs.insert_tension + up / bs.insert_shear
     checks["wall insert"] = (p, p / np.maximum(insert_ratio, 1e-12))
     # The foot anchor: uplift P sin(theta) and pull P cos(theta) with the brace in tension.
-    kind = bs.foot_kind
-    slab = kind == "slab"
+    slab = standing.slab
     slab_ratio = (np.where(slab, anchors.tension_shear_interaction(
         up, bs.foot_tension, pull, bs.foot_shear), np.nan) if slab.any() else na)
     rated_ratio = up / bs.foot_tension + pull / bs.foot_shear
-    foot_ratio = np.select([slab, np.isin(kind, RATED_FEET), kind == "helical"],
+    foot_ratio = np.select([slab, standing.rated, standing.helical],
                            [slab_ratio, rated_ratio, p / bs.foot_tension], np.nan)
     checks["foot anchor"] = (p, p / np.maximum(foot_ratio, 1e-12))
-    deadman = kind == "deadman"
+    deadman = standing.deadman
     checks.update(_deadman_checks(bs, f, deadman, pull, up, na) if deadman.any()
                   else dict.fromkeys(DEADMAN_CHECKS, (na, na)))
     # The wall's base: lifted by the braces in compression, pushed out by the base shear.
-    s, b = walls.height[i], walls.width[i]
-    dead = walls.face_weight[i] * s * b * walls.solidity[i]
-    lift = forces.total * np.tan(np.radians(bs.angle))
-    # A framed wall's sill is nailed or bolted down: that connection is the framer's to design.
-    held = ~walls.framed[i]
-    checks["base uplift"] = (np.where(held, lift, na), f.dead_resists * dead)
-    checks["base kick-out"] = (np.where(held, forces.base_shear, na), walls.base_mu[i] * np.maximum(
-        f.dead_resists * dead - lift, 0.0))
+    lift = forces.total * standing.tan
+    held = standing.held
+    checks["base uplift"] = (np.where(held, lift, na), standing.weight)
+    checks["base kick-out"] = (np.where(held, forces.base_shear, na), standing.base_mu * np.maximum(
+        standing.weight - lift, 0.0))
     # The wall spanning from its base to the braces, per ft of width.
-    pressure = f.wind * forces.wind_force / (b * s)
-    span, cantilever = braces.propped_wall_moments(pressure, s, bs.insert)
+    pressure = f.wind * forces.wind_force / standing.area
+    span, cantilever = braces.propped_wall_moments(pressure, standing.height, bs.insert)
     moment = np.maximum(span, cantilever)
-    masonry = walls.masonry[i]
-    checks["wall bending"] = (_masonry_bending(walls, bs, f, masonry, s, moment, na)
-                              if masonry.any() else (na, na))
-    cracking = braces.cracking_moment(bs.rupture, walls.thickness_ft[i] * 12.0)
-    concrete = ~np.isnan(cracking)
-    checks["wall cracking"] = (np.where(concrete, moment, na), np.where(concrete, cracking, na))
+    checks["wall bending"] = (moment, standing.bending)
+    checks["wall cracking"] = (moment, standing.cracking)
     # A check whose capacity is not known is not made (its element is not counted).
     checks = {k: (np.where(np.isnan(c), np.nan, d), c) for k, (d, c) in checks.items()}
     return checks, forces
@@ -582,16 +611,15 @@ def _deadman_checks(bs: BraceSet, f, deadman, pull, up, na) -> dict:
          np.where(bearing, bs.block_bearing, na)))))
 
 
-def _masonry_bending(walls, bs: BraceSet, f, masonry, s, moment, na):
-    """Moment and capacity of the masonry walls at their base joint, per ft: rocking on the
-    weight above, or the mortar's flexural tension (TMS 402-16 §8.2)."""
+def _masonry_bending(walls, bs: BraceSet, f, s):
+    """Moment capacity of the masonry walls at their base joint, per ft: rocking on the weight
+    above, or the mortar's flexural tension (TMS 402-16 §8.2)."""
     i = bs.index
     above = f.dead_resists * walls.face_weight[i] * (s - bs.insert)
-    capacity = np.maximum(
+    return np.maximum(
         stability.rocking_resistance(above, walls.thickness_ft[i]),
         stability.masonry_flexural_capacity(walls.flex_tension[i], walls.section[i],
                                             walls.section_area[i], above))
-    return np.where(masonry, moment, na), np.where(masonry, capacity, na)
 
 
 def braced_records(bs: BraceSet, forces: BraceForces, brace_type: list[str],
