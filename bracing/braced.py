@@ -8,13 +8,12 @@ observed gust), so the working-limit speed is found by bisection like the unbrac
 from __future__ import annotations
 
 from dataclasses import dataclass, fields, replace
-from operator import attrgetter
 
 import numpy as np
 
 from bracing import anchors, braces, members, stability
 from bracing.data_members import DRESSED_SIZES_IN, LUMBER_GRADES, PIPES
-from bracing.model import read_panels
+from bracing.model import BRACING_FIELDS, read_panels
 from bracing.wind import asce7
 
 IN = 1.0 / 12.0  # ft per in
@@ -96,15 +95,11 @@ def gather_braces(site, basis: str, edges: dict[str, float] | None = None,
     `edges`: least edge distance (in) of each wall's slab-anchor feet from the plan; `columns`:
     the panels' fields (model.read_panels), if already read."""
     panel = columns or read_panels(site)
-    rows = [i for i, b in enumerate(panel["bracing"]) if b is not None]
+    rows = list(panel["braced"])
     if not rows:
         return None
-    layouts, width, marks = ([panel[k][i] for i in rows] for k in ("bracing", "width", "mark"))
-    names = ("count", "positions", "insert_height", "insert_offset", "foot_offset",
-             "base_below_slab", "lean", "slop", "pretensioned", "brace_type", "wall_anchor",
-             "foot_anchor", "anchor_distance", "angle")
-    read = attrgetter(*names)  # one call per layout reads every field
-    column = dict(zip(names, zip(*map(read, layouts))))
+    width, marks = ([panel[k][i] for i in rows] for k in ("width", "mark"))
+    column = {name: panel[name] for name in BRACING_FIELDS}
     count, given = np.array(column.pop("count")), column.pop("positions")
     strip = np.arange(count.max())
     positions = np.where(strip < count[:, None], braces.default_positions(

@@ -872,8 +872,8 @@ class _Results:
         panels' bracing), by row."""
         site = self.site
         self.bracings = bracings
-        self.brace_type, foot_anchor, wall_anchor = _fields(
-            bracings, "brace_type", "foot_anchor", "wall_anchor")
+        self.brace_type, foot_anchor, wall_anchor = (
+            list(e.columns[k]) for k in ("brace_type", "foot_anchor", "wall_anchor"))
         ways: dict[tuple, int] = {}  # brace and foot anchor types: each pair's checks' sources
         self.way = np.array([ways.setdefault(pair, len(ways))
                              for pair in zip(self.brace_type, foot_anchor)], dtype=np.int64)
@@ -1229,12 +1229,6 @@ def _check_columns(arrays: dict, info: dict, combos: dict) -> list[tuple]:
         regions.update(masonry=strip, fresh=strip, strip=strip)
         out.append((element, regions, unit, combos[kind], source))
     return out
-
-
-def _fields(objects: list, *names: str) -> list[list]:
-    """The named attributes of every object, a list per name, read in one pass."""
-    rows = list(map(attrgetter(*names), objects))
-    return [list(column) for column in zip(*rows)] if rows else [[] for _ in names]
 
 
 def _each(cls, n: int, **fields_of) -> list:

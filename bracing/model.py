@@ -668,8 +668,22 @@ PANEL_FIELDS = ("mark", "material", "thickness", "face_weight", "unit_weight", "
                 "standing_time", "base_elevation", "bracing", "lift_day")
 
 
+# Every field of a wall's bracing the evaluation reads.
+BRACING_FIELDS = ("count", "positions", "insert_height", "insert_offset", "foot_offset",
+                  "base_below_slab", "lean", "slop", "pretensioned", "brace_type", "wall_anchor",
+                  "foot_anchor", "anchor_distance", "angle")
+
+
 def read_panels(site: Site) -> dict[str, tuple]:
-    """Each field of PANEL_FIELDS over all panels (a tuple in site order), read in one pass:
-    a large site's panel objects lie far apart in memory, so every pass over them costs."""
-    columns = zip(*map(attrgetter(*PANEL_FIELDS), site.panels))
-    return dict(zip(PANEL_FIELDS, columns)) if site.panels else dict.fromkeys(PANEL_FIELDS, ())
+    """Each field of PANEL_FIELDS over all panels (a tuple in site order), and under "braced"
+    the rows of the braced panels with each field of BRACING_FIELDS over them, in one pass
+    each: a large site's objects lie far apart in memory, so every pass over them costs."""
+    columns = (dict(zip(PANEL_FIELDS, zip(*map(attrgetter(*PANEL_FIELDS), site.panels))))
+               if site.panels else dict.fromkeys(PANEL_FIELDS, ()))
+    layouts = columns["bracing"]
+    columns["braced"] = tuple(k for k, b in enumerate(layouts) if b is not None)
+    read = attrgetter(*BRACING_FIELDS)
+    fields = zip(*(read(layouts[k]) for k in columns["braced"]))
+    columns.update(zip(BRACING_FIELDS, fields) if columns["braced"]
+                   else dict.fromkeys(BRACING_FIELDS, ()))
+    return columns
