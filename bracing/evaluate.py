@@ -159,7 +159,7 @@ def gather(site: Site, columns: dict[str, tuple] | None = None,
     section, section_area = stability.masonry_section(thickness, bedding)
     period_factor = (np.full(n, site.site.period_factor) if site.site.period_factor
                      else asce37.period_factor(weeks))
-    loads = lines.line_loads(site, releases, width, height, base_elevation)
+    loads = lines.line_loads(site, releases, width, height, base_elevation, f)
     along = ([getattr(loads, k) for k in lines.LineLoads.__dataclass_fields__] if loads
              else [np.full(n, np.nan)] * 7)
     return Walls(
@@ -514,10 +514,11 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     (the site's [design] options); the walls for which none passes say why. `base_dir` is the
     site file's folder (the forecast file is read from it).
     """
-    releases = lines.releases(site)  # the designed layouts below leave the lifts as they are
-    places = plan.place(site)
+    columns = read_panels(site)
+    releases = lines.releases(site, columns)  # designed layouts leave the lifts as they are
+    places = plan.place(site, columns)
     e = evaluate_arrays(site, plan.foot_edge_distances_in(site, places) if places else {},
-                        releases)
+                        releases, columns)
     designs = {}
     if design and site.design is not None:
         rows = [i for i, p in enumerate(site.panels) if p.bracing is None
@@ -527,9 +528,10 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
                 site.site.design_basis], site.rule_value("minimum_design_pressure_psf"))
             designs = {d.panel: d for d in found}
             site = layout.with_designs(site, found)
-            places = plan.place(site)
+            columns = read_panels(site)
+            places = plan.place(site, columns)
             e = evaluate_arrays(site, plan.foot_edge_distances_in(site, places) if places else {},
-                                releases)
+                                releases, columns)
     panels = _Results(site, e).panels()
     by_mark = {p.mark: p for p in panels}
     for i, d in designs.items():
@@ -589,10 +591,12 @@ def _masonry_over_limit(site: Site, p) -> bool:
 
 
 def evaluate_arrays(site: Site, edges: dict[str, float] | None = None,
-                    releases: lines.Releases | None = None) -> Evaluation:
+                    releases: lines.Releases | None = None,
+                    columns: dict[str, tuple] | None = None) -> Evaluation:
     """The vectorised pass: design wind, observed-gust limits and trial heights, all walls
-    (`releases`: the site's `lines.releases`, read when not given)."""
-    columns = read_panels(site)
+    (`releases`: the site's `lines.releases`; `columns`: its panels' fields, model.read_panels;
+    each read when not given)."""
+    columns = columns or read_panels(site)
     w = gather(site, columns, releases)
     n = len(site.panels)
     factors = COMBINATIONS[site.site.design_basis]

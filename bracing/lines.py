@@ -11,11 +11,10 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 from itertools import chain, repeat
-from operator import attrgetter
 
 import numpy as np
 
-from bracing.model import Site
+from bracing.model import Site, read_panels
 from bracing.wind import asce7
 
 CORNER_TOLERANCE_FT = 1.0  # line ends closer than this meet at a corner
@@ -59,10 +58,11 @@ class Releases:
     early_day: np.ndarray   # and its day
 
 
-def releases(site: Site) -> Releases:
+def releases(site: Site, columns: dict[str, tuple] | None = None) -> Releases:
     """Each panel's lift, last release event and release day, from the sign-offs of its
-    scheduled walls (see Releases)."""
-    marks, lift, after = zip(*map(attrgetter("mark", "lift_day", "release_after"), site.panels))
+    scheduled walls (see Releases); `columns`: the panels' fields, if already read."""
+    panel = columns or read_panels(site)
+    marks, lift, after = (panel[k] for k in ("mark", "lift_day", "release_after"))
     lift = np.array(lift, float)  # None: NaN
     event_day = _last_event_days(site, after)
     row = dict(zip(marks, range(len(marks)))) if site.signoffs else {}
@@ -106,11 +106,13 @@ def weeks_to_release(lift_day, event_day):
 
 
 def line_loads(site: Site, releases: Releases, width: np.ndarray, height: np.ndarray,
-               base: np.ndarray) -> LineLoads | None:
+               base: np.ndarray, columns: dict[str, tuple] | None = None) -> LineLoads | None:
     """The enveloped line loads of every panel (None when no panel stands on a line), from
-    the site's `releases` and each panel's width, height and base elevation (ft)."""
+    the site's `releases`, each panel's width, height and base elevation (ft) and its line
+    and offset (`columns`: the panels' fields, if already read)."""
     n = len(site.panels)
-    line, offset = zip(*map(attrgetter("line", "offset"), site.panels))
+    panel = columns or read_panels(site)
+    line, offset = panel["line"], panel["offset"]
     offset = np.array(offset, dtype=float)  # None: NaN
     lift = releases.lift
     lines = {ln.name: ln for ln in site.lines}

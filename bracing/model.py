@@ -665,7 +665,8 @@ def reference_problems(data) -> list[tuple[tuple, str, object]]:
 # Every panel field the evaluation reads (`read_panels`).
 PANEL_FIELDS = ("mark", "material", "thickness", "face_weight", "unit_weight", "openings",
                 "width", "height", "opening_area", "mortar_age", "footing", "return_walls",
-                "standing_time", "base_elevation", "bracing", "lift_day")
+                "standing_time", "base_elevation", "bracing", "lift_day", "line", "offset",
+                "release_after")
 
 
 # Every field of a wall's bracing the evaluation reads.

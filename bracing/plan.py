@@ -17,14 +17,13 @@ from collections.abc import Mapping
 from dataclasses import dataclass, replace
 from functools import cached_property
 from itertools import chain, repeat
-from operator import attrgetter
 
 import numpy as np
 import shapely
 from shapely.geometry import MultiLineString, Polygon
 
 from bracing import braces
-from bracing.model import Bracing, Site
+from bracing.model import Bracing, Site, read_panels
 from bracing.results import Flag
 
 IN_PER_FT = 12.0
@@ -152,6 +151,8 @@ class Places(Mapping):
     thickness_ft: np.ndarray
     offset_ft: np.ndarray  # from the line's start to the first edge
     line_ft: np.ndarray    # the line's length
+    site: Site             # the site placed
+    columns: dict          # the fields of its panels (model.read_panels)
 
     def __post_init__(self):
         self._read: tuple[Site, _Bracing, _Braces, _SlabFeet] | None = None
@@ -214,13 +215,15 @@ class Places(Mapping):
         return len(self.mark)
 
 
-def place(site: Site) -> Places:
-    """Every panel that names a wall line, placed along it (the others are skipped)."""
+def place(site: Site, columns: dict[str, tuple] | None = None) -> Places:
+    """Every panel that names a wall line, placed along it (the others are skipped);
+    `columns`: the panels' fields (model.read_panels), if already read."""
+    panel = columns or read_panels(site)
     line_no = {line.name: k for k, line in enumerate(site.lines)}
     ends = np.array([(line.start, line.end) for line in site.lines], dtype=float).reshape(-1, 2, 2)
     sides = np.array([1.0 if line.braced_side == "left" else -1.0 for line in site.lines])
-    line, mark, offset, width, thickness = zip(*map(attrgetter(
-        "line", "mark", "offset", "width", "thickness"), site.panels))
+    line, mark, offset, width, thickness = (
+        panel[k] for k in ("line", "mark", "offset", "width", "thickness"))
     on = np.fromiter(map(line_no.get, line, repeat(-1)), int, len(line))  # -1: on no line
     rows = np.flatnonzero(on >= 0)
     on = on[rows]
@@ -233,7 +236,7 @@ def place(site: Site) -> Places:
     return Places(rows, np.array(mark, dtype=str)[rows], [line[i] for i in rows.tolist()],
                   ends[on, 0] + offset[:, None] * u, u, normal,
                   np.array(width, dtype=float)[rows],
-                  np.array(thickness, dtype=float)[rows] / IN_PER_FT, offset, length)
+                  np.array(thickness, dtype=float)[rows] / IN_PER_FT, offset, length, site, panel)
 
 
 def _at(places: Places, rows, along_ft, out_ft) -> np.ndarray:
@@ -276,14 +279,17 @@ class _Bracing:
 
 
 def _bracing(site: Site, places: Places, rows: np.ndarray) -> _Bracing:
-    """The bracing of the walls at `rows` of the places, read once for all of them."""
-    bs = [site.panels[i].bracing for i in places.index[rows].tolist()]
-    braced = np.array([b is not None for b in bs], dtype=bool)
-    bs = [b for b in bs if b is not None]
-    (height, base, foot_offset, given_ft, angle, insert_offset, count, positions,
-     anchor) = list(zip(*map(attrgetter(
-         "insert_height", "base_below_slab", "foot_offset", "anchor_distance", "angle",
-         "insert_offset", "count", "positions", "foot_anchor"), bs))) or [()] * 9
+    """The bracing of the walls at `rows` of the places, from the panels' fields."""
+    panel = places.columns if site is places.site else read_panels(site)
+    layout_row = np.full(len(panel["mark"]), -1)  # each panel's row among the braced ones
+    layout_row[list(panel["braced"])] = np.arange(len(panel["braced"]))
+    layout_row = layout_row[places.index[rows]]
+    braced = layout_row >= 0
+    picked = layout_row[braced].tolist()
+    height, base, foot_offset, given_ft, angle, insert_offset, count, positions, anchor = (
+        [panel[k][r] for r in picked] for k in (
+            "insert_height", "base_below_slab", "foot_offset", "anchor_distance", "angle",
+            "insert_offset", "count", "positions", "foot_anchor"))
     height, base, given_ft, angle = (np.array(c, dtype=float)  # None: NaN
                                      for c in (height, base, given_ft, angle))
     foot_offset = np.array(foot_offset, dtype=float) / IN_PER_FT
