@@ -1,6 +1,6 @@
 """Time the site evaluation at 600 and 10,000 walls and print walls (panels) per second.
 
-    python benchmarks/run.py                     # 600 and 10,000 walls, best of 3
+    python benchmarks/run.py                     # 600 and 10,000 walls, best of 7
     python benchmarks/run.py --repeat 1 --keep /tmp/bench
 
 design.md §9: the whole site evaluates in one vectorised pass, so the time grows far more
@@ -100,7 +100,7 @@ def main(argv: list[str] | None = None) -> int:
     parser = argparse.ArgumentParser(description="Time the evaluation of synthetic sites.")
     parser.add_argument("--small", type=int, default=600, help="walls of the small site")
     parser.add_argument("--large", type=int, default=10_000, help="walls of the large site")
-    parser.add_argument("--repeat", type=int, default=3, help="timed runs after the warm-up")
+    parser.add_argument("--repeat", type=int, default=7, help="timed runs after the warm-up")
     parser.add_argument("--keep", help="write the sites to this folder and keep them")
     args = parser.parse_args(argv)
     warnings.simplefilter("ignore", RuntimeWarning)  # numpy's divide-by-zero notes
