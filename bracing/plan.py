@@ -157,6 +157,11 @@ class Places(Mapping):
     def __post_init__(self):
         self._read: tuple[Site, _Bracing, _Braces, _SlabFeet] | None = None
 
+    def fields_of(self, site: Site) -> dict[str, tuple]:
+        """The panels' fields of `site` (model.read_panels): those read to place it, if it is
+        the site placed."""
+        return self.columns if site is self.site else read_panels(site)
+
     @cached_property
     def _row(self) -> dict[str, int]:
         """Each mark's row, made when a wall is asked for by mark."""
@@ -280,7 +285,7 @@ class _Bracing:
 
 def _bracing(site: Site, places: Places, rows: np.ndarray) -> _Bracing:
     """The bracing of the walls at `rows` of the places, from the panels' fields."""
-    panel = places.columns if site is places.site else read_panels(site)
+    panel = places.fields_of(site)
     layout_row = np.full(len(panel["mark"]), -1)  # each panel's row among the braced ones
     layout_row[list(panel["braced"])] = np.arange(len(panel["braced"]))
     layout_row = layout_row[places.index[rows]]
@@ -483,16 +488,17 @@ def _zone_reach_ft(site: Site, places: Places, bracing: _Bracing,
     """Heights, which are masonry under the zone rule, and the reach out in front and back
     behind (ft) of the walls of `bracing` (the rules are in `zone_reach`)."""
     extra = site.rule_value("masonry_zone_extra_ft")
-    panels = [site.panels[i] for i in places.index[bracing.walls].tolist()]
-    h = [p.height for p in panels]
+    panel = places.fields_of(site)
+    rows = places.index[bracing.walls].tolist()
+    h = [panel["height"][i] for i in rows]
     if heights:
         h = [heights.get(m, x) for m, x in zip(places.mark[bracing.walls].tolist(), h)]
     h = np.array(h, dtype=float)
-    footprint = np.zeros(len(panels))
+    footprint = np.zeros(len(rows))
     footprint[bracing.braced] = bracing.anchor_ft
     masonry_kind = {name: m.kind == "masonry" and extra is not None
                     for name, m in site.materials.items()}
-    masonry = np.array([masonry_kind[p.material] for p in panels], dtype=bool)
+    masonry = np.array([masonry_kind[panel["material"][i]] for i in rows], dtype=bool)
     front = h + footprint
     if extra is not None:  # OSHA 29 CFR 1926.706(a): h + 4 ft
         front = np.where(masonry, np.maximum(h + extra, front), front)
