@@ -7,9 +7,8 @@ design.md §9: the whole site evaluates in one vectorised pass, so the time grow
 slowly than the number of walls. The check here: 10,000 walls must evaluate in under ten
 times the 600-wall time (the best of `--repeat` rounds after a warm-up, the two sizes taking
 turns, each result held until the clocks stop; wall-clock); the exit code is 1 when they do
-not. Loading a file (TOML and validation)
-is timed on its own, and so is a cold start of the small site in a fresh interpreter (imports,
-load, evaluate).
+not. Loading a file (TOML and validation) is timed on its own, and so is a cold start of the
+small site in a fresh interpreter (imports, load, evaluate).
 """
 
 from __future__ import annotations
