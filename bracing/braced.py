@@ -70,16 +70,24 @@ def take(obj, rows):
     return replace(obj, **{name: rows_of(v, rows) for name, v in arrays.items()})
 
 
-UNCHECKED = ("index", "positions", "anchor_distance", "length", "lean", "slop", "pretensioned",
-             "slenderness", "slenderness_limit", "torque_factor", "torque_safety", "foot_kind",
-             "rupture")
+UNCHECKED = ("index", "positions", "mask", "anchor_distance", "length", "lean", "slop",
+             "pretensioned", "slenderness", "slenderness_limit", "torque_factor",
+             "torque_safety", "foot_kind", "rupture")
+LOADED = ("index", "positions", "insert", "lean", "slop")  # and the mask: what brace_loads reads
 
 
 def for_checks(bs: BraceSet) -> BraceSet:
-    """`bs` without the arrays `braced_checks` does not read (None: `take` leaves them), for a
-    search that takes its rows again at every step; its loads and standing parts are worked
-    out beforehand."""
+    """`bs` without the arrays `braced_checks` does not read and without its mask (None: `take`
+    leaves them), for a search that takes its rows again at every step, with each row's mask;
+    its loads and standing parts are worked out beforehand."""
     return replace(bs, **dict.fromkeys(UNCHECKED))
+
+
+def for_loads(bs: BraceSet, rows, mask) -> BraceSet:
+    """The layouts of the walls `rows` of `bs` (a wall listed once for each of its variants)
+    with the braces `mask` marks: only what `brace_loads` reads, the rest None."""
+    unread = [f.name for f in fields(bs) if f.name not in LOADED and f.name != "basis"]
+    return replace(take(replace(bs, **dict.fromkeys(unread)), rows), mask=mask)
 
 
 def rows_of(array, rows):

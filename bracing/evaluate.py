@@ -678,26 +678,31 @@ def fresh_mortar_limits(site: Site, unit: Wind, e: Evaluation) -> tuple[np.ndarr
     return limit, stand_down
 
 
-def braced_utilization(w: Walls, unit: Wind, bs: braced.BraceSet):
-    """g(v2, rows): the largest strength utilization, less 1, of the braced walls `rows` of `bs`
-    in an observed gust whose speed squared is v2 (mph^2).
+def braced_utilization(w: Walls, unit: Wind, bs: braced.BraceSet, rows=None, mask=None):
+    """g(v2, r): the largest strength utilization, less 1, of the braced walls `r` in an observed
+    gust whose speed squared is v2 (mph^2).
 
-    `unit` is the observed wind of a 1 mph gust on every wall; `bs` may list a wall more than
-    once (variants with a brace missing): each row is its own wall. The wind's loads are linear
-    in q: worked out once at 1 mph, then scaled; the parts of the checks that do not depend on
-    the wind are worked out once too.
+    `unit` is the observed wind of a 1 mph gust on every wall. The walls are those of `bs`, or
+    variants of them: `rows` gives the wall of `bs` of each (a wall listed as often as it has
+    variants) and `mask` its braces (a brace missing, say); each variant is its own wall. The
+    wind's loads are linear in q: worked out once at 1 mph, then scaled; the parts of the checks
+    that do not depend on the wind are worked out once too, for each wall of `bs`.
     """
-    loads = braced.brace_loads(w, unit, bs, None)
+    rows = np.arange(len(bs.index)) if rows is None else rows
+    mask = bs.mask if mask is None else mask
+    loads = braced.brace_loads(w, unit, braced.for_loads(bs, rows, mask), None)
     standing = braced.standing_of(w, bs, SERVICE)
     checked = braced.for_checks(bs)
 
-    def g(v2, rows):
-        parts = -(-len(rows) // BRACED_WALLS_AT_ONCE)
+    def g(v2, r):
+        parts = -(-len(r) // BRACED_WALLS_AT_ONCE)
         if parts > 1:  # in parts: the arrays of many more walls outgrow the processor's cache
             return np.concatenate([g(*part) for part in zip(np.array_split(v2, parts),
-                                                            np.array_split(rows, parts))])
-        checks, _ = braced.braced_checks(w, None, braced.take(checked, rows), SERVICE, None,
-                                         loads.take(rows).scaled(v2), standing.take(rows))
+                                                            np.array_split(r, parts))])
+        of_wall = rows[r]
+        variant = replace(braced.take(checked, of_wall), mask=braced.rows_of(mask, r))
+        checks, _ = braced.braced_checks(w, None, variant, SERVICE, None,
+                                         loads.take(r).scaled(v2), standing.take(of_wall))
         return governing_utilization(strength_only(checks)) - 1.0
     return g
 
@@ -724,10 +729,9 @@ def braced_limit_one_missing(w: Walls, unit: Wind, bs: braced.BraceSet,
     rows, slots = np.nonzero(bs.mask & (count >= 3)[:, None])
     if len(rows) == 0:
         return out
-    variant = braced.take(bs, rows)
-    mask = variant.mask.copy()
+    mask = braced.rows_of(bs.mask, rows)
     mask[np.arange(len(rows)), slots] = False
-    g = braced_utilization(w, unit, replace(variant, mask=mask))
+    g = braced_utilization(w, unit, bs, rows, mask)
     start = np.where(np.isfinite(full[rows]), full[rows], TYPICAL_LIMIT_MPH)
 
     def search(which):
