@@ -328,7 +328,8 @@ def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
             pushed, out
     rows = np.flatnonzero(~rigid)
     if len(rows):  # walls built in place: each brace takes its own strip of wall
-        strip = _strip_loads(walls, wind, i[rows], rows_of(bs.positions, rows),
+        each, listed = np.unique(i[rows], return_inverse=True)  # each wall's wind once
+        strip = _strip_loads(walls, wind, each, listed, rows_of(bs.positions, rows),
                              rows_of(bs.mask, rows), minimum_psf)
         strip_h = braces.total_brace_reaction(strip, height[rows][:, None], hb[rows][:, None])
         most[rows] = least[rows] = strip_h
@@ -361,9 +362,13 @@ def _case_loads(walls, wind, i, minimum_psf) -> tuple[np.ndarray, np.ndarray]:
             wind.q[i] * asce7.GUST_FACTOR * np.nan_to_num(cf) * wind.opening[i] * wind.area[i],
             (minimum_psf or 0.0) * b * s))  # ASCE 7-16 Eq. 29.3-1 and §29.7
     centroid = walls.centroid_x_ratio[i] * b
-    cf_c, xc_c = asce7.case_c_mean(0.0, b_over_s, b_over_s, s_over_h)
+    # A wall on its own takes its own Case C (B/s >= 2); NaN elsewhere: no force, at its edge.
     alone = (b_over_s >= 2.0) & ~walls.in_line[i]
-    force_c = np.where(alone, force_of(cf_c), 0.0)
+    cf_c, xc_c = np.full(len(i), np.nan), np.zeros(len(i))
+    if alone.any():
+        cf_c[alone], xc_c[alone] = asce7.case_c_mean(0.0, b_over_s[alone], b_over_s[alone],
+                                                     s_over_h[alone])
+    force_c = force_of(cf_c)
     line_left, line_right = force_of(walls.line_left[i]), force_of(walls.line_right[i])
     forces = [wind.force_a[i]] * 3 + [force_c, force_c, line_left, line_right]
     at = [centroid, centroid + 0.2 * b, centroid - 0.2 * b, xc_c * s, b - xc_c * s,
@@ -384,43 +389,49 @@ def brace_forces(loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
                        f.wind * loads.base_shear + lean_total, loads.wind_force)
 
 
-def _strip_loads(walls, wind, i, positions, mask, minimum_psf):
-    """Wind on each brace's tributary strip of walls `i` built in place (lb, in slot order);
-    `positions` and `mask` are their braces as in BraceSet."""
+def _strip_loads(walls, wind, i, listed, positions, mask, minimum_psf):
+    """Wind on each brace's tributary strip of walls built in place (lb, in slot order):
+    `positions` and `mask` are their braces as in BraceSet, a row for each layout, `listed` the
+    wall of `i` of each (a wall may have more than one)."""
     s, b = walls.height[i], walls.width[i]
     b_over_s = b / s
     s_over_h = s / (walls.base[i] + s)
+    cf_ab = asce7.cf_cases_ab(b_over_s, s_over_h)
+    on_line, solid = walls.in_line[i], walls.solidity[i] >= 0.7
+    # Each wall's strips take Cases A/B, or its line's coefficient where it stands on a line
+    # (never below A/B), or an open wall's; a solid wall on its own with B/s >= 2 takes
+    # Case C over its own strips below.
+    cf_wall = np.where(solid, np.where(on_line, np.fmax(cf_ab, walls.line_local_max[i]), cf_ab),
+                       asce7.cf_open(walls.solidity[i]))
+    own_c_wall = (b_over_s >= 2.0) & ~on_line & solid
+    s, b, b_over_s, s_over_h, cf_ab, cf_wall, own_c_wall, q = (
+        v[listed] for v in (s, b, b_over_s, s_over_h, cf_ab, cf_wall, own_c_wall, wind.q[i]))
     x = np.where(mask, positions, np.nan)
     by_position = np.argsort(x, axis=1)  # the empty slots (NaN) last
     order = np.take_along_axis(x, by_position, axis=1)
     mids = (order[:, 1:] + order[:, :-1]) / 2.0
-    lo = np.concatenate([np.zeros((len(i), 1)), mids], axis=1)
-    hi = np.concatenate([mids, np.full((len(i), 1), np.inf)], axis=1)
+    lo = np.concatenate([np.zeros((len(s), 1)), mids], axis=1)
+    hi = np.concatenate([mids, np.full((len(s), 1), np.inf)], axis=1)
     hi = np.minimum(np.where(np.isnan(hi), b[:, None], hi), b[:, None])
     count = braces.slot_sum(mask, 0)
     last = np.arange(mask.shape[1])[None, :] == (count - 1)[:, None]
     hi = np.where(last, b[:, None], hi)
     lo, hi = np.where(np.isnan(lo), 0.0, lo), np.where(np.isnan(hi), 0.0, hi)
     width = np.maximum(hi - lo, 0.0)
-    cf_ab = asce7.cf_cases_ab(b_over_s, s_over_h)
-    cf = np.repeat(cf_ab[:, None], lo.shape[1], axis=1)
-    on_line, solid = walls.in_line[i], walls.solidity[i] >= 0.7
-    # Case C over each strip where it applies (B/s >= 2) to a solid wall on its own (a wall
-    # on a line takes its line's coefficient below); strips in sorted order, the real ones first
-    own_c = (np.arange(lo.shape[1])[None, :] < count[:, None]) & (
-        (b_over_s >= 2.0) & ~on_line & solid)[:, None]
+    cf = np.repeat(cf_wall[:, None], lo.shape[1], axis=1)
+    # Case C over each strip (strips in sorted order, the real ones first)
+    own_c = (np.arange(lo.shape[1])[None, :] < count[:, None]) & own_c_wall[:, None]
     if own_c.any():
         row = np.nonzero(own_c)[0]
+        wall = i[listed[row]]
         sr, bos, soh = s[row], b_over_s[row], s_over_h[row]
         left = asce7.case_c_mean(lo[own_c] / sr, hi[own_c] / sr, bos, soh,
-                                 walls.return_left[i][row])[0]
+                                 walls.return_left[wall])[0]
         right = asce7.case_c_mean((b[row] - hi[own_c]) / sr, (b[row] - lo[own_c]) / sr, bos,
-                                  soh, walls.return_right[i][row])[0]
+                                  soh, walls.return_right[wall])[0]
         cf[own_c] = np.maximum(cf_ab[row], np.maximum(left, right))
-    cf = np.where(on_line[:, None], np.fmax(cf_ab, walls.line_local_max[i])[:, None], cf)
-    cf = np.where(solid[:, None], cf, asce7.cf_open(walls.solidity[i])[:, None])
     ss = s[:, None]
-    strip = np.maximum(wind.q[i][:, None] * asce7.GUST_FACTOR * cf * ss * width,
+    strip = np.maximum(q[:, None] * asce7.GUST_FACTOR * cf * ss * width,
                        (minimum_psf or 0.0) * ss * width)  # ASCE 7-16 Eq. 29.3-1 and §29.7
     # strips follow the sorted positions: put them back in each brace's own slot
     in_slots = np.empty_like(strip)

@@ -80,8 +80,11 @@ def share_and_twist(total_h, force_lb, force_at_ft, wall_centre_ft, lever):
     ft of arm M_t / sum((x_j - x_c)^2); brace i then takes share + per_arm (x_i - x_c)."""
     n, xc, _, polar = lever
     twist = force_lb * (force_at_ft - xc) - (force_lb - total_h) * (wall_centre_ft - xc)
+    apart = polar > 0
+    if apart.all():  # every pattern has a lever against twist
+        return total_h / n, twist / polar
     with np.errstate(divide="ignore", invalid="ignore"):
-        per_arm = np.where(polar > 0, twist / polar, 0.0)
+        per_arm = np.where(apart, twist / polar, 0.0)
     # Braces at one point (a single brace) have no lever against twist, and the base is given
     # none (design.md §6): any twist left is more than they can carry.
     loose = (polar <= 0) & (np.abs(twist) > 1e-9 * (np.abs(force_lb) + np.abs(total_h) + 1.0))
