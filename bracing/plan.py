@@ -290,25 +290,26 @@ def _bracing(site: Site, places: Places, rows: np.ndarray) -> _Bracing:
     layout_row[list(panel["braced"])] = np.arange(len(panel["braced"]))
     layout_row = layout_row[places.index[rows]]
     braced = layout_row >= 0
-    picked = layout_row[braced].tolist()
-    height, base, foot_offset, given_ft, angle, insert_offset, count, positions, anchor = (
-        [panel[k][r] for r in picked] for k in (
+    picked = layout_row[braced]
+    height, base, foot_offset, given_ft, angle, insert_offset = (
+        np.array(panel[k], dtype=float)[picked] for k in (  # None: NaN
             "insert_height", "base_below_slab", "foot_offset", "anchor_distance", "angle",
-            "insert_offset", "count", "positions", "foot_anchor"))
-    height, base, given_ft, angle = (np.array(c, dtype=float)  # None: NaN
-                                     for c in (height, base, given_ft, angle))
-    foot_offset = np.array(foot_offset, dtype=float) / IN_PER_FT
+            "insert_offset"))
+    foot_offset = foot_offset / IN_PER_FT
     for_angle_ft = braces.anchor_distance_for_angle(
-        height, angle, np.array(insert_offset, dtype=float) / IN_PER_FT, foot_offset, base)
-    kind_of = {name: a.kind for name, a in site.anchor_types.items()}
-    anchor = np.array([a or "" for a in anchor], dtype=str)
-    names, which = np.unique(anchor, return_inverse=True)  # the kinds of the few types named
+        height, angle, insert_offset / IN_PER_FT, foot_offset, base)
+    given = np.array(list(map(bool, panel["positions"])), dtype=bool)[picked]
+    # the foot anchor of each layout by its type's number among those named (0: none named)
+    names = sorted(set(panel["foot_anchor"]) - {None})
+    number = dict(zip([None, *names], range(len(names) + 1)))
+    which = np.fromiter(map(number.__getitem__, panel["foot_anchor"]), int,
+                        len(panel["foot_anchor"]))[picked]
     return _Bracing(
-        rows, braced, np.array(count, dtype=int), np.array(list(map(bool, positions)), dtype=bool),
-        list(chain.from_iterable(positions)),
+        rows, braced, np.array(panel["count"], dtype=int)[picked], given,
+        list(chain.from_iterable(panel["positions"][r] for r in picked[given].tolist())),
         np.where(np.isnan(given_ft), for_angle_ft, given_ft),
-        np.array([kind_of[a] if a else "" for a in names.tolist()], dtype=str)[which], anchor,
-        height - base, foot_offset)
+        np.array(["", *(site.anchor_types[a].kind for a in names)], dtype=str)[which],
+        np.array(["", *names], dtype=str)[which], height - base, foot_offset)
 
 
 def brace_points(site: Site, place: PanelPlace) -> tuple[np.ndarray, np.ndarray]:
@@ -489,16 +490,17 @@ def _zone_reach_ft(site: Site, places: Places, bracing: _Bracing,
     behind (ft) of the walls of `bracing` (the rules are in `zone_reach`)."""
     extra = site.rule_value("masonry_zone_extra_ft")
     panel = places.fields_of(site)
-    rows = places.index[bracing.walls].tolist()
-    h = [panel["height"][i] for i in rows]
+    rows = places.index[bracing.walls]
+    h = np.array(panel["height"], dtype=float)[rows]
     if heights:
-        h = [heights.get(m, x) for m, x in zip(places.mark[bracing.walls].tolist(), h)]
-    h = np.array(h, dtype=float)
+        h = np.array([heights.get(m, x) for m, x in zip(places.mark[bracing.walls].tolist(),
+                                                         h.tolist())], dtype=float)
     footprint = np.zeros(len(rows))
     footprint[bracing.braced] = bracing.anchor_ft
     masonry_kind = {name: m.kind == "masonry" and extra is not None
                     for name, m in site.materials.items()}
-    masonry = np.array([masonry_kind[panel["material"][i]] for i in rows], dtype=bool)
+    masonry = np.fromiter(map(masonry_kind.__getitem__, panel["material"]), bool,
+                          len(panel["material"]))[rows]
     front = h + footprint
     if extra is not None:  # OSHA 29 CFR 1926.706(a): h + 4 ft
         front = np.where(masonry, np.maximum(h + extra, front), front)
@@ -657,7 +659,9 @@ def _ground_anchor_findings(site: Site, t: _Braces, slab: _Slab | None) -> list[
     feet, kinds, marks = t.foot[sel], t.kind[sel], t.mark[sel]
     deadman = kinds == "deadman"
     on_ground = _covered(ground, feet) if ground is not None else np.zeros(len(sel), bool)
-    on_slab = _covered(slab.area, feet) if slab is not None else np.zeros(len(sel), bool)
+    on_slab = np.zeros(len(sel), bool)  # asked of the deadmen only
+    if slab is not None:
+        on_slab[deadman] = _covered(slab.area, feet[deadman])
     drawn = (ground is not None) | (deadman & (slab is not None))
     found = [PlanFinding(mark, Flag(
         "anchor-not-located", "notice", f"the plan has no open ground: the {kinds[rows[0]]} "
