@@ -193,9 +193,7 @@ class Places(Mapping):
         """Corners of each panel's footprint, a thickness-deep strip behind its face, (n, 4, 2)."""
         along = self.width_ft[:, None] * [0.0, 1.0, 1.0, 0.0]
         back = self.thickness_ft[:, None] * [0.0, 0.0, 1.0, 1.0]
-        corners = (self.origin[:, None] + along[..., None] * self.direction[:, None]
-                   - back[..., None] * self.normal[:, None])
-        return corners.reshape(-1, 4, 2)
+        return _at(self, self.rows()[:, None], along, -back)
 
     def footprints(self, rows) -> np.ndarray:
         """The footprints of the panels at `rows`, as shapes."""
@@ -245,10 +243,12 @@ def place(site: Site, columns: dict[str, tuple] | None = None) -> Places:
 
 
 def _at(places: Places, rows, along_ft, out_ft) -> np.ndarray:
-    """`PanelPlace.at` of the walls at `rows` of the places (arrays broadcast; (..., 2))."""
-    a = np.asarray(along_ft, dtype=float)[..., None]
-    o = np.asarray(out_ft, dtype=float)[..., None]
-    return places.origin[rows] + a * places.direction[rows] + o * places.normal[rows]
+    """`PanelPlace.at` of the walls at `rows` of the places (arrays broadcast; (..., 2)), x and
+    y worked apart (numpy is slow over a last axis of two)."""
+    a = np.asarray(along_ft, dtype=float)
+    o = np.asarray(out_ft, dtype=float)
+    return np.stack([places.origin[rows, i] + a * places.direction[rows, i]
+                     + o * places.normal[rows, i] for i in (0, 1)], axis=-1)
 
 
 def _read_bracing(site: Site, places: Places, standing: set[str] | None) -> _Bracing:
@@ -404,10 +404,10 @@ def _distances_ft(points: np.ndarray, pieces: np.ndarray) -> np.ndarray:
     """Least distance (ft) of each point to the straight pieces (m, 2, 2): square to a piece
     where the foot of the perpendicular falls between its ends, else to its nearer end
     (geometry; the same arithmetic as shapely's distance, so the same values to the last bit)."""
-    px, py = points[:, 0, None], points[:, 1, None]
+    px, py = points.T  # a row of the arrays below per piece, a column per point
     least = np.full(len(points), np.inf)
-    for block in range(0, len(pieces), 64):  # keeps the (points x pieces) arrays small
-        (ax, ay), (bx, by) = pieces[block:block + 64].transpose(1, 2, 0)
+    for block in range(0, len(pieces), 64):  # keeps the (pieces x points) arrays small
+        (ax, ay), (bx, by) = pieces[block:block + 64, :, :, None].transpose(1, 2, 0, 3)
         dx, dy, ux, uy = bx - ax, by - ay, px - ax, py - ay
         len2 = dx * dx + dy * dy
         with np.errstate(divide="ignore", invalid="ignore"):  # a piece of no length: its end
@@ -416,7 +416,7 @@ def _distances_ft(points: np.ndarray, pieces: np.ndarray) -> np.ndarray:
         to_a = ((ax == bx) & (ay == by)) | (r <= 0.0)
         end2 = np.where(to_a, ux * ux + uy * uy, (px - bx) * (px - bx) + (py - by) * (py - by))
         d = np.where(to_a | (r >= 1.0), np.sqrt(end2), square)
-        least = np.minimum(least, d.min(axis=1))
+        least = np.minimum(least, d.min(axis=0))
     return least
 
 
@@ -722,9 +722,9 @@ def _box(corners: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
 def _meets_any(lo: np.ndarray, hi: np.ndarray, shapes: np.ndarray) -> np.ndarray:
     """Whether each box (least and greatest x and y, each (n, 2)) meets the bounding box of
     any of `shapes`."""
-    box = shapely.bounds(shapes)
-    return ((lo[:, None, 0] <= box[:, 2]) & (hi[:, None, 0] >= box[:, 0])
-            & (lo[:, None, 1] <= box[:, 3]) & (hi[:, None, 1] >= box[:, 1])).any(axis=1)
+    box = shapely.bounds(shapes)[:, :, None]  # a row per shape, a column per box
+    return ((lo[:, 0] <= box[:, 2]) & (hi[:, 0] >= box[:, 0])
+            & (lo[:, 1] <= box[:, 3]) & (hi[:, 1] >= box[:, 1])).any(axis=0)
 
 
 def _every_pair(first_a, count_a, first_b, count_b) -> tuple[np.ndarray, np.ndarray]:
