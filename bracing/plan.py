@@ -142,7 +142,7 @@ class Places(Mapping):
     over all of them, one row each, and the `PanelPlace` of one built when it is asked for."""
 
     index: np.ndarray      # rows in site.panels
-    mark: np.ndarray
+    mark: np.ndarray       # of str objects
     line: list[str]
     origin: np.ndarray     # (n, 2) first edges on the face
     direction: np.ndarray  # (n, 2) unit vectors along the lines
@@ -236,7 +236,7 @@ def place(site: Site, columns: dict[str, tuple] | None = None) -> Places:
     left = np.stack([-u[:, 1], u[:, 0]], axis=1)  # the left hand, looking from start to end
     normal = left * sides[on][:, None]
     offset = np.array(offset, dtype=float)[rows]
-    return Places(rows, np.array(mark, dtype=str)[rows], [line[i] for i in rows.tolist()],
+    return Places(rows, np.array(mark, dtype=object)[rows], [line[i] for i in rows.tolist()],
                   ends[on, 0] + offset[:, None] * u, u, normal,
                   np.array(width, dtype=float)[rows],
                   np.array(thickness, dtype=float)[rows] / IN_PER_FT, offset, length, site, panel)
@@ -326,7 +326,7 @@ class _Braces:
     """Every brace of the walls standing, one row each."""
 
     wall: np.ndarray    # its wall's row in the places
-    mark: np.ndarray
+    mark: np.ndarray       # of str objects
     number: np.ndarray  # 1-based within its wall
     along_ft: np.ndarray  # from the wall's first edge
     insert: np.ndarray  # (m, 2)
@@ -350,8 +350,9 @@ def _brace_table(places: Places, bracing: _Bracing) -> _Braces:
     # the centres of equal strips (braces.default_positions), or the positions given
     along = (number - 0.5) * places.width_ft[wall] / count.repeat(count)
     along[bracing.given.repeat(count)] = bracing.positions
-    insert = places.origin[wall] + along[:, None] * places.direction[wall]
-    foot = insert + bracing.anchor_ft.repeat(count)[:, None] * places.normal[wall]
+    insert = np.stack([places.origin[wall, i] + along * places.direction[wall, i]
+                       for i in (0, 1)], axis=-1)  # x and y apart, as in _at
+    foot = _at(places, wall, along, bracing.anchor_ft.repeat(count))
     return _Braces(wall, places.mark[wall], number, along, insert, foot, bracing.kind.repeat(count),
                    bracing.anchor.repeat(count), bracing.top_ft.repeat(count),
                    bracing.low_ft.repeat(count))
