@@ -142,7 +142,7 @@ class Places(Mapping):
     over all of them, one row each, and the `PanelPlace` of one built when it is asked for."""
 
     index: np.ndarray      # rows in site.panels
-    mark: np.ndarray
+    mark: np.ndarray       # of str objects
     line: list[str]
     origin: np.ndarray     # (n, 2) first edges on the face
     direction: np.ndarray  # (n, 2) unit vectors along the lines
@@ -193,9 +193,7 @@ class Places(Mapping):
         """Corners of each panel's footprint, a thickness-deep strip behind its face, (n, 4, 2)."""
         along = self.width_ft[:, None] * [0.0, 1.0, 1.0, 0.0]
         back = self.thickness_ft[:, None] * [0.0, 0.0, 1.0, 1.0]
-        corners = (self.origin[:, None] + along[..., None] * self.direction[:, None]
-                   - back[..., None] * self.normal[:, None])
-        return corners.reshape(-1, 4, 2)
+        return _at(self, self.rows()[:, None], along, -back)
 
     def footprints(self, rows) -> np.ndarray:
         """The footprints of the panels at `rows`, as shapes."""
@@ -238,17 +236,19 @@ def place(site: Site, columns: dict[str, tuple] | None = None) -> Places:
     left = np.stack([-u[:, 1], u[:, 0]], axis=1)  # the left hand, looking from start to end
     normal = left * sides[on][:, None]
     offset = np.array(offset, dtype=float)[rows]
-    return Places(rows, np.array(mark, dtype=str)[rows], [line[i] for i in rows.tolist()],
+    return Places(rows, np.array(mark, dtype=object)[rows], [line[i] for i in rows.tolist()],
                   ends[on, 0] + offset[:, None] * u, u, normal,
                   np.array(width, dtype=float)[rows],
                   np.array(thickness, dtype=float)[rows] / IN_PER_FT, offset, length, site, panel)
 
 
 def _at(places: Places, rows, along_ft, out_ft) -> np.ndarray:
-    """`PanelPlace.at` of the walls at `rows` of the places (arrays broadcast; (..., 2))."""
-    a = np.asarray(along_ft, dtype=float)[..., None]
-    o = np.asarray(out_ft, dtype=float)[..., None]
-    return places.origin[rows] + a * places.direction[rows] + o * places.normal[rows]
+    """`PanelPlace.at` of the walls at `rows` of the places (arrays broadcast; (..., 2)), x and
+    y worked apart (numpy is slow over a last axis of two)."""
+    a = np.asarray(along_ft, dtype=float)
+    o = np.asarray(out_ft, dtype=float)
+    return np.stack([places.origin[rows, i] + a * places.direction[rows, i]
+                     + o * places.normal[rows, i] for i in (0, 1)], axis=-1)
 
 
 def _read_bracing(site: Site, places: Places, standing: set[str] | None) -> _Bracing:
@@ -290,25 +290,26 @@ def _bracing(site: Site, places: Places, rows: np.ndarray) -> _Bracing:
     layout_row[list(panel["braced"])] = np.arange(len(panel["braced"]))
     layout_row = layout_row[places.index[rows]]
     braced = layout_row >= 0
-    picked = layout_row[braced].tolist()
-    height, base, foot_offset, given_ft, angle, insert_offset, count, positions, anchor = (
-        [panel[k][r] for r in picked] for k in (
+    picked = layout_row[braced]
+    height, base, foot_offset, given_ft, angle, insert_offset = (
+        np.array(panel[k], dtype=float)[picked] for k in (  # None: NaN
             "insert_height", "base_below_slab", "foot_offset", "anchor_distance", "angle",
-            "insert_offset", "count", "positions", "foot_anchor"))
-    height, base, given_ft, angle = (np.array(c, dtype=float)  # None: NaN
-                                     for c in (height, base, given_ft, angle))
-    foot_offset = np.array(foot_offset, dtype=float) / IN_PER_FT
+            "insert_offset"))
+    foot_offset = foot_offset / IN_PER_FT
     for_angle_ft = braces.anchor_distance_for_angle(
-        height, angle, np.array(insert_offset, dtype=float) / IN_PER_FT, foot_offset, base)
-    kind_of = {name: a.kind for name, a in site.anchor_types.items()}
-    anchor = np.array([a or "" for a in anchor], dtype=str)
-    names, which = np.unique(anchor, return_inverse=True)  # the kinds of the few types named
+        height, angle, insert_offset / IN_PER_FT, foot_offset, base)
+    given = np.array(list(map(bool, panel["positions"])), dtype=bool)[picked]
+    # the foot anchor of each layout by its type's number among those named (0: none named)
+    names = sorted(set(panel["foot_anchor"]) - {None})
+    number = dict(zip([None, *names], range(len(names) + 1)))
+    which = np.fromiter(map(number.__getitem__, panel["foot_anchor"]), int,
+                        len(panel["foot_anchor"]))[picked]
     return _Bracing(
-        rows, braced, np.array(count, dtype=int), np.array(list(map(bool, positions)), dtype=bool),
-        list(chain.from_iterable(positions)),
+        rows, braced, np.array(panel["count"], dtype=int)[picked], given,
+        list(chain.from_iterable(panel["positions"][r] for r in picked[given].tolist())),
         np.where(np.isnan(given_ft), for_angle_ft, given_ft),
-        np.array([kind_of[a] if a else "" for a in names.tolist()], dtype=str)[which], anchor,
-        height - base, foot_offset)
+        np.array(["", *(site.anchor_types[a].kind for a in names)], dtype=str)[which],
+        np.array(["", *names], dtype=str)[which], height - base, foot_offset)
 
 
 def brace_points(site: Site, place: PanelPlace) -> tuple[np.ndarray, np.ndarray]:
@@ -325,7 +326,7 @@ class _Braces:
     """Every brace of the walls standing, one row each."""
 
     wall: np.ndarray    # its wall's row in the places
-    mark: np.ndarray
+    mark: np.ndarray       # of str objects
     number: np.ndarray  # 1-based within its wall
     along_ft: np.ndarray  # from the wall's first edge
     insert: np.ndarray  # (m, 2)
@@ -349,8 +350,9 @@ def _brace_table(places: Places, bracing: _Bracing) -> _Braces:
     # the centres of equal strips (braces.default_positions), or the positions given
     along = (number - 0.5) * places.width_ft[wall] / count.repeat(count)
     along[bracing.given.repeat(count)] = bracing.positions
-    insert = places.origin[wall] + along[:, None] * places.direction[wall]
-    foot = insert + bracing.anchor_ft.repeat(count)[:, None] * places.normal[wall]
+    insert = np.stack([places.origin[wall, i] + along * places.direction[wall, i]
+                       for i in (0, 1)], axis=-1)  # x and y apart, as in _at
+    foot = _at(places, wall, along, bracing.anchor_ft.repeat(count))
     return _Braces(wall, places.mark[wall], number, along, insert, foot, bracing.kind.repeat(count),
                    bracing.anchor.repeat(count), bracing.top_ft.repeat(count),
                    bracing.low_ft.repeat(count))
@@ -403,10 +405,10 @@ def _distances_ft(points: np.ndarray, pieces: np.ndarray) -> np.ndarray:
     """Least distance (ft) of each point to the straight pieces (m, 2, 2): square to a piece
     where the foot of the perpendicular falls between its ends, else to its nearer end
     (geometry; the same arithmetic as shapely's distance, so the same values to the last bit)."""
-    px, py = points[:, 0, None], points[:, 1, None]
+    px, py = points.T  # a row of the arrays below per piece, a column per point
     least = np.full(len(points), np.inf)
-    for block in range(0, len(pieces), 64):  # keeps the (points x pieces) arrays small
-        (ax, ay), (bx, by) = pieces[block:block + 64].transpose(1, 2, 0)
+    for block in range(0, len(pieces), 64):  # keeps the (pieces x points) arrays small
+        (ax, ay), (bx, by) = pieces[block:block + 64, :, :, None].transpose(1, 2, 0, 3)
         dx, dy, ux, uy = bx - ax, by - ay, px - ax, py - ay
         len2 = dx * dx + dy * dy
         with np.errstate(divide="ignore", invalid="ignore"):  # a piece of no length: its end
@@ -415,7 +417,7 @@ def _distances_ft(points: np.ndarray, pieces: np.ndarray) -> np.ndarray:
         to_a = ((ax == bx) & (ay == by)) | (r <= 0.0)
         end2 = np.where(to_a, ux * ux + uy * uy, (px - bx) * (px - bx) + (py - by) * (py - by))
         d = np.where(to_a | (r >= 1.0), np.sqrt(end2), square)
-        least = np.minimum(least, d.min(axis=1))
+        least = np.minimum(least, d.min(axis=0))
     return least
 
 
@@ -489,16 +491,17 @@ def _zone_reach_ft(site: Site, places: Places, bracing: _Bracing,
     behind (ft) of the walls of `bracing` (the rules are in `zone_reach`)."""
     extra = site.rule_value("masonry_zone_extra_ft")
     panel = places.fields_of(site)
-    rows = places.index[bracing.walls].tolist()
-    h = [panel["height"][i] for i in rows]
+    rows = places.index[bracing.walls]
+    h = np.array(panel["height"], dtype=float)[rows]
     if heights:
-        h = [heights.get(m, x) for m, x in zip(places.mark[bracing.walls].tolist(), h)]
-    h = np.array(h, dtype=float)
+        h = np.array([heights.get(m, x) for m, x in zip(places.mark[bracing.walls].tolist(),
+                                                         h.tolist())], dtype=float)
     footprint = np.zeros(len(rows))
     footprint[bracing.braced] = bracing.anchor_ft
     masonry_kind = {name: m.kind == "masonry" and extra is not None
                     for name, m in site.materials.items()}
-    masonry = np.array([masonry_kind[panel["material"][i]] for i in rows], dtype=bool)
+    masonry = np.fromiter(map(masonry_kind.__getitem__, panel["material"]), bool,
+                          len(panel["material"]))[rows]
     front = h + footprint
     if extra is not None:  # OSHA 29 CFR 1926.706(a): h + 4 ft
         front = np.where(masonry, np.maximum(h + extra, front), front)
@@ -657,7 +660,9 @@ def _ground_anchor_findings(site: Site, t: _Braces, slab: _Slab | None) -> list[
     feet, kinds, marks = t.foot[sel], t.kind[sel], t.mark[sel]
     deadman = kinds == "deadman"
     on_ground = _covered(ground, feet) if ground is not None else np.zeros(len(sel), bool)
-    on_slab = _covered(slab.area, feet) if slab is not None else np.zeros(len(sel), bool)
+    on_slab = np.zeros(len(sel), bool)  # asked of the deadmen only
+    if slab is not None:
+        on_slab[deadman] = _covered(slab.area, feet[deadman])
     drawn = (ground is not None) | (deadman & (slab is not None))
     found = [PlanFinding(mark, Flag(
         "anchor-not-located", "notice", f"the plan has no open ground: the {kinds[rows[0]]} "
@@ -718,9 +723,9 @@ def _box(corners: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
 def _meets_any(lo: np.ndarray, hi: np.ndarray, shapes: np.ndarray) -> np.ndarray:
     """Whether each box (least and greatest x and y, each (n, 2)) meets the bounding box of
     any of `shapes`."""
-    box = shapely.bounds(shapes)
-    return ((lo[:, None, 0] <= box[:, 2]) & (hi[:, None, 0] >= box[:, 0])
-            & (lo[:, None, 1] <= box[:, 3]) & (hi[:, None, 1] >= box[:, 1])).any(axis=1)
+    box = shapely.bounds(shapes)[:, :, None]  # a row per shape, a column per box
+    return ((lo[:, 0] <= box[:, 2]) & (hi[:, 0] >= box[:, 0])
+            & (lo[:, 1] <= box[:, 3]) & (hi[:, 1] >= box[:, 1])).any(axis=0)
 
 
 def _every_pair(first_a, count_a, first_b, count_b) -> tuple[np.ndarray, np.ndarray]:
