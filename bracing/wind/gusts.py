@@ -15,8 +15,6 @@ SUSTAINED_RATIOS = {"1-min": 1.22, "2-min": 1.30, "10-min": 1.43, "1-hour": 1.52
 
 def sustained_equivalents(gust_mph):
     """Mean speeds (mph) over 1 min, 2 min, 10 min and 1 hour matching a 3-s gust, open terrain."""
-    if isinstance(gust_mph, float):  # one wall's speed: plain floats, no array round trip
-        return {name: gust_mph / ratio for name, ratio in SUSTAINED_RATIOS.items()}
     gust = np.asarray(gust_mph, dtype=float)
     return {name: (gust / ratio)[()] for name, ratio in SUSTAINED_RATIOS.items()}
 
