@@ -387,15 +387,6 @@ def deadman_sliding(weight_lb, uplift_lb, mu, factor_of_safety=1.0, basis="ASD")
     return (np.asarray(mu, dtype=float) / factor_of_safety * np.maximum(normal, 0.0))[()]
 
 
-def deadman_sliding_cohesion(contact_area_ft2, weight_lb, uplift_lb,
-                             cohesion_psf=COHESION_IBC_1806_2_PSF["clay_silt"], basis="ASD"):
-    """Sliding resistance on clay and silt, lb: cohesion times contact area, at most half the
-    dead load (IBC Table 1806.2 and note); the dead load net of uplift on the basis used."""
-    normal = _dead_load_factor(basis) * np.asarray(weight_lb, dtype=float) - uplift_lb
-    return np.minimum(cohesion_psf * np.asarray(contact_area_ft2, dtype=float),
-                      0.5 * np.maximum(normal, 0.0))[()]
-
-
 def deadman_overturning_moment(pull_lb, uplift_lb, attach_height_ft, attach_from_toe_ft):
     """Overturning moment about the deadman's toe (its edge nearer the wall), lb-ft.
 

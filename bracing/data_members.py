@@ -33,11 +33,6 @@ class PipeSection:
         return DESIGN_WALL_FACTOR * self.t_nom_in
 
     @property
-    def d_over_t(self) -> float:
-        """Diameter-to-thickness ratio on the design wall (AISC 360-16 Table B4.1a/b)."""
-        return self.od_in / self.t_design_in
-
-    @property
     def z_in3(self) -> float:
         """Plastic section modulus of a tube, Z = (D^3 - (D - 2t)^3) / 6, design wall."""
         return (self.od_in**3 - (self.od_in - 2.0 * self.t_design_in) ** 3) / 6.0

@@ -61,11 +61,6 @@ def slenderness(lc_ft, r_in):
     return 12.0 * np.asarray(lc_ft, dtype=float) / r_in
 
 
-def slenderness_over_200(lc_ft, r_in):
-    """True where Lc / r > 200 (AISC 360-16 §E2 user note): flag, not a strength limit."""
-    return slenderness(lc_ft, r_in) > LC_OVER_R_ADVISORY
-
-
 def euler_stress(E_ksi, slenderness_ratio):
     """Elastic buckling stress Fe = pi^2 E / (Lc/r)^2, ksi. AISC 360-16 Eq. E3-4."""
     with np.errstate(divide="ignore"):
