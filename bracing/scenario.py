@@ -146,13 +146,7 @@ def parse(text: str, name: str = "<site>") -> SiteFile:
     try:
         data = tomllib.loads(text)  # fast; tomlkit (style-keeping) is parsed only to save
     except tomllib.TOMLDecodeError as fast_error:
-        try:  # tomlkit names the line of most problems, a repeated key included
-            tomlkit.parse(text)
-        except TOMLKitError as exc:
-            line = getattr(exc, "line", None) or _repeated_key_line(str(exc), text)
-            where = f"{name}:{line}" if line else name
-            raise SiteFileError(name, [f"{where}: not valid TOML: {exc}"]) from None
-        raise SiteFileError(name, [f"{name}: not valid TOML: {fast_error}"]) from None
+        raise SiteFileError(name, [_toml_problem(fast_error, text, name)]) from None
     return SiteFile(Path(name), text, validate_data(data, name, text), data=data)
 
 
@@ -199,21 +193,20 @@ def _item_and_field(loc: tuple, data: dict) -> tuple[str, str]:
     return "", ".".join(str(p) for p in loc) or "(whole file)"
 
 
-def _repeated_key_line(message: str, text: str) -> int | None:
-    """Line (1-based) where the key that tomlkit says "already exists" is set again in its table."""
-    match = re.search(r'Key "(.+?)" already exists', message)
-    if not match:
-        return None
-    key = re.compile(rf"^\s*[\"']?{re.escape(match.group(1))}[\"']?\s*=")
-    seen = False
-    for n, line in enumerate(text.splitlines(), 1):
-        if re.match(r"^\s*\[", line):
-            seen = False  # a new table: keys start afresh
-        elif key.match(line):
-            if seen:
-                return n
-            seen = True
-    return None
+def _toml_problem(error: tomllib.TOMLDecodeError, text: str, name: str) -> str:
+    """'file:line: not valid TOML: why', the line from the standard library's parser.
+
+    tomlkit's own wording is kept where it says more (it names a repeated key), without its
+    position, which some versions give a line late.
+    """
+    at = re.search(r"\(at line (\d+), column \d+\)", str(error))
+    where = f"{name}:{at.group(1)}" if at else name
+    why = re.sub(r"\s*\(at line \d+, column \d+\)", "", str(error))
+    try:
+        tomlkit.parse(text)
+    except TOMLKitError as exc:
+        why = re.sub(r"\s*at line \d+ col \d+$", "", str(exc)) or why
+    return f"{where}: not valid TOML: {why}"
 
 
 def _line_of(loc: tuple, text: str) -> int | None:
