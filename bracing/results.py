@@ -143,6 +143,13 @@ class PanelResult:
         """The governing (largest) utilization of the wall as checked."""
         return max((c.utilization for c in self.checks), default=0.0)
 
+    @property
+    def fails(self) -> bool:
+        """True when the wall fails a strength check, cannot stand and has no braces, or has a
+        danger finding: the one test behind every verdict and exit code (design.md §8a)."""
+        return self.status in ("unsafe", "needs_braces") or any(
+            f.severity == "danger" for f in self.flags)
+
     def worst_first(self) -> list[Check]:
         return sorted(self.checks, key=lambda c: -c.utilization)
 
@@ -189,6 +196,16 @@ class SiteResult:
 
     def worst_first(self) -> list[PanelResult]:
         return sorted(self.panels, key=lambda p: (STATUS_ORDER.index(p.status), -p.utilization))
+
+    def failing(self) -> list[PanelResult]:
+        """The walls that fail (PanelResult.fails), worst first."""
+        return [p for p in self.worst_first() if p.fails]
+
+    @property
+    def fails(self) -> bool:
+        """True when a wall fails or a finding of the site or of a day is a danger (§8a)."""
+        return bool(self.failing()) or any(
+            f.severity == "danger" for f in self.flags + [g for d in self.days for g in d.flags])
 
     def panel(self, mark: str) -> PanelResult:
         return next(p for p in self.panels if p.mark == mark)
