@@ -7,6 +7,7 @@ file, item and field; never a traceback.
 from __future__ import annotations
 
 import argparse
+import hashlib
 import json
 import signal
 import sys
@@ -19,7 +20,13 @@ from bracing.evaluate import evaluate
 from bracing.model import Site
 from bracing.report import json_view, text
 
+EXIT_FAILS = 1
 EXIT_BAD_INPUT = 2
+EXIT_CODES = """exit codes (every command):
+  0  every wall passes and no finding is a danger
+  1  a wall fails a check or a finding is a danger (diff: see `bracing diff --help`;
+     verify: a published value is not reproduced)
+  2  bad input, or a file that cannot be read or written"""
 
 # `bracing panel` flag -> (path in the one-panel site, how the value is stored)
 PANEL_FLAGS = {
@@ -60,13 +67,22 @@ def main(argv: list[str] | None = None) -> int:
         return EXIT_BAD_INPUT
 
 
+class _Parser(argparse.ArgumentParser):
+    """Every command's help ends with the exit codes (design.md §8a)."""
+
+    def __init__(self, *args, **kwargs):
+        kwargs.setdefault("epilog", EXIT_CODES)
+        kwargs.setdefault("formatter_class", argparse.RawDescriptionHelpFormatter)
+        super().__init__(*args, **kwargs)
+
+
 def build_parser() -> argparse.ArgumentParser:
-    parser = argparse.ArgumentParser(
+    parser = _Parser(
         prog="bracing",
         description="Plan and check the temporary bracing of walls standing before their "
                     "diaphragm exists. A planning aid: a qualified person designs and approves "
                     "the bracing.")
-    commands = parser.add_subparsers(dest="command", required=True)
+    commands = parser.add_subparsers(dest="command", required=True, parser_class=_Parser)
 
     panel = commands.add_parser("panel", help="quick check of one wall standing alone")
     add = panel.add_argument
@@ -105,7 +121,29 @@ def build_parser() -> argparse.ArgumentParser:
     check.add_argument("--design", action="store_true",
                        help="lay out braces for walls that need them and have none")
     _output_options(check)
+    check.add_argument("--findings", action="store_true",
+                       help="the reviewer's report: only what needs action, worst first, then "
+                            "what was not checked")
+    check.add_argument("--format", choices=["text", "html"], default="text",
+                       help="with --findings: text (100 columns) or printable HTML")
+    check.add_argument("-o", "--output", help="file to write (default: print)")
     check.set_defaults(run=run_check)
+
+    diff = commands.add_parser(
+        "diff", help="what changed between two revisions of a site file",
+        epilog=DIFF_EXIT_CODES)
+    diff.add_argument("old", help="the site file reviewed before (TOML)")
+    diff.add_argument("new", help="the revised site file (TOML)")
+    diff.add_argument("--design", action="store_true",
+                      help="lay out braces in both for walls that need them and have none")
+    diff.add_argument("--json", action="store_true", help="print one JSON object")
+    diff.set_defaults(run=run_diff)
+
+    verify = commands.add_parser(
+        "verify", help="reproduce the published worked examples and table values on this "
+                       "installation")
+    verify.add_argument("--json", action="store_true", help="print one JSON object")
+    verify.set_defaults(run=run_verify)
 
     schema = commands.add_parser("schema", help="print the JSON schema of the site file")
     schema.set_defaults(run=run_schema)
@@ -201,7 +239,7 @@ def run_panel(args) -> int:
     else:
         print("\n".join([result.caution, ""] + result.basis_statement + [""]
                         + text.panel_text(p, args.units) + ["", result.caution]))
-    return 0
+    return EXIT_FAILS if p.fails else 0
 
 
 def _flag_problem(err: dict) -> str:
@@ -226,13 +264,82 @@ def _flag_problem(err: dict) -> str:
 
 
 def run_check(args) -> int:
+    if args.format == "html" and not args.findings:
+        raise BadInput("--format html needs --findings")
+    if args.findings and args.json:
+        raise BadInput("choose one of --findings and --json")
     site_file = scenario.load(args.site)
     result = evaluate(site_file.site, design=args.design, base_dir=Path(args.site).parent)
     if args.json:
-        print(json_view.dumps(json_view.site_record(result)))
+        review = json_view.review_record(site_file.site, result, review_facts(args.site))
+        out = json_view.dumps(json_view.site_record(result, review))
+    elif args.findings:
+        from bracing.report import findings
+
+        render = findings.render_html if args.format == "html" else findings.render_text
+        out = render(result, review_facts(args.site), args.units)
     else:
-        print(text.site_text(result, args.units))
-    return 0
+        out = text.site_text(result, args.units)
+    return _write(args.output, out) or verdict(result)
+
+
+def verdict(result) -> int:
+    """The exit code of a checked site (design.md §8a): SiteResult.fails is the one test."""
+    return EXIT_FAILS if result.fails else 0
+
+
+def review_facts(path: str) -> dict:
+    """What makes a review record traceable: the file's SHA-256 (as `sha256sum` gives it), the
+    tool's version, the date (UTC)."""
+    from datetime import datetime, timezone
+    from importlib.metadata import PackageNotFoundError, version
+
+    try:
+        digest = hashlib.sha256(Path(path).read_bytes()).hexdigest()
+    except OSError as exc:
+        raise BadInput(f"{path}: cannot read the file ({exc.strerror})") from None
+    try:
+        tool_version = version(DISTRIBUTION)
+    except PackageNotFoundError:
+        tool_version = "unknown (not installed as a package)"
+    return {"site_file": str(path), "site_file_sha256": digest, "tool": DISTRIBUTION,
+            "tool_version": tool_version,
+            "date_utc": datetime.now(timezone.utc).isoformat(timespec="seconds")}
+
+
+DISTRIBUTION = "wall-bracing"  # pyproject.toml [project] name
+DIFF_EXIT_CODES = """exit codes:
+  0  the new file passes (as `bracing check` would) and no wall got worse as below
+  1  the new file fails a check or has a danger finding, or a wall standing in both files
+     got worse: its governing utilization rose and is now above 1.0, or its working-limit
+     gust fell below the stand-down gust it had in the old file (a crew still reading the old
+     stand-down gust would work in wind the revised wall cannot take)
+  2  bad input, or a file that cannot be read"""
+
+
+def run_diff(args) -> int:
+    from bracing import diff
+
+    old_file, new_file = scenario.load(args.old), scenario.load(args.new)
+    old = evaluate(old_file.site, design=args.design, base_dir=Path(args.old).parent)
+    new = evaluate(new_file.site, design=args.design, base_dir=Path(args.new).parent)
+    changes = diff.compare(old_file.site, old, new_file.site, new)
+    if args.json:
+        print(json_view.dumps(changes.as_dict()))
+    else:
+        print(diff.render_text(changes, args.old, args.new))
+    return EXIT_FAILS if changes.fails else 0
+
+
+def run_verify(args) -> int:
+    from bracing import verification
+
+    outcomes = verification.run()
+    if args.json:
+        print(json_view.dumps(verification.record(outcomes)))
+    else:
+        print(verification.render_text(outcomes))
+    return EXIT_FAILS if any(not o.passes for o in outcomes) else 0
 
 
 def run_schedule(args) -> int:
@@ -244,7 +351,7 @@ def run_schedule(args) -> int:
         text_out = schedule.render(site_file.site, result, args.day, args.format, args.units)
     except schedule.NoSuchDay as exc:
         raise BadInput(f"--day: {exc}") from None
-    return _write(args.output, text_out)
+    return _write(args.output, text_out) or verdict(result)
 
 
 def run_plan(args) -> int:
@@ -256,7 +363,7 @@ def run_plan(args) -> int:
         drawing = svg.plan_svg(result, args.day)
     except ValueError as exc:
         raise BadInput(f"--day: {exc}") from None
-    return _write(args.output, drawing)
+    return _write(args.output, drawing) or verdict(result)
 
 
 def run_tui(args) -> int:

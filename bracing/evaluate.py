@@ -16,7 +16,7 @@ from operator import attrgetter
 
 import numpy as np
 
-from bracing import anchors, braced, layout, lines, members, plan, schedule, stability
+from bracing import anchors, braced, layout, lines, members, plan, schedule, scope, stability
 from bracing.braced import take
 from bracing.data_members import PIPES
 from bracing.model import Site, read_panels
@@ -564,7 +564,8 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
             geometry = plan.plan_geometry(site)
     return SiteResult(
         name=site.site.name, basis=site.site.design_basis, basis_statement=basis_statement(site),
-        panels=panels, days=days, peak_inventory=peak, plan=geometry)
+        panels=panels, days=days, peak_inventory=peak, plan=geometry,
+        not_checked=scope.not_checked(site, columns))
 
 
 @paused_cycle_collector()

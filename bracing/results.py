@@ -181,6 +181,20 @@ class DayResult:
 
 
 @dataclass(slots=True)
+class NotChecked:
+    """Something the engine did not check for this site, and why: the limits of the check,
+    which a reviewer must see as clearly as its results (method notes §11)."""
+
+    item: str
+    reason: str
+    source: str
+    walls: list[str] = field(default_factory=list)  # the walls it concerns; empty: the site
+
+    def as_dict(self) -> dict:
+        return asdict(self)
+
+
+@dataclass(slots=True)
 class SiteResult:
     """The whole site: every wall, worst first on demand, and the declared basis."""
 
@@ -193,6 +207,7 @@ class SiteResult:
     peak_inventory: dict[str, dict[str, int]] = field(default_factory=dict)
     plan: object | None = None  # bracing.plan.PlanGeometry: coordinates for the views
     flags: list[Flag] = field(default_factory=list)  # site-wide findings
+    not_checked: list[NotChecked] = field(default_factory=list)  # what the check leaves out
 
     def worst_first(self) -> list[PanelResult]:
         return sorted(self.panels, key=lambda p: (STATUS_ORDER.index(p.status), -p.utilization))

@@ -10,6 +10,7 @@ import numpy as np
 import pytest
 
 from bracing import cli
+from verdicts import exit_code_of
 
 PANEL = ["panel", "--height", "30ft", "--width", "24ft", "--thickness", "7.25in",
          "--wind", "115mph", "--exposure", "C", "--duration", "5weeks"]
@@ -36,8 +37,10 @@ RESISTING = 0.6 * WEIGHT * T_FT / 2.0  # 0.6D (ASCE 7-16 §2.4.1), W t/2 about t
 
 
 def _json(capsys, args) -> dict:
-    assert cli.main(list(args) + ["--json"]) == 0
-    return json.loads(capsys.readouterr().out)
+    code = cli.main(list(args) + ["--json"])
+    record = json.loads(capsys.readouterr().out)
+    assert code == exit_code_of(record)
+    return record
 
 
 @pytest.fixture(scope="module")
@@ -45,7 +48,7 @@ def quick() -> dict:
     """The §8 record of the 30 x 24 ft panel (computed once for the module)."""
     out = io.StringIO()
     with contextlib.redirect_stdout(out):
-        assert cli.main(PANEL + ["--json"]) == 0
+        assert cli.main(PANEL + ["--json"]) == 1  # it cannot stand unbraced (design.md §8a)
     return json.loads(out.getvalue())
 
 
@@ -177,14 +180,14 @@ def test_panel_with_braces_fills_the_braces_record(capsys):
 
 
 def test_panel_text_output_starts_and_ends_with_the_caution(capsys):
-    assert cli.main(PANEL) == 0
+    assert cli.main(PANEL) == 1  # the wall cannot stand unbraced: exit 1 (design.md §8a)
     out = capsys.readouterr().out.strip().splitlines()
     assert out[0].startswith("CAUTION") and out[-1].startswith("CAUTION")
 
 
 def test_panel_end_to_end(helpers):
     done = helpers.run_bracing(*PANEL, "--json")
-    assert done.returncode == 0, done.stderr
+    assert done.returncode == 1, done.stderr  # fails unbraced (design.md §8a)
     assert TOP_KEYS <= set(json.loads(done.stdout))
 
 

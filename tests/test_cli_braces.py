@@ -11,6 +11,7 @@ import pytest
 from bracing import braced, cli
 from bracing import evaluate as ev
 from bracing.model import Site
+from verdicts import exit_code_of
 
 PANEL = ["panel", "--height", "30ft", "--width", "24ft", "--thickness", "7.25in",
          "--wind", "115mph", "--exposure", "C", "--duration", "5weeks"]
@@ -30,8 +31,10 @@ G = 0.85  # ASCE 7-16 §26.11.1 rigid (secondary)
 def record(args) -> dict:
     out = io.StringIO()
     with contextlib.redirect_stdout(out):
-        assert cli.main(list(args) + ["--json"]) == 0
-    return json.loads(out.getvalue())
+        code = cli.main(list(args) + ["--json"])
+    got = json.loads(out.getvalue())
+    assert code == exit_code_of(got)  # design.md §8a
+    return got
 
 
 @pytest.fixture(scope="module")
@@ -253,7 +256,8 @@ def test_bad_brace_input_in_a_site_file_exits_2_naming_the_field(capsys, write_s
 
 
 def test_the_good_site_file_checks(capsys, write_site):
-    assert cli.main(["check", str(write_site(SITE)), "--json"]) == 0
+    # a valid file whose wall is unsafe (its rated braces are short): exit 1 (design.md §8a)
+    assert cli.main(["check", str(write_site(SITE)), "--json"]) == 1
     (p,) = json.loads(capsys.readouterr().out)["panels"]
     assert p["braces"]["angle_deg"] == pytest.approx(55.0, rel=1e-12)
 

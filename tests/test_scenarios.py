@@ -42,10 +42,15 @@ def test_every_site_file_loads_and_validates(path):
     assert site.panels
 
 
+# design.md §8a: the review exercise (townhouses) and the one-wall demo of every kind of wall
+# hold failing walls and dangers: exit 1; the others pass: exit 0
+EXIT_CODES = {"demo-mixed": 1, "townhouse-framing": 1, "tilt-up-warehouse": 0, "masonry-gym": 0}
+
+
 @pytest.mark.parametrize("path", SITES, ids=[p.stem for p in SITES])
-def test_bracing_check_exits_0_on_every_site_file(helpers, path):
+def test_bracing_check_runs_on_every_site_file(helpers, path):
     done = helpers.run_bracing("check", path)
-    assert done.returncode == 0, done.stderr
+    assert done.returncode == EXIT_CODES[path.stem], done.stderr
     assert "Traceback" not in done.stderr
     assert scenario.load(path).site.site.name in done.stdout
 

@@ -12,6 +12,7 @@ from pydantic import ValidationError
 
 from bracing import cli, units
 from bracing.model import Site
+from verdicts import exit_code_of
 
 FT_M = 0.3048  # NIST SP 811 App. B, exact by definition, from memory
 LBF_N = 0.45359237 * 9.80665  # pound-force in newtons, exact by definition, from memory
@@ -175,8 +176,10 @@ def _with(flag: str, value: str, extra=()) -> list[str]:
 
 
 def _panel_json(capsys, args) -> dict:
-    assert cli.main(args + ["--json"]) == 0
-    return json.loads(capsys.readouterr().out)
+    code = cli.main(args + ["--json"])
+    record = json.loads(capsys.readouterr().out)
+    assert code == exit_code_of(record)  # design.md §8a
+    return record
 
 
 def test_panel_flags_in_si_units_give_the_same_answer(capsys):

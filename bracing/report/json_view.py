@@ -6,7 +6,11 @@ import json
 import math
 from dataclasses import asdict
 
+from bracing.model import DEFAULT_RULES, Site
 from bracing.results import PanelResult, SiteResult
+
+METHOD = ("method notes (docs/method.md, shipped with the tool), which cite the published "
+          "clauses")
 
 
 def panel_record(p: PanelResult, basis: str, caution: str) -> dict:
@@ -33,9 +37,30 @@ def panel_record(p: PanelResult, basis: str, caution: str) -> dict:
     })
 
 
-def site_record(result: SiteResult) -> dict:
-    """The whole site, walls worst first."""
+def review_record(site: Site, result: SiteResult, facts: dict) -> dict:
+    """The review record: what was checked, with what, on what basis, when (`facts`: the site
+    file's name and SHA-256, the tool's name and version, the date; read at the edge)."""
+    rules = []
+    for name in dict.fromkeys([*DEFAULT_RULES, *site.rules]):
+        r = site.rule(name)
+        rules.append({"name": name, "value": r.value, "in_force": r.enabled,
+                      "source": r.source, "basis": r.basis})
+    return {
+        **facts,
+        "design_basis": {"basis": result.basis, "risk_category": site.site.risk_category,
+                         "statement": result.basis_statement},
+        "rules": rules,
+        "method": METHOD,
+        "fails": result.fails,
+        "failing_walls": [p.mark for p in result.failing()],
+        "not_checked": [n.as_dict() for n in result.not_checked],
+    }
+
+
+def site_record(result: SiteResult, review: dict | None = None) -> dict:
+    """The whole site, walls worst first; with `review`, the review record (review_record)."""
     return _clean({
+        **({"review": review} if review is not None else {}),
         "site": result.name,
         "basis": result.basis,
         "basis_statement": result.basis_statement,

@@ -58,7 +58,7 @@ def test_the_rule_is_for_masonry_only(helpers, kind):
 
 def test_the_rule_flags_in_the_panel_quick_check(capsys):
     assert cli.main(["panel", "--material", "masonry", "--height", "8.5ft", "--width", "12ft",
-                     "--thickness", "7.625in", "--wind", "115mph", "--json"]) == 0
+                     "--thickness", "7.625in", "--wind", "115mph", "--json"]) == 1  # a danger: exit 1
     record = json.loads(capsys.readouterr().out)
     severities = {f["code"]: f["severity"] for f in record["flags"]}
     assert severities["masonry-over-8ft"] == "danger"
