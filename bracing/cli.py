@@ -11,6 +11,7 @@ import hashlib
 import json
 import signal
 import sys
+from datetime import UTC
 from pathlib import Path
 
 from pydantic import ValidationError
@@ -291,7 +292,7 @@ def verdict(result) -> int:
 def review_facts(path: str) -> dict:
     """What makes a review record traceable: the file's SHA-256 (as `sha256sum` gives it), the
     tool's version, the date (UTC)."""
-    from datetime import datetime, timezone
+    from datetime import datetime
     from importlib.metadata import PackageNotFoundError, version
 
     try:
@@ -304,7 +305,7 @@ def review_facts(path: str) -> dict:
         tool_version = "unknown (not installed as a package)"
     return {"site_file": str(path), "site_file_sha256": digest, "tool": DISTRIBUTION,
             "tool_version": tool_version,
-            "date_utc": datetime.now(timezone.utc).isoformat(timespec="seconds")}
+            "date_utc": datetime.now(UTC).isoformat(timespec="seconds")}
 
 
 DISTRIBUTION = "wall-bracing"  # pyproject.toml [project] name

@@ -8,9 +8,9 @@ import math
 
 import numpy as np
 import pytest
+from verdicts import exit_code_of
 
 from bracing import cli
-from verdicts import exit_code_of
 
 PANEL = ["panel", "--height", "30ft", "--width", "24ft", "--thickness", "7.25in",
          "--wind", "115mph", "--exposure", "C", "--duration", "5weeks"]

@@ -7,11 +7,11 @@ import json
 import math
 
 import pytest
+from verdicts import exit_code_of
 
 from bracing import braced, cli
 from bracing import evaluate as ev
 from bracing.model import Site
-from verdicts import exit_code_of
 
 PANEL = ["panel", "--height", "30ft", "--width", "24ft", "--thickness", "7.25in",
          "--wind", "115mph", "--exposure", "C", "--duration", "5weeks"]

@@ -9,10 +9,10 @@ import math
 
 import pytest
 from pydantic import ValidationError
+from verdicts import exit_code_of
 
 from bracing import cli, units
 from bracing.model import Site
-from verdicts import exit_code_of
 
 FT_M = 0.3048  # NIST SP 811 App. B, exact by definition, from memory
 LBF_N = 0.45359237 * 9.80665  # pound-force in newtons, exact by definition, from memory

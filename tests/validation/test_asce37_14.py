@@ -7,23 +7,26 @@ Marks from references.md: less than 6 weeks 0.75 (from memory); 6 weeks to 1 yea
 import numpy as np
 import pytest
 
+from bracing.verification import PERIOD_FACTORS_6_2_1
 from bracing.wind import PERIOD_BANDS, period_band_limit_weeks, period_factor
 from bracing.wind.asce37 import WEEKS_PER_YEAR
 
 YEAR = WEEKS_PER_YEAR
+# Table 6.2-1 by band, held in bracing/verification.py (marks as above)
+LESS_THAN_6_WEEKS, TO_1_YEAR, TO_2_YEARS, TO_5_YEARS = PERIOD_FACTORS_6_2_1.values()
 
 
 @pytest.mark.parametrize(
     ("weeks", "factor"),
     [
-        (0.0, 0.75),  # less than 6 weeks, from memory
-        (5.99, 0.75),  # from memory
-        (6.0, 0.8),  # "6 weeks to 1 year" includes 6 weeks, secondary
-        (26.0, 0.8),  # secondary
-        (365.0 / 7.0, 0.8),  # 365 days, still within the first year, secondary
-        (1.5 * YEAR, 0.85),  # 1 to 2 years, from memory
-        (3.0 * YEAR, 0.9),  # 2 to 5 years, from memory
-        (5.0 * YEAR, 0.9),  # 5 years is the top of "2 to 5 years", from memory
+        (0.0, LESS_THAN_6_WEEKS),  # 0.75, from memory
+        (5.99, LESS_THAN_6_WEEKS),  # from memory
+        (6.0, TO_1_YEAR),  # 0.8: "6 weeks to 1 year" includes 6 weeks, secondary
+        (26.0, TO_1_YEAR),  # secondary
+        (365.0 / 7.0, TO_1_YEAR),  # 365 days, still within the first year, secondary
+        (1.5 * YEAR, TO_2_YEARS),  # 0.85, 1 to 2 years, from memory
+        (3.0 * YEAR, TO_5_YEARS),  # 0.9, 2 to 5 years, from memory
+        (5.0 * YEAR, TO_5_YEARS),  # 5 years is the top of "2 to 5 years", from memory
         (6.0 * YEAR, 1.0),  # beyond the table: the permanent structure's wind (design.md §4)
     ],
 )

@@ -7,6 +7,7 @@ text / secondary / from memory, or common practice / team's reading (design.md).
 import numpy as np
 import pytest
 
+from bracing.verification import CF_ROW_S_OVER_H_1, KE_TABLE_26_9_1, KZ_TABLE_26_10_1, published
 from bracing.wind import (
     GUST_FACTOR,
     KD_WALLS,
@@ -47,18 +48,9 @@ def test_terrain_constants_vectorised_and_unknown_exposure_named():
         terrain_constants(["C", "E"])
 
 
-# Table 26.10-1 Kz (text as ASCE 7-05 Table 6-3 case 2; secondary for 7-16). The formula is
-# compared with the printed 2-decimal table within 0.01 (C at 60 ft: formula 1.137, table 1.13).
-KZ_TABLE_26_10_1 = {
-    0: (0.57, 0.85, 1.03),
-    15: (0.57, 0.85, 1.03),
-    20: (0.62, 0.90, 1.08),
-    25: (0.66, 0.94, 1.12),
-    30: (0.70, 0.98, 1.16),
-    40: (0.76, 1.04, 1.22),
-    50: (0.81, 1.09, 1.27),
-    60: (0.85, 1.13, 1.31),
-}
+# Table 26.10-1 Kz (text as ASCE 7-05 Table 6-3 case 2; secondary for 7-16), held in
+# bracing/verification.py. The formula is compared with the printed 2-decimal table within 0.01
+# (C at 60 ft: formula 1.137, table 1.13).
 
 
 @pytest.mark.parametrize("z_ft", sorted(KZ_TABLE_26_10_1))
@@ -77,8 +69,7 @@ def test_kz_vectorised_over_walls():
 
 
 @pytest.mark.parametrize(
-    ("elevation_ft", "ke_table"),
-    [(0, 1.00), (1000, 0.96), (2000, 0.93), (3000, 0.90), (5000, 0.83), (6000, 0.80)],
+    ("elevation_ft", "ke_table"), sorted(KE_TABLE_26_9_1.items()),  # Table 26.9-1, secondary
 )
 def test_ke_table_26_9_1(elevation_ft, ke_table):
     assert ke(elevation_ft) == pytest.approx(ke_table, abs=0.005)  # Table 26.9-1, secondary
@@ -93,13 +84,14 @@ def test_ke_table_26_9_1_at_4000_ft_rounding():
 def test_velocity_pressure_eq_26_10_1_115_mph_30_ft_exposure_c():
     # Eq. 26.10-1 (secondary) with Kz 0.98 (Table 26.10-1, C at 30 ft, secondary) and Kd 0.85:
     # 0.00256 x 0.98 x 0.85 x 115^2 = 28.2 psf.
-    assert velocity_pressure(115.0, 0.98, kd=0.85) == pytest.approx(28.2, abs=0.005)
-    assert velocity_pressure(115.0, kz(30.0, "C")) == pytest.approx(28.2, rel=0.01)
+    q = published("asce7-q-115-30-C")  # 28.2 psf, secondary
+    assert velocity_pressure(115.0, 0.98, kd=0.85) == pytest.approx(q, abs=0.005)
+    assert velocity_pressure(115.0, kz(30.0, "C")) == pytest.approx(q, rel=0.01)
 
 
 def test_design_constants():
-    assert GUST_FACTOR == 0.85  # §26.11.1 rigid structure, secondary
-    assert KD_WALLS == 0.85  # Table 26.6-1 solid freestanding walls and signs, secondary
+    assert GUST_FACTOR == published("asce7-gust-factor")  # §26.11.1 rigid, 0.85, secondary
+    assert KD_WALLS == published("asce7-kd-walls")  # Table 26.6-1 walls and signs, 0.85, secondary
     assert MIN_PRESSURE_PSF == 16.0  # §29.7 minimum design wind load, from memory
 
 
@@ -109,7 +101,7 @@ AB_B_OVER_S = [0.05, 0.1, 0.2, 0.5, 1, 2, 4, 5, 10, 20, 30, 45]
 # Figure 29.3-1 Cases A and B (text via a code copying ASCE 7-05; three cells confirmed for 7-16,
 # secondary), rows by s/h.
 AB_ROWS = {
-    1.0: [1.80, 1.70, 1.65, 1.55, 1.45, 1.40, 1.35, 1.35, 1.30, 1.30, 1.30, 1.30],
+    1.0: list(CF_ROW_S_OVER_H_1.values()),  # held in bracing/verification.py
     0.9: [1.85, 1.75, 1.70, 1.60, 1.55, 1.50, 1.45, 1.45, 1.40, 1.40, 1.40, 1.40],
     0.7: [1.90, 1.85, 1.75, 1.70, 1.65, 1.60, 1.60, 1.55, 1.55, 1.55, 1.55, 1.55],
     0.5: [1.95, 1.85, 1.80, 1.75, 1.75, 1.70, 1.70, 1.70, 1.70, 1.70, 1.70, 1.75],
@@ -135,7 +127,7 @@ def test_cf_cases_ab_clamped_outside_the_table():
 def test_cf_cases_ab_linear_interpolation_note_5():
     # Note 5: linear interpolation in B/s and s/h (secondary). B/s 3 on grade: (1.40 + 1.35)/2;
     # s/h 0.8 at B/s 2: (1.60 + 1.50)/2.
-    assert cf_cases_ab(3.0, 1.0) == pytest.approx(1.375, abs=1e-12)
+    assert cf_cases_ab(3.0, 1.0) == pytest.approx(published("asce7-cf-interpolated"), abs=1e-12)
     assert cf_cases_ab(2.0, 0.8) == pytest.approx(1.55, abs=1e-12)
 
 
