@@ -271,14 +271,15 @@ def run_check(args) -> int:
         raise BadInput("choose one of --findings and --json")
     site_file = scenario.load(args.site)
     result = evaluate(site_file.site, design=args.design, base_dir=Path(args.site).parent)
-    if args.json:
+    if args.json or args.findings:
         review = json_view.review_record(site_file.site, result, review_facts(args.site))
+    if args.json:
         out = json_view.dumps(json_view.site_record(result, review))
     elif args.findings:
         from bracing.report import findings
 
         render = findings.render_html if args.format == "html" else findings.render_text
-        out = render(result, review_facts(args.site), args.units)
+        out = render(result, review, args.units)
     else:
         out = text.site_text(result, args.units)
     return _write(args.output, out) or verdict(result)

@@ -25,8 +25,8 @@ TEMPLATES = Path(__file__).parent / "templates"
 RESTATES_A_CHECK = ("fails-unbraced",)
 # day findings that restate a wall's own status
 RESTATES_A_WALL = ("unsafe-standing",)
-BRACE_IT = ("brace the wall before release from the crane (`bracing check SITE --design` lays "
-            "out the fewest braces that pass)")
+BRACE_IT = ("brace the wall before release from the crane; the layout designer (bracing check "
+            "SITE --design) lays out the fewest braces that pass")
 
 
 @dataclass(slots=True)
@@ -128,7 +128,7 @@ def rows(result: SiteResult, system: str = "us") -> list[dict]:
         has_check = f.utilization is not None
         out.append({
             "n": i, "severity": f.severity, "where": _where(f), "walls": len(f.where),
-            "element": f.element, "message": f.message, "source": f.source,
+            "element": f.element, "message": f.message, "source": as_output(f.source),
             "combination": f.combination,
             "demand": fmt(f.demand, _unit(f.unit), system) if has_check else "",
             "capacity": fmt(f.capacity, _unit(f.unit), system) if has_check else "",
@@ -136,6 +136,16 @@ def rows(result: SiteResult, system: str = "us") -> list[dict]:
             "also": ", ".join(f.also),
         })
     return out
+
+
+def rules_in_force(review: dict) -> list[dict]:
+    return [{**r, "value": f"{r['value']:g}", "source": as_output(r["source"])}
+            for r in review["rules"] if r["in_force"] and r["value"] is not None]
+
+
+def as_output(source: str) -> str:
+    """A source as reports print it: a value from memory is an unconfirmed value."""
+    return source.replace("from memory", "unconfirmed value")
 
 
 def not_checked_rows(result: SiteResult) -> list[dict]:
@@ -156,6 +166,7 @@ def render_text(result: SiteResult, review: dict, system: str = "us") -> str:
     lines += ["", *_wrap(f"FINDINGS for review: {result.name}")]
     lines += _wrap(f"site file {review['site_file']}, SHA-256 {review['site_file_sha256']}; "
                    f"{review['tool']} {review['tool_version']}; {review['date_utc']}", "  ")
+    lines += _wrap(f"method: {review['method']}", "  ")
     for s in result.basis_statement:
         lines += _wrap(s, "  ")
     found = rows(result, system)
@@ -175,6 +186,10 @@ def render_text(result: SiteResult, review: dict, system: str = "us") -> str:
         lines += _wrap(f"source: {r['source']}", "     ")
         if r["fix"]:
             lines += _wrap(f"suggested fix: {r['fix']}", "     ")
+    lines += ["", *_wrap("RULES in force:")]
+    for r in rules_in_force(review):
+        lines += _wrap(f"{r['name']} = {r['value']} ({r['source']}; {r['basis']})", "    ",
+                       "  - ")
     lines += ["", *_wrap("NOT CHECKED for this site (the limits of this check; method notes "
                          "§11):")]
     for n in not_checked_rows(result):
@@ -192,4 +207,5 @@ def render_html(result: SiteResult, review: dict, system: str = "us") -> str:
                .replace("<", "\\3C ").replace("\n", " "))  # a CSS string
     return env.get_template("findings.html.j2").render(
         result=result, review=review, findings=rows(result, system),
-        not_checked=not_checked_rows(result), caution_css=Markup(f'"{caution}"'))
+        not_checked=not_checked_rows(result), rules=rules_in_force(review),
+        caution_css=Markup(f'"{caution}"'))
