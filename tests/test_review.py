@@ -135,6 +135,15 @@ def test_a_failing_check_carries_its_numbers_and_the_designers_fix(capsys):
     assert len(wall_elements) == len(set(wall_elements))  # a wall's element once (worst region)
 
 
+@pytest.mark.parametrize("site", [TOWNHOUSE, MIXED], ids=["townhouse", "mixed"])
+def test_findings_cite_what_users_have(capsys, site):
+    # house rule: outputs cite published clauses or the method notes, and say "unconfirmed
+    # value" (never a file users do not have, never "from memory")
+    _, out = _run(capsys, "check", site, "--findings")
+    assert "design.md" not in out and "from memory" not in out
+    assert "method notes §" in out
+
+
 def test_findings_as_printable_html_with_an_approval_block(capsys, tmp_path):
     page = tmp_path / "review.html"
     code, _ = _run(capsys, "check", TOWNHOUSE, "--findings", "--format", "html", "-o", page)
@@ -196,6 +205,7 @@ def test_the_record_lists_the_rules_in_force_with_their_sources(record):
     assert rules["masonry_unbraced_height_ft"]["source"] == "OSHA 29 CFR 1926.706(b)"
     assert rules["stand_down_ratio"]["value"] == 0.8 and rules["stand_down_ratio"]["in_force"]
     assert rules["minimum_design_wind_mph"]["in_force"] is False  # off by default
+    assert rules["minimum_design_pressure_psf"]["source"] == "ASCE 7-16 §29.7 (unconfirmed value)"
 
 
 # --- what was not checked (the engine's list) ------------------------------------------------

@@ -15,6 +15,7 @@ from jinja2 import Environment, FileSystemLoader, select_autoescape
 from markupsafe import Markup
 
 from bracing.layout import ADVICE
+from bracing.report.json_view import as_output
 from bracing.report.text import fmt
 from bracing.results import SEVERITIES, Check, PanelResult, SiteResult
 
@@ -45,6 +46,7 @@ class Finding:
     utilization: float | None = None
     fix: str = ""
     also: list[str] = field(default_factory=list)  # other regions of the same element
+    varies: bool = False  # a warning shared by walls whose messages differ (their figures)
 
     @property
     def rank(self) -> tuple:
@@ -83,6 +85,7 @@ def collect(result: SiteResult) -> list[Finding]:
             key = (f.code, f.message if f.severity == "danger" else "")
             if key in grouped:
                 grouped[key].where.append(p.mark)
+                grouped[key].varies |= f.message != grouped[key].message
                 continue
             fix = BRACE_IT if f.code in RESTATES_A_CHECK else ""
             grouped[key] = Finding(severity=f.severity, where=[p.mark], element=f.code,
@@ -128,7 +131,9 @@ def rows(result: SiteResult, system: str = "us") -> list[dict]:
         has_check = f.utilization is not None
         out.append({
             "n": i, "severity": f.severity, "where": _where(f), "walls": len(f.where),
-            "element": f.element, "message": f.message, "source": as_output(f.source),
+            "element": f.element, "source": as_output(f.source),
+            "message": f"for {f.where[0]} (the others alike): {f.message}" if f.varies
+                       else f.message,
             "combination": f.combination,
             "demand": fmt(f.demand, _unit(f.unit), system) if has_check else "",
             "capacity": fmt(f.capacity, _unit(f.unit), system) if has_check else "",
@@ -143,9 +148,6 @@ def rules_in_force(review: dict) -> list[dict]:
             for r in review["rules"] if r["in_force"] and r["value"] is not None]
 
 
-def as_output(source: str) -> str:
-    """A source as reports print it: a value from memory is an unconfirmed value."""
-    return source.replace("from memory", "unconfirmed value")
 
 
 def not_checked_rows(result: SiteResult) -> list[dict]:

@@ -4,6 +4,7 @@ from __future__ import annotations
 
 import json
 import math
+import re
 from dataclasses import asdict
 
 from bracing.model import DEFAULT_RULES, Site
@@ -37,6 +38,20 @@ def panel_record(p: PanelResult, basis: str, caution: str) -> dict:
     })
 
 
+# The team's design sections some engine sources still name, and the method notes' sections
+# (docs/method.md) that users have, which state the same readings.
+NOTES_SECTION = {"§3": "§1", "§4": "§2", "§5": "§3", "§6": "§4", "§7": "§6", "§8": "§8",
+                 "§8a": "§8"}
+
+
+def as_output(source: str) -> str:
+    """A source as reports print it: a value from memory is an unconfirmed value; the method
+    is cited as the method notes users have, by section."""
+    source = re.sub(r"design\.md( §\w+)?", lambda m: "method notes" + (
+        f" {NOTES_SECTION.get(m.group(1).strip(), '')}".rstrip() if m.group(1) else ""), source)
+    return source.replace("from memory", "unconfirmed value")
+
+
 def review_record(site: Site, result: SiteResult, facts: dict) -> dict:
     """The review record: what was checked, with what, on what basis, when (`facts`: the site
     file's name and SHA-256, the tool's name and version, the date; read at the edge)."""
@@ -44,7 +59,7 @@ def review_record(site: Site, result: SiteResult, facts: dict) -> dict:
     for name in dict.fromkeys([*DEFAULT_RULES, *site.rules]):
         r = site.rule(name)
         rules.append({"name": name, "value": r.value, "in_force": r.enabled,
-                      "source": r.source, "basis": r.basis})
+                      "source": as_output(r.source), "basis": r.basis})
     return {
         **facts,
         "design_basis": {"basis": result.basis, "risk_category": site.site.risk_category,
