@@ -151,14 +151,23 @@ def input_changes(old: Site, new: Site) -> tuple[list[Change], dict[str, list[Ch
         if p["mark"] in old_panels:
             walls[p["mark"]] = [Change(_panel_kind(c.field), c.item, c.field, c.old, c.new)
                                 for c in _compare("wall", p["mark"], old_panels[p["mark"]], p)]
-    signed = ({(s["panel"], s["day"], s["by"]) for s in o["signoffs"]},
-              {(s["panel"], s["day"], s["by"]) for s in n["signoffs"]})
-    for (mark, day, by), what in [*((s, "removed") for s in signed[0] - signed[1]),
-                                  *((s, "added") for s in signed[1] - signed[0])]:
-        change = Change("days", mark, "sign-off", f"day {day} by {by}" if what == "removed"
-                        else None, f"day {day} by {by}" if what == "added" else None)
-        walls.setdefault(mark, []).append(change) if mark in walls else site.append(change)
+    for mark, (before, after) in _signoffs(o["signoffs"], n["signoffs"]).items():
+        change = Change("days", mark, "sign-off", before, after)
+        walls.get(mark, site).append(change)  # a wall standing in both, else the site
     return site, walls
+
+
+def _signoffs(old: list[dict], new: list[dict]) -> dict[str, tuple]:
+    """Each wall's sign-offs that changed: (before, after), each "day N by WHO; ..." or None."""
+    def by_wall(items):
+        out: dict[str, list[str]] = {}
+        for s in items:
+            out.setdefault(s["panel"], []).append(f"day {s['day']} by {s['by']}")
+        return {mark: "; ".join(sorted(v)) for mark, v in out.items()}
+
+    a, b = by_wall(old), by_wall(new)
+    return {mark: (a.get(mark), b.get(mark)) for mark in dict.fromkeys([*a, *b])
+            if a.get(mark) != b.get(mark)}
 
 
 def _same_speed(a: float, b: float) -> bool:

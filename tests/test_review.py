@@ -273,6 +273,20 @@ def test_diff_exits_1_when_the_limit_falls_below_the_old_stand_down(capsys, tmp_
     assert change["new"] == pytest.approx([11000.0] * 2)
 
 
+def test_diff_shows_a_sign_off_moved_and_what_it_does_to_the_neighbours(capsys, tmp_path):
+    # scenarios/README.md's fix of the early release: sign L2-R12 off on day 16, not 15
+    def later(doc):
+        (signoff,) = [s for s in doc["signoffs"] if s["panel"] == "L2-R12"]
+        signoff["day"] = 16
+
+    code, out = _run(capsys, "diff", TOWNHOUSE, _revised(tmp_path, TOWNHOUSE, later))
+    assert code == 1  # the stakes over the gas line are still there
+    wall = out.split("  L2-R12: ")[1].split("\n  L")[0]
+    assert ("days: sign-off: day 15 by M. Aziz, PE (engineer of record) -> day 16 by M. Aziz, "
+            "PE (engineer of record)") in wall
+    assert "(L1-F11, L1-F12)" in out.split("Verdict:")[1]
+
+
 def test_diff_of_a_file_against_itself_exits_0(capsys, tmp_path):
     same = _revised(tmp_path, PASSING, lambda doc: None)
     code, out = _run(capsys, "diff", PASSING, same)
