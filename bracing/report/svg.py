@@ -49,6 +49,9 @@ MARK_MM = 3.2           # wall marks on the plans (9 pt: capitals 2.3 mm tall)
 LABEL_MM = 2.6          # other plan labels: areas, lines, finding numbers (7.4 pt)
 LEAST_TEXT_MM = 2.5     # no text on a sheet is smaller than this (7 pt)
 OVERVIEW_MAX_H_MM = 170.0  # tallest plan frame of the overview
+PAGE_MM = 250.0            # the overview fits one page: letter's printable height, 254 mm
+LEAST_PLAN_MM = 90.0       # the overview's plan frame is never shorter than this
+SCALE_ROW_MM = 9.0         # the row under a plan frame: scale bar, scale, north arrow
 DETAIL_MAX_H_MM = 120.0    # and of a detail plan
 ELEVATION_MM = 120.0       # width of a wall elevation on paper
 SCALES_FT_PER_IN = (5, 10, 20, 30, 40, 50, 60, 80, 100, 150, 200, 300, 400, 500, 600, 800, 1000,
@@ -159,8 +162,9 @@ def place_labels(labels: list[Label], drawn: list[tuple[object, float]],
     Candidates ring each label's point, nearest first (the point in the middle of the box, then
     boxes beside it in 16 directions at growing distances, then anywhere in the frame). A box
     may not meet a box already placed (with a gap of 0.15 of the font size); among the others
-    the one that covers the least of the `drawn` items (shapely geometries in sheet units, each
-    with a weight) wins, nearer points winning ties. None for a label that finds no room."""
+    the one with the least cost wins: the weights of the `drawn` items it covers (shapely
+    geometries in sheet units, each with a weight) plus 0.1 for each label height it stands off
+    its point (nearer winning ties). None for a label that finds no room."""
     lo_x, lo_y, hi_x, hi_y = frame
     shapes = np.array([s for s, _ in drawn], dtype=object)
     weights = np.array([w for _, w in drawn], dtype=float)
@@ -202,7 +206,7 @@ def place_labels(labels: list[Label], drawn: list[tuple[object, float]],
             hit_box, hit = tree.query(shapely.box(*boxes[free].T), predicate="intersects")
             cost = np.bincount(hit_box, weights=weights[hit], minlength=len(free))
         distance = np.hypot(cx[free] - ax, cy[free] - ay) / h
-        best = free[np.lexsort((distance, np.round(cost, 6)))[0]]
+        best = free[np.lexsort((distance, np.round(cost + 0.1 * distance, 6)))[0]]
         b = boxes[best]
         taken = np.vstack([taken, b])
         near = box(*b).distance(Point(ax, ay)) > 0.6 * h
@@ -402,7 +406,7 @@ def _walls(g, fr: _Frame) -> list[str]:
     for p in g.panels:
         if p.standing:
             out.append(f'<polygon class="wall" points="{_plan_pts(p.footprint)}" '
-                       f'fill="{WALL}" stroke="#000" stroke-width="{_f(u)}"/>')
+                       f'fill="{WALL}" stroke="#000" stroke-width="{_f(2.4 * u)}"/>')
         else:
             out.append(f'<polygon class="wall ghost" points="{_plan_pts(p.footprint)}" '
                        f'fill="#fff" stroke="{WALL}" stroke-width="{_f(u)}" '
@@ -492,7 +496,7 @@ def _drawn_items(g, fr: _Frame, numbered) -> list[tuple[object, float]]:
     for a in g.areas:
         if len(a.coords) >= 3:
             shape = fr.to_sheet(shapely.make_valid(Polygon(a.coords)))
-            items.append((shape.boundary, 1.0))
+            items.append((shape.boundary, 0.3))
             if a.kind in KEEP_OUT and shapely.area(shape) < 400.0:  # a strip: keep it clear
                 items.append((shape, 4.0))
     for line in g.lines:
@@ -500,27 +504,26 @@ def _drawn_items(g, fr: _Frame, numbered) -> list[tuple[object, float]]:
     return items
 
 
-def _north_and_scale(fr: _Frame) -> tuple[list[str], list[tuple[object, float]]]:
-    """A north arrow (plan y up) in the frame's top right and a scale bar in its bottom left
-    (sheet mm), and their boxes for the labels to keep off."""
-    x, y = fr.left + fr.width - 5.0, fr.top + 9.0
-    out = [f'<polygon points="{_f(x)},{_f(y - 7)} {_f(x - 2)},{_f(y)} {_f(x)},{_f(y - 2)} '
-           f'{_f(x + 2)},{_f(y)}" fill="#000"/>',
-           _text(x, y + 3.2, "N", TEXT_MM, "middle", "bold")]
-    keep = [(box(x - 3, y - 8, x + 3, y + 3.6), 50.0)]
-    # a bar of 1 in on paper in four parts, labelled with its length in ft
-    length = 25.4
-    x0, y0, h = fr.left + 3.0, fr.top + fr.height - 3.0, 1.2
+def _north_and_scale(fr: _Frame) -> list[str]:
+    """The row under the frame (`SCALE_ROW_MM` tall, sheet mm): a scale bar of 1 in on paper in
+    four parts, the scale in words, and a north arrow (plan y up) at the right."""
+    length, h = 25.4, 1.2
+    x0, y0 = fr.left + 1.0, fr.top + fr.height + 4.6  # the bar's lower edge
+    out = []
     for i in range(4):
         fill = "#000" if i % 2 == 0 else "#fff"
         out.append(f'<rect x="{_f(x0 + i * length / 4)}" y="{_f(y0 - h)}" '
                    f'width="{_f(length / 4)}" height="{_f(h)}" fill="{fill}" stroke="#000" '
                    f'stroke-width="0.2"/>')
-    out.append(_text(x0, y0 - h - 0.8, "0", LEAST_TEXT_MM, "middle"))
-    out.append(_text(x0 + length, y0 - h - 0.8, f"{fr.ft_per_in:g} ft", LEAST_TEXT_MM,
-                     "middle"))
-    keep.append((box(x0 - 2, y0 - h - 0.8 - LEAST_TEXT_MM, x0 + length + 6, y0 + 0.5), 50.0))
-    return out, keep
+    out.append(_text(x0, y0 + 0.9 + 0.8 * LEAST_TEXT_MM, "0", LEAST_TEXT_MM, "middle"))
+    out.append(_text(x0 + length, y0 + 0.9 + 0.8 * LEAST_TEXT_MM, f"{fr.ft_per_in:g} ft",
+                     LEAST_TEXT_MM, "middle"))
+    out.append(_text(x0 + length + 6.0, y0, _scale_words(fr), LEAST_TEXT_MM))
+    x, y = fr.left + fr.width - 6.0, fr.top + fr.height + 8.0
+    out += [f'<polygon points="{_f(x)},{_f(y - 6.5)} {_f(x - 1.8)},{_f(y)} {_f(x)},'
+            f'{_f(y - 1.8)} {_f(x + 1.8)},{_f(y)}" fill="#000"/>',
+            _text(x + 2.8, y - 1.0, "N", TEXT_MM, weight="bold")]
+    return out
 
 
 def _scale_words(fr: _Frame) -> str:
@@ -599,24 +602,29 @@ def _area_labels(g, fr: _Frame) -> list[Label]:
     return out
 
 
-def _line_labels(g, fr: _Frame, details) -> list[Label]:
-    """Each wall line with walls standing, its name and walls, behind its middle."""
+def _detail_labels(g, fr: _Frame, details) -> list[Label]:
+    """Each detail plan's number, behind the middle of its walls (the overview's key to them)."""
+    lines = {line.name: line for line in g.lines}
+    panels = {p.mark: p for p in g.panels}
     out = []
-    number = {}
     for i, d in enumerate(details, 1):
-        number.setdefault(d.line, []).append(str(i))
-    for line in g.lines:
-        marks = [p.mark for p in g.panels if p.standing and p.line == line.name]
-        if not marks:
-            continue
-        _, (nx, ny), (mx, my) = _line_geometry(line)
-        back = fr.ft(3.0)
-        which = ", ".join(number.get(line.name, []))
-        walls = marks[0] if len(marks) == 1 else f"{marks[0]} to {marks[-1]}"
-        detail = f" (detail {which})" if which else ""
-        out.append(Label(f"line:{line.name}", f"{line.name}: {walls}{detail}", LABEL_MM,
+        _, (nx, ny), _ = _line_geometry(lines[d.line])
+        faces = [panels[m].face for m in d.marks]
+        mx = sum(a[0] + b[0] for a, b in faces) / (2 * len(faces))
+        my = sum(a[1] + b[1] for a, b in faces) / (2 * len(faces))
+        back = fr.ft(3.5)
+        out.append(Label(f"detail:{i}", f"detail {i}", LABEL_MM,
                          fr.xy(mx - nx * back, my - ny * back)))
     return out
+
+
+def _details_words(details) -> str:
+    """The detail plans in a sentence: number, line and walls."""
+    parts = []
+    for i, d in enumerate(details, 1):
+        walls = d.marks[0] if len(d.marks) == 1 else f"{d.marks[0]} to {d.marks[-1]}"
+        parts.append(f"{i}: {d.line}, {walls}")
+    return "Detail plans follow, " + "; ".join(parts) + "."
 
 
 def _labels(g, fr: _Frame, numbered, marks: list[str] | None, status, details=()) -> tuple[
@@ -626,16 +634,17 @@ def _labels(g, fr: _Frame, numbered, marks: list[str] | None, status, details=()
     lines = {line.name: line for line in g.lines}
     wanted = []
     if marks is None:
-        wanted += _line_labels(g, fr, details)
+        wanted += _detail_labels(g, fr, details)
     else:
         wanted += [_mark_label(p, lines[p.line], fr, status) for p in g.panels
                    if p.mark in marks and p.line in lines]
     wanted += _finding_labels(numbered, fr) + _area_labels(g, fr)
-    scale_items, keep = _north_and_scale(fr)
     x0, y0, x1, y1 = fr.box
-    placed = place_labels(wanted, _drawn_items(g, fr, numbered) + keep,
+    wanted = [Label(w.key, w.words, w.size, (min(max(w.at[0], x0), x1), min(max(w.at[1], y0), y1)),
+                    w.bold, w.color) for w in wanted]  # a point outside: the frame's edge
+    placed = place_labels(wanted, _drawn_items(g, fr, numbered),
                           (x0 + 0.5, y0 + 0.5, x1 - 0.5, y1 - 0.5))
-    return scale_items + _placed_items(placed), placed
+    return _north_and_scale(fr) + _placed_items(placed), placed
 
 
 # --- sheets -------------------------------------------------------------------------------------
@@ -795,21 +804,23 @@ def zone_summary(panels) -> list[str]:
     return out
 
 
-def _finding_lines(numbered, only=None) -> list[tuple[str, float, str, str]]:
-    """The numbered findings as text lines (`only`: the numbers to list; None: all)."""
+def _finding_lines(numbered, only=None, most: int = MOST_FINDINGS) -> list[
+        tuple[str, float, str, str]]:
+    """The numbered findings as text lines (`only`: the numbers to list; None: all), the
+    first `most` of them (the most severe first) and a count of the others."""
     shown = [(n, f) for n, f in numbered if only is None or n in only]
     if not shown:
         return []
     out = [(f"Findings of the plan ({len(shown)}):", TEXT_MM, "bold", "#000")]
-    for n, f in shown[:MOST_FINDINGS]:
+    for n, f in shown[:most]:
         danger = f.flag.severity == "danger"
         color = {"danger": DANGER, "warning": WARNING}.get(f.flag.severity, "#000")
         out.append((f"{n}. {f.flag.severity.upper()} {f.mark} [{f.flag.code}] "
                     f"{f.flag.message}. Source: {f.flag.source}.", LEAST_TEXT_MM,
                     "bold" if danger else "normal", color))
-    if len(shown) > MOST_FINDINGS:
-        out.append((f"... and {len(shown) - MOST_FINDINGS} more in the report", LEAST_TEXT_MM,
-                    "normal", "#000"))
+    if len(shown) > most:
+        out.append((f"... and {len(shown) - most} more: see the report and the detail plans",
+                    LEAST_TEXT_MM, "normal", "#000"))
     return out
 
 
@@ -818,7 +829,9 @@ def _day_words(g) -> str:
 
 
 def _overview_sheet(result, g, key: str) -> tuple[list[str], list[str], float]:
-    """The overview sheet: (defs, items, height in mm)."""
+    """The overview sheet, on one page (`PAGE_MM` tall at most: the plan frame takes the room
+    the texts leave, no more than `OVERVIEW_MAX_H_MM`; when the findings leave too little, the
+    fewest are listed and the rest counted): (defs, items, height in mm)."""
     numbered = _number_findings(g.findings)
     details = g.details()
     name = getattr(result, "name", "")
@@ -829,27 +842,32 @@ def _overview_sheet(result, g, key: str) -> tuple[list[str], list[str], float]:
          LEAST_TEXT_MM, "normal", "#000")], PAD_MM)
     caution, y = _caution_box(getattr(result, "caution", ""), y + 1.5)
     items += caution
+
+    def tail(top: float, most: int) -> tuple[list[str], float]:
+        words = [_details_words(details)] if details else []
+        out, yy = _lines_block([(w, LEAST_TEXT_MM, "normal", "#000") for w in words],
+                               top + SCALE_ROW_MM)
+        legend, yy = _legend(_legend_items(g.panels, g.areas), yy + 1.0, key + "L")
+        more, yy = _lines_block([(s, LEAST_TEXT_MM, "normal", "#000")
+                                 for s in zone_summary(g.panels)]
+                                + _finding_lines(numbered, most=most), yy + 0.5)
+        return out + legend + more, yy + PAD_MM
+
+    most = MOST_FINDINGS
+    while most > 0 and PAGE_MM - (y + 1.5) - tail(0.0, most)[1] < LEAST_PLAN_MM:
+        most -= 1
+    room = max(PAGE_MM - (y + 1.5) - tail(0.0, most)[1], LEAST_PLAN_MM)
     fr = _Frame(_frame_window(g.bounds, 0.04 * max(g.bounds[2] - g.bounds[0],
                                                    g.bounds[3] - g.bounds[1], 10.0)),
-                y + 1.5, OVERVIEW_MAX_H_MM, key)
+                y + 1.5, min(OVERVIEW_MAX_H_MM, room), key)
     widths = [p.width_ft for p in g.panels if p.standing]
     one_by_one = bool(widths) and min(widths) * fr.k >= 1.3 * max(
         text_width(m, MARK_MM, True) for m in standing)
     labels, _ = _labels(g, fr, numbered, standing if one_by_one else None, _status_of(result),
                         details)
     items += _plan_layers(g, fr, numbered) + labels
-    y = fr.top + fr.height
-    words = [_scale_words(fr)]
-    if details and not one_by_one:
-        words.append(f"Walls by line; {len(details)} detail plans follow, one per wall line "
-                     "or stretch of it.")
-    more, y = _lines_block([(" ".join(words), LEAST_TEXT_MM, "normal", "#000")], y + 0.5)
-    items += more
-    legend, y = _legend(_legend_items(g.panels, g.areas), y + 1.0, key + "L")
-    items += legend
-    more, y = _lines_block([(s, LEAST_TEXT_MM, "normal", "#000") for s in zone_summary(g.panels)]
-                           + _finding_lines(numbered), y + 0.5)
-    return _defs(fr) + _hatch_defs(key + "L", 1.2, 0.25), items + more, y + PAD_MM
+    more, y = tail(fr.top + fr.height, most)
+    return _defs(fr) + _hatch_defs(key + "L", 1.2, 0.25), items + more, y
 
 
 def _detail_sheet(result, g, d, i: int, n: int, key: str, standalone: bool) -> tuple[
@@ -870,9 +888,8 @@ def _detail_sheet(result, g, d, i: int, n: int, key: str, standalone: bool) -> t
     shown = [p for p in g.panels if p.mark in d.marks]
     areas = [a for a in g.areas if shapely.intersects(
         shapely.make_valid(Polygon(a.coords)), box(*fr.window))] if g.areas else []
-    more, y = _lines_block([(f"{_scale_words(fr)}. Walls on this detail: "
-                             f"{', '.join(d.marks)}.", LEAST_TEXT_MM, "normal", "#000")],
-                           y + 0.5)
+    more, y = _lines_block([(f"Walls on this detail: {', '.join(d.marks)}.", LEAST_TEXT_MM,
+                             "normal", "#000")], y + SCALE_ROW_MM)
     items += more
     legend, y = _legend(_legend_items(shown, areas), y + 1.0, key + "L")
     items += legend
@@ -1046,9 +1063,10 @@ def elevation_svg(panel_result, elevation=None, standalone: bool = False) -> str
         items.append(f'<path d="M {_f(x1)},{_f(y1)} l {_f(ow * k)},{_f(oh * k)} m 0,'
                      f'{_f(-oh * k)} l {_f(-ow * k)},{_f(oh * k)}" stroke="#888" '
                      'stroke-width="0.2"/>')
-    items.append(_text(x0, top - 1.0, f"◀ {e.left_edge}", LEAST_TEXT_MM, weight="bold"))
-    items.append(_text(x0 + w * k, top - 1.0, f"{e.right_edge} ▶", LEAST_TEXT_MM, "end",
-                       "bold"))
+    items.append(_text(x0, top - 1.0, e.left_edge, LEAST_TEXT_MM, weight="bold",
+                       extra=' class="edge"'))
+    items.append(_text(x0 + w * k, top - 1.0, e.right_edge, LEAST_TEXT_MM, "end", "bold",
+                       extra=' class="edge"'))
     # overall height at the right
     xr = x0 + w * k + 3.0
     items += _dim_v_mm(xr + 8.0, base, top, f"{h:g} ft", "wall")
