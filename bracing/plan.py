@@ -8,7 +8,7 @@ side and each brace foot sits `anchor_distance` out from the face, square to the
 `plan_geometry` gathers what a view draws (plain coordinate lists) and the findings: slab anchors
 off the slab or too near its edge, a hole or a joint; ground anchors off open ground; braces
 crossing each other, a wall or an area kept clear; zones over occupied areas, the public way, a
-neighbour or the crane path.
+neighbor or the crane path.
 """
 
 from __future__ import annotations
@@ -35,7 +35,7 @@ GROUND_KINDS = ("helical", "deadman", "stake")
 # A brace or its foot inside an area of each kind ('work' areas are not kept clear of braces).
 BRACE_IN_AREA = {"keep_clear": "danger", "crane_path": "danger", "public_way": "danger",
                  "neighbour": "danger", "neighbor": "danger", "office": "warning"}
-# A zone over an area of each kind (design.md §7: occupied areas, the public way, neighbours).
+# A zone over an area of each kind (design.md §7: occupied areas, the public way, neighbors).
 ZONE_OVER_AREA = {"public_way": "danger", "neighbour": "danger", "neighbor": "danger",
                   "office": "warning",
                   "work": "warning", "crane_path": "warning", "keep_clear": "notice"}
@@ -414,7 +414,7 @@ def _brace_table(places: Places, bracing: _Bracing) -> _Braces:
     wall = np.repeat(bracing.walls[bracing.braced], count)
     first = np.repeat(np.cumsum(count) - count, count)
     number = np.arange(len(wall)) - first + 1
-    # the centres of equal strips (braces.default_positions), or the positions given
+    # the centers of equal strips (braces.default_positions), or the positions given
     along = (number - 0.5) * places.width_ft[wall] / count.repeat(count)
     along[bracing.given.repeat(count)] = bracing.positions
     insert = np.stack([places.origin[wall, i] + along * places.direction[wall, i]

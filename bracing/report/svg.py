@@ -7,10 +7,10 @@ and shapely (to find free room for labels) are used. Colors and symbols are our 
 choices; every failing item also carries a cross, a number and the word DANGER, never color
 alone. Plan y points north.
 
-The plan sheets are laid out in millimetres for print: every sheet is `SHEET_MM` wide (the
+The plan sheets are laid out in millimeters for print: every sheet is `SHEET_MM` wide (the
 printable width of letter and of A4 portrait paper with 13 mm margins), so a font size in the
 drawing is its size on paper. The plan itself is drawn in feet inside a scaled group, at a
-standard engineering scale (1 in = 10, 20, 30, ... ft). Labels are set in sheet millimetres by
+standard engineering scale (1 in = 10, 20, 30, ... ft). Labels are set in sheet millimeters by
 `place_labels`, clear of each other and of the drawing where there is room.
 
 For the crew sheet (each function's docstring says more):
