@@ -230,3 +230,14 @@ def test_elevation_svg_shows_the_edge_the_positions_and_the_insert_height():
 def test_elevations_of_a_day_are_given_by_mark(townhouse):
     drawn = svg.elevation_svgs(townhouse, 2)
     assert "L1-F11" in drawn and "west end" in drawn["L1-F11"]
+
+
+def test_tilt_up_day_5_details_are_at_1_in_30_ft(tilt_up):
+    """Hand-worked: a stretch of the 300 ft lines is about 150 ft, 162 ft with the 6 ft margins;
+    at 1 in = 20 ft the 186 mm frame holds 186 / 25.4 x 20 = 146 ft (too short), at 30 ft 220 ft.
+    The zones reach 59 ft out and 37 ft behind: 108 ft tall, 108 x 25.4 / 30 = 91 mm (within
+    the 120 mm of a detail). The end walls' stretches (about 112 ft, 124 ft with margins) are
+    124 ft tall on paper at 20 ft (157 mm, over 120 mm): 30 ft too."""
+    for _, document in svg.detail_svgs(tilt_up, 5):
+        words = " ".join(t.text or "" for t in root_of(document).iter(f"{NS}text"))
+        assert "Scale 1 in = 30 ft printed 190 mm wide" in words

@@ -564,15 +564,16 @@ def _status_of(result) -> dict[str, str]:
     return {p.mark: p.status for p in getattr(result, "panels", [])}
 
 
-def _mark_label(p, line, fr: _Frame, status: dict[str, str]) -> Label:
-    """A wall's mark (and its status when failing), its point just behind the wall's middle."""
+def _mark_label(p, line, fr: _Frame, status: dict[str, str], own: bool = True) -> Label:
+    """A wall's mark (and its status when failing), its point just behind the wall's middle;
+    a wall that is not `own` (a neighbor on a detail of other walls) in grey."""
     _, (nx, ny), _ = _line_geometry(line)
     (x0, y0), (x1, y1) = p.face
     back = 1.0 + fr.ft(2.0)  # behind the footprint, away from the braces
     mx, my = (x0 + x1) / 2 - nx * back, (y0 + y1) / 2 - ny * back
     word = STATUS_WORDS.get(status.get(p.mark, ""), "")
     return Label(f"mark:{p.mark}", f"{p.mark} {word}".strip(), MARK_MM, fr.xy(mx, my),
-                 color=DANGER if word else "#000")
+                 color=(DANGER if word else "#000") if own else "#707070")
 
 
 def _finding_labels(numbered, fr: _Frame) -> list[Label]:
@@ -627,17 +628,18 @@ def _details_words(details) -> str:
     return "Detail plans follow, " + "; ".join(parts) + "."
 
 
-def _labels(g, fr: _Frame, numbered, marks: list[str] | None, status, details=()) -> tuple[
-        list[str], list[Placed | None]]:
+def _labels(g, fr: _Frame, numbered, marks: list[str] | None, status, details=(),
+            own=None) -> tuple[list[str], list[Placed | None]]:
     """The frame's labels placed clear of each other and of the drawing: wall marks (`marks`;
-    None: the wall lines instead), finding numbers, then area names."""
+    None: the detail plans' numbers instead; `own`: the marks drawn in black, None: all),
+    finding numbers, then area names."""
     lines = {line.name: line for line in g.lines}
     wanted = []
     if marks is None:
         wanted += _detail_labels(g, fr, details)
     else:
-        wanted += [_mark_label(p, lines[p.line], fr, status) for p in g.panels
-                   if p.mark in marks and p.line in lines]
+        wanted += [_mark_label(p, lines[p.line], fr, status, own is None or p.mark in own)
+                   for p in g.panels if p.mark in marks and p.line in lines]
     wanted += _finding_labels(numbered, fr) + _area_labels(g, fr)
     x0, y0, x1, y1 = fr.box
     wanted = [Label(w.key, w.words, w.size, (min(max(w.at[0], x0), x1), min(max(w.at[1], y0), y1)),
@@ -880,7 +882,8 @@ def _detail_sheet(result, g, d, i: int, n: int, key: str, standalone: bool) -> t
         (f"Detail {i} of {n}, {_day_words(g)}: {d.line}{stretch}, walls {walls}", TITLE_MM,
          "bold", "#000")], PAD_MM)
     fr = _Frame(_frame_window(d.bounds, 6.0), y + 1.5, DETAIL_MAX_H_MM, key)
-    labels, _ = _labels(g, fr, numbered, _marks_in(g, fr), _status_of(result))
+    labels, _ = _labels(g, fr, numbered, _marks_in(g, fr), _status_of(result),
+                        own=set(d.marks))
     items += _plan_layers(g, fr, numbered) + labels
     y = fr.top + fr.height
     inside = {m for m, f in numbered if any(_in_window(pt, fr.window) for pt in f.at)
