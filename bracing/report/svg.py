@@ -1009,14 +1009,25 @@ def _document(x, y, w, h, defs: list[str], items: list[str], caution: str,
 
 # --- a wall in elevation --------------------------------------------------------------------------
 def elevation_svgs(result, day: int | None = None, standalone: bool = False) -> dict[str, str]:
-    """The elevation (`elevation_svg`) of every braced wall standing on a day (None: the
-    busiest), by mark, in the plan's order."""
+    """The elevation (`elevation_svg`) of every braced wall standing on a day, by mark: in the
+    plan's order, from the day's plan (None: the busiest day's); a wall on no wall line, or a
+    site without a plan, from its result alone (measured from the panel's first edge)."""
     g = pick_plan(getattr(result, "plan", None), day)
-    if g is None:
-        return {}
+    placed = {p.mark: p for p in g.panels} if g is not None else {}
+    if g is not None:
+        standing = g.standing
+    else:
+        days = [d for d in getattr(result, "days", []) if day is None or d.day == day]
+        standing = [m for d in days for m in d.standing] if days else [
+            p.mark for p in getattr(result, "panels", [])]
     by_mark = {p.mark: p for p in getattr(result, "panels", [])}
-    return {p.mark: elevation_svg(by_mark[p.mark], p.elevation, standalone)
-            for p in g.panels if p.standing and p.braces and p.mark in by_mark}
+    out = {}
+    for mark in dict.fromkeys(standing):
+        p = by_mark.get(mark)
+        if p is not None and p.braces:
+            e = placed[mark].elevation if mark in placed else None
+            out[mark] = elevation_svg(p, e, standalone)
+    return out
 
 
 def _elevation_of_result(panel_result):
