@@ -156,6 +156,6 @@ def test_elevation_of_a_wall_on_no_line_measures_from_its_first_edge():
         "count": 2, "insert_height_ft": 20.0, "anchor_distance_ft": 14.0,
         "positions_ft": [5.0, 15.0]}))
     words = texts(document)
-    for piece in ("first edge (as in the site file)", "5.00 ft", "15.00 ft", "insert 20 ft",
+    for piece in ("first edge", "5.00 ft", "15.00 ft", "insert 20 ft",
                   "wall 20 ft"):
         assert piece in words, piece

@@ -1035,8 +1035,7 @@ def _elevation_of_result(panel_result):
     from the panel's first edge as the site file gives them."""
     b = panel_result.braces or {}
     return Elevation(width_ft=panel_result.width_ft, height_ft=panel_result.height_ft,
-                     left_edge="first edge (as in the site file)",
-                     right_edge="last edge", openings=[],
+                     left_edge="first edge", right_edge="last edge", openings=[],
                      braces_from_left_ft=list(b.get("positions_ft") or []),
                      insert_height_ft=b.get("insert_height_ft"), first_edge_left=True)
 
@@ -1058,8 +1057,10 @@ def elevation_svg(panel_result, elevation=None, standalone: bool = False) -> str
     k = min((ELEVATION_MM - left_mm - right_mm) / w, 60.0 / h)  # mm per ft
     title, y = _lines_block([(f"{p.mark}: elevation, looking at the braced face", TEXT_MM,
                               "bold", "#000")], 1.5, 1.5, ELEVATION_MM - 3.0)
-    top = y + 4.0
     x0 = left_mm + (ELEVATION_MM - left_mm - right_mm - w * k) / 2
+    stacked = (text_width(e.left_edge, LEAST_TEXT_MM, True)
+               + text_width(e.right_edge, LEAST_TEXT_MM, True) + 2.0 > w * k)
+    top = y + 4.0 + (1.3 * LEAST_TEXT_MM if stacked else 0.0)
 
     def at(x: float, z: float) -> tuple[float, float]:
         return x0 + x * k, top + (h - z) * k
@@ -1077,8 +1078,8 @@ def elevation_svg(panel_result, elevation=None, standalone: bool = False) -> str
         items.append(f'<path d="M {_f(x1)},{_f(y1)} l {_f(ow * k)},{_f(oh * k)} m 0,'
                      f'{_f(-oh * k)} l {_f(-ow * k)},{_f(oh * k)}" stroke="#888" '
                      'stroke-width="0.2"/>')
-    items.append(_text(x0, top - 1.0, e.left_edge, LEAST_TEXT_MM, weight="bold",
-                       extra=' class="edge"'))
+    items.append(_text(x0, top - 1.0 - (1.3 * LEAST_TEXT_MM if stacked else 0.0), e.left_edge,
+                       LEAST_TEXT_MM, weight="bold", extra=' class="edge"'))
     items.append(_text(x0 + w * k, top - 1.0, e.right_edge, LEAST_TEXT_MM, "end", "bold",
                        extra=' class="edge"'))
     # overall height at the right
@@ -1110,6 +1111,9 @@ def elevation_svg(panel_result, elevation=None, standalone: bool = False) -> str
     note = (f"Insert points (dots) measured from the {e.left_edge} (left, looking at the "
             f"braced face), {hb:g} ft above the base." if hb is not None and xs
             else f"Left edge: {e.left_edge}, looking at the braced face.")
+    if elevation is None:
+        note += (" The wall stands on no wall line: its first edge is the one the site file "
+                 "measures brace positions from.")
     more, y = _lines_block([(note, LEAST_TEXT_MM, "normal", "#000")], y, 1.5,
                            ELEVATION_MM - 3.0)
     items += more
