@@ -241,3 +241,13 @@ def test_tilt_up_day_5_details_are_at_1_in_30_ft(tilt_up):
     for _, document in svg.detail_svgs(tilt_up, 5):
         words = " ".join(t.text or "" for t in root_of(document).iter(f"{NS}text"))
         assert "Scale 1 in = 30 ft printed 190 mm wide" in words
+
+
+def test_a_label_with_no_room_is_named_under_the_plan(monkeypatch, townhouse):
+    """When the placer finds no room for a label, the sheet says which under the plan (the
+    placer is replaced by one that finds room for none)."""
+    monkeypatch.setattr(svg, "place_labels", lambda labels, drawn, frame: [None] * len(labels))
+    [(d, document)] = [x for x in svg.detail_svgs(townhouse, 2) if "L1-F11" in x[0].marks]
+    words = " ".join(t.text or "" for t in root_of(document).iter(f"{NS}text"))
+    assert "Not labelled on the plan for want of room:" in words
+    assert "L1-F11 UNSAFE" in words

@@ -629,10 +629,10 @@ def _details_words(details) -> str:
 
 
 def _labels(g, fr: _Frame, numbered, marks: list[str] | None, status, details=(),
-            own=None) -> tuple[list[str], list[Placed | None]]:
+            own=None) -> tuple[list[str], list[str]]:
     """The frame's labels placed clear of each other and of the drawing: wall marks (`marks`;
     None: the detail plans' numbers instead; `own`: the marks drawn in black, None: all),
-    finding numbers, then area names."""
+    finding numbers, then area names: (SVG items, the words of labels that found no room)."""
     lines = {line.name: line for line in g.lines}
     wanted = []
     if marks is None:
@@ -646,7 +646,14 @@ def _labels(g, fr: _Frame, numbered, marks: list[str] | None, status, details=()
                     w.bold, w.color) for w in wanted]  # a point outside: the frame's edge
     placed = place_labels(wanted, _drawn_items(g, fr, numbered),
                           (x0 + 0.5, y0 + 0.5, x1 - 0.5, y1 - 0.5))
-    return _north_and_scale(fr) + _placed_items(placed), placed
+    missing = [w.words for w, p in zip(wanted, placed) if p is None]
+    return _north_and_scale(fr) + _placed_items(placed), missing
+
+
+def _unplaced_words(missing: list[str]) -> str:
+    """A sentence naming the labels that found no room on the plan (none: empty)."""
+    return "" if not missing else (" Not labelled on the plan for want of room: "
+                                   + ", ".join(missing) + ".")
 
 
 # --- sheets -------------------------------------------------------------------------------------
@@ -865,10 +872,15 @@ def _overview_sheet(result, g, key: str) -> tuple[list[str], list[str], float]:
     widths = [p.width_ft for p in g.panels if p.standing]
     one_by_one = bool(widths) and min(widths) * fr.k >= 1.3 * max(
         text_width(m, MARK_MM, True) for m in standing)
-    labels, _ = _labels(g, fr, numbered, standing if one_by_one else None, _status_of(result),
-                        details)
+    labels, placed = _labels(g, fr, numbered, standing if one_by_one else None,
+                             _status_of(result), details)
     items += _plan_layers(g, fr, numbered) + labels
     more, y = tail(fr.top + fr.height, most)
+    unplaced = _unplaced_words(placed).strip()
+    if unplaced:
+        text, y = _lines_block([(unplaced, LEAST_TEXT_MM, "normal", "#000")], y - PAD_MM)
+        more += text
+        y += PAD_MM
     return _defs(fr) + _hatch_defs(key + "L", 1.2, 0.25), items + more, y
 
 
@@ -882,8 +894,8 @@ def _detail_sheet(result, g, d, i: int, n: int, key: str, standalone: bool) -> t
         (f"Detail {i} of {n}, {_day_words(g)}: {d.line}{stretch}, walls {walls}", TITLE_MM,
          "bold", "#000")], PAD_MM)
     fr = _Frame(_frame_window(d.bounds, 6.0), y + 1.5, DETAIL_MAX_H_MM, key)
-    labels, _ = _labels(g, fr, numbered, _marks_in(g, fr), _status_of(result),
-                        own=set(d.marks))
+    labels, placed = _labels(g, fr, numbered, _marks_in(g, fr), _status_of(result),
+                             own=set(d.marks))
     items += _plan_layers(g, fr, numbered) + labels
     y = fr.top + fr.height
     inside = {m for m, f in numbered if any(_in_window(pt, fr.window) for pt in f.at)
@@ -891,8 +903,9 @@ def _detail_sheet(result, g, d, i: int, n: int, key: str, standalone: bool) -> t
     shown = [p for p in g.panels if p.mark in d.marks]
     areas = [a for a in g.areas if shapely.intersects(
         shapely.make_valid(Polygon(a.coords)), box(*fr.window))] if g.areas else []
-    more, y = _lines_block([(f"Walls on this detail: {', '.join(d.marks)}.", LEAST_TEXT_MM,
-                             "normal", "#000")], y + SCALE_ROW_MM)
+    more, y = _lines_block([(f"Walls on this detail: {', '.join(d.marks)}."
+                             + _unplaced_words(placed), LEAST_TEXT_MM, "normal", "#000")],
+                           y + SCALE_ROW_MM)
     items += more
     legend, y = _legend(_legend_items(shown, areas), y + 1.0, key + "L")
     items += legend
