@@ -247,7 +247,7 @@ def test_a_label_with_no_room_is_named_under_the_plan(monkeypatch, townhouse):
     """When the placer finds no room for a label, the sheet says which under the plan (the
     placer is replaced by one that finds room for none)."""
     monkeypatch.setattr(svg, "place_labels", lambda labels, drawn, frame: [None] * len(labels))
-    [(d, document)] = [x for x in svg.detail_svgs(townhouse, 2) if "L1-F11" in x[0].marks]
+    [(_, document)] = [x for x in svg.detail_svgs(townhouse, 2) if "L1-F11" in x[0].marks]
     words = " ".join(t.text or "" for t in root_of(document).iter(f"{NS}text"))
     assert "Not labelled on the plan for want of room:" in words
     assert "L1-F11 UNSAFE" in words

@@ -36,8 +36,6 @@ from bracing.plan import Elevation
 from bracing.results import CAUTION
 
 PX_WIDTH = 1000  # width on screen (px) of the drawings not laid out in mm
-CHAR = 0.6       # mean character width / font size, for wrapping (bold: BOLD_CHAR)
-BOLD_CHAR = 0.66
 SECTION_PX_WIDTH = 360
 FONT = "DejaVu Sans, Arial, Helvetica, sans-serif"
 
@@ -84,11 +82,6 @@ def _f(v: float) -> str:
     """A coordinate for SVG, to 1/1000 of its unit."""
     s = f"{v:.3f}".rstrip("0").rstrip(".")
     return "0" if s in ("-0", "") else s
-
-
-def _pts(coords) -> str:
-    """Points for the drawings in screen y (y down): plan y turned over."""
-    return " ".join(f"{_f(x)},{_f(-y)}" for x, y in coords)
 
 
 def _plan_pts(coords) -> str:
