@@ -251,3 +251,16 @@ def test_a_label_with_no_room_is_named_under_the_plan(monkeypatch, townhouse):
     words = " ".join(t.text or "" for t in root_of(document).iter(f"{NS}text"))
     assert "Not labelled on the plan for want of room:" in words
     assert "L1-F11 UNSAFE" in words
+
+
+def test_drawings_of_two_days_share_no_ids(townhouse):
+    """A crew sheet inlines the drawings of many days in one HTML page: a clip path or pattern
+    id used by two different drawings would draw one day's plan with another's clip."""
+    def ids(document):
+        return {e.get("id") for e in root_of(document).iter() if e.get("id")}
+
+    one = ids(svg.overview_svg(townhouse, 1)) | {i for _, s in svg.detail_svgs(townhouse, 1)
+                                                 for i in ids(s)}
+    two = ids(svg.overview_svg(townhouse, 2)) | {i for _, s in svg.detail_svgs(townhouse, 2)
+                                                 for i in ids(s)}
+    assert one and two and not one & two
