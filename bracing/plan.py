@@ -8,7 +8,7 @@ side and each brace foot sits `anchor_distance` out from the face, square to the
 `plan_geometry` gathers what a view draws (plain coordinate lists) and the findings: slab anchors
 off the slab or too near its edge, a hole or a joint; ground anchors off open ground; braces
 crossing each other, a wall or an area kept clear; zones over occupied areas, the public way, a
-neighbour or the crane path.
+neighbor or the crane path.
 """
 
 from __future__ import annotations
@@ -27,17 +27,21 @@ from bracing.model import Bracing, Site, read_panels
 from bracing.results import Flag
 
 IN_PER_FT = 12.0
+DETAIL_LONGEST_FT = 200.0  # longest run of walls on one detail plan (about 1 in = 30 ft on letter)
+COMPASS = ("east", "northeast", "north", "northwest", "west", "southwest", "south", "southeast")
 TOLERANCE_FT = 1e-6  # a point on a boundary counts as on it
 GROUND_KINDS = ("helical", "deadman", "stake")
 
 # A brace or its foot inside an area of each kind ('work' areas are not kept clear of braces).
 BRACE_IN_AREA = {"keep_clear": "danger", "crane_path": "danger", "public_way": "danger",
-                 "neighbour": "danger", "office": "warning"}
-# A zone over an area of each kind (design.md §7: occupied areas, the public way, neighbours).
-ZONE_OVER_AREA = {"public_way": "danger", "neighbour": "danger", "office": "warning",
+                 "neighbour": "danger", "neighbor": "danger", "office": "warning"}
+# A zone over an area of each kind (design.md §7: occupied areas, the public way, neighbors).
+ZONE_OVER_AREA = {"public_way": "danger", "neighbour": "danger", "neighbor": "danger",
+                  "office": "warning",
                   "work": "warning", "crane_path": "warning", "keep_clear": "notice"}
 AREA_WORDS = {"keep_clear": "keep-clear area", "crane_path": "crane path",
-              "public_way": "public way", "neighbour": "neighbour", "office": "site office",
+              "public_way": "public way", "neighbour": "neighbor", "neighbor": "neighbor",
+              "office": "site office",
               "work": "work area"}
 
 Point = tuple[float, float]
@@ -103,6 +107,41 @@ class PlanPanel:
     restricted_zone: Coords
     evacuated_zone: Coords
     zone_basis: str  # the zone's reach on each side and its source
+    zone_front_ft: float = 0.0  # the zone's reach out from the braced face
+    zone_back_ft: float = 0.0   # and back from it, behind the wall
+    zone_rule: str = ""         # the zone's rule, without this wall's numbers (for legends)
+    zone_name: str = ""         # "limited access zone" (masonry) or "restricted zone"
+    offset_ft: float = 0.0      # first edge from the start of its line
+    width_ft: float = 0.0
+    elevation: Elevation | None = None
+
+
+@dataclass(slots=True)
+class Elevation:
+    """A wall seen square to its braced face, as the crew sees it when setting the braces (ft):
+    x from the edge on the viewer's left, y up from the wall's base."""
+
+    width_ft: float
+    height_ft: float
+    left_edge: str   # that edge in words: "west end", by the compass of the plan
+    right_edge: str
+    openings: list[tuple[float, float, float, float]]  # x, y of the lower left corner, w, h
+    braces_from_left_ft: list[float]  # each brace's insert from the left edge, in brace order
+    insert_height_ft: float | None    # above the wall's base (None: no braces)
+    first_edge_left: bool  # whether the panel's first edge (its offset's end) is on the left
+
+
+@dataclass(slots=True)
+class Detail:
+    """A part of the plan drawn at a larger scale: the walls standing on one wall line, or on a
+    stretch of it when the line is long, with the window (plan ft) that holds their footprints,
+    braces and zones."""
+
+    line: str
+    marks: list[str]  # in order along the line
+    bounds: tuple[float, float, float, float]  # min x, min y, max x, max y
+    part: int = 1     # which stretch of the line (1 when the line is drawn whole)
+    parts: int = 1
 
 
 @dataclass(slots=True)
@@ -133,6 +172,34 @@ class PlanGeometry:
     @property
     def standing(self) -> list[str]:
         return [p.mark for p in self.panels if p.standing]
+
+    def details(self, longest_ft: float | None = None) -> list[Detail]:
+        """The detail plans of the day: the walls standing on each wall line, in line order,
+        a line whose walls run longer than `longest_ft` (default DETAIL_LONGEST_FT) cut into
+        stretches of about equal length at the walls' joints."""
+        longest_ft = DETAIL_LONGEST_FT if longest_ft is None else longest_ft
+        out = []
+        for line in self.lines:
+            walls = sorted((p for p in self.panels if p.standing and p.line == line.name),
+                           key=lambda p: p.offset_ft)
+            if not walls:
+                continue
+            run = walls[-1].offset_ft + walls[-1].width_ft - walls[0].offset_ft
+            parts = max(1, int(np.ceil(run / longest_ft - 1e-9)))
+            cut = [walls[0].offset_ft + run * k / parts for k in range(1, parts)]
+            groups = [[] for _ in range(parts)]
+            for p in walls:  # each wall in the stretch that holds its middle
+                groups[int(np.searchsorted(cut, p.offset_ft + p.width_ft / 2))].append(p)
+            groups = [g for g in groups if g]
+            for k, group in enumerate(groups, 1):
+                pts = [q for p in group for q in (*p.footprint, *p.restricted_zone,
+                                                  *(x for b in p.braces for x in b))]
+                xy = np.array(pts, dtype=float)
+                lo, hi = xy.min(axis=0), xy.max(axis=0)
+                out.append(Detail(line.name, [p.mark for p in group],
+                                  (float(lo[0]), float(lo[1]), float(hi[0]), float(hi[1])),
+                                  k, len(groups)))
+        return out
 
 
 # --- placing walls and braces -------------------------------------------------------------------
@@ -347,7 +414,7 @@ def _brace_table(places: Places, bracing: _Bracing) -> _Braces:
     wall = np.repeat(bracing.walls[bracing.braced], count)
     first = np.repeat(np.cumsum(count) - count, count)
     number = np.arange(len(wall)) - first + 1
-    # the centres of equal strips (braces.default_positions), or the positions given
+    # the centers of equal strips (braces.default_positions), or the positions given
     along = (number - 0.5) * places.width_ft[wall] / count.repeat(count)
     along[bracing.given.repeat(count)] = bracing.positions
     insert = np.stack([places.origin[wall, i] + along * places.direction[wall, i]
@@ -525,7 +592,13 @@ def zone_reach(site: Site, places: Places, heights: dict[str, float] | None = No
 def _zone_reach(site: Site, places: Places, bracing: _Bracing,
                 heights: dict[str, float] | None) -> dict[str, tuple[float, float, str]]:
     """`zone_reach` of the walls of `bracing`."""
-    h, masonry, front, back = _zone_reach_ft(site, places, bracing, heights)
+    return _reach_words(site, places, bracing, _zone_reach_ft(site, places, bracing, heights))
+
+
+def _reach_words(site: Site, places: Places, bracing: _Bracing,
+                 reach_ft) -> dict[str, tuple[float, float, str]]:
+    """`zone_reach` from the heights, masonry flags and reaches of `_zone_reach_ft`."""
+    h, masonry, front, back = reach_ft
     rows = bracing.walls
     extra = site.rule_value("masonry_zone_extra_ft")
     source = site.rule("masonry_zone_extra_ft").source
@@ -539,6 +612,16 @@ def _zone_reach(site: Site, places: Places, bracing: _Bracing,
             out[mark] = (f, b, f"{f:.1f} ft on the braced side (height + brace footprint), "
                                f"{hh:.1f} ft behind (height) (common practice)")
     return out
+
+
+def zone_rule(site: Site, masonry: bool) -> str:
+    """The zone rule of a masonry wall or of another wall in words, without one wall's numbers
+    (a legend's summary; `zone_reach` gives each wall's)."""
+    if masonry:
+        return (f"wall height + {site.rule_value('masonry_zone_extra_ft'):g} ft on the braced "
+                f"(unscaffolded) side ({site.rule('masonry_zone_extra_ft').source})")
+    return ("height + brace footprint on the braced side, the height behind the wall "
+            "(common practice)")
 
 
 def _zone_corners(site: Site, places: Places, bracing: _Bracing,
@@ -620,7 +703,7 @@ def _slab_anchor_findings(site: Site, t: _Braces, slab_feet: _SlabFeet) -> list[
     if slab is None:
         return [PlanFinding(m, Flag(
             "anchor-not-located", "notice", "the plan has no slab outline: the slab anchors' "
-            "positions and edge distances are not checked", "design.md §7"), [])
+            "positions and edge distances are not checked", "method notes §6"), [])
             for m in dict.fromkeys(marks)]
     feet, on, which = t.foot[sel], slab_feet.on, slab_feet.edge
     in_hole = _covered(slab.holes, feet) if not slab.holes.is_empty else np.zeros_like(on)
@@ -638,7 +721,7 @@ def _slab_anchor_findings(site: Site, t: _Braces, slab_feet: _SlabFeet) -> list[
         found.append(PlanFinding(mark, Flag(
             "anchor-off-slab", "danger", f"slab anchor at {_numbers(t, sel[rows])} {where}, "
             f"as at {_xy(feet[rows[0]])}: no concrete to hold it",
-            "ACI 318-19 Ch. 17 (an anchor in concrete); design.md §7"),
+            "ACI 318-19 Ch. 17 (an anchor in concrete); method notes §6"),
             [tuple(p) for p in feet[rows]]))
     for mark, rows in _by_mark(marks, on & (dist_in < need_in - TOLERANCE_FT)).items():
         k = rows[np.argmin(dist_in[rows])]
@@ -666,7 +749,7 @@ def _ground_anchor_findings(site: Site, t: _Braces, slab: _Slab | None) -> list[
     drawn = (ground is not None) | (deadman & (slab is not None))
     found = [PlanFinding(mark, Flag(
         "anchor-not-located", "notice", f"the plan has no open ground: the {kinds[rows[0]]} "
-        "anchors' positions are not checked", "design.md §7"), [])
+        "anchors' positions are not checked", "method notes §6"), [])
         for mark, rows in _by_mark(marks, ~drawn).items()]
     for mark, rows in _by_mark(marks, drawn & ~(on_ground | (deadman & on_slab))).items():
         kind = kinds[rows[0]]
@@ -674,7 +757,7 @@ def _ground_anchor_findings(site: Site, t: _Braces, slab: _Slab | None) -> list[
         found.append(PlanFinding(mark, Flag(
             "ground-anchor-off-ground", "danger", f"{kind} anchor at {_numbers(t, sel[rows])} "
             f"not {where}, as at {_xy(feet[rows[0]])}",
-            "design.md §7 (ground anchors go in open ground)"), [tuple(p) for p in feet[rows]]))
+            "method notes §6 (ground anchors go in open ground)"), [tuple(p) for p in feet[rows]]))
     return found
 
 
@@ -758,7 +841,7 @@ def _brace_crossings(t: _Braces, reach: _Reach) -> list[PlanFinding]:
                 "braces-cross", "danger", f"brace {t.number[me]} crosses brace "
                 f"{t.number[other]} of {t.mark[other]} at {_xy(xy)}, {h_me:.1f} ft and "
                 f"{h_other:.1f} ft above the slab there: one cannot be set as drawn",
-                "common practice (design.md §7)"), [xy], (str(t.mark[other]),)))
+                "common practice (method notes §6)"), [xy], (str(t.mark[other]),)))
     return found
 
 
@@ -776,7 +859,7 @@ def _braces_through_walls(t: _Braces, places: Places, reach: _Reach) -> list[Pla
         wall = places.mark[k]
         found.append(PlanFinding(t.mark[i], Flag(
             "brace-crosses-wall", "danger", f"brace {t.number[i]} runs through wall "
-            f"{wall} at {_xy((pt.x, pt.y))}", "design.md §7"), [(pt.x, pt.y)], (str(wall),)))
+            f"{wall} at {_xy((pt.x, pt.y))}", "method notes §6"), [(pt.x, pt.y)], (str(wall),)))
     return found
 
 
@@ -800,7 +883,7 @@ def _braces_in_areas(site: Site, t: _Braces, reach: _Reach) -> list[PlanFinding]
                for r in mine]
         found.append(PlanFinding(mark, Flag(
             "brace-crosses-keep-clear", BRACE_IN_AREA[a.kind], f"{_numbers(t, rows[mine])} "
-            f"enters the {AREA_WORDS[a.kind]} '{a.name}'", "site plan areas (design.md §7)"),
+            f"enters the {AREA_WORDS[a.kind]} '{a.name}'", "site plan areas (method notes §6)"),
             [(p.x, p.y) for p in pts]))
     return found
 
@@ -831,9 +914,9 @@ def _zone_overlaps(site: Site, places: Places, rows: np.ndarray,
         pt = shapely.point_on_surface(part)
         found.append(PlanFinding(mark, Flag(
             code, ZONE_OVER_AREA[area.kind], f"the wall's zone overlaps the "
-            f"{AREA_WORDS[area.kind]} '{area.name}' by {a_ft2:.0f} ft²: authorised workers "
+            f"{AREA_WORDS[area.kind]} '{area.name}' by {a_ft2:.0f} ft²: authorized workers "
             "only while the wall stands, nobody at the stand-down speed or during lifts",
-            masonry_source if masonry else "common practice (design.md §7)"), [(pt.x, pt.y)]))
+            masonry_source if masonry else "common practice (method notes §6)"), [(pt.x, pt.y)]))
     return found
 
 
@@ -864,7 +947,9 @@ def plan_geometry(site: Site, standing: set[str] | None = None, day: int | None 
     """The plan of a day (`standing`: marks standing; None: every placed wall) for the views."""
     places = place(site)
     bracing = _read_bracing(site, places, standing)
-    reach = _zone_reach(site, places, bracing, heights)
+    reach_ft = _zone_reach_ft(site, places, bracing, heights)
+    reach = _reach_words(site, places, bracing, reach_ft)
+    masonry = dict(zip(places.mark[bracing.walls].tolist(), reach_ft[1].tolist()))
     zone_of = dict(zip(bracing.walls.tolist(),
                        _rings(_zone_corners(site, places, bracing, heights))))
     t = _brace_table(places, bracing)
@@ -877,6 +962,9 @@ def plan_geometry(site: Site, standing: set[str] | None = None, day: int | None 
                                          every.anchor.tolist()):
         kind[k], anchor[k] = foot_kind, foot_anchor or None
     faces = _at(places, places.rows()[:, None], places.width_ft[:, None] * [0.0, 1.0], 0.0)
+    every_braces = places.braces(site)  # every placed wall's braces, for the elevations
+    along = every_braces.along_ft.tolist()
+    every_first = np.searchsorted(every_braces.wall, np.arange(len(places) + 1)).tolist()
     panels: list[PlanPanel] = []
     for k, (mark, i, footprint, face) in enumerate(zip(
             places.mark.tolist(), places.index.tolist(), _rings(places.footprint_corners),
@@ -889,7 +977,14 @@ def plan_geometry(site: Site, standing: set[str] | None = None, day: int | None 
             footprint=footprint, face=(tuple(face[0]), tuple(face[1])),
             braces=pairs[first[k]:first[k + 1]], foot_kind=kind[k], foot_anchor=anchor[k],
             restricted_zone=zone, evacuated_zone=list(zone),
-            zone_basis=reach[mark][2] if k in zone_of else ""))
+            zone_basis=reach[mark][2] if k in zone_of else "",
+            zone_front_ft=reach[mark][0] if k in zone_of else 0.0,
+            zone_back_ft=reach[mark][1] if k in zone_of else 0.0,
+            zone_rule=zone_rule(site, masonry[mark]) if k in zone_of else "",
+            zone_name=(("limited access zone" if masonry[mark] else "restricted zone")
+                       if k in zone_of else ""),
+            offset_ft=float(places.offset_ft[k]), width_ft=float(places.width_ft[k]),
+            elevation=_elevation(p, places, k, along[every_first[k]:every_first[k + 1]])))
     plan = site.plan
     geometry = PlanGeometry(
         day=day,
@@ -906,6 +1001,34 @@ def plan_geometry(site: Site, standing: set[str] | None = None, day: int | None 
         bounds=(0.0, 0.0, 1.0, 1.0))
     geometry.bounds = _bounds(geometry)
     return geometry
+
+
+def _compass(direction) -> str:
+    """The compass word of a plan direction (x east, y north), to the nearest eighth."""
+    angle = np.degrees(np.arctan2(direction[1], direction[0]))
+    return COMPASS[int(np.round(angle / 45.0)) % 8]
+
+
+def _elevation(panel, places: Places, k: int, along: list[float]) -> Elevation:
+    """The wall at row `k` of the places seen square to its braced face, its braces at `along`
+    (ft from its first edge). The viewer faces against the braced side's normal n, so the
+    viewer's left hand points along (n_y, -n_x) (plane geometry)."""
+    u, n = places.direction[k], places.normal[k]
+    left = np.array([n[1], -n[0]])
+    first_left = bool(np.dot(u, left) < 0.0)  # the first edge is where u points away from
+    w = float(places.width_ft[k])
+
+    def from_left(x: float, width: float = 0.0) -> float:
+        return x if first_left else w - x - width
+
+    b = panel.bracing
+    return Elevation(
+        width_ft=w, height_ft=panel.height, left_edge=f"{_compass(left)} end",
+        right_edge=f"{_compass(-left)} end",
+        openings=[(from_left(o.x, o.width), o.y, o.width, o.height) for o in panel.openings],
+        braces_from_left_ft=[from_left(x) for x in along],
+        insert_height_ft=b.insert_height if b is not None else None,
+        first_edge_left=first_left)
 
 
 class DayPlans(Mapping):

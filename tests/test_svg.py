@@ -124,3 +124,38 @@ def test_section_svg_shows_the_result_values():
 
 def test_section_svg_of_a_wall_without_braces():
     assert "no braces" in texts(svg.section_svg(panel_result(None)))
+
+
+def test_plan_svg_holds_the_overview_then_each_detail_with_the_caution():
+    document = svg.plan_svg(result_with(plan.plan_geometry(site(), day=2)))
+    words = texts(document)
+    assert "Site plan, day 2" in words and "Detail 1 of 1, day 2: A, walls P-1 to M-1" in words
+    assert words.index("Site plan, day 2") < words.index("Detail 1 of 1")
+    assert CAUTION.split(".")[0] in words
+
+
+def test_drawings_without_a_plan():
+    assert svg.detail_svgs(result_with(None)) == []
+    assert svg.elevation_svgs(result_with(None)) == {}  # no walls either
+    assert "No plan to draw" in texts(svg.overview_svg(result_with(None)))
+
+
+def test_detail_shown_alone_carries_the_caution():
+    [(d, alone)] = svg.detail_svgs(result_with(plan.plan_geometry(site(), day=2)),
+                                   standalone=True)
+    [(_, embedded)] = svg.detail_svgs(result_with(plan.plan_geometry(site(), day=2)))
+    assert d.marks == ["P-1", "P-2", "M-1"]
+    assert CAUTION.split(".")[0] in texts(alone)
+    assert CAUTION.split(".")[0] not in texts(embedded)
+
+
+def test_elevation_of_a_wall_on_no_line_measures_from_its_first_edge():
+    """Without a plan, the braces at 5 and 15 ft (the centers of two 10 ft strips of a 20 ft
+    wall) are measured from the panel's first edge, as the site file gives them."""
+    document = svg.elevation_svg(panel_result({
+        "count": 2, "insert_height_ft": 20.0, "anchor_distance_ft": 14.0,
+        "positions_ft": [5.0, 15.0]}))
+    words = texts(document)
+    for piece in ("first edge", "5.00 ft", "15.00 ft", "insert 20 ft",
+                  "wall 20 ft"):
+        assert piece in words, piece

@@ -1,35 +1,72 @@
-"""SVG drawings from the result: the site plan of a day and one wall's bracing section.
+"""SVG drawings from the result: the site plan of a day (an overview and detail plans of each
+wall line), the elevation of a wall with its brace positions, and its bracing section.
 
-Drawn from `SiteResult.plan` (a `bracing.plan.PlanGeometry`, or a dict of them by day) and from
-a `PanelResult`: no engineering value is computed here. Only the standard library and shapely
-(label points) are used. Colours and symbols are our own plain choices; every failing item also
-carries a cross, a number and the word DANGER, never colour alone. Plan y points north.
+Drawn from `SiteResult.plan` (a `bracing.plan.PlanGeometry`, or a mapping of them by day) and
+from a `PanelResult`: no engineering value is computed here. Only the standard library, numpy
+and shapely (to find free room for labels) are used. Colors and symbols are our own plain
+choices; every failing item also carries a cross, a number and the word DANGER, never color
+alone. Plan y points north.
+
+The plan sheets are laid out in millimeters for print: every sheet is `SHEET_MM` wide (the
+printable width of letter and of A4 portrait paper with 13 mm margins), so a font size in the
+drawing is its size on paper. The plan itself is drawn in feet inside a scaled group, at a
+standard engineering scale (1 in = 10, 20, 30, ... ft). Labels are set in sheet millimeters by
+`place_labels`, clear of each other and of the drawing where there is room.
+
+For the crew sheet (each function's docstring says more):
+- `overview_svg(result, day)`: the whole site on one sheet, with legend and findings;
+- `detail_svgs(result, day)`: a detail plan of each wall line (or stretch of a long one);
+- `elevation_svg(panel_result, elevation)`, `elevation_svgs(result, day)`: walls in elevation;
+- `section_svg(panel_result)`: one wall's bracing section;
+- `plan_svg(result, day)`: the overview and the details on one sheet (`bracing plan`).
 """
 
 from __future__ import annotations
 
 import math
-import textwrap
 from collections.abc import Mapping
+from dataclasses import dataclass
 from xml.sax.saxutils import escape, quoteattr
 
-from shapely.geometry import Polygon
+import numpy as np
+import shapely
+from shapely.geometry import LineString, Point, Polygon, box
 
-PX_WIDTH = 1000  # width on screen (px); the viewBox is in ft
-CHAR = 0.6       # mean character width / font size, for wrapping (bold: BOLD_CHAR)
-BOLD_CHAR = 0.66
+from bracing.plan import Elevation
+from bracing.results import CAUTION
+
+PX_WIDTH = 1000  # width on screen (px) of the drawings not laid out in mm
 SECTION_PX_WIDTH = 360
 FONT = "DejaVu Sans, Arial, Helvetica, sans-serif"
 
-# kind -> (colour, hatch angle in degrees or None for a tint only, legend words)
+SHEET_MM = 190.0        # printable width of letter (215.9 mm) and A4 (210 mm) less margins
+PAD_MM = 2.0            # inner margin of a sheet
+TITLE_MM = 4.2          # font sizes on paper (mm): a title (12 pt)
+TEXT_MM = 2.8           # body text, legend, findings (8 pt)
+MARK_MM = 3.2           # wall marks on the plans (9 pt: capitals 2.3 mm tall)
+LABEL_MM = 2.6          # other plan labels: areas, lines, finding numbers (7.4 pt)
+LEAST_TEXT_MM = 2.5     # no text on a sheet is smaller than this (7 pt)
+OVERVIEW_MAX_H_MM = 170.0  # tallest plan frame of the overview
+PAGE_MM = 250.0            # the overview fits one page: letter's printable height, 254 mm
+LEAST_PLAN_MM = 90.0       # the overview's plan frame is never shorter than this
+SCALE_ROW_MM = 9.0         # the row under a plan frame: scale bar, scale, north arrow
+DETAIL_MAX_H_MM = 120.0    # and of a detail plan
+ELEVATION_MM = 120.0       # width of a wall elevation on paper
+SCALES_FT_PER_IN = (5, 10, 20, 30, 40, 50, 60, 80, 100, 150, 200, 300, 400, 500, 600, 800, 1000,
+                    1500, 2000)  # engineering scales, 1 in = N ft
+
+# kind -> (color, hatch angle in degrees or None for a tint only, legend words)
 AREA_STYLE = {
-    "keep_clear": ("#6e6e6e", 45, "keep-clear area"),
+    "keep_clear": ("#4a4a4a", 45, "keep-clear area"),
     "crane_path": ("#c96a12", -45, "crane path"),
     "public_way": ("#b03a2e", 45, "public way"),
-    "neighbour": ("#6c3483", 90, "neighbour"),
+    "neighbour": ("#6c3483", 90, "neighbor"),
+    "neighbor": ("#6c3483", 90, "neighbor"),
     "office": ("#2471a3", None, "site office"),
     "work": ("#1e8449", None, "work area"),
 }
+# areas that braces must stay out of: drawn again above the braces so that they show
+KEEP_OUT = ("keep_clear", "crane_path", "public_way", "neighbour", "neighbor")
 SLAB, SLAB_EDGE, GROUND = "#e3e3e3", "#4d4d4d", "#efe5cc"
 WALL, BRACE, ZONE, EVACUATED = "#3b3b3b", "#1f4e9c", "#e69b1e", "#b03a2e"
 DANGER, WARNING = "#c0392b", "#b9770e"
@@ -38,21 +75,162 @@ ANCHOR_WORDS = {"slab": "slab anchor", "helical": "helical anchor", "deadman": "
                 "": "foot (no anchor named)"}
 STATUS_WORDS = {"unsafe": "UNSAFE", "needs_braces": "NEEDS BRACES"}
 MOST_FINDINGS = 40
+HALO = ' paint-order="stroke" stroke="#fff" stroke-linejoin="round"'
 
 
 def _f(v: float) -> str:
-    """A coordinate for SVG, to 1/1000 ft."""
+    """A coordinate for SVG, to 1/1000 of its unit."""
     s = f"{v:.3f}".rstrip("0").rstrip(".")
     return "0" if s in ("-0", "") else s
 
 
-def _pts(coords) -> str:
-    return " ".join(f"{_f(x)},{_f(-y)}" for x, y in coords)
+def _plan_pts(coords) -> str:
+    """Points for a plan group, which turns y over itself."""
+    return " ".join(f"{_f(x)},{_f(y)}" for x, y in coords)
 
 
 def _text(x, y, words, size, anchor="start", weight="normal", fill="#000", extra="") -> str:
     return (f'<text x="{_f(x)}" y="{_f(y)}" font-size="{_f(size)}" text-anchor="{anchor}" '
             f'font-weight="{weight}" fill="{fill}"{extra}>{escape(str(words))}</text>')
+
+
+# --- text sizes and free room for labels ---------------------------------------------------------
+_NARROW, _WIDE = set("ijlI.,:;'!|()[] "), set("mwMW@%")
+
+
+def text_width(words: str, size: float, bold: bool = False) -> float:
+    """Width of a line of text in the units of `size` (its font size), a little over that of
+    DejaVu Sans or Arial: narrow letters 0.36 em, wide ones 1.0, capitals 0.8, digits 0.66, the
+    rest 0.64; bold 15 % wider (the fonts' advance widths, rounded up)."""
+    em = sum(0.36 if c in _NARROW else 1.0 if c in _WIDE else 0.8 if c.isupper() else
+             0.66 if c.isdigit() else 0.64 for c in str(words))
+    return em * size * (1.15 if bold else 1.0)
+
+
+def wrap(words: str, size: float, width: float, bold: bool = False) -> list[str]:
+    """`words` broken into lines no wider than `width` (`text_width`); a word longer than a
+    line stands on its own."""
+    lines: list[str] = []
+    for word in str(words).split():
+        if lines and text_width(f"{lines[-1]} {word}", size, bold) <= width:
+            lines[-1] = f"{lines[-1]} {word}"
+        else:
+            lines.append(word)
+    return lines or [""]
+
+
+@dataclass(frozen=True)
+class Label:
+    """A label to place: its words, font size and weight, and the point (sheet units, y down)
+    it names; `key` says what it names."""
+
+    key: str
+    words: str
+    size: float
+    at: tuple[float, float]
+    bold: bool = True
+    color: str = "#000"
+
+
+@dataclass(frozen=True)
+class Placed:
+    """Where a label went: its box (least x, least y, greatest x, greatest y; y down) and
+    whether it stands off its point (then a leader line joins them)."""
+
+    label: Label
+    box: tuple[float, float, float, float]
+    leader: bool
+
+
+def label_box_size(label: Label) -> tuple[float, float]:
+    """Width and height of a label's box: its text's width and 1.2 of its font size (the
+    descenders and the halo)."""
+    return text_width(label.words, label.size, label.bold), 1.2 * label.size
+
+
+def place_labels(labels: list[Label], drawn: list[tuple[object, float]],
+                 frame: tuple[float, float, float, float]) -> list[Placed | None]:
+    """Boxes for the labels, in order, none overlapping another, each inside `frame`.
+
+    Candidates ring each label's point, nearest first (the point in the middle of the box, then
+    boxes beside it in 16 directions at growing distances, then anywhere in the frame). A box
+    may not meet a box already placed (with a gap of 0.15 of the font size); among the others
+    the one with the least cost wins: the weights of the `drawn` items it covers (shapely
+    geometries in sheet units, each with a weight) plus 0.1 for each label height it stands off
+    its point (nearer winning ties). None for a label that finds no room."""
+    lo_x, lo_y, hi_x, hi_y = frame
+    shapes = np.array([s for s, _ in drawn], dtype=object)
+    weights = np.array([w for _, w in drawn], dtype=float)
+    tree = shapely.STRtree(shapes) if len(shapes) else None
+    taken = np.empty((0, 4))
+    out: list[Placed | None] = []
+    turns = np.radians(np.arange(0, 360, 22.5))
+    for label in labels:
+        w, h = label_box_size(label)
+        ax, ay = label.at
+        rings = [0.0, 0.2, 0.6, 1.2, 2.0, 3.0, 4.5, 6.5, 9.0, 13.0]
+        cx = [np.array([ax])]
+        cy = [np.array([ay])]
+        for r in rings:
+            cx.append(ax + np.cos(turns) * (w / 2 + r * h))
+            cy.append(ay + np.sin(turns) * (h / 2 + r * h))
+        gx, gy = np.meshgrid(np.arange(lo_x + w / 2, hi_x - w / 2 + 1e-9, max(h, w / 4)),
+                             np.arange(lo_y + h / 2, hi_y - h / 2 + 1e-9, h))
+        cx.append(gx.ravel())
+        cy.append(gy.ravel())
+        cx, cy = np.concatenate(cx), np.concatenate(cy)
+        boxes = np.stack([cx - w / 2, cy - h / 2, cx + w / 2, cy + h / 2], axis=1)
+        inside = ((boxes[:, 0] >= lo_x) & (boxes[:, 1] >= lo_y) & (boxes[:, 2] <= hi_x)
+                  & (boxes[:, 3] <= hi_y))
+        gap = 0.15 * label.size
+        if len(taken):
+            meets = ((boxes[:, None, 0] < taken[None, :, 2] + gap)
+                     & (boxes[:, None, 2] > taken[None, :, 0] - gap)
+                     & (boxes[:, None, 1] < taken[None, :, 3] + gap)
+                     & (boxes[:, None, 3] > taken[None, :, 1] - gap)).any(axis=1)
+        else:
+            meets = np.zeros(len(boxes), bool)
+        free = np.flatnonzero(inside & ~meets)
+        if len(free) == 0:
+            out.append(None)
+            continue
+        cost = np.zeros(len(free))
+        if tree is not None:
+            hit_box, hit = tree.query(shapely.box(*boxes[free].T), predicate="intersects")
+            cost = np.bincount(hit_box, weights=weights[hit], minlength=len(free))
+        distance = np.hypot(cx[free] - ax, cy[free] - ay) / h
+        best = free[np.lexsort((distance, np.round(cost + 0.1 * distance, 6)))[0]]
+        b = boxes[best]
+        taken = np.vstack([taken, b])
+        near = box(*b).distance(Point(ax, ay)) > 0.6 * h
+        out.append(Placed(label, tuple(float(v) for v in b), bool(near)))
+    return out
+
+
+def boxes_overlap(a, b) -> bool:
+    """Whether two boxes (least x, least y, greatest x, greatest y) share any area."""
+    return a[0] < b[2] and b[0] < a[2] and a[1] < b[3] and b[1] < a[3]
+
+
+def _placed_items(placed: list[Placed | None]) -> list[str]:
+    """The placed labels as SVG text with a white halo, and their leader lines."""
+    out = []
+    for p in placed:
+        if p is None:
+            continue
+        x0, _, x1, y1 = p.box
+        lab = p.label
+        color = lab.color
+        if p.leader:
+            edge = box(*p.box).exterior
+            near = edge.interpolate(edge.project(Point(lab.at)))
+            out.append(f'<line x1="{_f(lab.at[0])}" y1="{_f(lab.at[1])}" x2="{_f(near.x)}" '
+                       f'y2="{_f(near.y)}" stroke="{color}" stroke-width="0.2"/>')
+        out.append(_text((x0 + x1) / 2, y1 - 0.3 * lab.size, lab.words, lab.size, "middle",
+                         "bold" if lab.bold else "normal", color,
+                         f' class="label" data-key={quoteattr(lab.key)}{HALO} '
+                         f'stroke-width="{_f(0.35 * lab.size)}"'))
+    return out
 
 
 def pick_plan(plan, day: int | None = None):
@@ -72,55 +250,753 @@ def pick_plan(plan, day: int | None = None):
     return max(sorted(plan.items()), key=lambda kv: (len(kv[1].standing), -kv[0]))[1]
 
 
-class _Sheet:
-    """Sizes of one plan sheet in ft: the plan frame, a font size and a stroke unit."""
-
-    def __init__(self, bounds):
-        minx, miny, maxx, maxy = bounds
-        span = max(maxx - minx, maxy - miny, 10.0)
-        margin = 0.06 * span
-        cx = (minx + maxx) / 2
-        half = max((maxx - minx) / 2 + margin, 0.45 * span)  # room for the text bands
-        self.left, self.right = cx - half, cx + half
-        self.top, self.bottom = -(maxy + margin), -(miny - margin)  # screen y of the frame
-        self.width = self.right - self.left
-        self.font = span / 60.0
-        self.unit = span / 800.0  # stroke unit, about one screen px
-
-    def wrap(self, text: str, size: float, bold: bool = False) -> list[str]:
-        per_char = (BOLD_CHAR if bold else CHAR) * size
-        return textwrap.wrap(text, max(20, int(self.width / per_char) - 3))
+# --- one plan frame at a scale --------------------------------------------------------------------
+def _scale_ft_per_in(window_w: float, window_h: float, width_mm: float, height_mm: float) -> float:
+    """The largest standard scale (fewest ft to the inch) at which the window fits."""
+    need = max(window_w * 25.4 / width_mm, window_h * 25.4 / height_mm)
+    return next((s for s in SCALES_FT_PER_IN if s >= need), need)
 
 
-def plan_svg(result, day: int | None = None) -> str:
-    """The site plan of a day as a printable SVG: slab, holes, joints, ground, areas, wall
-    lines, walls, braces and anchors, zones, findings, a north arrow, a scale bar, a legend
-    and the caution."""
+class _Frame:
+    """A plan window (ft) drawn on the sheet at a scale: plan point -> sheet mm (y down)."""
+
+    def __init__(self, window, top_mm: float, max_h_mm: float, key: str):
+        minx, miny, maxx, maxy = window
+        self.ft_per_in = _scale_ft_per_in(maxx - minx, maxy - miny, SHEET_MM - 2 * PAD_MM,
+                                          max_h_mm)
+        self.k = 25.4 / self.ft_per_in  # mm per ft
+        # widen the window to the sheet's width (more of the site shows, same scale)
+        extra = (SHEET_MM - 2 * PAD_MM) / self.k - (maxx - minx)
+        self.window = (minx - extra / 2, miny, maxx + extra / 2, maxy)
+        self.left, self.top = PAD_MM, top_mm
+        self.width = SHEET_MM - 2 * PAD_MM
+        self.height = (maxy - miny) * self.k
+        self.key = key
+
+    def xy(self, x: float, y: float) -> tuple[float, float]:
+        minx, _, _, maxy = self.window
+        return self.left + (x - minx) * self.k, self.top + (maxy - y) * self.k
+
+    def ft(self, mm: float) -> float:
+        """A length on paper (mm) in plan ft."""
+        return mm / self.k
+
+    @property
+    def box(self) -> tuple[float, float, float, float]:
+        return self.left, self.top, self.left + self.width, self.top + self.height
+
+    def to_sheet(self, geometry):
+        """A shapely geometry in plan ft moved to sheet mm."""
+        minx, _, _, maxy = self.window
+        k = self.k
+        return shapely.transform(geometry, lambda c: np.stack(
+            [self.left + (c[:, 0] - minx) * k, self.top + (maxy - c[:, 1]) * k], axis=1))
+
+    def group(self, items: list[str]) -> list[str]:
+        """The plan items in a group that scales ft to mm and turns y up, clipped to the frame."""
+        minx, _, _, maxy = self.window
+        k = self.k
+        return [f'<clipPath id="clip-{self.key}"><rect x="{_f(self.left)}" y="{_f(self.top)}" '
+                f'width="{_f(self.width)}" height="{_f(self.height)}"/></clipPath>',
+                f'<g clip-path="url(#clip-{self.key})"><g class="plan" transform="matrix('
+                f'{_f(k)} 0 0 {_f(-k)} {_f(self.left - minx * k)} {_f(self.top + maxy * k)})">',
+                *items, "</g></g>",
+                f'<rect x="{_f(self.left)}" y="{_f(self.top)}" width="{_f(self.width)}" '
+                f'height="{_f(self.height)}" fill="none" stroke="#000" stroke-width="0.3"/>']
+
+
+# --- the plan's layers, in plan ft inside a frame's group ----------------------------------------
+def _defs(fr: _Frame) -> list[str]:
+    """Hatch patterns of a frame (1.6 mm apart on paper)."""
+    return _hatch_defs(fr.key, fr.ft(1.6), fr.ft(0.25))
+
+
+def _ground_and_slab(g, fr: _Frame) -> list[str]:
+    u = fr.ft(0.25)
+    out = [f'<polygon points="{_plan_pts(r)}" fill="{GROUND}" stroke="#b8a77a" '
+           f'stroke-width="{_f(u)}"/>' for r in g.ground]
+    if g.slab:
+        d = " ".join("M " + _plan_pts(r) + " Z" for r in [g.slab, *g.slab_holes])
+        out.append(f'<path d="{d}" fill="{SLAB}" fill-rule="evenodd" stroke="{SLAB_EDGE}" '
+                   f'stroke-width="{_f(2 * u)}"/>')
+    out += [f'<polygon points="{_plan_pts(h)}" fill="url(#hatch-hole-{fr.key})" '
+            f'stroke="{SLAB_EDGE}" stroke-width="{_f(2 * u)}"/>' for h in g.slab_holes]
+    out += [f'<polyline points="{_plan_pts(j)}" fill="none" stroke="#7f7f7f" '
+            f'stroke-width="{_f(1.2 * u)}" stroke-dasharray="{_f(10 * u)},{_f(3 * u)},'
+            f'{_f(2 * u)},{_f(3 * u)}"/>' for j in g.joints]
+    return out
+
+
+def _area_fill(a, fr: _Frame, css: str, stroke_mm: float) -> str:
+    color, angle, _ = AREA_STYLE[a.kind]
+    fill = (f'fill="url(#hatch-{a.kind}-{fr.key})"' if angle is not None
+            else f'fill="{color}" fill-opacity="0.15"')
+    return (f'<polygon class="{css}" data-name={quoteattr(a.name)} '
+            f'points="{_plan_pts(a.coords)}" {fill} stroke="{color}" '
+            f'stroke-width="{_f(fr.ft(stroke_mm))}"/>')
+
+
+def _areas(g, fr: _Frame) -> list[str]:
+    """Every area, under the walls and braces."""
+    return [_area_fill(a, fr, "area", 0.35) for a in g.areas]
+
+
+def _keep_out_on_top(g, fr: _Frame) -> list[str]:
+    """The areas braces must stay out of, drawn again above the braces and anchors (hatched, so
+    what lies under them still shows), with a bold outline that a white edge sets apart."""
+    out = []
+    for a in g.areas:
+        if a.kind in KEEP_OUT:
+            out.append(f'<polygon points="{_plan_pts(a.coords)}" fill="none" stroke="#fff" '
+                       f'stroke-width="{_f(fr.ft(1.1))}"/>')
+            out.append(_area_fill(a, fr, "area keep-out", 0.6))
+    return out
+
+
+def _zones(g, fr: _Frame) -> list[str]:
+    u = fr.ft(0.25)
+    out = []
+    for p in g.panels:
+        if p.restricted_zone:
+            out.append(f'<polygon points="{_plan_pts(p.restricted_zone)}" fill="{ZONE}" '
+                       f'fill-opacity="0.14" stroke="{ZONE}" stroke-width="{_f(1.5 * u)}" '
+                       f'stroke-dasharray="{_f(6 * u)},{_f(4 * u)}"/>')
+        if p.evacuated_zone:
+            out.append(f'<polygon points="{_plan_pts(p.evacuated_zone)}" fill="none" '
+                       f'stroke="{EVACUATED}" stroke-width="{_f(1.2 * u)}" '
+                       f'stroke-dasharray="{_f(14 * u)},{_f(6 * u)}" '
+                       f'stroke-dashoffset="{_f(5 * u)}"/>')
+    return out
+
+
+def _line_geometry(line):
+    """Unit vectors along a wall line and toward its braced side, and its middle."""
+    (x0, y0), (x1, y1) = line.start, line.end
+    length = math.hypot(x1 - x0, y1 - y0) or 1.0
+    ux, uy = (x1 - x0) / length, (y1 - y0) / length
+    nx, ny = (-uy, ux) if line.braced_side == "left" else (uy, -ux)
+    return (ux, uy), (nx, ny), ((x0 + x1) / 2, (y0 + y1) / 2)
+
+
+def _lines(g, fr: _Frame) -> list[str]:
+    """Wall lines, each with a tick toward its braced side."""
+    u, tick = fr.ft(0.25), fr.ft(2.5)
+    out = []
+    for line in g.lines:
+        (x0, y0), (x1, y1) = line.start, line.end
+        _, (nx, ny), (mx, my) = _line_geometry(line)
+        out.append(f'<line x1="{_f(x0)}" y1="{_f(y0)}" x2="{_f(x1)}" y2="{_f(y1)}" '
+                   f'stroke="#888" stroke-width="{_f(u)}" stroke-dasharray="{_f(8 * u)},'
+                   f'{_f(3 * u)}"/>')
+        out.append(f'<line x1="{_f(mx)}" y1="{_f(my)}" x2="{_f(mx + tick * nx)}" '
+                   f'y2="{_f(my + tick * ny)}" stroke="#888" stroke-width="{_f(u)}"/>')
+    return out
+
+
+def _walls(g, fr: _Frame) -> list[str]:
+    u = fr.ft(0.25)
+    out = []
+    for p in g.panels:
+        if p.standing:
+            out.append(f'<polygon class="wall" points="{_plan_pts(p.footprint)}" '
+                       f'fill="{WALL}" stroke="#000" stroke-width="{_f(2.4 * u)}"/>')
+        else:
+            out.append(f'<polygon class="wall ghost" points="{_plan_pts(p.footprint)}" '
+                       f'fill="#fff" stroke="{WALL}" stroke-width="{_f(u)}" '
+                       f'stroke-dasharray="{_f(3 * u)},{_f(2 * u)}"/>')
+    return out
+
+
+def anchor_symbol(kind: str, x: float, y: float, r: float, w: float, up: float = 1.0) -> str:
+    """The symbol of a foot anchor of each kind at (x, y), radius r, line width w, in the units
+    of the drawing it goes in; `up` is +1 where y points up on paper (a plan group), -1 where
+    it points down."""
+    sx, sy = _f(x), _f(y)
+    if kind == "slab":
+        return f'<circle class="anchor" cx="{sx}" cy="{sy}" r="{_f(r)}" fill="#000"/>'
+    if kind == "helical":
+        return (f'<g class="anchor" stroke="#000" stroke-width="{_f(w)}"><circle cx="{sx}" '
+                f'cy="{sy}" r="{_f(r)}" fill="#fff"/><line x1="{_f(x - r)}" y1="{sy}" '
+                f'x2="{_f(x + r)}" y2="{sy}"/><line x1="{sx}" y1="{_f(y - r)}" x2="{sx}" '
+                f'y2="{_f(y + r)}"/></g>')
+    if kind == "deadman":
+        return (f'<rect class="anchor" x="{_f(x - r)}" y="{_f(y - r)}" width="{_f(2 * r)}" '
+                f'height="{_f(2 * r)}" fill="#000"/>')
+    if kind == "stake":  # an open triangle, point up on paper
+        return (f'<polygon class="anchor" points="{_f(x)},{_f(y + up * 1.2 * r)} {_f(x - r)},'
+                f'{_f(y - up * 0.8 * r)} {_f(x + r)},{_f(y - up * 0.8 * r)}" fill="#fff" '
+                f'stroke="#000" stroke-width="{_f(w)}"/>')
+    if kind == "deck":
+        return (f'<polygon class="anchor" points="{_f(x)},{_f(y - r)} {_f(x + r)},{sy} '
+                f'{_f(x)},{_f(y + r)} {_f(x - r)},{sy}" fill="#000"/>')
+    return (f'<circle class="anchor" cx="{sx}" cy="{sy}" r="{_f(r)}" fill="#fff" stroke="#000" '
+            f'stroke-width="{_f(w)}"/>')
+
+
+def _braces(g, fr: _Frame) -> list[str]:
+    u, r = fr.ft(0.25), fr.ft(0.8)
+    out = []
+    for p in g.panels:
+        for (ix, iy), (fx, fy) in p.braces:
+            out.append(f'<line class="brace" data-mark={quoteattr(p.mark)} x1="{_f(ix)}" '
+                       f'y1="{_f(iy)}" x2="{_f(fx)}" y2="{_f(fy)}" stroke="{BRACE}" '
+                       f'stroke-width="{_f(1.8 * u)}"/>')
+            out.append(anchor_symbol(p.foot_kind, fx, fy, r, 1.2 * u))
+    return out
+
+
+def _number_findings(findings) -> list[tuple[int, object]]:
+    order = {"danger": 0, "warning": 1, "notice": 2}
+    ranked = sorted(findings, key=lambda f: order.get(f.flag.severity, 3))
+    return list(enumerate(ranked, 1))
+
+
+def _finding_marks(numbered, fr: _Frame) -> list[str]:
+    """An open circled cross (danger) or triangle (warning) at each point of a finding: thin
+    lines, so that the item found still shows through them."""
+    out = []
+    r, u = fr.ft(1.3), fr.ft(0.25)
+    for _, f in numbered:
+        for x, y in f.at:
+            if f.flag.severity == "danger":
+                d = 0.7 * r
+                out.append(
+                    f'<g class="danger" stroke="{DANGER}" stroke-width="{_f(1.6 * u)}" '
+                    f'fill="none"><circle cx="{_f(x)}" cy="{_f(y)}" r="{_f(r)}"/>'
+                    f'<line x1="{_f(x - d)}" y1="{_f(y - d)}" x2="{_f(x + d)}" '
+                    f'y2="{_f(y + d)}"/><line x1="{_f(x - d)}" y1="{_f(y + d)}" '
+                    f'x2="{_f(x + d)}" y2="{_f(y - d)}"/></g>')
+            elif f.flag.severity == "warning":
+                out.append(f'<polygon class="warning" points="{_f(x)},{_f(y + r)} '
+                           f'{_f(x - r)},{_f(y - 0.7 * r)} {_f(x + r)},{_f(y - 0.7 * r)}" '
+                           f'fill="none" stroke="{WARNING}" stroke-width="{_f(1.6 * u)}"/>')
+    return out
+
+
+def _drawn_items(g, fr: _Frame, numbered) -> list[tuple[object, float]]:
+    """What the labels should keep off, in sheet mm, with weights: walls, anchors and finding
+    symbols most, braces and the keep-out areas next, lines and other area edges least."""
+    items: list[tuple[object, float]] = []
+    for p in g.panels:
+        if len(p.footprint) >= 3:
+            items.append((fr.to_sheet(Polygon(p.footprint)), 6.0 if p.standing else 2.0))
+        for a, b in p.braces:
+            items.append((fr.to_sheet(LineString([a, b])), 3.0))
+            items.append((fr.to_sheet(Point(b)).buffer(1.0), 6.0))
+    for _, f in numbered:
+        for pt in f.at:
+            items.append((fr.to_sheet(Point(pt)).buffer(1.5), 6.0))
+    for a in g.areas:
+        if len(a.coords) >= 3:
+            shape = fr.to_sheet(shapely.make_valid(Polygon(a.coords)))
+            items.append((shape.boundary, 0.3))
+            if a.kind in KEEP_OUT and shapely.area(shape) < 400.0:  # a strip: keep it clear
+                items.append((shape, 4.0))
+    for line in g.lines:
+        items.append((fr.to_sheet(LineString([line.start, line.end])), 0.5))
+    return items
+
+
+def _north_and_scale(fr: _Frame) -> list[str]:
+    """The row under the frame (`SCALE_ROW_MM` tall, sheet mm): a scale bar of 1 in on paper in
+    four parts, the scale in words, and a north arrow (plan y up) at the right."""
+    length, h = 25.4, 1.2
+    x0, y0 = fr.left + 1.0, fr.top + fr.height + 4.6  # the bar's lower edge
+    out = []
+    for i in range(4):
+        fill = "#000" if i % 2 == 0 else "#fff"
+        out.append(f'<rect x="{_f(x0 + i * length / 4)}" y="{_f(y0 - h)}" '
+                   f'width="{_f(length / 4)}" height="{_f(h)}" fill="{fill}" stroke="#000" '
+                   f'stroke-width="0.2"/>')
+    out.append(_text(x0, y0 + 0.9 + 0.8 * LEAST_TEXT_MM, "0", LEAST_TEXT_MM, "middle"))
+    out.append(_text(x0 + length, y0 + 0.9 + 0.8 * LEAST_TEXT_MM, f"{fr.ft_per_in:g} ft",
+                     LEAST_TEXT_MM, "middle"))
+    out.append(_text(x0 + length + 6.0, y0, _scale_words(fr), LEAST_TEXT_MM))
+    x, y = fr.left + fr.width - 6.0, fr.top + fr.height + 8.0
+    out += [f'<polygon points="{_f(x)},{_f(y - 6.5)} {_f(x - 1.8)},{_f(y)} {_f(x)},'
+            f'{_f(y - 1.8)} {_f(x + 1.8)},{_f(y)}" fill="#000"/>',
+            _text(x + 2.8, y - 1.0, "N", TEXT_MM, weight="bold")]
+    return out
+
+
+def _scale_words(fr: _Frame) -> str:
+    return (f"Scale 1 in = {fr.ft_per_in:g} ft printed {SHEET_MM:g} mm wide "
+            "(letter or A4 portrait)")
+
+
+def _frame_window(bounds, margin_ft: float) -> tuple[float, float, float, float]:
+    minx, miny, maxx, maxy = bounds
+    return minx - margin_ft, miny - margin_ft, maxx + margin_ft, maxy + margin_ft
+
+
+def _plan_layers(g, fr: _Frame, numbered) -> list[str]:
+    """The plan in the frame, bottom to top: ground and slab, areas, zones, wall lines, walls,
+    braces and anchors, the keep-out areas again, the finding symbols."""
+    return fr.group(_ground_and_slab(g, fr) + _areas(g, fr) + _zones(g, fr) + _lines(g, fr)
+                    + _walls(g, fr) + _braces(g, fr) + _keep_out_on_top(g, fr)
+                    + _finding_marks(numbered, fr))
+
+
+def _in_window(pt, window) -> bool:
+    return window[0] <= pt[0] <= window[2] and window[1] <= pt[1] <= window[3]
+
+
+# --- labels of a plan frame -----------------------------------------------------------------------
+def _kind_words(a) -> str:
+    return AREA_STYLE[a.kind][2]
+
+
+def _area_words(a) -> str:
+    """An area's name, with its kind unless the name already says it (either spelling)."""
+    words = _kind_words(a)
+    said = a.name.lower().replace("neighbour", "neighbor")
+    return a.name if words in said else f"{a.name} ({words})"
+
+
+def _status_of(result) -> dict[str, str]:
+    return {p.mark: p.status for p in getattr(result, "panels", [])}
+
+
+def _mark_label(p, line, fr: _Frame, status: dict[str, str], own: bool = True) -> Label:
+    """A wall's mark (and its status when failing), its point just behind the wall's middle;
+    a wall that is not `own` (a neighbor on a detail of other walls) in grey."""
+    _, (nx, ny), _ = _line_geometry(line)
+    (x0, y0), (x1, y1) = p.face
+    back = 1.0 + fr.ft(2.0)  # behind the footprint, away from the braces
+    mx, my = (x0 + x1) / 2 - nx * back, (y0 + y1) / 2 - ny * back
+    word = STATUS_WORDS.get(status.get(p.mark, ""), "")
+    return Label(f"mark:{p.mark}", f"{p.mark} {word}".strip(), MARK_MM, fr.xy(mx, my),
+                 color=(DANGER if word else "#000") if own else "#707070")
+
+
+def _finding_labels(numbered, fr: _Frame) -> list[Label]:
+    """One number per finding, at its first point inside the frame."""
+    out = []
+    for n, f in numbered:
+        inside = [pt for pt in f.at if _in_window(pt, fr.window)]
+        if inside and f.flag.severity in ("danger", "warning"):
+            color = DANGER if f.flag.severity == "danger" else WARNING
+            out.append(Label(f"finding:{n}", str(n), LABEL_MM, fr.xy(*inside[0]), color=color))
+    return out
+
+
+def _area_labels(g, fr: _Frame) -> list[Label]:
+    """Each area's name, at a point of it inside the frame."""
+    out = []
+    frame = box(*fr.window)
+    for a in g.areas:
+        if len(a.coords) < 3:
+            continue
+        part = shapely.make_valid(Polygon(a.coords)).intersection(frame)
+        if part.is_empty or part.area <= 0:
+            continue
+        pt = part.representative_point()
+        out.append(Label(f"area:{a.name}", _area_words(a), LABEL_MM, fr.xy(pt.x, pt.y),
+                         color=AREA_STYLE[a.kind][0]))
+    return out
+
+
+def _detail_labels(g, fr: _Frame, details) -> list[Label]:
+    """Each detail plan's number, behind the middle of its walls (the overview's key to them)."""
+    lines = {line.name: line for line in g.lines}
+    panels = {p.mark: p for p in g.panels}
+    out = []
+    for i, d in enumerate(details, 1):
+        _, (nx, ny), _ = _line_geometry(lines[d.line])
+        faces = [panels[m].face for m in d.marks]
+        mx = sum(a[0] + b[0] for a, b in faces) / (2 * len(faces))
+        my = sum(a[1] + b[1] for a, b in faces) / (2 * len(faces))
+        back = fr.ft(3.5)
+        out.append(Label(f"detail:{i}", f"detail {i}", LABEL_MM,
+                         fr.xy(mx - nx * back, my - ny * back)))
+    return out
+
+
+def _details_words(details) -> str:
+    """The detail plans in a sentence: number, line and walls."""
+    parts = []
+    for i, d in enumerate(details, 1):
+        walls = d.marks[0] if len(d.marks) == 1 else f"{d.marks[0]} to {d.marks[-1]}"
+        parts.append(f"{i}: {d.line}, {walls}")
+    return "Detail plans follow, " + "; ".join(parts) + "."
+
+
+def _labels(g, fr: _Frame, numbered, marks: list[str] | None, status, details=(),
+            own=None) -> tuple[list[str], list[str]]:
+    """The frame's labels placed clear of each other and of the drawing: wall marks (`marks`;
+    None: the detail plans' numbers instead; `own`: the marks drawn in black, None: all),
+    finding numbers, then area names: (SVG items, the words of labels that found no room)."""
+    lines = {line.name: line for line in g.lines}
+    wanted = []
+    if marks is None:
+        wanted += _detail_labels(g, fr, details)
+    else:
+        wanted += [_mark_label(p, lines[p.line], fr, status, own is None or p.mark in own)
+                   for p in g.panels if p.mark in marks and p.line in lines]
+    wanted += _finding_labels(numbered, fr) + _area_labels(g, fr)
+    x0, y0, x1, y1 = fr.box
+    wanted = [Label(w.key, w.words, w.size, (min(max(w.at[0], x0), x1), min(max(w.at[1], y0), y1)),
+                    w.bold, w.color) for w in wanted]  # a point outside: the frame's edge
+    placed = place_labels(wanted, _drawn_items(g, fr, numbered),
+                          (x0 + 0.5, y0 + 0.5, x1 - 0.5, y1 - 0.5))
+    missing = [w.words for w, p in zip(wanted, placed) if p is None]
+    return _north_and_scale(fr) + _placed_items(placed), missing
+
+
+def _unplaced_words(missing: list[str]) -> str:
+    """A sentence naming the labels that found no room on the plan (none: empty)."""
+    return "" if not missing else (" Not labelled on the plan for want of room: "
+                                   + ", ".join(missing) + ".")
+
+
+# --- sheets -------------------------------------------------------------------------------------
+def _lines_block(lines, y: float, x: float = PAD_MM, width: float = SHEET_MM - 2 * PAD_MM,
+                 extra: str = "") -> tuple[list[str], float]:
+    """(words, size, weight, color) lines, each wrapped to `width`, from `y` down; (items, the
+    y below them)."""
+    out = []
+    for words, size, weight, color in lines:
+        for k, part in enumerate(wrap(words, size, width - 1.5 * size, weight == "bold")):
+            y += 1.25 * size
+            out.append(_text(x + (1.5 * size if k else 0.0), y, part, size, weight=weight,
+                             fill=color, extra=extra))
+    return out, y
+
+
+def _caution_box(caution: str, y: float) -> tuple[list[str], float]:
+    inner = SHEET_MM - 2 * PAD_MM - 3.0
+    lines = wrap(caution, TEXT_MM, inner, bold=True)
+    h = len(lines) * 1.25 * TEXT_MM + 1.6
+    out = [f'<rect x="{_f(PAD_MM)}" y="{_f(y)}" width="{_f(SHEET_MM - 2 * PAD_MM)}" '
+           f'height="{_f(h)}" fill="#fff8e1" stroke="#000" stroke-width="0.35"/>']
+    for i, words in enumerate(lines):
+        out.append(_text(PAD_MM + 1.5, y + 0.5 + (i + 1) * 1.25 * TEXT_MM - 0.25 * TEXT_MM,
+                         words, TEXT_MM, weight="bold", extra=' class="caution"'))
+    return out, y + h
+
+
+def _hatch_defs(key: str, step: float, u: float) -> list[str]:
+    out = []
+    hatches = {f"hatch-{k}": (c, a) for k, (c, a, _) in AREA_STYLE.items() if a is not None}
+    hatches["hatch-hole"] = ("#4d4d4d", 45)
+    for name, (color, angle) in hatches.items():
+        out.append(f'<pattern id="{name}-{key}" patternUnits="userSpaceOnUse" '
+                   f'width="{_f(step)}" height="{_f(step)}" patternTransform="rotate({angle})">'
+                   f'<line x1="0" y1="0" x2="0" y2="{_f(step)}" stroke="{color}" '
+                   f'stroke-width="{_f(1.6 * u)}"/></pattern>')
+    return out
+
+
+def _legend_items(panels, areas) -> list[tuple[str, str]]:
+    """(symbol kind, words) of the legend: what the plan shows."""
+    items = [("slab", "slab"), ("hole", "slab hole or opening"), ("joint", "slab joint"),
+             ("ground", "open ground")]
+    kinds = dict.fromkeys(AREA_STYLE[a.kind][2] for a in areas)
+    first_kind = {AREA_STYLE[a.kind][2]: a.kind for a in reversed(areas)}
+    items += [(f"area:{first_kind[w]}", w + (" (braces stay out)" if first_kind[w] in KEEP_OUT
+                                             else "")) for w in kinds]
+    items += [("wall", "wall standing"), ("ghost", "wall not standing"),
+              ("line", "wall line (tick: braced side)"), ("brace", "brace")]
+    feet = dict.fromkeys(p.foot_kind for p in panels if p.braces)
+    items += [(f"anchor:{k}", ANCHOR_WORDS.get(k, k)) for k in feet]
+    names = dict.fromkeys(p.zone_name for p in panels if p.standing and p.zone_name)
+    items += [("zone", f"{n} (authorized workers only, nothing stored)") for n in names]
+    items += [("evacuated", "evacuated zone (nobody: at the stand-down gust, during lifts)"),
+              ("danger", "DANGER: failing item, numbered"),
+              ("warning", "warning, numbered")]
+    return items
+
+
+def _legend_symbol(kind: str, x: float, y: float, key: str) -> str:
+    """A legend symbol 5 mm by 2.5 mm, left edge x, center line y (sheet mm)."""
+    w, h, u = 5.0, 2.5, 0.25
+    rect = f'x="{_f(x)}" y="{_f(y - h / 2)}" width="{_f(w)}" height="{_f(h)}"'
+    line = f'x1="{_f(x)}" y1="{_f(y)}" x2="{_f(x + w)}" y2="{_f(y)}"'
+    if kind == "slab":
+        return f'<rect {rect} fill="{SLAB}" stroke="{SLAB_EDGE}" stroke-width="{_f(2 * u)}"/>'
+    if kind == "hole":
+        return (f'<rect {rect} fill="url(#hatch-hole-{key})" stroke="{SLAB_EDGE}" '
+                f'stroke-width="{_f(u)}"/>')
+    if kind == "joint":
+        return (f'<line {line} stroke="#7f7f7f" stroke-width="{_f(1.2 * u)}" '
+                f'stroke-dasharray="2.5,0.75,0.5,0.75"/>')
+    if kind == "ground":
+        return f'<rect {rect} fill="{GROUND}" stroke="#b8a77a" stroke-width="{_f(u)}"/>'
+    if kind.startswith("area:"):
+        k = kind[5:]
+        color, angle, _ = AREA_STYLE[k]
+        fill = (f'fill="url(#hatch-{k}-{key})"' if angle is not None
+                else f'fill="{color}" fill-opacity="0.15"')
+        return f'<rect {rect} {fill} stroke="{color}" stroke-width="{_f(2 * u)}"/>'
+    if kind == "wall":
+        return f'<rect {rect} fill="{WALL}" stroke="#000" stroke-width="{_f(u)}"/>'
+    if kind == "ghost":
+        return (f'<rect {rect} fill="#fff" stroke="{WALL}" stroke-width="{_f(u)}" '
+                f'stroke-dasharray="0.75,0.5"/>')
+    if kind == "line":
+        return f'<line {line} stroke="#888" stroke-width="{_f(u)}" stroke-dasharray="2,0.75"/>'
+    if kind == "brace":
+        return f'<line {line} stroke="{BRACE}" stroke-width="{_f(1.8 * u)}"/>'
+    if kind.startswith("anchor:"):
+        return anchor_symbol(kind[7:], x + w / 2, y, 0.8, 1.2 * u, up=-1.0)
+    if kind == "zone":
+        return (f'<rect {rect} fill="{ZONE}" fill-opacity="0.14" stroke="{ZONE}" '
+                f'stroke-width="{_f(1.5 * u)}" stroke-dasharray="1.5,1"/>')
+    if kind == "evacuated":
+        return (f'<rect {rect} fill="none" stroke="{EVACUATED}" stroke-width="{_f(1.2 * u)}" '
+                f'stroke-dasharray="3.5,1.5"/>')
+    r, cx = 1.1, x + w / 2
+    if kind == "danger":
+        d = 0.7 * r
+        return (f'<g stroke="{DANGER}" stroke-width="0.4" fill="none">'
+                f'<circle cx="{_f(cx)}" cy="{_f(y)}" r="{_f(r)}"/>'
+                f'<line x1="{_f(cx - d)}" y1="{_f(y - d)}" x2="{_f(cx + d)}" y2="{_f(y + d)}"/>'
+                f'<line x1="{_f(cx - d)}" y1="{_f(y + d)}" x2="{_f(cx + d)}" y2="{_f(y - d)}"/>'
+                '</g>')
+    return (f'<polygon points="{_f(cx)},{_f(y - r)} {_f(cx - r)},{_f(y + 0.7 * r)} '
+            f'{_f(cx + r)},{_f(y + 0.7 * r)}" fill="none" stroke="{WARNING}" '
+            f'stroke-width="0.4"/>')
+
+
+def _legend(items, y: float, key: str) -> tuple[list[str], float]:
+    """The legend in two columns from `y` down; (items, the y below it)."""
+    col_w = (SHEET_MM - 2 * PAD_MM) / 2
+    rows = -(-len(items) // 2)
+    out = [_text(PAD_MM, y + 1.25 * TEXT_MM, "Legend", TEXT_MM, weight="bold")]
+    top = y + 1.25 * TEXT_MM + 0.8
+    bottom = top
+    for col in range(2):
+        yy = top
+        for kind, words in items[col * rows:(col + 1) * rows]:
+            parts = wrap(words, LEAST_TEXT_MM, col_w - 8.0)
+            x = PAD_MM + col * col_w
+            out.append(_legend_symbol(kind, x, yy + 0.5 * 1.3 * LEAST_TEXT_MM + 0.2, key))
+            for i, part in enumerate(parts):
+                out.append(_text(x + 6.5, yy + (i + 1) * 1.3 * LEAST_TEXT_MM - 0.2, part,
+                                 LEAST_TEXT_MM))
+            yy += len(parts) * 1.3 * LEAST_TEXT_MM + 0.5
+        bottom = max(bottom, yy)
+    return out, bottom
+
+
+def _range(values: list[float]) -> str:
+    lo, hi = min(values), max(values)
+    return f"{lo:.0f} ft" if round(lo) == round(hi) else f"{lo:.0f} to {hi:.0f} ft"
+
+
+def zone_summary(panels) -> list[str]:
+    """The zones of the walls standing in a few sentences: one per zone rule, with how many
+    walls it covers and the range of its reach, not a line per wall."""
+    groups: dict[tuple[str, str], list] = {}
+    for p in panels:
+        if p.standing and p.zone_rule:
+            groups.setdefault((p.zone_name, p.zone_rule), []).append(p)
+    out = []
+    for (name, rule), walls in groups.items():
+        count = f"{len(walls)} wall" + ("s" if len(walls) != 1 else "")
+        reach = f"it reaches {_range([p.zone_front_ft for p in walls])} out from the braced face"
+        backs = [p.zone_back_ft for p in walls]
+        if max(backs) > 0:
+            reach += f" and {_range(backs)} behind the wall"
+        out.append(f"{name[0].upper()}{name[1:]} of {count}: {rule}; {reach}, along the "
+                   "wall's whole length.")
+    if out:
+        out.append("The evacuated zone has the same footprint: what changes is who may be "
+                   "inside (nobody at the stand-down gust or during lifts).")
+    return out
+
+
+def _finding_lines(numbered, only=None, most: int = MOST_FINDINGS) -> list[
+        tuple[str, float, str, str]]:
+    """The numbered findings as text lines (`only`: the numbers to list; None: all), the
+    first `most` of them (the most severe first) and a count of the others."""
+    shown = [(n, f) for n, f in numbered if only is None or n in only]
+    if not shown:
+        return []
+    out = [(f"Findings of the plan ({len(shown)}):", TEXT_MM, "bold", "#000")]
+    for n, f in shown[:most]:
+        danger = f.flag.severity == "danger"
+        color = {"danger": DANGER, "warning": WARNING}.get(f.flag.severity, "#000")
+        out.append((f"{n}. {f.flag.severity.upper()} {f.mark} [{f.flag.code}] "
+                    f"{f.flag.message}. Source: {f.flag.source}.", LEAST_TEXT_MM,
+                    "bold" if danger else "normal", color))
+    if len(shown) > most:
+        out.append((f"... and {len(shown) - most} more: see the report and the detail plans",
+                    LEAST_TEXT_MM, "normal", "#000"))
+    return out
+
+
+def _day_words(g) -> str:
+    return f"day {g.day}" if g.day is not None else "all walls placed"
+
+
+def _overview_sheet(result, g, key: str) -> tuple[list[str], list[str], float]:
+    """The overview sheet, on one page (`PAGE_MM` tall at most: the plan frame takes the room
+    the texts leave, no more than `OVERVIEW_MAX_H_MM`; when the findings leave too little, the
+    fewest are listed and the rest counted): (defs, items, height in mm)."""
+    numbered = _number_findings(g.findings)
+    details = g.details()
+    name = getattr(result, "name", "")
+    standing = g.standing
+    items, y = _lines_block([
+        (f"Site plan, {_day_words(g)}: {name}", TITLE_MM, "bold", "#000"),
+        (f"Overview. Standing ({len(standing)}): {', '.join(standing) or 'none'}",
+         LEAST_TEXT_MM, "normal", "#000")], PAD_MM)
+    caution, y = _caution_box(getattr(result, "caution", ""), y + 1.5)
+    items += caution
+
+    def tail(top: float, most: int) -> tuple[list[str], float]:
+        words = [_details_words(details)] if details else []
+        out, yy = _lines_block([(w, LEAST_TEXT_MM, "normal", "#000") for w in words],
+                               top + SCALE_ROW_MM)
+        legend, yy = _legend(_legend_items(g.panels, g.areas), yy + 1.0, key + "L")
+        more, yy = _lines_block([(s, LEAST_TEXT_MM, "normal", "#000")
+                                 for s in zone_summary(g.panels)]
+                                + _finding_lines(numbered, most=most), yy + 0.5)
+        return out + legend + more, yy + PAD_MM
+
+    most = MOST_FINDINGS
+    while most > 0 and PAGE_MM - (y + 1.5) - tail(0.0, most)[1] < LEAST_PLAN_MM:
+        most -= 1
+    room = max(PAGE_MM - (y + 1.5) - tail(0.0, most)[1], LEAST_PLAN_MM)
+    fr = _Frame(_frame_window(g.bounds, 0.04 * max(g.bounds[2] - g.bounds[0],
+                                                   g.bounds[3] - g.bounds[1], 10.0)),
+                y + 1.5, min(OVERVIEW_MAX_H_MM, room), key)
+    widths = [p.width_ft for p in g.panels if p.standing]
+    one_by_one = bool(widths) and min(widths) * fr.k >= 1.3 * max(
+        text_width(m, MARK_MM, True) for m in standing)
+    labels, placed = _labels(g, fr, numbered, standing if one_by_one else None,
+                             _status_of(result), details)
+    items += _plan_layers(g, fr, numbered) + labels
+    more, y = tail(fr.top + fr.height, most)
+    unplaced = _unplaced_words(placed).strip()
+    if unplaced:
+        text, y = _lines_block([(unplaced, LEAST_TEXT_MM, "normal", "#000")], y - PAD_MM)
+        more += text
+        y += PAD_MM
+    return _defs(fr) + _hatch_defs(key + "L", 1.2, 0.25), items + more, y
+
+
+def _detail_sheet(result, g, d, i: int, n: int, key: str, standalone: bool) -> tuple[
+        list[str], list[str], float]:
+    """One detail plan sheet: (defs, items, height in mm)."""
+    numbered = _number_findings(g.findings)
+    stretch = f", part {d.part} of {d.parts}" if d.parts > 1 else ""
+    walls = d.marks[0] if len(d.marks) == 1 else f"{d.marks[0]} to {d.marks[-1]}"
+    items, y = _lines_block([
+        (f"Detail {i} of {n}, {_day_words(g)}: {d.line}{stretch}, walls {walls}", TITLE_MM,
+         "bold", "#000")], PAD_MM)
+    fr = _Frame(_frame_window(d.bounds, 6.0), y + 1.5, DETAIL_MAX_H_MM, key)
+    labels, placed = _labels(g, fr, numbered, _marks_in(g, fr), _status_of(result),
+                             own=set(d.marks))
+    items += _plan_layers(g, fr, numbered) + labels
+    y = fr.top + fr.height
+    inside = {m for m, f in numbered if any(_in_window(pt, fr.window) for pt in f.at)
+              or (f.mark in d.marks and not f.at)}
+    shown = [p for p in g.panels if p.mark in d.marks]
+    areas = [a for a in g.areas if shapely.intersects(
+        shapely.make_valid(Polygon(a.coords)), box(*fr.window))] if g.areas else []
+    more, y = _lines_block([(f"Walls on this detail: {', '.join(d.marks)}."
+                             + _unplaced_words(placed), LEAST_TEXT_MM, "normal", "#000")],
+                           y + SCALE_ROW_MM)
+    items += more
+    legend, y = _legend(_legend_items(shown, areas), y + 1.0, key + "L")
+    items += legend
+    more, y = _lines_block([(s, LEAST_TEXT_MM, "normal", "#000") for s in zone_summary(shown)]
+                           + _finding_lines(numbered, inside), y + 0.5)
+    items += more
+    if standalone:
+        caution, y = _caution_box(getattr(result, "caution", ""), y + 1.5)
+        items += caution
+    return _defs(fr) + _hatch_defs(key + "L", 1.2, 0.25), items, y + PAD_MM
+
+
+def _marks_in(g, fr: _Frame) -> list[str]:
+    """The walls standing whose face's middle lies inside the frame."""
+    out = []
+    for p in g.panels:
+        (x0, y0), (x1, y1) = p.face
+        if p.standing and _in_window(((x0 + x1) / 2, (y0 + y1) / 2), fr.window):
+            out.append(p.mark)
+    return out
+
+
+def _mm_document(defs: list[str], items: list[str], height: float, caution: str) -> str:
+    """An SVG sheet `SHEET_MM` wide laid out in mm (its viewBox), the caution in its desc."""
+    return "\n".join([
+        '<?xml version="1.0" encoding="UTF-8"?>',
+        f'<svg xmlns="http://www.w3.org/2000/svg" version="1.1" width="{_f(SHEET_MM)}mm" '
+        f'height="{_f(height)}mm" viewBox="0 0 {_f(SHEET_MM)} {_f(height)}" '
+        f'font-family={quoteattr(FONT)}>',
+        f"<desc>{escape(caution)}</desc>",
+        "<defs>", *defs, "</defs>",
+        f'<rect x="0" y="0" width="{_f(SHEET_MM)}" height="{_f(height)}" fill="#fff"/>',
+        *items, "</svg>", ""])
+
+
+def _key(g, what: str) -> str:
+    """Ids of one drawing's clip paths and patterns: the same for the same day and drawing, so
+    that drawings inlined in one HTML page never take another's."""
+    return f"{what}{g.day if g.day is not None else 'all'}"
+
+
+def overview_svg(result, day: int | None = None) -> str:
+    """The whole site on one letter-width sheet (`SHEET_MM` wide, mm units): title, the
+    caution, the plan at a standard scale with each wall line named (or each wall where there is
+    room), the legend, the zones summarized by rule and the numbered findings. `day`: the day
+    (None: the busiest). A sheet saying so when the result has no plan."""
     g = pick_plan(getattr(result, "plan", None), day)
     if g is None:
         return _no_plan_svg(result)
-    sheet = _Sheet(g.bounds)
-    fs, u = sheet.font, sheet.unit
-    status = {p.mark: p.status for p in getattr(result, "panels", [])}
-    numbered = _number_findings(g.findings)
+    defs, items, h = _overview_sheet(result, g, _key(g, "ov"))
+    return _mm_document(defs, items, h, getattr(result, "caution", ""))
 
-    head = _title_band(result, g, sheet)
-    body = [f'<rect x="{_f(sheet.left)}" y="{_f(sheet.top)}" width="{_f(sheet.width)}" '
-            f'height="{_f(sheet.bottom - sheet.top)}" fill="#fff" stroke="#000" '
-            f'stroke-width="{_f(u)}"/>']
-    body += _ground_and_slab(g, u)
-    body += _areas(g, fs, u)
-    body += _zones(g, u)
-    body += _lines(g, fs, u)
-    body += _walls(g, status, fs, u)
-    body += _braces(g, fs, u)
-    body += _finding_marks(numbered, fs, u)
-    body += _north_and_scale(sheet)
-    foot, foot_height = _legend_and_findings(g, numbered, sheet, sheet.bottom + fs)
-    top = sheet.top - head[1]
-    height = sheet.bottom + fs + foot_height - top
-    return _document(sheet.left, top, sheet.width, height, _defs(fs, u),
-                     head[0] + body + foot, getattr(result, "caution", ""))
+
+def detail_svgs(result, day: int | None = None, standalone: bool = False) -> list[tuple]:
+    """The detail plans of a day, one per wall line standing (a long line in stretches of at most
+    `plan.DETAIL_LONGEST_FT`), each `SHEET_MM` wide in mm, at a standard scale at which marks,
+    braces, anchors and zones stand apart: a list of (`bracing.plan.Detail`, SVG text). Each
+    names its walls, lists the findings inside it and, with `standalone`, carries the caution
+    (a crew sheet that shows the caution on the page need not repeat it)."""
+    g = pick_plan(getattr(result, "plan", None), day)
+    if g is None:
+        return []
+    details = g.details()
+    out = []
+    for i, d in enumerate(details, 1):
+        defs, items, h = _detail_sheet(result, g, d, i, len(details), _key(g, f"dt{i}-"),
+                                       standalone)
+        out.append((d, _mm_document(defs, items, h, getattr(result, "caution", ""))))
+    return out
+
+
+def plan_svg(result, day: int | None = None) -> str:
+    """The plan of a day as one printable SVG (what `bracing plan` writes): the overview sheet
+    with the caution, then each detail plan below it. `day`: None for the busiest day."""
+    g = pick_plan(getattr(result, "plan", None), day)
+    if g is None:
+        return _no_plan_svg(result)
+    defs, items, y = _overview_sheet(result, g, _key(g, "ov"))
+    details = g.details()
+    for i, d in enumerate(details, 1):
+        more_defs, more, h = _detail_sheet(result, g, d, i, len(details), _key(g, f"dt{i}-"),
+                                           False)
+        defs += more_defs
+        items += [f'<line x1="0" y1="{_f(y + 2)}" x2="{_f(SHEET_MM)}" y2="{_f(y + 2)}" '
+                  'stroke="#000" stroke-width="0.3" stroke-dasharray="2,1"/>',
+                  f'<g transform="translate(0 {_f(y + 4)})">', *more, "</g>"]
+        y += 4 + h
+    return _mm_document(defs, items, y, getattr(result, "caution", ""))
+
+
+def _no_plan_svg(result) -> str:
+    """A sheet saying there is no plan to draw, with the caution."""
+    items, y = _lines_block([(f"Site plan: {getattr(result, 'name', '')}", TITLE_MM, "bold",
+                              "#000"),
+                             ("No plan to draw: no wall is placed on a wall line.", TEXT_MM,
+                              "normal", "#000")], PAD_MM)
+    caution, y = _caution_box(getattr(result, "caution", ""), y + 1.5)
+    return _mm_document([], items + caution, y + PAD_MM, getattr(result, "caution", ""))
 
 
 def _document(x, y, w, h, defs: list[str], items: list[str], caution: str,
@@ -137,351 +1013,154 @@ def _document(x, y, w, h, defs: list[str], items: list[str], caution: str,
         *items, "</svg>", ""])
 
 
-def _defs(fs: float, u: float) -> list[str]:
-    """Hatch patterns, one per hatched area kind, and one for slab holes."""
-    step = 0.8 * fs
-    out = []
-    hatches = {f"hatch-{k}": (c, a) for k, (c, a, _) in AREA_STYLE.items() if a is not None}
-    hatches["hatch-hole"] = ("#4d4d4d", 45)
-    for name, (colour, angle) in hatches.items():
-        out.append(f'<pattern id="{name}" patternUnits="userSpaceOnUse" width="{_f(step)}" '
-                   f'height="{_f(step)}" patternTransform="rotate({angle})">'
-                   f'<line x1="0" y1="0" x2="0" y2="{_f(step)}" stroke="{colour}" '
-                   f'stroke-width="{_f(1.2 * u)}"/></pattern>')
+# --- a wall in elevation --------------------------------------------------------------------------
+def elevation_svgs(result, day: int | None = None, standalone: bool = False) -> dict[str, str]:
+    """The elevation (`elevation_svg`) of every braced wall standing on a day, by mark: in the
+    plan's order, from the day's plan (None: the busiest day's); a wall on no wall line, or a
+    site without a plan, from its result alone (measured from the panel's first edge)."""
+    g = pick_plan(getattr(result, "plan", None), day)
+    placed = {p.mark: p for p in g.panels} if g is not None else {}
+    if g is not None:
+        standing = g.standing
+    else:
+        days = [d for d in getattr(result, "days", []) if day is None or d.day == day]
+        standing = [m for d in days for m in d.standing] if days else [
+            p.mark for p in getattr(result, "panels", [])]
+    by_mark = {p.mark: p for p in getattr(result, "panels", [])}
+    out = {}
+    for mark in dict.fromkeys(standing):
+        p = by_mark.get(mark)
+        if p is not None and p.braces:
+            e = placed[mark].elevation if mark in placed else None
+            out[mark] = elevation_svg(p, e, standalone)
     return out
 
 
-def _title_band(result, g, sheet: _Sheet) -> tuple[list[str], float]:
-    """Title, what stands, and the caution in a box above the plan; (items, height)."""
-    fs = sheet.font
-    when = f"day {g.day}" if g.day is not None else "all walls placed"
-    standing = g.standing
-    shown = ", ".join(standing[:30]) + (f" and {len(standing) - 30} more" if len(standing) > 30
-                                        else "")
-    lines = [(f"Site plan, {when}: {getattr(result, 'name', '')}", 1.5 * fs, "bold"),
-             (f"Standing ({len(standing)}): {shown or 'none'}", fs, "normal")]
-    caution = sheet.wrap(getattr(result, "caution", ""), 1.05 * fs, bold=True)
-    height = 1.5 * fs * 1.4 + fs * 1.4 + len(caution) * 1.05 * fs * 1.3 + 2.0 * fs
-    y = sheet.top - height
-    items = []
-    for words, size, weight in lines:
-        y += size * 1.4
-        items.append(_text(sheet.left + 0.5 * fs, y, words, size, weight=weight))
-    box_top = y + 0.5 * fs
-    box_h = len(caution) * 1.05 * fs * 1.3 + 0.6 * fs
-    items.append(f'<rect x="{_f(sheet.left + 0.3 * fs)}" y="{_f(box_top)}" '
-                 f'width="{_f(sheet.width - 0.6 * fs)}" height="{_f(box_h)}" fill="#fff8e1" '
-                 f'stroke="#000" stroke-width="{_f(2 * sheet.unit)}"/>')
-    for i, words in enumerate(caution):
-        items.append(_text(sheet.left + 0.7 * fs, box_top + (i + 1) * 1.05 * fs * 1.3,
-                           words, 1.05 * fs, weight="bold", extra=' class="caution"'))
-    return items, height
+def _elevation_of_result(panel_result):
+    """The elevation of a wall that is on no wall line, from its result: the braces measured
+    from the panel's first edge as the site file gives them."""
+    b = panel_result.braces or {}
+    return Elevation(width_ft=panel_result.width_ft, height_ft=panel_result.height_ft,
+                     left_edge="first edge", right_edge="last edge", openings=[],
+                     braces_from_left_ft=list(b.get("positions_ft") or []),
+                     insert_height_ft=b.get("insert_height_ft"), first_edge_left=True)
 
 
-def _ground_and_slab(g, u: float) -> list[str]:
-    out = [f'<polygon points="{_pts(r)}" fill="{GROUND}" stroke="#b8a77a" '
-           f'stroke-width="{_f(u)}"/>' for r in g.ground]
-    if g.slab:
-        rings = [g.slab, *g.slab_holes]
-        d = " ".join("M " + _pts(r) + " Z" for r in rings)
-        out.append(f'<path d="{d}" fill="{SLAB}" fill-rule="evenodd" stroke="{SLAB_EDGE}" '
-                   f'stroke-width="{_f(2 * u)}"/>')
-    out += [f'<polygon points="{_pts(h)}" fill="url(#hatch-hole)" stroke="{SLAB_EDGE}" '
-            f'stroke-width="{_f(2 * u)}"/>' for h in g.slab_holes]
-    out += [f'<polyline points="{_pts(j)}" fill="none" stroke="#7f7f7f" '
-            f'stroke-width="{_f(1.2 * u)}" stroke-dasharray="{_f(10 * u)},{_f(3 * u)},'
-            f'{_f(2 * u)},{_f(3 * u)}"/>' for j in g.joints]
-    return out
+def elevation_svg(panel_result, elevation=None, standalone: bool = False) -> str:
+    """One wall seen square to its braced face (`ELEVATION_MM` wide, mm units): its outline, its
+    openings, each brace's insert point with its distance from the named left edge (looking at
+    the braced face; by the compass of the plan) and the insert height above the base.
+
+    `elevation` is the wall's `bracing.plan.Elevation` (`PlanPanel.elevation` of the day's plan);
+    None draws from the result alone, measuring from the panel's first edge. With `standalone`
+    the caution is printed under it."""
+    p = panel_result
+    e = elevation if elevation is not None else _elevation_of_result(p)
+    w, h, hb = e.width_ft, e.height_ft, e.insert_height_ft
+    xs = sorted(e.braces_from_left_ft)
+    dims_mm = 5.0 + 4.2 * (len(xs) + 1)  # rows of running dimensions under the wall
+    left_mm, right_mm = 4.0, 18.0
+    k = min((ELEVATION_MM - left_mm - right_mm) / w, 60.0 / h)  # mm per ft
+    title, y = _lines_block([(f"{p.mark}: elevation, looking at the braced face", TEXT_MM,
+                              "bold", "#000")], 1.5, 1.5, ELEVATION_MM - 3.0)
+    x0 = left_mm + (ELEVATION_MM - left_mm - right_mm - w * k) / 2
+    stacked = (text_width(e.left_edge, LEAST_TEXT_MM, True)
+               + text_width(e.right_edge, LEAST_TEXT_MM, True) + 2.0 > w * k)
+    top = y + 4.0 + (1.3 * LEAST_TEXT_MM if stacked else 0.0)
+
+    def at(x: float, z: float) -> tuple[float, float]:
+        return x0 + x * k, top + (h - z) * k
+
+    base = top + h * k
+    items = list(title)
+    items.append(f'<line x1="1" y1="{_f(base)}" x2="{_f(ELEVATION_MM - 1)}" y2="{_f(base)}" '
+                 'stroke="#000" stroke-width="0.4"/>')
+    items.append(f'<rect class="wall" x="{_f(x0)}" y="{_f(top)}" width="{_f(w * k)}" '
+                 f'height="{_f(h * k)}" fill="#d9d9d9" stroke="#000" stroke-width="0.35"/>')
+    for ox, oy, ow, oh in e.openings:
+        x1, y1 = at(ox, oy + oh)
+        items.append(f'<rect class="opening" x="{_f(x1)}" y="{_f(y1)}" width="{_f(ow * k)}" '
+                     f'height="{_f(oh * k)}" fill="#fff" stroke="#000" stroke-width="0.25"/>')
+        items.append(f'<path d="M {_f(x1)},{_f(y1)} l {_f(ow * k)},{_f(oh * k)} m 0,'
+                     f'{_f(-oh * k)} l {_f(-ow * k)},{_f(oh * k)}" stroke="#888" '
+                     'stroke-width="0.2"/>')
+    items.append(_text(x0, top - 1.0 - (1.3 * LEAST_TEXT_MM if stacked else 0.0), e.left_edge,
+                       LEAST_TEXT_MM, weight="bold", extra=' class="edge"'))
+    items.append(_text(x0 + w * k, top - 1.0, e.right_edge, LEAST_TEXT_MM, "end", "bold",
+                       extra=' class="edge"'))
+    # overall height at the right
+    xr = x0 + w * k + 3.0
+    items += _dim_v_mm(xr + 8.0, base, top, f"{h:g} ft", "wall")
+    if hb is None or not xs:
+        items.append(_text(x0 + w * k / 2, top + h * k / 2, "no braces", TEXT_MM, "middle",
+                           "bold"))
+        y = base + 2.0
+    else:
+        zx, zy = at(0, hb)
+        for x in xs:
+            ix, iy = at(x, hb)
+            items.append(f'<circle class="insert" cx="{_f(ix)}" cy="{_f(iy)}" r="0.9" '
+                         f'fill="{BRACE}" stroke="#fff" stroke-width="0.2"/>')
+            items.append(f'<line x1="{_f(ix)}" y1="{_f(iy)}" x2="{_f(ix)}" y2="{_f(base + 1)}" '
+                         'stroke="#000" stroke-width="0.15" stroke-dasharray="0.8,0.6"/>')
+        items.append(f'<line x1="{_f(zx)}" y1="{_f(zy)}" x2="{_f(x0 + w * k)}" y2="{_f(zy)}" '
+                     f'stroke="{BRACE}" stroke-width="0.15" stroke-dasharray="1,0.8"/>')
+        items += _dim_v_mm(xr, base, zy, f"insert {hb:g} ft", "insert")
+        # running dimensions from the left edge, one row per brace
+        for row, x in enumerate(xs):
+            yy = base + 4.0 + row * 4.2
+            items += _dim_h_mm(x0, x0 + x * k, yy, f"{x:.2f} ft", f"brace {row + 1}")
+        y = base + dims_mm
+    items += _dim_h_mm(x0, x0 + w * k, y - 4.2 if xs and hb is not None else base + 4.0,
+                       f"wall {w:g} ft", "wall width")
+    y = max(y, base + 6.0)
+    note = (f"Insert points (dots) measured from the {e.left_edge} (left, looking at the "
+            f"braced face), {hb:g} ft above the base." if hb is not None and xs
+            else f"Left edge: {e.left_edge}, looking at the braced face.")
+    if elevation is None:
+        note += (" The wall stands on no wall line: its first edge is the one the site file "
+                 "measures brace positions from.")
+    more, y = _lines_block([(note, LEAST_TEXT_MM, "normal", "#000")], y, 1.5,
+                           ELEVATION_MM - 3.0)
+    items += more
+    if standalone:
+        more, y = _lines_block([(CAUTION, LEAST_TEXT_MM, "bold", "#000")], y + 1.0, 1.5,
+                               ELEVATION_MM - 3.0)
+        items += more
+    height = y + 2.0
+    return "\n".join([
+        '<?xml version="1.0" encoding="UTF-8"?>',
+        f'<svg xmlns="http://www.w3.org/2000/svg" version="1.1" width="{_f(ELEVATION_MM)}mm" '
+        f'height="{_f(height)}mm" viewBox="0 0 {_f(ELEVATION_MM)} {_f(height)}" '
+        f'font-family={quoteattr(FONT)}>',
+        f"<desc>{escape(CAUTION)}</desc>",
+        f'<rect x="0" y="0" width="{_f(ELEVATION_MM)}" height="{_f(height)}" fill="#fff"/>',
+        *items, "</svg>", ""])
 
 
-def _label_point(coords) -> tuple[float, float]:
-    p = Polygon(coords).representative_point()
-    return p.x, p.y
+def _dim_h_mm(x0: float, x1: float, y: float, words: str, key: str) -> list[str]:
+    """A horizontal dimension (sheet mm) from x0 to x1 at y, its words beside its end."""
+    t = 0.8
+    return [f'<g class="dimension" data-key={quoteattr(key)} stroke="#000" stroke-width="0.2">'
+            f'<line x1="{_f(x0)}" y1="{_f(y)}" x2="{_f(x1)}" y2="{_f(y)}"/>'
+            f'<line x1="{_f(x0)}" y1="{_f(y - t)}" x2="{_f(x0)}" y2="{_f(y + t)}"/>'
+            f'<line x1="{_f(x1)}" y1="{_f(y - t)}" x2="{_f(x1)}" y2="{_f(y + t)}"/></g>',
+            _text(x1 + 1.0, y + 0.35 * LEAST_TEXT_MM, words, LEAST_TEXT_MM,
+                  extra=' class="dim-text"')]
 
 
-def _areas(g, fs: float, u: float) -> list[str]:
-    out = []
-    for a in g.areas:
-        colour, angle, words = AREA_STYLE[a.kind]
-        fill = f"url(#hatch-{a.kind})" if angle is not None else colour
-        opacity = "1" if angle is not None else "0.15"
-        out.append(f'<polygon points="{_pts(a.coords)}" fill="{fill}" fill-opacity="{opacity}" '
-                   f'stroke="{colour}" stroke-width="{_f(1.5 * u)}"/>')
-        x, y = _label_point(a.coords)
-        out.append(_text(x, -y, f"{a.name} ({words})", 0.85 * fs, "middle", "bold", colour,
-                         ' paint-order="stroke" stroke="#fff" stroke-width="'
-                         f'{_f(3 * u)}"'))
-    return out
+def _dim_v_mm(x: float, y0: float, y1: float, words: str, key: str) -> list[str]:
+    """A vertical dimension (sheet mm) at x from y0 up to y1, its words turned along it."""
+    t, mid = 0.8, (y0 + y1) / 2
+    return [f'<g class="dimension" data-key={quoteattr(key)} stroke="#000" stroke-width="0.2">'
+            f'<line x1="{_f(x)}" y1="{_f(y0)}" x2="{_f(x)}" y2="{_f(y1)}"/>'
+            f'<line x1="{_f(x - t)}" y1="{_f(y0)}" x2="{_f(x + t)}" y2="{_f(y0)}"/>'
+            f'<line x1="{_f(x - t)}" y1="{_f(y1)}" x2="{_f(x + t)}" y2="{_f(y1)}"/></g>',
+            _text(x - 0.8, mid, words, LEAST_TEXT_MM, "middle",
+                  extra=f' class="dim-text" transform="rotate(-90 {_f(x - 0.8)} {_f(mid)})"')]
 
 
-def _zones(g, u: float) -> list[str]:
-    out = []
-    for p in g.panels:
-        if p.restricted_zone:
-            out.append(f'<polygon points="{_pts(p.restricted_zone)}" fill="{ZONE}" '
-                       f'fill-opacity="0.16" stroke="{ZONE}" stroke-width="{_f(1.5 * u)}" '
-                       f'stroke-dasharray="{_f(6 * u)},{_f(4 * u)}"/>')
-        if p.evacuated_zone:
-            out.append(f'<polygon points="{_pts(p.evacuated_zone)}" fill="none" '
-                       f'stroke="{EVACUATED}" stroke-width="{_f(1.2 * u)}" '
-                       f'stroke-dasharray="{_f(14 * u)},{_f(6 * u)}" '
-                       f'stroke-dashoffset="{_f(5 * u)}"/>')
-    return out
-
-
-def _lines(g, fs: float, u: float) -> list[str]:
-    """Wall lines, each named, with a tick toward its braced side."""
-    out = []
-    for line in g.lines:
-        (x0, y0), (x1, y1) = line.start, line.end
-        length = math.hypot(x1 - x0, y1 - y0) or 1.0
-        ux, uy = (x1 - x0) / length, (y1 - y0) / length
-        nx, ny = (-uy, ux) if line.braced_side == "left" else (uy, -ux)
-        mx, my = (x0 + x1) / 2, (y0 + y1) / 2
-        out.append(f'<line x1="{_f(x0)}" y1="{_f(-y0)}" x2="{_f(x1)}" y2="{_f(-y1)}" '
-                   f'stroke="#888" stroke-width="{_f(u)}" stroke-dasharray="{_f(8 * u)},'
-                   f'{_f(3 * u)}"/>')
-        out.append(f'<line x1="{_f(mx)}" y1="{_f(-my)}" x2="{_f(mx + fs * nx)}" '
-                   f'y2="{_f(-(my + fs * ny))}" stroke="#888" stroke-width="{_f(u)}"/>')
-        out.append(_text(x0 - 1.2 * fs * ux - 0.6 * fs * nx,
-                         -(y0 - 1.2 * fs * uy - 0.6 * fs * ny),
-                         f"line {line.name}", 0.75 * fs, "middle", fill="#555"))
-    return out
-
-
-def _walls(g, status: dict, fs: float, u: float) -> list[str]:
-    out = []
-    for p in g.panels:
-        if p.standing:
-            out.append(f'<polygon points="{_pts(p.footprint)}" fill="{WALL}" stroke="#000" '
-                       f'stroke-width="{_f(u)}"/>')
-        else:
-            out.append(f'<polygon points="{_pts(p.footprint)}" fill="#fff" stroke="{WALL}" '
-                       f'stroke-width="{_f(u)}" stroke-dasharray="{_f(3 * u)},{_f(2 * u)}"/>')
-        (fx0, fy0), (fx1, fy1) = p.face
-        fx, fy = (fx0 + fx1) / 2, (fy0 + fy1) / 2
-        cx, cy = _label_point(p.footprint)
-        back = math.hypot(cx - fx, cy - fy) or 1.0
-        lx = cx + (cx - fx) / back * 1.3 * fs
-        ly = cy + (cy - fy) / back * 1.3 * fs
-        word = STATUS_WORDS.get(status.get(p.mark, ""), "") if p.standing else "not standing"
-        halo = f' paint-order="stroke" stroke="#fff" stroke-width="{_f(3 * u)}"'
-        below = 1.0 if (cy - fy) <= 0 else -1.0  # a second line away from the wall
-        out.append(_text(lx, -ly + 0.35 * fs, p.mark, fs, "middle", "bold", "#000", halo))
-        if word:
-            out.append(_text(lx, -ly + 0.35 * fs + below * 0.95 * fs, word, 0.7 * fs, "middle",
-                             "bold", DANGER if p.standing else "#555", halo))
-    return out
-
-
-def _anchor(kind: str, x: float, y: float, r: float, u: float) -> str:
-    """The foot anchor symbol of each kind at plan point (x, y)."""
-    sx, sy = _f(x), _f(-y)
-    w = _f(1.2 * u)
-    if kind == "slab":
-        return f'<circle cx="{sx}" cy="{sy}" r="{_f(r)}" fill="#000"/>'
-    if kind == "helical":
-        return (f'<g stroke="#000" stroke-width="{w}"><circle cx="{sx}" cy="{sy}" r="{_f(r)}" '
-                f'fill="#fff"/><line x1="{_f(x - r)}" y1="{sy}" x2="{_f(x + r)}" y2="{sy}"/>'
-                f'<line x1="{sx}" y1="{_f(-y - r)}" x2="{sx}" y2="{_f(-y + r)}"/></g>')
-    if kind == "deadman":
-        return (f'<rect x="{_f(x - r)}" y="{_f(-y - r)}" width="{_f(2 * r)}" '
-                f'height="{_f(2 * r)}" fill="#000"/>')
-    if kind == "stake":
-        return (f'<polygon points="{_f(x)},{_f(-y - 1.2 * r)} {_f(x - r)},{_f(-y + 0.8 * r)} '
-                f'{_f(x + r)},{_f(-y + 0.8 * r)}" fill="#000"/>')
-    if kind == "deck":
-        return (f'<polygon points="{_f(x)},{_f(-y - r)} {_f(x + r)},{sy} {_f(x)},{_f(-y + r)} '
-                f'{_f(x - r)},{sy}" fill="#000"/>')
-    return (f'<circle cx="{sx}" cy="{sy}" r="{_f(r)}" fill="#fff" stroke="#000" '
-            f'stroke-width="{w}"/>')
-
-
-def _braces(g, fs: float, u: float) -> list[str]:
-    out = []
-    for p in g.panels:
-        for (ix, iy), (fx, fy) in p.braces:
-            out.append(f'<line x1="{_f(ix)}" y1="{_f(-iy)}" x2="{_f(fx)}" y2="{_f(-fy)}" '
-                       f'stroke="{BRACE}" stroke-width="{_f(2.2 * u)}"/>')
-            out.append(_anchor(p.foot_kind, fx, fy, 0.4 * fs, u))
-    return out
-
-
-def _number_findings(findings) -> list[tuple[int, object]]:
-    order = {"danger": 0, "warning": 1, "notice": 2}
-    ranked = sorted(findings, key=lambda f: order.get(f.flag.severity, 3))
-    return list(enumerate(ranked, 1))
-
-
-def _finding_marks(numbered, fs: float, u: float) -> list[str]:
-    """A circled cross (danger) or a triangle (warning) with its number, at each point."""
-    out = []
-    r = 0.8 * fs
-    for n, f in numbered:
-        for x, y in f.at:
-            sx, sy = x, -y
-            if f.flag.severity == "danger":
-                out.append(
-                    f'<g stroke="{DANGER}" stroke-width="{_f(2.5 * u)}" fill="none">'
-                    f'<circle cx="{_f(sx)}" cy="{_f(sy)}" r="{_f(r)}"/>'
-                    f'<line x1="{_f(sx - 0.7 * r)}" y1="{_f(sy - 0.7 * r)}" '
-                    f'x2="{_f(sx + 0.7 * r)}" y2="{_f(sy + 0.7 * r)}"/>'
-                    f'<line x1="{_f(sx - 0.7 * r)}" y1="{_f(sy + 0.7 * r)}" '
-                    f'x2="{_f(sx + 0.7 * r)}" y2="{_f(sy - 0.7 * r)}"/></g>')
-                colour = DANGER
-            elif f.flag.severity == "warning":
-                out.append(f'<polygon points="{_f(sx)},{_f(sy - r)} {_f(sx - r)},'
-                           f'{_f(sy + 0.7 * r)} {_f(sx + r)},{_f(sy + 0.7 * r)}" fill="none" '
-                           f'stroke="{WARNING}" stroke-width="{_f(2 * u)}"/>')
-                colour = WARNING
-            else:
-                continue
-            out.append(_text(sx + 1.1 * r, sy - 0.6 * r, str(n), 0.9 * fs, weight="bold",
-                             fill=colour, extra=' paint-order="stroke" stroke="#fff" '
-                             f'stroke-width="{_f(3 * u)}"'))
-    return out
-
-
-def _north_and_scale(sheet: _Sheet) -> list[str]:
-    """A north arrow (plan y up) in the top right and a scale bar in the bottom left."""
-    fs, u = sheet.font, sheet.unit
-    x, y = sheet.right - 2.0 * fs, sheet.top + 4.2 * fs
-    out = [f'<polygon points="{_f(x)},{_f(y - 3 * fs)} {_f(x - 0.8 * fs)},{_f(y)} '
-           f'{_f(x)},{_f(y - 0.8 * fs)} {_f(x + 0.8 * fs)},{_f(y)}" fill="#000"/>',
-           _text(x, y + 1.3 * fs, "N", 1.2 * fs, "middle", "bold")]
-    raw = sheet.width / 5.0
-    step = 10 ** math.floor(math.log10(raw))
-    length = max(m * step for m in (1, 2, 5) if m * step <= raw)
-    x0, y0, h = sheet.left + 1.0 * fs, sheet.bottom - 1.2 * fs, 0.45 * fs
-    for i in range(4):
-        fill = "#000" if i % 2 == 0 else "#fff"
-        out.append(f'<rect x="{_f(x0 + i * length / 4)}" y="{_f(y0 - h)}" '
-                   f'width="{_f(length / 4)}" height="{_f(h)}" fill="{fill}" stroke="#000" '
-                   f'stroke-width="{_f(u)}"/>')
-    out.append(_text(x0, y0 - h - 0.3 * fs, "0", 0.8 * fs, "middle"))
-    out.append(_text(x0 + length, y0 - h - 0.3 * fs, f"{length:g} ft", 0.8 * fs, "middle"))
-    return out
-
-
-def _legend_items(g) -> list[tuple[str, str]]:
-    """(symbol kind, words) of the legend: what this plan shows."""
-    items = [("slab", "slab"), ("hole", "slab hole or opening"), ("joint", "slab joint"),
-             ("ground", "open ground")]
-    kinds = dict.fromkeys(a.kind for a in g.areas)
-    items += [(f"area:{k}", AREA_STYLE[k][2]) for k in kinds]
-    items += [("wall", "wall standing"), ("ghost", "wall not standing"),
-              ("line", "wall line (tick: braced side)"), ("brace", "brace")]
-    feet = dict.fromkeys(p.foot_kind for p in g.panels if p.braces)
-    items += [(f"anchor:{k}", ANCHOR_WORDS.get(k, k)) for k in feet]
-    items += [("zone", "restricted zone (authorised workers only, nothing stored)"),
-              ("evacuated", "evacuated zone (nobody: at the stand-down speed, during lifts)"),
-              ("danger", "DANGER: failing item, numbered below"),
-              ("warning", "warning, numbered below")]
-    return items
-
-
-def _legend_symbol(kind: str, x: float, y: float, fs: float, u: float) -> str:
-    """A legend symbol in a box about 1.6 fs by 0.8 fs, left edge x, centre line y."""
-    w, h = 1.6 * fs, 0.8 * fs
-    box = f'x="{_f(x)}" y="{_f(y - h / 2)}" width="{_f(w)}" height="{_f(h)}"'
-    line = f'x1="{_f(x)}" y1="{_f(y)}" x2="{_f(x + w)}" y2="{_f(y)}"'
-    if kind == "slab":
-        return f'<rect {box} fill="{SLAB}" stroke="{SLAB_EDGE}" stroke-width="{_f(2 * u)}"/>'
-    if kind == "hole":
-        return f'<rect {box} fill="url(#hatch-hole)" stroke="{SLAB_EDGE}" stroke-width="{_f(u)}"/>'
-    if kind == "joint":
-        return (f'<line {line} stroke="#7f7f7f" stroke-width="{_f(1.2 * u)}" '
-                f'stroke-dasharray="{_f(10 * u)},{_f(3 * u)},{_f(2 * u)},{_f(3 * u)}"/>')
-    if kind == "ground":
-        return f'<rect {box} fill="{GROUND}" stroke="#b8a77a" stroke-width="{_f(u)}"/>'
-    if kind.startswith("area:"):
-        k = kind[5:]
-        colour, angle, _ = AREA_STYLE[k]
-        fill = f'fill="url(#hatch-{k})"' if angle is not None else \
-            f'fill="{colour}" fill-opacity="0.15"'
-        return f'<rect {box} {fill} stroke="{colour}" stroke-width="{_f(1.5 * u)}"/>'
-    if kind == "wall":
-        return f'<rect {box} fill="{WALL}" stroke="#000" stroke-width="{_f(u)}"/>'
-    if kind == "ghost":
-        return (f'<rect {box} fill="#fff" stroke="{WALL}" stroke-width="{_f(u)}" '
-                f'stroke-dasharray="{_f(3 * u)},{_f(2 * u)}"/>')
-    if kind == "line":
-        return (f'<line {line} stroke="#888" stroke-width="{_f(u)}" '
-                f'stroke-dasharray="{_f(8 * u)},{_f(3 * u)}"/>')
-    if kind == "brace":
-        return f'<line {line} stroke="{BRACE}" stroke-width="{_f(2.2 * u)}"/>'
-    if kind.startswith("anchor:"):
-        return _anchor(kind[7:], x + w / 2, -y, 0.4 * fs, u)
-    if kind == "zone":
-        return (f'<rect {box} fill="{ZONE}" fill-opacity="0.16" stroke="{ZONE}" '
-                f'stroke-width="{_f(1.5 * u)}" stroke-dasharray="{_f(6 * u)},{_f(4 * u)}"/>')
-    if kind == "evacuated":
-        return (f'<rect {box} fill="none" stroke="{EVACUATED}" stroke-width="{_f(1.2 * u)}" '
-                f'stroke-dasharray="{_f(14 * u)},{_f(6 * u)}"/>')
-    r = 0.38 * fs
-    cx = x + w / 2
-    if kind == "danger":
-        return (f'<g stroke="{DANGER}" stroke-width="{_f(2.5 * u)}" fill="none">'
-                f'<circle cx="{_f(cx)}" cy="{_f(y)}" r="{_f(r)}"/>'
-                f'<line x1="{_f(cx - 0.7 * r)}" y1="{_f(y - 0.7 * r)}" x2="{_f(cx + 0.7 * r)}" '
-                f'y2="{_f(y + 0.7 * r)}"/><line x1="{_f(cx - 0.7 * r)}" y1="{_f(y + 0.7 * r)}" '
-                f'x2="{_f(cx + 0.7 * r)}" y2="{_f(y - 0.7 * r)}"/></g>')
-    return (f'<polygon points="{_f(cx)},{_f(y - r)} {_f(cx - r)},{_f(y + 0.7 * r)} '
-            f'{_f(cx + r)},{_f(y + 0.7 * r)}" fill="none" stroke="{WARNING}" '
-            f'stroke-width="{_f(2 * u)}"/>')
-
-
-def _legend_and_findings(g, numbered, sheet: _Sheet, y0: float) -> tuple[list[str], float]:
-    """The legend in columns, each zone's basis, then the numbered findings; (items, height)."""
-    fs, u = sheet.font, sheet.unit
-    size = 0.8 * fs
-    items = _legend_items(g)
-    col_w = 2.6 * fs + max(len(w) for _, w in items) * CHAR * size
-    cols = max(1, int(sheet.width // col_w))
-    rows = -(-len(items) // cols)
-    out = [_text(sheet.left + 0.5 * fs, y0 + fs, "Legend", fs, weight="bold")]
-    top = y0 + 2.0 * fs
-    for i, (kind, words) in enumerate(items):
-        x = sheet.left + 0.5 * fs + (i // rows) * col_w
-        y = top + (i % rows) * 1.3 * fs
-        out.append(_legend_symbol(kind, x, y, fs, u))
-        out.append(_text(x + 2.0 * fs, y + 0.3 * size, words, size))
-    y = top + rows * 1.3 * fs + 0.5 * fs
-    lines = [(f"Zone of {p.mark}: {p.zone_basis}", "#000", "normal")
-             for p in g.panels if p.standing and p.zone_basis]
-    lines += [("Same footprint for the evacuated zone: what changes is who may be inside.",
-               "#000", "normal")] if lines else []
-    if numbered:
-        lines.append((f"Findings of the plan ({len(numbered)}):", "#000", "bold"))
-    for n, f in numbered[:MOST_FINDINGS]:
-        colour = {"danger": DANGER, "warning": WARNING}.get(f.flag.severity, "#000")
-        words = f"{n}. {f.flag.severity.upper()} {f.mark} [{f.flag.code}] {f.flag.message}. " \
-                f"Source: {f.flag.source}."
-        for k, part in enumerate(sheet.wrap(words, size, f.flag.severity == "danger")):
-            lines.append((("   " if k else "") + part, colour,
-                          "bold" if f.flag.severity == "danger" else "normal"))
-    if len(numbered) > MOST_FINDINGS:
-        lines.append((f"... and {len(numbered) - MOST_FINDINGS} more in the report", "#000",
-                      "normal"))
-    for words, colour, weight in lines:
-        y += 1.25 * size
-        out.append(_text(sheet.left + 0.5 * fs, y, words, size, weight=weight, fill=colour))
-    return out, y + fs - y0
-
-
-def _no_plan_svg(result) -> str:
-    """A sheet saying there is no plan to draw, with the caution."""
-    w = 100.0
-    fs = 2.2
-    caution = textwrap.wrap(getattr(result, "caution", ""), int(w / (CHAR * fs)) - 2)
-    items = [_text(2, 4, f"Site plan: {getattr(result, 'name', '')}", 1.4 * fs, weight="bold"),
-             _text(2, 4 + 2.2 * fs, "No plan to draw: no wall is placed on a wall line.", fs)]
-    items += [_text(2, 4 + (4 + 1.3 * i) * fs, words, fs, weight="bold",
-                    extra=' class="caution"') for i, words in enumerate(caution)]
-    h = 4 + (5 + 1.3 * len(caution)) * fs
-    return _document(0.0, 0.0, w, h, [], items, getattr(result, "caution", ""))
-
-
+# --- a wall's bracing section ---------------------------------------------------------------------
 def section_svg(panel_result) -> str:
     """A small section of one wall's bracing, drawn to scale from the result's values: wall
     height and thickness, insert height, the brace, its foot distance, angle and length."""
