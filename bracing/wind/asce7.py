@@ -198,6 +198,40 @@ def case_c_mean(x0_over_s, x1_over_s, b_over_s, s_over_h, return_ratio=0.0, bins
     return mean[()], centroid[()]
 
 
+def case_c_max(x0_over_s, x1_over_s, b_over_s, s_over_h, return_ratio=0.0, bins=None):
+    """Largest local Case C Cf over [x0, x1] (in s from the windward end) of a wall B/s long.
+
+    A strip of a wall built in place takes the largest regional coefficient it touches (method
+    notes §2): beside a return wall the reduced 0-s region may be below the s-2s one, so no
+    region is assumed to govern. A point on a region edge belongs to the region downwind of
+    it, as in `case_c_cf`. Where B/s < 2 Case C does not apply and the Case A/B value is
+    returned. `bins`: the walls' `case_c_bins`, if the caller has them.
+    """
+    x0, x1, b, r, lr = np.broadcast_arrays(*(np.asarray(a, dtype=float) for a in
+                                             (x0_over_s, x1_over_s, b_over_s, s_over_h,
+                                              return_ratio)))
+    if bins is None:
+        bins = case_c_bins(b, r, lr)
+    lo, hi = np.minimum(x0, x1)[..., None], np.maximum(x0, x1)[..., None]
+    # the region holding lo, and every region that starts before hi and ends after lo
+    touched = (_C_BIN_HI > lo) & ((_C_BIN_LO < hi) | (_C_BIN_LO <= lo))
+    largest = np.where(touched, bins, -np.inf).max(axis=-1)
+    return np.where(b >= 2.0, largest, cf_cases_ab(b, r))[()]  # Case C for B/s >= 2 only
+
+
+def case_b_linear_factor(middle_over_b):
+    """Case B of a wall built in place, as a pressure varying linearly along it: the strip
+    centred `middle_over_b` (a fraction of B from either end) takes p_avg times this factor
+    over its area, wind from whichever end loads it more.
+
+    p(x) = p_avg (1 + 2.4 (x/B - 1/2)) has its resultant 0.2 B off centre, as Figure 29.3-1
+    places Case B's (method notes §2); over a strip it averages to its value at the strip's
+    middle, and from the worse end that is 1 + 2.4 |x/B - 1/2| (at least 1: Case A's uniform
+    pressure never exceeds it).
+    """
+    return 1.0 + 2.4 * np.abs(np.asarray(middle_over_b, dtype=float) - 0.5)
+
+
 def resultant_height_ratio(s_over_h):
     """Height of the resultant above the wall's base, as a fraction of s, for a solid wall.
 
