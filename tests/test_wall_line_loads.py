@@ -213,3 +213,29 @@ def test_the_tallest_unbraced_height_works_the_coefficients_afresh():
                      "thickness": 7.625, "mortar_age": 0.0}], materials=materials)
     e = ev.evaluate_arrays(site)
     assert e.max_height[0] == pytest.approx(6.0, rel=1e-4)
+
+
+def test_a_stiff_member_makes_the_braces_share_as_on_a_rigid_panel():
+    """The masonry wall of tests/validation (12 ft x 40 ft, four braces at 5, 15, 25, 35 ft,
+    inserts 9 ft, 45 degrees) with a strongback tying its braces (`stiff_member`): the braces
+    share each load case by statics with the twist (design.md §6).
+
+    Case A force F = q G Cf_A As = 15.63 x 0.85 x 1.3667 x 480 = 8,718 lb at 0.55 x 12 = 6.6 ft:
+    sum R = F x 6.6 / 9 = 0.7333 F. Case B puts F 0.2 B = 8 ft off centre: M_t = 8 F about
+    the braces' centroid (the wall's centre), sum (x - x_c)^2 = 2 (15^2 + 5^2) = 500 ft^2.
+    End brace: 0.7333 F / 4 + 8 F x 15 / 500 = 0.4233 F; inner: 0.1833 F + 8 F x 5 / 500 =
+    0.2633 F. (Case C of the wall alone, mean 1.4507 at 16.27 ft from its end, gives less:
+    0.295 x 1.0615 F at the end brace.) The lean, 33.3 lb at the centre, shares evenly. ASD:
+    P = (0.6 R + 8.33) / cos 45: end 0.6 x 0.4233 x 8,718 = 2,214 + 8.33 -> 3,143 lb; inner
+    0.6 x 0.2633 x 8,718 = 1,377 + 8.33 -> 1,959 lb.
+    """
+    bracing = {"brace_type": "big", "count": 4, "insert_height": 9.0, "angle": 45.0,
+               "stiff_member": True}
+    site = site_of([masonry("S", 40.0, bracing=bracing)])
+    force = Q * G * 1.3667 * 480.0
+    assert force == pytest.approx(8718.0, rel=1e-3)
+    end = (0.6 * 0.42333 * force + 8.333) / np.cos(np.radians(45.0))
+    inner = (0.6 * 0.26333 * force + 8.333) / np.cos(np.radians(45.0))
+    assert (end, inner) == (pytest.approx(3143.0, abs=3.0), pytest.approx(1959.0, abs=3.0))
+    found = ev.evaluate(site).panels[0].braces["brace_forces_lb"]
+    assert found == pytest.approx([end, inner, inner, end], rel=2e-3)
