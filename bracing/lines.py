@@ -174,20 +174,17 @@ def coefficients(groups: np.ndarray, width: np.ndarray, height: np.ndarray,
     x0 = d / s
     x1 = x0 + width[:, None] / s
     mid = (x0 + x1) / 2.0
-    bins_lo = asce7.case_c_bins(b_over_s, s_over_h, r0 / s)  # wind from the group's start
-    bins_hi = asce7.case_c_bins(b_over_s, s_over_h, r1 / s)  # and from its far end
+    bins_lo, bins_hi = _end_bins(b_over_s, s_over_h, r0 / s, r1 / s)
     case_a = asce7.cf_cases_ab(b_over_s, s_over_h)
-    left, cx_left = asce7.case_c_mean(x0, x1, b_over_s, s_over_h, bins=bins_lo)
-    right, cx_right = asce7.case_c_mean(b_over_s - x1, b_over_s - x0, b_over_s, s_over_h,
-                                        bins=bins_hi)
-    local = np.maximum(asce7.case_c_max(x0, x1, b_over_s, s_over_h, bins=bins_lo),
-                       asce7.case_c_max(b_over_s - x1, b_over_s - x0, b_over_s, s_over_h,
-                                        bins=bins_hi))
-    at_mid = np.maximum(asce7.case_c_cf(mid, b_over_s, s_over_h, bins=bins_lo),
-                        asce7.case_c_cf(b_over_s - mid, b_over_s, s_over_h, bins=bins_hi))
+    of = {"b_over_s": b_over_s, "s_over_h": s_over_h, "ab": case_a}
+    left, cx_left = asce7.case_c_mean(x0, x1, bins=bins_lo, **of)
+    right, cx_right = asce7.case_c_mean(b_over_s - x1, b_over_s - x0, bins=bins_hi, **of)
+    local = np.maximum(asce7.case_c_max(x0, x1, bins=bins_lo, **of),
+                       asce7.case_c_max(b_over_s - x1, b_over_s - x0, bins=bins_hi, **of))
+    at_mid = np.maximum(asce7.case_c_cf(mid, bins=bins_lo, **of),
+                        asce7.case_c_cf(b_over_s - mid, bins=bins_hi, **of))
     # a wall alone: its interior is the s-2s region (the largest beyond s from both ends)
-    beyond_s = np.where(b_over_s > 2.0, asce7.case_c_cf(1.0, b_over_s, s_over_h, bins=bins_lo),
-                        local)
+    beyond_s = np.where(b_over_s > 2.0, asce7.case_c_cf(1.0, bins=bins_lo, **of), local)
     interior = np.where(np.arange(g.shape[1]) == 0, beyond_s, at_mid)
     best_a = case_a.max(axis=1)
     end = np.maximum(local.max(axis=1), best_a)
@@ -202,6 +199,16 @@ def coefficients(groups: np.ndarray, width: np.ndarray, height: np.ndarray,
     return LineLoads(**out)
 
 
+def _end_bins(b_over_s, s_over_h, return_start, return_end):
+    """The Case C bins (asce7.case_c_bins) of groups for wind from their start and from their
+    end, each end's return wall (Lr/s) cutting its own 0-s cell; worked out once where the
+    returns are the same at both ends."""
+    bins = asce7.case_c_bins(b_over_s, s_over_h, return_start)
+    if np.array_equal(return_start, return_end):
+        return bins, bins
+    return bins, asce7.case_c_bins(b_over_s, s_over_h, return_end)
+
+
 def strip_case_c(groups: np.ndarray, width: np.ndarray, height: np.ndarray, base: np.ndarray,
                  lo: np.ndarray, hi: np.ndarray) -> np.ndarray:
     """The largest local Case C coefficient over each strip [lo, hi] (ft from the wall's first
@@ -213,8 +220,8 @@ def strip_case_c(groups: np.ndarray, width: np.ndarray, height: np.ndarray, base
     s = height[:, None]
     d, length, r0, r1 = (g[..., k] for k in range(GROUP_COLUMNS))
     b_over_s, s_over_h = length / s, s / (base[:, None] + s)
-    bins_lo = asce7.case_c_bins(b_over_s, s_over_h, r0 / s)[:, :, None]
-    bins_hi = asce7.case_c_bins(b_over_s, s_over_h, r1 / s)[:, :, None]
+    bins_lo, bins_hi = (bins[:, :, None] for bins in _end_bins(b_over_s, s_over_h, r0 / s,
+                                                                r1 / s))
     x0 = (d[..., None] + lo[:, None]) / s[..., None]  # (m, G, k) in s from the group's start
     x1 = (d[..., None] + hi[:, None]) / s[..., None]
     bos, soh = b_over_s[..., None], s_over_h[..., None]
