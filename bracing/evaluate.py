@@ -85,10 +85,6 @@ class Walls:
     ke: float
 
     @property
-    def in_line(self) -> np.ndarray:
-        return ~np.isnan(self.groups[:, 1:, 1]).all(axis=1)
-
-    @property
     def has_footing(self) -> np.ndarray:
         return ~np.isnan(self.footing_width)
 
