@@ -11,7 +11,7 @@ from dataclasses import dataclass, fields, replace
 
 import numpy as np
 
-from bracing import anchors, braces, members, stability
+from bracing import anchors, braces, lines, members, stability
 from bracing.data_members import DRESSED_SIZES_IN, LUMBER_GRADES, PIPES
 from bracing.model import BRACING_FIELDS, read_panels
 from bracing.wind import asce7
@@ -54,6 +54,7 @@ class BraceSet:
     torque_safety: np.ndarray
     rupture: np.ndarray         # concrete modulus of rupture, psi (NaN: not concrete)
     pretensioned: np.ndarray
+    stiff: np.ndarray           # a continuous stiff member (strongback, waler) ties the braces
     slenderness: np.ndarray     # governing Lc/r (pipe) or le/d (lumber), NaN for rated braces
     slenderness_limit: np.ndarray
     basis: str                  # "ASD" | "LRFD" (the amplifier's alpha)
@@ -71,9 +72,10 @@ def take(obj, rows):
 
 
 UNCHECKED = ("index", "positions", "mask", "anchor_distance", "length", "lean", "slop",
-             "pretensioned", "slenderness", "slenderness_limit", "torque_factor",
+             "pretensioned", "stiff", "slenderness", "slenderness_limit", "torque_factor",
              "torque_safety", "foot_kind", "rupture")
-LOADED = ("index", "positions", "insert", "lean", "slop")  # and the mask: what brace_loads reads
+LOADED = ("index", "positions", "insert", "lean", "slop", "stiff")  # and the mask: what
+#                                                                    brace_loads reads
 
 
 def for_checks(bs: BraceSet) -> BraceSet:
@@ -126,7 +128,8 @@ def brace_set(site, rows, positions, anchor_distance, angle, column: dict, basis
 
     `anchor_distance` or `angle` gives the foot (NaN where the other is given); `column` holds
     insert_height, insert_offset (in), foot_offset (in), base_below_slab, lean (in), slop (in),
-    pretensioned and the type names brace_type, wall_anchor, foot_anchor.
+    pretensioned, stiff_member (optional: none) and the type names brace_type, wall_anchor,
+    foot_anchor.
     """
     c = column
     offsets = (c["insert_offset"] * IN, c["foot_offset"] * IN, c["base_below_slab"])
@@ -137,7 +140,9 @@ def brace_set(site, rows, positions, anchor_distance, angle, column: dict, basis
     return BraceSet(index=rows, positions=np.nan_to_num(positions), mask=~np.isnan(positions),
                     insert=c["insert_height"].astype(float), anchor_distance=distance,
                     angle=theta, length=length, lean=c["lean"] * IN, slop=c["slop"] * IN,
-                    pretensioned=c["pretensioned"].astype(bool), **caps,
+                    pretensioned=c["pretensioned"].astype(bool),
+                    stiff=np.asarray(c.get("stiff_member", np.zeros(len(rows))), dtype=bool),
+                    **caps,
                     basis=basis)
 
 
@@ -266,17 +271,18 @@ class BraceForces:
 class BraceLoads:
     """Unfactored loads on the braced walls (lb): each brace's horizontal reaction to the wind,
     the largest and the least over a rigid panel's load cases (the even share plus the twist)
-    or its own strip's of a wall built in place, and its share of the wall's weight leaning
-    out of plumb, with each wall's sums. The wind is linear in q, so an observed gust's loads
-    are those of 1 mph scaled by V^2; the lean does not scale."""
+    or its own strip's largest of a wall built in place, and its share of the wall's weight
+    leaning out of plumb, with each wall's sums. The wind is linear in q, so an observed gust's
+    loads are those of 1 mph scaled by V^2; the lean does not scale."""
 
     most: np.ndarray        # (m, k) each brace's largest wind reaction over the load cases
     least: np.ndarray       # (m, k) and its least (a strip's brace: both its strip's); NaN at
     #                         an empty slot
-    lean: np.ndarray        # (m, k) each brace's share of the lean (a strip's brace: its size)
+    lean: np.ndarray        # (m, k) each brace's share of the lean
     total: np.ndarray       # (m,) largest sum of the braces' wind reactions over the cases
     wind_force: np.ndarray  # (m,) the whole wall's wind force in that case
-    base_shear: np.ndarray  # (m,) largest |F - sum R_h| over the cases
+    base_shear: np.ndarray  # (m,) F - sum R_h of the case where it is largest in size, signed:
+    #                         it reverses where the insert is below the resultant
     lean_total: np.ndarray  # (m,) sum of the braces' horizontal reactions to the lean
 
     def take(self, rows) -> BraceLoads:
@@ -295,15 +301,17 @@ class BraceLoads:
 def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
     """The wind load cases on each braced wall and each brace's reactions (design.md §4, §6).
 
-    A rigid panel's braces share each load case as a whole with the twist; a wall built in
-    place gives each brace its own strip (each worked out for the walls that use it). Worked
-    out once for a wind: the reactions of any load factor and any scale follow from them."""
-    rigid = walls.rigid[bs.index]
+    A rigid panel's braces share each load case as a whole with the twist, and so do those of
+    a wall built in place whose braces a continuous stiff member ties together (a strongback
+    or waler); any other wall built in place gives each brace its own strip (each worked out
+    for the walls that use it), under the worst of its pressure patterns. Worked out once for
+    a wind: the reactions of any load factor and any scale follow from them."""
+    rigid = walls.rigid[bs.index] | bs.stiff
     m, k = bs.mask.shape
     i = bs.index
     s, b = walls.height[i], walls.width[i]
     hb = bs.insert
-    height = np.where(rigid, wind.lever[i], wind.lever_strip[i])
+    height = wind.lever[i]  # every strip's force at the wall's resultant height (§6)
     most, least = np.full((m, k), np.nan), np.full((m, k), np.nan)
     total, force, shear = np.zeros(m), np.zeros(m), np.zeros(m)
     lever = braces.brace_lever(bs.positions, bs.mask)
@@ -323,7 +331,8 @@ def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
             high, low = np.maximum(high, shares), np.minimum(low, shares)
             pushed = np.where(case_sum > sums, case, pushed)  # the first case of the largest sum
             sums = np.maximum(sums, case_sum)
-            out = np.maximum(out, np.abs(case - case_sum))
+            kick = case - case_sum  # F - sum(R_h): the base shear (§6), signed
+            out = np.where(np.abs(kick) > np.abs(out), kick, out)
         most[rows], least[rows], total[rows], force[rows], shear[rows] = high, low, sums, \
             pushed, out
     rows = np.flatnonzero(~rigid)
@@ -334,45 +343,38 @@ def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
         strip_h = braces.total_brace_reaction(strip, height[rows][:, None], hb[rows][:, None])
         most[rows] = least[rows] = strip_h
         total[rows], force[rows] = braces.slot_sum(strip_h), braces.slot_sum(strip)
-        shear[rows] = np.abs(force[rows] - total[rows])
+        shear[rows] = force[rows] - total[rows]
     most, least = np.where(bs.mask, most, np.nan), np.where(bs.mask, least, np.nan)
     dead = walls.face_weight[i] * s * b * walls.solidity[i]
     lean_total = braces.lean_reaction(dead, walls.centroid_ratio[i] * s, s, hb, bs.lean, bs.slop)
     lean = braces.brace_shares(lean_total, np.zeros(m), b / 2.0, b / 2.0, bs.positions,
                                bs.mask, lever)
-    # a strip's brace takes the lean's size whichever way it leans (its strip holds it alone)
-    lean = np.where(rigid[:, None], lean, np.abs(lean))
+    # walls built in place without a stiff member: the lean shares equally (§6)
+    count = braces.slot_sum(bs.mask, 0)
+    lean = np.where(rigid[:, None], lean, np.where(bs.mask, (lean_total / count)[:, None],
+                                                   np.nan))
     return BraceLoads(most, least, lean, total, force, shear, lean_total)
 
 
-LOAD_CASES = 7  # Case A, Case B from either edge, Case C from either end, the line's two ends
+LOAD_CASES = 5  # Case A, Case B from either edge, Case C from either end (alone or on a line)
 
 
 def _case_loads(walls, wind, i, minimum_psf) -> tuple[np.ndarray, np.ndarray]:
     """Forces (lb) of a rigid panel's load cases and where they act from its first edge (ft).
 
-    Cases A, B (either edge) and C (either end), the braces carrying the twist; on a wall
-    line, the line's Case C over this panel's width from either end."""
-    s, b = walls.height[i], walls.width[i]
-    b_over_s = b / s
-    s_over_h = s / (walls.base[i] + s)
+    Cases A, B (either edge) and C (either end), the braces carrying the twist; Case C is the
+    largest of the panel alone and on its line each day, over its width from either end
+    (`Wind.cf_left`, `cf_right`). An open wall (solidity < 0.7) takes no Case C."""
+    b = walls.width[i]
+    solid = walls.solidity[i] >= 0.7
 
     def force_of(cf):
-        return np.where(np.isnan(cf), 0.0, np.maximum(
-            wind.q[i] * asce7.GUST_FACTOR * np.nan_to_num(cf) * wind.opening[i] * wind.area[i],
-            (minimum_psf or 0.0) * b * s))  # ASCE 7-16 Eq. 29.3-1 and §29.7
+        return np.where(solid, np.maximum(
+            wind.q[i] * asce7.GUST_FACTOR * cf * wind.opening[i] * wind.area[i],
+            (minimum_psf or 0.0) * wind.area[i]), 0.0)  # ASCE 7-16 Eq. 29.3-1 and §29.7
     centroid = walls.centroid_x_ratio[i] * b
-    # A wall on its own takes its own Case C (B/s >= 2); NaN elsewhere: no force, at its edge.
-    alone = (b_over_s >= 2.0) & ~walls.in_line[i]
-    cf_c, xc_c = np.full(len(i), np.nan), np.zeros(len(i))
-    if alone.any():
-        cf_c[alone], xc_c[alone] = asce7.case_c_mean(0.0, b_over_s[alone], b_over_s[alone],
-                                                     s_over_h[alone])
-    force_c = force_of(cf_c)
-    line_left, line_right = force_of(walls.line_left[i]), force_of(walls.line_right[i])
-    forces = [wind.force_a[i]] * 3 + [force_c, force_c, line_left, line_right]
-    at = [centroid, centroid + 0.2 * b, centroid - 0.2 * b, xc_c * s, b - xc_c * s,
-          np.nan_to_num(walls.line_left_x[i]), np.nan_to_num(walls.line_right_x[i])]
+    forces = [wind.force_a[i]] * 3 + [force_of(wind.cf_left[i]), force_of(wind.cf_right[i])]
+    at = [centroid, centroid + 0.2 * b, centroid - 0.2 * b, wind.x_left[i], wind.x_right[i]]
     return np.array(forces), np.array(at)
 
 
@@ -380,32 +382,35 @@ def brace_forces(loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
     """Per-brace factored forces, the governing load case of each brace (design.md §6).
 
     Each brace's wind reaction (factored) plus its lean: the larger in size of its largest and
-    least over the cases (|x + lean| is largest at one end of the reactions' range)."""
+    least over the cases (|x + lean| is largest at one end of the reactions' range). The base
+    shear is F - sum(R_h) with the lean among the braces' reactions: the lean's reaction comes
+    off it (design.md §6; it reverses where the insert is below the wind's resultant)."""
     lean_total, lean = f.dead_adds * loads.lean_total, f.dead_adds * loads.lean
     horizontal = np.fmax(np.abs(f.wind * loads.most + lean), np.abs(f.wind * loads.least + lean))
     horizontal = np.where(bs.mask, horizontal, 0.0)
     axial = braces.axial_force(horizontal, bs.angle[:, None])
     return BraceForces(horizontal, axial, f.wind * loads.total + lean_total,
-                       f.wind * loads.base_shear + lean_total, loads.wind_force)
+                       np.abs(f.wind * loads.base_shear - lean_total), loads.wind_force)
 
 
 def _strip_loads(walls, wind, i, listed, positions, mask, minimum_psf):
     """Wind on each brace's tributary strip of walls built in place (lb, in slot order):
     `positions` and `mask` are their braces as in BraceSet, a row for each layout, `listed` the
-    wall of `i` of each (a wall may have more than one)."""
+    wall of `i` of each (a wall may have more than one).
+
+    Each strip runs from midway to its neighbours (the end strips to the wall's ends) and takes
+    the worst of these patterns, each from either end (design.md §6): Case B of the wall alone
+    as a pressure varying linearly along it, p_avg (1 + 2.4 (x/B - 1/2)) with p_avg =
+    max(q G Cf_A, 16 psf) (it is never below Case A's uniform pressure, which needs no pattern
+    of its own); and, on a solid wall, Case C by distance from the windward end of the wall
+    alone and of its line each day, the largest coefficient over the strip.
+    """
     s, b = walls.height[i], walls.width[i]
-    b_over_s = b / s
-    s_over_h = s / (walls.base[i] + s)
-    cf_ab = asce7.cf_cases_ab(b_over_s, s_over_h)
-    on_line, solid = walls.in_line[i], walls.solidity[i] >= 0.7
-    # Each wall's strips take Cases A/B, or its line's coefficient where it stands on a line
-    # (never below A/B), or an open wall's; a solid wall on its own with B/s >= 2 takes
-    # Case C over its own strips below.
-    cf_wall = np.where(solid, np.where(on_line, np.fmax(cf_ab, walls.line_local_max[i]), cf_ab),
-                       asce7.cf_open(walls.solidity[i]))
-    own_c_wall = (b_over_s >= 2.0) & ~on_line & solid
-    s, b, b_over_s, s_over_h, cf_ab, cf_wall, own_c_wall, q = (
-        v[listed] for v in (s, b, b_over_s, s_over_h, cf_ab, cf_wall, own_c_wall, wind.q[i]))
+    solid = walls.solidity[i] >= 0.7
+    share = np.where(solid, 1.0, walls.solidity[i])  # the area Cf applies to, per ft^2 of face
+    s, b, solid, share, q, cf_a, opening, groups, base = (
+        v[listed] for v in (s, b, solid, share, wind.q[i], wind.cf_case_a[i], wind.opening[i],
+                            walls.groups[i], walls.base[i]))
     x = np.where(mask, positions, np.nan)
     by_position = np.argsort(x, axis=1)  # the empty slots (NaN) last
     order = np.take_along_axis(x, by_position, axis=1)
@@ -417,22 +422,16 @@ def _strip_loads(walls, wind, i, listed, positions, mask, minimum_psf):
     last = np.arange(mask.shape[1])[None, :] == (count - 1)[:, None]
     hi = np.where(last, b[:, None], hi)
     lo, hi = np.where(np.isnan(lo), 0.0, lo), np.where(np.isnan(hi), 0.0, hi)
-    width = np.maximum(hi - lo, 0.0)
-    cf = np.repeat(cf_wall[:, None], lo.shape[1], axis=1)
-    # Case C over each strip (strips in sorted order, the real ones first)
-    own_c = (np.arange(lo.shape[1])[None, :] < count[:, None]) & own_c_wall[:, None]
-    if own_c.any():
-        row = np.nonzero(own_c)[0]
-        wall = i[listed[row]]
-        sr, bos, soh = s[row], b_over_s[row], s_over_h[row]
-        left = asce7.case_c_mean(lo[own_c] / sr, hi[own_c] / sr, bos, soh,
-                                 walls.return_left[wall])[0]
-        right = asce7.case_c_mean((b[row] - hi[own_c]) / sr, (b[row] - lo[own_c]) / sr, bos,
-                                  soh, walls.return_right[wall])[0]
-        cf[own_c] = np.maximum(cf_ab[row], np.maximum(left, right))
-    ss = s[:, None]
-    strip = np.maximum(q[:, None] * asce7.GUST_FACTOR * cf * ss * width,
-                       (minimum_psf or 0.0) * ss * width)  # ASCE 7-16 Eq. 29.3-1 and §29.7
+    area = s[:, None] * np.maximum(hi - lo, 0.0) * share[:, None]
+    floor = (minimum_psf or 0.0) * area  # ASCE 7-16 §29.7 on As (design.md §3)
+    g = asce7.GUST_FACTOR
+    p_avg = np.maximum(q * g * cf_a, minimum_psf or 0.0)  # ASCE 7-16 Eq. 29.3-1 and §29.7
+    # Case B as a linear pressure, from whichever end loads the strip more (method notes §2)
+    strip = p_avg[:, None] * area * asce7.case_b_linear_factor((lo + hi) / (2.0 * b[:, None]))
+    if solid.any():  # Case C (Figure 29.3-1), the largest coefficient over each strip
+        cf_c = lines.strip_case_c(groups, b, s, base, lo, hi) * opening[:, None]
+        strip = np.where(solid[:, None], np.maximum(strip, np.maximum(
+            q[:, None] * g * cf_c * area, floor)), strip)
     # strips follow the sorted positions: put them back in each brace's own slot
     in_slots = np.empty_like(strip)
     np.put_along_axis(in_slots, by_position, strip, axis=1)

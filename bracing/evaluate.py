@@ -71,8 +71,6 @@ class Walls:
     flex_tension: np.ndarray    # psi, 0 where not credited
     section: np.ndarray         # in^3 per ft of bed joint
     section_area: np.ndarray    # in^2 per ft
-    return_left: np.ndarray     # Lr/s at each end
-    return_right: np.ndarray
     footing_width: np.ndarray   # NaN where none
     footing_thickness: np.ndarray
     footing_psf: np.ndarray     # footing weight per ft^2 of plan (incl. soil over it)
@@ -80,27 +78,19 @@ class Walls:
     footing_mu: np.ndarray
     base_mu: np.ndarray
     period_factor: np.ndarray
-    line_case_a: np.ndarray     # wall-line loads enveloped over the days (NaN: on no line)
-    line_left: np.ndarray
-    line_left_x: np.ndarray
-    line_right: np.ndarray
-    line_right_x: np.ndarray
-    line_local_max: np.ndarray
-    line_local_mid: np.ndarray
+    groups: np.ndarray          # (n, G, 4): the wall alone, then its groups on its line
+    #                             (lines.alone_and_on_lines; geometry in ft, NaN: none)
     exposure: str
     kzt: float
     ke: float
-
-    @property
-    def in_line(self) -> np.ndarray:
-        return ~np.isnan(self.line_case_a)
 
     @property
     def has_footing(self) -> np.ndarray:
         return ~np.isnan(self.footing_width)
 
     def at_height(self, height: np.ndarray) -> Walls:
-        """The same walls at trial heights (openings kept as the same share and centroid ratio)."""
+        """The same walls at trial heights (openings kept as the same share and centroid ratio;
+        the wind works out every coefficient that depends on the height afresh from them)."""
         return replace(self, height=height)
 
 
@@ -141,10 +131,10 @@ def gather(site: Site, columns: dict[str, tuple] | None = None,
     solid -= np.nan_to_num(opening_area)
     solidity = np.where(open_framing, STUD_SOLIDITY, solid / (width * height))
     cured = masonry & (mortar_age >= (site.rule_value("masonry_cure_days") or 0.0))
-    returns = np.zeros((2, n))  # Lr/s at the left and right ends
+    returns = np.zeros((2, n))  # Lr (ft) at the left and right ends
     for k in [k for k, r in enumerate(return_walls) if r]:
         for r in return_walls[k]:
-            returns[int(r.end == "right"), k] = r.length / height[k]
+            returns[int(r.end == "right"), k] = r.length
     base = np.full((5, n), np.nan)  # footing width, thickness, psf of plan, bearing, friction
     for k in [k for k, given in enumerate(footing) if given is not None]:
         ftg = footing[k]
@@ -159,14 +149,12 @@ def gather(site: Site, columns: dict[str, tuple] | None = None,
     section, section_area = stability.masonry_section(thickness, bedding)
     period_factor = (np.full(n, site.site.period_factor) if site.site.period_factor
                      else asce37.period_factor(weeks))
-    loads = lines.line_loads(site, releases, width, height, base_elevation, f)
-    along = ([getattr(loads, k) for k in lines.LineLoads.__dataclass_fields__] if loads
-             else [np.full(n, np.nan)] * 7)
+    groups = lines.alone_and_on_lines(returns, width, lines.line_groups(site, releases, width, f))
     return Walls(
         height, width, t_ft, base_elevation, face, solidity, centroid / height,
         centroid_x / width, concrete, masonry & ~cured, masonry, framed,
-        np.where(cured, tension, 0.0), section, section_area, *returns, *base,
-        np.full(n, site.site.friction_coefficient), period_factor, *along,
+        np.where(cured, tension, 0.0), section, section_area, *base,
+        np.full(n, site.site.friction_coefficient), period_factor, groups,
         exposure=site.site.exposure, kzt=site.site.topographic_factor,
         ke=float(asce7.ke(site.site.ground_elevation)))
 
@@ -198,6 +186,10 @@ class Wind:
     force: np.ndarray           # governing whole-panel force, lb
     cf_end: np.ndarray          # per-foot coefficients of a solid strip
     cf_interior: np.ndarray
+    cf_left: np.ndarray         # Case C over the wall's width, wind from its group's start
+    x_left: np.ndarray          # (the largest of its groups) and where it acts, ft from the
+    cf_right: np.ndarray        # wall's first edge; and from the far end
+    x_right: np.ndarray
     line_end: np.ndarray        # per-foot forces, plf
     line_interior: np.ndarray
     lever: np.ndarray           # resultant height above the wall's base, ft
@@ -212,7 +204,11 @@ class Wind:
 
 
 def wind_on(w: Walls, speed, kd: float, minimum_psf: float | None) -> Wind:
-    """The wind on each wall at `speed` (ASCE 7-16 §29.3); `minimum_psf` for design wind only."""
+    """The wind on each wall at `speed` (ASCE 7-16 §29.3); `minimum_psf` for design wind only.
+
+    Every coefficient that depends on the walls' height (Kz, s/h, B/s, the Case C regions,
+    the return walls' Lr/s, the wall lines') is worked out here from `w`, so walls at trial
+    heights (`Walls.at_height`) get their own."""
     s = w.height
     top = w.base + s
     s_over_h = s / top
@@ -223,55 +219,32 @@ def wind_on(w: Walls, speed, kd: float, minimum_psf: float | None) -> Wind:
     solid = w.solidity >= 0.7  # Figure 29.3-1 note 3; below 0.7 the wall is open
     opening = np.where(solid, asce7.opening_factor(np.minimum(w.solidity, 1.0)), 1.0)
     cf_ab = asce7.cf_cases_ab(b_over_s, s_over_h)
-    # A lone wall's own Case C; a wall on a line takes its line's Cases A and C instead (§4).
-    lone_c = np.zeros(len(s))
-    alone = (b_over_s >= 2.0) & ~w.in_line
-    if alone.any():
-        lone_c[alone] = asce7.case_c_mean(0.0, b_over_s[alone], b_over_s[alone],
-                                          s_over_h[alone])[0]
-    line_c = np.fmax(np.fmax(w.line_case_a, w.line_left), w.line_right)
-    case_c = np.where(w.in_line, line_c, lone_c)
+    # The wall alone and on its line each day: Case C from either end, enveloped (§4).
+    line = lines.coefficients(w.groups, w.width, s, w.base)
+    case_c = np.maximum(line.left_mean, line.right_mean)
     cf_open = asce7.cf_open(w.solidity)
     cf_case_a = np.where(solid, cf_ab * opening, cf_open)
     cf_whole = np.where(solid, np.maximum(cf_ab, case_c) * opening, cf_open)
     gross = w.width * s
     area = np.where(solid, gross, gross * w.solidity)  # open walls: Cf on the solid area
-    floor = 0.0 if minimum_psf is None else minimum_psf * gross  # ASCE 7-16 §29.7
+    # ASCE 7-16 §29.7: the minimum on As, the gross area of a solid wall and the solid area of
+    # an open one (design.md §3)
+    floor = 0.0 if minimum_psf is None else minimum_psf * area
     force_a = np.maximum(q * g * cf_case_a * area, floor)  # ASCE 7-16 Eq. 29.3-1
     force = np.maximum(q * g * cf_whole * area, floor)
-    cf_end, cf_interior = strip_coefficients(w, b_over_s, s_over_h, cf_ab, solid, cf_open)
-    strip_floor = 0.0 if minimum_psf is None else minimum_psf * s
-    line_end = np.maximum(q * g * cf_end * s, strip_floor)
-    line_interior = np.maximum(q * g * cf_interior * s, strip_floor)
+    cf_end = np.where(solid, line.end, cf_open)
+    cf_interior = np.where(solid, line.interior, cf_open)
+    share = np.where(solid, 1.0, w.solidity)  # of a foot of wall, the area Cf applies to
+    strip_floor = 0.0 if minimum_psf is None else minimum_psf * s * share
+    line_end = np.maximum(q * g * cf_end * s * share, strip_floor)
+    line_interior = np.maximum(q * g * cf_interior * s * share, strip_floor)
     ratio = asce7.resultant_height_ratio(s_over_h)
     # Figure 29.3-1: the resultant 0.05 h above the geometric centre where s/h = 1.
     lever = s * (w.centroid_ratio + (ratio - 0.5))
     return Wind(kz, q, cf_case_a, opening, cf_whole, area, force_a, force, cf_end, cf_interior,
+                line.left_mean, line.left_x, line.right_mean, line.right_x,
                 line_end, line_interior, lever, s * ratio,
                 (q * g * cf_whole * area) < floor)
-
-
-def strip_coefficients(w: Walls, b_over_s, s_over_h, cf_ab, solid, cf_open):
-    """Per-foot coefficients of a wall built in place: its end zone and its interior (§5).
-
-    End zone: Case C within s of either end (each end's return wall reduces its own).
-    Interior: the worst beyond s from both ends, wind from either end (the s to 2s region, as
-    the coefficients fall away from the windward end). Never below Cases A/B.
-    """
-    end, interior = cf_ab.copy(), cf_ab.copy()
-    own = (b_over_s >= 2.0) & ~w.in_line  # a wall on a line takes its line's coefficients
-    if own.any():
-        bos, soh = b_over_s[own], s_over_h[own]
-        end[own] = np.maximum(asce7.case_c_cf(0.5, bos, soh, w.return_left[own]),
-                              asce7.case_c_cf(0.5, bos, soh, w.return_right[own]))
-        # Every Case C column falls (or stays) with distance from the windward end, so the
-        # worst point beyond s from both ends is at s from one of them: the s-2s region.
-        interior[own] = np.where(bos > 2.0, asce7.case_c_cf(1.0, bos, soh), end[own])
-    end = np.where(w.in_line, w.line_local_max, end)
-    interior = np.where(w.in_line, w.line_local_mid, interior)
-    end = np.where(solid, np.maximum(end, cf_ab), cf_open)
-    interior = np.where(solid, np.maximum(interior, cf_ab), cf_open)
-    return end, interior
 
 
 def stability_checks(w: Walls, wind: Wind, f: Factors) -> dict[str, tuple[np.ndarray, np.ndarray]]:

@@ -1,10 +1,12 @@
 """Wall lines: panels standing edge to edge are one wall to the wind (design.md §4).
 
-Each day, the panels standing on a line form groups (gaps no wider than the plan's joint gap).
-A panel in a group takes the Case A and Case C pressures of the whole group over its own width,
-from either end; a return wall standing at a corner cuts the end-zone value there (ASCE 7-16
-Figure 29.3-1). The engine envelopes these line loads over every day the panel stands, together
-with its own lone-panel Cases A and B (the state before its neighbours were set).
+Each day, the panels standing on a line (braced or already released: a released wall still
+stands) form groups (gaps no wider than the plan's joint gap). A panel in a group takes the
+Case A and Case C pressures of the whole group over its own width, from either end; a return
+wall standing at a corner cuts the end-zone value there (ASCE 7-16 Figure 29.3-1). The groups
+are kept as geometry (`line_groups`), so that their coefficients are worked out at any height
+(`coefficients`, `strip_case_c`), enveloped with the panel alone (the state before its
+neighbours were set) over every day the panel stands braced.
 """
 
 from __future__ import annotations
@@ -20,22 +22,25 @@ from bracing.wind import asce7
 CORNER_TOLERANCE_FT = 1.0  # line ends closer than this meet at a corner
 
 
+# A group a wall stands in, as the columns of `Walls.groups` (ft): the wall's first edge from
+# the group's start, the group's length, the return walls at its start and at its end.
+GROUP_COLUMNS = 4
+
+
 @dataclass(frozen=True)
 class LineLoads:
-    """Per panel, enveloped over its standing days; NaN where a panel is on no line.
-
-    `left_*` is wind from the line's start end, `right_*` from its far end; x in ft from the
-    panel's first edge. `local_max` and `local_mid` are the largest local Case C coefficient
-    over the panel's width and the one at its middle (for walls checked per foot).
-    """
+    """Per wall, the coefficients of its groups at its height, enveloped over them (the wall
+    alone, and on its line each day it stands): wind from the group's start end (`left_*`) and
+    from its far end (`right_*`), x in ft from the wall's first edge. `end` and `interior` are
+    the per-foot coefficients of a wall built in place (method notes §3)."""
 
     case_a: np.ndarray
     left_mean: np.ndarray
     left_x: np.ndarray
     right_mean: np.ndarray
     right_x: np.ndarray
-    local_max: np.ndarray
-    local_mid: np.ndarray
+    end: np.ndarray
+    interior: np.ndarray
 
 
 @dataclass(frozen=True)
@@ -105,11 +110,23 @@ def weeks_to_release(lift_day, event_day):
     return np.maximum(1.0, event_day - lift_day + 1.0) / 7.0
 
 
-def line_loads(site: Site, releases: Releases, width: np.ndarray, height: np.ndarray,
-               base: np.ndarray, columns: dict[str, tuple] | None = None) -> LineLoads | None:
-    """The enveloped line loads of every panel (None when no panel stands on a line), from
-    the site's `releases`, each panel's width, height and base elevation (ft) and its line
-    and offset (`columns`: the panels' fields, if already read)."""
+def alone_and_on_lines(returns: np.ndarray, width: np.ndarray, on_lines: np.ndarray | None
+                       ) -> np.ndarray:
+    """Every wall's groups, (n, G, GROUP_COLUMNS): first the wall alone (the state before its
+    neighbours were set), with its own return walls (`returns`, ft, at its left and right
+    ends), then its groups on its line (`on_lines`, from `line_groups`; NaN rows: none). The
+    coefficients follow from them at any height (`coefficients`)."""
+    alone = np.stack([np.zeros_like(width), width, returns[0], returns[1]], axis=-1)[:, None]
+    return alone if on_lines is None else np.concatenate([alone, on_lines], axis=1)
+
+
+def line_groups(site: Site, releases: Releases, width: np.ndarray,
+                columns: dict[str, tuple] | None = None) -> np.ndarray | None:
+    """The groups each wall stands in on its line, over the days it stands braced, as rows of
+    GROUP_COLUMNS (n, G, 4; NaN where a wall has fewer): from the site's `releases`, each
+    panel's width (ft) and its line and offset (`columns`: the panels' fields, if already
+    read). None when no wall stands on a line. Geometry only: the coefficients follow at any
+    height (`coefficients`), so a search over heights works them out afresh."""
     n = len(site.panels)
     panel = columns or read_panels(site)
     line, offset = panel["line"], panel["offset"]
@@ -121,54 +138,105 @@ def line_loads(site: Site, releases: Releases, width: np.ndarray, height: np.nda
     line_id[np.isnan(lift)] = -1  # a wall not scheduled never stands on its line
     if not (line_id >= 0).any():
         return None
-    groups = _standing_groups(site, lines, line_id, lift, releases.release, offset, width)
-    if groups is None:  # every wall on the lines is released on its lift day
-        return LineLoads(**{k: np.full(n, np.nan) for k in LineLoads.__dataclass_fields__})
-    member, lo, hi, ret_lo, ret_hi = groups
+    found = _standing_groups(site, lines, line_id, lift, releases.release, offset, width)
+    if found is None:  # every wall on the lines is released on its lift day
+        return None
+    member, lo, hi, ret_lo, ret_hi = found
     member = member.astype(int)
-    start, width, s = offset[member], width[member], height[member]
-    top = s + base[member]
-    ret_lo, ret_hi = ret_lo / s, ret_hi / s
-    b_over_s = (hi - lo) / s
-    s_over_h = s / top
-    x0 = (start - lo) / s
-    x1 = x0 + width / s
-    # the wind from the line's start (its return wall there) and from its end
-    bins_lo = asce7.case_c_bins(b_over_s, s_over_h, ret_lo)
-    bins_hi = asce7.case_c_bins(b_over_s, s_over_h, ret_hi)
-    left, cx_left = asce7.case_c_mean(x0, x1, b_over_s, s_over_h, bins=bins_lo)
-    right, cx_right = asce7.case_c_mean(b_over_s - x1, b_over_s - x0, b_over_s, s_over_h,
-                                        bins=bins_hi)
-    # Case C falls away from the windward end: over a panel's width its largest local value is
-    # at the edge nearer that end, from either end of the line
+    rows = np.stack([offset[member] - lo, hi - lo, ret_lo, ret_hi], axis=-1)
+    # each wall's groups side by side: its k-th group in column k
+    order = np.argsort(member, kind="stable")
+    member, rows = member[order], rows[order]
+    first = np.searchsorted(member, member)
+    rank = np.arange(len(member)) - first
+    out = np.full((n, rank.max() + 1, GROUP_COLUMNS), np.nan)
+    out[member, rank] = rows
+    return out
+
+
+def coefficients(groups: np.ndarray, width: np.ndarray, height: np.ndarray,
+                 base: np.ndarray) -> LineLoads:
+    """The Case A and Case C coefficients of each wall's groups (`alone_and_on_lines`) at its
+    height `height` (s, ft) with its base `base` ft above grade, enveloped over the groups
+    (ASCE 7-16 Figure 29.3-1; design.md §4, §5). Worked afresh at every trial height: B/s,
+    s/h, the return walls' Lr/s and the regions all change with s.
+
+    `end` is the largest local Case C coefficient over the wall's width, from either end of
+    each group (beside a return wall the s-2s region may be larger than the reduced 0-s one);
+    `interior` the largest beyond s from a lone wall's ends (its s-2s region) or at the middle
+    of a wall on a line, never above `end`. Neither is below Case A.
+    """
+    filled = np.isnan(groups[..., 1])
+    g = np.where(filled[..., None], groups[:, :1], groups)  # an empty slot: the wall alone again
+    s = height[:, None]
+    d, length, r0, r1 = (g[..., k] for k in range(GROUP_COLUMNS))
+    b_over_s, s_over_h = length / s, s / (base[:, None] + s)
+    x0 = d / s
+    x1 = x0 + width[:, None] / s
     mid = (x0 + x1) / 2.0
-    local_max = np.maximum(asce7.case_c_cf(x0, b_over_s, s_over_h, bins=bins_lo),
-                           asce7.case_c_cf(b_over_s - x1, b_over_s, s_over_h, bins=bins_hi))
-    local_mid = np.maximum(asce7.case_c_cf(mid, b_over_s, s_over_h, bins=bins_lo),
-                           asce7.case_c_cf(b_over_s - mid, b_over_s, s_over_h, bins=bins_hi))
-    out = {k: np.full(n, np.nan) for k in LineLoads.__dataclass_fields__}
-    for key, values in (("case_a", asce7.cf_cases_ab(b_over_s, s_over_h)),
-                        ("local_max", local_max), ("local_mid", local_mid)):
-        np.fmax.at(out[key], member, values)  # the envelope: the larger value of each panel
-    # each end's wind at its largest, with its resultant from the panel's own first edge
-    for end, mean, at in (("left", left, cx_left * s - (start - lo)),
-                          ("right", right, hi - start - cx_right * s)):
-        largest = np.full(n, np.nan)
-        np.fmax.at(largest, member, mean)
-        best = np.full(n, len(mean))  # each panel's earliest row at its largest (none: len)
-        at_largest = np.flatnonzero(mean == largest[member])
-        np.minimum.at(best, member[at_largest], at_largest)
-        found = best < len(mean)
-        out[f"{end}_mean"][found] = mean[best[found]]
-        out[f"{end}_x"][found] = at[best[found]]
+    bins_lo, bins_hi = _end_bins(b_over_s, s_over_h, r0 / s, r1 / s)
+    case_a = asce7.cf_cases_ab(b_over_s, s_over_h)
+    of = {"b_over_s": b_over_s, "s_over_h": s_over_h, "ab": case_a}
+    left, cx_left = asce7.case_c_mean(x0, x1, bins=bins_lo, **of)
+    right, cx_right = asce7.case_c_mean(b_over_s - x1, b_over_s - x0, bins=bins_hi, **of)
+    local = np.maximum(asce7.case_c_max(x0, x1, bins=bins_lo, **of),
+                       asce7.case_c_max(b_over_s - x1, b_over_s - x0, bins=bins_hi, **of))
+    at_mid = np.maximum(asce7.case_c_cf(mid, bins=bins_lo, **of),
+                        asce7.case_c_cf(b_over_s - mid, bins=bins_hi, **of))
+    # a wall alone: its interior is the s-2s region (the largest beyond s from both ends)
+    beyond_s = np.where(b_over_s > 2.0, asce7.case_c_cf(1.0, bins=bins_lo, **of), local)
+    interior = np.where(np.arange(g.shape[1]) == 0, beyond_s, at_mid)
+    best_a = case_a.max(axis=1)
+    end = np.maximum(local.max(axis=1), best_a)
+    out = {"case_a": best_a, "end": end,
+           "interior": np.minimum(np.maximum(interior.max(axis=1), best_a), end)}
+    # each end's wind at its largest, with its resultant from the wall's own first edge
+    for side, mean, at in (("left", left, cx_left * s - d),
+                           ("right", right, length - d - cx_right * s)):
+        k = mean.argmax(axis=1)[:, None]
+        out[f"{side}_mean"] = np.take_along_axis(mean, k, axis=1)[:, 0]
+        out[f"{side}_x"] = np.take_along_axis(at, k, axis=1)[:, 0]
     return LineLoads(**out)
+
+
+def _end_bins(b_over_s, s_over_h, return_start, return_end):
+    """The Case C bins (asce7.case_c_bins) of groups for wind from their start and from their
+    end, each end's return wall (Lr/s) cutting its own 0-s cell; worked out once where the
+    returns are the same at both ends."""
+    bins = asce7.case_c_bins(b_over_s, s_over_h, return_start)
+    if np.array_equal(return_start, return_end):
+        return bins, bins
+    return bins, asce7.case_c_bins(b_over_s, s_over_h, return_end)
+
+
+def strip_case_c(groups: np.ndarray, width: np.ndarray, height: np.ndarray, base: np.ndarray,
+                 lo: np.ndarray, hi: np.ndarray) -> np.ndarray:
+    """The largest local Case C coefficient over each strip [lo, hi] (ft from the wall's first
+    edge; arrays (m, k)) of m walls, over their groups (`alone_and_on_lines`, (m, G, 4)) and
+    wind from either end of each (ASCE 7-16 Figure 29.3-1; design.md §6). `width`, `height`
+    and `base` are the walls' (m,). Case A/B where a group is shorter than 2 s."""
+    filled = np.isnan(groups[..., 1])
+    g = np.where(filled[..., None], groups[:, :1], groups)
+    s = height[:, None]
+    d, length, r0, r1 = (g[..., k] for k in range(GROUP_COLUMNS))
+    b_over_s, s_over_h = length / s, s / (base[:, None] + s)
+    bins_lo, bins_hi = (bins[:, :, None] for bins in _end_bins(b_over_s, s_over_h, r0 / s,
+                                                                r1 / s))
+    x0 = (d[..., None] + lo[:, None]) / s[..., None]  # (m, G, k) in s from the group's start
+    x1 = (d[..., None] + hi[:, None]) / s[..., None]
+    bos, soh = b_over_s[..., None], s_over_h[..., None]
+    largest = np.maximum(asce7.case_c_max(x0, x1, bos, soh, bins=bins_lo),
+                         asce7.case_c_max(bos - x1, bos - x0, bos, soh, bins=bins_hi))
+    return largest.max(axis=1)
 
 
 def _standing_groups(site: Site, lines: dict, line_id: np.ndarray, lift: np.ndarray,
                      release: np.ndarray, start: np.ndarray, width: np.ndarray
                      ) -> tuple[np.ndarray, ...] | None:
-    """The groups each wall on a line stands in, day by day: (panel index, the group's extent
-    lo and hi along the line, the return wall at its start and at its end, ft), in day order.
+    """The groups each wall on a line stands in braced, day by day: (panel index, the group's
+    extent lo and hi along the line, the return wall at its start and at its end, ft), in day
+    order. A released wall still stands (design.md §7): it stays in its group for the wind on
+    its neighbours, but is not listed itself after its release.
 
     `lines` are the site's lines by name; `line_id`, `lift`, `release`, `start` and `width` each
     panel's line (its place in `lines`; -1: none, or not scheduled), lift and release day (inf:
@@ -188,10 +256,11 @@ def _standing_groups(site: Site, lines: dict, line_id: np.ndarray, lift: np.ndar
     found = []
     last = np.full((4, len(site.panels)), np.nan)  # each wall's group on its last standing day
     for day in days:
-        up = (lift_o <= day) & (release_o > day)
-        members = order[up]
-        if len(members) == 0:  # every wall on the lines released that day
+        up = lift_o <= day  # standing, braced or released
+        braced = (release_o > day)[up]
+        if not braced.any():  # every wall on the lines released that day
             continue
+        members = order[up]
         # groups: a new one where the line changes or a gap wider than a joint opens
         lid, lo_m, hi_m = line_o[up], lo_o[up], hi_o[up]
         breaks = (np.diff(lid) != 0) | (lo_m[1:] - hi_m[:-1] > gap)
@@ -200,7 +269,8 @@ def _standing_groups(site: Site, lines: dict, line_id: np.ndarray, lift: np.ndar
         g_lo = np.minimum.reduceat(lo_m, first)
         g_hi = np.maximum.reduceat(hi_m, first)
         ret_lo, ret_hi = _corner_returns(lid[first], g_lo, g_hi, names, line_length, corners)
-        now = np.array([g_lo[group], g_hi[group], ret_lo[group], ret_hi[group]])
+        now = np.array([g_lo[group], g_hi[group], ret_lo[group], ret_hi[group]])[:, braced]
+        members = members[braced]
         changed = (last[:, members] != now).any(axis=0)
         last[:, members] = now
         found.append((members[changed], *now[:, changed]))

@@ -355,6 +355,11 @@ class Bracing(Strict):
     lean: Thickness = Field(0.25, ge=0, description="Erection out-of-plumb at the top (in).")
     slop: Thickness = Field(0.125, ge=0, description="Brace slop at the insert (in).")
     pretensioned: bool = Field(False, description="Braces pre-tensioned to share evenly.")
+    stiff_member: bool = Field(
+        False, description="A continuous stiff member (strongback or waler) ties the braces "
+                           "of a masonry or framed wall together: they then share the wind "
+                           "as on a rigid panel, with the twist. Without one each brace "
+                           "carries its own strip of wall.")
 
     @model_validator(mode="after")
     def _geometry(self):
@@ -671,8 +676,8 @@ PANEL_FIELDS = ("mark", "material", "thickness", "face_weight", "unit_weight", "
 
 # Every field of a wall's bracing the evaluation reads.
 BRACING_FIELDS = ("count", "positions", "insert_height", "insert_offset", "foot_offset",
-                  "base_below_slab", "lean", "slop", "pretensioned", "brace_type", "wall_anchor",
-                  "foot_anchor", "anchor_distance", "angle")
+                  "base_below_slab", "lean", "slop", "pretensioned", "stiff_member", "brace_type",
+                  "wall_anchor", "foot_anchor", "anchor_distance", "angle")
 
 
 def read_panels(site: Site) -> dict[str, tuple]:

@@ -73,17 +73,18 @@ def test_total_brace_reaction_falls_as_the_insert_rises(force, z, a, b):
 
 
 # --- plan: the braces carry all the twist -----------------------------------------------------
-@FAST
-@given(braced_wall(least=2))
-def test_brace_reactions_balance_the_twist(wall):
-    b, x, force, z, hb, at = wall
-    assume(_spread(x))
-    total, r = _shares(b, x, force, z, hb, at)
-    xc = x.mean()
-    # design.md §6: M_t = F (x_F - x_c) - (F - sum R)(x_w - x_c), carried by the braces alone
-    twist = force * (at - xc) - (force - total) * (b / 2.0 - xc)
-    assert (r * (x - xc)).sum() == pytest.approx(
-        twist, rel=1e-9, abs=_rounding(r * (x - xc), force * b, total * b))
+def test_brace_reactions_balance_the_twist():
+    """Three braces at 2, 8 and 20 ft on a wall 24 ft long (its centre at 12 ft, the braces'
+    centroid at x_c = 10 ft), F = 1,000 lb at 16.8 ft (Case B, 0.2 B off centre) and 16.5 ft
+    up, inserts at 20 ft (design.md §6, statics), worked by hand:
+    sum R = 1,000 x 16.5 / 20 = 825 lb; base shear F - sum R = 175 lb at the wall's centre;
+    M_t = 1,000 (16.8 - 10) - 175 (12 - 10) = 6,450 lb-ft; sum (x - x_c)^2 = 64 + 4 + 100 =
+    168 ft^2; R_i = 825/3 + 6,450 (x_i - 10)/168 = 275 + 38.393 (-8, -2, 10)
+    = -32.14, 198.21, 658.93 lb."""
+    r = braces.brace_shares(np.array([825.0]), np.array([1000.0]), np.array([16.8]),
+                            np.array([12.0]), np.array([[2.0, 8.0, 20.0]]),
+                            np.ones((1, 3), dtype=bool))
+    assert r[0] == pytest.approx([-32.14, 198.21, 658.93], abs=0.01)
 
 
 @FAST

@@ -102,8 +102,10 @@ def test_two_brace_forces_by_hand(unrated):
     assert b["axial_force_lb"] == pytest.approx(12375.0, abs=1.0)
     # Case B from either edge: each brace in turn takes the larger share
     assert b["brace_forces_lb"] == pytest.approx([b["axial_force_lb"]] * 2, rel=1e-12)
-    # The base: shear 0.6 F - R + 2 x lean = 1,582 lb; lifted by sum(P sin) = (R + lean) tan 55.
-    assert b["base_shear_lb"] == pytest.approx(0.6 * f - r_total + 2.0 * lean, rel=1e-9)
+    # The base (design.md §6): shear F - sum(R_h), the lean's reaction among the braces' R_h:
+    # 0.6 F - R - 2 x lean = 1,463 lb; lifted by sum(P sin) = (R + lean) tan 55.
+    assert b["base_shear_lb"] == pytest.approx(0.6 * f - r_total - 2.0 * lean, rel=1e-9)
+    assert b["base_shear_lb"] == pytest.approx(1462.9, abs=0.5)
     assert b["base_uplift_lb"] == pytest.approx((r_total + 2.0 * lean) * math.tan(THETA),
                                                 rel=1e-9)
 

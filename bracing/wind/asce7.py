@@ -147,14 +147,14 @@ def case_c_bins(b_over_s, s_over_h, return_ratio=0.0):
     return bins * tall[..., None]
 
 
-def case_c_cf(x_over_s, b_over_s, s_over_h, return_ratio=0.0, bins=None):
+def case_c_cf(x_over_s, b_over_s, s_over_h, return_ratio=0.0, bins=None, ab=None):
     """Local Case C Cf at x_over_s from the windward end of a wall B/s long.
 
     Regions 0-s, s-2s, ... of Figure 29.3-1; a point on a region edge belongs to the region
     downwind of it. Between tabulated B/s the coefficient is interpolated linearly in B/s at the
     same position x. return_ratio = Lr/s of a return wall at the windward end (or `bins`, the
     walls' `case_c_bins`). Where B/s < 2 Case C does not apply and the Case A/B value is
-    returned, so callers may envelope freely.
+    returned (`ab`, if the caller has it), so callers may envelope freely.
     """
     x, b, r, lr = np.broadcast_arrays(*(np.asarray(a, dtype=float) for a in
                                         (x_over_s, b_over_s, s_over_h, return_ratio)))
@@ -162,16 +162,17 @@ def case_c_cf(x_over_s, b_over_s, s_over_h, return_ratio=0.0, bins=None):
         bins = case_c_bins(b, r, lr)
     k = np.searchsorted(_C_EDGES, x, side="right")
     local = np.take_along_axis(bins, k[..., None], axis=-1)[..., 0]
-    return np.where(b >= 2.0, local, cf_cases_ab(b, r))[()]  # Case C for B/s >= 2 only
+    return _case_ab_below_two(local, b, r, ab)  # Case C for B/s >= 2 only
 
 
-def case_c_mean(x0_over_s, x1_over_s, b_over_s, s_over_h, return_ratio=0.0, bins=None):
+def case_c_mean(x0_over_s, x1_over_s, b_over_s, s_over_h, return_ratio=0.0, bins=None,
+                ab=None):
     """Mean Case C Cf over [x0, x1] (in s from the windward end) and the load's centroid (in s).
 
     Exact integration of the piecewise-constant regional coefficients: a panel occupying
     [x0, x1] of a longer wall line takes mean_cf times its area, acting at centroid_over_s.
-    Where B/s < 2 it returns the Case A/B value at the middle of the interval. `bins`: the
-    walls' `case_c_bins`, if the caller has them.
+    Where B/s < 2 it returns the Case A/B value at the middle of the interval. `bins` and
+    `ab`: the walls' `case_c_bins` and `cf_cases_ab`, if the caller has them.
     """
     x0, x1, b, r, lr = np.broadcast_arrays(*(np.asarray(a, dtype=float) for a in
                                              (x0_over_s, x1_over_s, b_over_s, s_over_h,
@@ -193,9 +194,63 @@ def case_c_mean(x0_over_s, x1_over_s, b_over_s, s_over_h, return_ratio=0.0, bins
                             mean)
         centroid = np.where(total > 0.0, moment / total, 0.5 * (lo + hi))
     short = b < 2.0  # Case C applies for B/s >= 2 only
-    mean = np.where(short, cf_cases_ab(b, r), mean)
+    mean = _case_ab_below_two(mean, b, r, ab)
     centroid = np.where(short, 0.5 * (lo + hi), centroid)
     return mean[()], centroid[()]
+
+
+def case_c_max(x0_over_s, x1_over_s, b_over_s, s_over_h, return_ratio=0.0, bins=None,
+               ab=None):
+    """Largest local Case C Cf over [x0, x1] (in s from the windward end) of a wall B/s long.
+
+    A strip of a wall built in place takes the largest regional coefficient it touches (method
+    notes §2): beside a return wall the reduced 0-s region may be below the s-2s one, so no
+    region is assumed to govern. A point on a region edge belongs to the region downwind of
+    it, as in `case_c_cf`. Where B/s < 2 Case C does not apply and the Case A/B value is
+    returned. `bins` and `ab`: the walls' `case_c_bins` and `cf_cases_ab`, if the caller has
+    them.
+    """
+    x0, x1, b, r, lr = np.broadcast_arrays(*(np.asarray(a, dtype=float) for a in
+                                             (x0_over_s, x1_over_s, b_over_s, s_over_h,
+                                              return_ratio)))
+    if bins is None:
+        bins = case_c_bins(b, r, lr)
+    lo, hi = np.minimum(x0, x1), np.maximum(x0, x1)
+    # the region holding lo, and every region after it that starts before hi
+    first = np.searchsorted(_C_EDGES, lo, side="right")
+    last = np.maximum(np.searchsorted(_C_EDGES, hi, side="left"), first)
+    largest = np.full(np.shape(lo), -np.inf)
+    for k in range(len(_C_BIN_LO)):  # a region at a time: a reduction over so short an axis
+        #                              is many times slower
+        largest = np.where((first <= k) & (k <= last), np.maximum(largest, bins[..., k]),
+                           largest)
+    return _case_ab_below_two(largest, b, r, ab)  # Case C for B/s >= 2 only
+
+
+def _case_ab_below_two(case_c, b_over_s, s_over_h, ab=None):
+    """`case_c`, with the Case A/B value where B/s < 2 (Case C does not apply there): from
+    `ab` (the walls' `cf_cases_ab`, if the caller has them), else looked up for those walls
+    only."""
+    short = b_over_s < 2.0
+    if not short.any():
+        return case_c[()]
+    out = np.array(case_c, dtype=float)
+    out[short] = (cf_cases_ab(b_over_s[short], s_over_h[short]) if ab is None
+                  else np.broadcast_to(ab, short.shape)[short])
+    return out[()]
+
+
+def case_b_linear_factor(middle_over_b):
+    """Case B of a wall built in place, as a pressure varying linearly along it: the strip
+    centred `middle_over_b` (a fraction of B from either end) takes p_avg times this factor
+    over its area, wind from whichever end loads it more.
+
+    p(x) = p_avg (1 + 2.4 (x/B - 1/2)) has its resultant 0.2 B off centre, as Figure 29.3-1
+    places Case B's (method notes §2); over a strip it averages to its value at the strip's
+    middle, and from the worse end that is 1 + 2.4 |x/B - 1/2| (at least 1: Case A's uniform
+    pressure never exceeds it).
+    """
+    return 1.0 + 2.4 * np.abs(np.asarray(middle_over_b, dtype=float) - 0.5)
 
 
 def resultant_height_ratio(s_over_h):
