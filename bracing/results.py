@@ -48,10 +48,10 @@ class Check:
         return self.utilization <= 1.0
 
     def as_dict(self) -> dict:
-        d = asdict(self)
-        d["utilization"] = _finite(self.utilization)
-        d["passes"] = self.passes
-        return d
+        return {"element": self.element, "region": self.region, "demand": self.demand,
+                "capacity": self.capacity, "unit": self.unit, "combination": self.combination,
+                "source": self.source, "utilization": _finite(self.utilization),
+                "passes": self.passes}
 
 
 @dataclass(slots=True)

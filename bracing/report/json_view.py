@@ -5,7 +5,8 @@ from __future__ import annotations
 import json
 import math
 import re
-from dataclasses import asdict
+from dataclasses import fields, is_dataclass
+from functools import cache
 
 from bracing.model import DEFAULT_RULES, Site
 from bracing.results import PanelResult, SiteResult
@@ -14,16 +15,17 @@ METHOD = ("method notes (docs/method.md, shipped with the tool), which cite the 
           "clauses")
 
 
-def panel_record(p: PanelResult, basis: str, caution: str) -> dict:
-    """One wall as the §8 record, with its checks worst first."""
-    return _clean({
+def panel_record(p: PanelResult, basis: str, caution: str | None = None) -> dict:
+    """One wall as the §8 record, with its checks worst first; `caution` for a record that
+    stands alone (`bracing panel`: a site record holds the caution once, at its top)."""
+    return _plain({
         "mark": p.mark,
         "material": p.material,
         "status": p.status,
         "basis": basis,
         "weight_lb": p.weight_lb,
-        "wind": asdict(p.wind),
-        "unbraced": asdict(p.unbraced),
+        "wind": p.wind,
+        "unbraced": p.unbraced,
         "braces": p.braces,
         "working_limit_speed_mph": p.working_limit_speed_mph,
         "stand_down_speed_mph": p.stand_down_speed_mph,
@@ -33,8 +35,8 @@ def panel_record(p: PanelResult, basis: str, caution: str) -> dict:
         "governing_element": p.governing_element,
         "governing_utilization": p.utilization,
         "checks": [c.as_dict() for c in p.worst_first()],
-        "flags": [f.as_dict() for f in p.flags_worst_first()],
-        "caution": caution,
+        "flags": p.flags_worst_first(),
+        **({"caution": caution} if caution is not None else {}),
     })
 
 
@@ -74,28 +76,56 @@ def review_record(site: Site, result: SiteResult, facts: dict) -> dict:
 
 def site_record(result: SiteResult, review: dict | None = None) -> dict:
     """The whole site, walls worst first; with `review`, the review record (review_record)."""
-    return _clean({
+    return _plain({
         **({"review": review} if review is not None else {}),
         "site": result.name,
         "basis": result.basis,
         "basis_statement": result.basis_statement,
         "caution": result.caution,
-        "panels": [panel_record(p, result.basis, result.caution) for p in result.worst_first()],
-        "days": [asdict(d) for d in result.days],
+        "panels": [panel_record(p, result.basis) for p in result.worst_first()],
+        "days": result.days,
         "peak_inventory": result.peak_inventory,
     })
 
 
 def dumps(record: dict) -> str:
-    return json.dumps(record, indent=2, ensure_ascii=False)
+    """The record as JSON text: its top-level keys one per line, and each item of a top-level
+    list (a wall, a day) on a line of its own, so that a large site's record stays readable
+    line by line and is written by json's C encoder (an indented dump is ten times slower)."""
+    def value(v) -> str:
+        if isinstance(v, list) and v and isinstance(v[0], dict):
+            return "[\n    " + ",\n    ".join(map(_compact, v)) + "\n  ]"
+        return _compact(v)
+    body = ",\n".join(f"  {_compact(k)}: {value(v)}" for k, v in record.items())
+    return "{\n" + body + "\n}"
 
 
-def _clean(value):
-    """JSON has no NaN or infinity: those become null."""
-    if isinstance(value, float) and not math.isfinite(value):
-        return None
-    if isinstance(value, dict):
-        return {k: _clean(v) for k, v in value.items()}
-    if isinstance(value, (list, tuple)):
-        return [_clean(v) for v in value]
-    return value
+def _compact(v) -> str:
+    return json.dumps(v, ensure_ascii=False, allow_nan=False)
+
+
+def _plain(value):
+    """Plain JSON values in one pass: result dataclasses become dicts of their fields, and NaN
+    or infinity (which JSON lacks) becomes null."""
+    kind = type(value)
+    if kind is float:
+        return value if math.isfinite(value) else None
+    if kind in _AS_IS:
+        return value
+    if kind is dict:
+        return {k: _plain(v) for k, v in value.items()}
+    if kind is list or kind is tuple:
+        return [_plain(v) for v in value]
+    names = _field_names(kind)
+    if names is None:
+        return _plain(float(value)) if isinstance(value, float) else value  # numpy floats
+    return {k: _plain(getattr(value, k)) for k in names}
+
+
+_AS_IS = {str, int, bool, type(None)}
+
+
+@cache
+def _field_names(cls) -> tuple[str, ...] | None:
+    """A dataclass's field names; None for any other type."""
+    return tuple(f.name for f in fields(cls)) if is_dataclass(cls) else None
