@@ -10,8 +10,8 @@ findings and the drawing all read this table; none of them lists the kinds again
 
 from __future__ import annotations
 
+from collections.abc import Callable
 from dataclasses import dataclass
-from typing import Callable
 
 import numpy as np
 

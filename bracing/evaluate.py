@@ -619,7 +619,7 @@ def evaluate_arrays(site: Site, edges: dict[str, float] | None = None,
     # An observed gust: Kd 1.0, no minimum, no period factor (design.md §3); loads grow with
     # V^2, so the wind of a 1 mph gust is scaled rather than recomputed.
     unit = wind_on(w, 1.0, 1.0, None)
-    checks = stability_checks(w, wind, factors)
+    checks = wall_checks(w, wind, factors)
     limit = solve_speed(
         lambda v2, rows: unbraced_at(take(w, rows), take(unit, rows).scaled(v2), SERVICE), n)
 
@@ -681,7 +681,30 @@ def reverse_wind_limit(limit: np.ndarray, bs: braced.BraceSet, alone: np.ndarray
 
 def unbraced_at(walls: Walls, wind: Wind, f: Factors) -> np.ndarray:
     """The largest utilization, less 1, of each wall standing on its own."""
-    return governing_utilization(stability_checks(walls, wind, f)) - 1.0
+    return governing_utilization(wall_checks(walls, wind, f)) - 1.0
+
+
+# Checks of walls on their own against allowable values (IBC Table 1806.2 bearing and friction),
+# and those of cured masonry (TMS 402-16 §8.2 allowable stresses): under LRFD they take the ASD
+# combinations (design.md §3, method notes §1).
+ALLOWABLE_ALONE = {"soil bearing", "footing sliding"}
+ALLOWABLE_MASONRY = {"overturning", "sliding at base"}
+
+
+def wall_checks(w: Walls, wind: Wind, f: Factors) -> dict[str, tuple[np.ndarray, np.ndarray]]:
+    """`stability_checks` with the allowable ones on `f.allowable` where it has one (LRFD)."""
+    checks = stability_checks(w, wind, f)
+    if f.allowable is None:
+        return checks
+    allowable = stability_checks(w, wind, f.allowable)
+    cured = w.masonry & ~w.fresh
+    out = {}
+    for key, pair in checks.items():
+        element = key.partition("|")[0]
+        rows = (True if element in ALLOWABLE_ALONE else
+                cured if element in ALLOWABLE_MASONRY else False)
+        out[key] = tuple(np.where(rows, a, v) for v, a in zip(pair, allowable[key]))
+    return out
 
 
 def fresh_mortar_limits(site: Site, unit: Wind, e: Evaluation) -> tuple[np.ndarray, np.ndarray]:
@@ -876,7 +899,8 @@ class _Results:
         kinds, way = np.unique(self.kind[self.alone], return_inverse=True)
         self.unbraced = _check_set(
             {name: (d[self.alone], c[self.alone]) for name, (d, c) in e.checks.items()},
-            CHECK_INFO, combos, [(k, UNBRACED_SOURCES[k], {}) for k in kinds.tolist()], way)
+            CHECK_INFO, combos, [(k, UNBRACED_SOURCES[k], self._alone_combinations(k))
+                                 for k in kinds.tolist()], way)
         over_height = self._over_height(w)
         self.stands = (e.utilization <= 1.0) & ~over_height
         self.wall_notes = self._wall_notes(w, e.utilization, over_height, material, opening_area)
@@ -948,6 +972,15 @@ class _Results:
         weight = held - np.nan_to_num(bs.sill) * width
         return braced.sill_uplift(lift, weight, bs.mask.sum(axis=1), width)
 
+    def _alone_combinations(self, kind: str) -> dict[str, str]:
+        """`_combinations` of a wall standing on its own of `kind` (as in UNBRACED_SOURCES)."""
+        f = COMBINATIONS[self.site.site.design_basis]
+        if f.allowable is None:
+            return {}
+        allowable = ALLOWABLE_ALONE | (ALLOWABLE_MASONRY if kind == "masonry" else set())
+        return {name: _on_allowable(f, kind_of) for name, (_, kind_of, _) in CHECK_INFO.items()
+                if name in allowable}
+
     def _combinations(self, key: tuple) -> dict[str, str]:
         """The combination of each braced check of allowable capacity that differs from the
         basis's: under LRFD, the ASD combinations (design.md §3, method notes §1)."""
@@ -958,10 +991,8 @@ class _Results:
         fa = self.site.anchor_types[foot_anchor] if foot_anchor else None
         strength = braced.strength_checks(self.site.brace_types[brace_type],
                                           fa.kind if fa else None, sill)
-        a = f.allowable
-        named = {"resisting": a.resisting, "adding": a.adding, "wind": a.wind_only}
-        return {name: f"{named[kind]} (allowable capacity: ASD combination under LRFD)"
-                for name, (_, kind, _) in braced.CHECKS.items() if name not in strength}
+        return {name: _on_allowable(f, kind) for name, (_, kind, _) in braced.CHECKS.items()
+                if name not in strength}
 
     def panels(self) -> list[PanelResult]:
         """The result object of every wall, in the site's order (asked once: the objects take
@@ -1324,6 +1355,14 @@ def _check_columns(arrays: dict, info: dict, combos: dict) -> list[tuple]:
         regions.update(masonry=strip, fresh=strip, strip=strip)
         out.append((element, regions, unit, combos[kind], source))
     return out
+
+
+def _on_allowable(f: Factors, kind: str) -> str:
+    """The name of the combination of `kind` ('resisting', 'adding', 'wind') that an allowable
+    capacity takes under the basis `f` (LRFD): ASD's, and says so."""
+    a = f.allowable
+    named = {"resisting": a.resisting, "adding": a.adding, "wind": a.wind_only}
+    return f"{named[kind]} (allowable capacity: ASD combination under LRFD)"
 
 
 def _each(cls, n: int, **fields_of) -> list:

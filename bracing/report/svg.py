@@ -15,6 +15,8 @@ from xml.sax.saxutils import escape, quoteattr
 
 from shapely.geometry import Polygon
 
+from bracing.anchor_kinds import KINDS as ANCHOR_KINDS
+
 PX_WIDTH = 1000  # width on screen (px); the viewBox is in ft
 CHAR = 0.6       # mean character width / font size, for wrapping (bold: BOLD_CHAR)
 BOLD_CHAR = 0.66
@@ -33,9 +35,10 @@ AREA_STYLE = {
 SLAB, SLAB_EDGE, GROUND = "#e3e3e3", "#4d4d4d", "#efe5cc"
 WALL, BRACE, ZONE, EVACUATED = "#3b3b3b", "#1f4e9c", "#e69b1e", "#b03a2e"
 DANGER, WARNING = "#c0392b", "#b9770e"
-ANCHOR_WORDS = {"slab": "slab anchor", "helical": "helical anchor", "deadman": "deadman",
-                "stake": "stake", "insert": "insert", "deck": "deck anchor",
-                "": "foot (no anchor named)"}
+# each anchor kind's words and symbol come from its entry (bracing.anchor_kinds); the shapes
+# `_anchor` draws:
+SYMBOLS = ("disc", "crossed circle", "square", "triangle", "diamond", "open")
+ANCHOR_WORDS = {**{k: v.words for k, v in ANCHOR_KINDS.items()}, "": "foot (no anchor named)"}
 STATUS_WORDS = {"unsafe": "UNSAFE", "needs_braces": "NEEDS BRACES"}
 MOST_FINDINGS = 40
 
@@ -275,22 +278,23 @@ def _walls(g, status: dict, fs: float, u: float) -> list[str]:
 
 
 def _anchor(kind: str, x: float, y: float, r: float, u: float) -> str:
-    """The foot anchor symbol of each kind at plan point (x, y)."""
+    """The foot anchor symbol of each kind (the shape its entry names) at plan point (x, y)."""
     sx, sy = _f(x), _f(-y)
     w = _f(1.2 * u)
-    if kind == "slab":
+    shape = ANCHOR_KINDS[kind].symbol if kind in ANCHOR_KINDS else "open"
+    if shape == "disc":
         return f'<circle cx="{sx}" cy="{sy}" r="{_f(r)}" fill="#000"/>'
-    if kind == "helical":
+    if shape == "crossed circle":
         return (f'<g stroke="#000" stroke-width="{w}"><circle cx="{sx}" cy="{sy}" r="{_f(r)}" '
                 f'fill="#fff"/><line x1="{_f(x - r)}" y1="{sy}" x2="{_f(x + r)}" y2="{sy}"/>'
                 f'<line x1="{sx}" y1="{_f(-y - r)}" x2="{sx}" y2="{_f(-y + r)}"/></g>')
-    if kind == "deadman":
+    if shape == "square":
         return (f'<rect x="{_f(x - r)}" y="{_f(-y - r)}" width="{_f(2 * r)}" '
                 f'height="{_f(2 * r)}" fill="#000"/>')
-    if kind == "stake":
+    if shape == "triangle":
         return (f'<polygon points="{_f(x)},{_f(-y - 1.2 * r)} {_f(x - r)},{_f(-y + 0.8 * r)} '
                 f'{_f(x + r)},{_f(-y + 0.8 * r)}" fill="#000"/>')
-    if kind == "deck":
+    if shape == "diamond":
         return (f'<polygon points="{_f(x)},{_f(-y - r)} {_f(x + r)},{sy} {_f(x)},{_f(-y + r)} '
                 f'{_f(x - r)},{sy}" fill="#000"/>')
     return (f'<circle cx="{sx}" cy="{sy}" r="{_f(r)}" fill="#fff" stroke="#000" '
