@@ -33,6 +33,8 @@ class AnchorKind:
     stands_on: frozenset      # where the plan lets it stand: 'slab', 'ground' (empty: not placed)
     symbol: str               # report.svg's shape for it
     own_checks: tuple[str, ...] = ()  # braced checks of its own beside (or instead of) "foot anchor"
+    # notes(fa, name) -> [(code, severity, message, source)]: findings on the type itself
+    notes: Callable = lambda fa, name: []
 
     @property
     def checks(self) -> tuple[str, ...]:
@@ -70,6 +72,23 @@ def _slab_ratio(up, pull, p, tension, shear):
     return anchors.tension_shear_interaction(up, tension, pull, shear)
 
 
+def _slab_notes(fa, name):
+    """A post-installed anchor set deeper than its slab allows (ACI 318-19 §17.9.4)."""
+    if fa.cast_in or bool(anchors.post_installed_embedment_ok(fa.embedment, fa.slab_thickness)):
+        return []
+    return [("anchor-too-deep", "warning", f"post-installed anchor {name}: h_ef "
+             f"{fa.embedment:g} in is more than the {fa.slab_thickness:g} in slab allows",
+             "ACI 318-19 §17.9.4 (from memory)")]
+
+
+def _deadman_notes(fa, name):
+    """A deadman without its size: its tipping about the toe is not checked."""
+    if fa.length is not None:
+        return []
+    return [("deadman-tipping-unchecked", "warning", f"deadman {name}: its overturning about "
+             "the toe is not checked; give its length and pin_height", "statics")]
+
+
 def _helical(fa, plan_edge, basis):
     """ICC-ES AC358: K_t T / FS, installed along the brace line (allowable)."""
     return {"foot_tension": float(anchors.helical_capacity(
@@ -103,13 +122,14 @@ KINDS: dict[str, AnchorKind] = {
     "slab": AnchorKind("slab anchor", ("embedment", "diameter", "steel_area", "slab_thickness",
                                        "concrete_strength"), _slab, _slab_ratio,
                        "ACI 318-19 §17.6-17.8 (cracked), phi Nn x 0.6 for ASD", False,
-                       frozenset({"slab"}), "disc"),
+                       frozenset({"slab"}), "disc", notes=_slab_notes),
     "helical": AnchorKind("helical anchor", ("installation_torque",), _helical, _helical_ratio,
                           "ICC-ES AC358: K_t T / FS", True, frozenset({"ground"}),
                           "crossed circle"),
     "deadman": AnchorKind("deadman", ("weight",), _deadman, None,
                           "weight and friction", True, frozenset({"ground", "slab"}), "square",
-                          own_checks=("deadman uplift", "deadman sliding")),
+                          own_checks=("deadman uplift", "deadman sliding"),
+                          notes=_deadman_notes),
     "stake": AnchorKind("stake", ("rated_tension", "rated_shear"), _rated, _rated_ratio,
                         f"maker's ratings, {RATED_SOURCE}", True, frozenset({"ground"}),
                         "triangle"),

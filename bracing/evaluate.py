@@ -16,7 +16,8 @@ from operator import attrgetter
 
 import numpy as np
 
-from bracing import anchors, braced, layout, lines, members, plan, schedule, stability
+from bracing import braced, layout, lines, members, plan, schedule, stability
+from bracing.anchor_kinds import KINDS as ANCHOR_KINDS
 from bracing.braced import take
 from bracing.data_members import PIPES
 from bracing.model import Site, read_panels
@@ -1100,17 +1101,9 @@ class _Results:
                         "slender-pipe-wall", "danger", f"{bt.section} at Fy "
                         f"{bt.yield_strength / 1000.0:g} ksi has a slender wall: its local "
                         "buckling is not checked here", "AISC 360-16 Table B4.1a"))
-            if fa is not None and fa.kind == "slab" and not fa.cast_in and not bool(
-                    anchors.post_installed_embedment_ok(fa.embedment, fa.slab_thickness)):
-                anchor_flags.append(Flag(
-                    "anchor-too-deep", "warning", f"post-installed anchor {foot_anchor}: "
-                    f"h_ef {fa.embedment:g} in is more than the {fa.slab_thickness:g} in slab "
-                    "allows", "ACI 318-19 §17.9.4 (from memory)"))
-            if fa is not None and fa.kind == "deadman" and fa.length is None:
-                anchor_flags.append(Flag(
-                    "deadman-tipping-unchecked", "warning", f"deadman {foot_anchor}: its "
-                    "overturning about the toe is not checked; give its length and pin_height",
-                    "statics"))
+            if fa is not None:  # what its kind says of the type itself (anchor_kinds.KINDS)
+                anchor_flags += [Flag(*made) for made in ANCHOR_KINDS[fa.kind].notes(
+                    fa, foot_anchor)]
             self.hardware[key] = (braced.sources(bt.kind, fa.kind if fa else None),
                                   brace_flags, anchor_flags)
         return self.hardware[key]

@@ -182,6 +182,8 @@ class Material(Strict):
     def _weight_given(self):
         if self.unit_weight is None and self.face_weight is None:
             raise ValueError("give unit_weight or face_weight")
+        if self.sill_fastening is not None and self.kind != "framed":
+            raise ValueError("sill_fastening is for framed walls only")
         return self
 
 

@@ -274,3 +274,17 @@ def test_the_helical_anchor_is_checked_by_its_installation_torque():
     assert check.capacity == pytest.approx(15000.0, rel=1e-12)
     assert check.source == "ICC-ES AC358: K_t T / FS"
     assert check.demand == pytest.approx(p.braces["axial_force_lb"], rel=1e-12)
+
+
+def test_a_wall_alone_checks_its_allowable_bearing_on_the_asd_combinations_under_lrfd():
+    """IBC Table 1806.2 bearing is an allowable value (text): under LRFD the soil under a
+    footing is checked with D + 0.6W as under ASD, and the check says so; overturning (statics)
+    takes 0.9D + 1.0W (ASCE 7-16 §2.3.1), so its utilization rises by 1.0/0.6 over 0.9/0.6."""
+    panel = {"mark": "F", "material": "concrete", "height": 10.0, "width": 10.0,
+             "thickness": 8.0, "footing": {"width": 4.0, "thickness": 1.5}}
+    asd, lrfd = (ev.evaluate(_site([panel], {}, basis=b)).panels[0] for b in ("ASD", "LRFD"))
+    a, b = ({c.element: c for c in p.checks} for p in (asd, lrfd))
+    assert b["soil bearing"].demand == pytest.approx(a["soil bearing"].demand, rel=1e-12)
+    assert "ASD combination under LRFD" in b["soil bearing"].combination
+    assert b["overturning"].utilization == pytest.approx(
+        a["overturning"].utilization * (1.0 / 0.6) / (0.9 / 0.6), rel=1e-9)
