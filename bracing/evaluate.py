@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import functools
 import gc
+import re
 from contextlib import contextmanager
 from dataclasses import dataclass, fields, replace
 from itertools import repeat
@@ -1119,7 +1120,7 @@ class _Results:
         for r, c in failing:
             serviceability = c.element in braced.SERVICEABILITY
             flags[walls[r]].append(Flag(
-                f"{c.element.replace(' ', '-')}-over", "warning" if serviceability else "danger",
+                f"{_code(c.element)}-over", "warning" if serviceability else "danger",
                 f"{c.element}: utilization {c.utilization:.2f}"
                 + (" (the wall would crack)" if serviceability else ""), c.source))
         lifted = sorted({r for r, c in failing if c.element == "base uplift"})
@@ -1348,6 +1349,13 @@ def _check_columns(arrays: dict, info: dict, combos: dict) -> list[tuple]:
         regions.update(masonry=strip, fresh=strip, strip=strip)
         out.append((element, regions, unit, combos[kind], source))
     return out
+
+
+def _code(element: str) -> str:
+    """A flag code from a check's name: its words joined by hyphens ('base kick-out' ->
+    'base-kick-out'; 'overturning (wind away from the braces)' ->
+    'overturning-wind-away-from-the-braces')."""
+    return "-".join(re.findall(r"[a-z0-9]+(?:-[a-z0-9]+)*", element.lower()))
 
 
 def _on_allowable(f: Factors, kind: str) -> str:
