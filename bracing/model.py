@@ -354,6 +354,8 @@ class AnchorType(Strict):
         if self.torque_factor is None:
             self.torque_factor = anchors.KT_AC358_PER_FT[self.shaft]
         if self.soil is not None:
+            if {"friction_coefficient", "friction_basis"} & self.model_fields_set:
+                raise ValueError("give soil or friction_coefficient, not both")
             values = anchors.FRICTION_TABLES[self.soil_table][0]
             if self.soil not in values:
                 raise ValueError(f"soil {self.soil!r} is not in the {self.soil_table} table; "
