@@ -643,11 +643,13 @@ def _deadman_checks(bs: BraceSet, f, deadman, pull, up, na) -> dict:
     # at the pin's height and of the uplift off the middle (statics; linear pressure, no
     # tension), against the allowable bearing. A block lifted off (no weight left) bears on
     # nothing: its uplift check fails and the bearing check is not made.
+    # A block that tips over its toe (no pressure left under its heel) fails its overturning
+    # check: its bearing is not checked either (it would be infinite).
     net = f.dead_adds * weight - up
-    bearing = deadman & ~np.isnan(bs.block_width) & (net > 0.0)
-    peak = stability.max_soil_pressure(
-        net, np.abs(pull * bs.pin_height + up * (bs.pin_from_toe - bs.block_length / 2.0)),
-        bs.block_length, bs.block_width)
+    moment = pull * bs.pin_height + up * (bs.pin_from_toe - bs.block_length / 2.0)
+    peak = stability.max_soil_pressure(net, np.abs(moment), bs.block_length, bs.block_width)
+    bearing = deadman & ~np.isnan(bs.block_width) & (net > 0.0) & (np.isfinite(peak)
+                                                                   | (moment < 0.0))
     # Sliding: pull <= mu (0.6W - uplift), written pull + mu uplift <= mu 0.6W so that a block
     # lifted off still has a finite utilization (foot_mu is already over its factor of safety).
     return dict(zip(DEADMAN_CHECKS, (

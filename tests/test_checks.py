@@ -289,3 +289,22 @@ def test_a_wall_alone_checks_its_allowable_bearing_on_the_asd_combinations_under
     assert "ASD combination under LRFD" in b["soil bearing"].combination
     assert b["overturning"].utilization == pytest.approx(
         a["overturning"].utilization * (1.0 / 0.6) / (0.9 / 0.6), rel=1e-9)
+
+
+def test_a_deadman_tipping_over_its_toe_fails_its_overturning_with_a_finite_utilization():
+    """A 2 ft block of 20,000 lb with the brace pinned 3 ft up (mid-length in plan): the pull at
+    3 ft against 0.6 W x 1 ft = 12,000 lb-ft about the toe (statics, ASCE 7-16 §2.4.1) tips
+    it; under a tipping block the linear pressure has no finite peak, so its bearing check is
+    not made and its overturning check gives the utilization."""
+    types = {"big": {"kind": "rated", "lengths": [1.0, 100.0], "loads": [60000.0, 60000.0],
+                     "tension_capacity": 60000.0}}
+    anchors = {"tall": {"kind": "deadman", "weight": 20000.0, "length": 2.0, "pin_height": 3.0,
+                        "width": 2.0, "allowable_bearing": 2000.0}}
+    p = ev.evaluate(_site([_wall("W", brace_type="big", foot_anchor="tall")], types,
+                          anchors)).panels[0]
+    by = {c.element: c for c in p.checks}
+    assert by["deadman overturning"].capacity == pytest.approx(12000.0)
+    assert not by["deadman overturning"].passes
+    assert by["deadman uplift"].passes  # 0.6 x 20,000 = 12,000 lb holds the uplift
+    assert "deadman bearing" not in by
+    assert math.isfinite(p.utilization) and p.utilization > 1.0
