@@ -59,6 +59,25 @@ FRICTION_NAVFAC_DM7_02 = {
 FRICTION_CONCRETE_ON_CONCRETE = 0.6
 SLIDING_FS_ULTIMATE = 1.5  # on ultimate or nominal friction (NAVFAC DM-7.02, from memory)
 DEAD_LOAD_FACTOR_RESISTING = {"ASD": 0.6, "LRFD": 0.9}  # ASCE 7-16 §2.4.1 / §2.3.1
+# The tables a deadman's `soil` reads its friction from, and the basis of their values.
+FRICTION_TABLES = {"IBC": (FRICTION_IBC_1806_2, "allowable"),
+                   "NAVFAC": (FRICTION_NAVFAC_DM7_02, "ultimate")}
+
+
+def soil_friction(soil: str, table: str = "IBC") -> tuple[float, str]:
+    """(friction coefficient, 'allowable' | 'ultimate') of concrete on `soil` from `table`:
+    IBC Table 1806.2 (allowable) or NAVFAC DM-7.02 Table 1 (ultimate, lower end of its range).
+    """
+    values, basis = FRICTION_TABLES[table]
+    return values[soil], basis
+
+
+def allowable_friction(mu, basis: str):
+    """The friction coefficient to use with 0.6D: an allowable value (IBC Table 1806.2) as it
+    is; an ultimate or nominal one (NAVFAC DM-7.02, concrete on concrete, ACI 318-19
+    §22.9.4.2) over SLIDING_FS_ULTIMATE."""
+    return (np.asarray(mu, dtype=float) / (1.0 if basis == "allowable"
+                                           else SLIDING_FS_ULTIMATE))[()]
 
 
 def _dead_load_factor(basis):

@@ -7,17 +7,18 @@ observed gust), so the working-limit speed is found by bisection like the unbrac
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass, fields, replace
 
 import numpy as np
 
 from bracing import anchors, braces, lines, members, stability
+from bracing.anchor_kinds import KINDS as ANCHOR_KINDS
 from bracing.data_members import DRESSED_SIZES_IN, LUMBER_GRADES, PIPES
 from bracing.model import BRACING_FIELDS, read_panels
 from bracing.wind import asce7
 
 IN = 1.0 / 12.0  # ft per in
-RATED_FEET = ("stake", "insert", "deck")  # foot anchors checked by their allowable ratings
 HARDWARE = ("brace_type", "wall_anchor", "foot_anchor")  # a layout's type names
 
 
@@ -37,11 +38,15 @@ class BraceSet:
     compression: np.ndarray     # allowable brace compression (lb) before self-weight bending
     tension: np.ndarray         # allowable brace tension (lb)
     connection: np.ndarray      # rated end fittings (lb), NaN if not given
+    compression_only: np.ndarray  # the brace type works in compression only
+    brace_strength: np.ndarray  # its compression capacity is a strength value (phi Pn, LRFD)
+    tension_strength: np.ndarray  # its tension capacity is (AISC 360-16 §D2, not a rating)
+    sill: np.ndarray            # framed walls: the sill fastening's allowable uplift, plf (NaN)
     self_weight_ratio: np.ndarray  # pipe: self-weight moment / available moment (0 otherwise)
     euler_load: np.ndarray      # pipe: Pe1 for the moment amplifier (lb), inf otherwise
     insert_tension: np.ndarray  # wall insert ratings (lb), NaN if no wall anchor given
     insert_shear: np.ndarray
-    foot_kind: np.ndarray       # '', 'slab', 'helical', 'deadman', 'stake', 'insert', 'deck'
+    foot_kind: np.ndarray       # '' or a kind of anchor_kinds.KINDS
     foot_tension: np.ndarray    # slab/stake allowable tension, helical allowable, deadman weight
     foot_shear: np.ndarray      # slab/stake allowable shear
     foot_mu: np.ndarray         # deadman friction / FS
@@ -72,8 +77,10 @@ def take(obj, rows):
 
 
 UNCHECKED = ("index", "positions", "mask", "anchor_distance", "length", "lean", "slop",
+UNCHECKED = ("index", "positions", "mask", "anchor_distance", "length", "lean", "slop",
              "pretensioned", "stiff", "slenderness", "slenderness_limit", "torque_factor",
-             "torque_safety", "foot_kind", "rupture")
+             "torque_safety", "rupture", "compression_only", "brace_strength",
+             "tension_strength", "sill")
 LOADED = ("index", "positions", "insert", "lean", "slop", "stiff")  # and the mask: what
 #                                                                    brace_loads reads
 
@@ -157,9 +164,15 @@ def _capacities(site, rows, c, length, angle, basis) -> dict[str, np.ndarray]:
     out["self_weight_ratio"] = np.zeros(m)
     out["euler_load"] = np.full(m, np.inf)
     out["foot_kind"] = np.full(m, "", dtype=object)
+    out["compression_only"], out["brace_strength"], out["tension_strength"] = (
+        np.zeros(m, bool) for _ in range(3))
     rupture = {name: braces.modulus_of_rupture(mat.compressive_strength or 2500.0)
                if mat.kind == "concrete" else np.nan for name, mat in site.materials.items()}
-    out["rupture"] = np.array([rupture[site.panels[i].material] for i in rows], dtype=float)
+    material = [site.panels[i].material for i in rows]
+    out["rupture"] = np.array([rupture[k] for k in material], dtype=float)
+    sill = {name: np.nan if mat.sill_fastening is None else mat.sill_fastening
+            for name, mat in site.materials.items()}
+    out["sill"] = np.array([sill[k] for k in material], dtype=float)
     for name in set(c["brace_type"]):
         sel = c["brace_type"] == name
         bt = site.brace_types[name]
@@ -167,7 +180,14 @@ def _capacities(site, rows, c, length, angle, basis) -> dict[str, np.ndarray]:
         for key, v in zip(("compression", "tension", "self_weight_ratio", "euler_load",
                            "slenderness", "slenderness_limit"), values):
             out[key][sel] = v
-        out["connection"][sel] = bt.end_connection or np.nan
+        # A compression-only brace takes no tension: its tension and end fittings in
+        # tension are not checked; the wind away from it is (evaluate.reverse_wind_checks).
+        out["connection"][sel] = np.nan if bt.compression_only else (bt.end_connection
+                                                                      or np.nan)
+        out["compression_only"][sel] = bt.compression_only
+        # AISC 360-16 strengths (phi Pn under LRFD); ratings and NDS ASD values are allowable
+        out["brace_strength"][sel] = bt.kind == "pipe"
+        out["tension_strength"][sel] = bt.kind == "pipe" and bt.tension_capacity is None
     for name in set(c["wall_anchor"]) - {None}:
         sel = c["wall_anchor"] == name
         wa = site.anchor_types[name]
@@ -178,7 +198,8 @@ def _capacities(site, rows, c, length, angle, basis) -> dict[str, np.ndarray]:
         fa = site.anchor_types[name]
         out["foot_kind"][sel] = fa.kind
         plan_edge = c["edge_distance"][sel] if "edge_distance" in c else np.inf
-        _foot_capacity(fa, sel, out, basis, plan_edge)
+        for key, value in ANCHOR_KINDS[fa.kind].capacity(fa, plan_edge, basis).items():
+            out[key][sel] = value
     out["foot_kind"] = out["foot_kind"].astype(str)  # numpy strings compare many times faster
     return out
 
@@ -188,10 +209,11 @@ def _brace_capacity(bt, length, angle, basis):
     nan = np.full(np.shape(length), np.nan)
     if bt.kind == "unrated":
         return nan, bt.tension_capacity or nan, 0.0, np.inf, nan, nan
+    # Tension as stated (model.BraceType: stated or compression_only, method notes §4).
     if bt.kind == "rated":
         # Outside the maker's table there is no rating: capacity 0, so the check fails visibly.
         comp = np.nan_to_num(members.rated_capacity(length, bt.lengths, bt.loads))
-        return comp, bt.tension_capacity or comp, 0.0, np.inf, nan, nan
+        return comp, bt.tension_capacity or nan, 0.0, np.inf, nan, nan
     if bt.kind == "pipe":
         s = PIPES[bt.section]
         fy = bt.yield_strength / 1000.0
@@ -200,7 +222,8 @@ def _brace_capacity(bt, length, angle, basis):
         if bt.lateral_struts:
             lc_out = length / (bt.lateral_struts + 1)
         comp = members.pipe_compression(s.area_in2, s.r_in, fy, lc_in, lc_out, basis)
-        ten = bt.tension_capacity or members.pipe_tension(s.area_in2, fy, basis)
+        ten = (nan if bt.compression_only else
+               bt.tension_capacity or members.pipe_tension(s.area_in2, fy, basis))
         span = lc_in  # self weight bends the brace in its vertical plane between supports
         m_sw = members.self_weight_moment(s.weight_plf, span, angle)
         mc = members.pipe_flexure(s.od_in, s.t_design_in, fy, basis)
@@ -219,41 +242,6 @@ def _brace_capacity(bt, length, angle, basis):
     le_d = members.lumber_slenderness(d_wide, d_thin, lc_in, lc_out)
     return (comp, bt.tension_capacity or nan, 0.0, np.inf, le_d,
             members.LE_OVER_D_MAX_CONSTRUCTION)
-
-
-def _foot_capacity(fa, sel, out, basis, plan_edge=np.inf):
-    """Capacities of the foot anchors of type `fa` for the selected walls.
-
-    Slab anchors take the edge distance found on the plan where there is one (0 off the slab:
-    no capacity), else the least distance their type needs (ACI 318-19 §17.6.2.4, §17.7.2)."""
-    if fa.kind in RATED_FEET:
-        out["foot_tension"][sel], out["foot_shear"][sel] = fa.rated_tension, fa.rated_shear
-    elif fa.kind == "slab":
-        edge = np.where(np.isfinite(plan_edge), plan_edge, fa.edge_distance or np.inf)
-        cap = anchors.slab_anchor_capacity(
-            fa.embedment, fa.concrete_strength, fa.steel_area, fa.steel_strength, fa.diameter,
-            fa.slab_thickness, c1_in=np.maximum(edge, 1e-6), cast_in=fa.cast_in,
-            cracked=fa.cracked, category=fa.category, Abrg_in2=fa.bearing_area,
-            pullout_lb=fa.pullout if fa.pullout else (None if fa.bearing_area else np.inf),
-            basis=basis)
-        off_slab = edge <= 0.0
-        out["foot_tension"][sel] = np.where(off_slab, 0.0, cap.tension)
-        out["foot_shear"][sel] = np.where(off_slab, 0.0, cap.shear)
-    elif fa.kind == "helical":
-        out["foot_tension"][sel] = float(anchors.helical_capacity(
-            fa.installation_torque, fa.torque_factor, fa.factor_of_safety))
-        out["torque_factor"][sel], out["torque_safety"][sel] = fa.torque_factor, fa.factor_of_safety
-    elif fa.kind == "deadman":
-        out["foot_tension"][sel] = fa.weight
-        # IBC Table 1806.2 values are allowable; concrete on concrete is nominal (design.md §6).
-        fs = 1.0 if fa.friction_basis == "allowable" else anchors.SLIDING_FS_ULTIMATE
-        out["foot_mu"][sel] = fa.friction_coefficient / fs
-        if fa.length is not None:
-            out["block_length"][sel], out["pin_height"][sel] = fa.length, fa.pin_height
-            out["pin_from_toe"][sel] = (fa.length / 2.0 if fa.pin_from_toe is None
-                                        else fa.pin_from_toe)
-        if fa.width is not None:
-            out["block_width"][sel], out["block_bearing"][sel] = fa.width, fa.allowable_bearing
 
 
 @dataclass(frozen=True)
@@ -449,18 +437,24 @@ CHECKS = {
                     "(common practice)"),
     "foot anchor": ("lb", "wind", "ACI 318-19 §17.6-17.8 / ICC-ES AC358 / maker's rating"),
     "deadman uplift": ("lb", "resisting", "weight, ASCE 7-16 §2.4.1"),
-    "deadman sliding": ("lb", "resisting", "friction, IBC Table 1806.2 / ACI 318-19 §22.9.4.2"),
+    "deadman sliding": ("lb", "resisting", "friction, IBC Table 1806.2 / ACI 318-19 §22.9.4.2: "
+                        "pull + mu x uplift against mu x factored weight"),
     "deadman overturning": ("lb·ft", "resisting", "statics about the block's toe, weight at "
                             "mid-length, ASCE 7-16 §2.4.1"),
     "deadman bearing": ("psf", "adding", "statics, linear pressure, against the "
                         "allowable bearing (IBC Table 1806.2)"),
     "base uplift": ("lb", "resisting", "statics: 0.6D - sum(P sin theta) >= 0"),
+    "sill uplift": ("lb", "resisting", "statics: sum(P sin theta) against 0.6D plus the sill "
+                    "fastening (method notes §4)"),
     "base kick-out": ("lb", "resisting", "friction, ACI 318-19 §22.9.4.2 (mu 0.6)"),
     "wall bending": ("lb·ft", "resisting", "TMS 402-16 §8.2 flexural tension, or weight above "
                      "(fresh mortar), per ft"),
     "wall cracking": ("lb·ft", "resisting", "ACI 318-19 Eq. 19.2.3.1 modulus of rupture, per ft "
                       "(serviceability: a crack, not a collapse)"),
 }
+# Checks whose capacity is a strength value or statics alone, whatever the hardware: they take
+# the basis's own combinations (the others hold allowable capacities: method notes §1).
+STRENGTH_CHECKS = {"base uplift", "base kick-out", "wall cracking"}
 
 
 BRACE_SOURCE = {
@@ -470,22 +464,41 @@ BRACE_SOURCE = {
     "lumber": ("NDS 2018 §3.7.1, C_D 1.6", "the rating given (end connection)"),
     "unrated": ("not rated", "the rating given"),
 }
-FOOT_SOURCE = {
-    "slab": "ACI 318-19 §17.6-17.8 (cracked), phi Nn x 0.6 for ASD",
-    "helical": "ICC-ES AC358: K_t T / FS",
-    "stake": "maker's ratings, T/Ta + V/Va <= 1 (common practice)",
-    "deck": "ratings of the deck fastening, T/Ta + V/Va <= 1 (common practice)",
-    "insert": "maker's ratings, T/Ta + V/Va <= 1 (common practice)",
-}
 
 
 def sources(brace_kind: str, foot_kind: str | None) -> dict[str, str]:
     """The source of each braced check that depends on the brace and anchor used."""
     compression, tension = BRACE_SOURCE[brace_kind]
     out = {"brace compression": compression, "brace tension": tension}
-    if foot_kind in FOOT_SOURCE:
-        out["foot anchor"] = FOOT_SOURCE[foot_kind]
+    if foot_kind in ANCHOR_KINDS:
+        out["foot anchor"] = ANCHOR_KINDS[foot_kind].source
     return out
+
+
+def strength_checks(brace_type, foot_kind: str | None, sill_given: bool) -> set[str]:
+    """The braced checks of a brace type, a foot anchor kind and a wall whose sill fastening is
+    given or not, that take the LRFD combinations under LRFD (strength values: AISC 360-16
+    phi Pn, ACI 318-19 phi Nn; statics): the others are allowable (method notes §1)."""
+    out = set(STRENGTH_CHECKS)
+    if brace_type.kind == "pipe":
+        out.add("brace compression")
+        if brace_type.tension_capacity is None:
+            out.add("brace tension")
+    if foot_kind in ANCHOR_KINDS and not ANCHOR_KINDS[foot_kind].allowable:
+        out.add("foot anchor")
+    if not sill_given:
+        out.add("sill uplift")
+    return out
+
+
+def _strength_rows(bs: BraceSet) -> dict[str, np.ndarray]:
+    """`strength_checks` row by row: True where the check takes the LRFD combinations."""
+    foot_strength = np.isin(bs.foot_kind, [k for k, v in ANCHOR_KINDS.items()
+                                           if not v.allowable])
+    rows = {name: np.ones(len(bs.foot_kind), bool) for name in STRENGTH_CHECKS}
+    rows.update({"brace compression": bs.brace_strength, "brace tension": bs.tension_strength,
+                 "foot anchor": foot_strength, "sill uplift": np.isnan(bs.sill)})
+    return rows
 
 
 @dataclass(frozen=True)
@@ -496,12 +509,10 @@ class Standing:
     cos: np.ndarray         # of each wall's brace angle
     sin: np.ndarray
     tan: np.ndarray
-    slab: np.ndarray        # the foot anchors' kinds
-    rated: np.ndarray
-    helical: np.ndarray
-    deadman: np.ndarray
-    held: np.ndarray        # the base is checked (a framed wall's sill is the framer's)
+    held: np.ndarray        # the base is checked for uplift and kick-out (not framed walls)
+    framed: np.ndarray      # framed walls: the sill uplift is checked instead
     weight: np.ndarray      # factored weight holding the base down, lb
+    sill: np.ndarray        # the sill fastening's allowable uplift, lb (0: none given)
     base_mu: np.ndarray     # friction at the base
     area: np.ndarray        # the wall's face, ft^2
     height: np.ndarray      # the wall's, ft
@@ -517,17 +528,25 @@ def standing_of(walls, bs: BraceSet, f) -> Standing:
     """The wind-independent parts of the braced checks of `bs` with load factors `f`."""
     i = bs.index
     theta = np.radians(bs.angle)
-    kind = bs.foot_kind
     s, b = walls.height[i], walls.width[i]
     dead = walls.face_weight[i] * s * b * walls.solidity[i]
     masonry = walls.masonry[i]
     bending = (np.where(masonry, _masonry_bending(walls, bs, f, s), np.nan) if masonry.any()
                else np.full(len(i), np.nan))
-    return Standing(np.cos(theta), np.sin(theta), np.tan(theta), kind == "slab",
-                    np.isin(kind, RATED_FEET), kind == "helical", kind == "deadman",
-                    # A framed wall's sill is nailed or bolted down: the framer designs it.
-                    ~walls.framed[i], f.dead_resists * dead, walls.base_mu[i], b * s, s, bending,
+    framed = walls.framed[i]
+    return Standing(np.cos(theta), np.sin(theta), np.tan(theta),
+                    # A framed wall's sill is fastened down: its uplift is checked against the
+                    # weight and the sill fastening; its kick-out is the sill's (method notes §4).
+                    ~framed, framed, f.dead_resists * dead, np.nan_to_num(bs.sill) * b,
+                    walls.base_mu[i], b * s, s, bending,
                     braces.cracking_moment(bs.rupture, walls.thickness_ft[i] * 12.0))
+
+
+def sill_uplift(lift, weight, count, width):
+    """The uplift the sill fastening must hold, lb per brace and per ft of sill: the braces'
+    vertical push sum(P sin theta) less the factored weight, none below zero (statics)."""
+    net = np.maximum(np.asarray(lift, dtype=float) - weight, 0.0)
+    return net / count, net / width
 
 
 @np.errstate(divide="ignore", invalid="ignore", over="ignore")  # infinities and NaN mean 'fails'
@@ -537,10 +556,22 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
 
     `loads` (from `brace_loads`) may be given to skip working out the wind's load cases (the
     wind is then not read), `standing` (from `standing_of`) the parts that do not depend on the
-    wind. A check that applies to none of the walls is NaN throughout.
+    wind. A check that applies to none of the walls is NaN throughout. Where `f` has allowable
+    factors of its own (LRFD), the checks of allowable capacities take those (method notes §1).
     """
     if loads is None:
         loads = brace_loads(walls, wind, bs, minimum_psf)
+    checks, forces = _checks_at(walls, bs, f, loads, standing)
+    if f.allowable is not None:
+        allowable, _ = _checks_at(walls, bs, f.allowable, loads, None)
+        strength = _strength_rows(bs)
+        checks = {k: tuple(np.where(strength[k], v, a) for v, a in zip(checks[k], allowable[k]))
+                  if k in strength else allowable[k] for k in checks}
+    return checks, forces
+
+
+def _checks_at(walls, bs: BraceSet, f, loads: BraceLoads, standing: Standing | None):
+    """`braced_checks` with every check on the load factors `f`."""
     if standing is None:
         standing = standing_of(walls, bs, f)
     forces = brace_forces(loads, bs, f)
@@ -565,21 +596,26 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
     # the insert: the horizontal component pulls it out of the face, the vertical one shears it
     insert_ratio = pull / bs.insert_tension + up / bs.insert_shear
     checks["wall insert"] = (p, p / np.maximum(insert_ratio, 1e-12))
-    # The foot anchor: uplift P sin(theta) and pull P cos(theta) with the brace in tension.
-    slab = standing.slab
-    slab_ratio = (np.where(slab, anchors.tension_shear_interaction(
-        up, bs.foot_tension, pull, bs.foot_shear), np.nan) if slab.any() else na)
-    rated_ratio = up / bs.foot_tension + pull / bs.foot_shear
-    foot_ratio = np.select([slab, standing.rated, standing.helical],
-                           [slab_ratio, rated_ratio, p / bs.foot_tension], np.nan)
+    # The foot anchor with the brace in tension (uplift P sin, pull P cos): each kind's own
+    # ratio (anchor_kinds.KINDS); a kind with checks of its own (a deadman) has them instead.
+    foot_ratio = np.full(len(p), np.nan)
+    kinds = bs.foot_kind
+    for name, kind in ANCHOR_KINDS.items():
+        sel = kinds == name
+        if kind.ratio is not None and sel.any():
+            foot_ratio[sel] = kind.ratio(up[sel], pull[sel], p[sel], bs.foot_tension[sel],
+                                         bs.foot_shear[sel])
     checks["foot anchor"] = (p, p / np.maximum(foot_ratio, 1e-12))
-    deadman = standing.deadman
+    deadman = kinds == "deadman"
     checks.update(_deadman_checks(bs, f, deadman, pull, up, na) if deadman.any()
                   else dict.fromkeys(DEADMAN_CHECKS, (na, na)))
     # The wall's base: lifted by the braces in compression, pushed out by the base shear.
     lift = forces.total * standing.tan
     held = standing.held
     checks["base uplift"] = (np.where(held, lift, na), standing.weight)
+    # A framed wall's sill: the lift against its weight and the sill fastening (design.md §6).
+    checks["sill uplift"] = (np.where(standing.framed, lift, na),
+                             standing.weight + standing.sill)
     checks["base kick-out"] = (np.where(held, forces.base_shear, na), standing.base_mu * np.maximum(
         standing.weight - lift, 0.0))
     # The wall spanning from its base to the braces, per ft of width.
@@ -605,23 +641,26 @@ def _deadman_checks(bs: BraceSet, f, deadman, pull, up, na) -> dict:
     # The soil under the block's more loaded edge (the toe, unless the uplift sits far back):
     # its weight (dead load adds) less the uplift, with the moment about its middle of the pull
     # at the pin's height and of the uplift off the middle (statics; linear pressure, no
-    # tension), against the allowable bearing. Lifted off (no weight left): no bearing at all.
-    bearing = deadman & ~np.isnan(bs.block_width)
+    # tension), against the allowable bearing. A block lifted off (no weight left) bears on
+    # nothing: its uplift check fails and the bearing check is not made.
+    # A block that tips over its toe (no pressure left under its heel) fails its overturning
+    # check: its bearing is not checked either (it would be infinite).
     net = f.dead_adds * weight - up
-    peak = stability.max_soil_pressure(
-        net, np.abs(pull * bs.pin_height + up * (bs.pin_from_toe - bs.block_length / 2.0)),
-        bs.block_length, bs.block_width)
+    moment = pull * bs.pin_height + up * (bs.pin_from_toe - bs.block_length / 2.0)
+    peak = stability.max_soil_pressure(net, np.abs(moment), bs.block_length, bs.block_width)
+    bearing = deadman & ~np.isnan(bs.block_width) & (net > 0.0) & (np.isfinite(peak)
+                                                                   | (moment < 0.0))
+    # Sliding: pull <= mu (0.6W - uplift), written pull + mu uplift <= mu 0.6W so that a block
+    # lifted off still has a finite utilization (foot_mu is already over its factor of safety).
     return dict(zip(DEADMAN_CHECKS, (
         (np.where(deadman, up, na), anchors.deadman_uplift(weight, f.dead_resists)),
-        # foot_mu is already the friction over its factor of safety
-        (np.where(deadman, pull, na), anchors.deadman_sliding(weight, up, bs.foot_mu,
-                                                              basis=f.dead_resists)),
+        (np.where(deadman, pull + bs.foot_mu * up, na),
+         anchors.deadman_sliding(weight, 0.0, bs.foot_mu, basis=f.dead_resists)),
         (np.where(sized, anchors.deadman_overturning_moment(pull, up, bs.pin_height,
                                                             bs.pin_from_toe), na),
          np.where(sized, anchors.deadman_resisting_moment(weight, bs.block_length / 2.0,
                                                           f.dead_resists), na)),
-        (np.where(bearing, np.where(net > 0.0, peak, np.inf), na),
-         np.where(bearing, bs.block_bearing, na)))))
+        (np.where(bearing, peak, na), np.where(bearing, bs.block_bearing, na)))))
 
 
 def _masonry_bending(walls, bs: BraceSet, f, s):
@@ -637,10 +676,12 @@ def _masonry_bending(walls, bs: BraceSet, f, s):
 
 def braced_records(bs: BraceSet, forces: BraceForces, brace_type: list[str],
                    wall_anchor: list[str | None], foot_anchor: list[str | None],
-                   utilization: list[float | None], one_missing: list[float | None]) -> list[dict]:
+                   utilization: list[float | None], one_missing: list[float | None],
+                   sill: tuple[np.ndarray, np.ndarray]) -> list[dict]:
     """The §8 `braces` record of every braced wall (design wind, governing brace), in row order,
-    with its brace and anchor types, the largest utilization of its brace's own checks and its
-    working limit with one brace missing (None: not known)."""
+    with its brace and anchor types, the largest utilization of its brace's own checks, its
+    working limit with one brace missing (None: not known) and, for a framed wall, the sill
+    uplift (`sill`: lb per brace and per ft, NaN for other walls; `sill_uplift`)."""
     count = bs.mask.sum(axis=1)
     p = braces.worst_brace(forces.axial)
     pull, up = braces.components(p, bs.angle)
@@ -651,12 +692,13 @@ def braced_records(bs: BraceSet, forces: BraceForces, brace_type: list[str],
                       np.nan)
     out = []
     for k, angle, insert, distance, length, axial, lift, shear, at, each, base, uplift_lb, \
-            helix, torque_ftlb, brace, wall, foot, most, missing in zip(
+            helix, torque_ftlb, brace, wall, foot, most, missing, sill_lb, sill_plf in zip(
                 count.tolist(), bs.angle.tolist(), bs.insert.tolist(),
                 bs.anchor_distance.tolist(), bs.length.tolist(), p.tolist(), up.tolist(),
                 pull.tolist(), _of_braces(bs.positions, count), _of_braces(forces.axial, count),
                 forces.base_shear.tolist(), uplift.tolist(), helical.tolist(), torque.tolist(),
-                brace_type, wall_anchor, foot_anchor, utilization, one_missing):
+                brace_type, wall_anchor, foot_anchor, utilization, one_missing,
+                sill[0].tolist(), sill[1].tolist()):
         record = {
             "count": k, "angle_deg": angle, "insert_height_ft": insert,
             "anchor_distance_ft": distance, "length_ft": length, "axial_force_lb": axial,
@@ -665,6 +707,8 @@ def braced_records(bs: BraceSet, forces: BraceForces, brace_type: list[str],
         }
         if helix:
             record["installation_torque_ftlb"] = torque_ftlb
+        if not math.isnan(sill_lb):
+            record["sill_uplift_lb"], record["sill_uplift_plf"] = sill_lb, sill_plf
         record["brace_type"], record["wall_anchor"], record["foot_anchor"] = brace, wall, foot
         record["utilization"], record["working_limit_one_missing_mph"] = most, missing
         out.append(record)

@@ -41,6 +41,7 @@ PANEL_FLAGS = {
     "footing_thickness": ("panels.0.footing.thickness",),
     "limit_speed": ("site.limit_speed",), "basis": ("site.design_basis",),
     "mortar_age": ("panels.0.mortar_age",),
+    "sill_fastening": ("materials.wall.sill_fastening",),
 }
 DEFAULT_WEIGHT = {"concrete": {"unit_weight": "150 pcf"},  # ASCE 7 Table C3.1-2 (from memory)
                   "masonry": {"face_weight": "36 psf"},    # 8 in hollow CMU, HUD RSDG Table 3.2
@@ -110,7 +111,9 @@ def build_parser() -> argparse.ArgumentParser:
     angle = panel.add_mutually_exclusive_group()
     angle.add_argument("--brace-angle", help="brace angle from horizontal (deg)")
     angle.add_argument("--anchor-distance", help="brace foot distance from the wall face (ft)")
-    add("--brace-capacity", help="allowable brace load (lb)")
+    add("--brace-capacity", help="allowable brace load (lb), in compression and in tension")
+    add("--sill-fastening", help="framed walls: allowable uplift of the sill fastening per ft "
+                                 "of sill, e.g. 200plf (plf)")
     add("--limit-speed", help="observed gust limit for the unbraced height, e.g. 20mph (mph)")
     add("--stand-down-ratio", help="stand-down speed / working-limit speed (default 0.8)")
     add("--basis", choices=["ASD", "LRFD"], default="ASD")
@@ -198,9 +201,10 @@ def panel_site(args) -> dict:
             node = node[int(key)] if key.isdigit() else node.setdefault(key, {})
         node[leaf] = _number_or_text(value)
     if args.braces is not None:
-        brace = ({"kind": "rated", "lengths": [0.1, 1000.0],
-                  "loads": [_number_or_text(args.brace_capacity)] * 2}
-                 if args.brace_capacity else {"kind": "unrated"})
+        capacity = _number_or_text(args.brace_capacity) if args.brace_capacity else None
+        brace = ({"kind": "rated", "lengths": [0.1, 1000.0], "loads": [capacity] * 2,
+                  "tension_capacity": capacity}  # the one allowable load, either way
+                 if capacity is not None else {"kind": "unrated"})
         site["brace_types"] = {"brace": brace}
         bracing = {"brace_type": "brace", "count": args.braces}
         for flag, key in (("insert_height", "insert_height"), ("brace_angle", "angle"),

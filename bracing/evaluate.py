@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import functools
 import gc
+import re
 from contextlib import contextmanager
 from dataclasses import dataclass, fields, replace
 from itertools import repeat
@@ -16,7 +17,8 @@ from operator import attrgetter
 
 import numpy as np
 
-from bracing import anchors, braced, layout, lines, members, plan, schedule, scope, stability
+from bracing import braced, layout, lines, members, plan, schedule, scope, stability
+from bracing.anchor_kinds import KINDS as ANCHOR_KINDS
 from bracing.braced import take
 from bracing.data_members import PIPES
 from bracing.model import Site, read_panels
@@ -33,7 +35,9 @@ BRACED_WALLS_AT_ONCE = 8192  # braced walls checked in one pass of a search
 
 @dataclass(frozen=True)
 class Factors:
-    """Load factors of one combination (ASCE 7-16 §2.3.1 / §2.4.1) and their names."""
+    """Load factors of one combination (ASCE 7-16 §2.3.1 / §2.4.1) and their names;
+    `allowable`: the factors that allowable capacities take, where they differ (LRFD: ASD's,
+    design.md §3, method notes §1)."""
 
     dead_resists: float
     dead_adds: float
@@ -41,12 +45,18 @@ class Factors:
     resisting: str
     adding: str
     wind_only: str
+    allowable: Factors | None = None
 
 
+_ASD = Factors(0.6, 1.0, 0.6, "0.6D + 0.6W", "D + 0.6W", "0.6W")  # ASCE 7-16 §2.4.1
 COMBINATIONS = {
-    "ASD": Factors(0.6, 1.0, 0.6, "0.6D + 0.6W", "D + 0.6W", "0.6W"),  # ASCE 7-16 §2.4.1
-    "LRFD": Factors(0.9, 1.2, 1.0, "0.9D + 1.0W", "1.2D + 1.0W", "1.0W"),  # ASCE 7-16 §2.3.1
+    "ASD": _ASD,
+    "LRFD": Factors(0.9, 1.2, 1.0, "0.9D + 1.0W", "1.2D + 1.0W", "1.0W",  # ASCE 7-16 §2.3.1
+                    allowable=_ASD),
 }
+# Capacities the working limit reads: allowable ones (ASD) whatever the basis, so that the
+# service speeds are the same under either (design.md §3).
+SERVICE_BASIS = "ASD"
 # The observed wind as a service load (design.md §3): 1.0W, 0.6D where dead load resists.
 SERVICE = Factors(0.6, 1.0, 1.0, "0.6D + 1.0W (observed gust)", "D + 1.0W (observed gust)",
                   "1.0W (observed gust)")
@@ -443,6 +453,7 @@ class Evaluation:
     max_at_limit: np.ndarray
     design_speed: np.ndarray
     braces: braced.BraceSet | None = None
+    service_braces: braced.BraceSet | None = None  # the same with allowable capacities (ASD)
     braced_checks: dict | None = None
     brace_forces: braced.BraceForces | None = None
     braced_limit: np.ndarray | None = None
@@ -584,7 +595,7 @@ def evaluate_arrays(site: Site, edges: dict[str, float] | None = None,
     # An observed gust: Kd 1.0, no minimum, no period factor (design.md §3); loads grow with
     # V^2, so the wind of a 1 mph gust is scaled rather than recomputed.
     unit = wind_on(w, 1.0, 1.0, None)
-    checks = stability_checks(w, wind, factors)
+    checks = wall_checks(w, wind, factors)
     limit = solve_speed(
         lambda v2, rows: unbraced_at(take(w, rows), take(unit, rows).scaled(v2), SERVICE), n)
 
@@ -605,18 +616,71 @@ def evaluate_arrays(site: Site, edges: dict[str, float] | None = None,
     if bs is not None:
         loads = braced.brace_loads(w, wind, bs, minimum)
         e.braces = bs
+        # the service speeds read allowable capacities under either basis (design.md §3)
+        e.service_braces = service = (bs if site.site.design_basis == SERVICE_BASIS else
+                                      braced.gather_braces(site, SERVICE_BASIS, edges, columns))
         e.braced_checks, e.brace_forces = braced.braced_checks(w, wind, bs, factors, minimum,
                                                                loads)
-        e.braced_limit = braced_limit(w, unit, bs)
+        e.braced_checks.update(reverse_wind_checks(checks, bs))
+        e.braced_limit = reverse_wind_limit(braced_limit(w, unit, service), bs, limit)
         e.braced_stand_down = stand_down_speeds(site, braced.take(w, bs.index), e.braced_limit)
-        e.braced_limit_missing = braced_limit_one_missing(w, unit, bs, e.braced_limit)
+        e.braced_limit_missing = reverse_wind_limit(
+            braced_limit_one_missing(w, unit, service, e.braced_limit), bs, limit)
     e.fresh_limit, e.fresh_stand_down = fresh_mortar_limits(site, unit, e)
     return e
 
 
+REVERSE = " (wind away from the braces)"  # a check of the wall alone, compression-only braces
+REVERSE_INFO = {name + REVERSE: (unit, kind, f"{source}; the braces work in compression only "
+                                 "(method notes §4)")
+                for name, (unit, kind, source) in CHECK_INFO.items()}
+
+
+def reverse_wind_checks(checks: dict, bs: braced.BraceSet) -> dict:
+    """The checks of the walls on their own (`checks`, at the design wind), as braced checks of
+    the walls whose braces work in compression only (NaN for the others): with the wind away
+    from its braced face, such a wall stands alone (design.md §6)."""
+    only = bs.compression_only
+    out = {}
+    for key, (demand, capacity) in checks.items():
+        element, _, region = key.partition("|")
+        name = f"{element}{REVERSE}|{'worst region' if region == '*' else region}"
+        out[name] = (np.where(only, demand[bs.index], np.nan), capacity[bs.index])
+    return out
+
+
+def reverse_wind_limit(limit: np.ndarray, bs: braced.BraceSet, alone: np.ndarray) -> np.ndarray:
+    """A braced wall's working limit, no higher than its limit on its own where its braces work
+    in compression only (the wind away from them: design.md §6)."""
+    return np.where(bs.compression_only, np.fmin(limit, alone[bs.index]), limit)
+
+
 def unbraced_at(walls: Walls, wind: Wind, f: Factors) -> np.ndarray:
     """The largest utilization, less 1, of each wall standing on its own."""
-    return governing_utilization(stability_checks(walls, wind, f)) - 1.0
+    return governing_utilization(wall_checks(walls, wind, f)) - 1.0
+
+
+# Checks of walls on their own against allowable values (IBC Table 1806.2 bearing and friction),
+# and those of cured masonry (TMS 402-16 §8.2 allowable stresses): under LRFD they take the ASD
+# combinations (design.md §3, method notes §1).
+ALLOWABLE_ALONE = {"soil bearing", "footing sliding"}
+ALLOWABLE_MASONRY = {"overturning", "sliding at base"}
+
+
+def wall_checks(w: Walls, wind: Wind, f: Factors) -> dict[str, tuple[np.ndarray, np.ndarray]]:
+    """`stability_checks` with the allowable ones on `f.allowable` where it has one (LRFD)."""
+    checks = stability_checks(w, wind, f)
+    if f.allowable is None:
+        return checks
+    allowable = stability_checks(w, wind, f.allowable)
+    cured = w.masonry & ~w.fresh
+    out = {}
+    for key, pair in checks.items():
+        element = key.partition("|")[0]
+        rows = (True if element in ALLOWABLE_ALONE else
+                cured if element in ALLOWABLE_MASONRY else False)
+        out[key] = tuple(np.where(rows, a, v) for v, a in zip(pair, allowable[key]))
+    return out
 
 
 def fresh_mortar_limits(site: Site, unit: Wind, e: Evaluation) -> tuple[np.ndarray, np.ndarray]:
@@ -626,7 +690,7 @@ def fresh_mortar_limits(site: Site, unit: Wind, e: Evaluation) -> tuple[np.ndarr
     A wall checked with fresh mortar keeps its own values; one checked with cured mortar that
     has a lift day is checked again as fresh, for the days after its lift while the mortar is
     younger than the cure rule (the day-by-day schedule). `unit`: the wind of a 1 mph gust."""
-    w, bs = e.walls, e.braces
+    w, bs = e.walls, e.service_braces
     limit = e.limit.copy()
     stand_down = e.stand_down.copy()
     if bs is not None:
@@ -811,7 +875,8 @@ class _Results:
         kinds, way = np.unique(self.kind[self.alone], return_inverse=True)
         self.unbraced = _check_set(
             {name: (d[self.alone], c[self.alone]) for name, (d, c) in e.checks.items()},
-            CHECK_INFO, combos, [(k, UNBRACED_SOURCES[k]) for k in kinds.tolist()], way)
+            CHECK_INFO, combos, [(k, UNBRACED_SOURCES[k], self._alone_combinations(k))
+                                 for k in kinds.tolist()], way)
         over_height = self._over_height(w)
         self.stands = (e.utilization <= 1.0) & ~over_height
         self.wall_notes = self._wall_notes(w, e.utilization, over_height, material, opening_area)
@@ -856,17 +921,54 @@ class _Results:
         self.bracings = bracings
         self.brace_type, foot_anchor, wall_anchor = (
             list(e.columns[k]) for k in ("brace_type", "foot_anchor", "wall_anchor"))
-        ways: dict[tuple, int] = {}  # brace and foot anchor types: each pair's checks' sources
-        self.way = np.array([ways.setdefault(pair, len(ways))
-                             for pair in zip(self.brace_type, foot_anchor)], dtype=np.int64)
-        self.hardware_of_way = [self._hardware(pair) for pair in ways]
-        self.braced = _check_set(e.braced_checks, braced.CHECKS, combos,
-                                 [("braced", sources) for sources, *_ in self.hardware_of_way],
+        # brace and foot anchor types, and a sill fastening given or not: each way's checks'
+        # sources and combinations
+        sill = (~np.isnan(e.braces.sill)).tolist()
+        ways: dict[tuple, int] = {}
+        self.way = np.array([ways.setdefault(key, len(ways))
+                             for key in zip(self.brace_type, foot_anchor, sill)], dtype=np.int64)
+        self.hardware_of_way = [self._hardware(key[:2]) for key in ways]
+        self.braced = _check_set(e.braced_checks, {**braced.CHECKS, **REVERSE_INFO}, combos,
+                                 [("braced", sources, self._combinations(key))
+                                  for (sources, *_), key in zip(self.hardware_of_way, ways)],
                                  self.way)
-        self.notes = brace_notes(site, e, [site.brace_types[t] for t, _ in ways], self.way)
+        self.notes = brace_notes(site, e, [site.brace_types[t] for t, *_ in ways], self.way)
+        self.sill_uplift = self._sill_uplift(e)
         self.records = braced.braced_records(
             e.braces, e.brace_forces, self.brace_type, wall_anchor, foot_anchor,
-            self.braced.brace_utilization, _or_none(e.braced_limit_missing))
+            self.braced.brace_utilization, _or_none(e.braced_limit_missing), self.sill_uplift)
+
+    def _sill_uplift(self, e: Evaluation) -> tuple[np.ndarray, np.ndarray]:
+        """The sill uplift of each braced framed wall at the design wind, lb per brace and per
+        ft of sill (NaN: not framed), from its sill uplift check: the lift less the factored
+        weight (the check's capacity less the sill fastening)."""
+        bs = e.braces
+        lift, held = e.braced_checks["sill uplift"]
+        width = e.walls.width[bs.index]
+        weight = held - np.nan_to_num(bs.sill) * width
+        return braced.sill_uplift(lift, weight, bs.mask.sum(axis=1), width)
+
+    def _alone_combinations(self, kind: str) -> dict[str, str]:
+        """`_combinations` of a wall standing on its own of `kind` (as in UNBRACED_SOURCES)."""
+        f = COMBINATIONS[self.site.site.design_basis]
+        if f.allowable is None:
+            return {}
+        allowable = ALLOWABLE_ALONE | (ALLOWABLE_MASONRY if kind == "masonry" else set())
+        return {name: _on_allowable(f, kind_of) for name, (_, kind_of, _) in CHECK_INFO.items()
+                if name in allowable}
+
+    def _combinations(self, key: tuple) -> dict[str, str]:
+        """The combination of each braced check of allowable capacity that differs from the
+        basis's: under LRFD, the ASD combinations (design.md §3, method notes §1)."""
+        f = COMBINATIONS[self.site.site.design_basis]
+        if f.allowable is None:
+            return {}
+        brace_type, foot_anchor, sill = key
+        fa = self.site.anchor_types[foot_anchor] if foot_anchor else None
+        strength = braced.strength_checks(self.site.brace_types[brace_type],
+                                          fa.kind if fa else None, sill)
+        return {name: _on_allowable(f, kind) for name, (_, kind, _) in braced.CHECKS.items()
+                if name not in strength}
 
     def panels(self) -> list[PanelResult]:
         """The result object of every wall, in the site's order (asked once: the objects take
@@ -961,6 +1063,11 @@ class _Results:
             bt = site.brace_types[brace_type]
             fa = site.anchor_types[foot_anchor] if foot_anchor else None
             brace_flags, anchor_flags = [], []
+            if bt.compression_only:
+                brace_flags.append(Flag(
+                    "compression-only", "notice", f"brace {brace_type} works in compression "
+                    "only: with the wind away from it the wall stands on its own (checked as "
+                    "such)", "method notes §4"))
             if bt.kind == "pipe":
                 pipe = PIPES[bt.section]
                 if not members.pipe_wall_nonslender(pipe.od_in, pipe.t_design_in,
@@ -969,17 +1076,9 @@ class _Results:
                         "slender-pipe-wall", "danger", f"{bt.section} at Fy "
                         f"{bt.yield_strength / 1000.0:g} ksi has a slender wall: its local "
                         "buckling is not checked here", "AISC 360-16 Table B4.1a"))
-            if fa is not None and fa.kind == "slab" and not fa.cast_in and not bool(
-                    anchors.post_installed_embedment_ok(fa.embedment, fa.slab_thickness)):
-                anchor_flags.append(Flag(
-                    "anchor-too-deep", "warning", f"post-installed anchor {foot_anchor}: "
-                    f"h_ef {fa.embedment:g} in is more than the {fa.slab_thickness:g} in slab "
-                    "allows", "ACI 318-19 §17.9.4 (from memory)"))
-            if fa is not None and fa.kind == "deadman" and fa.length is None:
-                anchor_flags.append(Flag(
-                    "deadman-tipping-unchecked", "warning", f"deadman {foot_anchor}: its "
-                    "overturning about the toe is not checked; give its length and pin_height",
-                    "statics"))
+            if fa is not None:  # what its kind says of the type itself (anchor_kinds.KINDS)
+                anchor_flags += [Flag(*made) for made in ANCHOR_KINDS[fa.kind].notes(
+                    fa, foot_anchor)]
             self.hardware[key] = (braced.sources(bt.kind, fa.kind if fa else None),
                                   brace_flags, anchor_flags)
         return self.hardware[key]
@@ -995,11 +1094,22 @@ class _Results:
         for r, c in failing:
             serviceability = c.element in braced.SERVICEABILITY
             flags[walls[r]].append(Flag(
-                f"{c.element.replace(' ', '-')}-over", "warning" if serviceability else "danger",
+                f"{_code(c.element)}-over", "warning" if serviceability else "danger",
                 f"{c.element}: utilization {c.utilization:.2f}"
                 + (" (the wall would crack)" if serviceability else ""), c.source))
         lifted = sorted({r for r, c in failing if c.element == "base uplift"})
         _add(flags, wall[lifted], FIXED_FLAGS["braces-lift-wall"])
+        per_brace, per_ft = self.sill_uplift
+        rows = np.flatnonzero(per_ft > 0.0)
+        _add(flags, wall[rows], [Flag(
+            "sill-uplift", "danger" if not given > 0.0 or given < plf else "notice",
+            f"the braces lift the sill: {plf:.0f} lb per ft ({lb:.0f} lb per brace) beyond its "
+            f"weight, which the sill fastening must hold"
+            + (f" ({given:.0f} lb per ft given)" if given > 0.0 else
+               ": no sill_fastening is given") + "; the base kick-out then has no friction to "
+            "rely on: the sill fastening holds it too", "statics, method notes §4")
+            for lb, plf, given in zip(per_brace[rows].tolist(), per_ft[rows].tolist(),
+                                      np.nan_to_num(bs.sill[rows]).tolist())])
         rows = np.flatnonzero(notes & TOO_FEW)
         _add(flags, wall[rows], [Flag("too-few-braces", "danger", f"{self.bracings[r].count} "
                                       f"brace(s); at least {rule['minimum_braces_per_panel']:g} "
@@ -1159,7 +1269,8 @@ def _check_set(arrays: dict, info: dict, combos: dict, ways: list[tuple[str, dic
                way: np.ndarray) -> _CheckSet:
     """The checks of `arrays` (demand and capacity arrays by name, one entry per wall) with
     their summaries. Each wall is checked one of `ways` (`way` gives which): its kind as in
-    UNBRACED_SOURCES or 'braced', which names the regions, and the sources it has of its own."""
+    UNBRACED_SOURCES or 'braced', which names the regions, the sources it has of its own and
+    the combinations of its own (by element: allowable capacities under LRFD)."""
     names = [key.partition("|")[0] for key in arrays]
     demand = np.array([d for d, _ in arrays.values()]).reshape(len(arrays), len(way))
     capacity = np.array([c for _, c in arrays.values()]).reshape(demand.shape)
@@ -1169,8 +1280,9 @@ def _check_set(arrays: dict, info: dict, combos: dict, ways: list[tuple[str, dic
     brace = np.where(np.array([n.startswith("brace") for n in names])[:, None], ratios, -np.inf)
     brace = brace.max(axis=0, initial=-np.inf)
     # each way's checks, named once: element, region, unit, combination, source
-    named = [(element, regions[kind], unit, combination, sources.get(element, source))
-             for kind, sources in ways
+    named = [(element, regions[kind], unit, over.get(element, combination),
+              sources.get(element, source))
+             for kind, sources, over in ways
              for element, regions, unit, combination, source in _check_columns(arrays, info,
                                                                                 combos)]
     # every check that applies, wall by wall, in the order of the arrays; each field a list
@@ -1211,6 +1323,21 @@ def _check_columns(arrays: dict, info: dict, combos: dict) -> list[tuple]:
         regions.update(masonry=strip, fresh=strip, strip=strip)
         out.append((element, regions, unit, combos[kind], source))
     return out
+
+
+def _code(element: str) -> str:
+    """A flag code from a check's name: its words joined by hyphens ('base kick-out' ->
+    'base-kick-out'; 'overturning (wind away from the braces)' ->
+    'overturning-wind-away-from-the-braces')."""
+    return "-".join(re.findall(r"[a-z0-9]+(?:-[a-z0-9]+)*", element.lower()))
+
+
+def _on_allowable(f: Factors, kind: str) -> str:
+    """The name of the combination of `kind` ('resisting', 'adding', 'wind') that an allowable
+    capacity takes under the basis `f` (LRFD): ASD's, and says so."""
+    a = f.allowable
+    named = {"resisting": a.resisting, "adding": a.adding, "wind": a.wind_only}
+    return f"{named[kind]} (allowable capacity: ASD combination under LRFD)"
 
 
 def _each(cls, n: int, **fields_of) -> list:

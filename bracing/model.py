@@ -23,7 +23,8 @@ from pydantic import (
 )
 from pydantic_core import InitErrorDetails, PydanticCustomError
 
-from bracing import units
+from bracing import anchors, units
+from bracing.anchor_kinds import KINDS as ANCHOR_KINDS
 from bracing.data_members import DRESSED_SIZES_IN, LUMBER_GRADES, PIPES
 
 SCHEMA_VERSION = 1
@@ -46,6 +47,7 @@ Area = _quantity("area")
 SectionArea = _quantity("section_area")
 Force = _quantity("force")
 Moment = _quantity("moment")
+LinearForce = _quantity("line_load")
 Pressure = _quantity("pressure")
 Stress = _quantity("stress")
 UnitWeight = _quantity("unit_weight")
@@ -171,11 +173,17 @@ class Material(Strict):
         None, ge=0, description="Masonry allowable flexural tension normal to bed joints (psi); "
                                 "default from TMS 402-16 Table 8.2.4.2 (from memory).")
     sheathed: bool = Field(True, description="Framed walls: sheathed (solid) or open studs.")
+    sill_fastening: LinearForce | None = Field(
+        None, gt=0, description="Framed walls: allowable uplift the sill's fastening to its base "
+                                "holds, per ft of sill (plf); the braces in compression lift "
+                                "the wall (method notes §4).")
 
     @model_validator(mode="after")
     def _weight_given(self):
         if self.unit_weight is None and self.face_weight is None:
             raise ValueError("give unit_weight or face_weight")
+        if self.sill_fastening is not None and self.kind != "framed":
+            raise ValueError("sill_fastening is for framed walls only")
         return self
 
 
@@ -227,13 +235,34 @@ class BraceType(Strict):
     species: str = Field("DF-L", description="NDS species group, e.g. 'DF-L', 'SPF'.")
     grade: str = Field("No.2", description="NDS grade, e.g. 'No.2', 'No.1/No.2'.")
     # every kind
-    tension_capacity: Force | None = Field(None, gt=0, description="Allowable tension (lb).")
+    tension_capacity: Force | None = Field(
+        None, gt=0, description="Allowable tension of the brace with its end connections (lb); "
+                                "rated and lumber braces give it or compression_only.")
+    compression_only: bool = Field(
+        False, description="The brace works in compression only: wind away from its face is "
+                           "held by the wall alone (method notes §4).")
     end_connection: Force | None = Field(
         None, gt=0, description="Rated allowable load of the end fittings (lb).")
     on_hand: int | None = Field(None, ge=0, description="How many the site has.")
 
     @model_validator(mode="after")
     def _complete(self):
+        if self.compression_only and self.tension_capacity is not None:
+            raise ValueError("compression_only = true and a tension_capacity: give one or the "
+                             "other")
+        # Tension that cannot be computed must be stated (method notes §4): a rated or lumber
+        # brace's tension_capacity; a pipe's end connection (end_connection or
+        # tension_capacity). An unrated brace has no capacity either way (flagged as such).
+        if not self.compression_only:
+            if self.kind in ("rated", "lumber") and self.tension_capacity is None:
+                raise ValueError(f"field tension_capacity: a {self.kind} brace states its "
+                                 "allowable tension (tension_capacity, lb) or compression_only "
+                                 "= true")
+            if self.kind == "pipe" and self.tension_capacity is None \
+                    and self.end_connection is None:
+                raise ValueError("field end_connection: a pipe brace states the allowable load "
+                                 "of its end connections (end_connection or tension_capacity, "
+                                 "lb) or compression_only = true")
         if self.kind == "rated":
             if len(self.lengths) < 2 or len(self.lengths) != len(self.loads):
                 raise ValueError("a rated brace needs `lengths` and `loads` of equal length (2+)")
@@ -256,7 +285,7 @@ class AnchorType(Strict):
     """An anchor at either end of a brace: panel insert, slab anchor, helical, deadman, stake,
     or a fastening to an upper-floor deck."""
 
-    kind: Literal["insert", "slab", "helical", "deadman", "stake", "deck"]
+    kind: Literal[tuple(ANCHOR_KINDS)]  # one entry each in bracing.anchor_kinds
     # insert, stake and deck: the maker's (or the engineer's) allowable ratings at the angle used
     rated_tension: Force | None = Field(None, gt=0, description="Allowable tension (lb).")
     rated_shear: Force | None = Field(None, gt=0, description="Allowable shear (lb).")
@@ -277,16 +306,26 @@ class AnchorType(Strict):
         None, gt=0, description="Least edge distance the type needs (in); the plan gives the "
                                 "real one.")
     # helical (ICC-ES AC358)
-    torque_factor: float = Field(10.0, gt=0, description="K_t (1/ft); 10 for a 1.5 in square "
-                                                         "shaft (secondary).")
-    factor_of_safety: float = Field(2.0, gt=0, description="On K_t T (AC358).")
+    shaft: Literal[tuple(anchors.KT_AC358_PER_FT)] = Field(
+        "1.5in_square", description="Helical shaft: gives K_t (ICC-ES AC358) unless "
+                                    "torque_factor is set.")
+    torque_factor: float | None = Field(None, gt=0, description="K_t (1/ft); default by the "
+                                                                "shaft (ICC-ES AC358).")
+    factor_of_safety: float = Field(anchors.HELICAL_FACTOR_OF_SAFETY, gt=0,
+                                    description="On K_t T (ICC-ES AC358).")
     installation_torque: Moment | None = Field(
         None, gt=0, description="Final installation torque the crew reaches (ft-lb).")
     # deadman block
     weight: Force | None = Field(None, gt=0, description="Block weight (lb).")
-    friction_coefficient: float = Field(0.6, gt=0, le=1.0,
-                                        description="Block on slab 0.6 (ACI 318-19 §22.9.4.2); "
-                                                    "on soil IBC Table 1806.2.")
+    soil: str | None = Field(
+        None, description="Soil under the block: its friction from soil_table (e.g. "
+                          "'silty_sand'); without it, friction_coefficient is used.")
+    soil_table: Literal[tuple(anchors.FRICTION_TABLES)] = Field(
+        "IBC", description="'IBC' Table 1806.2 (allowable) or 'NAVFAC' DM-7.02 Table 1 "
+                           "(ultimate).")
+    friction_coefficient: float = Field(
+        anchors.FRICTION_CONCRETE_ON_CONCRETE, gt=0, le=1.0,
+        description="Block on slab 0.6 (ACI 318-19 §22.9.4.2); on soil give `soil`.")
     friction_basis: Literal["allowable", "ultimate"] = Field(
         "ultimate", description="'allowable' for IBC Table 1806.2 values (used as they are); "
                                 "'ultimate' for NAVFAC DM-7.02 or concrete on concrete (a "
@@ -309,18 +348,20 @@ class AnchorType(Strict):
 
     @model_validator(mode="after")
     def _complete(self):
-        needed = {
-            "insert": ("rated_tension", "rated_shear"),
-            "stake": ("rated_tension", "rated_shear"),
-            "deck": ("rated_tension", "rated_shear"),
-            "slab": ("embedment", "diameter", "steel_area", "slab_thickness",
-                     "concrete_strength"),
-            "helical": ("installation_torque",),
-            "deadman": ("weight",),
-        }[self.kind]
-        missing = [k for k in needed if getattr(self, k) is None]
+        missing = [k for k in ANCHOR_KINDS[self.kind].needs if getattr(self, k) is None]
         if missing:
             raise ValueError(f"a {self.kind} anchor needs {', '.join(missing)}")
+        if self.torque_factor is None:
+            self.torque_factor = anchors.KT_AC358_PER_FT[self.shaft]
+        if self.soil is not None:
+            if {"friction_coefficient", "friction_basis"} & self.model_fields_set:
+                raise ValueError("give soil or friction_coefficient, not both")
+            values = anchors.FRICTION_TABLES[self.soil_table][0]
+            if self.soil not in values:
+                raise ValueError(f"soil {self.soil!r} is not in the {self.soil_table} table; "
+                                 f"known: {', '.join(values)}")
+            self.friction_coefficient, self.friction_basis = anchors.soil_friction(
+                self.soil, self.soil_table)
         if (self.length is None) != (self.pin_height is None):
             raise ValueError("a deadman's overturning needs both length and pin_height")
         if self.pin_from_toe is not None and (self.length is None

@@ -23,6 +23,7 @@ import shapely
 from shapely.geometry import MultiLineString, Polygon
 
 from bracing import braces
+from bracing.anchor_kinds import KINDS as ANCHOR_KINDS
 from bracing.model import Bracing, Site, read_panels
 from bracing.results import Flag
 
@@ -30,7 +31,10 @@ IN_PER_FT = 12.0
 DETAIL_LONGEST_FT = 200.0  # longest run of walls on one detail plan (about 1 in = 30 ft on letter)
 COMPASS = ("east", "northeast", "north", "northwest", "west", "southwest", "south", "southeast")
 TOLERANCE_FT = 1e-6  # a point on a boundary counts as on it
-GROUND_KINDS = ("helical", "deadman", "stake")
+# anchor kinds whose feet the plan places on open ground (some of them also on the slab)
+GROUND_KINDS = tuple(k for k, v in ANCHOR_KINDS.items() if "ground" in v.stands_on)
+ALSO_ON_SLAB = tuple(k for k in GROUND_KINDS if "slab" in ANCHOR_KINDS[k].stands_on)
+SLAB_KINDS = tuple(k for k, v in ANCHOR_KINDS.items() if v.stands_on == {"slab"})
 
 # A brace or its foot inside an area of each kind ('work' areas are not kept clear of braces).
 BRACE_IN_AREA = {"keep_clear": "danger", "crane_path": "danger", "public_way": "danger",
@@ -102,7 +106,7 @@ class PlanPanel:
     footprint: Coords
     face: tuple[Point, Point]
     braces: list[tuple[Point, Point]]  # (insert point on the face, foot point)
-    foot_kind: str  # 'slab', 'helical', 'deadman', 'stake', 'insert', 'deck' or ''
+    foot_kind: str  # a kind of anchor_kinds.KINDS or ''
     foot_anchor: str | None
     restricted_zone: Coords
     evacuated_zone: Coords
@@ -511,7 +515,7 @@ class _SlabFeet:
 
 def _slab_feet(site: Site, t: _Braces) -> _SlabFeet:
     """Where the feet of the braces `t` on slab anchors stand on the site's slab."""
-    slab, rows = _slab(site), np.flatnonzero(t.kind == "slab")
+    slab, rows = _slab(site), np.flatnonzero(np.isin(t.kind, SLAB_KINDS))
     if slab is None:
         return _SlabFeet(None, rows, np.zeros(len(rows), bool), np.full(len(rows), np.nan),
                          np.zeros(len(rows), int))
@@ -741,7 +745,7 @@ def _ground_anchor_findings(site: Site, t: _Braces, slab: _Slab | None) -> list[
         return []
     ground = _ground(site)
     feet, kinds, marks = t.foot[sel], t.kind[sel], t.mark[sel]
-    deadman = kinds == "deadman"
+    deadman = np.isin(kinds, ALSO_ON_SLAB)  # may stand on the slab as well
     on_ground = _covered(ground, feet) if ground is not None else np.zeros(len(sel), bool)
     on_slab = np.zeros(len(sel), bool)  # asked of the deadmen only
     if slab is not None:
@@ -753,7 +757,7 @@ def _ground_anchor_findings(site: Site, t: _Braces, slab: _Slab | None) -> list[
         for mark, rows in _by_mark(marks, ~drawn).items()]
     for mark, rows in _by_mark(marks, drawn & ~(on_ground | (deadman & on_slab))).items():
         kind = kinds[rows[0]]
-        where = "on open ground or on the slab" if kind == "deadman" else "on open ground"
+        where = "on open ground or on the slab" if kind in ALSO_ON_SLAB else "on open ground"
         found.append(PlanFinding(mark, Flag(
             "ground-anchor-off-ground", "danger", f"{kind} anchor at {_numbers(t, sel[rows])} "
             f"not {where}, as at {_xy(feet[rows[0]])}",

@@ -164,7 +164,7 @@ BAD_FLAGS = [
     ("--brace-angle", ["--brace-angle=-10deg"], "greater than 0"),
     ("--brace-angle", ["--brace-angle", "1.6rad"], "less than 90"),
     ("--anchor-distance", ["--anchor-distance=-3ft"], "greater than 0"),
-    ("--brace-capacity", ["--brace-angle", "55deg", "--brace-capacity", "0lb"], "positive"),
+    ("--brace-capacity", ["--brace-angle", "55deg", "--brace-capacity", "0lb"], "greater than 0"),
 ]
 
 
@@ -215,6 +215,7 @@ unit_weight = "150 pcf"
 kind = "rated"
 lengths = ["24 ft", "28 ft", "32 ft"]    # the maker's table (invented)
 loads = ["7200 lb", "6100 lb", "5000 lb"]
+tension_capacity = "7200 lb"
 
 [[panels]]
 mark = "P-1"

@@ -23,11 +23,12 @@ SOME = settings(max_examples=50, deadline=None)
 BRACE_TYPES = {
     # adjustable braces: the maker's table of allowable load by length (invented)
     "light": {"kind": "rated", "lengths": [10.0, 20.0, 30.0, 40.0],
-              "loads": [6000.0, 5000.0, 4000.0, 3000.0]},
+              "loads": [6000.0, 5000.0, 4000.0, 3000.0], "tension_capacity": 6000.0},
     "heavy": {"kind": "rated", "lengths": [12.0, 24.0, 36.0, 48.0],
               "loads": [14000.0, 11000.0, 8000.0, 5500.0], "tension_capacity": 9000.0,
               "end_connection": 12000.0},
-    "pipe": {"kind": "pipe", "section": "Pipe 3 STD", "knee_brace": True},
+    "pipe": {"kind": "pipe", "section": "Pipe 3 STD", "knee_brace": True,
+             "end_connection": 20000.0},
     "stud": {"kind": "lumber", "size": "2x6", "species": "SPF", "grade": "No.1/No.2",
              "tension_capacity": 1200.0},
 }
@@ -119,7 +120,8 @@ def sites(draw):
     # a rated brace of any strength, so that every brace count comes up (invented table)
     rated = draw(st.floats(1500.0, 20000.0))
     drawn = {"kind": "rated", "lengths": [5.0, 30.0, 60.0], "loads": [rated, 0.8 * rated,
-                                                                     0.5 * rated]}
+                                                                     0.5 * rated],
+             "tension_capacity": rated}
     options = {
         "brace_types": ["drawn"] + draw(st.lists(st.sampled_from(sorted(BRACE_TYPES)),
                                                  max_size=1)),
@@ -174,7 +176,8 @@ def test_weaker_braces_need_more_of_them(rated_lb, count):
     # 30 x 24 ft tilt-up panel at 115 mph with a rated insert: the count the designer needs
     # grows as the brace's rating falls, until none of up to 6 braces will do
     drawn = {"kind": "rated", "lengths": [5.0, 30.0, 60.0],
-             "loads": [rated_lb, 0.8 * rated_lb, 0.5 * rated_lb]}  # invented maker's table
+             "loads": [rated_lb, 0.8 * rated_lb, 0.5 * rated_lb],  # invented maker's table
+             "tension_capacity": rated_lb}
     site = site_of([wall("W-1", "concrete", 30.0, 24.0)],
                    {"brace_types": ["drawn"], "wall_anchor": "insert", "most_braces": 6},
                    brace_types={"drawn": drawn})

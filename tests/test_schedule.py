@@ -38,6 +38,7 @@ compressive_strength = "3000 psi"
 kind = "rated"
 lengths = ["24 ft", "40 ft"]
 loads = ["12000 lb", "9000 lb"]
+tension_capacity = "12000 lb"
 on_hand = 4
 
 [anchor_types.ins]

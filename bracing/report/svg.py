@@ -32,6 +32,7 @@ import numpy as np
 import shapely
 from shapely.geometry import LineString, Point, Polygon, box
 
+from bracing.anchor_kinds import KINDS as ANCHOR_KINDS
 from bracing.plan import Elevation
 from bracing.results import CAUTION
 
@@ -70,9 +71,6 @@ KEEP_OUT = ("keep_clear", "crane_path", "public_way", "neighbour", "neighbor")
 SLAB, SLAB_EDGE, GROUND = "#e3e3e3", "#4d4d4d", "#efe5cc"
 WALL, BRACE, ZONE, EVACUATED = "#3b3b3b", "#1f4e9c", "#e69b1e", "#b03a2e"
 DANGER, WARNING = "#c0392b", "#b9770e"
-ANCHOR_WORDS = {"slab": "slab anchor", "helical": "helical anchor", "deadman": "deadman",
-                "stake": "stake", "insert": "insert", "deck": "deck anchor",
-                "": "foot (no anchor named)"}
 STATUS_WORDS = {"unsafe": "UNSAFE", "needs_braces": "NEEDS BRACES"}
 MOST_FINDINGS = 40
 HALO = ' paint-order="stroke" stroke="#fff" stroke-linejoin="round"'
@@ -408,25 +406,26 @@ def _walls(g, fr: _Frame) -> list[str]:
 
 
 def anchor_symbol(kind: str, x: float, y: float, r: float, w: float, up: float = 1.0) -> str:
-    """The symbol of a foot anchor of each kind at (x, y), radius r, line width w, in the units
-    of the drawing it goes in; `up` is +1 where y points up on paper (a plan group), -1 where
-    it points down."""
+    """The symbol of a foot anchor of each kind (the shape its entry in anchor_kinds names) at
+    (x, y), radius r, line width w, in the units of the drawing it goes in; `up` is +1 where y
+    points up on paper (a plan group), -1 where it points down."""
     sx, sy = _f(x), _f(y)
-    if kind == "slab":
+    shape = ANCHOR_KINDS[kind].symbol if kind in ANCHOR_KINDS else "open"
+    if shape == "disc":
         return f'<circle class="anchor" cx="{sx}" cy="{sy}" r="{_f(r)}" fill="#000"/>'
-    if kind == "helical":
+    if shape == "crossed circle":
         return (f'<g class="anchor" stroke="#000" stroke-width="{_f(w)}"><circle cx="{sx}" '
                 f'cy="{sy}" r="{_f(r)}" fill="#fff"/><line x1="{_f(x - r)}" y1="{sy}" '
                 f'x2="{_f(x + r)}" y2="{sy}"/><line x1="{sx}" y1="{_f(y - r)}" x2="{sx}" '
                 f'y2="{_f(y + r)}"/></g>')
-    if kind == "deadman":
+    if shape == "square":
         return (f'<rect class="anchor" x="{_f(x - r)}" y="{_f(y - r)}" width="{_f(2 * r)}" '
                 f'height="{_f(2 * r)}" fill="#000"/>')
-    if kind == "stake":  # an open triangle, point up on paper
+    if shape == "triangle":  # an open triangle, point up on paper
         return (f'<polygon class="anchor" points="{_f(x)},{_f(y + up * 1.2 * r)} {_f(x - r)},'
                 f'{_f(y - up * 0.8 * r)} {_f(x + r)},{_f(y - up * 0.8 * r)}" fill="#fff" '
                 f'stroke="#000" stroke-width="{_f(w)}"/>')
-    if kind == "deck":
+    if shape == "diamond":
         return (f'<polygon class="anchor" points="{_f(x)},{_f(y - r)} {_f(x + r)},{sy} '
                 f'{_f(x)},{_f(y + r)} {_f(x - r)},{sy}" fill="#000"/>')
     return (f'<circle class="anchor" cx="{sx}" cy="{sy}" r="{_f(r)}" fill="#fff" stroke="#000" '
@@ -698,7 +697,8 @@ def _legend_items(panels, areas) -> list[tuple[str, str]]:
     items += [("wall", "wall standing"), ("ghost", "wall not standing"),
               ("line", "wall line (tick: braced side)"), ("brace", "brace")]
     feet = dict.fromkeys(p.foot_kind for p in panels if p.braces)
-    items += [(f"anchor:{k}", ANCHOR_WORDS.get(k, k)) for k in feet]
+    items += [(f"anchor:{k}", ANCHOR_KINDS[k].words if k in ANCHOR_KINDS
+               else "foot (no anchor named)") for k in feet]
     names = dict.fromkeys(p.zone_name for p in panels if p.standing and p.zone_name)
     items += [("zone", f"{n} (authorized workers only, nothing stored)") for n in names]
     items += [("evacuated", "evacuated zone (nobody: at the stand-down gust, during lifts)"),

@@ -2,7 +2,9 @@
 
 import pytest
 
+from bracing import braced
 from bracing.anchors import KT_AC358_PER_FT, helical_capacity, required_torque
+from bracing.model import Site
 
 
 def test_ultimate_from_torque():
@@ -24,3 +26,32 @@ def test_kt_values():
     # ICC-ES AC358: 1.5 in square shaft 10 /ft (secondary); 2-7/8 in round 9, 3-1/2 in round 7
     # (from memory)
     assert KT_AC358_PER_FT == {"1.5in_square": 10.0, "2.875in_round": 9.0, "3.5in_round": 7.0}
+
+
+def _foot(anchor: dict):
+    """The engine's capacities of a brace foot on `anchor` (one braced wall)."""
+    site = Site.model_validate({
+        "site": {"name": "t", "basic_wind_speed": 115.0},
+        "materials": {"tilt": {"kind": "concrete", "unit_weight": 150.0}},
+        "brace_types": {"b": {"kind": "rated", "lengths": [1.0, 100.0],
+                              "loads": [9000.0, 9000.0], "tension_capacity": 9000.0}},
+        "anchor_types": {"a": anchor},
+        "panels": [{"mark": "P", "material": "tilt", "width": 20.0, "height": 24.0,
+                    "thickness": 7.25, "bracing": {"brace_type": "b", "foot_anchor": "a",
+                                                   "count": 2, "insert_height": 16.0,
+                                                   "angle": 55.0}}]})
+    return braced.gather_braces(site, "ASD")
+
+
+@pytest.mark.parametrize(("shaft", "expected"), [(None, 10_000.0), ("2.875in_round", 9_000.0),
+                                                 ("3.5in_round", 7_000.0)])
+def test_the_engine_reads_kt_by_shaft(shaft, expected):
+    # ICC-ES AC358: K_t T / FS at T = 2,000 ft-lb, FS 2: 1.5 in square (the default) 10 /ft
+    # -> 10,000 lb (secondary); 2-7/8 in round 9 /ft -> 9,000 lb; 3-1/2 in round 7 /ft
+    # -> 7,000 lb (from memory)
+    anchor = {"kind": "helical", "installation_torque": 2000.0}
+    if shaft:
+        anchor["shaft"] = shaft
+    bs = _foot(anchor)
+    assert bs.foot_tension[0] == pytest.approx(expected)
+    assert bs.torque_safety[0] == 2.0  # ICC-ES AC358 factor of safety 2 (secondary)
