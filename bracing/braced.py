@@ -77,7 +77,6 @@ def take(obj, rows):
 
 
 UNCHECKED = ("index", "positions", "mask", "anchor_distance", "length", "lean", "slop",
-UNCHECKED = ("index", "positions", "mask", "anchor_distance", "length", "lean", "slop",
              "pretensioned", "stiff", "slenderness", "slenderness_limit", "torque_factor",
              "torque_safety", "rupture", "compression_only", "brace_strength",
              "tension_strength", "sill")

@@ -405,12 +405,15 @@ def _walls(g, fr: _Frame) -> list[str]:
     return out
 
 
+SYMBOLS = ("disc", "crossed circle", "square", "triangle", "diamond", "open")  # anchor_symbol's
+
+
 def anchor_symbol(kind: str, x: float, y: float, r: float, w: float, up: float = 1.0) -> str:
     """The symbol of a foot anchor of each kind (the shape its entry in anchor_kinds names) at
     (x, y), radius r, line width w, in the units of the drawing it goes in; `up` is +1 where y
     points up on paper (a plan group), -1 where it points down."""
     sx, sy = _f(x), _f(y)
-    shape = ANCHOR_KINDS[kind].symbol if kind in ANCHOR_KINDS else "open"
+    shape = ANCHOR_KINDS[kind].symbol if kind in ANCHOR_KINDS else "open"  # SYMBOLS
     if shape == "disc":
         return f'<circle class="anchor" cx="{sx}" cy="{sy}" r="{_f(r)}" fill="#000"/>'
     if shape == "crossed circle":

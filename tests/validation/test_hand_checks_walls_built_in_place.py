@@ -165,10 +165,17 @@ def test_demo_framed_wall_f1_by_hand():
     83.5; F_cE = 0.822 x 510,000 / 83.5^2 = 60.07 psi; F_c* = 1150 x 1.10 x 1.6 = 2,024 psi;
     a = 0.02968; C_P = 1.02968/1.6 - sqrt((1.02968/1.6)^2 - 0.02968/0.8) = 0.02950; P_allow =
     0.02950 x 2,024 x 8.25 = 492.6 lb: utilization 1,464.9 / 492.6 = 2.974.
-    Working limit (Kd 1.0, no minimum, 1.0W): the end strips' Case B (1.375 x 1.9 = 2.6125 over
-    the Case C 2.08); R per mph^2 = 0.00256 x 0.8489 x 0.9697 x 0.85 x 2.6125 x 75 x 0.6875 =
-    0.2413 lb; the brace reaches 492.6 lb at H = 492.6 cos 50 = 316.6 lb: V^2 = (316.6 -
-    1.11) / 0.2413 -> V = 36.16 mph.
+    Interior strips (7.5-15 and 15-22.5 ft): Case B at their centers from the far end 16 x (1 +
+    2.4 x 0.125) = 20.8 psf, under the Case C 0-s region they touch, 23.56 psf; F = 23.56 x 75
+    = 1,767 lb, R = 1,214.8 lb, H = 0.6 x 1,214.8 + 1.11 = 730.0 lb, P = 1,135.7 lb.
+    Sill uplift (design.md §6, method notes §4; the per-brace envelopes summed, conservative):
+    sum P sin 50 = (2 x 1,464.9 + 2 x 1,135.7) x 0.76604 = 3,984.2 lb against 0.6D = 1,260 lb
+    (no sill fastening given): utilization 3.162, which governs.
+    Working limit (Kd 1.0, no minimum, 1.0W): R per mph^2 = 0.00256 x 0.8489 x 0.9697 x 0.85 x
+    Cf x 75 x 0.6875 = 0.092360 Cf lb; end strips Case B 1.375 x 1.9 = 2.6125 (over Case C
+    2.08): 0.24129; interior strips Case C 2.08 (over Case B 1.375 x 1.3): 0.19211; sum 0.86680.
+    The sill governs: (0.86680 V^2 + 4 x 1.11) x tan 50 = 1,260 -> V^2 = 1,214.6, V = 34.85 mph
+    (the brace alone would reach 492.6 lb at V = 36.16 mph).
     """
     le_d = math.hypot(8.0, 8.0 / math.tan(math.radians(50.0))) * 12.0 / 1.5
     fce, fc = 0.822 * 510000.0 / le_d**2, 1150.0 * 1.10 * 1.6
@@ -182,5 +189,8 @@ def test_demo_framed_wall_f1_by_hand():
     assert b["axial_force_lb"] == pytest.approx(1464.9, rel=0.02)
     assert b["anchor_uplift_lb"] == pytest.approx(1122.2, rel=0.02)
     assert b["anchor_shear_lb"] == pytest.approx(941.6, rel=0.02)
-    assert p["governing_utilization"] == pytest.approx(1464.9 / 492.6, rel=0.02)
-    assert p["working_limit_speed_mph"] == pytest.approx(36.16, rel=0.02)
+    assert b["brace_forces_lb"] == pytest.approx([1464.9, 1135.7, 1135.7, 1464.9], rel=0.02)
+    assert b["utilization"] == pytest.approx(1464.9 / 492.6, rel=0.02)
+    assert p["governing_element"].startswith("sill uplift")
+    assert p["governing_utilization"] == pytest.approx(3984.2 / 1260.0, rel=0.02)
+    assert p["working_limit_speed_mph"] == pytest.approx(34.85, rel=0.02)
