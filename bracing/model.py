@@ -69,6 +69,18 @@ def within(value: float, kind: str) -> float:
     return value
 
 
+# pydantic's error types of a number above its field's plausible range or not finite.
+RANGE_ERRORS = {"less_than", "less_than_equal", "finite_number"}
+
+
+def error_message(err: dict) -> str:
+    """A validation error's words; a range error says where the ranges are stated."""
+    message = err["msg"].removeprefix("Value error, ")
+    if err["type"] in RANGE_ERRORS:
+        message += " (each field's range: `bracing schema`, method notes §9)"
+    return message
+
+
 _BOUNDS = {"ge": "minimum", "gt": "exclusiveMinimum", "le": "maximum", "lt": "exclusiveMaximum"}
 
 

@@ -26,7 +26,7 @@ import tomlkit
 from pydantic import ValidationError
 from tomlkit.exceptions import TOMLKitError
 
-from bracing.model import Site
+from bracing.model import Site, error_message
 
 
 class SiteFileError(Exception):
@@ -311,7 +311,7 @@ def validate_data(data: dict, name: str, text: str) -> Site:
 def describe(err: dict, data: dict, name: str, text: str) -> str:
     """One line for one validation error: file, line, item (panel mark) and field."""
     loc = tuple(err["loc"])
-    message = err["msg"].removeprefix("Value error, ")
+    message = error_message(err)
     if err["type"] == "missing":
         message = "missing (this field is required)"
     elif err["type"] == "extra_forbidden":

@@ -92,7 +92,7 @@ def _parse_text(text: str, unit: str, kind_word: str) -> float:
     stripped = text.strip()
     if len(stripped) > LONGEST_TEXT or "**" in _UNIT_POWER.sub("", stripped) \
             or "^" in _UNIT_POWER.sub("", stripped):
-        raise UnitError(f"cannot read {_shown(text)} as {kind_word} (for example '12 {unit}'; "
+        raise UnitError(f"cannot read {shown(text)} as {kind_word} (for example '12 {unit}'; "
                         "a number and a unit, powers only on units)")
     try:
         q = registry().Quantity(stripped)
@@ -116,10 +116,10 @@ def _parse_text(text: str, unit: str, kind_word: str) -> float:
             q = weighed
         return float(q.to(target).magnitude)
     except (OverflowError, ZeroDivisionError):  # a number too large for a float
-        raise UnitError(f"{_shown(text)} is too large a number for {kind_word}") from None
+        raise UnitError(f"{shown(text)} is too large a number for {kind_word}") from None
 
 
-def _shown(value: object) -> str:
+def shown(value: object) -> str:
     """The value as a message shows it: a long one cut short."""
     text = repr(value)
     return text if len(text) <= 60 else f"{text[:40]}... ({len(text)} characters)"
@@ -137,14 +137,14 @@ def parse(value: object, kind: str) -> float:
         try:
             number = float(value)
         except OverflowError:  # an integer of hundreds of digits
-            raise UnitError(f"{_shown(value)} is too large a number for {kind_word}") from None
+            raise UnitError(f"{shown(value)} is too large a number for {kind_word}") from None
     elif isinstance(value, str):
         number = _parse_text(value, unit, kind_word)
     else:
         raise UnitError(f"expected {kind_word} as a number or text like '12 {unit}', "
-                        f"got {_shown(value)}")
+                        f"got {shown(value)}")
     if not math.isfinite(number):  # nan and inf: TOML and pint both read them
-        raise UnitError(f"expected {kind_word} as a finite number, got {_shown(value)}")
+        raise UnitError(f"expected {kind_word} as a finite number, got {shown(value)}")
     return number
 
 
