@@ -72,6 +72,9 @@ LONGEST_TEXT = 100
 # A unit raised to a one-digit power ("ft**2", "m^3", "ft**-1"), not followed by another power:
 # the only powers read. "2**2000" or "9**9**9" would make pint compute a number of millions of
 # digits (a hang), so every other power is refused before pint sees the text.
+# A number after a number or a unit with only spaces between: pint multiplies them ("2 0 mph"
+# is 0 mph, "20 mph 5" is 100 mph), a typing slip that must not pass as a value.
+_SIDE_BY_SIDE = re.compile(r"[\w.]\s+[\d.]")
 _UNIT_POWER = re.compile(r"(?<=[A-Za-z_])\s*(?:\*\*|\^)\s*[-+]?[0-9](?![0-9.]|\s*(?:\*\*|\^))")
 
 
@@ -90,8 +93,9 @@ def _weighed(q):
 @lru_cache(maxsize=4096)
 def _parse_text(text: str, unit: str, kind_word: str) -> float:
     stripped = text.strip()
-    if len(stripped) > LONGEST_TEXT or "**" in _UNIT_POWER.sub("", stripped) \
-            or "^" in _UNIT_POWER.sub("", stripped):
+    bare = _UNIT_POWER.sub("", stripped)
+    if len(stripped) > LONGEST_TEXT or "**" in bare or "^" in bare \
+            or _SIDE_BY_SIDE.search(stripped) or not stripped.isprintable():
         raise UnitError(f"cannot read {shown(text)} as {kind_word} (for example '12 {unit}'; "
                         "a number and a unit, powers only on units)")
     try:
