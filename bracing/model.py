@@ -343,6 +343,8 @@ class BraceType(Strict):
                 raise ValueError("a rated brace needs `lengths` and `loads` of equal length (2+)")
             if any(b <= a for a, b in zip(self.lengths, self.lengths[1:])):
                 raise ValueError("rated table `lengths` must increase")
+            if self.lengths[0] <= 0:
+                raise ValueError("rated table `lengths` must be positive")
             if any(x <= 0 for x in self.loads):
                 raise ValueError("rated table `loads` must be positive")
         if self.kind == "pipe" and self.section not in PIPES:

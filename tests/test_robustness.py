@@ -10,6 +10,7 @@ definitions are NIST SP 811 Appendix B (exact by definition, from memory).
 from __future__ import annotations
 
 import json
+import math
 import os
 import signal
 import subprocess
@@ -18,6 +19,8 @@ import tomllib
 from pathlib import Path
 
 import pytest
+from hypothesis import HealthCheck, assume, given, settings
+from hypothesis import strategies as st
 
 from bracing import cli, model, scenario, schedule, units
 from bracing.model import Site
@@ -166,6 +169,8 @@ def test_the_base_site_is_valid_and_checked(site, capsys):
     ('count = 2', 'count = 51', ("count", "50")),
     ('start_date = 2026-03-02', 'start_date = 9999-12-31', ("start_date",)),
     ('mortar_age = "2 days"', 'mortar_age = "1e6 days"', ("M-1", "mortar_age")),
+    # found by the fuzz test below: a zero length in a rated table reached the engine
+    ('lengths = ["24 ft", "40 ft"]', 'lengths = [0, "40 ft"]', ("adjustable", "positive")),
 ])
 def test_a_nonsensical_site_value_exits_2_naming_the_field(site, capsys, old, new, words):
     code, err = run(capsys, "check", changed(site, old, new))
@@ -529,3 +534,138 @@ def test_read_forecast_reads_a_field_of_any_size_as_a_problem_not_a_crash(tmp_pa
 
 def test_the_base_site_data_is_tomllib_readable():
     tomllib.loads(SITE)
+
+
+# --- fuzzing: random site-file mutations and flag values --------------------------------------------
+NONFINITE = (float("nan"), float("inf"), float("-inf"))
+ODD_TEXT = ["", " ", "--", "nan", "inf", "-inf", "1e999", "3 s", "0.5 s", "1 day", "2 s**2",
+            "2**2000 mph", "9**9**9 mph", "1e308 ft", "1e308", "2 0", "20 mph 5", "[/]", "kg",
+            "-5 ft", "100000000", "1" * 400, "\x00", "ft**9", "1/0", "0/0 ft", "1 kg*s"]
+ODD_VALUES = st.one_of(
+    st.sampled_from([*NONFINITE, 1e308, -1e308, 0, -1, 0.0, 10**30, 10**400, True, False,
+                     *ODD_TEXT]),
+    st.floats(allow_nan=True, allow_infinity=True),
+    st.integers(),
+    st.text(max_size=12),
+    st.lists(st.one_of(st.integers(), st.floats()), max_size=3),
+    st.dictionaries(st.sampled_from(["value", "x", "kind", "file"]), st.integers(), max_size=2),
+)
+FUZZ = settings(max_examples=120, deadline=None, derandomize=True,
+                suppress_health_check=[HealthCheck.function_scoped_fixture,
+                                       HealthCheck.too_slow])
+
+
+def _leaves(node, path=()):
+    """The path of every value in the plain site data (tables and arrays too)."""
+    if path:
+        yield path
+    items = node.items() if isinstance(node, dict) else \
+        enumerate(node) if isinstance(node, list) else ()
+    for key, child in items:
+        yield from _leaves(child, (*path, key))
+
+
+BASE_DATA = tomllib.loads(SITE)
+PATHS = list(_leaves(BASE_DATA))
+
+
+def _set(data, path, value):
+    node = data
+    for key in path[:-1]:
+        node = node[key]
+    if value is _DELETE:
+        del node[path[-1]]
+    else:
+        node[path[-1]] = value
+
+
+_DELETE = object()
+
+
+def _nonfinite(value) -> bool:
+    if isinstance(value, float):
+        return not math.isfinite(value)
+    if isinstance(value, (list, tuple)):
+        return any(_nonfinite(v) for v in value)
+    if isinstance(value, dict):
+        return any(_nonfinite(v) for v in value.values())
+    return False
+
+
+def _fuzz_site(tmp_path: Path) -> Path:
+    path = tmp_path / "site.toml"
+    (tmp_path / "forecast.csv").write_text(FORECAST, encoding="utf-8")
+    return path
+
+
+@FUZZ
+@given(changes=st.lists(st.tuples(st.sampled_from(PATHS),
+                                  st.one_of(ODD_VALUES, st.just(_DELETE))),
+                        min_size=1, max_size=3))
+def test_fuzz_a_mutated_site_file_never_gives_a_traceback(tmp_path, capsys, changes):
+    """Property: whatever values a site file holds, `bracing check` exits 0, 1 or 2 with no
+    traceback and no internal error; a non-finite number anywhere is always exit 2 (never a
+    wall reported as passing)."""
+    import copy
+
+    import tomlkit
+
+    data = copy.deepcopy(BASE_DATA)
+    applied = []
+    for path, value in changes:
+        try:
+            _set(data, path, value)
+        except (KeyError, IndexError, TypeError):  # an earlier change took the path away
+            continue
+        applied.append(value)
+    try:
+        text = tomlkit.dumps(data)
+    except Exception:  # noqa: BLE001 - a value TOML cannot hold: nothing to test
+        assume(False)
+    site = _fuzz_site(tmp_path)
+    site.write_text(text, encoding="utf-8")
+    code, err = run(capsys, "check", site)
+    assert code in (0, 1, 2), err
+    assert "Traceback" not in err and "internal error" not in err, err
+    if any(_nonfinite(v) for v in applied):
+        assert code == 2, text
+
+
+@FUZZ
+@given(where=st.integers(0, len(SITE)), cut=st.integers(0, 40),
+       insert=st.one_of(st.sampled_from(["[", "]", "=", '"', "\\", "\ufeff", "\r", "\x00",
+                                         "[[panels]]\n", "nan", "inf", "\n[site]\n", "#",
+                                         "1" * 5000, "[" * 3000]),
+                        st.text(max_size=8)))
+def test_fuzz_garbled_site_text_never_gives_a_traceback(tmp_path, capsys, where, cut, insert):
+    """Property: any cut and insertion in the file's text exits 0, 1 or 2, never a traceback."""
+    site = _fuzz_site(tmp_path)
+    site.write_text(SITE[:where] + insert + SITE[where + cut:], encoding="utf-8",
+                    errors="surrogatepass")
+    code, err = run(capsys, "check", site)
+    assert code in (0, 1, 2), err
+    assert "Traceback" not in err and "internal error" not in err, err
+
+
+FLAGS = ["--height", "--width", "--thickness", "--wind", "--unit-weight", "--face-weight",
+         "--opening-area", "--exposure", "--duration", "--period-factor", "--kzt",
+         "--ground-elevation", "--footing-width", "--footing-thickness", "--mortar-age",
+         "--braces", "--insert-height", "--brace-angle", "--anchor-distance",
+         "--brace-capacity", "--limit-speed", "--stand-down-ratio", "--basis", "--material",
+         "--units"]
+FLAG_TEXT = st.one_of(st.sampled_from(ODD_TEXT + ["30ft", "20ft", "55deg", "2", "9000lb",
+                                                  "0.8", "masonry", "LRFD", "si"]),
+                      st.text(max_size=10))
+
+
+@FUZZ
+@given(flags=st.lists(st.tuples(st.sampled_from(FLAGS), FLAG_TEXT), min_size=1, max_size=4))
+def test_fuzz_flag_values_never_give_a_traceback(capsys, flags):
+    """Property: any values of `bracing panel`'s flags exit 0, 1 or 2, never a traceback; a
+    non-finite number is always exit 2."""
+    argv = list(PANEL) + [f"{flag}={value}" for flag, value in flags]
+    code, err = run(capsys, *argv)
+    assert code in (0, 1, 2), err
+    assert "Traceback" not in err and "internal error" not in err, err
+    if any(value.strip().lower() in ("nan", "inf", "-inf", "1e999") for _, value in flags):
+        assert code == 2, argv
