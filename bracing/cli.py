@@ -195,8 +195,8 @@ def build_parser() -> argparse.ArgumentParser:
     tui.add_argument("site", nargs="?", help="site file (default: a demo site)")
     tui.set_defaults(run=run_tui)
     for action in _every_action(parser):  # every value, flag or file name, must be given
-        if action.nargs is None and action.option_strings and not action.const \
-                and action.choices is None or action.nargs in (None, "?") and not action.option_strings:
+        one_value = action.nargs is None or (action.nargs == "?" and not action.option_strings)
+        if one_value and action.choices is None:
             action.type = _given(action.type or str)
     return parser
 
