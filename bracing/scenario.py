@@ -216,6 +216,8 @@ def atomic_write(target: str | Path, text: str, newline: str = "\n", bom: bool =
                 shutil.copy2(path, old)
             made.append(old)
             os.replace(old, backup_of(path))
+            with contextlib.suppress(FileNotFoundError):  # a .bak that was already this same
+                old.unlink()  # file (a save stopped after its link): rename leaves both names
         os.replace(tmp, path)
         _sync_folder(path.parent)
     except BaseException:

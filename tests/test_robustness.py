@@ -456,6 +456,18 @@ def test_a_save_hard_links_the_old_file_to_bak_and_replaces_once(tmp_path, monke
     assert (tmp_path / "site.toml.bak").stat().st_ino == inode
 
 
+def test_a_save_after_one_stopped_between_its_link_and_its_replace_leaves_no_litter(tmp_path):
+    """A save stopped after the old file was linked to `.bak` leaves `.bak` and the target one
+    file; rename between two names of one file does nothing (POSIX rename), so the next save
+    must remove its own link."""
+    path = tmp_path / "site.toml"
+    path.write_text(SITE, encoding="utf-8")
+    os.link(path, tmp_path / "site.toml.bak")
+    scenario.load(path).with_value(("panels", 0, "height"), "31 ft").save()
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["site.toml", "site.toml.bak"]
+    assert (tmp_path / "site.toml.bak").read_text(encoding="utf-8") == SITE
+
+
 def test_a_save_copies_to_bak_where_links_fail(tmp_path, monkeypatch):
     path = tmp_path / "site.toml"
     path.write_text(SITE, encoding="utf-8")
