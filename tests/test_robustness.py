@@ -276,6 +276,16 @@ def test_an_output_through_a_link_to_the_site_file_is_refused(site, capsys):
     assert site.read_text(encoding="utf-8") == SITE and link.is_symlink()
 
 
+def test_an_output_onto_a_link_writes_through_it_and_keeps_the_link(site, capsys):
+    real = site.parent / "real.txt"
+    real.write_text("old", encoding="utf-8")
+    link = site.parent / "link.txt"
+    link.symlink_to(real)
+    code, _ = run(capsys, "schedule", site, "--format", "text", "-o", link)
+    assert code == 0 and link.is_symlink() and "P-1" in real.read_text(encoding="utf-8")
+    assert (site.parent / "real.txt.bak").read_text(encoding="utf-8") == "old"
+
+
 def test_an_output_onto_a_folder_or_a_device_is_refused_and_left_alone(site, capsys):
     folder = site.parent / "out"
     folder.mkdir()
