@@ -18,7 +18,7 @@ from pydantic import ValidationError
 
 from bracing import scenario
 from bracing.evaluate import evaluate
-from bracing.model import Site
+from bracing.model import Site, error_message
 from bracing.report import json_view, text
 
 EXIT_FAILS = 1
@@ -57,7 +57,9 @@ def main(argv: list[str] | None = None) -> int:
         signal.signal(signal.SIGPIPE, signal.SIG_DFL)
     parser = build_parser()
     args = parser.parse_args(argv)
+    _flags_given(parser, args)
     try:
+        _check_output(args)
         return args.run(args)
     except BadInput as exc:
         print(f"bracing: {exc}", file=sys.stderr)
@@ -67,6 +69,68 @@ def main(argv: list[str] | None = None) -> int:
         for problem in exc.problems:
             print(f"  {problem}", file=sys.stderr)
         return EXIT_BAD_INPUT
+    except Exception:  # noqa: BLE001 - the last line of defence, not the way errors are handled
+        return _internal_error()
+
+
+def _internal_error() -> int:
+    """Say that the program failed (not the input), with the traceback in a log file in the
+    system's temporary folder for the report; exit 2, never a traceback on the screen."""
+    import tempfile
+    import traceback
+
+    try:
+        fd, log = tempfile.mkstemp(prefix="bracing-internal-error-", suffix=".log")
+        with open(fd, "w", encoding="utf-8") as handle:
+            traceback.print_exc(file=handle)
+        where = f"the details are in {log}"
+    except OSError as exc:
+        where = f"the details could not be written to a log ({exc.strerror})"
+    print(f"bracing: internal error, please report it ({where}); no result was given",
+          file=sys.stderr)
+    return EXIT_BAD_INPUT
+
+
+def _given(convert=str):
+    """An argparse type: the flag's value through `convert`, an empty value refused (an empty
+    `--brace-capacity=` must never leave a brace unrated)."""
+    def read(text: str):
+        if not text.strip():
+            raise argparse.ArgumentTypeError("empty value: give one (or leave the flag out)")
+        return convert(text)
+    read.__name__ = getattr(convert, "__name__", "value")  # argparse names it in its messages
+    return read
+
+
+def _every_action(parser: argparse.ArgumentParser):
+    """The arguments of `parser` and of its commands."""
+    for action in parser._actions:
+        yield action
+        if isinstance(action, argparse._SubParsersAction):
+            for command in dict.fromkeys(action.choices.values()):
+                yield from _every_action(command)
+
+
+def _flags_given(parser: argparse.ArgumentParser, args: argparse.Namespace) -> None:
+    """Refuse a flag left without its value: Python 3.11's argparse reads `--kzt=--` as an empty
+    list instead of refusing it."""
+    for action in _every_action(parser):
+        if action.nargs is None and isinstance(getattr(args, action.dest, None), list):
+            parser.error(f"argument {'/'.join(action.option_strings) or action.dest}: "
+                         "expected one value")
+
+
+def _check_output(args: argparse.Namespace) -> None:
+    """Refuse `-o` onto the site file, its forecast or a backup of one, a folder, a device or
+    pipe, or into a folder that does not exist, before anything is computed."""
+    output = getattr(args, "output", None)
+    if output is None:
+        return
+    site = getattr(args, "site", None)
+    try:
+        scenario.check_output(output, scenario.inputs_of(site) if site else [])
+    except OSError as exc:
+        raise BadInput(f"-o {output}: {exc.strerror or exc}") from None
 
 
 class _Parser(argparse.ArgumentParser):
@@ -172,6 +236,10 @@ def build_parser() -> argparse.ArgumentParser:
     tui = commands.add_parser("tui", help="open the terminal interface")
     tui.add_argument("site", nargs="?", help="site file (default: a demo site)")
     tui.set_defaults(run=run_tui)
+    for action in _every_action(parser):  # every value, flag or file name, must be given
+        one_value = action.nargs is None or (action.nargs == "?" and not action.option_strings)
+        if one_value and action.choices is None:
+            action.type = _given(action.type or str)
     return parser
 
 
@@ -262,7 +330,7 @@ def _flag_problem(err: dict) -> str:
     if flag is None and loc.startswith("panels.0") and "insert_height" in err["msg"]:
         flag = "insert_height"
     name = f"--{flag.replace('_', '-')}" if flag else loc or "input"
-    message = err["msg"].removeprefix("Value error, ")
+    message = error_message(err)
     got = err.get("input")
     shown = f" (got {got!r})" if isinstance(got, (str, int, float)) else ""
     return f"{name}: {message}{shown}"
@@ -379,9 +447,13 @@ def run_tui(args) -> int:
 
 
 def _write(output: str | None, text: str) -> int:
-    """Print, or write atomically to `output` keeping the previous file."""
+    """Print, or write atomically to `output` keeping the previous file (`scenario.atomic_write`;
+    `main` has refused outputs onto the run's inputs); a failed write is exit 2 with its reason."""
     if output:
-        scenario.atomic_write(Path(output), text)
+        try:
+            scenario.atomic_write(Path(output), text)
+        except OSError as exc:
+            raise BadInput(f"-o {output}: not written ({exc.strerror or exc})") from None
         print(f"wrote {output}")
     else:
         print(text)

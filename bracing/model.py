@@ -7,6 +7,8 @@ unit of the same kind ("31 ft", "9.5 m"). Validation lives here, at the edge: th
 
 from __future__ import annotations
 
+import math
+from dataclasses import dataclass
 from datetime import date
 from operator import attrgetter
 from typing import Annotated, Literal
@@ -17,7 +19,6 @@ from pydantic import (
     ConfigDict,
     Field,
     ValidationError,
-    WithJsonSchema,
     field_validator,
     model_validator,
 )
@@ -30,14 +31,89 @@ from bracing.data_members import DRESSED_SIZES_IN, LUMBER_GRADES, PIPES
 SCHEMA_VERSION = 1
 
 
+# Input limits (method notes §9). Every number that enters the engine is finite (pydantic's
+# allow_inf_nan=False on every model) and in a plausible range for its field. A quantity's kind
+# sets the outer bound of every field of that kind, in its engine unit, so a new field has one
+# by default; a field narrows it with its own ge/gt/le/lt (a wall's height to 200 ft), which
+# `bracing schema` states as minimum/maximum. The bounds are far beyond any real job: they
+# refuse typing slips (1e308 ft) and numbers the engine cannot work with, never a real wall.
+KIND_LIMITS: dict[str, float] = {
+    "length": 30000.0,        # ft: plan coordinates and elevations (a site 5 miles across)
+    "thickness": 1200.0,      # in (100 ft)
+    "area": 1.0e6,            # ft^2
+    "section_area": 1.0e4,    # in^2
+    "force": 1.0e8,           # lbf
+    "moment": 1.0e9,          # ft*lbf
+    "pressure": 1.0e6,        # psf
+    "stress": 1.0e6,          # psi
+    "unit_weight": 1000.0,    # pcf (steel is 490)
+    "line_load": 1.0e7,       # plf
+    "speed": 300.0,           # mph
+    "angle": 360.0,           # deg
+    "duration": 3650.0 / 7,   # weeks: ten years
+    "age": 3650.0,            # days: ten years
+    "torque_factor": 100.0,   # 1/ft
+}
+DAY_LIMIT = 3650              # day numbers: ten years of days
+COUNT_LIMIT = 100_000         # pieces on hand
+BRACE_LIMIT = 50              # braces on one wall
+COORDINATE_LIMIT = KIND_LIMITS["length"]
+
+
+def within(value: float, kind: str) -> float:
+    """`value` (engine unit of `kind`) if inside the kind's plausible range, else ValueError."""
+    limit = KIND_LIMITS[kind]
+    if not -limit <= value <= limit:
+        unit, word = units.KINDS[kind]
+        raise ValueError(f"{value:.6g} {unit} is outside the plausible range of {word} "
+                         f"(at most {limit:,.6g} {unit} in size; method notes §9)")
+    return value
+
+
+# pydantic's error types of a number above its field's plausible range or not finite.
+RANGE_ERRORS = {"less_than", "less_than_equal", "finite_number"}
+
+
+def error_message(err: dict) -> str:
+    """A validation error's words; a range error says where the ranges are stated."""
+    message = err["msg"].removeprefix("Value error, ")
+    if err["type"] in RANGE_ERRORS:
+        message += " (each field's range: `bracing schema`, method notes §9)"
+    return message
+
+
+_BOUNDS = {"ge": "minimum", "gt": "exclusiveMinimum", "le": "maximum", "lt": "exclusiveMaximum"}
+
+
+@dataclass(frozen=True)
+class _QuantitySchema:
+    """The JSON schema of a quantity field: a number or a text with a unit, its description
+    and its range (the field's own bounds, else its kind's)."""
+
+    kind: str
+    text: str
+
+    def __get_pydantic_json_schema__(self, core_schema, handler):
+        number = handler(core_schema)  # {"type": "number"} with the field's own bounds
+        bounds = {_BOUNDS.get(k, k): v for k, v in number.items() if k != "type"}
+        limit = KIND_LIMITS[self.kind]
+        if "minimum" not in bounds and "exclusiveMinimum" not in bounds:
+            bounds["minimum"] = -limit
+        if "maximum" not in bounds and "exclusiveMaximum" not in bounds:
+            bounds["maximum"] = limit
+        return {"anyOf": [{"type": "number"}, {"type": "string"}], "description": self.text,
+                **bounds}
+
+
 def _quantity(kind: str, description: str = ""):
-    """A float field read through `units.parse` for `kind`, with its unit in the JSON schema."""
+    """A float field read through `units.parse` for `kind`, inside the kind's plausible range,
+    with its unit and range in the JSON schema."""
     unit, word = units.KINDS[kind]
     text = f"{description} ({word}; a bare number is in {unit.replace('**', '^')})".strip()
     return Annotated[
         float,
-        BeforeValidator(lambda v: units.parse(v, kind)),
-        WithJsonSchema({"anyOf": [{"type": "number"}, {"type": "string"}], "description": text}),
+        BeforeValidator(lambda v: within(units.parse(v, kind), kind)),
+        _QuantitySchema(kind, text),
     ]
 
 
@@ -59,10 +135,31 @@ Age = _quantity("age")
 Positive = Field(gt=0)
 
 
-class Strict(BaseModel):
-    """Unknown keys are errors: a misspelt key must not be silently ignored."""
+def _schema_bounds(schema: dict) -> None:
+    """Bounds of optional quantity fields, which pydantic writes as "gt", "le"..., in JSON
+    schema words; the kind's bound dropped where the field's own is narrower."""
+    for key, value in list(schema.items()):
+        if key in _BOUNDS and isinstance(value, (int, float)):
+            schema[_BOUNDS[key]] = schema.pop(key)
+        elif isinstance(value, dict):
+            _schema_bounds(value)
+        elif isinstance(value, list):
+            for item in value:
+                if isinstance(item, dict):
+                    _schema_bounds(item)
+    low, high = schema.get("exclusiveMinimum"), schema.get("exclusiveMaximum")
+    if low is not None and schema.get("minimum", low) < low:
+        del schema["minimum"]
+    if high is not None and schema.get("maximum", high) > high:
+        del schema["maximum"]
 
-    model_config = ConfigDict(extra="forbid", populate_by_name=True)
+
+class Strict(BaseModel):
+    """Unknown keys are errors: a misspelt key must not be silently ignored; nan and inf are
+    refused in every number (method notes §9)."""
+
+    model_config = ConfigDict(extra="forbid", populate_by_name=True, allow_inf_nan=False,
+                              json_schema_extra=lambda schema, _: _schema_bounds(schema))
 
 
 class Rule(Strict):
@@ -118,15 +215,21 @@ DEFAULT_RULES: dict[str, Rule] = {
 }
 
 
-# Rules whose value must lie in (low, high] to make sense.
+# Every rule's value must lie in (low, high] in its unit to make sense (method notes §9).
 RULE_RANGES = {
-    "stand_down_ratio": (0.0, 1.0),
     "minimum_design_pressure_psf": (0.0, 200.0),
+    "stand_down_ratio": (0.0, 1.0),
+    "masonry_unbraced_height_ft": (0.0, 100.0),
+    "masonry_zone_extra_ft": (0.0, 100.0),
+    "masonry_cure_days": (0.0, float(DAY_LIMIT)),
+    "minimum_braces_per_panel": (0.0, float(BRACE_LIMIT)),
     "brace_angle_min_deg": (0.0, 90.0),
     "brace_angle_max_deg": (0.0, 90.0),
     "insert_min_height_ratio": (0.0, 1.0),
-    "minimum_braces_per_panel": (0.0, 20.0),
-    "masonry_unbraced_height_ft": (0.0, 100.0),
+    "minimum_design_wind_mph": (0.0, KIND_LIMITS["speed"]),
+    "masonry_initial_speed_mph": (0.0, KIND_LIMITS["speed"]),
+    "masonry_intermediate_speed_mph": (0.0, KIND_LIMITS["speed"]),
+    "masonry_bracing_design_speed_mph": (0.0, KIND_LIMITS["speed"]),
 }
 
 
@@ -134,7 +237,8 @@ class SiteInfo(Strict):
     """Where the walls stand and the wind they must resist."""
 
     name: str = Field(min_length=1)
-    start_date: date | None = Field(None, description="Calendar date of day 1 (for forecasts).")
+    start_date: date | None = Field(None, ge=date(1900, 1, 1), le=date(2199, 12, 31),
+                                    description="Calendar date of day 1 (for forecasts).")
     basic_wind_speed: Speed = Field(gt=0, description="ASCE 7-16 basic wind speed V (mph).")
     exposure: Literal["B", "C", "D"] = Field("C", description="ASCE 7-16 §26.7 exposure.")
     topographic_factor: float = Field(1.0, ge=1.0, le=3.0, description="Kzt, ASCE 7-16 §26.8.")
@@ -199,8 +303,8 @@ class Opening(Strict):
 class Footing(Strict):
     """A footing under a free-standing wall (overturning, sliding and bearing use it)."""
 
-    width: Length = Field(gt=0, description="Across the wall (ft), centred under it.")
-    thickness: Length = Field(gt=0, description="Depth of the footing (ft).")
+    width: Length = Field(gt=0, le=100, description="Across the wall (ft), centred under it.")
+    thickness: Length = Field(gt=0, le=100, description="Depth of the footing (ft).")
     unit_weight: UnitWeight = Field(150.0, gt=0, description="pcf.")
     soil_depth: Length = Field(0.0, ge=0, description="Soil over the footing (ft).")
     soil_unit_weight: UnitWeight = Field(110.0, gt=0, description="pcf.")
@@ -229,7 +333,7 @@ class BraceType(Strict):
     section: str | None = Field(None, description="Pipe size, e.g. 'Pipe 3 STD'.")
     yield_strength: Stress = Field(35000.0, gt=0, description="Fy (psi); A53 Gr. B 35 ksi.")
     knee_brace: bool = Field(False, description="Knee brace at mid-length in the brace's plane.")
-    lateral_struts: int = Field(0, ge=0, description="Out-of-plane struts along the brace.")
+    lateral_struts: int = Field(0, ge=0, le=BRACE_LIMIT, description="Out-of-plane struts along the brace.")
     # lumber
     size: str | None = Field(None, description="Nominal size, e.g. '4x4'.")
     species: str = Field("DF-L", description="NDS species group, e.g. 'DF-L', 'SPF'.")
@@ -243,7 +347,7 @@ class BraceType(Strict):
                            "held by the wall alone (method notes §4).")
     end_connection: Force | None = Field(
         None, gt=0, description="Rated allowable load of the end fittings (lb).")
-    on_hand: int | None = Field(None, ge=0, description="How many the site has.")
+    on_hand: int | None = Field(None, ge=0, le=COUNT_LIMIT, description="How many the site has.")
 
     @model_validator(mode="after")
     def _complete(self):
@@ -268,6 +372,8 @@ class BraceType(Strict):
                 raise ValueError("a rated brace needs `lengths` and `loads` of equal length (2+)")
             if any(b <= a for a, b in zip(self.lengths, self.lengths[1:])):
                 raise ValueError("rated table `lengths` must increase")
+            if self.lengths[0] <= 0:
+                raise ValueError("rated table `lengths` must be positive")
             if any(x <= 0 for x in self.loads):
                 raise ValueError("rated table `loads` must be positive")
         if self.kind == "pipe" and self.section not in PIPES:
@@ -309,9 +415,9 @@ class AnchorType(Strict):
     shaft: Literal[tuple(anchors.KT_AC358_PER_FT)] = Field(
         "1.5in_square", description="Helical shaft: gives K_t (ICC-ES AC358) unless "
                                     "torque_factor is set.")
-    torque_factor: float | None = Field(None, gt=0, description="K_t (1/ft); default by the "
-                                                                "shaft (ICC-ES AC358).")
-    factor_of_safety: float = Field(anchors.HELICAL_FACTOR_OF_SAFETY, gt=0,
+    torque_factor: float | None = Field(None, gt=0, le=100, description="K_t (1/ft); default by "
+                                        "the shaft (ICC-ES AC358).")
+    factor_of_safety: float = Field(anchors.HELICAL_FACTOR_OF_SAFETY, gt=0, le=10,
                                     description="On K_t T (ICC-ES AC358).")
     installation_torque: Moment | None = Field(
         None, gt=0, description="Final installation torque the crew reaches (ft-lb).")
@@ -344,7 +450,7 @@ class AnchorType(Strict):
     allowable_bearing: Pressure | None = Field(None, gt=0, description="Allowable bearing under "
                                                                        "the block (psf), e.g. IBC "
                                                                        "Table 1806.2.")
-    on_hand: int | None = Field(None, ge=0, description="How many the site has.")
+    on_hand: int | None = Field(None, ge=0, le=COUNT_LIMIT, description="How many the site has.")
 
     @model_validator(mode="after")
     def _complete(self):
@@ -382,9 +488,10 @@ class Bracing(Strict):
                                                        "[anchor_types] (an insert).")
     foot_anchor: str | None = Field(None, description="Anchor at the brace foot: a key of "
                                                        "[anchor_types].")
-    count: int = Field(ge=1, le=20)
-    insert_height: Length = Field(gt=0, description="Above the wall's base (ft).")
-    anchor_distance: Length | None = Field(None, gt=0, description="Foot from the wall face (ft).")
+    count: int = Field(ge=1, le=BRACE_LIMIT)
+    insert_height: Length = Field(gt=0, le=200, description="Above the wall's base (ft).")
+    anchor_distance: Length | None = Field(None, gt=0, le=1000,
+                                           description="Foot from the wall face (ft).")
     angle: Angle | None = Field(None, gt=0, lt=90, description="From horizontal (deg).")
     positions: list[Length] = Field(
         default_factory=list, description="From the wall's left edge (ft); default: the "
@@ -428,14 +535,16 @@ class DesignOptions(Strict):
                                                        "[anchor_types].")
     foot_anchors: list[str] = Field(default_factory=list,
                                     description="Keys of [anchor_types] to try at the foot.")
-    most_braces: int = Field(6, ge=1, le=20, description="Most braces allowed per wall.")
+    most_braces: int = Field(6, ge=1, le=BRACE_LIMIT, description="Most braces allowed per wall.")
     room: Length | None = Field(None, gt=0, description="Most distance from the wall face to "
                                                         "a brace foot (ft).")
     insert_offset: Thickness = Field(0.0, ge=0, description="Brace pin out from the face (in).")
     foot_offset: Thickness = Field(0.0, ge=0, description="Foot pin above the slab (in).")
 
 
-Point = tuple[float, float]
+# A plan coordinate (ft), inside the length kind's range.
+Coordinate = Annotated[float, Field(ge=-COORDINATE_LIMIT, le=COORDINATE_LIMIT)]
+Point = tuple[Coordinate, Coordinate]
 
 
 class Area_(Strict):
@@ -512,7 +621,7 @@ class Event(Strict):
     """A step of the permanent work that makes walls eligible for release."""
 
     name: str = Field(min_length=1)
-    day: int = Field(ge=1)
+    day: int = Field(ge=1, le=DAY_LIMIT)
     kind: Literal["diaphragm", "connections", "pour_strip", "other"] = "diaphragm"
 
 
@@ -520,7 +629,7 @@ class SignOff(Strict):
     """The engineer of record's release of one wall's braces (OSHA 1926.704(a))."""
 
     panel: str
-    day: int = Field(ge=1)
+    day: int = Field(ge=1, le=DAY_LIMIT)
     by: str = Field(min_length=1, description="Who released the wall.")
 
 
@@ -535,13 +644,13 @@ class Panel(Strict):
 
     mark: str = Field(min_length=1)
     material: str = Field(description="A key of [materials].")
-    width: Length = Field(gt=0, description="Length along the wall, B (ft).")
-    height: Length = Field(gt=0, description="Height of the panel, s (ft).")
-    thickness: Thickness = Field(gt=0, description="in.")
+    width: Length = Field(gt=0, le=5000, description="Length along the wall, B (ft).")
+    height: Length = Field(gt=0, le=200, description="Height of the panel, s (ft).")
+    thickness: Thickness = Field(gt=0, le=120, description="in.")
     unit_weight: UnitWeight | None = Field(None, gt=0, description="Overrides the material (pcf).")
     face_weight: Pressure | None = Field(None, gt=0, description="Overrides the material (psf).")
     base_elevation: Length = Field(
-        0.0, ge=0, description="Base above grade (ft): a dock, podium or upper floor.")
+        0.0, ge=0, le=3000, description="Base above grade (ft): a dock, podium or upper floor.")
     openings: list[Opening] = Field(default_factory=list)
     opening_area: Area | None = Field(
         None, ge=0, description="Openings by total area only (ft^2), positions unknown.")
@@ -555,7 +664,7 @@ class Panel(Strict):
     line: str | None = Field(None, description="The wall line it stands on (a [[lines]] name).")
     offset: Length = Field(0.0, ge=0, description="From the line's start to the panel's first "
                                                   "edge (ft); positions count from that edge.")
-    lift_day: int | None = Field(None, ge=1, description="Day the wall is stood.")
+    lift_day: int | None = Field(None, ge=1, le=DAY_LIMIT, description="Day the wall is stood.")
     release_after: list[str] = Field(default_factory=list,
                                      description="Events that make it eligible for release.")
 
@@ -581,7 +690,7 @@ class Panel(Strict):
 class Site(Strict):
     """A whole site file, validated."""
 
-    version: int = Field(SCHEMA_VERSION, description="Site file format version.")
+    version: int = Field(SCHEMA_VERSION, ge=1, description="Site file format version.")
     site: SiteInfo
     rules: dict[str, Rule] = Field(default_factory=dict)
     materials: dict[str, Material]
@@ -639,6 +748,17 @@ def _names_of(data: dict, section: str, problems: list) -> set:
     return seen
 
 
+def _number(value) -> float | None:
+    """A rule's raw value as the model reads it (a number, or text of one), else None."""
+    if isinstance(value, bool) or not isinstance(value, (int, float, str)):
+        return None
+    try:
+        number = float(value)
+    except (ValueError, OverflowError):
+        return None
+    return number if math.isfinite(number) else None  # the field itself refuses nan and inf
+
+
 def reference_problems(data) -> list[tuple[tuple, str, object]]:
     """(location, message, value) of every unknown rule, material, brace or anchor type, wall
     line, event or signed-off panel, repeated mark or name and too-new version in raw site data;
@@ -654,9 +774,10 @@ def reference_problems(data) -> list[tuple[tuple, str, object]]:
     rules = data.get("rules") if isinstance(data.get("rules"), dict) else {}
     for rule, (low, high) in RULE_RANGES.items():
         value = rules.get(rule, {}).get("value") if isinstance(rules.get(rule), dict) else None
-        if isinstance(value, (int, float)) and not low < value <= high:
+        number = _number(value)
+        if number is not None and not low < number <= high:  # nan is in no range
             problems.append((("rules", rule, "value"), f"must be above {low:g} and at most "
-                             f"{high:g}", value))
+                             f"{high:g} (method notes §9)", value))
     for rule in names("rules") - set(DEFAULT_RULES):
         problems.append((("rules", rule), f"unknown rule; known: {', '.join(DEFAULT_RULES)}", rule))
     lines = _names_of(data, "lines", problems)
@@ -702,7 +823,7 @@ def reference_problems(data) -> list[tuple[tuple, str, object]]:
         if isinstance(mark, str) and mark not in first_of:
             problems.append((("signoffs", i, "panel"), f"{mark!r} is not a panel mark", mark))
     version = data.get("version")
-    if isinstance(version, int) and version > SCHEMA_VERSION:
+    if isinstance(version, int) and not isinstance(version, bool) and version > SCHEMA_VERSION:
         problems.append((("version",), f"version {version} is newer than this program "
                                        f"({SCHEMA_VERSION})", version))
     return problems

@@ -1,16 +1,24 @@
 """Site files: read, validate, report every error at once, and save without losing anything.
 
-A site file is TOML kept by tomlkit, so a save keeps the user's comments and layout. Saves are
-atomic (write beside, then replace) and keep the previous version as `NAME.bak`.
+A site file is TOML kept by tomlkit, so a save keeps the user's comments and layout, its line
+endings and its byte-order mark. Saves are atomic and keep the previous version as `NAME.bak`:
+the new text goes to a temporary file beside the target (fsync), the old file is hard-linked
+(or copied) to `NAME.bak`, then one `os.replace` puts the new file in place, so the target is
+always there, old or new. Only regular files are read or written (a pipe must not hang a run).
 """
 
 from __future__ import annotations
 
+import codecs
+import contextlib
+import glob
 import os
 import re
-import tempfile
+import shutil
+import stat
 import tomllib
-from dataclasses import dataclass
+import uuid
+from dataclasses import dataclass, replace
 from functools import cached_property
 from pathlib import Path
 
@@ -18,7 +26,7 @@ import tomlkit
 from pydantic import ValidationError
 from tomlkit.exceptions import TOMLKitError
 
-from bracing.model import Site
+from bracing.model import Site, error_message
 
 
 class SiteFileError(Exception):
@@ -48,6 +56,8 @@ class SiteFile:
     site: Site
     edits: tuple = ()
     data: dict | None = None
+    newline: str = "\n"   # the file's line ending, kept by a save ("\r\n" stays)
+    bom: bool = False     # the file began with a UTF-8 byte-order mark, kept by a save
 
     def __post_init__(self):
         if self.data is None:
@@ -78,7 +88,7 @@ class SiteFile:
         else:
             node[keys[-1]] = value
         site = validate_data(data, str(self.path), self.text)
-        return SiteFile(self.path, self.text, site, self.edits + ((tuple(keys), value),), data)
+        return replace(self, site=site, edits=self.edits + ((tuple(keys), value),), data=data)
 
     def written(self) -> tomlkit.TOMLDocument:
         """The document with the edits written into it."""
@@ -95,50 +105,186 @@ class SiteFile:
         return document
 
     def save(self, path: str | Path | None = None) -> Path:
-        """Write the file atomically, keeping the previous one as `.bak`."""
+        """Write the file atomically, keeping the previous one as `.bak`; on an error (OSError,
+        WriteRefused saying why) nothing is changed, neither the file nor this object."""
         target = Path(path) if path else self.path
         text = tomlkit.dumps(self.written())
-        atomic_write(target, text)
+        atomic_write(target, text, self.newline, self.bom)
         self.path, self.text, self.edits = target, text, ()
         self.__dict__.pop("document", None)
         return target
 
 
-def atomic_write(target: Path, text: str) -> None:
-    """Write `text` to `target` through a temporary file; the old file becomes `target.bak`."""
-    target = Path(target)
-    target.parent.mkdir(parents=True, exist_ok=True)
-    fd, tmp = tempfile.mkstemp(dir=target.parent, prefix=f".{target.name}.", suffix=".tmp")
+class WriteRefused(OSError):
+    """A path that must not be written (a folder, a device or pipe, an input of the run, a
+    missing folder); the message says why."""
+
+
+# Temporary files of a save are named `.NAME.<random>.bracing-tmp` beside the target; a save
+# killed half-way leaves one, and the next save of NAME removes them.
+TEMP_SUFFIX = ".bracing-tmp"
+LARGEST_FILE = 256 * 1024 * 1024  # bytes: a site or forecast file larger than this is a mistake
+
+
+def check_target(target: str | Path) -> Path:
+    """The real path a write to `target` goes to (a symbolic link is followed, never replaced),
+    or WriteRefused: a folder, something not a regular file, or a folder that does not exist
+    (none is created)."""
+    path = Path(os.path.realpath(target))
+    if path.is_dir():
+        raise WriteRefused(f"{target} is a folder: give a file name")
+    if path.exists() and not path.is_file():
+        raise WriteRefused(f"{target} is not a regular file (a device or pipe): give a file name")
+    if not path.parent.is_dir():
+        raise WriteRefused(f"the folder {path.parent} does not exist: create it first")
+    return path
+
+
+def backup_of(path: Path) -> Path:
+    return path.with_name(path.name + ".bak")
+
+
+def check_output(output: str | Path, inputs: list[Path]) -> Path:
+    """The real path of an output file (`check_target`), refused (WriteRefused) when it, or the
+    `.bak` its write would make, is one of `inputs` or their `.bak`: an output never replaces
+    what the run reads."""
+    path = check_target(output)
+    guarded = {Path(os.path.realpath(p)) for p in inputs}
+    guarded |= {backup_of(p) for p in guarded}
+    if path in guarded or backup_of(path) in guarded:
+        raise WriteRefused(f"{output} is an input of this run (the site file, its forecast or a "
+                           "backup of one): give another file name")
+    return path
+
+
+def inputs_of(site_path: str | Path) -> list[Path]:
+    """The site file and the forecast file it names (best effort: an unreadable site file names
+    none; its own errors are reported when it is loaded)."""
+    site_path = Path(site_path)
+    found = [site_path]
+    try:
+        data = tomllib.loads(_read(site_path, "site file")[0])
+        forecast = data.get("forecast", {}).get("file")
+    except (SiteFileError, ValueError, RecursionError, AttributeError):
+        return found
+    if isinstance(forecast, str) and forecast:
+        found.append(site_path.parent / forecast)
+    return found
+
+
+def _remove_stale(path: Path) -> None:
+    """Remove the temporary files that killed saves of `path` left behind."""
+    for stale in path.parent.glob(f".{glob.escape(path.name)}.*{TEMP_SUFFIX}"):
+        with contextlib.suppress(OSError):
+            stale.unlink()
+
+
+def _temp_beside(path: Path) -> Path:
+    return path.with_name(f".{path.name}.{uuid.uuid4().hex}{TEMP_SUFFIX}")
+
+
+def atomic_write(target: str | Path, text: str, newline: str = "\n", bom: bool = False) -> Path:
+    """Write `text` to `target` (its lines ending in `newline`) so that the target is always a
+    complete file, old or new; the old one becomes `target.bak`. Returns the real path written.
+
+    The steps: the new text into a temporary file beside the target, flushed to disk (fsync);
+    the old file hard-linked (or copied, where links are not possible) to a second temporary
+    name, which replaces `.bak`; then one os.replace of the target. Raises OSError
+    (WriteRefused for a path that must not be written); the target is then untouched."""
+    path = check_target(target)
+    _remove_stale(path)
+    data = ((codecs.BOM_UTF8 if bom else b"")
+            + text.replace("\r\n", "\n").replace("\n", newline).encode("utf-8"))
     umask = os.umask(0)
     os.umask(umask)
-    mode = target.stat().st_mode & 0o777 if target.exists() else 0o666 & ~umask
+    mode = stat.S_IMODE(path.stat().st_mode) if path.exists() else 0o666 & ~umask
+    tmp = _temp_beside(path)
+    made: list[Path] = []
     try:
-        os.chmod(tmp, mode)  # mkstemp makes 0600: keep the file's own or the usual permissions
-        with os.fdopen(fd, "w", encoding="utf-8") as handle:
-            handle.write(text)
+        fd = os.open(tmp, os.O_WRONLY | os.O_CREAT | os.O_EXCL, 0o600)
+        made.append(tmp)
+        with os.fdopen(fd, "wb") as handle:
+            os.fchmod(handle.fileno(), mode)  # the file's own or the usual permissions
+            handle.write(data)
             handle.flush()
             os.fsync(handle.fileno())
-        if target.exists():
-            backup = target.with_name(target.name + ".bak")
-            os.replace(target, backup)
-        os.replace(tmp, target)
+        if path.exists():
+            old = _temp_beside(path)
+            try:
+                os.link(path, old)
+            except OSError:  # no hard links here (some file systems): a copy
+                shutil.copy2(path, old)
+            made.append(old)
+            os.replace(old, backup_of(path))
+            with contextlib.suppress(FileNotFoundError):  # a .bak that was already this same
+                old.unlink()  # file (a save stopped after its link): rename leaves both names
+        os.replace(tmp, path)
+        _sync_folder(path.parent)
     except BaseException:
-        if os.path.exists(tmp):
-            os.unlink(tmp)
+        for leftover in made:
+            with contextlib.suppress(OSError):
+                leftover.unlink()
         raise
+    return path
+
+
+def _sync_folder(folder: Path) -> None:
+    """Flush the folder's entries (the rename) to disk where the system allows it."""
+    try:
+        fd = os.open(folder, os.O_RDONLY)
+    except OSError:
+        return
+    try:
+        os.fsync(fd)
+    except OSError:
+        pass
+    finally:
+        os.close(fd)
+
+
+def _read(path: Path, what: str) -> tuple[str, str, bool]:
+    """The text of a regular file (a byte-order mark dropped, line ends as "\n"), its line
+    ending and whether it had the mark; SiteFileError naming the file and why it cannot be read.
+    A pipe or device is refused without reading it (reading a pipe would wait forever)."""
+    def refused(why: str) -> SiteFileError:
+        return SiteFileError(str(path), [f"{path}: {why}"])
+
+    try:
+        fd = os.open(path, os.O_RDONLY | getattr(os, "O_NONBLOCK", 0))
+    except OSError as exc:
+        raise refused(f"cannot read the {what} ({exc.strerror})") from None
+    info = os.fstat(fd)
+    if not stat.S_ISREG(info.st_mode) or info.st_size > LARGEST_FILE:
+        os.close(fd)
+        if not stat.S_ISREG(info.st_mode):
+            raise refused(f"not a regular file (a folder, device or pipe): give the {what}")
+        raise refused(f"the {what} is {info.st_size:,} bytes, more than a {what} can be "
+                      f"({LARGEST_FILE:,})")
+    with os.fdopen(fd, "rb") as handle:
+        try:
+            raw = handle.read()
+        except OSError as exc:
+            raise refused(f"cannot read the {what} ({exc.strerror})") from None
+    bom = raw.startswith(codecs.BOM_UTF8)
+    try:
+        text = raw.decode("utf-8-sig")
+    except UnicodeDecodeError as exc:
+        raise refused(f"not a UTF-8 text file (byte {exc.start + 3 * bom})") from None
+    newline = "\r\n" if "\r\n" in text else "\n"
+    return text.replace("\r\n", "\n"), newline, bom
+
+
+def read_text(path: str | Path, what: str) -> str:
+    """The text of a regular file (`_read`) for other readers (the forecast)."""
+    return _read(Path(path), what)[0]
 
 
 def load(path: str | Path) -> SiteFile:
-    """Read and validate a site file; raise SiteFileError listing every problem."""
+    """Read and validate a site file; raise SiteFileError listing every problem. A UTF-8
+    byte-order mark at the start is accepted (and kept by a save), as are CRLF line endings."""
     path = Path(path)
-    try:
-        text = path.read_text(encoding="utf-8")
-    except OSError as exc:
-        raise SiteFileError(str(path), [f"{path}: cannot read the file ({exc.strerror})"]) from None
-    except UnicodeDecodeError as exc:
-        raise SiteFileError(str(path), [f"{path}: not a UTF-8 text file (byte {exc.start})"]) \
-            from None
-    return parse(text, str(path))
+    text, newline, bom = _read(path, "site file")
+    return replace(parse(text, str(path)), newline=newline, bom=bom)
 
 
 def parse(text: str, name: str = "<site>") -> SiteFile:
@@ -147,6 +293,12 @@ def parse(text: str, name: str = "<site>") -> SiteFile:
         data = tomllib.loads(text)  # fast; tomlkit (style-keeping) is parsed only to save
     except tomllib.TOMLDecodeError as fast_error:
         raise SiteFileError(name, [_toml_problem(fast_error, text, name)]) from None
+    except ValueError as exc:  # an integer of thousands of digits
+        raise SiteFileError(name, [f"{name}: not valid TOML for a site file: a number too long "
+                                   f"to read ({str(exc).split(' for ')[0]})"]) from None
+    except RecursionError:
+        raise SiteFileError(name, [f"{name}: not valid TOML for a site file: arrays or tables "
+                                   "nested too deeply"]) from None
     return SiteFile(Path(name), text, validate_data(data, name, text), data=data)
 
 
@@ -161,7 +313,7 @@ def validate_data(data: dict, name: str, text: str) -> Site:
 def describe(err: dict, data: dict, name: str, text: str) -> str:
     """One line for one validation error: file, line, item (panel mark) and field."""
     loc = tuple(err["loc"])
-    message = err["msg"].removeprefix("Value error, ")
+    message = error_message(err)
     if err["type"] == "missing":
         message = "missing (this field is required)"
     elif err["type"] == "extra_forbidden":
@@ -206,6 +358,8 @@ def _toml_problem(error: tomllib.TOMLDecodeError, text: str, name: str) -> str:
         tomlkit.parse(text)
     except TOMLKitError as exc:
         why = re.sub(r"\s*at line \d+ col \d+$", "", str(exc)) or why
+    except (ValueError, RecursionError):  # tomlkit's own limits: the standard parser's words
+        pass
     return f"{where}: not valid TOML: {why}"
 
 

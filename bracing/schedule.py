@@ -47,9 +47,9 @@ from pathlib import Path
 import numpy as np
 
 from bracing import lines, plan, units
-from bracing.model import Bracing, Panel, SignOff, Site
+from bracing.model import DAY_LIMIT, Bracing, Panel, SignOff, Site, within
 from bracing.results import DayResult, Flag, PanelResult
-from bracing.scenario import SiteFileError
+from bracing.scenario import SiteFileError, read_text
 from bracing.wind import asce37
 
 STORM_WORDS = {"yes": True, "true": True, "1": True, "no": False, "false": False, "0": False,
@@ -82,23 +82,22 @@ class Hardware:
 def read_forecast(path: str | Path, start_date: date | None) -> dict[int, ForecastDay]:
     """The forecast by day number; raise SiteFileError naming the file and line of each problem."""
     path = Path(path)
-    try:
-        text = path.read_text(encoding="utf-8-sig")
-    except OSError as exc:
-        raise SiteFileError(str(path), [f"{path}: cannot read the forecast file "
-                                        f"({exc.strerror})"]) from None
-    except UnicodeDecodeError as exc:
-        raise SiteFileError(str(path), [f"{path}: not a UTF-8 text file (byte {exc.start})"]) \
-            from None
-    rows = [(n, cells) for n, line in enumerate(text.splitlines(), 1)
-            if line.strip() and not line.lstrip().startswith("#")
-            for cells in csv.reader([line])]
+    text = read_text(path, "forecast file")  # a regular file only: a pipe would hang the run
+    rows, problems = [], []
+    for n, line in enumerate(text.splitlines(), 1):
+        if not line.strip() or line.lstrip().startswith("#"):
+            continue
+        try:
+            rows.extend((n, cells) for cells in csv.reader([line]))
+        except csv.Error as exc:  # a field past the csv module's size limit, a NUL byte
+            problems.append(f"{path}:{n}: cannot read the line as CSV ({exc})")
+    if problems:
+        raise SiteFileError(str(path), problems)
     if not rows:
         raise SiteFileError(str(path), [f"{path}: empty forecast file (a header row and one row "
                                         "per day are expected)"])
     head_line, head = rows[0]
     columns = {name.strip().lower(): k for k, name in enumerate(head)}
-    problems = []
     when = next((c for c in ("day", "date") if c in columns), None)
     gust = next((c for c in ("gust_mph", "gust") if c in columns), None)
     if when is None or gust is None:
@@ -114,16 +113,20 @@ def read_forecast(path: str | Path, start_date: date | None) -> dict[int, Foreca
         cell = {name: cells[k].strip() if k < len(cells) else "" for name, k in columns.items()}
         try:
             day = _day_of(cell[when], when, start_date)
-            speed = units.parse(cell[gust], "speed")
+            speed = within(units.parse(cell[gust], "speed"), "speed")
             if speed < 0:
                 raise ValueError(f"negative gust {cell[gust]!r}")
             storm = STORM_WORDS.get(cell.get("storm", "").lower())
             if storm is None:
-                raise ValueError(f"storm must be yes/no/true/false/1/0, got {cell['storm']!r}")
+                raise ValueError(f"storm must be yes/no/true/false/1/0, got {units.shown(cell['storm'])}")
         except ValueError as exc:
             problems.append(f"{path}:{n}: {exc}")
             continue
         if day < 1:
+            continue
+        if day > DAY_LIMIT:
+            problems.append(f"{path}:{n}: day {day:,} is beyond the last day a job can have "
+                            f"({DAY_LIMIT:,}, method notes §9)")
             continue
         seen = out.get(day)
         out[day] = ForecastDay(max(speed, seen.gust_mph) if seen else speed,
@@ -139,11 +142,11 @@ def _day_of(text: str, column: str, start_date: date | None) -> int:
         try:
             return (date.fromisoformat(text) - start_date).days + 1
         except ValueError:
-            raise ValueError(f"date must be ISO (YYYY-MM-DD), got {text!r}") from None
+            raise ValueError(f"date must be ISO (YYYY-MM-DD), got {units.shown(text)}") from None
     try:
         day = int(text)
     except ValueError:
-        raise ValueError(f"day must be a whole number, got {text!r}") from None
+        raise ValueError(f"day must be a whole number, got {units.shown(text)}") from None
     if day < 1:
         raise ValueError(f"day numbers start at 1, got {day}")
     return day

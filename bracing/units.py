@@ -8,6 +8,7 @@ a bare number takes it, a value with a unit is converted with pint. A value of t
 from __future__ import annotations
 
 import math
+import re
 from functools import lru_cache
 
 
@@ -65,47 +66,89 @@ class UnitError(ValueError):
     """A value that cannot be read as the field's kind of quantity."""
 
 
-def _mass_to_force(q):
-    """Read pounds and kilograms as their weight where the trade writes them for forces."""
+# The longest text read as a quantity: a value with its unit is short; a long one is a mistake,
+# and pint evaluates what it is given (a long product of big numbers takes long).
+LONGEST_TEXT = 100
+# A unit raised to a one-digit power ("ft**2", "m^3", "ft**-1"), not followed by another power:
+# the only powers read. "2**2000" or "9**9**9" would make pint compute a number of millions of
+# digits (a hang), so every other power is refused before pint sees the text.
+# A number after a number or a unit with only spaces between: pint multiplies them ("2 0 mph"
+# is 0 mph, "20 mph 5" is 100 mph), a typing slip that must not pass as a value.
+_SIDE_BY_SIDE = re.compile(r"[\w.]\s+[\d.]")
+_UNIT_POWER = re.compile(r"(?<=[A-Za-z_])\s*(?:\*\*|\^)\s*[-+]?[0-9](?![0-9.]|\s*(?:\*\*|\^))")
+
+
+def _is_weight(q) -> bool:
+    """True for a mass unit the trade writes for a weight: a mass alone or over lengths (lb, kg,
+    t, lb/ft^3, kg/m^2, lb*ft), never with time (3 s times g is a speed, not a weight)."""
+    dims = q.dimensionality
+    return dims.get("[mass]") == 1 and set(dims) <= {"[mass]", "[length]"}
+
+
+def _weighed(q):
+    """A mass unit read as its weight (standard gravity), where the trade writes it for forces."""
     return (q * registry().Quantity(1.0, "standard_gravity")).to_base_units()
 
 
 @lru_cache(maxsize=4096)
 def _parse_text(text: str, unit: str, kind_word: str) -> float:
+    stripped = text.strip()
+    bare = _UNIT_POWER.sub("", stripped)
+    if len(stripped) > LONGEST_TEXT or "**" in bare or "^" in bare \
+            or _SIDE_BY_SIDE.search(stripped) or not stripped.isprintable():
+        raise UnitError(f"cannot read {shown(text)} as {kind_word} (for example '12 {unit}'; "
+                        "a number and a unit, powers only on units)")
     try:
-        q = registry().Quantity(text.strip())
+        q = registry().Quantity(stripped)
     except Exception as exc:  # pint raises several types for unreadable text
         raise UnitError(f"cannot read {text!r} as {kind_word} (for example '12 {unit}')") from exc
     target = registry().Unit(unit)
-    if isinstance(q, (int, float)) or q.unitless:
-        if q.unitless and str(q.units) not in ("dimensionless", ""):
-            if not q.is_compatible_with(target):  # "10 %" for a length
-                raise UnitError(f"{text!r} is not {kind_word} (expected a unit like {unit})")
-            return float(q.to(target).magnitude)  # degrees and radians are unitless in pint
-        return float(q.magnitude if hasattr(q, "magnitude") else q)
-    if not q.is_compatible_with(target):
-        weighed = _mass_to_force(q)
-        if weighed.is_compatible_with(target):
+    wrong = UnitError(f"{text!r} is not {kind_word} (expected a unit like {unit})")
+    try:
+        if isinstance(q, (int, float)):
+            return float(q)
+        if q.unitless:
+            if str(q.units) not in ("dimensionless", ""):
+                if not q.is_compatible_with(target):  # "10 %" for a length
+                    raise wrong
+                return float(q.to(target).magnitude)  # degrees and radians are unitless in pint
+            return float(q.magnitude)
+        if not q.is_compatible_with(target):
+            weighed = _weighed(q) if _is_weight(q) else None
+            if weighed is None or not weighed.is_compatible_with(target):
+                raise wrong
             q = weighed
-        else:
-            raise UnitError(f"{text!r} is not {kind_word} (expected a unit like {unit})")
-    return float(q.to(target).magnitude)
+        return float(q.to(target).magnitude)
+    except (OverflowError, ZeroDivisionError):  # a number too large for a float
+        raise UnitError(f"{shown(text)} is too large a number for {kind_word}") from None
+
+
+def shown(value: object) -> str:
+    """The value as a message shows it: a long one cut short."""
+    text = repr(value)
+    return text if len(text) <= 60 else f"{text[:40]}... ({len(text)} characters)"
 
 
 def parse(value: object, kind: str) -> float:
-    """Return `value` in the engine unit of `kind`; a bare number is taken in that unit."""
+    """Return `value` in the engine unit of `kind`; a bare number is taken in that unit.
+
+    The unit must be of the kind's own dimension; the one exception is a mass read as its weight
+    for forces, weights per area or volume and moments (lb, kg, t, lb/ft^3...)."""
     unit, kind_word = KINDS[kind]
     if isinstance(value, bool):
         raise UnitError(f"expected {kind_word}, got {value!r}")
     if isinstance(value, (int, float)):
-        number = float(value)
+        try:
+            number = float(value)
+        except OverflowError:  # an integer of hundreds of digits
+            raise UnitError(f"{shown(value)} is too large a number for {kind_word}") from None
     elif isinstance(value, str):
         number = _parse_text(value, unit, kind_word)
     else:
         raise UnitError(f"expected {kind_word} as a number or text like '12 {unit}', "
-                        f"got {value!r}")
+                        f"got {shown(value)}")
     if not math.isfinite(number):  # nan and inf: TOML and pint both read them
-        raise UnitError(f"expected {kind_word} as a finite number, got {value!r}")
+        raise UnitError(f"expected {kind_word} as a finite number, got {shown(value)}")
     return number
 
 

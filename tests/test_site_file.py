@@ -185,6 +185,7 @@ def test_save_keeps_the_previous_version_as_bak(helpers, write_site):
 def test_save_to_a_new_path_makes_no_backup(helpers, write_site, tmp_path):
     site_file = scenario.load(write_site(helpers.site_toml))
     target = tmp_path / "copy" / "new.toml"
+    target.parent.mkdir()  # a missing folder is never created (test_robustness)
     assert site_file.save(target) == target
     assert target.read_text(encoding="utf-8") == helpers.site_toml
     assert not target.with_name("new.toml.bak").exists()

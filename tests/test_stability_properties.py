@@ -82,7 +82,7 @@ def gross_area(ws: list[dict]) -> np.ndarray:
 
 
 @PROPERTY
-@given(wall_lists, speeds, st.floats(1.01, 3.0), st.sampled_from("BCD"))
+@given(wall_lists, speeds, st.floats(1.01, 1.5), st.sampled_from("BCD"))  # k v <= 300 mph, the speed range (method notes §9)
 def test_wind_force_grows_with_v_squared(ws, v, k, exposure):
     slow = design_wind(site_of(ws, wind=v, exposure=exposure))
     fast = design_wind(site_of(ws, wind=k * v, exposure=exposure))

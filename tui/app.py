@@ -14,6 +14,7 @@ from dataclasses import replace
 from pathlib import Path
 from typing import ClassVar
 
+from rich.markup import escape
 from textual import on, work
 from textual.app import App, ComposeResult
 from textual.binding import Binding
@@ -307,13 +308,16 @@ class BracingApp(App[int]):
         value = typed(event.text, spec.kind) if event.text.strip() else REMOVE
         try:
             changed = self.site_file.with_value(spec.keys, value)
-        except SiteFileError as exc:
-            self.errors = {spec.field_id: problems_text(exc)}
+        except SiteFileError as exc:  # shown as plain text: typed "[/]" is not markup
+            self.errors = {spec.field_id: escape(problems_text(exc))}
             return
         self.undo_stack.append(self.site_file)
         self.redo_stack.clear()
         self._install(changed)
-        sooner = quick(self.result, changed, spec.keys)
+        try:
+            sooner = quick(self.result, changed, spec.keys)
+        except Exception:  # noqa: BLE001 - the whole site's evaluation reports the failure
+            sooner = None
         if sooner is not None:
             self.result = sooner  # the whole site's result replaces it when it is ready
 
@@ -354,7 +358,7 @@ class BracingApp(App[int]):
             return
         self.busy = False
         self.notify(f"The engine could not check this input ({exc}); the last valid state is "
-                    "kept.", severity="error", timeout=10)
+                    "kept.", severity="error", timeout=10, markup=False)
         if self.undo_stack:
             self.site_file = self.undo_stack.pop()
             self.dirty = bool(self.site_file.edits) or self.site_file.text is not self.saved_text
@@ -381,7 +385,8 @@ class BracingApp(App[int]):
 
     def action_save_as(self) -> None:
         default = "my-site.toml" if self.demo else str(self.site_file.path)
-        self.push_screen(SaveAs(default), self._save_as_chosen)
+        forecast = scenario.inputs_of(self.site_file.path)[1:]  # never over the forecast
+        self.push_screen(SaveAs(default, forecast), self._save_as_chosen)
 
     def _save_as_chosen(self, path: str | None) -> None:
         if path is None:
@@ -391,18 +396,19 @@ class BracingApp(App[int]):
             self.exit(0)
 
     def save_to(self, path: Path | None) -> bool:
-        """Save atomically (the old file kept as .bak); say so, or say why not."""
+        """Save atomically (the old file kept as .bak); say so, or say why not. A failed save
+        changes nothing: the file on disk stays whole and the edits stay unsaved here."""
         try:
             target = self.site_file.save(path)
-        except OSError as exc:
-            self.notify(f"Not saved: {exc}", severity="error", timeout=10)
+        except Exception as exc:  # noqa: BLE001 - an edit must never be lost to a failed save
+            self.notify(f"Not saved: {exc}", severity="error", timeout=10, markup=False)
             self.quit_after_save = False
             return False
         self.saved_text = self.site_file.text
         self.demo = False
         self.dirty = False
         self.file_name = self._file_label(self.site_file)
-        self.notify(f"Saved {target}")
+        self.notify(f"Saved {target}", markup=False)
         return True
 
     def action_export(self) -> None:
@@ -425,13 +431,14 @@ class BracingApp(App[int]):
                         severity="error", timeout=10)
             return
         try:
+            scenario.check_output(request.path, scenario.inputs_of(self.site_file.path))
             text = schedule.render(self.site_file.site, self.result, request.day, request.fmt,
                                    self.units)
             scenario.atomic_write(Path(request.path), text)
-        except (ValueError, OSError) as exc:
-            self.notify(f"Not exported: {exc}", severity="error", timeout=10)
+        except (ValueError, OSError) as exc:  # WriteRefused says why (an input, a folder...)
+            self.notify(f"Not exported: {exc}", severity="error", timeout=10, markup=False)
             return
-        self.notify(f"Wrote {request.path}")
+        self.notify(f"Wrote {request.path}", markup=False)
 
     def action_quit(self) -> None:
         if not self.dirty:

@@ -3,8 +3,10 @@
 from __future__ import annotations
 
 from dataclasses import dataclass
+from pathlib import Path
 from typing import ClassVar
 
+from rich.text import Text
 from textual import on
 from textual.app import ComposeResult
 from textual.binding import Binding
@@ -12,6 +14,7 @@ from textual.containers import Horizontal, Vertical
 from textual.screen import ModalScreen
 from textual.widgets import Button, Input, Label, RadioButton, RadioSet, Select, Static
 
+from bracing import scenario
 from tui.views import Choice
 
 FORMATS = (("html", "HTML (print it)"), ("csv", "CSV (a spreadsheet)"), ("text", "plain text"))
@@ -44,9 +47,11 @@ class SaveAs(ModalScreen[str | None]):
 
     BINDINGS: ClassVar[list[Binding]] = [Binding("escape", "dismiss(None)", "Cancel")]
 
-    def __init__(self, path: str):
+    def __init__(self, path: str, forbidden: list[Path] = ()):
+        """`forbidden`: files the site must never be saved over (its forecast)."""
         super().__init__()
         self.path = path
+        self.forbidden = list(forbidden)
 
     def compose(self) -> ComposeResult:
         with Vertical(classes="dialog"):
@@ -64,8 +69,12 @@ class SaveAs(ModalScreen[str | None]):
     @on(Button.Pressed, "#save")
     def _save(self) -> None:
         path = self.query_one(Input).value.strip()
-        if not path:
-            self.query_one("#save-error", Static).update("✗ give a file name")
+        try:  # before anything is written: a folder, a device, a missing folder, the forecast
+            if not path:
+                raise scenario.WriteRefused("give a file name")
+            scenario.check_output(path, self.forbidden)
+        except OSError as exc:
+            self.query_one("#save-error", Static).update(Text(f"✗ {exc.strerror or exc}"))
             return
         self.dismiss(path)
 
