@@ -560,6 +560,7 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
             by_day = plan.day_findings(found, days)
             for d in days:  # crossings and zone overlaps depend on the walls standing together
                 d.flags.extend(f for f in by_day[d.day] if f.code not in ANCHOR_FINDINGS)
+                schedule.judge(d, by_mark)  # the day's verdict with these findings in
         else:
             geometry = plan.plan_geometry(site)
     return SiteResult(
@@ -1051,9 +1052,9 @@ class _Results:
                           _whole_mph(e.braced_stand_down[rows])))
         # one flag for the walls whose speeds read the same
         said = {(missing, stand_down): Flag(
-            "no-margin", "warning", f"with one brace struck, the wall's limit falls to {missing} "
+            "no-margin", "notice", f"with one brace struck, the wall's limit falls to {missing} "
             f"mph, below the stand-down gust {stand_down} mph",
-            "design.md §6 robustness (team rule)") for missing, stand_down in set(speeds)}
+            "method notes §4, robustness") for missing, stand_down in set(speeds)}
         _add(flags, wall[rows], list(map(said.__getitem__, speeds)))
         rows = np.flatnonzero(notes & SLENDER)
         _add(flags, wall[rows], [Flag("slender-brace", "danger", f"brace slenderness "
@@ -1093,14 +1094,14 @@ FIXED_FLAGS = {f.code: f for f in (
     Flag("open-framing", "notice", "unsheathed framing checked as an open wall",
          "ASCE 7-16 §29.3"),
     Flag("braces-lift-wall", "danger", "the braces in compression lift the wall off its base",
-         "statics, design.md §6"),
+         "statics, method notes §4"),
     Flag("unequal-sharing", "notice",
          "3 or more braces share unevenly through slop unless pre-tensioned", "common practice"),
-    Flag("no-margin", "warning", "if one of its two braces is struck, nothing but friction at "
+    Flag("no-margin", "notice", "if one of its two braces is struck, nothing but friction at "
          "the base holds the wall against twist (none is credited): keep equipment clear of the "
-         "braces", "design.md §6 robustness"),
+         "braces", "method notes §4, robustness"),
     Flag("capacity-unknown", "warning", "a brace or anchor capacity is unknown (outside its "
-         "rated range?): no working-limit speed", "design.md §3"),
+         "rated range?): no working-limit speed", "method notes §5"),
 )}
 
 # What a wall's own flags need, worked out for every wall at once (`_Results._wall_notes`).

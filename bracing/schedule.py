@@ -48,17 +48,17 @@ import numpy as np
 
 from bracing import lines, plan, units
 from bracing.model import Bracing, Panel, SignOff, Site
-from bracing.results import DayResult, Flag, PanelResult
+from bracing.results import DayFinding, DayResult, Flag, PanelResult
 from bracing.scenario import SiteFileError
 from bracing.wind import asce37
 
 STORM_WORDS = {"yes": True, "true": True, "1": True, "no": False, "false": False, "0": False,
                "": False}
-STORM_SOURCE = "design.md §3, team rule"
+STORM_SOURCE = "method notes §6, Day verdict"
 PERIOD_SOURCE = "ASCE 37-14 Table 6.2-1"
 # The codes of the walls' schedule flags (each also on the day it happens).
 SCHEDULE_CODES = ("signoff-before-lift", "signoff-before-event", "no-signoff", "period-slip")
-RELEASE_SOURCE = "OSHA 29 CFR 1926.704(a); design.md §7"
+RELEASE_SOURCE = "OSHA 29 CFR 1926.704(a); method notes §6"
 
 
 @dataclass(frozen=True)
@@ -299,7 +299,99 @@ def whole_site(site: Site, panels: list[PanelResult]) -> DayResult:
                    np.ones(n, int), np.zeros(n, int), np.full(n, np.nan), [], no_flags, no_flags)
     result = {p.mark: p for p in panels}
     days, _, _ = _days(site, walls, [result[m] for m in walls.marks.tolist()], {}, 1)
-    return replace(days[0], day=0, lifts=[])
+    return judge(replace(days[0], day=0, lifts=[]), {p.mark: p for p in panels})
+
+
+# --- the day's verdict (method notes §6, Day verdict) -------------------------------------------
+MARGINAL = 0.9  # a forecast at or above 0.9 x the stand-down gust is marginal (method notes §6)
+VERDICT_SOURCE = "method notes §6, Day verdict"
+RESTATED = ("unsafe-standing", "needs-braces-standing")  # the verdict names these walls itself
+SEVERITY_RANK = {"danger": 0, "warning": 1, "notice": 2}
+
+
+def judge(d: DayResult, panels: dict[str, PanelResult]) -> DayResult:
+    """Sets the day's verdict on `d` (and returns it), once every finding of the day is in its
+    flags; `panels` by mark. The rule (method notes §6):
+
+    - a wall lifted or standing that day fails when `PanelResult.fails` or a danger finding of
+      the day names it; a danger of the day that names no wall (short of braces) fails the day;
+    - NO-GO when a wall already standing fails, the day fails, or the forecast gust reaches the
+      day's stand-down gust (a thunderstorm counts, a standing wall without a known stand-down
+      gust too);
+    - else GO WITH EXCEPTIONS when some of today's lifts fail: do not lift those;
+    - else GO when the forecast gust is below the stand-down gust; NO CALL without a forecast
+      or without a wall standing.
+
+    `go` is True for GO only, False for NO-GO and GO WITH EXCEPTIONS, None for NO CALL. Judging
+    a day again (after more findings) gives its verdict afresh. Findings are grouped: one per code, message and source, with the walls it holds for."""
+    standing = set(d.standing)
+    groups: dict[tuple, list[str]] = {}
+
+    def add(code, severity, message, source, mark=None):
+        marks = groups.setdefault((SEVERITY_RANK[severity], code, message, source), [])
+        if mark is not None and mark not in marks:
+            marks.append(mark)
+
+    for f in d.flags:
+        if f.code in RESTATED:
+            continue
+        head, _, rest = f.message.partition(": ")
+        if head in standing and rest:
+            add(f.code, f.severity, rest, f.source, head)
+        else:
+            add(f.code, f.severity, f.message, f.source)
+    for m in d.standing:
+        p = panels[m]
+        if p.status == "needs_braces":
+            add("needs-braces", "danger", STATUS_WORDS["needs_braces"], "the wall's checks", m)
+        for c in p.checks:
+            if not c.passes:
+                add("check-fails", "danger", f"{c.element} ({c.region}) over capacity "
+                    f"({c.combination})", c.source, m)
+        for f in p.flags:
+            if f.severity != "notice" and f.code not in SCHEDULE_CODES:
+                add(f.code, f.severity, f.message, f.source, m)
+    gust = d.forecast_gust_mph
+    struck = [m for m in d.standing if panels[m].braces and (d.storm or (
+        gust is not None and gust > (panels[m].braces.get("working_limit_one_missing_mph")
+                                     or 0.0)))]
+    for m in struck:  # design.md §6: information beside each wall, a warning on such a day
+        add("struck-brace", "warning", "today's forecast exceeds the wall's working limit with "
+            "one brace struck (shown beside it): keep equipment clear of the braces and replace "
+            "a struck brace before work goes on", "method notes §4, robustness", m)
+    found = [DayFinding(code, ("danger", "warning", "notice")[rank], message, source, marks)
+             for (rank, code, message, source), marks in sorted(
+                 groups.items(), key=lambda item: item[0][0])]
+    failing = {m for f in found if f.severity == "danger" for m in f.marks}
+    failing |= {m for m in d.standing if panels[m].fails}
+    d.why = [f for f in found if f.severity == "danger"]
+    d.findings = [f for f in found if f.severity != "danger"]
+    lifts = set(d.lifts)
+    d.do_not_lift = [m for m in d.lifts if m in failing]
+    d.failing_standing = [m for m in d.standing if m in failing and m not in lifts]
+    day_danger = [f for f in d.why if not f.marks]
+    wind_go = d.wind_go
+    parts = []
+    if d.failing_standing:
+        parts.append(f"{', '.join(d.failing_standing)} stand and fail: keep everyone out of "
+                     "their zones until they are made safe")
+    parts += [f.message for f in day_danger]
+    if d.do_not_lift:
+        parts.append(f"do not lift {', '.join(d.do_not_lift)}")
+    if d.failing_standing or day_danger or wind_go is False:
+        d.verdict = "NO-GO"
+    elif not standing:
+        d.verdict = "NO CALL"
+    elif wind_go is None:
+        d.verdict = "NO CALL"
+    else:
+        d.verdict = "GO WITH EXCEPTIONS" if d.do_not_lift else "GO"
+    d.go = {"GO": True, "NO CALL": None}.get(d.verdict, False)
+    d.reason = "; ".join(parts + [d.wind])
+    stand_down = d.stand_down_speed_mph
+    d.marginal = bool(wind_go and gust is not None and stand_down
+                      and gust >= MARGINAL * stand_down)
+    return d
 
 
 def _days(site: Site, walls: _Walls, results: list[PanelResult],
@@ -325,6 +417,7 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
             on_day.setdefault(d, []).append(f)
     lifted, released = _by_day(walls.marks, walls.lift), _by_day(walls.marks, walls.release)
     marks = walls.marks
+    by_mark = dict(zip(marks.tolist(), results))
     status = [r.status for r in results]
     failing = np.array([k for k, s in enumerate(status) if s in STATUS_WORDS], int)
     failing_flags = np.array(_status_flags(marks[failing].tolist(),
@@ -357,7 +450,7 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
         go, reason = _go(site, bool(anyone[n]), None if gov is None else results[gov],
                          gov is not None and bool(fresh[n, gov]),
                          marks[up & ~known[n]].tolist(), fc)
-        days.append(DayResult(
+        days.append(judge(DayResult(
             day=d, date=date_of(site, d),
             lifts=lifted.get(d, []), standing=marks[up].tolist(),
             braces_in_use=use_b, anchors_in_use=use_a, released=released.get(d, []),
@@ -365,8 +458,8 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
             working_limit_speed_mph=None if least_limit[n] == math.inf else least_limit[n],
             governing_wall=None if gov is None else marks[gov],
             forecast_gust_mph=fc.gust_mph if fc else None, storm=bool(fc and fc.storm),
-            go=go, reason=reason, short=short, flags=flags,
-            fresh_mortar=marks[young].tolist()))
+            go=go, reason=reason, wind=reason, wind_go=go, short=short, flags=flags,
+            fresh_mortar=marks[young].tolist()), by_mark))
     peak = {"braces": {t: int(c) for t, c in zip(braces[0], braces[1].max(axis=0))},
             "anchors": {t: int(c) for t, c in zip(anchors[0], anchors[1].max(axis=0))}}
     return days, peak, slips
