@@ -380,9 +380,7 @@ def judge(d: DayResult, panels: dict[str, PanelResult]) -> DayResult:
         parts.append(f"do not lift {', '.join(d.do_not_lift)}")
     if d.failing_standing or day_danger or wind_go is False:
         d.verdict = "NO-GO"
-    elif not standing:
-        d.verdict = "NO CALL"
-    elif wind_go is None:
+    elif not standing or wind_go is None:
         d.verdict = "NO CALL"
     else:
         d.verdict = "GO WITH EXCEPTIONS" if d.do_not_lift else "GO"
