@@ -1001,7 +1001,7 @@ class _Results:
                 anchor_flags.append(Flag(
                     "anchor-too-deep", "warning", f"post-installed anchor {foot_anchor}: "
                     f"h_ef {fa.embedment:g} in is more than the {fa.slab_thickness:g} in slab "
-                    "allows", "ACI 318-19 §17.9.4 (from memory)"))
+                    "allows", "ACI 318-19 §17.9.4 (unconfirmed value: confirm in ACI 318-19)"))
             if fa is not None and fa.kind == "deadman" and fa.length is None:
                 anchor_flags.append(Flag(
                     "deadman-tipping-unchecked", "warning", f"deadman {foot_anchor}: its "
@@ -1090,7 +1090,7 @@ FIXED_FLAGS = {f.code: f for f in (
          "openings given by area only: resultant kept at 0.55 h", "ASCE 7-16 Figure 29.3-1"),
     Flag("fresh-mortar", "notice",
          "mortar not yet cured: stability by weight only, no flexural tension",
-         "TMS 402-16 §8.2 (from memory)"),
+         "TMS 402-16 §8.2 (unconfirmed value: confirm in TMS 402-16)"),
     Flag("open-framing", "notice", "unsheathed framing checked as an open wall",
          "ASCE 7-16 §29.3"),
     Flag("braces-lift-wall", "danger", "the braces in compression lift the wall off its base",
@@ -1159,9 +1159,11 @@ def _add(flags: list[list[Flag]], walls: np.ndarray, made: list[Flag] | Flag):
 # another wall built in place.
 UNBRACED_SOURCES = {
     "rigid": {},
-    "masonry": {"overturning": "TMS 402-16 §8.2 flexural tension (from memory), or W t/2 if "
+    "masonry": {"overturning": "TMS 402-16 §8.2 flexural tension (unconfirmed value: confirm in TMS "
+                "402-16), or W t/2 if "
                                "larger",
-                "sliding at base": "TMS 402-16 §8.2.6.2 bed-joint shear (from memory), or "
+                "sliding at base": "TMS 402-16 §8.2.6.2 bed-joint shear (unconfirmed value: "
+                "confirm in TMS 402-16), or "
                                    "friction if larger"},
     "fresh": {"overturning": "statics, W t/2 about the bed joint (fresh mortar: weight only)",
               "sliding at base": "friction, mu 0.6 (fresh mortar: no bond)"},

@@ -32,12 +32,15 @@ GROUND_KINDS = ("helical", "deadman", "stake")
 
 # A brace or its foot inside an area of each kind ('work' areas are not kept clear of braces).
 BRACE_IN_AREA = {"keep_clear": "danger", "crane_path": "danger", "public_way": "danger",
-                 "neighbour": "danger", "office": "warning"}
+                 "neighbor": "danger", "office": "warning"}
 # A zone over an area of each kind (design.md §7: occupied areas, the public way, neighbours).
-ZONE_OVER_AREA = {"public_way": "danger", "neighbour": "danger", "office": "warning",
+# OSHA 29 CFR 1926.706(a): a masonry wall's limited access zone, the regulation's own term
+LIMITED_ACCESS = ("limited access zone: only those building the wall may enter while it stands, "
+                  "nobody at the stand-down speed")
+ZONE_OVER_AREA = {"public_way": "danger", "neighbor": "danger", "office": "warning",
                   "work": "warning", "crane_path": "warning", "keep_clear": "notice"}
 AREA_WORDS = {"keep_clear": "keep-clear area", "crane_path": "crane path",
-              "public_way": "public way", "neighbour": "neighbour", "office": "site office",
+              "public_way": "public way", "neighbor": "neighbor", "office": "site office",
               "work": "work area"}
 
 Point = tuple[float, float]
@@ -481,7 +484,8 @@ def edge_distance_needed_in(site: Site, anchor: str) -> tuple[float, str]:
         return a.edge_distance, f"type '{anchor}'"
     # ACI 318-19 §17.9.2: without the product's c_min, 6 d_a, the least of Table 17.9.2(a)
     # (from memory).
-    return 6.0 * a.diameter, f"6 d_a for type '{anchor}' (no edge distance given; from memory)"
+    return 6.0 * a.diameter, (f"6 d_a for type '{anchor}' (no edge distance given; unconfirmed "
+                              "value: confirm in ACI 318-19 §17.9.2)")
 
 
 # --- zones --------------------------------------------------------------------------------------
@@ -620,7 +624,7 @@ def _slab_anchor_findings(site: Site, t: _Braces, slab_feet: _SlabFeet) -> list[
     if slab is None:
         return [PlanFinding(m, Flag(
             "anchor-not-located", "notice", "the plan has no slab outline: the slab anchors' "
-            "positions and edge distances are not checked", "design.md §7"), [])
+            "positions and edge distances are not checked", "method notes §6"), [])
             for m in dict.fromkeys(marks)]
     feet, on, which = t.foot[sel], slab_feet.on, slab_feet.edge
     in_hole = _covered(slab.holes, feet) if not slab.holes.is_empty else np.zeros_like(on)
@@ -638,7 +642,7 @@ def _slab_anchor_findings(site: Site, t: _Braces, slab_feet: _SlabFeet) -> list[
         found.append(PlanFinding(mark, Flag(
             "anchor-off-slab", "danger", f"slab anchor at {_numbers(t, sel[rows])} {where}, "
             f"as at {_xy(feet[rows[0]])}: no concrete to hold it",
-            "ACI 318-19 Ch. 17 (an anchor in concrete); design.md §7"),
+            "ACI 318-19 Ch. 17 (an anchor in concrete); method notes §6"),
             [tuple(p) for p in feet[rows]]))
     for mark, rows in _by_mark(marks, on & (dist_in < need_in - TOLERANCE_FT)).items():
         k = rows[np.argmin(dist_in[rows])]
@@ -666,7 +670,7 @@ def _ground_anchor_findings(site: Site, t: _Braces, slab: _Slab | None) -> list[
     drawn = (ground is not None) | (deadman & (slab is not None))
     found = [PlanFinding(mark, Flag(
         "anchor-not-located", "notice", f"the plan has no open ground: the {kinds[rows[0]]} "
-        "anchors' positions are not checked", "design.md §7"), [])
+        "anchors' positions are not checked", "method notes §6"), [])
         for mark, rows in _by_mark(marks, ~drawn).items()]
     for mark, rows in _by_mark(marks, drawn & ~(on_ground | (deadman & on_slab))).items():
         kind = kinds[rows[0]]
@@ -674,7 +678,7 @@ def _ground_anchor_findings(site: Site, t: _Braces, slab: _Slab | None) -> list[
         found.append(PlanFinding(mark, Flag(
             "ground-anchor-off-ground", "danger", f"{kind} anchor at {_numbers(t, sel[rows])} "
             f"not {where}, as at {_xy(feet[rows[0]])}",
-            "design.md §7 (ground anchors go in open ground)"), [tuple(p) for p in feet[rows]]))
+            "method notes §6 (ground anchors go in open ground)"), [tuple(p) for p in feet[rows]]))
     return found
 
 
@@ -758,7 +762,7 @@ def _brace_crossings(t: _Braces, reach: _Reach) -> list[PlanFinding]:
                 "braces-cross", "danger", f"brace {t.number[me]} crosses brace "
                 f"{t.number[other]} of {t.mark[other]} at {_xy(xy)}, {h_me:.1f} ft and "
                 f"{h_other:.1f} ft above the slab there: one cannot be set as drawn",
-                "common practice (design.md §7)"), [xy], (str(t.mark[other]),)))
+                "common practice (method notes §6)"), [xy], (str(t.mark[other]),)))
     return found
 
 
@@ -776,7 +780,7 @@ def _braces_through_walls(t: _Braces, places: Places, reach: _Reach) -> list[Pla
         wall = places.mark[k]
         found.append(PlanFinding(t.mark[i], Flag(
             "brace-crosses-wall", "danger", f"brace {t.number[i]} runs through wall "
-            f"{wall} at {_xy((pt.x, pt.y))}", "design.md §7"), [(pt.x, pt.y)], (str(wall),)))
+            f"{wall} at {_xy((pt.x, pt.y))}", "method notes §6"), [(pt.x, pt.y)], (str(wall),)))
     return found
 
 
@@ -800,7 +804,7 @@ def _braces_in_areas(site: Site, t: _Braces, reach: _Reach) -> list[PlanFinding]
                for r in mine]
         found.append(PlanFinding(mark, Flag(
             "brace-crosses-keep-clear", BRACE_IN_AREA[a.kind], f"{_numbers(t, rows[mine])} "
-            f"enters the {AREA_WORDS[a.kind]} '{a.name}'", "site plan areas (design.md §7)"),
+            f"enters the {AREA_WORDS[a.kind]} '{a.name}'", "site plan areas (method notes §6)"),
             [(p.x, p.y) for p in pts]))
     return found
 
@@ -830,10 +834,12 @@ def _zone_overlaps(site: Site, places: Places, rows: np.ndarray,
         code = "zone-overlaps-crane-path" if area.kind == "crane_path" else "zone-overlap"
         pt = shapely.point_on_surface(part)
         found.append(PlanFinding(mark, Flag(
-            code, ZONE_OVER_AREA[area.kind], f"the wall's zone overlaps the "
-            f"{AREA_WORDS[area.kind]} '{area.name}' by {a_ft2:.0f} ft²: authorised workers "
-            "only while the wall stands, nobody at the stand-down speed or during lifts",
-            masonry_source if masonry else "common practice (design.md §7)"), [(pt.x, pt.y)]))
+            code, ZONE_OVER_AREA[area.kind], f"the wall's {'limited access ' if masonry else ''}"
+            f"zone overlaps the "
+            f"{AREA_WORDS[area.kind]} '{area.name}' by {a_ft2:.0f} ft²: " + (
+                LIMITED_ACCESS if masonry else "authorized workers only while the wall "
+                "stands, nobody at the stand-down speed or during lifts"),
+            masonry_source if masonry else "common practice (method notes §6)"), [(pt.x, pt.y)]))
     return found
 
 

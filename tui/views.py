@@ -490,7 +490,8 @@ class DayPicker(Horizontal):
         options = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day) for d in days]
         self.query_one(Choice).offer(options, self.day)
         d = next((d for d in days if d.day == self.day), None)
-        self.query_one(".day-verdict", Static).update(verdict_text(d) if d else "")
+        units = getattr(self.parent, "units", "us")
+        self.query_one(".day-verdict", Static).update(verdict_text(d, units) if d else "")
 
     @on(Select.Changed)
     def _picked(self, event: Select.Changed) -> None:
@@ -504,13 +505,17 @@ VERDICT_LOOK = {"GO": ("✓", "bold green"), "GO WITH EXCEPTIONS": ("▲", "bold
 
 
 def verdict_text(d, units: str = "us") -> Text:
-    """The day's verdict first (the engine's), a symbol and words: the walls not to lift and
-    why, the two thresholds as actions, a marginal day."""
+    """The day's verdict (the engine's) in a symbol and words, with the walls not to lift."""
     symbol, style = VERDICT_LOOK[d.verdict]
-    out = Text(f"{symbol} {localize(headline(d), units)}\n", style=style)
-    out.append_text(grouped_lines(d.why, units))
+    return Text(f"{symbol} {localize(headline(d), units)}", style=style)
+
+
+def verdict_details(d, units: str) -> Text:
+    """Why the verdict: the findings that make walls fail, then the two thresholds as actions
+    and a marginal day."""
+    out = grouped_lines(d.why, units)
     for line in actions(d, units):
-        out.append(f"  {line}\n", style="bold" if line.startswith("MARGINAL") else "")
+        out.append(f"{line}\n", style="bold" if line.startswith(("MARGINAL", "At")) else "")
     return out
 
 
@@ -582,7 +587,7 @@ class DayView(RedrawsForTheDay, Vertical):
             self.query_one("#day-flags", Static).update("")
             return
         units = self.units
-        out = verdict_text(d, units)
+        out = verdict_details(d, units)
         out.append(f"Day {d.day}" + (f", {d.date}" if d.date else "") + ": ", style="bold")
         forecast = ("no forecast gust" if d.forecast_gust_mph is None else
                     f"forecast gust {speed(d.forecast_gust_mph, units)}")

@@ -19,7 +19,7 @@ from markupsafe import Markup
 
 from bracing import schedule
 from bracing.model import Site
-from bracing.report.text import WIDTH, fmt, localize, wrap
+from bracing.report.text import SI_PRECISION, WIDTH, fmt, localize, wrap
 from bracing.results import DayResult, PanelResult, SiteResult
 from bracing.units import convert
 
@@ -313,7 +313,8 @@ def _row(site: Site, p: PanelResult, bracing, d: DayResult, zone: tuple, units: 
         anchor_distance=_number(b["anchor_distance_ft"], "ft", units, 1),
         length=_number(b["length_ft"], "ft", units, 2),
         angle=round(b["angle_deg"], 1),
-        torque="" if torque is None else _number(torque, "ft*lbf", units))
+        torque="" if torque is None else _number(torque, "ft*lbf", units),
+        struck=_number(b.get("working_limit_one_missing_mph"), "mph", units))
     return row
 
 
@@ -321,9 +322,11 @@ def _number(value: float | None, unit: str, units: str, digits: int = 0):
     """A plain number in the chosen units for a spreadsheet cell ('' when there is none)."""
     if value is None:
         return ""
-    shown, _ = convert(value, unit, units)
-    if units == "si":
-        digits = max(digits, 1 if unit == "mph" else 2)
+    shown, label = convert(value, unit, units)
+    if units == "si" and label in SI_PRECISION:
+        digits, step = SI_PRECISION[label]
+        if step:
+            shown = step * round(shown / step)
     return round(shown, digits) if digits else round(shown)
 
 
@@ -377,14 +380,16 @@ CSV_COLUMNS = (
     ("brace type", None), ("wall anchor", None), ("foot anchor", None),
     ("helical torque", "ft*lbf"), ("wall stand-down gust", "mph"),
     ("1-min sustained equivalent", "mph"), ("zone braced side", "ft"), ("zone behind", "ft"),
+    ("working limit with one brace struck", "mph"),
 )
 
 
 def csv_text(result: SiteResult, pages: list[Page], units: str) -> str:
-    """The caution on the first line, a header row, then one row per standing wall per day."""
+    """The header row first, one row per standing wall per day, then the caution in a last
+    row of its own that starts with '#' (a spreadsheet keeps the header; a reader of data can
+    skip it as a comment)."""
     out = io.StringIO()
     w = csv.writer(out)
-    w.writerow([result.caution])
     w.writerow([f"{name} ({unit if unit == 'deg' else _label(unit, units)})" if unit else name
                 for name, unit in CSV_COLUMNS])
     for page in pages:
@@ -392,13 +397,14 @@ def csv_text(result: SiteResult, pages: list[Page], units: str) -> str:
         for r in page.walls:
             n = r.numbers
             w.writerow([
-                d.day, d.date or "", page.go[1], _number(d.forecast_gust_mph, "mph", units),
+                d.day, d.date or "", d.verdict, _number(d.forecast_gust_mph, "mph", units),
                 _number(d.stand_down_speed_mph, "mph", units), r.mark,
                 f"{r.word} {r.symbol}".translate(ASCII), r.today, n.get("count", ""),
                 n.get("positions", ""), n.get("insert", ""), n.get("anchor_distance", ""),
                 n.get("length", ""), n.get("angle", ""), r.brace_type, r.wall_anchor,
                 r.foot_anchor, n.get("torque", ""), n["stand_down"], n["sustained"],
-                n["zone_front"], n["zone_back"]])
+                n["zone_front"], n["zone_back"], n.get("struck", "")])
+    w.writerow([f"# {result.caution}"])
     return out.getvalue()
 
 

@@ -26,7 +26,7 @@ AREA_STYLE = {
     "keep_clear": ("#6e6e6e", 45, "keep-clear area"),
     "crane_path": ("#c96a12", -45, "crane path"),
     "public_way": ("#b03a2e", 45, "public way"),
-    "neighbour": ("#6c3483", 90, "neighbour"),
+    "neighbor": ("#6c3483", 90, "neighbor"),
     "office": ("#2471a3", None, "site office"),
     "work": ("#1e8449", None, "work area"),
 }
@@ -373,7 +373,7 @@ def _legend_items(g) -> list[tuple[str, str]]:
               ("line", "wall line (tick: braced side)"), ("brace", "brace")]
     feet = dict.fromkeys(p.foot_kind for p in g.panels if p.braces)
     items += [(f"anchor:{k}", ANCHOR_WORDS.get(k, k)) for k in feet]
-    items += [("zone", "restricted zone (authorised workers only, nothing stored)"),
+    items += [("zone", "restricted zone (authorized workers only, nothing stored)"),
               ("evacuated", "evacuated zone (nobody: at the stand-down speed, during lifts)"),
               ("danger", "DANGER: failing item, numbered below"),
               ("warning", "warning, numbered below")]

@@ -28,6 +28,8 @@ def fmt(value: float | None, unit: str, system: str = "us", digits: int = 0) -> 
         digits, step = SI_PRECISION[label]
         if step:
             shown = step * round(shown / step)
+        elif 0 < abs(shown) < 1:  # a small value keeps two figures
+            digits = max(digits, 2)
     return f"{shown:,.{digits}f} {label}"
 
 
@@ -66,10 +68,13 @@ def _si_quantity(match: re.Match) -> str:
     return shown[0]
 
 
+_PER = re.compile(r"\bper (?:foot|ft)(?![A-Za-z0-9_²^])")
+
+
 def localize(text: str, system: str) -> str:
-    """`text` with its US quantities ("58 mph", "7.5 ft", "1,200 lb") in the chosen system;
-    unchanged for 'us'."""
-    return text if system != "si" else _QUANTITY.sub(_si_quantity, text)
+    """`text` with its US quantities ("58 mph", "7.5 ft", "1,200 lb", "per ft") in the chosen
+    system; unchanged for 'us'."""
+    return text if system != "si" else _PER.sub("per m", _QUANTITY.sub(_si_quantity, text))
 
 
 WIDTH = 100  # text outputs' columns: they print on letter and A4 portrait
@@ -92,11 +97,19 @@ def utilization_mark(u: float) -> str:
     return "FAIL x" if u > 1.0 else "ok"
 
 
+# a check per ft of wall: lb·ft per ft is a force (kN·m per m), lb per ft a line load
+PER_FOOT = {"ft*lbf": ("lbf", "kN·m/m"), "lbf": ("plf", "kN/m")}
+
+
 def check_line(c: Check, system: str) -> str:
     u = c.utilization
     unit = {"lb·ft": "ft*lbf", "lb": "lbf", "psf": "psf"}.get(c.unit, c.unit)
-    return (f"  {utilization_mark(u):6} {c.element} ({c.region}): "
-            f"{fmt(c.demand, unit, system)} / {fmt(c.capacity, unit, system)} = "
+    demand, capacity = fmt(c.demand, unit, system), fmt(c.capacity, unit, system)
+    if system == "si" and "per ft" in c.region and unit in PER_FOOT:  # per m of wall in SI
+        unit, label = PER_FOOT[unit]
+        demand, capacity = (fmt(v, unit, system).replace(convert(1.0, unit, system)[1], label)
+                            for v in (c.demand, c.capacity))
+    return (f"  {utilization_mark(u):6} {c.element} ({c.region}): {demand} / {capacity} = "
             f"{'inf' if math.isinf(u) else f'{u:.2f}'}  [{c.combination}; {c.source}]")
 
 
@@ -129,7 +142,7 @@ def panel_text(p: PanelResult, system: str = "us") -> list[str]:
     for f in p.flags_worst_first():
         lines.append(f"  {SYMBOL[f.severity]} {f.severity.upper()}: {f.message} [{f.source}]")
     lines += [check_line(c, system) for c in p.worst_first()]
-    return lines
+    return [localize(line, system) for line in lines]
 
 
 def brace_lines(b: dict, system: str) -> list[str]:
