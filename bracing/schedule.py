@@ -358,7 +358,7 @@ def judge(d: DayResult, panels: dict[str, PanelResult]) -> DayResult:
     for m in struck:  # design.md §6: information beside each wall, a warning on such a day
         add("struck-brace", "warning", "today's forecast exceeds the wall's working limit with "
             "one brace struck (shown beside it): keep equipment clear of the braces and replace "
-            "a struck brace before work goes on", "method notes §4, robustness", m)
+            "a struck brace before work goes on", VERDICT_SOURCE, m)
     found = [DayFinding(code, ("danger", "warning", "notice")[rank], message, source, marks)
              for (rank, code, message, source), marks in sorted(
                  groups.items(), key=lambda item: item[0][0])]

@@ -490,8 +490,7 @@ class DayPicker(Horizontal):
         options = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day) for d in days]
         self.query_one(Choice).offer(options, self.day)
         d = next((d for d in days if d.day == self.day), None)
-        units = getattr(self.parent, "units", "us")
-        self.query_one(".day-verdict", Static).update(verdict_text(d, units) if d else "")
+        self.query_one(".day-verdict", Static).update(verdict_badge(d) if d else "")
 
     @on(Select.Changed)
     def _picked(self, event: Select.Changed) -> None:
@@ -507,7 +506,18 @@ VERDICT_LOOK = {"GO": ("✓", "bold green"), "GO WITH EXCEPTIONS": ("▲", "bold
 def verdict_text(d, units: str = "us") -> Text:
     """The day's verdict (the engine's) in a symbol and words, with the walls not to lift."""
     symbol, style = VERDICT_LOOK[d.verdict]
-    return Text(f"{symbol} {localize(headline(d), units)}", style=style)
+    out = Text()
+    out.append(f"{symbol} {localize(headline(d), units)}", style=style)
+    return out
+
+
+def verdict_badge(d) -> Text:
+    """The verdict's word and symbol, beside the day picker (the walls it names are in the
+    view below)."""
+    symbol, style = VERDICT_LOOK[d.verdict]
+    out = Text()
+    out.append(f"{symbol} {d.verdict}", style=style)
+    return out
 
 
 def verdict_details(d, units: str) -> Text:
@@ -587,7 +597,10 @@ class DayView(RedrawsForTheDay, Vertical):
             self.query_one("#day-flags", Static).update("")
             return
         units = self.units
-        out = verdict_details(d, units)
+        out = Text()
+        out.append_text(verdict_text(d, units))
+        out.append("\n")
+        out.append_text(verdict_details(d, units))
         out.append(f"Day {d.day}" + (f", {d.date}" if d.date else "") + ": ", style="bold")
         forecast = ("no forecast gust" if d.forecast_gust_mph is None else
                     f"forecast gust {speed(d.forecast_gust_mph, units)}")
@@ -615,6 +628,7 @@ class DayView(RedrawsForTheDay, Vertical):
                               Text(f"✗ {short} short", style="bold red") if short
                               else Text("✓ enough", style="green"))
         self.query_one("#day-flags", Static).update(grouped_lines(d.findings, units))
+        self.query_one("#day-body").scroll_home(animate=False)  # the verdict in sight
 
 
 class PlanView(RedrawsForTheDay, Vertical):
