@@ -139,7 +139,8 @@ def build_parser() -> argparse.ArgumentParser:
 def _output_options(p: argparse.ArgumentParser) -> None:
     p.add_argument("--json", action="store_true", help="print one JSON object")
     p.add_argument("--units", choices=["us", "si"],
-                   help="text output units (default: the site's [site] units, else us)")
+                   help="text output units (default: the site's [site] units, else us); "
+                        "--json stays US with its documented keys")
 
 
 def panel_site(args) -> dict:

@@ -548,7 +548,8 @@ class Panel(Strict):
 
 
 class Site(Strict):
-    """A whole site file, validated."""
+    """A whole site file, validated. Keys and values use US spelling (an older British
+    spelling of a value, such as area kind 'neighbour', is read as its US alias)."""
 
     version: int = Field(SCHEMA_VERSION, description="Site file format version.")
     site: SiteInfo
