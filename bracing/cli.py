@@ -204,8 +204,10 @@ def run_panel(args) -> int:
     if args.json:
         print(json_view.dumps(json_view.panel_record(p, result.basis, result.caution)))
     else:
-        print("\n".join([result.caution, ""] + result.basis_statement + [""]
-                        + text.panel_text(p, args.units or "us") + ["", result.caution]))
+        units = args.units or "us"
+        lines = ([result.caution, ""] + result.basis_statement + [""]
+                 + text.panel_text(p, units) + ["", result.caution])
+        print("\n".join(text.wrap(text.localize(line, units)) for line in lines))
     return 0
 
 

@@ -211,10 +211,12 @@ def test_si_precision():
 
 
 def test_text_outputs_fold_to_100_columns(sites):
+    """Letter and A4 portrait take 100 columns of text; SI quantities are folded as shown."""
     for site, result in sites.values():
-        for form, out in outputs(site, result, "us"):
-            if form in ("check", "text"):
-                assert max(map(len, out.splitlines())) <= 100, form
+        for units in ("us", "si"):
+            for form, out in outputs(site, result, units):
+                if form in ("check", "text"):
+                    assert max(map(len, out.splitlines())) <= 100, (form, units)
 
 
 def test_no_output_names_a_development_file_or_says_from_memory(sites):

@@ -347,6 +347,10 @@ def _inventory(site: Site, d: DayResult) -> list[tuple[str, str, str, str, str]]
     return rows
 
 
+# a rule's unit, from the end of its name (shown with its value; SI by `localize`)
+RULE_UNITS = {"_mph": " mph", "_ft": " ft", "_psf": " psf", "_deg": " deg", "_days": " days"}
+
+
 def _rules(site: Site, walls: list[PanelResult]) -> list[tuple[str, str, str, str]]:
     """The site rules behind the day's speeds and zones: value, source and basis (§7)."""
     names = list(DAY_RULES)
@@ -355,7 +359,8 @@ def _rules(site: Site, walls: list[PanelResult]) -> list[tuple[str, str, str, st
     out = []
     for name in names:
         r = site.rule(name)
-        value = "off" if not r.enabled or r.value is None else f"{r.value:g}"
+        unit = next((u for suffix, u in RULE_UNITS.items() if name.endswith(suffix)), "")
+        value = "off" if not r.enabled or r.value is None else f"{r.value:g}{unit}"
         out.append((name, value, r.source, r.basis))
     return out
 
@@ -447,10 +452,10 @@ def plain_text(result: SiteResult, pages: list[Page], units: str = "us") -> str:
         lines += ["", "APPROVED BY THE QUALIFIED PERSON (fill in before work starts)"]
         lines += [f"  {label}: {'_' * 40}" for label in APPROVAL]
         lines += ["", result.caution]
-        out.append("\n".join(wrap(line) for line in lines))
+        out.append("\n".join(wrap(localize(line, units)) for line in lines))
         if page is not pages[-1]:
             out.append("=" * WIDTH)
-    return localize("\n".join(out) + "\n", units)
+    return "\n".join(out) + "\n"
 
 
 INSPECTION_BASIS = "common practice"

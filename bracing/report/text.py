@@ -74,7 +74,13 @@ _PER = re.compile(r"\bper (?:foot|ft)(?![A-Za-z0-9_²^])")
 def localize(text: str, system: str) -> str:
     """`text` with its US quantities ("58 mph", "7.5 ft", "1,200 lb", "per ft") in the chosen
     system; unchanged for 'us'."""
-    return text if system != "si" else _PER.sub("per m", _QUANTITY.sub(_si_quantity, text))
+    if system != "si":
+        return text
+    text = _PER.sub("per m", _QUANTITY.sub(_si_quantity, text))
+    return _SAID_TWICE.sub(r"\1", text)  # "115 mph (51.4 m/s)" reads "51.4 m/s" once
+
+
+_SAID_TWICE = re.compile(r"(\d[\d,.]* [^\s()]+) \(\1\)")
 
 
 WIDTH = 100  # text outputs' columns: they print on letter and A4 portrait
@@ -142,7 +148,7 @@ def panel_text(p: PanelResult, system: str = "us") -> list[str]:
     for f in p.flags_worst_first():
         lines.append(f"  {SYMBOL[f.severity]} {f.severity.upper()}: {f.message} [{f.source}]")
     lines += [check_line(c, system) for c in p.worst_first()]
-    return [localize(line, system) for line in lines]
+    return [wrap(localize(line, system)) for line in lines]
 
 
 def brace_lines(b: dict, system: str) -> list[str]:
@@ -206,7 +212,7 @@ def site_text(result: SiteResult, system: str = "us") -> str:
     for p in panels:
         lines += [""] + panel_text(p, system)
     lines += ["", result.caution]
-    return localize("\n".join(wrap(line) for line in lines), system)
+    return "\n".join(wrap(localize(line, system)) for line in lines)
 
 
 def site_verdict(result: SiteResult) -> str:
