@@ -507,7 +507,7 @@ def verdict_text(d, units: str = "us") -> Text:
     """The day's verdict (the engine's) in a symbol and words, with the walls not to lift."""
     symbol, style = VERDICT_LOOK[d.verdict]
     out = Text()
-    out.append(f"{symbol} {localize(headline(d), units)}", style=style)
+    out.append(f"{symbol} {headline(d, units)}", style=style)
     return out
 
 

@@ -160,7 +160,7 @@ def build_pages(site: Site, result: SiteResult, day: int | None, units: str,
             sustained=_sustained(result, d, units),
             working_limit=_speed(d.working_limit_speed_mph, units),
             lifts=d.lifts, releases=[_release(site, m, d.day) for m in d.released],
-            verdict=headline(d), why=grouped(d.why), actions=actions(d, units),
+            verdict=headline(d, units), why=grouped(d.why), actions=actions(d, units),
             flags=grouped(d.findings), walls=rows, lifted=[r for r in rows if r.today ==
                                                             "lifted today"],
             rows=[r for r in rows if r.braced],
@@ -216,7 +216,7 @@ def _release(site: Site, mark: str, day: int) -> str:
     return f"{mark} (signed off by {by}: braces off after the sign-off)" if by else mark
 
 
-def headline(d: DayResult) -> str:
+def headline(d: DayResult, units: str = "us") -> str:
     """The day's verdict in one line: the word, then the walls not to lift or that stand and
     fail, else the forecast against the stand-down gust (as the engine judged it)."""
     parts = []
@@ -228,18 +228,18 @@ def headline(d: DayResult) -> str:
     if not parts and any(not f.marks for f in d.why):
         parts.append(next(f.message for f in d.why if not f.marks))
     if not parts or d.wind_go is False:
-        parts.append(_wind_short(d))
-    return f"{d.verdict}: {'; '.join(parts)}"
+        parts.append(_wind_short(d, units))
+    return localize(f"{d.verdict}: {'; '.join(parts)}", units)
 
 
-def _wind_short(d: DayResult) -> str:
+def _wind_short(d: DayResult, units: str) -> str:
     if d.storm:
         return "thunderstorm forecast (counts as exceeding the stand-down gust)"
     if d.forecast_gust_mph is None or d.stand_down_speed_mph is None:
         return d.wind
     sign = "<" if d.wind_go else ">="
-    return (f"forecast gust {d.forecast_gust_mph:.0f} mph {sign} stand-down "
-            f"{d.stand_down_speed_mph:.0f} mph ({d.governing_wall})")
+    return (f"forecast gust {_speed(d.forecast_gust_mph, units)} {sign} stand-down "
+            f"{_speed(d.stand_down_speed_mph, units)} ({d.governing_wall})")
 
 
 def actions(d: DayResult, units: str) -> list[str]:
@@ -426,7 +426,6 @@ def plain_text(result: SiteResult, pages: list[Page], units: str = "us") -> str:
         lines += [f"  Forecast {page.forecast}; stand-down gust {page.stand_down}; working "
                   f"limit {page.working_limit}",
                   f"  Stand-down as sustained wind: {page.sustained or 'none'}",
-                  f"  Wind: {page.day.wind}",
                   "", result.caution, "", page.title,
                   *(f"  {s}" for s in result.basis_statement)]
         lines += ["", f"LIFTS TODAY ({len(page.lifted)})"]
