@@ -550,17 +550,18 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     for p in panels:  # a danger flag on a braced wall (an anchor off the slab...) is unsafe
         if p.status == "braced" and "danger" in map(severity, p.flags):
             p.status = "unsafe"
-    days, peak, wall_flags = schedule.build_days(site, panels, base_dir, releases)
+    days, peak, wall_flags = schedule.build_days(site, panels, base_dir, releases,
+                                                 judged=not places)
     for mark, flag in wall_flags:  # sign-off and period flags: the wall's checks stand as they are
         by_mark[mark].flags.append(flag)
     geometry = None
     if places:
         if days:
             geometry = plan.DayPlans(site, {d.day: d.standing for d in days})
-            by_day = plan.day_findings(found, days)
+            by_day, facts = plan.day_findings(found, days), schedule.wall_facts(by_mark)
             for d in days:  # crossings and zone overlaps depend on the walls standing together
                 d.flags.extend(f for f in by_day[d.day] if f.code not in ANCHOR_FINDINGS)
-                schedule.judge(d, by_mark)  # the day's verdict with these findings in
+                schedule.judge(d, by_mark, facts)  # the day's verdict with these findings in
         else:
             geometry = plan.plan_geometry(site)
     return SiteResult(
