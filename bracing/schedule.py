@@ -47,6 +47,7 @@ from pathlib import Path
 import numpy as np
 
 from bracing import lines, plan, units
+from bracing.braced import SERVICEABILITY
 from bracing.model import Bracing, Panel, SignOff, Site
 from bracing.results import DayFinding, DayResult, Flag, PanelResult
 from bracing.scenario import SiteFileError
@@ -348,11 +349,12 @@ def wall_facts(panels: dict[str, PanelResult]) -> WallFacts:
         if p.status == "needs_braces":
             rows.setdefault(NEEDS_BRACES, []).append(k)
         for c in p.checks if fails[k] else ():  # why it fails (PanelResult.fails decides)
-            if not c.passes:
+            if not c.passes and c.element not in SERVICEABILITY:  # a crack: its warning says
                 rows.setdefault((0, "check-fails", f"{c.element} ({c.region}) over capacity "
                                  f"({c.combination})", c.source), []).append(k)
-        for f in p.flags:
-            if f.severity != "notice" and f.code not in SCHEDULE_CODES:
+        for f in p.flags:  # a danger "...-over" repeats a failing check: listed as that
+            if f.severity != "notice" and f.code not in SCHEDULE_CODES and not (
+                    f.severity == "danger" and f.code.endswith("-over") and fails[k]):
                 rows.setdefault((SEVERITY_RANK[f.severity], f.code, f.message, f.source),
                                 []).append(k)
     marks = np.array(list(panels), dtype=object)
