@@ -64,6 +64,11 @@ def test_townhouse_day_2_says_first_which_walls_not_to_lift(sites):
     day_line = next(line for line in text.site_text(result).splitlines()
                     if line.startswith("  day 2 "))
     assert "GO WITH EXCEPTIONS (do not lift L1-F11, L1-F12)" in day_line
+    assert "License number" in html and "Daily inspection (common practice)" in html
+    assert "foot anchor stake: set and tight" in html  # the anchor to check at each brace
+    day2 = json.loads(json_view.dumps(json_view.site_record(result)))["days"][1]
+    assert (day2["verdict"], day2["go"], day2["do_not_lift"]) == (
+        "GO WITH EXCEPTIONS", False, ["L1-F11", "L1-F12"])  # JSON keys added, none renamed
     for out in (sheet.render(site, result, 2, "text", "us"), SVG.sub("", html)):
         assert out.count("enters the keep-clear area &#39;Gas service" if "<html" in out else
                          "enters the keep-clear area 'Gas service") == 1
