@@ -284,3 +284,11 @@ def test_neighbour_is_read_as_neighbor():
 
     assert Area_(name="x", kind="neighbour", polygon=[(0, 0), (1, 0), (1, 1)]).kind == \
         "neighbor"
+
+
+def test_masonry_zones_use_the_regulations_term(sites):
+    """OSHA 29 CFR 1926.706(a) (text): a masonry wall's zone is a 'limited access zone'."""
+    site, result = sites["masonry-gym"]
+    d = next(d for d in result.days if d.standing)
+    out = sheet.render(site, result, d.day, "text", "us")
+    assert "limited access zone" in out

@@ -65,6 +65,7 @@ class Row:
     to_check: str = ""  # the torque or pin the crew checks at each brace
     struck: str = ""  # working limit with one brace struck (information, method notes §4)
     hold: bool = False  # a lift not to make today
+    zone_word: str = "zone"  # masonry: OSHA 1926.706(a)'s own term, "limited access zone"
     stand_down: str = ""
     sustained: str = ""
     zone_front: str = ""
@@ -280,7 +281,8 @@ def _row(site: Site, p: PanelResult, bracing, d: DayResult, zone: tuple, units: 
               braced=bool(p.braces), stand_down=_speed(stand_down, units),
               sustained=_speed(sustained.get("1-min"), units),
               zone_front=fmt(front, "ft", units, 1), zone_back=fmt(back, "ft", units, 1),
-              hold=p.mark in d.do_not_lift)
+              hold=p.mark in d.do_not_lift,
+              zone_word="limited access zone" if p.material == "masonry" else "zone")
     row.numbers = {"stand_down": _number(stand_down, "mph", units),
                    "sustained": _number(sustained.get("1-min"), "mph", units),
                    "zone_front": _number(front, "ft", units, 1),
@@ -487,5 +489,6 @@ def _wall_lines(r: Row, full: bool = True) -> list[str]:
     speeds = f"stand-down {r.stand_down} (1-min mean {r.sustained})"
     if r.braced:
         speeds += f"; one brace struck {r.struck}"
-    lines.append(f"      {speeds}; zone {r.zone_front} braced side, {r.zone_back} behind")
+    lines.append(f"      {speeds}; {r.zone_word} {r.zone_front} braced side, {r.zone_back} "
+                 "behind")
     return lines
