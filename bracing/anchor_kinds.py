@@ -78,7 +78,7 @@ def _slab_notes(fa, name):
         return []
     return [("anchor-too-deep", "warning", f"post-installed anchor {name}: h_ef "
              f"{fa.embedment:g} in is more than the {fa.slab_thickness:g} in slab allows",
-             "ACI 318-19 §17.9.4 (from memory)")]
+             "ACI 318-19 §17.9.4 (unconfirmed value: confirm in ACI 318-19)")]
 
 
 def _deadman_notes(fa, name):

@@ -219,11 +219,14 @@ def build_parser() -> argparse.ArgumentParser:
     schedule = commands.add_parser("schedule", help="print the crew's brace schedule")
     schedule.add_argument("site", help="site file (TOML)")
     schedule.add_argument("--day", type=int, help="one day (default: every day)")
-    schedule.add_argument("--format", choices=["html", "csv", "text"], default="html")
+    schedule.add_argument("--format", choices=["html", "csv", "text"],
+                          help="text (default on the terminal), csv, or html (with -o only; "
+                               "default for -o FILE.html)")
     schedule.add_argument("-o", "--output", help="file to write (default: print)")
     schedule.add_argument("--design", action="store_true",
                           help="lay out braces for walls that need them and have none")
-    schedule.add_argument("--units", choices=["us", "si"], default="us")
+    schedule.add_argument("--units", choices=["us", "si"],
+                          help="units of the output (default: the site's [site] units, else us)")
     schedule.set_defaults(run=run_schedule)
 
     plan = commands.add_parser("plan", help="draw the site plan of a day as SVG")
@@ -245,7 +248,9 @@ def build_parser() -> argparse.ArgumentParser:
 
 def _output_options(p: argparse.ArgumentParser) -> None:
     p.add_argument("--json", action="store_true", help="print one JSON object")
-    p.add_argument("--units", choices=["us", "si"], default="us", help="text output units")
+    p.add_argument("--units", choices=["us", "si"],
+                   help="text output units (default: the site's [site] units, else us); "
+                        "--json stays US with its documented keys")
 
 
 def panel_site(args) -> dict:
@@ -310,8 +315,10 @@ def run_panel(args) -> int:
     if args.json:
         print(json_view.dumps(json_view.panel_record(p, result.basis, result.caution)))
     else:
-        print("\n".join([result.caution, ""] + result.basis_statement + [""]
-                        + text.panel_text(p, args.units) + ["", result.caution]))
+        units = args.units or "us"
+        lines = ([result.caution, ""] + result.basis_statement + [""]
+                 + text.panel_text(p, units) + ["", result.caution])
+        print("\n".join(text.wrap(text.localize(line, units)) for line in lines))
     return EXIT_FAILS if p.fails else 0
 
 
@@ -343,6 +350,7 @@ def run_check(args) -> int:
         raise BadInput("choose one of --findings and --json")
     site_file = scenario.load(args.site)
     result = evaluate(site_file.site, design=args.design, base_dir=Path(args.site).parent)
+    units = args.units or site_file.site.site.units
     if args.json or args.findings:
         review = json_view.review_record(site_file.site, result, review_facts(args.site))
     if args.json:
@@ -351,9 +359,9 @@ def run_check(args) -> int:
         from bracing.report import findings
 
         render = findings.render_html if args.format == "html" else findings.render_text
-        out = render(result, review, args.units)
+        out = render(result, review, units)
     else:
-        out = text.site_text(result, args.units)
+        out = text.site_text(result, units)
     return _write(args.output, out) or verdict(result)
 
 
@@ -421,8 +429,14 @@ def run_schedule(args) -> int:
 
     site_file = scenario.load(args.site)
     result = evaluate(site_file.site, design=args.design, base_dir=Path(args.site).parent)
+    form = args.format or ("text" if not args.output else
+                           "csv" if args.output.lower().endswith(".csv") else
+                           "text" if args.output.lower().endswith(".txt") else "html")
+    if form == "html" and not args.output:
+        raise BadInput("--format html: the printed sheet is written to a file; give -o FILE.html")
     try:
-        text_out = schedule.render(site_file.site, result, args.day, args.format, args.units)
+        text_out = schedule.render(site_file.site, result, args.day, form,
+                                   args.units or site_file.site.site.units)
     except schedule.NoSuchDay as exc:
         raise BadInput(f"--day: {exc}") from None
     return _write(args.output, text_out) or verdict(result)

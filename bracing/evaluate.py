@@ -534,16 +534,18 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     for p in panels:  # a danger flag on a braced wall (an anchor off the slab...) is unsafe
         if p.status == "braced" and "danger" in map(severity, p.flags):
             p.status = "unsafe"
-    days, peak, wall_flags = schedule.build_days(site, panels, base_dir, releases)
+    days, peak, wall_flags = schedule.build_days(site, panels, base_dir, releases,
+                                                 judged=not places)
     for mark, flag in wall_flags:  # sign-off and period flags: the wall's checks stand as they are
         by_mark[mark].flags.append(flag)
     geometry = None
     if places:
         if days:
             geometry = plan.DayPlans(site, {d.day: d.standing for d in days})
-            by_day = plan.day_findings(found, days)
+            by_day, facts = plan.day_findings(found, days), schedule.wall_facts(by_mark)
             for d in days:  # crossings and zone overlaps depend on the walls standing together
                 d.flags.extend(f for f in by_day[d.day] if f.code not in ANCHOR_FINDINGS)
+                schedule.judge(d, by_mark, facts)  # the day's verdict with these findings in
         else:
             geometry = plan.plan_geometry(site)
     return SiteResult(
@@ -1135,9 +1137,9 @@ class _Results:
                           _whole_mph(e.braced_stand_down[rows])))
         # one flag for the walls whose speeds read the same
         said = {(missing, stand_down): Flag(
-            "no-margin", "warning", f"with one brace struck, the wall's limit falls to {missing} "
+            "no-margin", "notice", f"with one brace struck, the wall's limit falls to {missing} "
             f"mph, below the stand-down gust {stand_down} mph",
-            "design.md §6 robustness (team rule)") for missing, stand_down in set(speeds)}
+            "method notes §4, robustness") for missing, stand_down in set(speeds)}
         _add(flags, wall[rows], list(map(said.__getitem__, speeds)))
         rows = np.flatnonzero(notes & SLENDER)
         _add(flags, wall[rows], [Flag("slender-brace", "danger", f"brace slenderness "
@@ -1173,18 +1175,18 @@ FIXED_FLAGS = {f.code: f for f in (
          "openings given by area only: resultant kept at 0.55 h", "ASCE 7-16 Figure 29.3-1"),
     Flag("fresh-mortar", "notice",
          "mortar not yet cured: stability by weight only, no flexural tension",
-         "TMS 402-16 §8.2 (from memory)"),
+         "TMS 402-16 §8.2 (unconfirmed value: confirm in TMS 402-16)"),
     Flag("open-framing", "notice", "unsheathed framing checked as an open wall",
          "ASCE 7-16 §29.3"),
     Flag("braces-lift-wall", "danger", "the braces in compression lift the wall off its base",
-         "statics, design.md §6"),
+         "statics, method notes §4"),
     Flag("unequal-sharing", "notice",
          "3 or more braces share unevenly through slop unless pre-tensioned", "common practice"),
-    Flag("no-margin", "warning", "if one of its two braces is struck, nothing but friction at "
+    Flag("no-margin", "notice", "if one of its two braces is struck, nothing but friction at "
          "the base holds the wall against twist (none is credited): keep equipment clear of the "
-         "braces", "design.md §6 robustness"),
+         "braces", "method notes §4, robustness"),
     Flag("capacity-unknown", "warning", "a brace or anchor capacity is unknown (outside its "
-         "rated range?): no working-limit speed", "design.md §3"),
+         "rated range?): no working-limit speed", "method notes §5"),
 )}
 
 # What a wall's own flags need, worked out for every wall at once (`_Results._wall_notes`).
@@ -1242,9 +1244,11 @@ def _add(flags: list[list[Flag]], walls: np.ndarray, made: list[Flag] | Flag):
 # another wall built in place.
 UNBRACED_SOURCES = {
     "rigid": {},
-    "masonry": {"overturning": "TMS 402-16 §8.2 flexural tension (from memory), or W t/2 if "
+    "masonry": {"overturning": "TMS 402-16 §8.2 flexural tension (unconfirmed value: confirm in TMS "
+                "402-16), or W t/2 if "
                                "larger",
-                "sliding at base": "TMS 402-16 §8.2.6.2 bed-joint shear (from memory), or "
+                "sliding at base": "TMS 402-16 §8.2.6.2 bed-joint shear (unconfirmed value: "
+                "confirm in TMS 402-16), or "
                                    "friction if larger"},
     "fresh": {"overturning": "statics, W t/2 about the bed joint (fresh mortar: weight only)",
               "sliding at base": "friction, mu 0.6 (fresh mortar: no bond)"},

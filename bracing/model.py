@@ -175,9 +175,13 @@ def _rule(value, source, basis="", enabled=True) -> Rule:
     return Rule(value=value, source=source, basis=basis, enabled=enabled)
 
 
+# the masonry speeds' source: the masonry industry's published bracing standard
+MASONRY_STANDARD = ("Standard Practice for Bracing Masonry Walls Under Construction (the masonry "
+                    "industry's published bracing standard, 2012)")
+
 DEFAULT_RULES: dict[str, Rule] = {
     "minimum_design_pressure_psf": _rule(
-        16.0, "ASCE 7-16 §29.7 (from memory)",
+        16.0, "ASCE 7-16 §29.7 (unconfirmed value: confirm in ASCE 7-16 §29.7)",
         "strength level on the gross wall area; design wind only, never observed gusts"),
     "stand_down_ratio": _rule(
         0.8, "team judgment for forecast error and time to clear (not a published value)",
@@ -203,14 +207,15 @@ DEFAULT_RULES: dict[str, Rule] = {
         70.0, "California Title 8 §1715 (text)", "basis unverified; design speed floor",
         enabled=False),
     "masonry_initial_speed_mph": _rule(
-        20.0, "masonry industry standard practice (secondary)",
-        "initial period (fresh mortar): clear the restricted zone above this job-site gust, "
-        "1.0W, Kd 1.0"),
+        20.0, MASONRY_STANDARD + ", initial period rule (secondary)",
+        "initial period (fresh mortar, at most one working day): clear the limited access zone "
+        "above this job-site gust, 1.0W, Kd 1.0"),
     "masonry_intermediate_speed_mph": _rule(
-        35.0, "masonry industry standard practice (secondary)",
-        "intermediate period: clear the restricted zone above this job-site gust, 1.0W, Kd 1.0"),
+        35.0, MASONRY_STANDARD + ", intermediate period rule (secondary)",
+        "intermediate period: clear the limited access zone above this job-site gust, 1.0W, "
+        "Kd 1.0"),
     "masonry_bracing_design_speed_mph": _rule(
-        40.0, "masonry industry standard practice (secondary)",
+        40.0, MASONRY_STANDARD + ", intermediate period design rule (secondary)",
         "intermediate period bracing design gust, 1.0W, Kd 1.0", enabled=False),
 }
 
@@ -244,6 +249,8 @@ class SiteInfo(Strict):
     topographic_factor: float = Field(1.0, ge=1.0, le=3.0, description="Kzt, ASCE 7-16 §26.8.")
     ground_elevation: Length = Field(0.0, ge=-1000, le=20000, description="For Ke (ft).")
     design_basis: Literal["ASD", "LRFD"] = "ASD"
+    units: Literal["us", "si"] = Field("us", description="Units of every output of the site "
+                                       "(JSON stays US); the command line's --units wins.")
     risk_category: Literal["I", "II", "III", "IV"] = Field(
         "II", description="ASCE 37-14 treats a structure under construction as II (secondary).")
     period_factor: float | None = Field(
@@ -275,7 +282,8 @@ class Material(Strict):
     mortar: Literal["M/S", "N"] = Field("M/S", description="Masonry mortar type (TMS 402).")
     flexural_tension: Stress | None = Field(
         None, ge=0, description="Masonry allowable flexural tension normal to bed joints (psi); "
-                                "default from TMS 402-16 Table 8.2.4.2 (from memory).")
+                                "default from TMS 402-16 Table 8.2.4.2 (unconfirmed value: "
+                                "confirm in TMS 402-16 Table 8.2.4.2).")
     sheathed: bool = Field(True, description="Framed walls: sheathed (solid) or open studs.")
     sill_fastening: LinearForce | None = Field(
         None, gt=0, description="Framed walls: allowable uplift the sill's fastening to its base "
@@ -303,7 +311,7 @@ class Opening(Strict):
 class Footing(Strict):
     """A footing under a free-standing wall (overturning, sliding and bearing use it)."""
 
-    width: Length = Field(gt=0, le=100, description="Across the wall (ft), centred under it.")
+    width: Length = Field(gt=0, le=100, description="Across the wall (ft), centered under it.")
     thickness: Length = Field(gt=0, le=100, description="Depth of the footing (ft).")
     unit_weight: UnitWeight = Field(150.0, gt=0, description="pcf.")
     soil_depth: Length = Field(0.0, ge=0, description="Soil over the footing (ft).")
@@ -495,7 +503,7 @@ class Bracing(Strict):
     angle: Angle | None = Field(None, gt=0, lt=90, description="From horizontal (deg).")
     positions: list[Length] = Field(
         default_factory=list, description="From the wall's left edge (ft); default: the "
-                                          "centres of equal strips.")
+                                          "centers of equal strips.")
     insert_offset: Thickness = Field(0.0, ge=0, description="Brace pin out from the face (in).")
     foot_offset: Thickness = Field(0.0, ge=0, description="Foot pin above the slab (in).")
     base_below_slab: Length = Field(0.0, ge=0, description="Wall base below the slab the "
@@ -547,11 +555,18 @@ Coordinate = Annotated[float, Field(ge=-COORDINATE_LIMIT, le=COORDINATE_LIMIT)]
 Point = tuple[Coordinate, Coordinate]
 
 
+def _us_spelling(value):
+    """An area kind in US spelling ('neighbour' is read as 'neighbor')."""
+    return "neighbor" if value == "neighbour" else value
+
+
 class Area_(Strict):
-    """A named area of the plan: kept clear, a public way, a neighbour, an office, a work area."""
+    """A named area of the plan: kept clear, a public way, a neighbor, an office, a work area."""
 
     name: str = Field(min_length=1)
-    kind: Literal["keep_clear", "crane_path", "public_way", "neighbour", "office", "work"]
+    kind: Annotated[Literal["keep_clear", "crane_path", "public_way", "neighbor", "office",
+                            "work"], BeforeValidator(_us_spelling)] = Field(
+        description="US spelling; the older 'neighbour' is read as 'neighbor'.")
     polygon: list[Point] = Field(min_length=3, description="Corners in plan (ft).")
 
 
@@ -688,7 +703,8 @@ class Panel(Strict):
 
 
 class Site(Strict):
-    """A whole site file, validated."""
+    """A whole site file, validated. Keys and values use US spelling (an older British
+    spelling of a value, such as area kind 'neighbour', is read as its US alias)."""
 
     version: int = Field(SCHEMA_VERSION, ge=1, description="Site file format version.")
     site: SiteInfo

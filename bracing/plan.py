@@ -38,14 +38,15 @@ SLAB_KINDS = tuple(k for k, v in ANCHOR_KINDS.items() if v.stands_on == {"slab"}
 
 # A brace or its foot inside an area of each kind ('work' areas are not kept clear of braces).
 BRACE_IN_AREA = {"keep_clear": "danger", "crane_path": "danger", "public_way": "danger",
-                 "neighbour": "danger", "neighbor": "danger", "office": "warning"}
-# A zone over an area of each kind (design.md §7: occupied areas, the public way, neighbors).
-ZONE_OVER_AREA = {"public_way": "danger", "neighbour": "danger", "neighbor": "danger",
-                  "office": "warning",
+                 "neighbor": "danger", "office": "warning"}
+# A zone over an area of each kind (design.md §7: occupied areas, the public way, neighbours).
+# OSHA 29 CFR 1926.706(a): a masonry wall's limited access zone, the regulation's own term
+LIMITED_ACCESS = ("limited access zone: only those building the wall may enter while it stands, "
+                  "nobody at the stand-down speed")
+ZONE_OVER_AREA = {"public_way": "danger", "neighbor": "danger", "office": "warning",
                   "work": "warning", "crane_path": "warning", "keep_clear": "notice"}
 AREA_WORDS = {"keep_clear": "keep-clear area", "crane_path": "crane path",
-              "public_way": "public way", "neighbour": "neighbor", "neighbor": "neighbor",
-              "office": "site office",
+              "public_way": "public way", "neighbor": "neighbor", "office": "site office",
               "work": "work area"}
 
 Point = tuple[float, float]
@@ -552,7 +553,8 @@ def edge_distance_needed_in(site: Site, anchor: str) -> tuple[float, str]:
         return a.edge_distance, f"type '{anchor}'"
     # ACI 318-19 §17.9.2: without the product's c_min, 6 d_a, the least of Table 17.9.2(a)
     # (from memory).
-    return 6.0 * a.diameter, f"6 d_a for type '{anchor}' (no edge distance given; from memory)"
+    return 6.0 * a.diameter, (f"6 d_a for type '{anchor}' (no edge distance given; unconfirmed "
+                              "value: confirm in ACI 318-19 §17.9.2)")
 
 
 # --- zones --------------------------------------------------------------------------------------
@@ -887,7 +889,7 @@ def _braces_in_areas(site: Site, t: _Braces, reach: _Reach) -> list[PlanFinding]
                for r in mine]
         found.append(PlanFinding(mark, Flag(
             "brace-crosses-keep-clear", BRACE_IN_AREA[a.kind], f"{_numbers(t, rows[mine])} "
-            f"enters the {AREA_WORDS[a.kind]} '{a.name}'", "site plan areas (method notes §6)"),
+            f"{'enters' if len(mine) == 1 else 'enter'} the {AREA_WORDS[a.kind]} '{a.name}'", "site plan areas (method notes §6)"),
             [(p.x, p.y) for p in pts]))
     return found
 
@@ -917,9 +919,11 @@ def _zone_overlaps(site: Site, places: Places, rows: np.ndarray,
         code = "zone-overlaps-crane-path" if area.kind == "crane_path" else "zone-overlap"
         pt = shapely.point_on_surface(part)
         found.append(PlanFinding(mark, Flag(
-            code, ZONE_OVER_AREA[area.kind], f"the wall's zone overlaps the "
-            f"{AREA_WORDS[area.kind]} '{area.name}' by {a_ft2:.0f} ft²: authorized workers "
-            "only while the wall stands, nobody at the stand-down speed or during lifts",
+            code, ZONE_OVER_AREA[area.kind], f"the wall's {'limited access ' if masonry else ''}"
+            f"zone overlaps the "
+            f"{AREA_WORDS[area.kind]} '{area.name}' by {a_ft2:.0f} ft²: " + (
+                LIMITED_ACCESS if masonry else "authorized workers only while the wall "
+                "stands, nobody at the stand-down speed or during lifts"),
             masonry_source if masonry else "common practice (method notes §6)"), [(pt.x, pt.y)]))
     return found
 

@@ -158,6 +158,20 @@ class PanelResult:
 
 
 @dataclass(slots=True)
+class DayFinding:
+    """A finding of a day, listed once: the walls it holds for (none: the day's own)."""
+
+    code: str
+    severity: str
+    message: str
+    source: str
+    marks: list[str] = field(default_factory=list)
+
+
+VERDICTS = ("GO", "GO WITH EXCEPTIONS", "NO-GO", "NO CALL")  # method notes §6, Day verdict
+
+
+@dataclass(slots=True)
 class DayResult:
     """One day of the job: lifts, standing walls, inventory in use, the wind go / no-go."""
 
@@ -178,6 +192,15 @@ class DayResult:
     short: dict[str, dict[str, int]] = field(default_factory=dict)  # {"braces": {type: n}, ...}
     flags: list[Flag] = field(default_factory=list)
     fresh_mortar: list[str] = field(default_factory=list)  # masonry standing with fresh mortar
+    # the day's verdict (bracing.schedule.judge, method notes §6): `go` is True only for "GO"
+    verdict: str = "NO CALL"
+    wind: str = ""  # the forecast against the stand-down gust, in a sentence
+    wind_go: bool | None = None  # that comparison alone (None: no forecast or no wall standing)
+    marginal: bool = False  # forecast within 10 % of the stand-down gust
+    do_not_lift: list[str] = field(default_factory=list)  # today's lifts that fail
+    failing_standing: list[str] = field(default_factory=list)  # walls up before today that fail
+    why: list[DayFinding] = field(default_factory=list)  # what makes those walls fail, grouped
+    findings: list[DayFinding] = field(default_factory=list)  # the rest, grouped, worst first
 
 
 @dataclass(slots=True)

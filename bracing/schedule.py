@@ -39,7 +39,7 @@ from __future__ import annotations
 
 import csv
 import math
-from dataclasses import dataclass, replace
+from dataclasses import dataclass, field, replace
 from datetime import date, timedelta
 from operator import itemgetter
 from pathlib import Path
@@ -47,18 +47,19 @@ from pathlib import Path
 import numpy as np
 
 from bracing import lines, plan, units
+from bracing.braced import SERVICEABILITY
 from bracing.model import DAY_LIMIT, Bracing, Panel, SignOff, Site, within
-from bracing.results import DayResult, Flag, PanelResult
+from bracing.results import DayFinding, DayResult, Flag, PanelResult
 from bracing.scenario import SiteFileError, read_text
 from bracing.wind import asce37
 
 STORM_WORDS = {"yes": True, "true": True, "1": True, "no": False, "false": False, "0": False,
                "": False}
-STORM_SOURCE = "design.md §3, team rule"
+STORM_SOURCE = "method notes §6, Day verdict"
 PERIOD_SOURCE = "ASCE 37-14 Table 6.2-1"
 # The codes of the walls' schedule flags (each also on the day it happens).
 SCHEDULE_CODES = ("signoff-before-lift", "signoff-before-event", "no-signoff", "period-slip")
-RELEASE_SOURCE = "OSHA 29 CFR 1926.704(a); design.md §7"
+RELEASE_SOURCE = "OSHA 29 CFR 1926.704(a); method notes §6"
 
 
 @dataclass(frozen=True)
@@ -269,13 +270,14 @@ def _early_flag(signoff: SignOff, panel: Panel, events: dict[str, int]) -> Flag:
 
 
 def build_days(site: Site, panels: list[PanelResult], base_dir: str | Path | None = None,
-               releases: lines.Releases | None = None
+               releases: lines.Releases | None = None, judged: bool = True
                ) -> tuple[list[DayResult], dict, list[tuple[str, Flag]]]:
     """The job day by day, the peak inventory and each wall's schedule flags (see the module).
 
     `panels` are the wall results of `site` (any order, by mark); the forecast file is read from
     `base_dir` (the site file's folder; default the working folder); `releases` are the site's
-    `bracing.lines.releases` (read here when not given). Returns (days,
+    `bracing.lines.releases` (read here when not given); `judged`: give each day its verdict
+    (`judge`; a caller that adds findings to the days first judges them itself). Returns (days,
     {"braces": {type: peak}, "anchors": {type: peak}}, [(mark, flag)]).
     """
     walls = _walls(site, lines.releases(site) if releases is None else releases)
@@ -288,7 +290,7 @@ def build_days(site: Site, panels: list[PanelResult], base_dir: str | Path | Non
     if not walls.release.all():  # a wall stands on: forecast days still count
         last = max([last, *forecast])
     result, marks = {p.mark: p for p in panels}, walls.marks.tolist()
-    days, peak, slips = _days(site, walls, [result[m] for m in marks], forecast, last)
+    days, peak, slips = _days(site, walls, [result[m] for m in marks], forecast, last, judged)
     wall_flags = list(zip(walls.marks[walls.flag_wall].tolist(), walls.flags))
     wall_flags += [item for d in sorted(slips) for item in slips[d]]
     return days, peak, wall_flags
@@ -302,11 +304,153 @@ def whole_site(site: Site, panels: list[PanelResult]) -> DayResult:
                    np.ones(n, int), np.zeros(n, int), np.full(n, np.nan), [], no_flags, no_flags)
     result = {p.mark: p for p in panels}
     days, _, _ = _days(site, walls, [result[m] for m in walls.marks.tolist()], {}, 1)
-    return replace(days[0], day=0, lifts=[])
+    return judge(replace(days[0], day=0, lifts=[]), {p.mark: p for p in panels})
+
+
+# --- the day's verdict (method notes §6, Day verdict) -------------------------------------------
+MARGINAL = 0.9  # a forecast at or above 0.9 x the stand-down gust is marginal (method notes §6)
+VERDICT_SOURCE = "method notes §6, Day verdict"
+RESTATED = ("unsafe-standing", "needs-braces-standing")  # the verdict names these walls itself
+SEVERITY_RANK = {"danger": 0, "warning": 1, "notice": 2}
+
+
+@dataclass
+class WallFacts:
+    """What the verdicts read of each wall, worked once for all days (`wall_facts`); arrays
+    over the walls in the order of `marks`."""
+
+    marks: np.ndarray               # (object)
+    index: dict[str, int]           # mark: its row
+    keys: dict[tuple, np.ndarray]   # a finding (rank, code, message, source): rows it is on
+    fails: np.ndarray               # PanelResult.fails
+    struck: np.ndarray              # working limit with one brace struck (mph); NaN: no braces
+    seen: dict[tuple, tuple] = field(default_factory=dict)  # the last standing walls' answer
+
+    def standing(self, marks: list[str]) -> tuple[np.ndarray, list[tuple[tuple, list[str]]]]:
+        """A mask of the rows of `marks` and the findings of those walls with their marks
+        (kept for the next days while they stand the same walls)."""
+        key = tuple(marks)
+        if key not in self.seen:
+            up = np.zeros(len(self.marks), bool)
+            up[[self.index[m] for m in marks]] = True
+            found = []
+            for finding, rows in self.keys.items():
+                on = rows[up[rows]]
+                if len(on):
+                    found.append((finding, self.marks[on].tolist()))
+            self.seen = {key: (up, found)}  # consecutive days often stand the same walls
+        return self.seen[key]
+
+
+def wall_facts(panels: dict[str, PanelResult]) -> WallFacts:
+    """Each wall's findings for the days' verdicts (its failing checks, needing braces, its
+    danger and warning flags but those the days carry), whether it fails, and its working
+    limit with one brace struck."""
+    rows: dict[tuple, list[int]] = {}
+    fails = [p.fails for p in panels.values()]
+    for k, p in enumerate(panels.values()):
+        if p.status == "needs_braces":
+            rows.setdefault(NEEDS_BRACES, []).append(k)
+        for c in p.checks if fails[k] else ():  # why it fails (PanelResult.fails decides)
+            if not c.passes and c.element not in SERVICEABILITY:  # a crack: its warning says
+                rows.setdefault((0, "check-fails", f"{c.element} ({c.region}) over capacity "
+                                 f"({c.combination})", c.source), []).append(k)
+        for f in p.flags:  # a danger "...-over" repeats a failing check: listed as that
+            if f.severity != "notice" and f.code not in SCHEDULE_CODES and not (
+                    f.severity == "danger" and f.code.endswith("-over") and fails[k]):
+                rows.setdefault((SEVERITY_RANK[f.severity], f.code, f.message, f.source),
+                                []).append(k)
+    marks = np.array(list(panels), dtype=object)
+    return WallFacts(
+        marks, {m: k for k, m in enumerate(panels)},
+        {key: np.unique(np.array(r, int)) for key, r in rows.items()},
+        np.array(fails, bool),
+        np.array([(p.braces.get("working_limit_one_missing_mph") or 0.0) if p.braces
+                  else np.nan for p in panels.values()], float))
+
+
+NEEDS_BRACES = (0, "needs-braces", "cannot stand on its own and has no braces",
+                "the wall's checks")
+STRUCK = (1, "struck-brace", "today's forecast exceeds the wall's working limit with one brace "
+          "struck (shown beside it): keep equipment clear of the braces and replace a struck "
+          "brace before work goes on", VERDICT_SOURCE)
+
+
+def judge(d: DayResult, panels: dict[str, PanelResult], facts: WallFacts | None = None
+          ) -> DayResult:
+    """Sets the day's verdict on `d` (and returns it), once every finding of the day is in its
+    flags; `panels` by mark (`facts`: their `wall_facts`, worked here when not given). The rule
+    (method notes §6):
+
+    - a wall lifted or standing that day fails when `PanelResult.fails` or a danger finding of
+      the day names it; a danger of the day that names no wall (short of braces) fails the day;
+    - NO-GO when a wall already standing fails, the day fails, or the forecast gust reaches the
+      day's stand-down gust (a thunderstorm counts, a standing wall without a known stand-down
+      gust too);
+    - else GO WITH EXCEPTIONS when some of today's lifts fail: do not lift those;
+    - else GO when the forecast gust is below the stand-down gust; NO CALL without a forecast
+      or without a wall standing.
+
+    `go` is True for GO only, False for NO-GO and GO WITH EXCEPTIONS, None for NO CALL. Judging
+    a day again (after more findings) gives its verdict afresh. Findings are grouped: one per
+    code, message and source, with the walls it holds for (in site order)."""
+    facts = facts or wall_facts(panels)
+    up, found = facts.standing(d.standing)
+    of_day: dict[tuple, dict[str, None]] = {}  # the day's own findings, the walls they name
+    for f in d.flags:
+        if f.code in RESTATED:
+            continue
+        head, _, rest = f.message.partition(": ")
+        key = (SEVERITY_RANK[f.severity], f.code)
+        if rest and head in facts.index and up[facts.index[head]]:
+            of_day.setdefault(key + (rest, f.source), {})[head] = None
+        else:
+            of_day.setdefault(key + (f.message, f.source), {})
+    groups = {key: list(marks) for key, marks in of_day.items()}
+    for key, marks in found:  # the walls' own, worked once for the walls standing
+        groups[key] = list(dict.fromkeys(groups[key] + marks)) if key in groups else marks
+    gust = d.forecast_gust_mph
+    if d.storm or gust is not None:  # design.md §6: a warning on a day whose forecast exceeds it
+        with np.errstate(invalid="ignore"):
+            struck = up & ~np.isnan(facts.struck) & (d.storm or facts.struck < (gust or 0.0))
+        if struck.any():
+            groups[STRUCK] = facts.marks[struck].tolist()
+    # a finding's marks may be shared by the days that stand the same walls: never changed
+    found = [DayFinding(code, ("danger", "warning", "notice")[rank], message, source, marks)
+             for (rank, code, message, source), marks in sorted(
+                 groups.items(), key=lambda item: item[0][0])]
+    d.why = [f for f in found if f.severity == "danger"]
+    d.findings = [f for f in found if f.severity != "danger"]
+    failing = up & facts.fails  # a wall's own dangers make it fail; and those the day names:
+    failing[[facts.index[m] for key, marks in of_day.items() if key[0] == 0 for m in marks]] = True
+    lifts = set(d.lifts)
+    d.do_not_lift = [m for m in d.lifts if failing[facts.index[m]]]
+    d.failing_standing = [m for m in facts.marks[failing].tolist() if m not in lifts]
+    day_danger = [f for f in d.why if not f.marks]
+    wind_go = d.wind_go
+    parts = []
+    if d.failing_standing:
+        parts.append(f"{', '.join(d.failing_standing)} stand and fail: keep everyone out of "
+                     "their zones until they are made safe")
+    parts += [f.message for f in day_danger]
+    if d.do_not_lift:
+        parts.append(f"do not lift {', '.join(d.do_not_lift)}")
+    if d.failing_standing or day_danger or wind_go is False:
+        d.verdict = "NO-GO"
+    elif not d.standing or wind_go is None:
+        d.verdict = "NO CALL"
+    else:
+        d.verdict = "GO WITH EXCEPTIONS" if d.do_not_lift else "GO"
+    d.go = {"GO": True, "NO CALL": None}.get(d.verdict, False)
+    d.reason = "; ".join(parts + [d.wind])
+    stand_down = d.stand_down_speed_mph
+    d.marginal = bool(wind_go and gust is not None and stand_down
+                      and gust >= MARGINAL * stand_down)
+    return d
 
 
 def _days(site: Site, walls: _Walls, results: list[PanelResult],
-          forecast: dict[int, ForecastDay], last: int):
+          forecast: dict[int, ForecastDay], last: int, judged: bool = True):
     """Days 1 to `last` of the scheduled walls (`results` in their order): (days, peak
     inventory, period slips by day)."""
     day = np.arange(1, last + 1)[:, None]                                  # (days, 1)
@@ -328,6 +472,7 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
             on_day.setdefault(d, []).append(f)
     lifted, released = _by_day(walls.marks, walls.lift), _by_day(walls.marks, walls.release)
     marks = walls.marks
+    by_mark = dict(zip(marks.tolist(), results))
     status = [r.status for r in results]
     failing = np.array([k for k, s in enumerate(status) if s in STATUS_WORDS], int)
     failing_flags = np.array(_status_flags(marks[failing].tolist(),
@@ -342,6 +487,7 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
     least_limit = np.where(standing & np.isfinite(limit), limit, np.inf).min(axis=1).tolist()
     anyone = standing.any(axis=1)
 
+    facts = wall_facts(by_mark) if judged else None
     days = []
     for n in range(last):  # per day, numpy over the walls: a long job has many of both
         d = n + 1
@@ -368,8 +514,10 @@ def _days(site: Site, walls: _Walls, results: list[PanelResult],
             working_limit_speed_mph=None if least_limit[n] == math.inf else least_limit[n],
             governing_wall=None if gov is None else marks[gov],
             forecast_gust_mph=fc.gust_mph if fc else None, storm=bool(fc and fc.storm),
-            go=go, reason=reason, short=short, flags=flags,
+            go=go, reason=reason, wind=reason, wind_go=go, short=short, flags=flags,
             fresh_mortar=marks[young].tolist()))
+        if judged:
+            judge(days[-1], by_mark, facts)
     peak = {"braces": {t: int(c) for t, c in zip(braces[0], braces[1].max(axis=0))},
             "anchors": {t: int(c) for t, c in zip(anchors[0], anchors[1].max(axis=0))}}
     return days, peak, slips

@@ -245,11 +245,14 @@ def test_stand_down_go_and_reasons(tiny):
     assert days[1].stand_down_speed_mph > 20.0  # so 20 mph is a go
     assert (days[1].forecast_gust_mph, days[1].go) == (20.0, True)
     assert "stand_down_ratio" in days[1].reason and days[1].governing_wall in days[1].reason
-    assert (days[2].storm, days[2].go) == (True, False) and "thunderstorm" in days[2].reason
-    assert (days[3].forecast_gust_mph, days[3].go) == (200.0, False)
-    assert "200 mph >=" in days[3].reason
-    assert (days[4].go, days[4].reason) == (None, "no forecast")
-    assert (days[6].go, days[6].forecast_gust_mph) == (True, 10.0)
+    assert (days[2].storm, days[2].wind_go) == (True, False) and "thunderstorm" in days[2].wind
+    assert (days[3].forecast_gust_mph, days[3].wind_go) == (200.0, False)
+    assert "200 mph >=" in days[3].wind
+    assert (days[4].wind_go, days[4].wind) == (None, "no forecast")
+    assert (days[6].wind_go, days[6].forecast_gust_mph) == (True, 10.0)
+    # the verdict: C (cannot stand, no braces) stands from day 3 and b1 is short from day 2
+    assert [days[n].verdict for n in range(1, 7)] == ["GO"] + ["NO-GO"] * 5
+    assert all(days[n].go is False for n in range(2, 7))
 
 
 def test_walls_that_fail_are_flagged_on_their_days(tiny):
@@ -409,7 +412,8 @@ def test_whole_site_when_no_lift_days():
     d = schedule.whole_site(site, result.panels)
     assert (d.day, d.standing, d.lifts) == (0, ["A", "B", "C", "D"], [])
     assert d.braces_in_use == {"b1": 5} and d.short == {"braces": {"b1": 1}, "anchors": {}}
-    assert (d.go, d.reason) == (None, "no forecast")
+    assert (d.wind_go, d.wind) == (None, "no forecast")
+    assert (d.verdict, d.go, d.failing_standing) == ("NO-GO", False, ["C", "D"])
 
 
 def test_json_record_has_days_and_peak_inventory(tiny):

@@ -134,7 +134,10 @@ def test_check_end_to_end_exits_2_without_a_traceback(helpers, write_site):
 def test_check_end_to_end_of_a_good_file(helpers, write_site):
     done = helpers.run_bracing("check", write_site(helpers.site_toml))
     assert done.returncode == 1, done.stderr  # valid; its walls cannot stand unbraced (§8a)
-    assert done.stdout.startswith("CAUTION") and "P-1" in done.stdout and "M-1" in done.stdout
+    # the verdict first (P-1 and M-1 fail), then the caution
+    first, second = done.stdout.splitlines()[:2]
+    assert first.startswith("NOT GO") and second.startswith("CAUTION")
+    assert "P-1" in first and "M-1" in first
 
 
 @pytest.mark.parametrize("kind", ["missing", "directory", "not text"])

@@ -277,7 +277,9 @@ def test_day_and_plan_views_show_the_days_result(site_path):
         d = app.result.days[0]
         summary = str(app.query_one("#day-summary").render())
         assert f"Lifts ({len(d.lifts)}): {', '.join(d.lifts)}" in summary
-        assert str(app.query_one(".day-verdict").render()) == "? NOT DECIDED"
+        # the verdict first: no forecast, and P-1 (lifted today) fails: do not lift it
+        assert str(app.query_one(".day-verdict").render()) == "? NO CALL"
+        assert summary.startswith("? NO CALL: do not lift P-1")
         assert "no forecast gust" in summary.lower()
         inventory = cells(app, "#day-inventory")
         assert ["adjustable-40", "brace", "2", "3", "✓ enough"] in inventory

@@ -219,7 +219,7 @@ PLAN_SYMBOLS = (
     ("~", "open ground"), ("!", "finding"),
 )
 AREA_WORDS = {"keep_clear": "keep clear", "crane_path": "crane path", "public_way": "public way",
-              "neighbour": "neighbour", "office": "site office", "work": "work area"}
+              "neighbor": "neighbor", "office": "site office", "work": "work area"}
 
 
 def pick_plan(plan, day: int | None):

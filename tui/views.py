@@ -17,7 +17,8 @@ from textual.reactive import reactive
 from textual.widgets import DataTable, Input, Label, Select, Static
 
 from bracing.model import DEFAULT_RULES
-from bracing.report.text import fmt
+from bracing.report.schedule import actions, grouped, headline
+from bracing.report.text import fmt, localize
 from bracing.results import CAUTION, STATUSES
 from tui import drawing
 from tui.fields import FieldSpec, panel_index, site_fields, wall_fields
@@ -489,7 +490,7 @@ class DayPicker(Horizontal):
         options = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day) for d in days]
         self.query_one(Choice).offer(options, self.day)
         d = next((d for d in days if d.day == self.day), None)
-        self.query_one(".day-verdict", Static).update(verdict_text(d) if d else "")
+        self.query_one(".day-verdict", Static).update(verdict_badge(d) if d else "")
 
     @on(Select.Changed)
     def _picked(self, event: Select.Changed) -> None:
@@ -498,13 +499,45 @@ class DayPicker(Horizontal):
             self.post_message(self.DayPicked(int(event.value)))
 
 
-def verdict_text(d) -> Text:
-    """Go / no-go in a word and a symbol; undecided when the engine had no forecast to compare."""
-    if d.go is True:
-        return Text("✓ GO", style="bold green")
-    if d.go is False:
-        return Text("✗ NO-GO", style="bold red")
-    return Text("? NOT DECIDED", style="bold yellow")
+VERDICT_LOOK = {"GO": ("✓", "bold green"), "GO WITH EXCEPTIONS": ("▲", "bold yellow"),
+                "NO-GO": ("✗", "bold red"), "NO CALL": ("?", "bold yellow")}
+
+
+def verdict_text(d, units: str = "us") -> Text:
+    """The day's verdict (the engine's) in a symbol and words, with the walls not to lift."""
+    symbol, style = VERDICT_LOOK[d.verdict]
+    out = Text()
+    out.append(f"{symbol} {headline(d, units)}", style=style)
+    return out
+
+
+def verdict_badge(d) -> Text:
+    """The verdict's word and symbol, beside the day picker (the walls it names are in the
+    view below)."""
+    symbol, style = VERDICT_LOOK[d.verdict]
+    out = Text()
+    out.append(f"{symbol} {d.verdict}", style=style)
+    return out
+
+
+def verdict_details(d, units: str) -> Text:
+    """Why the verdict: the findings that make walls fail, then the two thresholds as actions
+    and a marginal day."""
+    out = grouped_lines(d.why, units)
+    for line in actions(d, units):
+        out.append(f"{line}\n", style="bold" if line.startswith(("MARGINAL", "At")) else "")
+    return out
+
+
+def grouped_lines(found, units: str) -> Text:
+    """Grouped findings (DayFinding): the walls that share one on its line, with their count."""
+    out = Text()
+    for sym, sev, walls, message, source in grouped(found):
+        symbol, style = FLAG_LOOK.get(sev.lower(), ("-", ""))
+        out.append(f"{symbol} {sev}: " + (f"{walls}: " if walls else ""), style=style)
+        out.append(localize(message, units))
+        out.append(f"  [{source}]\n" if source else "\n", style="dim")
+    return out
 
 
 def shortage(d, kind: str, name: str) -> int:
@@ -565,12 +598,13 @@ class DayView(RedrawsForTheDay, Vertical):
             return
         units = self.units
         out = Text()
+        out.append_text(verdict_text(d, units))
+        out.append("\n")
+        out.append_text(verdict_details(d, units))
         out.append(f"Day {d.day}" + (f", {d.date}" if d.date else "") + ": ", style="bold")
-        out.append_text(verdict_text(d))
-        out.append(f"  {d.reason}\n" if d.reason else "\n")
         forecast = ("no forecast gust" if d.forecast_gust_mph is None else
                     f"forecast gust {speed(d.forecast_gust_mph, units)}")
-        out.append(forecast.capitalize()
+        out.append(forecast
                    + ("  (thunderstorm warning: counts as exceeding)" if d.storm else "")
                    + f"; stand-down gust {speed(d.stand_down_speed_mph, units)}"
                    + (f" (governing wall {d.governing_wall})" if d.governing_wall else "")
@@ -593,7 +627,8 @@ class DayView(RedrawsForTheDay, Vertical):
                 table.add_row(name, kind, str(n), "-" if on_hand is None else str(on_hand),
                               Text(f"✗ {short} short", style="bold red") if short
                               else Text("✓ enough", style="green"))
-        self.query_one("#day-flags", Static).update(flag_lines(d.flags))
+        self.query_one("#day-flags", Static).update(grouped_lines(d.findings, units))
+        self.query_one("#day-body").scroll_home(animate=False)  # the verdict in sight
 
 
 class PlanView(RedrawsForTheDay, Vertical):

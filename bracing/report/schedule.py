@@ -19,7 +19,7 @@ from markupsafe import Markup
 
 from bracing import schedule
 from bracing.model import Site
-from bracing.report.text import fmt
+from bracing.report.text import SI_PRECISION, WIDTH, fmt, localize, wrap
 from bracing.results import DayResult, PanelResult, SiteResult
 from bracing.units import convert
 
@@ -28,7 +28,9 @@ STATUS_SYMBOL = {"unsafe": "✖", "needs_braces": "▲", "braced": "✔", "stand
 STATUS_WORD = {"unsafe": "UNSAFE", "needs_braces": "NEEDS BRACES", "braced": "braced",
                "stands": "stands"}
 FLAG_SYMBOL = {"danger": "✖", "warning": "▲", "notice": "•"}
-GO = {True: ("✔", "GO", "go"), False: ("✖", "NO-GO", "nogo"), None: ("?", "NO CALL", "none")}
+VERDICT_LOOK = {"GO": ("✔", "GO", "go"), "GO WITH EXCEPTIONS": ("▲", "GO WITH EXCEPTIONS",
+                                                               "except"),
+                "NO-GO": ("✖", "NO-GO", "nogo"), "NO CALL": ("?", "NO CALL", "none")}
 ASCII = str.maketrans({"·": "-", "²": "^2", "³": "^3", "✔": "ok", "✖": "X", "▲": "!",
                        "○": "-", "•": "-", "—": "-"})
 DAY_RULES = ("stand_down_ratio",)
@@ -60,6 +62,10 @@ class Row:
     wall_anchor: str = ""
     foot_anchor: str = ""
     torque: str = ""
+    to_check: str = ""  # the torque or pin the crew checks at each brace
+    struck: str = ""  # working limit with one brace struck (information, method notes §4)
+    hold: bool = False  # a lift not to make today
+    zone_word: str = "zone"  # masonry: OSHA 1926.706(a)'s own term, "limited access zone"
     stand_down: str = ""
     sustained: str = ""
     zone_front: str = ""
@@ -81,8 +87,12 @@ class Page:
     working_limit: str
     lifts: list[str]
     releases: list[str]
-    flags: list[tuple[str, str, str, str]]  # symbol, SEVERITY, message, source
+    verdict: str  # the headline: the verdict and the walls not to lift, first on the sheet
+    why: list[tuple[str, str, str, str, str]]  # symbol, SEVERITY, walls, message, source
+    actions: list[str]  # the two thresholds as actions, and a marginal day
+    flags: list[tuple[str, str, str, str, str]]  # the day's other findings, grouped, as `why`
     walls: list[Row]  # standing, then released today, as the day lists them
+    lifted: list[Row]  # today's lifts
     rows: list[Row]  # the braced ones
     unbraced: list[Row]
     inventory: list[tuple[str, str, str, str, str]]  # kind, type, in use, on hand, short
@@ -95,11 +105,11 @@ def render(site: Site, result: SiteResult, day: int | None, fmt_name: str, units
     """The schedule of `day` (None: every day something stands) as 'html', 'csv' or 'text'."""
     pages = build_pages(site, result, day, units, pictures=fmt_name == "html")
     if fmt_name == "html":
-        return html(result, pages)
+        return html(result, pages, units)
     if fmt_name == "csv":
         return csv_text(result, pages, units)
     if fmt_name == "text":
-        return plain_text(result, pages)
+        return plain_text(result, pages, units)
     raise ValueError(f"unknown format {fmt_name!r} (html, csv or text)")
 
 
@@ -144,14 +154,17 @@ def build_pages(site: Site, result: SiteResult, day: int | None, units: str,
         walls = [by_mark[m] for m in d.standing + d.released]
         rows = [_row(site, p, bracing[p.mark], d, zones[p.mark], units) for p in walls]
         page = Page(
-            day=d, title=_title(result, d), go=GO[d.go], reason=d.reason,
+            day=d, title=_title(result, d), go=VERDICT_LOOK[d.verdict], reason=d.reason,
             forecast=_forecast(d, units),
             stand_down=(f"{_speed(d.stand_down_speed_mph, units)} ({d.governing_wall})"
                         if d.governing_wall else "none"),
             sustained=_sustained(result, d, units),
             working_limit=_speed(d.working_limit_speed_mph, units),
             lifts=d.lifts, releases=[_release(site, m, d.day) for m in d.released],
-            flags=_flags(d, walls), walls=rows, rows=[r for r in rows if r.braced],
+            verdict=headline(d, units), why=grouped(d.why), actions=actions(d, units),
+            flags=grouped(d.findings), walls=rows, lifted=[r for r in rows if r.today ==
+                                                            "lifted today"],
+            rows=[r for r in rows if r.braced],
             unbraced=[r for r in rows if not r.braced], inventory=_inventory(site, d),
             rules=_rules(site, walls))
         if svg is not None:
@@ -204,16 +217,58 @@ def _release(site: Site, mark: str, day: int) -> str:
     return f"{mark} (signed off by {by}: braces off after the sign-off)" if by else mark
 
 
-def _flags(d: DayResult, walls: list[PanelResult]) -> list[tuple[str, str, str, str]]:
-    """The day's flags, then the standing walls' danger and warning flags (their schedule flags
-    are among the day's flags of the day they happen), worst first."""
-    items = [(f, "") for f in d.flags]
-    items += [(f, p.mark) for p in walls for f in p.flags
-              if f.severity != "notice" and f.code not in schedule.SCHEDULE_CODES]
-    order = ("danger", "warning", "notice")
-    items.sort(key=lambda item: order.index(item[0].severity))
-    return [(FLAG_SYMBOL[f.severity], f.severity.upper(),
-             f"{mark}: {f.message}" if mark else f.message, f.source) for f, mark in items]
+def headline(d: DayResult, units: str = "us") -> str:
+    """The day's verdict in one line: the word, then the walls not to lift or that stand and
+    fail, else the forecast against the stand-down gust (as the engine judged it)."""
+    parts = []
+    if d.failing_standing:
+        parts.append(f"{', '.join(d.failing_standing)} stand(s) and fail(s): keep out of the "
+                     "zones")
+    if d.do_not_lift:
+        parts.append(f"do not lift {', '.join(d.do_not_lift)}")
+    if not parts and any(not f.marks for f in d.why):
+        parts.append(next(f.message for f in d.why if not f.marks))
+    if not parts or d.wind_go is False:
+        parts.append(_wind_short(d, units))
+    return localize(f"{d.verdict}: {'; '.join(parts)}", units)
+
+
+def _wind_short(d: DayResult, units: str) -> str:
+    if d.storm:
+        return "thunderstorm forecast (counts as exceeding the stand-down gust)"
+    if d.forecast_gust_mph is None or d.stand_down_speed_mph is None:
+        return d.wind
+    sign = "<" if d.wind_go else ">="
+    return (f"forecast gust {_speed(d.forecast_gust_mph, units)} {sign} stand-down "
+            f"{_speed(d.stand_down_speed_mph, units)} ({d.governing_wall})")
+
+
+def actions(d: DayResult, units: str) -> list[str]:
+    """The day's two thresholds as actions (design.md §3 through method notes §5), and a word
+    on a marginal day."""
+    out = []
+    if d.marginal:
+        out.append("MARGINAL DAY: the forecast gust is within 10 % of the stand-down gust: "
+                   "watch the wind and be ready to stop")
+    if d.stand_down_speed_mph is not None:
+        out.append(f"At {_speed(d.stand_down_speed_mph, units)} gusts: stop lifting, clear "
+                   "the zones.")
+    if d.working_limit_speed_mph is not None:
+        out.append(f"At {_speed(d.working_limit_speed_mph, units)} gusts: everyone out; "
+                   "inspect braces and anchors before re-entry.")
+    return out
+
+
+def grouped(found) -> list[tuple[str, str, str, str, str]]:
+    """Grouped findings (DayFinding): symbol, SEVERITY, the walls (a count when many), message,
+    source."""
+    out = []
+    for f in found:
+        walls = ", ".join(f.marks)
+        if len(f.marks) > 2:
+            walls = f"{len(f.marks)} walls: {walls}"
+        out.append((FLAG_SYMBOL[f.severity], f.severity.upper(), walls, f.message, f.source))
+    return out
 
 
 def _row(site: Site, p: PanelResult, bracing, d: DayResult, zone: tuple, units: str) -> Row:
@@ -225,7 +280,9 @@ def _row(site: Site, p: PanelResult, bracing, d: DayResult, zone: tuple, units: 
     row = Row(p.mark, p.status, STATUS_SYMBOL[p.status], STATUS_WORD[p.status], today,
               braced=bool(p.braces), stand_down=_speed(stand_down, units),
               sustained=_speed(sustained.get("1-min"), units),
-              zone_front=fmt(front, "ft", units, 1), zone_back=fmt(back, "ft", units, 1))
+              zone_front=fmt(front, "ft", units, 1), zone_back=fmt(back, "ft", units, 1),
+              hold=p.mark in d.do_not_lift,
+              zone_word="limited access zone" if p.material == "masonry" else "zone")
     row.numbers = {"stand_down": _number(stand_down, "mph", units),
                    "sustained": _number(sustained.get("1-min"), "mph", units),
                    "zone_front": _number(front, "ft", units, 1),
@@ -246,6 +303,11 @@ def _row(site: Site, p: PanelResult, bracing, d: DayResult, zone: tuple, units: 
     row.foot_anchor = gear.foot_anchor or "none"
     torque = b.get("installation_torque_ftlb")
     row.torque = fmt(torque, "ft*lbf", units) if torque is not None else ""
+    row.to_check = "; ".join(
+        ([f"wall anchor {gear.wall_anchor}: pin or bolt in and tight"] if gear.wall_anchor
+         else []) + [f"foot anchor {row.foot_anchor}: " + (
+             f"installed to at least {row.torque}" if torque is not None else "set and tight")])
+    row.struck = _speed(b.get("working_limit_one_missing_mph"), units)
     row.numbers.update(
         count=b["count"],
         positions="; ".join(str(_number(x, "ft", units, 1)) for x in positions),
@@ -253,7 +315,8 @@ def _row(site: Site, p: PanelResult, bracing, d: DayResult, zone: tuple, units: 
         anchor_distance=_number(b["anchor_distance_ft"], "ft", units, 1),
         length=_number(b["length_ft"], "ft", units, 2),
         angle=round(b["angle_deg"], 1),
-        torque="" if torque is None else _number(torque, "ft*lbf", units))
+        torque="" if torque is None else _number(torque, "ft*lbf", units),
+        struck=_number(b.get("working_limit_one_missing_mph"), "mph", units))
     return row
 
 
@@ -261,9 +324,11 @@ def _number(value: float | None, unit: str, units: str, digits: int = 0):
     """A plain number in the chosen units for a spreadsheet cell ('' when there is none)."""
     if value is None:
         return ""
-    shown, _ = convert(value, unit, units)
-    if units == "si":
-        digits = max(digits, 1 if unit == "mph" else 2)
+    shown, label = convert(value, unit, units)
+    if units == "si" and label in SI_PRECISION:
+        digits, step = SI_PRECISION[label]
+        if step:
+            shown = step * round(shown / step)
     return round(shown, digits) if digits else round(shown)
 
 
@@ -284,6 +349,10 @@ def _inventory(site: Site, d: DayResult) -> list[tuple[str, str, str, str, str]]
     return rows
 
 
+# a rule's unit, from the end of its name (shown with its value; SI by `localize`)
+RULE_UNITS = {"_mph": " mph", "_ft": " ft", "_psf": " psf", "_deg": " deg", "_days": " days"}
+
+
 def _rules(site: Site, walls: list[PanelResult]) -> list[tuple[str, str, str, str]]:
     """The site rules behind the day's speeds and zones: value, source and basis (§7)."""
     names = list(DAY_RULES)
@@ -292,19 +361,22 @@ def _rules(site: Site, walls: list[PanelResult]) -> list[tuple[str, str, str, st
     out = []
     for name in names:
         r = site.rule(name)
-        value = "off" if not r.enabled or r.value is None else f"{r.value:g}"
+        unit = next((u for suffix, u in RULE_UNITS.items() if name.endswith(suffix)), "")
+        value = "off" if not r.enabled or r.value is None else f"{r.value:g}{unit}"
         out.append((name, value, r.source, r.basis))
     return out
 
 
 # --- the three formats -------------------------------------------------------------------------
-def html(result: SiteResult, pages: list[Page]) -> str:
+def html(result: SiteResult, pages: list[Page], units: str = "us") -> str:
+    """The sheets as one HTML document for print, in the chosen units."""
     env = Environment(loader=FileSystemLoader(TEMPLATES), autoescape=select_autoescape(
         ["html", "j2"]), trim_blocks=True, lstrip_blocks=True)
     caution = (result.caution.replace("\\", "\\\\").replace('"', '\\"')
                .replace("<", "\\3C ").replace("\n", " "))  # a CSS string
-    return env.get_template("schedule.html.j2").render(
-        result=result, pages=pages, caution_css=Markup(f'"{caution}"'))
+    return localize(env.get_template("schedule.html.j2").render(
+        result=result, pages=pages, caution_css=Markup(f'"{caution}"'),
+        inspection=INSPECTION, inspection_basis=INSPECTION_BASIS, approval=APPROVAL), units)
 
 
 CSV_COLUMNS = (
@@ -315,14 +387,16 @@ CSV_COLUMNS = (
     ("brace type", None), ("wall anchor", None), ("foot anchor", None),
     ("helical torque", "ft*lbf"), ("wall stand-down gust", "mph"),
     ("1-min sustained equivalent", "mph"), ("zone braced side", "ft"), ("zone behind", "ft"),
+    ("working limit with one brace struck", "mph"),
 )
 
 
 def csv_text(result: SiteResult, pages: list[Page], units: str) -> str:
-    """The caution on the first line, a header row, then one row per standing wall per day."""
+    """The header row first, one row per standing wall per day, then the caution in a last
+    row of its own that starts with '#' (a spreadsheet keeps the header; a reader of data can
+    skip it as a comment)."""
     out = io.StringIO()
     w = csv.writer(out)
-    w.writerow([result.caution])
     w.writerow([f"{name} ({unit if unit == 'deg' else _label(unit, units)})" if unit else name
                 for name, unit in CSV_COLUMNS])
     for page in pages:
@@ -330,65 +404,91 @@ def csv_text(result: SiteResult, pages: list[Page], units: str) -> str:
         for r in page.walls:
             n = r.numbers
             w.writerow([
-                d.day, d.date or "", page.go[1], _number(d.forecast_gust_mph, "mph", units),
+                d.day, d.date or "", d.verdict, _number(d.forecast_gust_mph, "mph", units),
                 _number(d.stand_down_speed_mph, "mph", units), r.mark,
                 f"{r.word} {r.symbol}".translate(ASCII), r.today, n.get("count", ""),
                 n.get("positions", ""), n.get("insert", ""), n.get("anchor_distance", ""),
                 n.get("length", ""), n.get("angle", ""), r.brace_type, r.wall_anchor,
                 r.foot_anchor, n.get("torque", ""), n["stand_down"], n["sustained"],
-                n["zone_front"], n["zone_back"]])
+                n["zone_front"], n["zone_back"], n.get("struck", "")])
+    w.writerow([f"# {result.caution}"])
     return out.getvalue()
 
 
-TEXT_COLUMNS = (("wall", "mark"), ("status", "status_text"), ("n", "count"),
-                ("positions from 1st edge", "positions"), ("insert", "insert"),
-                ("foot from face", "anchor_distance"), ("length", "length"),
-                ("angle", "angle"), ("brace", "brace_type"), ("wall anchor", "wall_anchor"),
-                ("foot anchor", "foot_anchor"), ("torque", "torque"),
-                ("stand-down", "stand_down"), ("zone front", "zone_front"),
-                ("zone behind", "zone_back"))
-
-
-def plain_text(result: SiteResult, pages: list[Page]) -> str:
-    """The same sheets as plain text, one after another, the caution at the top and bottom."""
+def plain_text(result: SiteResult, pages: list[Page], units: str = "us") -> str:
+    """The same sheets as plain text, each at most WIDTH columns: the verdict first, then the
+    caution, the lifts with their braces, the walls standing and their zones, the releases,
+    the findings once each, inventory, rules, the daily inspection and the approval block."""
     out = []
     for page in pages:
-        d = page.day
-        lines = [result.caution, "", page.title, *(f"  {s}" for s in result.basis_statement), "",
-                 f"WIND: {page.go[1]}: {page.reason}",
-                 f"  forecast {page.forecast}; stand-down {page.stand_down}; working limit "
-                 f"{page.working_limit}",
-                 f"  stand-down as sustained wind: {page.sustained or 'none'}",
-                 f"Lifts today: {', '.join(page.lifts) or 'none'}",
-                 f"Releases today: {'; '.join(page.releases) or 'none'}"]
-        lines += [f"  {s} {sev}: {msg} [{src}]" for s, sev, msg, src in page.flags]
-        lines += ["", "BRACE SCHEDULE (walls standing on braces)"]
-        lines += _table(page.rows) if page.rows else ["  none"]
-        lines += ["", "WALLS STANDING WITHOUT BRACES"]
-        lines += [f"  {r.mark}: {r.symbol} {r.word}; stand-down {r.stand_down}; zone "
-                  f"{r.zone_front} braced side, {r.zone_back} behind" for r in page.unbraced] \
+        lines = [page.verdict]
+        lines += [f"  {sym} {sev}: {walls}: {msg} [{src}]" if walls else
+                  f"  {sym} {sev}: {msg} [{src}]" for sym, sev, walls, msg, src in page.why]
+        lines += [f"  {a}" for a in page.actions]
+        lines += [f"  Forecast {page.forecast}; stand-down gust {page.stand_down}; working "
+                  f"limit {page.working_limit}",
+                  f"  Stand-down as sustained wind: {page.sustained or 'none'}",
+                  "", result.caution, "", page.title,
+                  *(f"  {s}" for s in result.basis_statement)]
+        lines += ["", f"LIFTS TODAY ({len(page.lifted)})"]
+        lines += [x for r in page.lifted for x in _wall_lines(r)] or ["  none"]
+        lines += ["", "RELEASES TODAY"] + [f"  {r}" for r in page.releases] or ["  none"]
+        if not page.releases:
+            lines.append("  none")
+        lines += ["", f"WALLS STANDING ({len(page.walls)}) AND THEIR ZONES"]
+        lines += [x for r in page.walls if r.today != "lifted today"
+                  for x in _wall_lines(r, full=False)] \
+            or ["  none besides today's lifts"]
+        lines += ["", "FINDINGS (each once; walls that share one on one line)"]
+        lines += [f"  {sym} {sev}: {walls}: {msg} [{src}]" if walls else
+                  f"  {sym} {sev}: {msg} [{src}]" for sym, sev, walls, msg, src in page.flags] \
             or ["  none"]
         lines += ["", "INVENTORY (type: in use / on hand)"]
         lines += [f"  {kind} {name}: {n} / {hand}  {short}"
                   for kind, name, n, hand, short in page.inventory] or ["  none in use"]
         lines += ["", "RULES"] + [f"  {name} = {value} ({source}; {basis})"
                                   for name, value, source, basis in page.rules]
+        lines += ["", f"DAILY INSPECTION ({INSPECTION_BASIS})"]
+        lines += [f"  [ ] {item}" for item in INSPECTION]
+        lines += ["", "APPROVED BY THE QUALIFIED PERSON (fill in before work starts)"]
+        lines += [f"  {label}: {'_' * 40}" for label in APPROVAL]
         lines += ["", result.caution]
-        out.append("\n".join(lines))
-        if d is not pages[-1].day:
-            out.append("=" * 100)
+        out.append("\n".join(wrap(localize(line, units)) for line in lines))
+        if page is not pages[-1]:
+            out.append("=" * WIDTH)
     return "\n".join(out) + "\n"
 
 
-def _table(rows: list[Row]) -> list[str]:
-    """A fixed-width table of the braced walls."""
-    cells = [[h for h, _ in TEXT_COLUMNS]]
-    for r in rows:
-        r_cells = []
-        for _, key in TEXT_COLUMNS:
-            r_cells.append(f"{r.symbol} {r.word}" + (f" ({r.today})" if r.today else "")
-                           if key == "status_text" else str(getattr(r, key)))
-        cells.append(r_cells)
-    widths = [max(len(row[k]) for row in cells) for k in range(len(TEXT_COLUMNS))]
-    return ["  " + "  ".join(c.ljust(w) for c, w in zip(row, widths)).rstrip() for row in cells]
+INSPECTION_BASIS = "common practice"
+INSPECTION = (
+    "Every brace in place, as listed: count, insert height and foot distance.",
+    "Brace pins, bolts and locking collars in place and tight; no bent or damaged brace.",
+    "Wall inserts and foot anchors tight, no cracking or pull-out at the slab or ground.",
+    "Helical anchors: torque as listed; stakes and deadmen not moved or undermined.",
+    "Zones marked and kept clear; no equipment or stored material against the braces.",
+    "After a gust above the stand-down gust, a struck brace or a night: inspect all again.",
+)
+APPROVAL = ("Name", "License number", "Date", "Signature")
 
+
+def _wall_lines(r: Row, full: bool = True) -> list[str]:
+    """One wall on the text sheet: its braces as the crew sets them (in brief unless `full`),
+    its speeds and zone."""
+    head = f"  {r.mark}  {r.symbol} {r.word}" + (f" ({r.today})" if r.today else "")
+    if r.hold:
+        head += "  ✖ DO NOT LIFT TODAY"
+    lines = [head]
+    if r.braced and not full:
+        head += f"  {r.count} braces {r.brace_type}, insert {r.insert}, foot {r.anchor_distance}"
+        lines = [head]
+    elif r.braced:
+        lines += [f"      {r.count} braces {r.brace_type} at {r.positions} from the first edge; "
+                  f"insert {r.insert}, foot {r.anchor_distance} from the face, length "
+                  f"{r.length}, {r.angle}",
+                  f"      check: {r.to_check}"]
+    speeds = f"stand-down {r.stand_down} (1-min mean {r.sustained})"
+    if r.braced:
+        speeds += f"; one brace struck {r.struck}"
+    lines.append(f"      {speeds}; {r.zone_word} {r.zone_front} braced side, {r.zone_back} "
+                 "behind")
+    return lines

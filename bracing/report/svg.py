@@ -61,7 +61,6 @@ AREA_STYLE = {
     "keep_clear": ("#4a4a4a", 45, "keep-clear area"),
     "crane_path": ("#c96a12", -45, "crane path"),
     "public_way": ("#b03a2e", 45, "public way"),
-    "neighbour": ("#6c3483", 90, "neighbor"),
     "neighbor": ("#6c3483", 90, "neighbor"),
     "office": ("#2471a3", None, "site office"),
     "work": ("#1e8449", None, "work area"),
