@@ -800,22 +800,23 @@ def reference_problems(data) -> list[tuple[tuple, str, object]]:
     events = _names_of(data, "events", problems)
     panels = data.get("panels")
     first_of: dict[str, int] = {}
+    known = {section: names(section) for section in ("materials", "brace_types", "anchor_types")}
     for i, p in enumerate(panels if isinstance(panels, list) else []):
         if not isinstance(p, dict):
             continue
         material = p.get("material")
-        known = names("materials")
         if isinstance(data.get("materials"), dict) and isinstance(material, str) \
-                and material not in known:
+                and material not in known["materials"]:
             problems.append((("panels", i, "material"), f"{material!r} is not in [materials] "
-                             f"({', '.join(sorted(known)) or 'none given'})", material))
+                             f"({', '.join(sorted(known['materials'])) or 'none given'})",
+                             material))
         bracing = p.get("bracing")
         if isinstance(bracing, dict):
             refs = [("brace_type", "brace_types"), ("wall_anchor", "anchor_types"),
                     ("foot_anchor", "anchor_types")]
             for key, section in refs:
                 name = bracing.get(key)
-                if isinstance(name, str) and name not in names(section):
+                if isinstance(name, str) and name not in known[section]:
                     problems.append((("panels", i, "bracing", key),
                                      f"{name!r} is not in [{section}]", name))
         mark = p.get("mark")

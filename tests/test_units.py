@@ -249,3 +249,42 @@ def test_panel_refuses_a_brace_angle_of_the_wrong_kind(capsys):
     assert cli.main(BASE + ["--braces", "2", "--insert-height", "20ft", "--brace-angle",
                             "55kg"]) == 2
     assert "--brace-angle" in capsys.readouterr().err
+
+
+# --- the common spellings read without pint -------------------------------------------------------
+
+
+def test_the_shipped_factors_are_pints_own():
+    # bracing/unit_factors.py is generated from pint (python -m bracing.units): it must not drift.
+    from bracing.unit_factors import DISPLAY_FACTORS, FACTORS
+
+    assert units.pint_factors() == (FACTORS, DISPLAY_FACTORS)
+
+
+@pytest.mark.parametrize(("text", "kind"), [
+    ("9.5 m", "length"), ("190mm", "thickness"), ("-2.5e3 lb", "force"), ("35 days", "duration"),
+    ("23.5 kN/m^3", "unit_weight"), (".75 in", "length"), ("12", "pressure"), ("1E2 kPa", "pressure"),
+])
+def test_the_table_reads_a_value_as_pint_does(text, kind):
+    unit, word = units.KINDS[kind]
+    assert units.parse(text, kind) == pytest.approx(units._pint_value(text, text, unit, word),
+                                                    rel=1e-15, abs=0.0)
+
+
+def test_a_spelling_outside_the_table_is_read_by_pint():
+    # 1 yd = 36 in exactly (NIST SP 811 App. B, from memory): 3 yd = 108 in
+    assert units.parse("3 yd", "thickness") == pytest.approx(108.0, rel=1e-12)
+
+
+def test_the_demo_sites_are_read_without_importing_pint():
+    # pint's import and registry took longer than reading a whole 600-wall site (issue 14).
+    import subprocess
+    import sys
+    from pathlib import Path
+
+    code = ("import pathlib, sys; from bracing import scenario; "
+            "[scenario.load(p) for p in sorted(pathlib.Path('scenarios').glob('*.toml'))]; "
+            "print('pint' in sys.modules)")
+    done = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True,
+                          cwd=Path(__file__).resolve().parents[1])
+    assert done.stdout.strip() == "False"
