@@ -13,8 +13,10 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from bracing import braced, braces
+from bracing import braces
 from bracing.model import Bracing, Site
+from bracing.stages import brace_set as braced_layouts
+from bracing.stages import braced
 
 INSERT_RATIO_TOP = 0.85  # highest insert tried, as a share of the wall height (common practice)
 INSERT_STEPS = 5
@@ -87,7 +89,7 @@ def design(site: Site, rows: list[int], walls, wind, factors, minimum_psf) -> li
             "foot_anchor": np.array([combos[j][1] for j in pick], dtype=object),
         }
         positions = braces.default_positions(walls.width[wall][:, None], count)
-        bs = braced.brace_set(site, wall, positions, np.full(len(wall), np.nan), angle,
+        bs = braced_layouts.brace_set(site, wall, positions, np.full(len(wall), np.nan), angle,
                               column, site.site.design_basis)
         checks, _ = braced.braced_checks(walls, wind, bs, factors, minimum_psf)
         util, element = _governing(checks)

@@ -14,7 +14,7 @@ from pathlib import Path
 import pytest
 
 sys.path.insert(0, str(Path(__file__).parent / "golden"))
-import update  # noqa: E402
+import update
 
 REL = 1e-7  # float noise: the same formulas summed in another order
 
