@@ -72,7 +72,13 @@ def brace_shares(total_h, force_lb, force_at_ft, wall_centre_ft, positions_ft, m
     lever = lever if lever is not None else brace_lever(positions_ft, mask)
     share, per_arm = share_and_twist(total_h, force_lb, force_at_ft, wall_centre_ft, lever)
     with np.errstate(invalid="ignore"):
-        return np.where(mask, share[..., None] + per_arm[..., None] * lever[2], np.nan)
+        return np.where(mask, each_share(share, per_arm, lever[2]), np.nan)
+
+
+def each_share(share, per_arm, arm):
+    """Each brace's reaction from the terms of `share_and_twist`: R_i = share + per_arm (x_i -
+    x_c) (statics; `arm`: x_i - x_c of each slot, from `brace_lever`, 0 at an empty slot)."""
+    return share[..., None] + per_arm[..., None] * arm
 
 
 def share_and_twist(total_h, force_lb, force_at_ft, wall_centre_ft, lever):

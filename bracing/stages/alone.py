@@ -3,78 +3,144 @@
 from __future__ import annotations
 
 import functools
+from dataclasses import dataclass
 
 import numpy as np
 
 from bracing import stability
 from bracing.stages.arrays import Walls
 from bracing.stages.brace_set import BraceSet
-from bracing.stages.loads import Factors
+from bracing.stages.loads import Factors, FixedActions, fixed_actions
 from bracing.stages.wind import Wind
 
 
-def stability_checks(w: Walls, wind: Wind, f: Factors) -> dict[str, tuple[np.ndarray, np.ndarray]]:
+def stability_checks(w: Walls, wind: Wind, f: Factors, held: tuple = ()
+                     ) -> dict[str, tuple[np.ndarray, np.ndarray]]:
     """Demand and capacity of every check of a wall on its own, per name (arrays, NaN = n/a).
 
-    Rigid panels as a whole; walls built in place per foot, end zone and interior (§5).
+    Rigid panels as a whole; walls built in place per foot, end zone and interior (§5). `held`:
+    the lateral loads that do not grow with the wind (loads.fixed_loads), added with their own
+    factors in `f`.
     """
-    t, s, b = w.thickness_ft, w.height, w.width
-    dead = w.face_weight * s * b * w.solidity
-    dead_strip = w.face_weight * s
-    ftg = w.has_footing
-    ftg_w = np.where(ftg, w.footing_width, 0.0)
-    ftg_d = np.where(ftg, w.footing_thickness, 0.0)
-    ftg_strip = np.where(ftg, w.footing_psf * ftg_w, 0.0)  # lb per ft of wall
-    rigid = w.rigid
-    na = np.nan
-    checks: dict[str, tuple[np.ndarray, np.ndarray]] = {}
+    push = Push(wind=wind, f=f, held=fixed_actions(held, f))
+    checks = _overturning(w, push, f)
+    checks.update(_on_footing(w, push, f))
+    checks.update(_sliding(w, push, f))
+    return checks
 
-    # Overturning of the wall about its leeward base edge (statics).
-    checks["overturning|whole panel"] = (
-        np.where(rigid, f.wind * wind.force * wind.lever, na),
-        np.where(rigid, f.dead_resists * stability.rocking_resistance(dead, t), na))
-    for region, line in (("end zone", wind.line_end), ("interior", wind.line_interior)):
+
+@dataclass(frozen=True)
+class Push:
+    """The factored lateral loads on each wall in one combination: the wind's (f.wind) and the
+    held loads' (their own factors), as pushes and moments about a level `depth` ft below the
+    wall's base (statics)."""
+
+    wind: Wind
+    f: Factors
+    held: FixedActions | None
+
+    def whole(self) -> np.ndarray:
+        """On the whole wall, lb."""
+        out = self.f.wind * self.wind.force
+        return out if self.held is None else out + self.held.push
+
+    def whole_moment(self, depth=0.0) -> np.ndarray:
+        """Of the whole wall, lb-ft."""
+        out = self.f.wind * self.wind.force * (self.wind.lever + depth)
+        return out if self.held is None else out + self.held.moment + self.held.push * depth
+
+    def strip(self, line) -> np.ndarray:
+        """Per ft of a strip whose wind is `line` (plf)."""
+        out = self.f.wind * line
+        return out if self.held is None else out + self.held.line
+
+    def strip_moment(self, line, depth=0.0) -> np.ndarray:
+        """Per ft of a strip whose wind is `line`, lb-ft/ft."""
+        out = self.f.wind * line * (self.wind.lever_strip + depth)
+        return (out if self.held is None else
+                out + self.held.line_moment + self.held.line * depth)
+
+
+def _overturning(w: Walls, push: Push, f: Factors) -> dict:
+    """The walls overturning about their leeward base edge (statics), and footing and wall as
+    one block about the footing's toe, with the soil under it, per ft of a wall built in
+    place."""
+    t, rigid, ftg, na = w.thickness_ft, w.rigid, w.has_footing, np.nan
+    dead_strip = w.face_weight * w.height
+    ftg_w, ftg_d, ftg_strip = _footing(w)
+    checks = {"overturning|whole panel": (
+        np.where(rigid, push.whole_moment(), na),
+        np.where(rigid, f.dead_resists * stability.rocking_resistance(_dead(w), t), na))}
+    for region, line in (("end zone", push.wind.line_end),
+                         ("interior", push.wind.line_interior)):
         rocking = stability.rocking_resistance(f.dead_resists * dead_strip, t)
         flexure = stability.masonry_flexural_capacity(
             w.flex_tension, w.section, w.section_area, f.dead_resists * dead_strip)
         capacity = np.where(w.masonry & ~w.fresh, np.maximum(rocking, flexure), rocking)
         checks[f"overturning|{region}"] = (
-            np.where(rigid, na, f.wind * line * wind.lever_strip), np.where(rigid, na, capacity))
-        # Footing and wall as one block about the footing's toe, and the soil under it.
+            np.where(rigid, na, push.strip_moment(line)), np.where(rigid, na, capacity))
+        moment = push.strip_moment(line, ftg_d)
         checks[f"footing overturning|{region}"] = (
-            np.where(ftg & ~rigid, f.wind * line * (wind.lever_strip + ftg_d), na),
+            np.where(ftg & ~rigid, moment, na),
             np.where(ftg & ~rigid, stability.footing_resistance(
                 f.dead_resists * (dead_strip + ftg_strip), ftg_w), na))
         bearing = stability.max_soil_pressure(
-            f.dead_adds * (dead_strip + ftg_strip), f.wind * line * (wind.lever_strip + ftg_d),
-            np.where(ftg, ftg_w, 1.0), 1.0)
+            f.dead_adds * (dead_strip + ftg_strip), moment, np.where(ftg, ftg_w, 1.0), 1.0)
         checks[f"soil bearing|{region}"] = (np.where(ftg & ~rigid, bearing, na),
                                            np.where(ftg & ~rigid, w.bearing, na))
-    ftg_panel = ftg_strip * b
-    checks["footing overturning|whole panel"] = (
-        np.where(ftg & rigid, f.wind * wind.force * (wind.lever + ftg_d), na),
-        np.where(ftg & rigid, stability.footing_resistance(
-            f.dead_resists * (dead + ftg_panel), ftg_w), na))
-    checks["soil bearing|whole panel"] = (
-        np.where(ftg & rigid, stability.max_soil_pressure(
-            f.dead_adds * (dead + ftg_panel), f.wind * wind.force * (wind.lever + ftg_d),
-            np.where(ftg, ftg_w, 1.0), b), na),
-        np.where(ftg & rigid, w.bearing, na))
-    # Sliding on the base (friction, 0.6D resisting) and of the footing on soil; walls built in
-    # place per foot of their end zone.
-    push = np.where(rigid, wind.force, wind.line_end)
-    weight = np.where(rigid, dead, dead_strip)
-    footing_weight = np.where(rigid, ftg_panel, ftg_strip)
+    return checks
+
+
+def _on_footing(w: Walls, push: Push, f: Factors) -> dict:
+    """A rigid panel and its footing as one block about the footing's toe, and the soil under
+    it (statics)."""
+    ftg, rigid, b, na = w.has_footing, w.rigid, w.width, np.nan
+    ftg_w, ftg_d, ftg_strip = _footing(w)
+    dead, ftg_panel = _dead(w), ftg_strip * b
+    moment = push.whole_moment(ftg_d)
+    return {
+        "footing overturning|whole panel": (
+            np.where(ftg & rigid, moment, na),
+            np.where(ftg & rigid, stability.footing_resistance(
+                f.dead_resists * (dead + ftg_panel), ftg_w), na)),
+        "soil bearing|whole panel": (
+            np.where(ftg & rigid, stability.max_soil_pressure(
+                f.dead_adds * (dead + ftg_panel), moment, np.where(ftg, ftg_w, 1.0), b), na),
+            np.where(ftg & rigid, w.bearing, na))}
+
+
+def _sliding(w: Walls, push: Push, f: Factors) -> dict:
+    """Sliding on the base (friction, 0.6D resisting) and of the footing on soil; walls built in
+    place per foot of their end zone."""
+    rigid, ftg, na = w.rigid, w.has_footing, np.nan
+    _, _, ftg_strip = _footing(w)
+    dead_strip = w.face_weight * w.height
+    shear = np.where(rigid, push.whole(), push.strip(push.wind.line_end))
+    weight = np.where(rigid, _dead(w), dead_strip)
+    footing_weight = np.where(rigid, ftg_strip * w.width, ftg_strip)
     # A framed wall's sill is nailed or bolted down: that connection is the framer's, not friction.
     slides = ~w.framed
     friction = w.base_mu * f.dead_resists * weight
     bond = stability.masonry_bed_joint_shear(w.section_area, f.dead_resists * dead_strip)
     grip = np.where(w.masonry & ~w.fresh, np.maximum(friction, bond), friction)
-    checks["sliding at base|*"] = (np.where(slides, f.wind * push, na), np.where(slides, grip, na))
-    checks["footing sliding|*"] = (
-        np.where(ftg, f.wind * push, na),
-        np.where(ftg, w.footing_mu * f.dead_resists * (weight + footing_weight), na))
-    return checks
+    return {
+        "sliding at base|*": (np.where(slides, shear, na), np.where(slides, grip, na)),
+        "footing sliding|*": (
+            np.where(ftg, shear, na),
+            np.where(ftg, w.footing_mu * f.dead_resists * (weight + footing_weight), na))}
+
+
+def _dead(w: Walls) -> np.ndarray:
+    """Each wall's weight, lb."""
+    return w.face_weight * w.height * w.width * w.solidity
+
+
+def _footing(w: Walls) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """Each wall's footing width and thickness (ft) and weight per ft of wall (lb), 0: none."""
+    ftg = w.has_footing
+    ftg_w = np.where(ftg, w.footing_width, 0.0)
+    return (ftg_w, np.where(ftg, w.footing_thickness, 0.0),
+            np.where(ftg, w.footing_psf * ftg_w, 0.0))
 
 
 CHECK_INFO = {
@@ -98,9 +164,9 @@ def demand_ratio(demand, capacity):
         return np.where(capacity > 0, demand / capacity, np.where(demand > 0, np.inf, 0.0))
 
 
-def unbraced_at(walls: Walls, wind: Wind, f: Factors) -> np.ndarray:
+def unbraced_at(walls: Walls, wind: Wind, f: Factors, held: tuple = ()) -> np.ndarray:
     """The largest utilization, less 1, of each wall standing on its own."""
-    return governing_utilization(wall_checks(walls, wind, f)) - 1.0
+    return governing_utilization(wall_checks(walls, wind, f, held)) - 1.0
 
 
 # Checks of walls on their own against allowable values (IBC Table 1806.2 bearing and friction),
@@ -110,19 +176,20 @@ ALLOWABLE_ALONE = {"soil bearing", "footing sliding"}
 ALLOWABLE_MASONRY = {"overturning", "sliding at base"}
 
 
-def wall_checks(w: Walls, wind: Wind, f: Factors) -> dict[str, tuple[np.ndarray, np.ndarray]]:
+def wall_checks(w: Walls, wind: Wind, f: Factors, held: tuple = ()
+                ) -> dict[str, tuple[np.ndarray, np.ndarray]]:
     """`stability_checks` with the allowable ones on `f.allowable` where it has one (LRFD)."""
-    checks = stability_checks(w, wind, f)
+    checks = stability_checks(w, wind, f, held)
     if f.allowable is None:
         return checks
-    allowable = stability_checks(w, wind, f.allowable)
+    allowable = stability_checks(w, wind, f.allowable, held)
     cured = w.masonry & ~w.fresh
     out = {}
     for key, pair in checks.items():
         element = key.partition("|")[0]
         rows = (True if element in ALLOWABLE_ALONE else
                 cured if element in ALLOWABLE_MASONRY else False)
-        out[key] = tuple(np.where(rows, a, v) for v, a in zip(pair, allowable[key]))
+        out[key] = tuple(np.where(rows, a, v) for v, a in zip(pair, allowable[key], strict=True))
     return out
 
 

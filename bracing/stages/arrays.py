@@ -148,6 +148,11 @@ def take(obj, rows):
     return replace(obj, **{name: rows_of(v, rows) for name, v in arrays.items()})
 
 
+def take_each(objects: tuple, rows) -> tuple:
+    """`take` of each of `objects`."""
+    return tuple(take(obj, rows) for obj in objects)
+
+
 def rows_of(array, rows):
     """`array[rows]` along the first axis (np.take copies the rows of a 2-D array many times
     faster than indexing does)."""

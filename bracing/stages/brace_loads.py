@@ -9,6 +9,7 @@ import numpy as np
 from bracing import braces, lines
 from bracing.stages.arrays import rows_of
 from bracing.stages.brace_set import BraceSet
+from bracing.stages.loads import KINDS
 from bracing.wind import asce7
 
 
@@ -20,7 +21,7 @@ class BraceForces:
     axial: np.ndarray       # (m, k) |P|, lb
     total: np.ndarray       # largest sum of R_h over the load cases, lb
     base_shear: np.ndarray  # largest |F - sum R_h| (plus lean), lb
-    wind_force: np.ndarray  # the whole wall's force for that case, lb
+    lateral_force: np.ndarray  # the whole wall's factored lateral force in that case, lb
 
 
 @dataclass(frozen=True)
@@ -40,10 +41,13 @@ class BraceLoads:
     base_shear: np.ndarray  # (m,) F - sum R_h of the case where it is largest in size, signed:
     #                         it reverses where the insert is below the resultant
     lean_total: np.ndarray  # (m,) sum of the braces' horizontal reactions to the lean
+    held: tuple[HeldReaction, ...] = ()  # the loads that do not grow with the wind, by kind
 
     def take(self, rows) -> BraceLoads:
         """The loads of the walls `rows` only."""
-        return BraceLoads(*(rows_of(getattr(self, f.name), rows) for f in fields(self)))
+        return replace(self, held=tuple(h.take(rows) for h in self.held), **{
+            f.name: rows_of(getattr(self, f.name), rows) for f in fields(self)
+            if f.name != "held"})
 
     def scaled(self, factor) -> BraceLoads:
         """The wind times `factor` (one value, or one per wall); the lean as it is."""
@@ -54,14 +58,32 @@ class BraceLoads:
                        base_shear=self.base_shear * factor)
 
 
-def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
+@dataclass(frozen=True)
+class HeldReaction:
+    """The braces' unfactored reactions to one lateral load that does not grow with the wind
+    (loads.LateralLoad), over m walls and k braces: worked out like the wind's, by statics."""
+
+    kind: str               # its entry in loads.KINDS
+    each: np.ndarray        # (m, k) each brace's horizontal reaction, lb (0 at an empty slot)
+    total: np.ndarray       # (m,) their sum
+    force: np.ndarray       # (m,) the load on the wall
+
+    def take(self, rows) -> HeldReaction:
+        """The same of the walls `rows` only."""
+        return HeldReaction(kind=self.kind, each=rows_of(self.each, rows),
+                            total=rows_of(self.total, rows), force=rows_of(self.force, rows))
+
+
+def brace_loads(walls, wind, bs: BraceSet, minimum_psf, held: tuple = ()) -> BraceLoads:
     """The wind load cases on each braced wall and each brace's reactions (design.md §4, §6).
 
     A rigid panel's braces share each load case as a whole with the twist, and so do those of
     a wall built in place whose braces a continuous stiff member ties together (a strongback
     or waler); any other wall built in place gives each brace its own strip (each worked out
     for the walls that use it), under the worst of its pressure patterns. Worked out once for
-    a wind: the reactions of any load factor and any scale follow from them."""
+    a wind: the reactions of any load factor and any scale follow from them. `held`: the
+    lateral loads that do not grow with the wind (loads.fixed_loads), each shared the same way
+    (`held_reactions`)."""
     rigid = walls.rigid[bs.index] | bs.stiff
     m, k = bs.mask.shape
     i = bs.index
@@ -83,7 +105,7 @@ def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
         high, low = np.full(arms[2].shape, -np.inf), np.full(arms[2].shape, np.inf)
         pushed, sums, out = np.zeros(len(rows)), np.zeros(len(rows)), np.zeros(len(rows))
         for case, case_sum, even, twist in zip(case_force, sum_h, share, per_arm):
-            shares = even[:, None] + twist[:, None] * arms[2]  # as braces.brace_shares
+            shares = braces.each_share(even, twist, arms[2])
             high, low = np.maximum(high, shares), np.minimum(low, shares)
             pushed = np.where(case_sum > sums, case, pushed)  # the first case of the largest sum
             sums = np.maximum(sums, case_sum)
@@ -109,7 +131,29 @@ def brace_loads(walls, wind, bs: BraceSet, minimum_psf) -> BraceLoads:
     count = braces.slot_sum(bs.mask, 0)
     lean = np.where(rigid[:, None], lean, np.where(bs.mask, (lean_total / count)[:, None],
                                                    np.nan))
-    return BraceLoads(most, least, lean, total, force, shear, lean_total)
+    return BraceLoads(most=most, least=least, lean=lean, total=total, wind_force=force,
+                      base_shear=shear, lean_total=lean_total,
+                      held=tuple(held_reactions(load, walls, bs, rigid, lever) for load in held))
+
+
+def held_reactions(load, walls, bs: BraceSet, rigid, lever) -> HeldReaction:
+    """The braces' reactions to one lateral load (loads.LateralLoad) held as it is (design.md
+    §6): a rigid panel's, or those a stiff member ties, share its resultant with the twist
+    (braces.brace_shares); any other brace takes its own strip's share of the loaded length
+    (braces.total_brace_reaction), its resultant at the load's height."""
+    i = bs.index
+    force, height, at, line = (v[i] for v in (load.force, load.height, load.at, load.line))
+    total_h = braces.total_brace_reaction(force, height, bs.insert)
+    shared = np.where(bs.mask, braces.brace_shares(total_h, force, at, walls.width[i] / 2.0,
+                                                   bs.positions, bs.mask, lever), 0.0)
+    by_position, lo, hi = _strip_bounds(bs.positions, bs.mask, walls.width[i])
+    length = np.maximum(np.minimum(hi, load.end[i][:, None])
+                        - np.maximum(lo, load.start[i][:, None]), 0.0)
+    strip = _in_slots(line[:, None] * length, by_position, bs.mask)
+    own = braces.total_brace_reaction(strip, height[:, None], bs.insert[:, None])
+    each = np.where(rigid[:, None], shared, own)
+    return HeldReaction(kind=load.kind, each=each, total=braces.slot_sum(each),
+                        force=np.where(rigid, force, braces.slot_sum(strip)))
 
 
 LOAD_CASES = 5  # Case A, Case B from either edge, Case C from either end (alone or on a line)
@@ -140,13 +184,23 @@ def brace_forces(loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
     Each brace's wind reaction (factored) plus its lean: the larger in size of its largest and
     least over the cases (|x + lean| is largest at one end of the reactions' range). The base
     shear is F - sum(R_h) with the lean among the braces' reactions: the lean's reaction comes
-    off it (design.md §6; it reverses where the insert is below the wind's resultant)."""
+    off it (design.md §6; it reverses where the insert is below the wind's resultant). The held
+    loads add to each brace's reaction and to the base shear with their own factors in `f`
+    (loads.KINDS), pushing the same way as the wind (the worse way)."""
     lean_total, lean = f.dead_adds * loads.lean_total, f.dead_adds * loads.lean
+    shear, lateral = f.wind * loads.base_shear - lean_total, f.wind * loads.wind_force
+    for held in loads.held:
+        factor = KINDS[held.kind].factor(f)
+        lean = lean + factor * held.each
+        lean_total = lean_total + factor * held.total
+        shear = shear + factor * (held.force - held.total)
+        lateral = lateral + factor * held.force
     horizontal = np.fmax(np.abs(f.wind * loads.most + lean), np.abs(f.wind * loads.least + lean))
     horizontal = np.where(bs.mask, horizontal, 0.0)
     axial = braces.axial_force(horizontal, bs.angle[:, None])
-    return BraceForces(horizontal, axial, f.wind * loads.total + lean_total,
-                       np.abs(f.wind * loads.base_shear - lean_total), loads.wind_force)
+    return BraceForces(horizontal=horizontal, axial=axial,
+                       total=f.wind * loads.total + lean_total, base_shear=np.abs(shear),
+                       lateral_force=lateral)
 
 
 def _strip_loads(walls, wind, i, listed, positions, mask, minimum_psf):
@@ -167,17 +221,7 @@ def _strip_loads(walls, wind, i, listed, positions, mask, minimum_psf):
     s, b, solid, share, q, cf_a, opening, groups, base = (
         v[listed] for v in (s, b, solid, share, wind.q[i], wind.cf_case_a[i], wind.opening[i],
                             walls.groups[i], walls.base[i]))
-    x = np.where(mask, positions, np.nan)
-    by_position = np.argsort(x, axis=1)  # the empty slots (NaN) last
-    order = np.take_along_axis(x, by_position, axis=1)
-    mids = (order[:, 1:] + order[:, :-1]) / 2.0
-    lo = np.concatenate([np.zeros((len(s), 1)), mids], axis=1)
-    hi = np.concatenate([mids, np.full((len(s), 1), np.inf)], axis=1)
-    hi = np.minimum(np.where(np.isnan(hi), b[:, None], hi), b[:, None])
-    count = braces.slot_sum(mask, 0)
-    last = np.arange(mask.shape[1])[None, :] == (count - 1)[:, None]
-    hi = np.where(last, b[:, None], hi)
-    lo, hi = np.where(np.isnan(lo), 0.0, lo), np.where(np.isnan(hi), 0.0, hi)
+    by_position, lo, hi = _strip_bounds(positions, mask, b)
     area = s[:, None] * np.maximum(hi - lo, 0.0) * share[:, None]
     floor = (minimum_psf or 0.0) * area  # ASCE 7-16 §29.7 on As (design.md §3)
     g = asce7.GUST_FACTOR
@@ -188,7 +232,27 @@ def _strip_loads(walls, wind, i, listed, positions, mask, minimum_psf):
         cf_c = lines.strip_case_c(groups, b, s, base, lo, hi) * opening[:, None]
         strip = np.where(solid[:, None], np.maximum(strip, np.maximum(
             q[:, None] * g * cf_c * area, floor)), strip)
-    # strips follow the sorted positions: put them back in each brace's own slot
-    in_slots = np.empty_like(strip)
-    np.put_along_axis(in_slots, by_position, strip, axis=1)
+    return _in_slots(strip, by_position, mask)
+
+
+def _strip_bounds(positions, mask, b):
+    """Each brace's tributary strip of a wall `b` ft long, from midway to its neighbours (the
+    end strips to the wall's ends), in order of position (`by_position`: each's slot)."""
+    x = np.where(mask, positions, np.nan)
+    by_position = np.argsort(x, axis=1)  # the empty slots (NaN) last
+    order = np.take_along_axis(x, by_position, axis=1)
+    mids = (order[:, 1:] + order[:, :-1]) / 2.0
+    lo = np.concatenate([np.zeros((len(b), 1)), mids], axis=1)
+    hi = np.concatenate([mids, np.full((len(b), 1), np.inf)], axis=1)
+    hi = np.minimum(np.where(np.isnan(hi), b[:, None], hi), b[:, None])
+    count = braces.slot_sum(mask, 0)
+    last = np.arange(mask.shape[1])[None, :] == (count - 1)[:, None]
+    hi = np.where(last, b[:, None], hi)
+    return by_position, np.where(np.isnan(lo), 0.0, lo), np.where(np.isnan(hi), 0.0, hi)
+
+
+def _in_slots(values, by_position, mask):
+    """Values in order of position put back in each brace's own slot (0 at an empty one)."""
+    in_slots = np.empty_like(values)
+    np.put_along_axis(in_slots, by_position, values, axis=1)
     return np.where(mask, in_slots, 0.0)

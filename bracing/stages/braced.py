@@ -209,7 +209,7 @@ def _checks_at(walls, bs: BraceSet, f, loads: BraceLoads, standing: Standing | N
     checks["base kick-out"] = (np.where(held, forces.base_shear, na), standing.base_mu * np.maximum(
         standing.weight - lift, 0.0))
     # The wall spanning from its base to the braces, per ft of width.
-    pressure = f.wind * forces.wind_force / standing.area
+    pressure = forces.lateral_force / standing.area
     span, cantilever = braces.propped_wall_moments(pressure, standing.height, bs.insert)
     moment = np.maximum(span, cantilever)
     checks["wall bending"] = (moment, standing.bending)

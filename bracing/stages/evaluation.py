@@ -36,3 +36,4 @@ class Evaluation:
     fresh_limit: np.ndarray | None = None       # masonry with fresh mortar (NaN: other walls)
     fresh_stand_down: np.ndarray | None = None
     columns: dict[str, tuple] | None = None  # the panels' fields (model.read_panels)
+    held: tuple = ()  # the lateral loads that do not grow with the wind (loads.LateralLoad)

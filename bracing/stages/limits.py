@@ -9,7 +9,7 @@ import numpy as np
 
 from bracing.model import Site
 from bracing.stages.alone import governing_utilization, unbraced_at
-from bracing.stages.arrays import Walls, rows_of, take
+from bracing.stages.arrays import Walls, rows_of, take, take_each
 from bracing.stages.brace_loads import brace_loads
 from bracing.stages.brace_set import BraceSet, for_checks, for_loads
 from bracing.stages.braced import SERVICEABILITY, braced_checks, standing_of
@@ -51,16 +51,18 @@ def fresh_mortar_limits(site: Site, unit: Wind, e: Evaluation) -> tuple[np.ndarr
     alone = np.flatnonzero(again & ~has_braces)
     if len(alone):
         limit[alone] = solve_speed(lambda v2, rows: unbraced_at(
-            take(fresh, alone[rows]), take(unit, alone[rows]).scaled(v2), SERVICE), len(alone))
+            take(fresh, alone[rows]), take(unit, alone[rows]).scaled(v2), SERVICE,
+            take_each(e.held, alone[rows])), len(alone))
         stand_down[alone] = stand_down_speeds(site, take(fresh, alone), limit[alone])
     if bs is not None and again[bs.index].any():
         sub = take(bs, np.flatnonzero(again[bs.index]))
-        limit[sub.index] = braced_limit(fresh, unit, sub)
+        limit[sub.index] = braced_limit(fresh, unit, sub, e.held)
         stand_down[sub.index] = stand_down_speeds(site, take(fresh, sub.index), limit[sub.index])
     return limit, stand_down
 
 
-def braced_utilization(w: Walls, unit: Wind, bs: BraceSet, rows=None, mask=None):
+def braced_utilization(w: Walls, unit: Wind, bs: BraceSet, rows=None, mask=None,
+                       held: tuple = ()):
     """g(v2, r): the largest strength utilization, less 1, of the braced walls `r` in an observed
     gust whose speed squared is v2 (mph^2).
 
@@ -72,7 +74,7 @@ def braced_utilization(w: Walls, unit: Wind, bs: BraceSet, rows=None, mask=None)
     """
     rows = np.arange(len(bs.index)) if rows is None else rows
     mask = bs.mask if mask is None else mask
-    loads = brace_loads(w, unit, for_loads(bs, rows, mask), None)
+    loads = brace_loads(w, unit, for_loads(bs, rows, mask), None, held)
     standing = standing_of(w, bs, SERVICE)
     checked = for_checks(bs)
 
@@ -89,13 +91,13 @@ def braced_utilization(w: Walls, unit: Wind, bs: BraceSet, rows=None, mask=None)
     return g
 
 
-def braced_limit(w: Walls, unit: Wind, bs: BraceSet) -> np.ndarray:
+def braced_limit(w: Walls, unit: Wind, bs: BraceSet, held: tuple = ()) -> np.ndarray:
     """Working-limit gust of each braced wall: its most utilized element reaches 1.0 (§3)."""
-    return solve_speed(braced_utilization(w, unit, bs), len(bs.index))
+    return solve_speed(braced_utilization(w, unit, bs, held=held), len(bs.index))
 
 
-def braced_limit_one_missing(w: Walls, unit: Wind, bs: BraceSet,
-                             full: np.ndarray) -> np.ndarray:
+def braced_limit_one_missing(w: Walls, unit: Wind, bs: BraceSet, full: np.ndarray,
+                             held: tuple = ()) -> np.ndarray:
     """The working-limit gust with the worst single brace missing (equipment strikes one).
 
     Of each wall's variants (one brace struck each), the one without the brace farthest from
@@ -103,7 +105,8 @@ def braced_limit_one_missing(w: Walls, unit: Wind, bs: BraceSet,
     worst in about nine walls in ten). The others are only checked at its limit: a variant
     whose utilization there is still within 1.0 cannot fail sooner. Those that do fail sooner,
     and every variant of a wall whose first search found no limit, are searched too. `full`
-    (each wall's limit with all its braces) is where the searches start.
+    (each wall's limit with all its braces) is where the searches start; `held`: the loads
+    that do not grow with the wind, held as they are.
     """
     count = bs.mask.sum(axis=1)
     # One brace left cannot carry the twist of Case B (no base restraint credited, §6): 0 mph.
@@ -113,7 +116,7 @@ def braced_limit_one_missing(w: Walls, unit: Wind, bs: BraceSet,
         return out
     mask = rows_of(bs.mask, rows)
     mask[np.arange(len(rows)), slots] = False
-    g = braced_utilization(w, unit, bs, rows, mask)
+    g = braced_utilization(w, unit, bs, rows, mask, held)
     start = np.where(np.isfinite(full[rows]), full[rows], TYPICAL_LIMIT_MPH)
 
     def search(which):
