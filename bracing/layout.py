@@ -105,7 +105,7 @@ def design(site: Site, rows: list[int], walls, wind, factors, minimum_psf) -> li
                              np.argmin(ranked, axis=1))
         choice = np.arange(len(pending)) * len(combos) + pick_best
         done = []
-        for w, j in zip(pending, choice):
+        for w, j in zip(pending, choice, strict=True):
             layout = Bracing(brace_type=column["brace_type"][j],
                              wall_anchor=column["wall_anchor"][j],
                              foot_anchor=column["foot_anchor"][j], count=count,

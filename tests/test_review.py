@@ -60,7 +60,8 @@ def test_every_help_states_the_exit_codes(capsys, command):
         cli.main([*command, "--help"])
     out = capsys.readouterr().out
     assert "exit codes" in out
-    assert re.search(r"^\s+1\s", out, re.MULTILINE) and re.search(r"^\s+2\s+bad input", out, re.MULTILINE)
+    assert re.search(r"^\s+1\s", out, re.MULTILINE)
+    assert re.search(r"^\s+2\s+bad input", out, re.MULTILINE)
 
 
 def test_panel_exits_1_when_the_wall_fails_and_0_when_it_stands(capsys):

@@ -52,9 +52,10 @@ def test_every_kind_accepts_values_with_units(text, kind, expected, source):
     assert units.parse(text, kind) == pytest.approx(expected, rel=1e-12), source
 
 
-@pytest.mark.parametrize(("value", "kind"), [(30, "length"), (7.25, "thickness"), (150, "unit_weight"),
-                                             (36.0, "pressure"), (115, "speed"), (55, "angle"),
-                                             (5, "duration"), ("30", "length"), (" 30 ", "length")])
+@pytest.mark.parametrize(("value", "kind"), [
+    (30, "length"), (7.25, "thickness"), (150, "unit_weight"),
+    (36.0, "pressure"), (115, "speed"), (55, "angle"),
+    (5, "duration"), ("30", "length"), (" 30 ", "length")])
 def test_a_bare_number_takes_the_documented_unit(value, kind):
     assert units.parse(value, kind) == float(value)
 

@@ -1,4 +1,5 @@
-"""Reading the walls into arrays: one entry per wall, every formula runs over them (design.md §2, §9)."""
+"""Reading the walls into arrays: one entry per wall, every formula runs over them (design.md
+§2, §9)."""
 
 from __future__ import annotations
 
@@ -77,8 +78,9 @@ def gather(site: Site, columns: dict[str, tuple] | None = None,
         np.array([kind[c] for kind in kinds], dtype=bool)[material] for c in range(4))
     tension = np.array([kind[4] for kind in kinds], dtype=float)[material]  # None: NaN
     bedding = np.array([kind[5] for kind in kinds])[material]
-    mat_face, mat_unit = (np.array([getattr(m, name) for m in site.materials.values()],
-                                   dtype=float)[material] for name in ("face_weight", "unit_weight"))
+    mat_face, mat_unit = (
+        np.array([getattr(m, name) for m in site.materials.values()], dtype=float)[material]
+        for name in ("face_weight", "unit_weight"))
     t_ft = thickness / 12.0
     # the panel's face weight, or its unit weight, or its material's face or unit weight
     face = np.where(~np.isnan(face_weight), face_weight, np.where(

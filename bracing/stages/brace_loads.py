@@ -104,7 +104,7 @@ def brace_loads(walls, wind, bs: BraceSet, minimum_psf, held: tuple = ()) -> Bra
                                                 arms)
         high, low = np.full(arms[2].shape, -np.inf), np.full(arms[2].shape, np.inf)
         pushed, sums, out = np.zeros(len(rows)), np.zeros(len(rows)), np.zeros(len(rows))
-        for case, case_sum, even, twist in zip(case_force, sum_h, share, per_arm):
+        for case, case_sum, even, twist in zip(case_force, sum_h, share, per_arm, strict=True):
             shares = braces.each_share(even, twist, arms[2])
             high, low = np.maximum(high, shares), np.minimum(low, shares)
             pushed = np.where(case_sum > sums, case, pushed)  # the first case of the largest sum

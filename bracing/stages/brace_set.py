@@ -154,7 +154,7 @@ def _capacities(site, rows, c, length, angle, basis) -> dict[str, np.ndarray]:
         bt = site.brace_types[name]
         values = _brace_capacity(bt, length[sel], angle[sel], basis)
         for key, v in zip(("compression", "tension", "self_weight_ratio", "euler_load",
-                           "slenderness", "slenderness_limit"), values):
+                           "slenderness", "slenderness_limit"), values, strict=True):
             out[key][sel] = v
         # A compression-only brace takes no tension: its tension and end fittings in
         # tension are not checked; the wind away from it is (evaluate.reverse_wind_checks).

@@ -6,7 +6,7 @@ kind of lateral load reaches them through `brace_loads` alone."""
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, fields
+from dataclasses import dataclass, fields, replace
 
 import numpy as np
 
@@ -111,7 +111,8 @@ class Standing:
 
     def take(self, rows) -> Standing:
         """The same of the walls `rows` only."""
-        return Standing(*(rows_of(getattr(self, f.name), rows) for f in fields(self)))
+        return replace(self, **{f.name: rows_of(getattr(self, f.name), rows)
+                                for f in fields(self)})
 
 
 def standing_of(walls, bs: BraceSet, f) -> Standing:
@@ -124,12 +125,13 @@ def standing_of(walls, bs: BraceSet, f) -> Standing:
     bending = (np.where(masonry, _masonry_bending(walls, bs, f, s), np.nan) if masonry.any()
                else np.full(len(i), np.nan))
     framed = walls.framed[i]
-    return Standing(np.cos(theta), np.sin(theta), np.tan(theta),
+    return Standing(cos=np.cos(theta), sin=np.sin(theta), tan=np.tan(theta),
                     # A framed wall's sill is fastened down: its uplift is checked against the
                     # weight and the sill fastening; its kick-out is the sill's (method notes §4).
-                    ~framed, framed, f.dead_resists * dead, np.nan_to_num(bs.sill) * b,
-                    walls.base_mu[i], b * s, s, bending,
-                    braces.cracking_moment(bs.rupture, walls.thickness_ft[i] * 12.0))
+                    held=~framed, framed=framed, weight=f.dead_resists * dead,
+                    sill=np.nan_to_num(bs.sill) * b, base_mu=walls.base_mu[i], area=b * s,
+                    height=s, bending=bending,
+                    cracking=braces.cracking_moment(bs.rupture, walls.thickness_ft[i] * 12.0))
 
 
 def sill_uplift(lift, weight, count, width):
@@ -155,7 +157,8 @@ def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads |
     if f.allowable is not None:
         allowable, _ = _checks_at(walls, bs, f.allowable, loads, None)
         strength = _strength_rows(bs)
-        checks = {k: tuple(np.where(strength[k], v, a) for v, a in zip(checks[k], allowable[k]))
+        checks = {k: tuple(np.where(strength[k], v, a)
+                           for v, a in zip(checks[k], allowable[k], strict=True))
                   if k in strength else allowable[k] for k in checks}
     return checks, forces
 
@@ -250,7 +253,7 @@ def _deadman_checks(bs: BraceSet, f, deadman, pull, up, na) -> dict:
                                                             bs.pin_from_toe), na),
          np.where(sized, anchors.deadman_resisting_moment(weight, bs.block_length / 2.0,
                                                           f.dead_resists), na)),
-        (np.where(bearing, peak, na), np.where(bearing, bs.block_bearing, na)))))
+        (np.where(bearing, peak, na), np.where(bearing, bs.block_bearing, na))), strict=True))
 
 
 def _masonry_bending(walls, bs: BraceSet, f, s):
@@ -288,7 +291,7 @@ def braced_records(bs: BraceSet, forces: BraceForces, brace_type: list[str],
                 pull.tolist(), _of_braces(bs.positions, count), _of_braces(forces.axial, count),
                 forces.base_shear.tolist(), uplift.tolist(), helical.tolist(), torque.tolist(),
                 brace_type, wall_anchor, foot_anchor, utilization, one_missing,
-                sill[0].tolist(), sill[1].tolist()):
+                sill[0].tolist(), sill[1].tolist(), strict=True):
         record = {
             "count": k, "angle_deg": angle, "insert_height_ft": insert,
             "anchor_distance_ft": distance, "length_ft": length, "axial_force_lb": axial,
@@ -311,6 +314,6 @@ def _of_braces(per_slot: np.ndarray, count: np.ndarray) -> list[list]:
     out = [None] * len(count)
     for k in np.unique(count).tolist():
         rows = np.flatnonzero(count == k)
-        for r, of_wall in zip(rows.tolist(), per_slot[rows, :k].tolist()):
+        for r, of_wall in zip(rows.tolist(), per_slot[rows, :k].tolist(), strict=True):
             out[r] = of_wall
     return out

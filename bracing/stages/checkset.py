@@ -3,7 +3,8 @@
 from __future__ import annotations
 
 import re
-from dataclasses import dataclass
+from dataclasses import dataclass, fields
+from itertools import pairwise, repeat
 
 import numpy as np
 
@@ -63,19 +64,21 @@ def check_set(arrays: dict, info: dict, combos: dict, ways: list[tuple[str, dict
     which = way[wall] * len(arrays) + column
     element, region, unit, combination, source = np.array(
         named, dtype=object).reshape(-1, 5)[which].T.tolist()
-    made = list(map(Check, element, region, demand.T[applies].tolist(),
-                    capacity.T[applies].tolist(), unit, combination, source))
+    made = each_of(Check, len(wall), element=element, region=region,
+                   demand=demand.T[applies].tolist(), capacity=capacity.T[applies].tolist(),
+                   unit=unit, combination=combination, source=source)
     ends = np.cumsum(applies.sum(axis=1)).tolist()
     # a wall with some check over 1.0: the checks that do not pass (Check.passes)
     fails = np.flatnonzero((ratios.max(axis=0, initial=-np.inf) > 1.0)[wall]
                            & ~(ratios.T[applies] <= 1.0))
-    failing = list(zip(wall[fails].tolist(), map(made.__getitem__, fails.tolist())))
+    failing = list(zip(wall[fails].tolist(), map(made.__getitem__, fails.tolist()), strict=True))
     governing = [f"{element} ({region})" for element, region, *_ in named]
-    return CheckSet([made[start:end] for start, end in zip([0, *ends], ends)],
-                     [governing[k] for k in (way * len(arrays)
-                                             + strength.argmax(axis=0)).tolist()],
-                     (strength.max(axis=0, initial=-np.inf) <= 1.0).tolist(),
-                     failing, np.where(brace == -np.inf, None, brace).tolist())
+    return CheckSet(checks=[made[start:end] for start, end in pairwise([0, *ends])],
+                    governing=[governing[k] for k in (way * len(arrays)
+                                                      + strength.argmax(axis=0)).tolist()],
+                    strength_ok=(strength.max(axis=0, initial=-np.inf) <= 1.0).tolist(),
+                    failing=failing,
+                    brace_utilization=np.where(brace == -np.inf, None, brace).tolist())
 
 
 def _check_columns(arrays: dict, info: dict, combos: dict) -> list[tuple]:
@@ -110,3 +113,13 @@ def on_allowable(f: Factors, kind: str) -> str:
     a = f.allowable
     named = {"resisting": a.resisting, "adding": a.adding, "wind": a.wind_only}
     return f"{named[kind]} (allowable capacity: ASD combination under LRFD)"
+
+
+def each_of(cls, n: int, **fields_of) -> list:
+    """`n` objects of the dataclass `cls` from each field's values by name: a list holds one
+    per object, anything else is every object's."""
+    names = [f.name for f in fields(cls)]
+    if set(fields_of) != set(names):
+        raise TypeError(f"{cls.__name__} fields not given: {set(names) ^ set(fields_of)}")
+    return list(map(cls, *(v if isinstance(v, list) else repeat(v, n)
+                           for v in map(fields_of.get, names))))

@@ -82,7 +82,7 @@ def braced_utilization(w: Walls, unit: Wind, bs: BraceSet, rows=None, mask=None,
         parts = -(-len(r) // BRACED_WALLS_AT_ONCE)
         if parts > 1:  # in parts: the arrays of many more walls outgrow the processor's cache
             return np.concatenate([g(*part) for part in zip(np.array_split(v2, parts),
-                                                            np.array_split(r, parts))])
+                                                            np.array_split(r, parts), strict=True)])
         of_wall = rows[r]
         variant = replace(take(checked, of_wall), mask=rows_of(mask, r))
         checks, _ = braced_checks(w, None, variant, SERVICE, None,
@@ -148,7 +148,8 @@ def strength_only(checks: dict) -> dict:
 
 
 def stand_down_speeds(site: Site, w: Walls, limit: np.ndarray) -> np.ndarray:
-    """Stand-down ratio x working limit, capped for masonry by the industry speeds (design.md §3)."""
+    """Stand-down ratio x working limit, capped for masonry by the industry speeds (design.md
+    §3)."""
     ratio = site.rule_value("stand_down_ratio")
     speed = (1.0 if ratio is None else ratio) * limit
     initial = site.rule_value("masonry_initial_speed_mph")

@@ -66,8 +66,9 @@ def evaluate_arrays(site: Site, edges: dict[str, float] | None = None,
     max_at_limit = (solve_increasing(lambda h, rows: at_height(h, rows, gust, 1.0, None, SERVICE),
                                      *HEIGHT_BRACKET_FT, n, start=w.height)
                     if gust else np.full(n, np.nan))
-    e = Evaluation(w, wind, checks, governing_utilization(checks), limit,
-                   stand_down_speeds(site, w, limit), max_height, max_at_limit, design_speed)
+    e = Evaluation(walls=w, wind=wind, checks=checks, utilization=governing_utilization(checks),
+                   limit=limit, stand_down=stand_down_speeds(site, w, limit),
+                   max_height=max_height, max_at_limit=max_at_limit, design_speed=design_speed)
     e.columns, e.held = columns, held
     bs = gather_braces(site, site.site.design_basis, edges, columns)
     if bs is not None:

@@ -80,7 +80,9 @@ def wind_on(w: Walls, speed, kd: float, minimum_psf: float | None) -> Wind:
     ratio = asce7.resultant_height_ratio(s_over_h)
     # Figure 29.3-1: the resultant 0.05 h above the geometric centre where s/h = 1.
     lever = s * (w.centroid_ratio + (ratio - 0.5))
-    return Wind(kz, q, cf_case_a, opening, cf_whole, area, force_a, force, cf_end, cf_interior,
-                line.left_mean, line.left_x, line.right_mean, line.right_x,
-                line_end, line_interior, lever, s * ratio,
-                (q * g * cf_whole * area) < floor)
+    return Wind(kz=kz, q=q, cf_case_a=cf_case_a, opening=opening, cf_whole=cf_whole, area=area,
+                force_a=force_a, force=force, cf_end=cf_end, cf_interior=cf_interior,
+                cf_left=line.left_mean, x_left=line.left_x, cf_right=line.right_mean,
+                x_right=line.right_x, line_end=line_end, line_interior=line_interior,
+                lever=lever, lever_strip=s * ratio,
+                minimum_governs=(q * g * cf_whole * area) < floor)
