@@ -50,31 +50,13 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     columns = read_panels(site)
     releases = lines.releases(site, columns)  # designed layouts leave the lifts as they are
     places = plan.place(site, columns)
-    e = evaluate_arrays(site, plan.foot_edge_distances_in(site, places) if places else {},
-                        releases, columns)
+    e = evaluate_arrays(site, _edges(site, places), releases, columns)
     designs = {}
     if design and site.design is not None:
-        rows = [i for i, p in enumerate(site.panels) if p.bracing is None
-                and (e.utilization[i] > 1.0 or _masonry_over_limit(site, p))]
-        if rows:
-            found = layout.design(site, rows, e.walls, e.wind, COMBINATIONS[
-                site.site.design_basis], site.rule_value("minimum_design_pressure_psf"))
-            designs = {d.panel: d for d in found}
-            site = layout.with_designs(site, found)
-            columns = read_panels(site)
-            places = plan.place(site, columns)
-            e = evaluate_arrays(site, plan.foot_edge_distances_in(site, places) if places else {},
-                                releases, columns)
+        site, designs, places, e = _with_designs(site, e, places, releases)
     panels = Results(site, e).panels()
+    _designer_flags(panels, designs)
     by_mark = {p.mark: p for p in panels}
-    for i, d in designs.items():
-        if d.layout is not None:
-            panels[i].braces["designed"] = True
-            panels[i].flags.append(Flag("designed-layout", "notice", "bracing laid out by the "
-                                        "designer: check it against the site before use",
-                                        "layout designer"))
-        else:
-            panels[i].flags.append(Flag("no-layout", "danger", d.message, "layout designer"))
     found = plan.findings(site, places) if places else []  # one look at every placed wall
     for f in found:
         if f.flag.code in WALL_FINDINGS:
@@ -86,20 +68,59 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     days, peak, wall_flags = schedule.build_days(site, panels, base_dir, releases)
     for mark, flag in wall_flags:  # sign-off and period flags: the wall's checks stand as they are
         by_mark[mark].flags.append(flag)
-    geometry = None
-    if places:
-        if days:
-            geometry = plan.DayPlans(site, {d.day: d.standing for d in days})
-            by_day = plan.day_findings(found, days)
-            for d in days:  # crossings and zone overlaps depend on the walls standing together
-                d.flags.extend(f for f in by_day[d.day] if f.code not in ANCHOR_FINDINGS)
-        else:
-            geometry = plan.plan_geometry(site)
+    geometry = _plan_of_days(site, places, days, found)
     return SiteResult(
         name=site.site.name, basis=site.site.design_basis, basis_statement=basis_statement(site),
         panels=panels, days=days, peak_inventory=peak, plan=geometry,
         not_checked=scope.not_checked(site, columns))
 
+
+
+def _edges(site: Site, places) -> dict[str, float]:
+    """The least edge distance (in) of each wall's slab-anchor feet, from the plan."""
+    return plan.foot_edge_distances_in(site, places) if places else {}
+
+
+def _with_designs(site: Site, e, places, releases):
+    """The site with designed layouts for the walls that cannot stand and have none, and its
+    evaluation again: (site, designs by panel, places, evaluation)."""
+    rows = [i for i, p in enumerate(site.panels) if p.bracing is None
+            and (e.utilization[i] > 1.0 or _masonry_over_limit(site, p))]
+    if not rows:
+        return site, {}, places, e
+    found = layout.design(site, rows, e.walls, e.wind, COMBINATIONS[site.site.design_basis],
+                          site.rule_value("minimum_design_pressure_psf"))
+    site = layout.with_designs(site, found)
+    columns = read_panels(site)
+    places = plan.place(site, columns)
+    return (site, {d.panel: d for d in found}, places,
+            evaluate_arrays(site, _edges(site, places), releases, columns))
+
+
+def _designer_flags(panels: list[PanelResult], designs: dict):
+    """What the layout designer says of the walls it laid out, or could not."""
+    for i, d in designs.items():
+        if d.layout is not None:
+            panels[i].braces["designed"] = True
+            panels[i].flags.append(Flag(
+                code="designed-layout", severity="notice", message="bracing laid out by the "
+                "designer: check it against the site before use", source="layout designer"))
+        else:
+            panels[i].flags.append(Flag(code="no-layout", severity="danger", message=d.message,
+                                        source="layout designer"))
+
+
+def _plan_of_days(site: Site, places, days, found):
+    """The plan's geometry (None: no wall placed), each day's with its crossings and zone
+    overlaps (they depend on the walls standing together)."""
+    if not places:
+        return None
+    if not days:
+        return plan.plan_geometry(site)
+    by_day = plan.day_findings(found, days)
+    for d in days:
+        d.flags.extend(f for f in by_day[d.day] if f.code not in ANCHOR_FINDINGS)
+    return plan.DayPlans(site, {d.day: d.standing for d in days})
 
 
 def evaluate_walls(site: Site, marks: set[str]) -> list[PanelResult]:
