@@ -89,7 +89,7 @@ def _with_designs(site: Site, e, places, releases):
     if not rows:
         return site, {}, places, e
     found = layout.design(site, rows, e.walls, e.wind, COMBINATIONS[site.site.design_basis],
-                          site.rule_value("minimum_design_pressure_psf"))
+                          site.rule_value("minimum_design_pressure_psf"), e.held)
     site = layout.with_designs(site, found)
     columns = read_panels(site)
     places = plan.place(site, columns)

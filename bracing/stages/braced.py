@@ -143,16 +143,17 @@ def sill_uplift(lift, weight, count, width):
 
 @np.errstate(divide="ignore", invalid="ignore", over="ignore")  # infinities and NaN mean 'fails'
 def braced_checks(walls, wind, bs: BraceSet, f, minimum_psf, loads: BraceLoads | None = None,
-                  standing: Standing | None = None):
+                  standing: Standing | None = None, held: tuple = ()):
     """Demand and capacity of every braced element, worst brace of each wall (arrays over m).
 
     `loads` (from `brace_loads`) may be given to skip working out the wind's load cases (the
     wind is then not read), `standing` (from `standing_of`) the parts that do not depend on the
-    wind. A check that applies to none of the walls is NaN throughout. Where `f` has allowable
-    factors of its own (LRFD), the checks of allowable capacities take those (method notes §1).
+    wind; `held`: the lateral loads that do not grow with the wind, for `brace_loads`. A check
+    that applies to none of the walls is NaN throughout. Where `f` has allowable factors of its
+    own (LRFD), the checks of allowable capacities take those (method notes §1).
     """
     if loads is None:
-        loads = brace_loads(walls, wind, bs, minimum_psf)
+        loads = brace_loads(walls, wind, bs, minimum_psf, held)
     checks, forces = _checks_at(walls, bs, f, loads, standing)
     if f.allowable is not None:
         allowable, _ = _checks_at(walls, bs, f.allowable, loads, None)

@@ -25,47 +25,75 @@ def solve_increasing(g, lo: float, hi: float, size: int, start=None, iterations:
     utilization that grows as a power of x, as a wind moment does with height), falling back
     to bisection where the step leaves the bracket: robust like bisection, fast like secant.
     """
-    rows = np.arange(size)
-    a = np.full(size, float(lo))
-    b = np.full(size, float(hi))
-    fa, fb = np.full(size, np.nan), np.full(size, np.nan)
-    known_a, known_b = np.zeros(size, bool), np.zeros(size, bool)
+    br = _Bracket(g, lo, hi, size, tolerance)
+    if start is not None:
+        x0, g0 = br.trial(np.broadcast_to(np.asarray(start, dtype=float), size))
+        with np.errstate(divide="ignore", invalid="ignore", over="ignore"):
+            x1, g1 = br.trial(x0 / (1.0 + g0), x0)  # utilization in proportion to x
+            br.trial(x1 - g1 * (x1 - x0) / (g1 - g0), x1)  # the secant through both
+    br.close()
+    a, b, fa, fb = br.a, br.b, br.fa, br.fb
+    at_lo = (a == lo) & (fa >= 0.0)  # g(lo) >= 0: the root is at (or below) lo
+    no_root = (b == hi) & (fb < 0.0)
+    # walls without a root need no search, nor those where a trial already gave g = 0
+    active = br.rows[(fa < 0.0) & (fb >= 0.0) & (np.minimum(-fa, fb) >= tolerance)]
+    _illinois(g, br, active, iterations, tolerance)
+    root = np.where(np.abs(fa) < np.abs(fb), a, b)
+    root = np.where(at_lo, lo, root)
+    return np.where(no_root, np.nan, root)
 
-    def settled():
-        return (known_a & (np.abs(fa) < tolerance)) | (known_b & (np.abs(fb) < tolerance))
 
-    def trial(x, before=None):
+class _Bracket:
+    """Each wall's bracket [a, b] of its root, with g at its ends where known."""
+
+    def __init__(self, g, lo: float, hi: float, size: int, tolerance: float):
+        self.g, self.lo, self.hi, self.tolerance = g, lo, hi, tolerance
+        self.rows = np.arange(size)
+        self.a, self.b = np.full(size, float(lo)), np.full(size, float(hi))
+        self.fa, self.fb = np.full(size, np.nan), np.full(size, np.nan)
+        self.known_a, self.known_b = np.zeros(size, bool), np.zeros(size, bool)
+
+    def settled(self) -> np.ndarray:
+        tol = self.tolerance
+        return ((self.known_a & (np.abs(self.fa) < tol))
+                | (self.known_b & (np.abs(self.fb) < tol)))
+
+    def trial(self, x, before=None):
         """g at trial values x of the walls neither settled nor bracketed (NaN for others),
         each trial narrowing its wall's bracket."""
-        x = np.clip(x, lo, hi)
-        open_ = ~settled() & ~(known_a & known_b) & ~np.isnan(x)
-        which = rows[open_ if before is None else open_ & (x != before)]
-        gx = np.full(size, np.nan)
+        a, b, fa, fb, known_a, known_b = (self.a, self.b, self.fa, self.fb, self.known_a,
+                                          self.known_b)
+        x = np.clip(x, self.lo, self.hi)
+        open_ = ~self.settled() & ~(known_a & known_b) & ~np.isnan(x)
+        which = self.rows[open_ if before is None else open_ & (x != before)]
+        gx = np.full(len(self.rows), np.nan)
         if len(which):
-            gx[which] = found = g(x[which], which)
+            gx[which] = found = self.g(x[which], which)
             below, above = which[found < 0.0], which[found >= 0.0]  # NaN: neither
             move_a = below[~known_a[below] | (x[below] > a[below])]
             move_b = above[~known_b[above] | (x[above] < b[above])]
             a[move_a], fa[move_a], known_a[below] = x[move_a], gx[move_a], True
             b[move_b], fb[move_b], known_b[above] = x[move_b], gx[move_b], True
         return x, gx
-    if start is not None:
-        x0, g0 = trial(np.broadcast_to(np.asarray(start, dtype=float), size))
-        with np.errstate(divide="ignore", invalid="ignore", over="ignore"):
-            x1, g1 = trial(x0 / (1.0 + g0), x0)  # utilization in proportion to x
-            trial(x1 - g1 * (x1 - x0) / (g1 - g0), x1)  # the secant through both
-    # a trial at g = 0 settles its wall: the other end is not asked
-    done = settled()
-    fa[done & ~known_a], fb[done & ~known_b] = -np.inf, np.inf
-    for x, f, known in ((a, fa, known_a | done), (b, fb, known_b | done)):
-        need = rows[~known]
-        if len(need):
-            f[need] = g(x[need], need)
-    at_lo = (a == lo) & (fa >= 0.0)  # g(lo) >= 0: the root is at (or below) lo
-    no_root = (b == hi) & (fb < 0.0)
-    side = np.zeros(size)
-    # walls without a root need no search, nor those where a trial already gave g = 0
-    active = rows[(fa < 0.0) & (fb >= 0.0) & (np.minimum(-fa, fb) >= tolerance)]
+
+    def close(self):
+        """g at the ends not yet known, where a trial has not settled the wall already (a
+        trial at g = 0 settles its wall: the other end is not asked)."""
+        done = self.settled()
+        self.fa[done & ~self.known_a], self.fb[done & ~self.known_b] = -np.inf, np.inf
+        for x, f, known in ((self.a, self.fa, self.known_a | done),
+                            (self.b, self.fb, self.known_b | done)):
+            need = self.rows[~known]
+            if len(need):
+                f[need] = self.g(x[need], need)
+
+
+def _illinois(g, br: _Bracket, active: np.ndarray, iterations: int, tolerance: float):
+    """Illinois regula falsi on the brackets of the walls `active` (in place): the secant
+    through log x and log utilization where both are positive, else the plain secant, else
+    bisection; an end that stays twice in a row has its value halved."""
+    a, b, fa, fb = br.a, br.b, br.fa, br.fb
+    side = np.zeros(len(a))
     for _ in range(iterations):
         if len(active) == 0:
             break
@@ -82,7 +110,6 @@ def solve_increasing(g, lo: float, hi: float, size: int, start=None, iterations:
         fa[active] = np.where(below, gx, fai)
         b[active] = np.where(below, bi, x)
         fb[active] = np.where(below, fbi, gx)
-        # Illinois: the end that stayed twice in a row has its value halved
         stale_b = below & (side[active] == 1)
         stale_a = ~below & (side[active] == -1)
         fb[active[stale_b]] /= 2.0
@@ -91,9 +118,6 @@ def solve_increasing(g, lo: float, hi: float, size: int, start=None, iterations:
         settled = (np.abs(gx) < tolerance) | (
             b[active] - a[active] < tolerance * (1.0 + np.abs(b[active])))
         active = active[~settled]
-    root = np.where(np.abs(fa) < np.abs(fb), a, b)
-    root = np.where(at_lo, lo, root)
-    return np.where(no_root, np.nan, root)
 
 
 def solve_speed(g, size: int, start_mph=TYPICAL_LIMIT_MPH) -> np.ndarray:
