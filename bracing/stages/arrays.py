@@ -86,12 +86,7 @@ def gather(site: Site, columns: dict[str, tuple] | None = None,
     face = np.where(~np.isnan(face_weight), face_weight, np.where(
         ~np.isnan(unit_weight), unit_weight * t_ft,
         np.where(~np.isnan(mat_face), mat_face, mat_unit * t_ft)))
-    solid, centroid, centroid_x = width * height, height / 2.0, width / 2.0
-    for k in [k for k, o in enumerate(openings) if o]:
-        opens = [(o.x, o.y, o.width, o.height) for o in openings[k]]
-        solid[k], centroid[k] = stability.rectangle_centroid(width[k], height[k], opens)
-        _, centroid_x[k] = stability.rectangle_centroid(
-            height[k], width[k], [(y, x, h, w) for x, y, w, h in opens])
+    solid, centroid, centroid_x = _solid_part(width, height, openings)
     solid -= np.nan_to_num(opening_area)
     solidity = np.where(open_framing, STUD_SOLIDITY, solid / (width * height))
     cured = masonry & (mortar_age >= (site.rule_value("masonry_cure_days") or 0.0))
@@ -99,12 +94,7 @@ def gather(site: Site, columns: dict[str, tuple] | None = None,
     for k in [k for k, r in enumerate(return_walls) if r]:
         for r in return_walls[k]:
             returns[int(r.end == "right"), k] = r.length
-    base = np.full((5, n), np.nan)  # footing width, thickness, psf of plan, bearing, friction
-    for k in [k for k, given in enumerate(footing) if given is not None]:
-        ftg = footing[k]
-        base[:, k] = (ftg.width, ftg.thickness,
-                      ftg.unit_weight * ftg.thickness + ftg.soil_unit_weight * ftg.soil_depth,
-                      ftg.allowable_bearing, ftg.friction_coefficient)
+    base = _footings(footing)
     releases = lines.releases(site) if releases is None else releases
     planned = lines.planned_weeks(releases)
     period = site.site.construction_period
@@ -124,6 +114,30 @@ def gather(site: Site, columns: dict[str, tuple] | None = None,
         base_mu=np.full(n, site.site.friction_coefficient), period_factor=period_factor,
         groups=groups, exposure=site.site.exposure, kzt=site.site.topographic_factor,
         ke=float(asce7.ke(site.site.ground_elevation)))
+
+
+def _solid_part(width, height, openings):
+    """Each wall's solid area (ft^2) and its centroid's height and distance from the first edge
+    (ft): the whole face, less its openings where they are placed (statics)."""
+    solid, centroid, centroid_x = width * height, height / 2.0, width / 2.0
+    for k in [k for k, o in enumerate(openings) if o]:
+        opens = [(o.x, o.y, o.width, o.height) for o in openings[k]]
+        solid[k], centroid[k] = stability.rectangle_centroid(width[k], height[k], opens)
+        _, centroid_x[k] = stability.rectangle_centroid(
+            height[k], width[k], [(y, x, h, w) for x, y, w, h in opens])
+    return solid, centroid, centroid_x
+
+
+def _footings(footing: list) -> np.ndarray:
+    """Each wall's footing as rows: width, thickness, weight per ft^2 of plan (the footing and
+    the soil over it), allowable bearing, friction; NaN where it has none."""
+    base = np.full((5, len(footing)), np.nan)
+    for k in [k for k, given in enumerate(footing) if given is not None]:
+        ftg = footing[k]
+        base[:, k] = (ftg.width, ftg.thickness,
+                      ftg.unit_weight * ftg.thickness + ftg.soil_unit_weight * ftg.soil_depth,
+                      ftg.allowable_bearing, ftg.friction_coefficient)
+    return base
 
 
 def _material_columns(mat) -> tuple:
