@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from dataclasses import dataclass, fields, replace
+from dataclasses import dataclass, fields
 
 import numpy as np
 
@@ -10,7 +10,7 @@ from bracing import braces, members
 from bracing.anchor_kinds import KINDS as ANCHOR_KINDS
 from bracing.data_members import DRESSED_SIZES_IN, LUMBER_GRADES, PIPES
 from bracing.model import BRACING_FIELDS, read_panels
-from bracing.stages.arrays import take
+from bracing.stages.arrays import rows_of
 
 IN = 1.0 / 12.0  # ft per in
 HARDWARE = ("brace_type", "wall_anchor", "foot_anchor")  # a layout's type names
@@ -59,26 +59,59 @@ class BraceSet:
     basis: str                  # "ASD" | "LRFD" (the amplifier's alpha)
 
 
-UNCHECKED = ("index", "positions", "mask", "anchor_distance", "length", "lean", "slop",
-             "pretensioned", "stiff", "slenderness", "slenderness_limit", "torque_factor",
-             "torque_safety", "rupture", "compression_only", "brace_strength",
-             "tension_strength", "sill")
-LOADED = ("index", "positions", "insert", "lean", "slop", "stiff")  # and the mask: what
-#                                                                    brace_loads reads
+@dataclass(frozen=True)
+class BraceLayout:
+    """What `brace_loads` reads of braced walls: their layouts alone (arrays over m walls; a
+    wall may be listed once for each variant of its layout, a brace struck say)."""
+
+    index: np.ndarray           # panel index of each wall
+    positions: np.ndarray       # (m, k) ft from the wall's left edge
+    mask: np.ndarray            # (m, k) the braces there are
+    insert: np.ndarray          # insert height above the wall's base, ft
+    lean: np.ndarray            # ft at the top
+    slop: np.ndarray            # ft at the insert
+    stiff: np.ndarray           # a continuous stiff member ties the braces
 
 
-def for_checks(bs: BraceSet) -> BraceSet:
-    """`bs` without the arrays `braced_checks` does not read and without its mask (None: `take`
-    leaves them), for a search that takes its rows again at every step, with each row's mask;
-    its loads and standing parts are worked out beforehand."""
-    return replace(bs, **dict.fromkeys(UNCHECKED))
+def layout_of(bs: BraceSet, rows, mask) -> BraceLayout:
+    """The layouts of the walls `rows` of `bs` with the braces `mask` marks."""
+    return BraceLayout(index=bs.index[rows], positions=rows_of(bs.positions, rows), mask=mask,
+                       insert=bs.insert[rows], lean=bs.lean[rows], slop=bs.slop[rows],
+                       stiff=bs.stiff[rows])
 
 
-def for_loads(bs: BraceSet, rows, mask) -> BraceSet:
-    """The layouts of the walls `rows` of `bs` (a wall listed once for each of its variants)
-    with the braces `mask` marks: only what `brace_loads` reads, the rest None."""
-    unread = [f.name for f in fields(bs) if f.name not in LOADED and f.name != "basis"]
-    return replace(take(replace(bs, **dict.fromkeys(unread)), rows), mask=mask)
+@dataclass(frozen=True)
+class BraceCapacities:
+    """What `braced_checks` reads of braced walls once their loads and the parts that do not
+    depend on the wind are worked out (`braced.Standing`), under one set of factors without
+    allowable ones of their own (a search's): the braces' angle, mask and insert and the
+    capacities (fields as in BraceSet)."""
+
+    mask: np.ndarray
+    angle: np.ndarray
+    insert: np.ndarray
+    compression: np.ndarray
+    tension: np.ndarray
+    connection: np.ndarray
+    self_weight_ratio: np.ndarray
+    euler_load: np.ndarray
+    insert_tension: np.ndarray
+    insert_shear: np.ndarray
+    foot_kind: np.ndarray
+    foot_tension: np.ndarray
+    foot_shear: np.ndarray
+    foot_mu: np.ndarray
+    block_length: np.ndarray
+    pin_height: np.ndarray
+    pin_from_toe: np.ndarray
+    block_width: np.ndarray
+    block_bearing: np.ndarray
+    basis: str
+
+
+def capacities_of(bs: BraceSet) -> BraceCapacities:
+    """The fields of `bs` a search's checks read (the arrays are shared, not copied)."""
+    return BraceCapacities(**{f.name: getattr(bs, f.name) for f in fields(BraceCapacities)})
 
 
 def gather_braces(site, basis: str, edges: dict[str, float] | None = None,

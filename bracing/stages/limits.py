@@ -11,7 +11,7 @@ from bracing.model import Site
 from bracing.stages.alone import governing_utilization, unbraced_at
 from bracing.stages.arrays import Walls, rows_of, take, take_each
 from bracing.stages.brace_loads import brace_loads
-from bracing.stages.brace_set import BraceSet, for_checks, for_loads
+from bracing.stages.brace_set import BraceSet, capacities_of, layout_of
 from bracing.stages.braced import SERVICEABILITY, braced_checks, standing_of
 from bracing.stages.evaluation import Evaluation
 from bracing.stages.loads import SERVICE
@@ -74,15 +74,16 @@ def braced_utilization(w: Walls, unit: Wind, bs: BraceSet, rows=None, mask=None,
     """
     rows = np.arange(len(bs.index)) if rows is None else rows
     mask = bs.mask if mask is None else mask
-    loads = brace_loads(w, unit, for_loads(bs, rows, mask), None, held)
+    loads = brace_loads(w, unit, layout_of(bs, rows, mask), None, held)
     standing = standing_of(w, bs, SERVICE)
-    checked = for_checks(bs)
+    checked = capacities_of(bs)
 
     def g(v2, r):
         parts = -(-len(r) // BRACED_WALLS_AT_ONCE)
         if parts > 1:  # in parts: the arrays of many more walls outgrow the processor's cache
             return np.concatenate([g(*part) for part in zip(np.array_split(v2, parts),
-                                                            np.array_split(r, parts), strict=True)])
+                                                            np.array_split(r, parts),
+                                                            strict=True)])
         of_wall = rows[r]
         variant = replace(take(checked, of_wall), mask=rows_of(mask, r))
         checks, _ = braced_checks(w, None, variant, SERVICE, None,
