@@ -103,10 +103,14 @@ def axial_force(horizontal_lb, angle_deg):
         return horizontal_lb / np.cos(np.radians(angle_deg))
 
 
-def components(axial_lb, angle_deg):
-    """Horizontal and vertical components of a brace force (statics)."""
-    theta = np.radians(angle_deg)
-    return axial_lb * np.cos(theta), axial_lb * np.sin(theta)
+def components(axial_lb, angle_deg=None, cos_sin=None):
+    """Horizontal and vertical components of a brace force, P cos(theta) and P sin(theta)
+    (statics); `cos_sin`: the angle's cosine and sine worked out beforehand (a search asks
+    for the same angles many times), in place of `angle_deg`."""
+    if cos_sin is None:
+        theta = np.radians(angle_deg)
+        cos_sin = np.cos(theta), np.sin(theta)
+    return axial_lb * cos_sin[0], axial_lb * cos_sin[1]
 
 
 def propped_wall_moments(line_load_plf, wall_height_ft, insert_height_ft):

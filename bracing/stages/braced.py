@@ -186,7 +186,7 @@ def _checks_at(walls, bs: BraceSet, f, loads: BraceLoads, standing: Standing | N
         "brace tension": (p, bs.tension),
         "brace end fittings": (p, bs.connection),
     }
-    pull, up = p * standing.cos, p * standing.sin  # as braces.components
+    pull, up = braces.components(p, cos_sin=(standing.cos, standing.sin))
     # the insert: the horizontal component pulls it out of the face, the vertical one shears it
     insert_ratio = pull / bs.insert_tension + up / bs.insert_shear
     checks["wall insert"] = (p, p / np.maximum(insert_ratio, 1e-12))
