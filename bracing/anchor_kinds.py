@@ -32,7 +32,8 @@ class AnchorKind:
     allowable: bool           # an allowable capacity (ASD combinations under either basis)
     stands_on: frozenset      # where the plan lets it stand: 'slab', 'ground' (empty: not placed)
     symbol: str               # report.svg's shape for it
-    own_checks: tuple[str, ...] = ()  # braced checks of its own beside (or instead of) "foot anchor"
+    # braced checks of its own beside (or instead of) "foot anchor"
+    own_checks: tuple[str, ...] = ()
     # notes(fa, name) -> [(code, severity, message, source)]: findings on the type itself
     notes: Callable = lambda fa, name: []
 

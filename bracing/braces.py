@@ -72,7 +72,13 @@ def brace_shares(total_h, force_lb, force_at_ft, wall_centre_ft, positions_ft, m
     lever = lever if lever is not None else brace_lever(positions_ft, mask)
     share, per_arm = share_and_twist(total_h, force_lb, force_at_ft, wall_centre_ft, lever)
     with np.errstate(invalid="ignore"):
-        return np.where(mask, share[..., None] + per_arm[..., None] * lever[2], np.nan)
+        return np.where(mask, each_share(share, per_arm, lever[2]), np.nan)
+
+
+def each_share(share, per_arm, arm):
+    """Each brace's reaction from the terms of `share_and_twist`: R_i = share + per_arm (x_i -
+    x_c) (statics; `arm`: x_i - x_c of each slot, from `brace_lever`, 0 at an empty slot)."""
+    return share[..., None] + per_arm[..., None] * arm
 
 
 def share_and_twist(total_h, force_lb, force_at_ft, wall_centre_ft, lever):
@@ -97,10 +103,14 @@ def axial_force(horizontal_lb, angle_deg):
         return horizontal_lb / np.cos(np.radians(angle_deg))
 
 
-def components(axial_lb, angle_deg):
-    """Horizontal and vertical components of a brace force (statics)."""
-    theta = np.radians(angle_deg)
-    return axial_lb * np.cos(theta), axial_lb * np.sin(theta)
+def components(axial_lb, angle_deg=None, cos_sin=None):
+    """Horizontal and vertical components of a brace force, P cos(theta) and P sin(theta)
+    (statics); `cos_sin`: the angle's cosine and sine worked out beforehand (a search asks
+    for the same angles many times), in place of `angle_deg`."""
+    if cos_sin is None:
+        theta = np.radians(angle_deg)
+        cos_sin = np.cos(theta), np.sin(theta)
+    return axial_lb * cos_sin[0], axial_lb * cos_sin[1]
 
 
 def propped_wall_moments(line_load_plf, wall_height_ft, insert_height_ft):

@@ -94,7 +94,7 @@ def _same(a, b) -> bool:
     if isinstance(a, float) and isinstance(b, float):
         return math.isclose(a, b, rel_tol=1e-9, abs_tol=1e-12)
     if isinstance(a, list) and isinstance(b, list):
-        return len(a) == len(b) and all(_same(x, y) for x, y in zip(a, b))
+        return len(a) == len(b) and all(_same(x, y) for x, y in zip(a, b, strict=True))
     return a == b
 
 
@@ -235,6 +235,22 @@ def _change_text(c: Change) -> str:
     return f"{where}{_show(c.old)} -> {_show(c.new)}"
 
 
+def _wall_text(w) -> list[str]:
+    """The lines of one changed wall: its status, its changes, its utilization and speeds."""
+    lines = [f"  {w.mark}: status {w.old_status} -> {w.new_status}"]
+    lines += [f"    {c.kind}: {_change_text(c)}" for c in w.changes]
+    if not w.changes:
+        lines.append("    its own inputs are unchanged: the loads, rules or walls around it "
+                     "changed")
+    lines.append(f"    governing utilization {_u(w.old_utilization)} ({w.old_governing}) -> "
+                 f"{_u(w.new_utilization)} ({w.new_governing})")
+    lines.append(f"    working-limit gust {_mph(w.old_working_limit_mph)} -> "
+                 f"{_mph(w.new_working_limit_mph)}; stand-down gust "
+                 f"{_mph(w.old_stand_down_mph)} -> {_mph(w.new_stand_down_mph)}")
+    lines += [f"    WORSE x: {why}" for why in w.worse]
+    return lines
+
+
 def render_text(d: SiteDiff, old_name: str, new_name: str) -> str:
     lines = [CAUTION, "", f"What changed from {old_name} to {new_name}:"]
     by_kind: dict[str, list[Change]] = {}
@@ -252,19 +268,7 @@ def render_text(d: SiteDiff, old_name: str, new_name: str) -> str:
     if d.walls:
         lines += ["", "Changed walls (before -> after):"]
     for w in d.walls:
-        lines.append(f"  {w.mark}: status {w.old_status} -> {w.new_status}")
-        for c in w.changes:
-            lines.append(f"    {c.kind}: {_change_text(c)}")
-        if not w.changes:
-            lines.append("    its own inputs are unchanged: the loads, rules or walls around it "
-                         "changed")
-        lines.append(f"    governing utilization {_u(w.old_utilization)} ({w.old_governing}) -> "
-                     f"{_u(w.new_utilization)} ({w.new_governing})")
-        lines.append(f"    working-limit gust {_mph(w.old_working_limit_mph)} -> "
-                     f"{_mph(w.new_working_limit_mph)}; stand-down gust "
-                     f"{_mph(w.old_stand_down_mph)} -> {_mph(w.new_stand_down_mph)}")
-        for why in w.worse:
-            lines.append(f"    WORSE x: {why}")
+        lines += _wall_text(w)
     worse = [w.mark for w in d.walls if w.worse]
     lines.append("")
     if d.fails:

@@ -13,8 +13,10 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from bracing import braced, braces
+from bracing import braces
 from bracing.model import Bracing, Site
+from bracing.stages import brace_set as braced_layouts
+from bracing.stages import braced
 
 INSERT_RATIO_TOP = 0.85  # highest insert tried, as a share of the wall height (common practice)
 INSERT_STEPS = 5
@@ -49,8 +51,10 @@ class Design:
     message: str
 
 
-def design(site: Site, rows: list[int], walls, wind, factors, minimum_psf) -> list[Design]:
-    """Design bracing for the walls `rows` of the site (they need braces and have none)."""
+def design(site: Site, rows: list[int], walls, wind, factors, minimum_psf,
+           held: tuple = ()) -> list[Design]:
+    """Design bracing for the walls `rows` of the site (they need braces and have none);
+    `held`: the lateral loads that do not grow with the wind (stages.loads.fixed_loads)."""
     options = site.design
     least = int(site.rule_value("minimum_braces_per_panel") or 1)
     lo = site.rule_value("brace_angle_min_deg") or 45.0
@@ -70,26 +74,12 @@ def design(site: Site, rows: list[int], walls, wind, factors, minimum_psf) -> li
     for count in range(least, options.most_braces + 1):
         if len(pending) == 0:
             break
-        wall = np.repeat(pending, len(combos))
-        pick = np.tile(np.arange(len(combos)), len(pending))
-        height = walls.height[wall]
-        insert = height * np.array([combos[j][2] for j in pick])
-        angle = np.array([combos[j][3] for j in pick])
-        column = {
-            "insert_height": insert,
-            "insert_offset": np.full(len(wall), options.insert_offset),
-            "foot_offset": np.full(len(wall), options.foot_offset),
-            "base_below_slab": np.zeros(len(wall)),
-            "lean": np.full(len(wall), 0.25), "slop": np.full(len(wall), 0.125),
-            "pretensioned": np.zeros(len(wall), dtype=bool),
-            "brace_type": np.array([combos[j][0] for j in pick], dtype=object),
-            "wall_anchor": np.full(len(wall), options.wall_anchor, dtype=object),
-            "foot_anchor": np.array([combos[j][1] for j in pick], dtype=object),
-        }
+        wall, column, angle = _candidates(options, combos, pending, walls)
+        insert = column["insert_height"]
         positions = braces.default_positions(walls.width[wall][:, None], count)
-        bs = braced.brace_set(site, wall, positions, np.full(len(wall), np.nan), angle,
-                              column, site.site.design_basis)
-        checks, _ = braced.braced_checks(walls, wind, bs, factors, minimum_psf)
+        bs = braced_layouts.brace_set(site, wall, positions, np.full(len(wall), np.nan), angle,
+                                      column, site.site.design_basis)
+        checks, _ = braced.braced_checks(walls, wind, bs, factors, minimum_psf, held=held)
         util, element = _governing(checks)
         usable = ~(np.nan_to_num(bs.slenderness) > np.nan_to_num(bs.slenderness_limit,
                                                                  nan=np.inf))
@@ -103,7 +93,7 @@ def design(site: Site, rows: list[int], walls, wind, factors, minimum_psf) -> li
                              np.argmin(ranked, axis=1))
         choice = np.arange(len(pending)) * len(combos) + pick_best
         done = []
-        for w, j in zip(pending, choice):
+        for w, j in zip(pending, choice, strict=True):
             layout = Bracing(brace_type=column["brace_type"][j],
                              wall_anchor=column["wall_anchor"][j],
                              foot_anchor=column["foot_anchor"][j], count=count,
@@ -121,6 +111,26 @@ def design(site: Site, rows: list[int], walls, wind, factors, minimum_psf) -> li
                      f"{ADVICE.get(d.governing, 'another brace or anchor')}")
         d.layout = None
     return [best[int(w)] for w in rows]
+
+
+def _candidates(options, combos: list[tuple], pending: np.ndarray, walls):
+    """Every candidate layout of each pending wall, one row each: (wall, layout columns as
+    `brace_set` reads them, angle)."""
+    wall = np.repeat(pending, len(combos))
+    pick = np.tile(np.arange(len(combos)), len(pending))
+    n = len(wall)
+    column = {
+        "insert_height": walls.height[wall] * np.array([combos[j][2] for j in pick]),
+        "insert_offset": np.full(n, options.insert_offset),
+        "foot_offset": np.full(n, options.foot_offset),
+        "base_below_slab": np.zeros(n),
+        "lean": np.full(n, 0.25), "slop": np.full(n, 0.125),
+        "pretensioned": np.zeros(n, dtype=bool),
+        "brace_type": np.array([combos[j][0] for j in pick], dtype=object),
+        "wall_anchor": np.full(n, options.wall_anchor, dtype=object),
+        "foot_anchor": np.array([combos[j][1] for j in pick], dtype=object),
+    }
+    return wall, column, np.array([combos[j][3] for j in pick])
 
 
 def _governing(checks: dict) -> tuple[np.ndarray, np.ndarray]:

@@ -10,7 +10,8 @@ from dataclasses import asdict, dataclass, field
 
 CAUTION = (
     "CAUTION: a planning aid, not a bracing design. A qualified person must design and approve "
-    "the bracing. Follow local codes, the brace and anchor makers' ratings and the site safety plan."
+    "the bracing. Follow local codes, the brace and anchor makers' ratings and the site "
+    "safety plan."
 )
 
 SEVERITIES = ("danger", "warning", "notice")  # ANSI Z535 signal words, most severe first

@@ -92,10 +92,10 @@ def not_checked(site: Site, columns: dict[str, tuple]) -> list[NotChecked]:
     marks = columns["mark"]
     hardware: list[tuple | None] = [None] * len(marks)
     for row, brace, wall, foot in zip(columns["braced"], columns["brace_type"],
-                                      columns["wall_anchor"], columns["foot_anchor"]):
+                                      columns["wall_anchor"], columns["foot_anchor"], strict=True):
         hardware[row] = (brace, wall, foot)
     rows_of: dict[tuple, list[int]] = {}
-    for row, kind in enumerate(zip(columns["material"], hardware)):
+    for row, kind in enumerate(zip(columns["material"], hardware, strict=True)):
         rows_of.setdefault(kind, []).append(row)
     rows: list[list[int]] = [[] for _ in ITEMS]
     for (material, parts), kind_rows in rows_of.items():
@@ -109,4 +109,4 @@ def not_checked(site: Site, columns: dict[str, tuple]) -> list[NotChecked]:
     return [SEISMIC, CORNERS] + [
         NotChecked(item=item, reason=reason, source=source,
                    walls=[marks[r] for r in sorted(item_rows)])
-        for (item, reason, source, _), item_rows in zip(ITEMS, rows) if item_rows]
+        for (item, reason, source, _), item_rows in zip(ITEMS, rows, strict=True) if item_rows]

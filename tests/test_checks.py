@@ -166,7 +166,7 @@ def test_the_service_speeds_of_every_demo_wall_are_the_same_under_lrfd(name):
         update={"design_basis": "LRFD"})})
     asd_result = ev.evaluate(site, base_dir=SCENARIOS)
     lrfd_result = ev.evaluate(lrfd, base_dir=SCENARIOS)
-    for a, b in zip(asd_result.panels, lrfd_result.panels):
+    for a, b in zip(asd_result.panels, lrfd_result.panels, strict=True):
         assert (b.working_limit_speed_mph, b.stand_down_speed_mph,
                 b.fresh_working_limit_speed_mph) == pytest.approx(
             (a.working_limit_speed_mph, a.stand_down_speed_mph,

@@ -22,7 +22,8 @@ BRACES_KEYS = {"count", "angle_deg", "insert_height_ft", "anchor_distance_ft", "
 
 H, B, HB = 30.0, 24.0, 20.0  # the panel: height, width and insert height, ft
 THETA = math.radians(55.0)
-LEAN_IN, SLOP_IN = 0.25, 0.125  # lean at the top, slop at the insert: model defaults, common practice
+# lean at the top, slop at the insert: model defaults, common practice
+LEAN_IN, SLOP_IN = 0.25, 0.125
 KZ_30 = 2.01 * (30.0 / 900.0) ** (2.0 / 9.5)  # Table 26.10-1 note 1, Table 26.11-1 C (text)
 CF = 1.49  # Fig. 29.3-1, s/h 1, B/s 0.8 between 1.55 and 1.45 (secondary)
 G = 0.85  # ASCE 7-16 §26.11.1 rigid (secondary)

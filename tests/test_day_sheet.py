@@ -259,7 +259,8 @@ def test_schedule_prints_text_and_writes_html_only_to_a_file(tmp_path):
     assert code == 1 and out.startswith("GO WITH EXCEPTIONS") and "<html" not in out
     assert run("schedule", path, "--day", "2", "--format", "html")[0] == 2
     page = tmp_path / "day2.html"
-    assert run("schedule", path, "--day", "2", "-o", str(page))[0] == 1  # the townhouses fail (design.md §8a)
+    # the townhouses fail (design.md §8a)
+    assert run("schedule", path, "--day", "2", "-o", str(page))[0] == 1
     assert page.read_text(encoding="utf-8").startswith("<!DOCTYPE html>")
 
 

@@ -68,7 +68,7 @@ def text_boxes(root, css: str = "label"):
     return out
 
 
-# --- place_labels: a pure function ---------------------------------------------------------------
+# --- place_labels: a pure function ----------------------------------------------------------------
 def test_labels_at_one_point_do_not_overlap_and_stay_in_the_frame():
     """Five labels wanting the same point get five boxes that share no area, all inside the
     frame (hand-set geometry: a 100 x 60 frame, labels 3 units tall)."""
@@ -100,7 +100,7 @@ def test_a_label_with_no_room_is_not_placed():
     assert placed == [None]
 
 
-# --- the detail plans of the tilt-up warehouse, day 5 ----------------------------------------------
+# --- the detail plans of the tilt-up warehouse, day 5 ---------------------------------------------
 def test_tilt_up_day_5_has_detail_plans_of_every_line_cut_where_long(tilt_up):
     """Day 5 stands 42 walls on four lines (12, 9, 12, 9 walls). The long walls (grid A and F)
     run about 300 ft, over the 200 ft of one detail: ceil(300 / 200) = 2 stretches each; the
@@ -148,7 +148,7 @@ def test_titles_and_texts_fit_inside_every_sheet(tilt_up, townhouse):
                 assert size >= svg.LEAST_TEXT_MM
 
 
-# --- keep-out areas above the braces ---------------------------------------------------------------
+# --- keep-out areas above the braces --------------------------------------------------------------
 def test_townhouse_day_2_gas_strip_is_drawn_above_the_braces_that_cross_it(townhouse):
     """The gas-line keep-clear strip lies under the stakes of L1-F11 and L1-F12: on every
     drawing it is drawn (again, bold) after each of their braces, so it shows above them."""
@@ -171,7 +171,7 @@ def test_townhouse_day_2_gas_strip_is_drawn_above_the_braces_that_cross_it(townh
         assert seen >= 1
 
 
-# --- the overview ------------------------------------------------------------------------------
+# --- the overview ---------------------------------------------------------------------------------
 def test_overview_summarizes_the_zones_and_spells_neighbor_once(tilt_up):
     """42 walls share one zone rule: one sentence for them, not a line per wall; the neighbor's
     area is named once (its name already says neighbour: no second '(neighbor)')."""
@@ -183,7 +183,7 @@ def test_overview_summarizes_the_zones_and_spells_neighbor_once(tilt_up):
     assert "neighbor (braces stay out)" in words  # the legend, US spelling
 
 
-# --- elevations ----------------------------------------------------------------------------------
+# --- elevations -----------------------------------------------------------------------------------
 def elevation_site() -> Site:
     """One wall on line A from (0, 0) to (40, 0), braced side left: braces to the north. The
     viewer setting them stands north of the wall facing south, so the east end is on the left."""

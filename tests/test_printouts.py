@@ -76,7 +76,7 @@ def test_csv_one_row_per_wall_per_day(tiny):
     assert rows[-1] == [f"# {result.caution}"]
     header = rows[0]
     assert header[:3] == ["day", "date", "go"] and "insert height (ft)" in header
-    body = [dict(zip(header, r)) for r in rows[1:-1]]
+    body = [dict(zip(header, r, strict=True)) for r in rows[1:-1]]
     expected = [(d.day, m) for d in result.days for m in d.standing + d.released]
     assert [(int(r["day"]), r["wall"]) for r in body] == expected
     released = next(r for r in body if r["day"] == "5" and r["wall"] == "A")
@@ -161,7 +161,7 @@ def check_pages(html: str, result, days) -> None:
     parser = Days()
     parser.feed(html)
     assert [d["day"] for d in parser.days] == [str(d.day) for d in days]
-    for page, d in zip(parser.days, days):
+    for page, d in zip(parser.days, days, strict=True):
         found = page["found"]
         assert "table.schedule" in found and "table.inventory" in found, d.day
         assert "figure.plan" in found and "svg" in found, d.day

@@ -60,7 +60,8 @@ def test_every_help_states_the_exit_codes(capsys, command):
         cli.main([*command, "--help"])
     out = capsys.readouterr().out
     assert "exit codes" in out
-    assert re.search(r"^\s+1\s", out, re.MULTILINE) and re.search(r"^\s+2\s+bad input", out, re.MULTILINE)
+    assert re.search(r"^\s+1\s", out, re.MULTILINE)
+    assert re.search(r"^\s+2\s+bad input", out, re.MULTILINE)
 
 
 def test_panel_exits_1_when_the_wall_fails_and_0_when_it_stands(capsys):
@@ -205,7 +206,8 @@ def test_the_record_lists_the_rules_in_force_with_their_sources(record):
     assert rules["masonry_unbraced_height_ft"]["source"] == "OSHA 29 CFR 1926.706(b)"
     assert rules["stand_down_ratio"]["value"] == 0.8 and rules["stand_down_ratio"]["in_force"]
     assert rules["minimum_design_wind_mph"]["in_force"] is False  # off by default
-    assert rules["minimum_design_pressure_psf"]["source"] == "ASCE 7-16 §29.7 (unconfirmed value: confirm in ASCE 7-16 §29.7)"
+    assert rules["minimum_design_pressure_psf"]["source"] == (
+        "ASCE 7-16 §29.7 (unconfirmed value: confirm in ASCE 7-16 §29.7)")
 
 
 # --- what was not checked (the engine's list) ------------------------------------------------

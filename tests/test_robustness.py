@@ -139,7 +139,7 @@ def test_the_base_site_is_valid_and_checked(site, capsys):
     assert code in (0, 1) and not err
 
 
-# --- non-finite or wrong-kind values never reach the verdicts ---------------------------------
+# --- non-finite or wrong-kind values never reach the verdicts -------------------------------------
 @pytest.mark.parametrize(("old", "new", "words"), [
     ('[rules.stand_down_ratio]\nvalue = 0.8',
      '[rules.minimum_design_wind_mph]\nvalue = nan', ("minimum_design_wind_mph", "finite")),
@@ -260,7 +260,7 @@ def test_an_empty_site_file_name_is_refused(capsys):
     refused(*run(capsys, "check", ""), "empty")
 
 
-# --- outputs never replace their inputs -------------------------------------------------------------
+# --- outputs never replace their inputs -----------------------------------------------------------
 @pytest.mark.parametrize("name", ["site.toml", "forecast.csv", "site.toml.bak", "forecast.csv.bak"])
 def test_an_output_onto_an_input_is_refused_and_the_input_unchanged(site, capsys, name):
     (site.parent / "site.toml.bak").write_text("the backup", encoding="utf-8")
@@ -425,7 +425,7 @@ def test_the_ranges_refuse_no_real_job():
         scenario.load(path)
 
 
-# --- saves ------------------------------------------------------------------------------------------
+# --- saves ----------------------------------------------------------------------------------------
 def test_a_save_keeps_crlf_line_endings(tmp_path):
     path = tmp_path / "site.toml"
     path.write_bytes(SITE.replace("\n", "\r\n").encode("utf-8"))
@@ -559,7 +559,7 @@ def test_the_base_site_data_is_tomllib_readable():
     tomllib.loads(SITE)
 
 
-# --- fuzzing: random site-file mutations and flag values --------------------------------------------
+# --- fuzzing: random site-file mutations and flag values ------------------------------------------
 NONFINITE = (float("nan"), float("inf"), float("-inf"))
 ODD_TEXT = ["", " ", "--", "nan", "inf", "-inf", "1e999", "3 s", "0.5 s", "1 day", "2 s**2",
             "2**2000 mph", "9**9**9 mph", "1e308 ft", "1e308", "2 0", "20 mph 5", "[/]", "kg",

@@ -450,13 +450,13 @@ def test_inventory_is_the_count_of_walls_in_use(evaluated, lifts, signs, event):
     site = site0.model_copy(update={
         "events": [site0.events[0].model_copy(update={"day": event})],
         "signoffs": [site0.signoffs[0].model_copy(update={"panel": p.mark, "day": s})
-                     for p, s in zip(site0.panels, signs) if s is not None],
+                     for p, s in zip(site0.panels, signs, strict=True) if s is not None],
         "panels": [p.model_copy(update={"lift_day": n, "release_after": ["roof-1"]})
-                   for p, n in zip(site0.panels, lifts)]})
+                   for p, n in zip(site0.panels, lifts, strict=True)]})
     days, peak, _ = schedule.build_days(site, panels)
     count = {p.mark: p.bracing.count if p.bracing else 0 for p in site.panels}
     for d in days:
-        for p, lift, sign in zip(site.panels, lifts, signs):
+        for p, lift, sign in zip(site.panels, lifts, signs, strict=True):
             valid = sign is not None and lift is not None and sign >= max(lift, event)
             up = lift is not None and lift <= d.day and not (valid and d.day >= sign)
             assert (p.mark in d.standing) == up

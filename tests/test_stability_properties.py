@@ -82,7 +82,8 @@ def gross_area(ws: list[dict]) -> np.ndarray:
 
 
 @PROPERTY
-@given(wall_lists, speeds, st.floats(1.01, 1.5), st.sampled_from("BCD"))  # k v <= 300 mph, the speed range (method notes §9)
+# k v <= 300 mph, the speed range (method notes §9)
+@given(wall_lists, speeds, st.floats(1.01, 1.5), st.sampled_from("BCD"))
 def test_wind_force_grows_with_v_squared(ws, v, k, exposure):
     slow = design_wind(site_of(ws, wind=v, exposure=exposure))
     fast = design_wind(site_of(ws, wind=k * v, exposure=exposure))
@@ -98,7 +99,8 @@ def test_wind_force_grows_with_v_squared(ws, v, k, exposure):
 @given(wall_lists, st.lists(st.floats(0.01, 40.0), min_size=6, max_size=6), speeds,
        st.sampled_from("BCD"))
 def test_wind_force_grows_with_height(ws, rises, v, exposure):
-    taller = [{**w, "height": w["height"] + dh} for w, dh in zip(ws, rises)]
+    # six rises for up to six walls: the first len(ws) of them
+    taller = [{**w, "height": w["height"] + dh} for w, dh in zip(ws, rises, strict=False)]
     wind = design_wind(site_of(ws + taller, wind=v, exposure=exposure))
     n = len(ws)
     assert np.all(wind.force_a[n:] > wind.force_a[:n])  # Case A, the §8 force_lb
@@ -193,7 +195,7 @@ def test_the_same_wall_in_si_and_us_units_gives_the_same_results(ws, v, exposure
 @given(wall_lists, speeds, st.sampled_from("BCD"))
 def test_stand_down_never_above_the_working_limit_and_masonry_capped(ws, v, exposure):
     result = evaluate(site_of(ws, wind=v, exposure=exposure))
-    for wall, p in zip(ws, result.panels):
+    for wall, p in zip(ws, result.panels, strict=True):
         limit, stand_down = p.working_limit_speed_mph, p.stand_down_speed_mph
         if np.isnan(limit):
             continue  # beyond the speed bracket: see the test below

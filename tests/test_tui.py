@@ -221,7 +221,7 @@ def test_walls_worst_first_filters_then_a_wall_with_every_check_and_its_drawings
         rows = cells(app, "#walls-table")
         worst = app.result.worst_first()
         assert [r[1] for r in rows] == [p.mark for p in worst]
-        for row, p in zip(rows, worst):  # a symbol and a word, never colour alone
+        for row, p in zip(rows, worst, strict=True):  # a symbol and a word, never colour alone
             assert row[0] == {"unsafe": "✗ UNSAFE", "needs_braces": "▲ NEEDS BRACES",
                               "braced": "✓ braced", "stands": "✓ stands"}[p.status]
             assert row[3].endswith("✗") == (p.utilization > 1.0)
@@ -248,7 +248,7 @@ def test_walls_worst_first_filters_then_a_wall_with_every_check_and_its_drawings
         assert app.mark == p.mark == "P-1"
         rows = cells(app, "#checks-table")
         assert [(r[1], r[2]) for r in rows] == [(c.element, c.region) for c in p.worst_first()]
-        for row, c in zip(rows, p.worst_first()):
+        for row, c in zip(rows, p.worst_first(), strict=True):
             assert row[0] == ("✓ ok" if c.passes else "✗ FAIL")
             assert row[7] == c.source and row[6] == c.combination
         summary = str(app.query_one("#wall-summary").render())

@@ -81,10 +81,11 @@ def test_case_c_vectorised_matches_scalar():
     x, b, r, lr = rng.uniform(0, 20, 50), rng.uniform(0.5, 50, 50), rng.uniform(0.1, 1, 50), \
         rng.uniform(0, 3, 50)
     got = case_c_cf(x, b, r, lr)
-    assert np.array_equal(got, [case_c_cf(*args) for args in zip(x, b, r, lr)])
+    assert np.array_equal(got, [case_c_cf(*args) for args in zip(x, b, r, lr, strict=True)])
     mean, centroid = case_c_mean(0.0, x, b, r, lr)
-    scalar = [case_c_mean(0.0, *args) for args in zip(x, b, r, lr)]
-    assert np.allclose(mean, [m for m, _ in scalar]) and np.allclose(centroid, [c for _, c in scalar])
+    scalar = [case_c_mean(0.0, *args) for args in zip(x, b, r, lr, strict=True)]
+    assert np.allclose(mean, [m for m, _ in scalar])
+    assert np.allclose(centroid, [c for _, c in scalar])
 
 
 @given(st.floats(0.0, 1.0), st.floats(0.0, 1.0))

@@ -47,7 +47,8 @@ def test_cracking_factor():
 
 def test_breakout_one_edge_cracked():
     # ACI 318-19 Eq. 17.6.2.1a: N_cb = 16,731 lb, one edge at 6 in, cracked (text), tol 0.1 %
-    assert tension_breakout(HEF_IN, FC_PSI, c1_in=EDGE_IN) == pytest.approx(published("aci-ncb"), rel=0.001)
+    assert tension_breakout(HEF_IN, FC_PSI, c1_in=EDGE_IN) == pytest.approx(
+        published("aci-ncb"), rel=0.001)
 
 
 def test_phi_cast_in_condition_b():

@@ -2,7 +2,8 @@
 its own strip of wall under the worst of Case B as a linear pressure and Case C by region.
 
 Sources and certainty (references.md):
-- ASCE 7-16 Eq. 26.10-1 q = 0.00256 Kz Kzt Kd Ke V^2 (secondary); Kz = 2.01 (max(z, 15)/zg)^(2/alpha),
+- ASCE 7-16 Eq. 26.10-1 q = 0.00256 Kz Kzt Kd Ke V^2 (secondary);
+  Kz = 2.01 (max(z, 15)/zg)^(2/alpha),
   Table 26.11-1 B: 7.0, 1200 ft; C: 9.5, 900 ft (text); Kd 0.85 (secondary); G 0.85 (secondary);
   Ke = exp(-0.0000362 z_g) (secondary).
 - ASCE 7-16 Figure 29.3-1, Cases A/B (row s/h = 1) and C, note 4 (x (1.8 - s/h) for s/h > 0.8):

@@ -29,7 +29,8 @@ def _wall(helpers, height_ft, material="grouted", materials=GROUTED, rules=None)
 
 def test_rule_values_and_sources():
     over = DEFAULT_RULES["masonry_unbraced_height_ft"]
-    assert over.value == published("osha-masonry-8ft") and "1926.706(b)" in over.source  # 8 ft, text
+    # 8 ft, text
+    assert over.value == published("osha-masonry-8ft") and "1926.706(b)" in over.source
     zone = DEFAULT_RULES["masonry_zone_extra_ft"]
     assert zone.value == published("osha-zone-4ft") and "1926.706(a)" in zone.source  # 4 ft, text
 
@@ -59,7 +60,7 @@ def test_the_rule_is_for_masonry_only(helpers, kind):
 
 def test_the_rule_flags_in_the_panel_quick_check(capsys):
     assert cli.main(["panel", "--material", "masonry", "--height", "8.5ft", "--width", "12ft",
-                     "--thickness", "7.625in", "--wind", "115mph", "--json"]) == 1  # a danger: exit 1
+                     "--thickness", "7.625in", "--wind", "115mph", "--json"]) == 1  # danger: exit 1
     record = json.loads(capsys.readouterr().out)
     severities = {f["code"]: f["severity"] for f in record["flags"]}
     assert severities["masonry-over-8ft"] == "danger"
