@@ -336,8 +336,8 @@ def slab_anchor_capacity(hef_in, fc_psi, Ase_in2, futa_psi, da_in, ha_in,
     is NaN and so is the governing tension (inf where the report says pullout does not
     govern). Adhesive bond (§17.6.5) is not covered. Condition B phi (Table 17.5.3).
     """
-    ncb = tension_breakout(hef_in, fc_psi, c1_in, c2_in, c3_in, c4_in, cast_in, cracked,
-                           cac_in, lambda_a)
+    ncb = tension_breakout(hef_in, fc_psi, c1_in=c1_in, c2_in=c2_in, c3_in=c3_in, c4_in=c4_in,
+                           cast_in=cast_in, cracked=cracked, cac_in=cac_in, lambda_a=lambda_a)
     if Abrg_in2 is not None:
         npn = headed_pullout(Abrg_in2, fc_psi, cracked)
     elif pullout_lb is not None:
@@ -354,15 +354,19 @@ def slab_anchor_capacity(hef_in, fc_psi, Ase_in2, futa_psi, da_in, ha_in,
     modes_v = (
         _on_basis(PHI_STEEL[("shear", ductile)]
                   * steel_shear(Ase_in2, futa_psi, grout_pad, fya_psi), basis),
-        _on_basis(PHI_SHEAR_CONCRETE * shear_breakout(c1_in, hef_in, da_in, fc_psi, ha_in, c2_in,
-                                                      c4_in, cracked, lambda_a), basis),
+        _on_basis(PHI_SHEAR_CONCRETE * shear_breakout(
+            c1_in, hef_in, da_in, fc_psi, ha_in, ca2_in=c2_in, ca2_other_in=c4_in,
+            cracked=cracked, lambda_a=lambda_a), basis),
         _on_basis(PHI_SHEAR_CONCRETE * pryout(ncb, hef_in), basis),
     )
     modes = [m[()] for m in np.broadcast_arrays(*modes_t, *modes_v)]
     modes_t, modes_v = modes[:3], modes[3:]
     tension, tension_mode = _governing(modes_t, ["steel", "concrete breakout", "pullout"])
     shear, shear_mode = _governing(modes_v, ["steel", "concrete breakout", "pryout"])
-    return AnchorCapacity(basis, *modes_t, *modes_v, tension, shear, tension_mode, shear_mode)
+    return AnchorCapacity(
+        basis=basis, steel_tension=modes_t[0], breakout_tension=modes_t[1], pullout=modes_t[2],
+        steel_shear=modes_v[0], breakout_shear=modes_v[1], pryout=modes_v[2], tension=tension,
+        shear=shear, tension_mode=tension_mode, shear_mode=shear_mode)
 
 
 def post_installed_embedment_ok(hef_in, ha_in):
