@@ -308,6 +308,7 @@ def table_rows(outcomes: list[Outcome]) -> list[tuple[str, ...]]:
 
 
 def render_text(outcomes: list[Outcome]) -> str:
+    """The outcomes as a table in plain text, with a count of those reproduced."""
     rows = table_rows(outcomes)
     widths = [max(len(r[i]) for r in [COLUMNS, *rows]) for i in range(len(COLUMNS))]
     line = "  ".join
@@ -315,9 +316,9 @@ def render_text(outcomes: list[Outcome]) -> str:
     sources = len({" ".join(o.entry.source.split()[:2]) for o in outcomes})  # "ASCE 7-16"...
     lines = [CAUTION, "",
              "Published worked examples and table values, computed on this installation:", "",
-             line(c.ljust(w) for c, w in zip(COLUMNS, widths)),
+             line(c.ljust(w) for c, w in zip(COLUMNS, widths, strict=True)),
              line("-" * w for w in widths)]
-    lines += [line(c.ljust(w) for c, w in zip(r, widths)).rstrip() for r in rows]
+    lines += [line(c.ljust(w) for c, w in zip(r, widths, strict=True)).rstrip() for r in rows]
     lines += ["", f"{len(outcomes) - failed} of {len(outcomes)} values reproduced "
                   f"({sources} sources); {failed} failed.", "", CAUTION]
     return "\n".join(lines)
