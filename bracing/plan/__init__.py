@@ -22,6 +22,7 @@ from bracing.plan.placement import (
     Places,
     anchor_distance_ft,
     brace_points,
+    braced_normal,
     place,
     wall_point,
 )
@@ -53,7 +54,7 @@ __all__ = [
     "ALSO_ON_SLAB", "AREA_WORDS", "BRACE_IN_AREA", "COMPASS", "DETAIL_LONGEST_FT", "GROUND_KINDS",
     "IN_PER_FT", "SLAB_KINDS", "TOLERANCE_FT", "ZONE_OVER_AREA", "Coords", "DayPlans", "Detail",
     "Elevation", "PanelPlace", "Places", "PlanArea", "PlanFinding", "PlanGeometry", "PlanLine",
-    "PlanPanel", "Point", "anchor_distance_ft", "brace_points", "day_findings",
+    "PlanPanel", "Point", "anchor_distance_ft", "brace_points", "braced_normal", "day_findings",
     "edge_distance_needed_in", "findings", "foot_edge_distances_in", "place", "plan_findings",
     "plan_geometry", "wall_point", "zone_reach", "zone_rule", "zones",
 ]

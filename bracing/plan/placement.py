@@ -23,6 +23,14 @@ from bracing.plan.records import IN_PER_FT
 from bracing.plan.slab import SlabFeet, slab_feet
 
 
+def braced_normal(direction, side) -> np.ndarray:
+    """The unit vector square to a line toward its braced side: the left hand (-u_y, u_x),
+    looking along the line's unit vector u = `direction` (..., 2), times `side` (+1: braced on
+    the left, -1: on the right) (plane geometry)."""
+    u = np.asarray(direction, dtype=float)
+    return np.stack([-u[..., 1], u[..., 0]], axis=-1) * np.asarray(side, dtype=float)[..., None]
+
+
 def wall_point(origin, direction, normal, along_ft, out_ft) -> np.ndarray:
     """The plan points `along_ft` along a wall's line from `origin` (its first edge on the face)
     and `out_ft` out from the face toward the braced side: origin + along u + out n, with u the
@@ -165,8 +173,7 @@ def place(site: Site, columns: dict[str, tuple] | None = None) -> Places:
     run = ends[on, 1] - ends[on, 0]
     length = np.hypot(run[:, 0], run[:, 1])
     u = run / length[:, None]
-    left = np.stack([-u[:, 1], u[:, 0]], axis=1)  # the left hand, looking from start to end
-    normal = left * sides[on][:, None]
+    normal = braced_normal(u, sides[on])
     offset = np.array(offset, dtype=float)[rows]
     return Places(index=rows, mark=np.array(mark, dtype=object)[rows],
                   line=[line[i] for i in rows.tolist()],

@@ -185,6 +185,7 @@ def _labels(g, fr: Frame, numbered, marks: list[str] | None, status, details=(),
 
 
 def _day_words(g) -> str:
+    """The day of a plan in words ('day 3'; 'all walls placed' with no day)."""
     return f"day {g.day}" if g.day is not None else "all walls placed"
 
 
@@ -204,6 +205,8 @@ def _overview_sheet(result, g, key: str) -> tuple[list[str], list[str], float]:
     items += caution
 
     def tail(top: float, most: int) -> tuple[list[str], float]:
+        """What stands under the plan frame from `top` down, listing `most` findings at most:
+        (items, the y below them)."""
         words = [details_words(details)] if details else []
         out, yy = lines_block([(w, LEAST_TEXT_MM, "normal", "#000") for w in words],
                               top + SCALE_ROW_MM)

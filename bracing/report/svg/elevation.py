@@ -1,3 +1,6 @@
+"""A wall in elevation, seen square to its braced face: its openings, each brace's insert point
+and the dimensions the crew sets them by."""
+
 from __future__ import annotations
 
 from dataclasses import dataclass
@@ -68,6 +71,7 @@ class _Sheet:
 
     @property
     def base(self) -> float:
+        """The wall's base line on the sheet (mm)."""
         return self.top + self.height_ft * self.k
 
 

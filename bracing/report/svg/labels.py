@@ -1,3 +1,6 @@
+"""Labels placed clear of each other and of the drawing (`place_labels`), and drawn with a
+white halo and, where one stands off its point, a leader line."""
+
 from __future__ import annotations
 
 from dataclasses import dataclass

@@ -1,3 +1,6 @@
+"""A plan frame: a window of the plan (ft) drawn on the sheet at a standard scale (`Frame`), and
+the plan's layers inside it, bottom to top, with the scale bar and north arrow under it."""
+
 from __future__ import annotations
 
 import math
@@ -8,6 +11,7 @@ import numpy as np
 import shapely
 from shapely.geometry import LineString, Point, Polygon
 
+from bracing.plan import braced_normal
 from bracing.report.svg.style import (
     AREA_STYLE,
     BRACE,
@@ -74,6 +78,7 @@ class Frame:
         self.key = key
 
     def xy(self, x: float, y: float) -> tuple[float, float]:
+        """A plan point (ft) on the sheet (mm, y down)."""
         minx, _, _, maxy = self.window
         return self.left + (x - minx) * self.k, self.top + (maxy - y) * self.k
 
@@ -83,6 +88,7 @@ class Frame:
 
     @property
     def box(self) -> tuple[float, float, float, float]:
+        """The frame on the sheet (least x, least y, greatest x, greatest y; mm)."""
         return self.left, self.top, self.left + self.width, self.top + self.height
 
     def to_sheet(self, geometry):
@@ -112,6 +118,7 @@ def frame_defs(fr: Frame) -> list[str]:
 
 
 def _ground_and_slab(g, fr: Frame) -> list[str]:
+    """The open ground, the slab with its holes hatched, and the slab joints."""
     u = fr.ft(0.25)
     out = [f'<polygon points="{plan_points(r)}" fill="{GROUND}" stroke="#b8a77a" '
            f'stroke-width="{num(u)}"/>' for r in g.ground]
@@ -128,6 +135,7 @@ def _ground_and_slab(g, fr: Frame) -> list[str]:
 
 
 def _area_fill(a, fr: Frame, css: str, stroke_mm: float) -> str:
+    """An area's outline, hatched or tinted in its kind's color (`AREA_STYLE`)."""
     color, angle, _ = AREA_STYLE[a.kind]
     fill = (f'fill="url(#hatch-{a.kind}-{fr.key})"' if angle is not None
             else f'fill="{color}" fill-opacity="0.15"')
@@ -154,6 +162,7 @@ def _keep_out_on_top(g, fr: Frame) -> list[str]:
 
 
 def _zones(g, fr: Frame) -> list[str]:
+    """Each standing wall's restricted zone (tinted, dashed) and evacuated zone (dashed red)."""
     u = fr.ft(0.25)
     out = []
     for p in g.panels:
@@ -174,7 +183,7 @@ def line_geometry(line):
     (x0, y0), (x1, y1) = line.start, line.end
     length = math.hypot(x1 - x0, y1 - y0) or 1.0
     ux, uy = (x1 - x0) / length, (y1 - y0) / length
-    nx, ny = (-uy, ux) if line.braced_side == "left" else (uy, -ux)
+    nx, ny = braced_normal((ux, uy), 1.0 if line.braced_side == "left" else -1.0).tolist()
     return (ux, uy), (nx, ny), ((x0 + x1) / 2, (y0 + y1) / 2)
 
 
@@ -194,6 +203,7 @@ def _lines(g, fr: Frame) -> list[str]:
 
 
 def _walls(g, fr: Frame) -> list[str]:
+    """Each wall's footprint: filled when standing, dashed outline when not."""
     u = fr.ft(0.25)
     out = []
     for p in g.panels:
@@ -208,6 +218,7 @@ def _walls(g, fr: Frame) -> list[str]:
 
 
 def _braces(g, fr: Frame) -> list[str]:
+    """Each brace, insert to foot, with its foot anchor's symbol."""
     u, r = fr.ft(0.25), fr.ft(0.8)
     out = []
     for p in g.panels:
@@ -220,6 +231,7 @@ def _braces(g, fr: Frame) -> list[str]:
 
 
 def number_findings(findings) -> list[tuple[int, object]]:
+    """The findings numbered 1, 2, ... dangers first, then warnings, then notices."""
     order = {"danger": 0, "warning": 1, "notice": 2}
     ranked = sorted(findings, key=lambda f: order.get(f.flag.severity, 3))
     return list(enumerate(ranked, 1))
@@ -294,11 +306,13 @@ def north_and_scale(fr: Frame) -> list[str]:
 
 
 def _scale_words(fr: Frame) -> str:
+    """The frame's scale in words, with the paper it holds on."""
     return (f"Scale 1 in = {fr.ft_per_in:g} ft printed {SHEET_MM:g} mm wide "
             "(letter or A4 portrait)")
 
 
 def frame_window(bounds, margin_ft: float) -> tuple[float, float, float, float]:
+    """The plan window (ft) of `bounds` with `margin_ft` all round."""
     minx, miny, maxx, maxy = bounds
     return minx - margin_ft, miny - margin_ft, maxx + margin_ft, maxy + margin_ft
 
@@ -312,6 +326,7 @@ def plan_layers(g, fr: Frame, numbered) -> list[str]:
 
 
 def in_window(pt, window) -> bool:
+    """Whether a plan point lies inside a window (least x, y, greatest x, y)."""
     return window[0] <= pt[0] <= window[2] and window[1] <= pt[1] <= window[3]
 
 

@@ -1,3 +1,6 @@
+"""The words under a plan: the legend of what it shows, the zones summarized by rule, and the
+numbered findings."""
+
 from __future__ import annotations
 
 from bracing.anchor_kinds import KINDS as ANCHOR_KINDS
@@ -124,6 +127,7 @@ def legend_block(items, y: float, key: str) -> tuple[list[str], float]:
 
 
 def _range(values: list[float]) -> str:
+    """'12 ft', or '8 to 14 ft', of some lengths (ft)."""
     lo, hi = min(values), max(values)
     return f"{lo:.0f} ft" if round(lo) == round(hi) else f"{lo:.0f} to {hi:.0f} ft"
 

@@ -1,3 +1,6 @@
+"""What a plan frame labels: wall marks (with a failing wall's status), detail plan numbers,
+finding numbers and area names, each at the point it names."""
+
 from __future__ import annotations
 
 import shapely
@@ -10,6 +13,7 @@ from bracing.report.svg.style import AREA_STYLE, DANGER, LABEL_MM, MARK_MM, STAT
 
 # --- labels of a plan frame -----------------------------------------------------------------------
 def _kind_words(a) -> str:
+    """An area's kind in words."""
     return AREA_STYLE[a.kind][2]
 
 
@@ -21,6 +25,7 @@ def _area_words(a) -> str:
 
 
 def status_of(result) -> dict[str, str]:
+    """Each wall's status by mark (`PanelResult.status`)."""
     return {p.mark: p.status for p in getattr(result, "panels", [])}
 
 

@@ -1,3 +1,5 @@
+"""A wall's bracing section, drawn to scale from the result's values."""
+
 from __future__ import annotations
 
 import math

@@ -1,3 +1,7 @@
+"""Sizes, colors and the small pieces every drawing is made of: numbers and text in SVG, text
+widths and wrapping, blocks of lines, the caution box, hatch patterns, anchor symbols and the
+SVG documents themselves."""
+
 from __future__ import annotations
 
 from xml.sax.saxutils import escape, quoteattr
@@ -56,6 +60,7 @@ def plan_points(coords) -> str:
 
 
 def text(x, y, words, size, anchor="start", weight="normal", fill="#000", extra="") -> str:
+    """An SVG text element at (x, y) in the drawing's units, its words escaped."""
     return (f'<text x="{num(x)}" y="{num(y)}" font-size="{num(size)}" text-anchor="{anchor}" '
             f'font-weight="{weight}" fill="{fill}"{extra}>{escape(str(words))}</text>')
 
@@ -130,6 +135,7 @@ def lines_block(lines, y: float, x: float = PAD_MM, width: float = SHEET_MM - 2 
 
 
 def caution_box(caution: str, y: float) -> tuple[list[str], float]:
+    """The caution in a tinted box across the sheet from `y` down: (items, the y below it)."""
     inner = SHEET_MM - 2 * PAD_MM - 3.0
     lines = wrap(caution, TEXT_MM, inner, bold=True)
     h = len(lines) * 1.25 * TEXT_MM + 1.6
@@ -142,6 +148,8 @@ def caution_box(caution: str, y: float) -> tuple[list[str], float]:
 
 
 def hatch_defs(key: str, step: float, u: float) -> list[str]:
+    """The hatch patterns of the area kinds and of slab holes, `step` apart, lines `1.6 u` wide; ids
+    end in `key`."""
     out = []
     hatches = {f"hatch-{k}": (c, a) for k, (c, a, _) in AREA_STYLE.items() if a is not None}
     hatches["hatch-hole"] = ("#4d4d4d", 45)
