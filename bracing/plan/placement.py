@@ -177,7 +177,8 @@ def place(site: Site, columns: dict[str, tuple] | None = None) -> Places:
     offset = np.array(offset, dtype=float)[rows]
     return Places(index=rows, mark=np.array(mark, dtype=object)[rows],
                   line=[line[i] for i in rows.tolist()],
-                  origin=ends[on, 0] + offset[:, None] * u, direction=u, normal=normal,
+                  origin=wall_point(ends[on, 0], u, normal, offset, 0.0),  # the first edge
+                  direction=u, normal=normal,
                   width_ft=np.array(width, dtype=float)[rows],
                   thickness_ft=np.array(thickness, dtype=float)[rows] / IN_PER_FT,
                   offset_ft=offset, line_ft=length, site=site, columns=panel)
