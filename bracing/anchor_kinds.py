@@ -118,23 +118,31 @@ def _deadman(fa, plan_edge, basis):
 RATED_SOURCE = "T/Ta + V/Va <= 1 (common practice)"
 
 KINDS: dict[str, AnchorKind] = {
-    "insert": AnchorKind("insert", ("rated_tension", "rated_shear"), _rated, _rated_ratio,
-                         f"maker's ratings, {RATED_SOURCE}", True, frozenset(), "open"),
-    "slab": AnchorKind("slab anchor", ("embedment", "diameter", "steel_area", "slab_thickness",
-                                       "concrete_strength"), _slab, _slab_ratio,
-                       "ACI 318-19 §17.6-17.8 (cracked), phi Nn x 0.6 for ASD", False,
-                       frozenset({"slab"}), "disc", notes=_slab_notes),
-    "helical": AnchorKind("helical anchor", ("installation_torque",), _helical, _helical_ratio,
-                          "ICC-ES AC358: K_t T / FS", True, frozenset({"ground"}),
-                          "crossed circle"),
-    "deadman": AnchorKind("deadman", ("weight",), _deadman, None,
-                          "weight and friction", True, frozenset({"ground", "slab"}), "square",
-                          own_checks=("deadman uplift", "deadman sliding"),
-                          notes=_deadman_notes),
-    "stake": AnchorKind("stake", ("rated_tension", "rated_shear"), _rated, _rated_ratio,
-                        f"maker's ratings, {RATED_SOURCE}", True, frozenset({"ground"}),
-                        "triangle"),
-    "deck": AnchorKind("deck anchor", ("rated_tension", "rated_shear"), _rated, _rated_ratio,
-                       f"ratings of the deck fastening, {RATED_SOURCE}", True, frozenset(),
-                       "diamond"),
+    "insert": AnchorKind(
+        words="insert", needs=("rated_tension", "rated_shear"), capacity=_rated,
+        ratio=_rated_ratio, source=f"maker's ratings, {RATED_SOURCE}", allowable=True,
+        stands_on=frozenset(), symbol="open"),
+    "slab": AnchorKind(
+        words="slab anchor",
+        needs=("embedment", "diameter", "steel_area", "slab_thickness", "concrete_strength"),
+        capacity=_slab, ratio=_slab_ratio,
+        source="ACI 318-19 §17.6-17.8 (cracked), phi Nn x 0.6 for ASD", allowable=False,
+        stands_on=frozenset({"slab"}), symbol="disc", notes=_slab_notes),
+    "helical": AnchorKind(
+        words="helical anchor", needs=("installation_torque",), capacity=_helical,
+        ratio=_helical_ratio, source="ICC-ES AC358: K_t T / FS", allowable=True,
+        stands_on=frozenset({"ground"}), symbol="crossed circle"),
+    "deadman": AnchorKind(
+        words="deadman", needs=("weight",), capacity=_deadman, ratio=None,
+        source="weight and friction", allowable=True, stands_on=frozenset({"ground", "slab"}),
+        symbol="square", own_checks=("deadman uplift", "deadman sliding"),
+        notes=_deadman_notes),
+    "stake": AnchorKind(
+        words="stake", needs=("rated_tension", "rated_shear"), capacity=_rated,
+        ratio=_rated_ratio, source=f"maker's ratings, {RATED_SOURCE}", allowable=True,
+        stands_on=frozenset({"ground"}), symbol="triangle"),
+    "deck": AnchorKind(
+        words="deck anchor", needs=("rated_tension", "rated_shear"), capacity=_rated,
+        ratio=_rated_ratio, source=f"ratings of the deck fastening, {RATED_SOURCE}",
+        allowable=True, stands_on=frozenset(), symbol="diamond"),
 }

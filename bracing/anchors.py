@@ -1,4 +1,5 @@
-"""Anchor capacity: slab anchors (ACI 318-19 Ch. 17), helical anchors (ICC-ES AC358), deadmen.
+"""Anchor capacity: slab anchors (ACI 318-19 Ch. 17); helical anchors (ICC-ES AC358) and
+deadmen are in `bracing.ground_anchors` and named here too.
 
 Pure functions over floats or numpy arrays. Forces in lb, lengths in in (anchors) or ft
 (deadmen), f'c in psi. ACI 318 gives nominal strengths and strength design (phi Nn); the
@@ -12,6 +13,77 @@ from dataclasses import dataclass
 
 import numpy as np
 
+# helical anchors and deadmen (bracing.ground_anchors), named here as well for the callers
+from bracing.ground_anchors import (
+    BEARING_IBC_1806_2_PSF,
+    COHESION_IBC_1806_2_PSF,
+    DEAD_LOAD_FACTOR_RESISTING,
+    FRICTION_CONCRETE_ON_CONCRETE,
+    FRICTION_IBC_1806_2,
+    FRICTION_NAVFAC_DM7_02,
+    FRICTION_TABLES,
+    HELICAL_FACTOR_OF_SAFETY,
+    KT_AC358_CERTAINTY,
+    KT_AC358_PER_FT,
+    SLIDING_FS_ULTIMATE,
+    allowable_friction,
+    deadman_overturning_moment,
+    deadman_resisting_moment,
+    deadman_sliding,
+    deadman_uplift,
+    helical_capacity,
+    required_torque,
+    soil_friction,
+)
+
+__all__ = [
+    "ASD_FROM_STRENGTH",
+    "BEARING_IBC_1806_2_PSF",
+    "COHESION_IBC_1806_2_PSF",
+    "DEAD_LOAD_FACTOR_RESISTING",
+    "FRICTION_CONCRETE_ON_CONCRETE",
+    "FRICTION_IBC_1806_2",
+    "FRICTION_NAVFAC_DM7_02",
+    "FRICTION_TABLES",
+    "HELICAL_FACTOR_OF_SAFETY",
+    "KT_AC358_CERTAINTY",
+    "KT_AC358_PER_FT",
+    "LAMBDA_A_NORMAL_WEIGHT",
+    "PHI_CAST_IN",
+    "PHI_POST_INSTALLED",
+    "PHI_SHEAR_CONCRETE",
+    "PHI_STEEL",
+    "SLIDING_FS_ULTIMATE",
+    "AnchorCapacity",
+    "allowable_friction",
+    "asd_from_strength",
+    "basic_breakout_tension",
+    "deadman_overturning_moment",
+    "deadman_resisting_moment",
+    "deadman_sliding",
+    "deadman_uplift",
+    "headed_pullout",
+    "helical_capacity",
+    "narrow_member_embedment",
+    "near_three_or_more_edges",
+    "phi_concrete_tension",
+    "post_installed_embedment_ok",
+    "projected_area_tension",
+    "pryout",
+    "psi_c_n",
+    "psi_cp_n",
+    "psi_ed_n",
+    "reference_area_tension",
+    "required_torque",
+    "shear_breakout",
+    "slab_anchor_capacity",
+    "soil_friction",
+    "steel_shear",
+    "steel_tension",
+    "tension_breakout",
+    "tension_shear_interaction",
+]
+
 # --- Strength reduction factors, ACI 318-19 Table 17.5.3 (from memory unless noted) -----------
 PHI_STEEL = {  # (a) steel: ductile / brittle element
     ("tension", True): 0.75, ("shear", True): 0.65,
@@ -22,72 +94,6 @@ PHI_POST_INSTALLED = {1: 0.65, 2: 0.55, 3: 0.45}  # (b), (c) Condition B, anchor
 PHI_SHEAR_CONCRETE = 0.70  # (b) Condition B: shear breakout and pryout, any anchor type
 ASD_FROM_STRENGTH = 0.6  # 1 / alpha, alpha = 1.0/0.6 (design.md §3; team's basis)
 LAMBDA_A_NORMAL_WEIGHT = 1.0  # ACI 318-19 §17.2.4
-
-# --- Helical anchors, ICC-ES AC358: torque correlation factor Kt (1/ft) -----------------------
-KT_AC358_PER_FT = {"1.5in_square": 10.0, "2.875in_round": 9.0, "3.5in_round": 7.0}
-KT_AC358_CERTAINTY = {"1.5in_square": "secondary", "2.875in_round": "from memory",
-                      "3.5in_round": "from memory"}
-HELICAL_FACTOR_OF_SAFETY = 2.0  # ICC-ES AC358 (secondary)
-
-# --- Deadman friction and bearing ------------------------------------------------------------
-# IBC Table 1806.2 lateral sliding resistance coefficients: ALLOWABLE values, times dead load.
-# text (2012 edition), except crystalline bedrock (from memory).
-FRICTION_IBC_1806_2 = {
-    "crystalline_bedrock": 0.70,
-    "sedimentary_rock": 0.35,  # sedimentary and foliated rock
-    "sandy_gravel": 0.35,  # sandy gravel and/or gravel (GW, GP)
-    "silty_sand": 0.25,  # sand, silty sand, clayey sand, silty and clayey gravel (SW..GC)
-}
-# IBC Table 1806.2 clays and silts (CL, ML, MH, CH): cohesion 130 psf times the contact area,
-# at most half the dead load (text, 2012 edition).
-COHESION_IBC_1806_2_PSF = {"clay_silt": 130.0}
-# IBC Table 1806.2 presumptive allowable foundation pressure, psf (from memory).
-BEARING_IBC_1806_2_PSF = {
-    "crystalline_bedrock": 12_000.0, "sedimentary_rock": 4_000.0, "sandy_gravel": 3_000.0,
-    "silty_sand": 2_000.0, "clay_silt": 1_500.0,
-}
-# NAVFAC DM-7.02 Table 1, mass concrete on soil: ULTIMATE friction factors, lower end of each
-# published range (from memory): divide by SLIDING_FS_ULTIMATE.
-FRICTION_NAVFAC_DM7_02 = {
-    "sandy_gravel": 0.55,  # clean gravel, gravel-sand mixtures, coarse sand: 0.55-0.60
-    "medium_sand": 0.45,  # clean fine to medium sand, silty medium to coarse sand: 0.45-0.55
-    "silty_sand": 0.35,  # clean fine sand, silty or clayey fine to medium sand: 0.35-0.45
-    "stiff_clay": 0.30,  # medium stiff and stiff clay and silty clay: 0.30-0.35
-}
-# Block resting on a slab: ACI 318-19 Table 22.9.4.2, concrete against hardened concrete not
-# intentionally roughened, mu = 0.6 lambda (from memory); a nominal value, so divide by the FS.
-FRICTION_CONCRETE_ON_CONCRETE = 0.6
-SLIDING_FS_ULTIMATE = 1.5  # on ultimate or nominal friction (NAVFAC DM-7.02, from memory)
-DEAD_LOAD_FACTOR_RESISTING = {"ASD": 0.6, "LRFD": 0.9}  # ASCE 7-16 §2.4.1 / §2.3.1
-# The tables a deadman's `soil` reads its friction from, and the basis of their values.
-FRICTION_TABLES = {"IBC": (FRICTION_IBC_1806_2, "allowable"),
-                   "NAVFAC": (FRICTION_NAVFAC_DM7_02, "ultimate")}
-
-
-def soil_friction(soil: str, table: str = "IBC") -> tuple[float, str]:
-    """(friction coefficient, 'allowable' | 'ultimate') of concrete on `soil` from `table`:
-    IBC Table 1806.2 (allowable) or NAVFAC DM-7.02 Table 1 (ultimate, lower end of its range).
-    """
-    values, basis = FRICTION_TABLES[table]
-    return values[soil], basis
-
-
-def allowable_friction(mu, basis: str):
-    """The friction coefficient to use with 0.6D: an allowable value (IBC Table 1806.2) as it
-    is; an ultimate or nominal one (NAVFAC DM-7.02, concrete on concrete, ACI 318-19
-    §22.9.4.2) over SLIDING_FS_ULTIMATE."""
-    return (np.asarray(mu, dtype=float) / (1.0 if basis == "allowable"
-                                           else SLIDING_FS_ULTIMATE))[()]
-
-
-def _dead_load_factor(basis):
-    """The factor on dead load that resists: by basis name, or given as a number (a load
-    combination's own factor, such as 0.6 for an observed gust)."""
-    if isinstance(basis, (int, float)):
-        return float(basis)
-    if basis not in DEAD_LOAD_FACTOR_RESISTING:
-        raise ValueError(f"basis must be 'ASD' or 'LRFD', not {basis!r}")
-    return DEAD_LOAD_FACTOR_RESISTING[basis]
 
 
 def _on_basis(phi_nominal, basis):
@@ -336,8 +342,8 @@ def slab_anchor_capacity(hef_in, fc_psi, Ase_in2, futa_psi, da_in, ha_in,
     is NaN and so is the governing tension (inf where the report says pullout does not
     govern). Adhesive bond (§17.6.5) is not covered. Condition B phi (Table 17.5.3).
     """
-    ncb = tension_breakout(hef_in, fc_psi, c1_in, c2_in, c3_in, c4_in, cast_in, cracked,
-                           cac_in, lambda_a)
+    ncb = tension_breakout(hef_in, fc_psi, c1_in=c1_in, c2_in=c2_in, c3_in=c3_in, c4_in=c4_in,
+                           cast_in=cast_in, cracked=cracked, cac_in=cac_in, lambda_a=lambda_a)
     if Abrg_in2 is not None:
         npn = headed_pullout(Abrg_in2, fc_psi, cracked)
     elif pullout_lb is not None:
@@ -354,15 +360,19 @@ def slab_anchor_capacity(hef_in, fc_psi, Ase_in2, futa_psi, da_in, ha_in,
     modes_v = (
         _on_basis(PHI_STEEL[("shear", ductile)]
                   * steel_shear(Ase_in2, futa_psi, grout_pad, fya_psi), basis),
-        _on_basis(PHI_SHEAR_CONCRETE * shear_breakout(c1_in, hef_in, da_in, fc_psi, ha_in, c2_in,
-                                                      c4_in, cracked, lambda_a), basis),
+        _on_basis(PHI_SHEAR_CONCRETE * shear_breakout(
+            c1_in, hef_in, da_in, fc_psi, ha_in, ca2_in=c2_in, ca2_other_in=c4_in,
+            cracked=cracked, lambda_a=lambda_a), basis),
         _on_basis(PHI_SHEAR_CONCRETE * pryout(ncb, hef_in), basis),
     )
     modes = [m[()] for m in np.broadcast_arrays(*modes_t, *modes_v)]
     modes_t, modes_v = modes[:3], modes[3:]
     tension, tension_mode = _governing(modes_t, ["steel", "concrete breakout", "pullout"])
     shear, shear_mode = _governing(modes_v, ["steel", "concrete breakout", "pryout"])
-    return AnchorCapacity(basis, *modes_t, *modes_v, tension, shear, tension_mode, shear_mode)
+    return AnchorCapacity(
+        basis=basis, steel_tension=modes_t[0], breakout_tension=modes_t[1], pullout=modes_t[2],
+        steel_shear=modes_v[0], breakout_shear=modes_v[1], pryout=modes_v[2], tension=tension,
+        shear=shear, tension_mode=tension_mode, shear_mode=shear_mode)
 
 
 def post_installed_embedment_ok(hef_in, ha_in):
@@ -370,52 +380,3 @@ def post_installed_embedment_ok(hef_in, ha_in):
     anchors in a slab of thickness ha. ACI 318-19 §17.9.4 (from memory)."""
     ha = np.asarray(ha_in, dtype=float)
     return np.asarray(hef_in) <= np.maximum(2.0 * ha / 3.0, ha - 4.0)
-
-
-# --- Helical ground anchors: ICC-ES AC358 ----------------------------------------------------
-def helical_capacity(torque_ftlb, Kt_per_ft=10.0, factor_of_safety=HELICAL_FACTOR_OF_SAFETY):
-    """Allowable tension of a helical anchor from its final installation torque, lb.
-
-    Q_ult = Kt T (ICC-ES AC358); allowable = Q_ult / FS.
-    """
-    return (np.asarray(Kt_per_ft, dtype=float) * torque_ftlb / factor_of_safety)[()]
-
-
-def required_torque(load_lb, Kt_per_ft=10.0, factor_of_safety=HELICAL_FACTOR_OF_SAFETY):
-    """Final installation torque for an allowable load, T = FS P / Kt, ft-lb (ICC-ES AC358)."""
-    return (factor_of_safety * np.asarray(load_lb, dtype=float) / Kt_per_ft)[()]
-
-
-# --- Deadman blocks ------------------------------------------------------------------------
-def deadman_uplift(weight_lb, basis="ASD"):
-    """Uplift a deadman resists by weight alone, lb: 0.6 W (ASD) or 0.9 W (LRFD).
-
-    ASCE 7-16 §2.4.1 (0.6D + 0.6W) / §2.3.1 (0.9D + 1.0W); compare with the uplift demand.
-    """
-    return (_dead_load_factor(basis) * np.asarray(weight_lb, dtype=float))[()]
-
-
-def deadman_sliding(weight_lb, uplift_lb, mu, factor_of_safety=1.0, basis="ASD"):
-    """Horizontal force a deadman resists by friction, lb: mu / FS (0.6 W - uplift) >= 0.
-
-    IBC Table 1806.2 coefficients are already allowable (FS 1.0); NAVFAC DM-7.02 ultimate
-    values and concrete on concrete (ACI 318-19 Table 22.9.4.2) take SLIDING_FS_ULTIMATE.
-    Dead load factor by basis (ASCE 7-16 §2.4.1 / §2.3.1); uplift is on the same basis.
-    """
-    normal = _dead_load_factor(basis) * np.asarray(weight_lb, dtype=float) - uplift_lb
-    return (np.asarray(mu, dtype=float) / factor_of_safety * np.maximum(normal, 0.0))[()]
-
-
-def deadman_overturning_moment(pull_lb, uplift_lb, attach_height_ft, attach_from_toe_ft):
-    """Overturning moment about the deadman's toe (its edge nearer the wall), lb-ft.
-
-    The brace foot pulls horizontally (pull_lb) at attach_height_ft above the block's base
-    and lifts (uplift_lb) at attach_from_toe_ft from the toe in plan (statics).
-    """
-    return (np.asarray(pull_lb, dtype=float) * attach_height_ft
-            + np.asarray(uplift_lb, dtype=float) * attach_from_toe_ft)[()]
-
-
-def deadman_resisting_moment(weight_lb, toe_to_centroid_ft, basis="ASD"):
-    """Moment of the deadman's factored weight about its toe, lb-ft (0.6 W ASD, 0.9 W LRFD)."""
-    return (deadman_uplift(weight_lb, basis) * np.asarray(toe_to_centroid_ft, dtype=float))[()]

@@ -107,14 +107,18 @@ class LumberGrade:
 LUMBER_GRADES = {
     (g.species, g.grade, g.size_class): g
     for g in (
-        LumberGrade("DF-L", "No.2", "dimension", 1350.0, 580_000.0,
-                    "NDS 2018 Supplement Table 4A", "secondary"),
-        LumberGrade("SPF", "No.1/No.2", "dimension", 1150.0, 510_000.0,
-                    "NDS 2018 Supplement Table 4A", "secondary"),
-        LumberGrade("Hem-Fir", "No.2", "dimension", 1300.0, 470_000.0,
-                    "NDS 2018 Supplement Table 4A", "from memory"),
-        LumberGrade("DF-L", "No.2", "posts_timbers", 700.0, 470_000.0,
-                    "NDS 2018 Supplement Table 4D", "from memory"),
+        LumberGrade(species="DF-L", grade="No.2", size_class="dimension", fc_psi=1350.0,
+                    emin_psi=580_000.0, source="NDS 2018 Supplement Table 4A",
+                    certainty="secondary"),
+        LumberGrade(species="SPF", grade="No.1/No.2", size_class="dimension", fc_psi=1150.0,
+                    emin_psi=510_000.0, source="NDS 2018 Supplement Table 4A",
+                    certainty="secondary"),
+        LumberGrade(species="Hem-Fir", grade="No.2", size_class="dimension", fc_psi=1300.0,
+                    emin_psi=470_000.0, source="NDS 2018 Supplement Table 4A",
+                    certainty="from memory"),
+        LumberGrade(species="DF-L", grade="No.2", size_class="posts_timbers", fc_psi=700.0,
+                    emin_psi=470_000.0, source="NDS 2018 Supplement Table 4D",
+                    certainty="from memory"),
     )
 }
 

@@ -235,23 +235,9 @@ def _change_text(c: Change) -> str:
     return f"{where}{_show(c.old)} -> {_show(c.new)}"
 
 
-def _wall_text(w) -> list[str]:
-    """The lines of one changed wall: its status, its changes, its utilization and speeds."""
-    lines = [f"  {w.mark}: status {w.old_status} -> {w.new_status}"]
-    lines += [f"    {c.kind}: {_change_text(c)}" for c in w.changes]
-    if not w.changes:
-        lines.append("    its own inputs are unchanged: the loads, rules or walls around it "
-                     "changed")
-    lines.append(f"    governing utilization {_u(w.old_utilization)} ({w.old_governing}) -> "
-                 f"{_u(w.new_utilization)} ({w.new_governing})")
-    lines.append(f"    working-limit gust {_mph(w.old_working_limit_mph)} -> "
-                 f"{_mph(w.new_working_limit_mph)}; stand-down gust "
-                 f"{_mph(w.old_stand_down_mph)} -> {_mph(w.new_stand_down_mph)}")
-    lines += [f"    WORSE x: {why}" for why in w.worse]
-    return lines
-
-
 def render_text(d: SiteDiff, old_name: str, new_name: str) -> str:
+    """The comparison in words: what changed in the inputs, each changed wall before and after,
+    and the verdict, between two cautions."""
     lines = [CAUTION, "", f"What changed from {old_name} to {new_name}:"]
     by_kind: dict[str, list[Change]] = {}
     for c in d.changes:
@@ -268,18 +254,38 @@ def render_text(d: SiteDiff, old_name: str, new_name: str) -> str:
     if d.walls:
         lines += ["", "Changed walls (before -> after):"]
     for w in d.walls:
-        lines += _wall_text(w)
-    worse = [w.mark for w in d.walls if w.worse]
-    lines.append("")
-    if d.fails:
-        reasons = []
-        if worse:
-            reasons.append(f"worse: {', '.join(worse)}")
-        if d.new_fails:
-            reasons.append("the new file fails a check or has a danger finding"
-                           + (f" ({', '.join(d.new_failing)})" if d.new_failing else ""))
-        lines.append(f"Verdict: NOT ACCEPTABLE x ({'; '.join(reasons)}).")
-    else:
-        lines.append("Verdict: no wall got worse, and the new file passes.")
-    lines += ["", CAUTION]
+        lines += _wall_lines(w)
+    lines += ["", _verdict(d), "", CAUTION]
     return "\n".join(lines)
+
+
+def _wall_lines(w: WallChange) -> list[str]:
+    """One changed wall before and after: its status, its changed inputs, its governing
+    utilization and its gusts, and why it is worse."""
+    lines = [f"  {w.mark}: status {w.old_status} -> {w.new_status}"]
+    for c in w.changes:
+        lines.append(f"    {c.kind}: {_change_text(c)}")
+    if not w.changes:
+        lines.append("    its own inputs are unchanged: the loads, rules or walls around it "
+                     "changed")
+    lines.append(f"    governing utilization {_u(w.old_utilization)} ({w.old_governing}) -> "
+                 f"{_u(w.new_utilization)} ({w.new_governing})")
+    lines.append(f"    working-limit gust {_mph(w.old_working_limit_mph)} -> "
+                 f"{_mph(w.new_working_limit_mph)}; stand-down gust "
+                 f"{_mph(w.old_stand_down_mph)} -> {_mph(w.new_stand_down_mph)}")
+    lines += [f"    WORSE x: {why}" for why in w.worse]
+    return lines
+
+
+def _verdict(d: SiteDiff) -> str:
+    """The verdict line: not acceptable (and why) when a wall got worse or the new file fails."""
+    if not d.fails:
+        return "Verdict: no wall got worse, and the new file passes."
+    reasons = []
+    worse = [w.mark for w in d.walls if w.worse]
+    if worse:
+        reasons.append(f"worse: {', '.join(worse)}")
+    if d.new_fails:
+        reasons.append("the new file fails a check or has a danger finding"
+                       + (f" ({', '.join(d.new_failing)})" if d.new_failing else ""))
+    return f"Verdict: NOT ACCEPTABLE x ({'; '.join(reasons)})."

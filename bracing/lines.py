@@ -70,7 +70,7 @@ def releases(site: Site, columns: dict[str, tuple] | None = None) -> Releases:
     marks, lift, after = (panel[k] for k in ("mark", "lift_day", "release_after"))
     lift = np.array(lift, float)  # None: NaN
     event_day = _last_event_days(site, after)
-    row = dict(zip(marks, range(len(marks)))) if site.signoffs else {}
+    row = dict(zip(marks, range(len(marks)), strict=True)) if site.signoffs else {}
     wall = np.array([row[s.panel] for s in site.signoffs], int)
     day = np.array([s.day for s in site.signoffs], int)
     order = np.lexsort((day, wall))                      # stable: same-day ones in file order
@@ -83,7 +83,8 @@ def releases(site: Site, columns: dict[str, tuple] | None = None) -> Releases:
     signed = first < len(order)
     release[signed] = day[first[signed]]
     early = np.flatnonzero(np.arange(len(order)) < first[wall])
-    return Releases(marks, lift, event_day, release, order[early], wall[early], day[early])
+    return Releases(marks=marks, lift=lift, event_day=event_day, release=release,
+                    early=order[early], early_wall=wall[early], early_day=day[early])
 
 
 def planned_weeks(releases: Releases) -> np.ndarray:
@@ -138,7 +139,7 @@ def line_groups(site: Site, releases: Releases, width: np.ndarray,
     line_id[np.isnan(lift)] = -1  # a wall not scheduled never stands on its line
     if not (line_id >= 0).any():
         return None
-    found = _standing_groups(site, lines, line_id, lift, releases.release, offset, width)
+    found = _standing_groups(site, lines, line_id, releases, offset, width)
     if found is None:  # every wall on the lines is released on its lift day
         return None
     member, lo, hi, ret_lo, ret_hi = found
@@ -230,20 +231,20 @@ def strip_case_c(groups: np.ndarray, width: np.ndarray, height: np.ndarray, base
     return largest.max(axis=1)
 
 
-def _standing_groups(site: Site, lines: dict, line_id: np.ndarray, lift: np.ndarray,
-                     release: np.ndarray, start: np.ndarray, width: np.ndarray
-                     ) -> tuple[np.ndarray, ...] | None:
+def _standing_groups(site: Site, lines: dict, line_id: np.ndarray, releases: Releases,
+                     start: np.ndarray, width: np.ndarray) -> tuple[np.ndarray, ...] | None:
     """The groups each wall on a line stands in braced, day by day: (panel index, the group's
     extent lo and hi along the line, the return wall at its start and at its end, ft), in day
     order. A released wall still stands (design.md §7): it stays in its group for the wind on
     its neighbours, but is not listed itself after its release.
 
-    `lines` are the site's lines by name; `line_id`, `lift`, `release`, `start` and `width` each
-    panel's line (its place in `lines`; -1: none, or not scheduled), lift and release day (inf:
-    not released), offset along the line and width. A wall in the same group as on its last
+    `lines` are the site's lines by name; `line_id`, `start` and `width` each panel's line (its
+    place in `lines`; -1: none, or not scheduled), offset along the line and width; `releases`
+    their lift and release days (inf: not released). A wall in the same group as on its last
     standing day is loaded the same, so only changes are listed (None when no wall on a line
     ever stands)."""
     gap = site.plan.joint_gap if site.plan else 1.0
+    lift, release = releases.lift, releases.release
     line_length = np.array([np.hypot(*np.subtract(ln.end, ln.start)) for ln in lines.values()])
     names = list(lines)
     on_line = line_id >= 0
@@ -276,7 +277,7 @@ def _standing_groups(site: Site, lines: dict, line_id: np.ndarray, lift: np.ndar
         found.append((members[changed], *now[:, changed]))
     if not found:
         return None
-    return tuple(np.concatenate(column).astype(float) for column in zip(*found))
+    return tuple(np.concatenate(column).astype(float) for column in zip(*found, strict=True))
 
 
 def _corners(lines: dict) -> dict[tuple[str, str], list[tuple[str, str]]]:
@@ -294,7 +295,7 @@ def _corners(lines: dict) -> dict[tuple[str, str], list[tuple[str, str]]]:
             break
         a, b = a[near_x], b[near_x]
         near = np.hypot(*(xy[a] - xy[b]).T) <= CORNER_TOLERANCE_FT
-        for j, k in zip(a[near].tolist(), b[near].tolist()):
+        for j, k in zip(a[near].tolist(), b[near].tolist(), strict=True):
             if ends[j][0] != ends[k][0]:
                 out.setdefault(ends[j], []).append(ends[k])
                 out.setdefault(ends[k], []).append(ends[j])

@@ -308,6 +308,7 @@ def table_rows(outcomes: list[Outcome]) -> list[tuple[str, ...]]:
 
 
 def render_text(outcomes: list[Outcome]) -> str:
+    """The outcomes as a table in plain text, with a count of those reproduced."""
     rows = table_rows(outcomes)
     widths = [max(len(r[i]) for r in [COLUMNS, *rows]) for i in range(len(COLUMNS))]
     line = "  ".join

@@ -17,7 +17,7 @@ from markupsafe import Markup
 from bracing.layout import ADVICE
 from bracing.report.json_view import as_output
 from bracing.report.text import fmt
-from bracing.results import SEVERITIES, Check, PanelResult, SiteResult
+from bracing.results import SEVERITIES, Check, DayResult, PanelResult, SiteResult
 
 WIDTH = 100
 TEMPLATES = Path(__file__).parent / "templates"
@@ -70,42 +70,56 @@ def collect(result: SiteResult) -> list[Finding]:
     region), then danger and warning findings; a finding shared by walls or days is one entry."""
     found: list[Finding] = []
     grouped: dict[tuple, Finding] = {}
-    wall_codes = set()
+    wall_codes: set[str] = set()
     for p in result.worst_first():
-        failing: dict[str, list[Check]] = {}
-        for c in p.worst_first():
-            if not c.passes:
-                failing.setdefault(c.element, []).append(c)
-        found += [_check_finding(p, cs) for cs in failing.values()]
-        for f in p.flags_worst_first():
-            wall_codes.add(f.code)
-            if f.severity == "notice" or f.code.endswith("-over") or (
-                    failing and f.code in RESTATES_A_CHECK):
-                continue
-            key = (f.code, f.message if f.severity == "danger" else "")
-            if key in grouped:
-                grouped[key].where.append(p.mark)
-                grouped[key].varies |= f.message != grouped[key].message
-                continue
-            fix = BRACE_IT if f.code in RESTATES_A_CHECK else ""
-            grouped[key] = Finding(severity=f.severity, where=[p.mark], element=f.code,
-                                   message=f.message, source=f.source, fix=fix)
+        found += _wall_findings(p, grouped, wall_codes)
     for d in result.days:
-        for f in d.flags:
-            if f.severity == "notice" or f.code in RESTATES_A_WALL or f.code in wall_codes:
-                continue
-            key = ("day", f.code, f.message)
-            if key in grouped:
-                grouped[key].where.append(f"day {d.day}")
-                continue
-            grouped[key] = Finding(severity=f.severity, where=[f"day {d.day}"], element=f.code,
-                                   message=f.message, source=f.source)
+        _day_findings(d, grouped, wall_codes)
     for f in result.flags:
         if f.severity != "notice":
             found.append(Finding(severity=f.severity, where=["site"], element=f.code,
                                  message=f.message, source=f.source))
     found += grouped.values()
     return sorted(found, key=lambda f: f.rank)
+
+
+def _wall_findings(p: PanelResult, grouped: dict[tuple, Finding],
+                   wall_codes: set[str]) -> list[Finding]:
+    """A wall's failing checks (one finding per element); its danger and warning flags go into
+    `grouped` (one entry per code, and per message for a danger), their codes into
+    `wall_codes`."""
+    failing: dict[str, list[Check]] = {}
+    for c in p.worst_first():
+        if not c.passes:
+            failing.setdefault(c.element, []).append(c)
+    for f in p.flags_worst_first():
+        wall_codes.add(f.code)
+        if f.severity == "notice" or f.code.endswith("-over") or (
+                failing and f.code in RESTATES_A_CHECK):
+            continue
+        key = (f.code, f.message if f.severity == "danger" else "")
+        if key in grouped:
+            grouped[key].where.append(p.mark)
+            grouped[key].varies |= f.message != grouped[key].message
+            continue
+        fix = BRACE_IT if f.code in RESTATES_A_CHECK else ""
+        grouped[key] = Finding(severity=f.severity, where=[p.mark], element=f.code,
+                               message=f.message, source=f.source, fix=fix)
+    return [_check_finding(p, cs) for cs in failing.values()]
+
+
+def _day_findings(d: DayResult, grouped: dict[tuple, Finding], wall_codes: set[str]) -> None:
+    """A day's danger and warning flags into `grouped` (one entry per code and message), but
+    those that restate a wall's."""
+    for f in d.flags:
+        if f.severity == "notice" or f.code in RESTATES_A_WALL or f.code in wall_codes:
+            continue
+        key = ("day", f.code, f.message)
+        if key in grouped:
+            grouped[key].where.append(f"day {d.day}")
+            continue
+        grouped[key] = Finding(severity=f.severity, where=[f"day {d.day}"], element=f.code,
+                               message=f.message, source=f.source)
 
 
 def _u(u: float | None) -> str:

@@ -7,7 +7,8 @@ a wall standing on grade), `B` its length along the wind line, `x` a distance fr
 
 import numpy as np
 
-TERRAIN = {"B": (7.0, 1200.0), "C": (9.5, 900.0), "D": (11.5, 700.0)}  # Table 26.11-1 (alpha, zg ft)
+# ASCE 7-16 Table 26.11-1: (alpha, zg ft) of each exposure
+TERRAIN = {"B": (7.0, 1200.0), "C": (9.5, 900.0), "D": (11.5, 700.0)}
 GUST_FACTOR = 0.85  # ASCE 7-16 §26.11.1, rigid structure
 KD_WALLS = 0.85  # ASCE 7-16 Table 26.6-1, solid freestanding walls and signs
 MIN_PRESSURE_PSF = 16.0  # ASCE 7-16 §29.7 minimum design wind load on As (from memory)

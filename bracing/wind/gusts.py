@@ -26,7 +26,7 @@ def sustained_equivalents_of_each(gust_mph) -> list[dict[str, float]]:
                                            for ratio in SUSTAINED_RATIOS.values())
     # the names of SUSTAINED_RATIOS in its order, written out: such a dict is made at once
     return [{"1-min": a, "2-min": b, "10-min": c, "1-hour": d}
-            for a, b, c, d in zip(one_min, two_min, ten_min, one_hour)]
+            for a, b, c, d in zip(one_min, two_min, ten_min, one_hour, strict=True)]
 
 
 def _kz_power_law(z_ft, exposure):
