@@ -24,7 +24,7 @@ EFP_IBC_1610_1 = {
     "ML-CL": (60.0, 100.0), "CL": (60.0, 100.0),
 }
 UNSUITABLE_IBC_1610_1 = ("OL", "OH", "MH", "CH")  # IBC 2018 Table 1610.1 note (from memory)
-EFP_SOURCE = "IBC 2018 Table 1610.1 (unconfirmed value, confirm in IBC 2018 Table 1610.1)"
+EFP_SOURCE = "IBC 2018 Table 1610.1 (unconfirmed value)"
 SOIL_UNIT_WEIGHT_PCF = 120.0  # common practice
 WATER_PCF = 62.4  # unit weight of water
 CONCRETE_PCF = 150.0  # normal-weight concrete, ASCE 7 Table C3.1-2 (from memory)
