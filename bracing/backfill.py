@@ -112,9 +112,25 @@ def stress_block_moment(as_in2, fy_psi, d_in, strength_psi, block_factor):
     return PHI_FLEXURE * as_in2 * fy_psi * (d_in - a / 2.0) / 12.0
 
 
+def beta_1(fc_psi):
+    """Stress block depth factor: 0.85 to 4000 psi, less 0.05 per 1000 psi, at least 0.65
+    (ACI 318-19 Table 22.2.2.4.3)."""
+    return np.clip(0.85 - 0.05 * (np.asarray(fc_psi, dtype=float) - 4000.0) / 1000.0, 0.65, 0.85)
+
+
+def flexure_phi(as_in2, fy_psi, d_in, fc_psi, es_psi=29.0e6):
+    """phi of a section by its net tensile strain, eps_t = 0.003 (d - c) / c, c = a / beta_1:
+    0.90 at eps_t >= 0.005, 0.65 at eps_t <= fy/Es, linear between (ACI 318-19 Table 21.2.2)."""
+    c = as_in2 * fy_psi / (0.85 * fc_psi * 12.0) / beta_1(fc_psi)
+    strain = 0.003 * (d_in - c) / c
+    yield_strain = fy_psi / es_psi
+    return np.clip(0.65 + 0.25 * (strain - yield_strain) / (0.005 - yield_strain), 0.65, 0.90)
+
+
 def reinforced_concrete_moment(as_in2, fy_psi, d_in, fc_psi):
-    """ACI 318-19 Ch. 22 rectangular stress block, 0.85 f'c."""
-    return stress_block_moment(as_in2, fy_psi, d_in, fc_psi, 0.85)
+    """ACI 318-19 Ch. 22 rectangular stress block, 0.85 f'c, phi by the net tensile strain."""
+    phi = flexure_phi(as_in2, fy_psi, d_in, fc_psi)
+    return phi / PHI_FLEXURE * stress_block_moment(as_in2, fy_psi, d_in, fc_psi, 0.85)
 
 
 def reinforced_masonry_moment(as_in2, fy_psi, d_in, fm_psi):
@@ -244,7 +260,7 @@ def section(wall: Wall, axial) -> Section:
     if wall.material == "reinforced":
         return Section(reinforced_concrete_moment(wall.steel, wall.fy, wall.depth, wall.fc),
                        concrete_shear(wall.fc, wall.depth, wall.lam), *STRENGTH,
-                       "ACI 318-19 §22.3, phi 0.90", "ACI 318-19 §22.5.5.1, phi 0.75")
+                       "ACI 318-19 §22.3, phi by Table 21.2.2", "ACI 318-19 §22.5.5.1, phi 0.75")
     if wall.material == "reinforced_masonry":
         return Section(reinforced_masonry_moment(wall.steel, wall.fy, wall.depth, wall.fm),
                        reinforced_masonry_shear(wall.fm, t), *STRENGTH,

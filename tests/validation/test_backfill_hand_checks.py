@@ -42,6 +42,19 @@ def test_reinforced_concrete_stress_block():
     assert backfill.concrete_shear(3000.0, d) == pytest.approx(5607.3, rel=1e-3)
 
 
+def test_heavily_reinforced_concrete_takes_a_lower_phi():
+    """ACI 318-19 Table 21.2.2 (phi by net tensile strain) and Table 22.2.2.4.3 (beta_1 0.85 at
+    f'c <= 4000 psi), text. The wall above with As = 1.2 in^2/ft:
+    a = 1.2 x 60,000 / 30,600 = 2.3529 in; c = 2.3529 / 0.85 = 2.7682 in;
+    eps_t = 0.003 x (5.6875 - 2.7682) / 2.7682 = 0.0031638; eps_ty = 60,000 / 29,000,000
+    = 0.0020690; phi = 0.65 + 0.25 x (0.0031638 - 0.0020690) / (0.005 - 0.0020690) = 0.7434.
+    Mn = 72,000 x (5.6875 - 1.1765) = 324,794 lb-in; phi Mn = 0.7434 x 324,794 = 241,447 lb-in
+    = 20,121 lb-ft per ft."""
+    d = 8.0 - 2.0 - 0.625 / 2.0
+    assert backfill.reinforced_concrete_moment(1.2, 60000.0, d, 3000.0) == pytest.approx(
+        20121.0, rel=1e-3)
+
+
 def test_reinforced_masonry_stress_block():
     """TMS 402-16 §9.3.2 (from memory): a = As fy / (0.80 f'm b), phi 0.90.
     8 in CMU (7.625 in), #5 at 24 in centred: As = 0.31 x 12/24 = 0.155 in^2/ft,
