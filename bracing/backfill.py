@@ -105,11 +105,11 @@ def steel_per_foot(bar_area_in2, spacing_in):
 
 
 def stress_block_moment(as_in2, fy_psi, d_in, strength_psi, block_factor):
-    """phi Mn = 0.9 As fy (d - a/2), a = As fy / (block_factor x f' x b), b = 12 in, lb-ft/ft:
+    """Mn = As fy (d - a/2), a = As fy / (block_factor x f' x b), b = 12 in, lb-ft/ft:
     concrete 0.85 f'c (ACI 318-19 §22.2.2.4.1, §22.3), grouted masonry 0.80 f'm (TMS 402-16
     §9.3.2, from memory)."""
     a = as_in2 * fy_psi / (block_factor * strength_psi * 12.0)
-    return PHI_FLEXURE * as_in2 * fy_psi * (d_in - a / 2.0) / 12.0
+    return as_in2 * fy_psi * (d_in - a / 2.0) / 12.0
 
 
 def beta_1(fc_psi):
@@ -128,14 +128,15 @@ def flexure_phi(as_in2, fy_psi, d_in, fc_psi, es_psi=29.0e6):
 
 
 def reinforced_concrete_moment(as_in2, fy_psi, d_in, fc_psi):
-    """ACI 318-19 Ch. 22 rectangular stress block, 0.85 f'c, phi by the net tensile strain."""
-    phi = flexure_phi(as_in2, fy_psi, d_in, fc_psi)
-    return phi / PHI_FLEXURE * stress_block_moment(as_in2, fy_psi, d_in, fc_psi, 0.85)
+    """phi Mn, ACI 318-19 Ch. 22 rectangular stress block, 0.85 f'c, phi by the net tensile
+    strain."""
+    return (flexure_phi(as_in2, fy_psi, d_in, fc_psi)
+            * stress_block_moment(as_in2, fy_psi, d_in, fc_psi, 0.85))
 
 
 def reinforced_masonry_moment(as_in2, fy_psi, d_in, fm_psi):
-    """TMS 402-16 §9.3 strength design, 0.80 f'm (from memory)."""
-    return stress_block_moment(as_in2, fy_psi, d_in, fm_psi, 0.80)
+    """phi Mn, TMS 402-16 §9.3 strength design, 0.80 f'm, phi 0.90 (from memory)."""
+    return PHI_FLEXURE * stress_block_moment(as_in2, fy_psi, d_in, fm_psi, 0.80)
 
 
 def concrete_shear(fc_psi, d_in, lam=1.0):
