@@ -219,7 +219,7 @@ class Wall:
     fm: float = 2000.0              # f'm, psi
     tension: float = 0.0            # masonry allowable flexural tension normal to bed joints, psi
     grouting: str = "grouted"
-    cured: bool = True
+    cured: bool = True              # masonry: mortar (and grout) cured
     footing_width: float | None = None      # ft
     footing_thickness: float = 1.0          # ft
     toe: float | None = None                # ft, inside projection (default: wall centred)
@@ -262,12 +262,12 @@ def section(wall: Wall, axial) -> Section:
         return Section(reinforced_concrete_moment(wall.steel, wall.fy, wall.depth, wall.fc),
                        concrete_shear(wall.fc, wall.depth, wall.lam), *STRENGTH,
                        "ACI 318-19 §22.3, phi by Table 21.2.2", "ACI 318-19 §22.5.5.1, phi 0.75")
+    credit = 1.0 if wall.cured else 0.0  # fresh masonry takes no backfill (method notes §12)
     if wall.material == "reinforced_masonry":
-        return Section(reinforced_masonry_moment(wall.steel, wall.fy, wall.depth, wall.fm),
-                       reinforced_masonry_shear(wall.fm, t), *STRENGTH,
+        return Section(credit * reinforced_masonry_moment(wall.steel, wall.fy, wall.depth, wall.fm),
+                       credit * reinforced_masonry_shear(wall.fm, t), *STRENGTH,
                        "TMS 402-16 §9.3.3, phi 0.90", "TMS 402-16 §9.3.3.1.2, phi 0.80")
     s, a = stability.masonry_section(t, wall.grouting)
-    credit = 1.0 if wall.cured else 0.0  # fresh masonry takes no backfill (method notes §12)
     return Section(credit * stability.masonry_flexural_capacity(wall.tension, s, a, axial),
                    credit * stability.masonry_bed_joint_shear(a, axial, wall.fm), *ALLOWABLE,
                    "TMS 402-16 §8.2.4 allowable flexural tension normal to bed joints",

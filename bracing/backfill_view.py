@@ -123,11 +123,13 @@ def _masonry(args) -> dict:
     fm = _read(args, "fm", "stress", low=500.0, high=6000.0)
     age = _read(args, "mortar_age", "age", above=False, high=36500.0)
     cure = DEFAULT_RULES["masonry_cure_days"].value
+    cured = age is None or age >= cure
     if args.bar is not None:
-        return {"material": "reinforced_masonry", "fm": fm, "grouting": "grouted"}
+        return {"material": "reinforced_masonry", "fm": fm, "grouting": "grouted",
+                "cured": cured}
     return {"material": "masonry", "fm": fm, "grouting": args.grouting,
             "tension": stability.FLEXURAL_TENSION_PSI[(args.grouting, args.mortar)],
-            "cured": age is None or age >= cure}
+            "cured": cured}
 
 
 def _steel(args, thickness: float, masonry: bool) -> dict:
@@ -249,10 +251,11 @@ def _flags(args, wall: backfill.Wall) -> list[Flag]:
         flags.append(Flag("backfill-drainage-not-stated", "warning",
                           "no water level and no working drains stated: checked dry; give "
                           "--water-level or --drained", "method notes §12"))
-    if wall.material == "masonry" and not wall.cured:
+    masonry = wall.material in ("masonry", "reinforced_masonry")
+    if masonry and not wall.cured:
         flags.append(Flag("backfill-fresh-masonry", "danger",
                           "mortar not yet cured: the wall takes no backfill", "method notes §12"))
-    if wall.material == "masonry" and args.mortar_age is None:
+    if masonry and args.mortar_age is None:
         flags.append(Flag("backfill-mortar-age-not-given", "warning",
                           "mortar age not given: taken as cured", "method notes §12"))
     if wall.footing_width is None:

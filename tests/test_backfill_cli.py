@@ -49,13 +49,17 @@ def test_units_of_another_system_are_read(capsys):
     assert json.loads(out.out)["backfill"]["height_ft"] == pytest.approx(4.0)
 
 
-def test_fresh_masonry_fails_with_a_danger(capsys):
+@pytest.mark.parametrize("bars", [[], ["--bar", "#5", "--bar-spacing", "16in"]])
+def test_fresh_masonry_fails_with_a_danger(capsys, bars):
+    # method notes §12: masonry whose mortar is not cured takes no backfill, grouted and
+    # reinforced or not (28 days, the team's cure rule)
     code = main(["backfill", "--height", "8ft", "--thickness", "7.625in", "--material",
                  "masonry", "--mortar-age", "3days", "--soil", "GW", "--backfill-height",
-                 "1ft", "--drained", "--json"])
+                 "1ft", "--drained", "--json", *bars])
     record = json.loads(capsys.readouterr().out)
     assert code == 1
     assert any(f["severity"] == "danger" for f in record["flags"])
+    assert record["max_backfill_height_ft"] == 0.0
 
 
 def test_a_failing_cantilever_is_held_by_inside_braces(capsys):
