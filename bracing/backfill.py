@@ -338,6 +338,11 @@ class InsideBrace:
     anchor_shear: float | None = None       # rated, lb
 
 
+def brace_uplift(reaction_plf, angle_deg):
+    """Upward push on the wall per ft from braces in compression, R tan(theta) (statics)."""
+    return reaction_plf * np.tan(np.radians(angle_deg))
+
+
 def span_effects(soil: Soil, height, brace_height, reaction, points: int = 201):
     """Largest |moment| and |shear| per ft between the pinned base and the top of a propped
     wall (statics over `points` levels up to the backfill top)."""
@@ -357,6 +362,10 @@ def braced_checks(wall: Wall, soil: Soil, height: float, brace: InsideBrace) -> 
     checks = wall_checks(wall, section(wall, 0.0), moment, shear, "between base and brace")
     checks.append(Check("inside brace", "axial", ALLOWABLE[0] * float(axial), brace.capacity,
                         "lb", ALLOWABLE[1], "brace rating (allowable), R = M_base / h_b"))
+    lift = ALLOWABLE[0] * float(brace_uplift(reaction, brace.angle))
+    checks.append(Check("wall", "lifted by the braces", lift,
+                        anchors.DEAD_LOAD_FACTOR_RESISTING["ASD"] * wall.weight, "lb/ft",
+                        COMBINATION["ASD"], "statics, R tan(theta) against 0.6D"))
     if brace.anchor_tension is not None and brace.anchor_shear is not None:
         pull = ALLOWABLE[0] * float(reaction) * brace.spacing
         anchor = KINDS["stake"]

@@ -153,3 +153,18 @@ def test_inside_brace_force_by_hand(capsys):
     axial = next(c for c in brace["checks"] if c["element"] == "inside brace")
     assert axial["utilization"] == pytest.approx(4850.8 / 6000.0, rel=1e-4)
     assert code == (0 if record["passes"] else 1)
+
+
+def test_inside_braces_that_lift_the_wall():
+    """Statics and ASCE 7-16 §2.4.1 0.6D (from memory): braces in compression push the wall up
+    by R tan(theta). The 8 in plain wall (100 psf x 8 ft = 800 lb/ft), 7 ft of SM at rest,
+    braces at 6 ft: R = 571.7 lb/ft. At 45 degrees: 571.7 x 1.0 = 571.7 lb/ft against
+    0.6 x 800 = 480 lb/ft (fails, 1.19); at 30 degrees: 571.7 x 0.57735 = 330.1 lb/ft (0.69)."""
+    def lift(angle):
+        brace = backfill.InsideBrace(height=6.0, spacing=6.0, angle=angle, capacity=1e9)
+        checks = backfill.braced_checks(_plain_wall(), SM_AT_REST, 7.0, brace)
+        return next(c for c in checks if c.region == "lifted by the braces")
+    steep, flat = lift(45.0), lift(30.0)
+    assert (steep.demand, steep.capacity) == pytest.approx((571.67, 480.0), rel=1e-4)
+    assert not steep.passes
+    assert flat.demand == pytest.approx(330.06, rel=1e-4) and flat.passes
