@@ -28,12 +28,12 @@ EFP_SOURCE = "IBC 2018 Table 1610.1 (unconfirmed value)"
 SOIL_UNIT_WEIGHT_PCF = 120.0  # common practice
 WATER_PCF = 62.4  # unit weight of water
 CONCRETE_PCF = 150.0  # normal-weight concrete, ASCE 7 Table C3.1-2 (from memory)
-# ASCE 7-16 §2.3.1 / §2.4.1: lateral earth pressure H where it adds to the load effect. from memory.
+# ASCE 7-16 §2.3.1 / §2.4.1: earth pressure H where it adds to the load effect (from memory).
 LOAD_FACTOR_H = {"LRFD": 1.6, "ASD": 1.0}
 COMBINATION = {"LRFD": "0.9D + 1.6H (ASCE 7-16 §2.3.1, unconfirmed value)",
                "ASD": "0.6D + 1.0H (ASCE 7-16 §2.4.1, unconfirmed value)"}
 PHI_PLAIN = 0.60  # ACI 318-19 §21.2.1, plain concrete (from memory)
-PHI_FLEXURE = 0.90  # ACI 318-19 Table 21.2.2, tension-controlled; TMS 402-16 §9.1.4.4 (from memory)
+PHI_FLEXURE = 0.90  # tension-controlled, ACI 318-19 Table 21.2.2; TMS 402-16 §9.1.4.4, from memory
 PHI_SHEAR_CONCRETE = 0.75  # ACI 318-19 Table 21.2.1
 PHI_SHEAR_MASONRY = 0.80  # TMS 402-16 §9.1.4.5 (from memory)
 
@@ -374,6 +374,15 @@ def braced_checks(wall: Wall, soil: Soil, height: float, brace: InsideBrace) -> 
                                                brace.anchor_shear)),
                             1.0, "ratio", ALLOWABLE[1], anchor.source))
     return checks
+
+
+def braced_max_height(wall: Wall, soil: Soil, brace: InsideBrace) -> float:
+    """The highest backfill (ft) the braced wall takes, by bisection up to the wall's height
+    with every braced check worked afresh at each trial height."""
+    def worst(heights):
+        return np.array([governing(braced_checks(wall, soil, float(h), brace))
+                         for h in np.atleast_1d(heights)]).reshape(np.shape(heights))
+    return float(solve_max(worst, wall.height, iterations=40))
 
 
 def governing(checks: list) -> float:

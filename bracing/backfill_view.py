@@ -237,6 +237,7 @@ def evaluate(args) -> dict:
             "reaction_plf": reaction,
             "force_lb": float(backfill.brace_force(reaction, brace.spacing, brace.angle)),
             "utilization": backfill.governing(braced),
+            "max_backfill_height_ft": backfill.braced_max_height(wall, soil, brace),
             "checks": [c.as_dict() for c in braced]},
         "utilization": backfill.governing(verdict_checks),
         "passes": not fails,
@@ -297,7 +298,8 @@ def text(record: dict) -> str:
     if brace:
         lines.append(f"  inside braces at {brace['height_ft']:g} ft, every "
                      f"{brace['spacing_ft']:g} ft, {brace['angle_deg']:g} deg: reaction "
-                     f"{brace['reaction_plf']:,.0f} lb/ft, brace force {brace['force_lb']:,.0f} lb")
+                     f"{brace['reaction_plf']:,.0f} lb/ft, brace force "
+                     f"{brace['force_lb']:,.0f} lb; with them, backfill up to {brace['max_backfill_height_ft']:.2f} ft")
     lines += [f"  {f['severity'].upper()}: {f['message']} [{f['source']}]"
               for f in record["flags"]]
     lines.append("  as a cantilever from its footing" + (

@@ -81,3 +81,16 @@ def test_the_brace_reaction_balances_the_earth_moment_about_the_base(soil, heigh
     assert base_moment - reaction * brace.height == pytest.approx(0.0, abs=1e-6 * moment + 1e-9)
     force = backfill.brace_force(reaction, spacing, angle)
     assert force * np.cos(np.radians(angle)) == pytest.approx(reaction * spacing)
+
+
+@settings(max_examples=25, deadline=None)
+@given(walls(), soils, st.floats(0.3, 1.0), st.floats(2.0, 8.0), st.floats(20.0, 60.0),
+       st.floats(1000.0, 20000.0))
+def test_the_braced_maximum_height_is_where_the_braced_checks_reach_one(wall, soil, at, spacing,
+                                                                        angle, capacity):
+    brace = InsideBrace(height=at * wall.height, spacing=spacing, angle=angle,
+                        capacity=capacity)
+    top = backfill.braced_max_height(wall, soil, brace)
+    assume(0.01 < top < wall.height - 0.01)
+    worst = backfill.governing(backfill.braced_checks(wall, soil, top, brace))
+    assert worst == pytest.approx(1.0, abs=1e-6)
