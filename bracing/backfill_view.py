@@ -299,7 +299,8 @@ def text(record: dict) -> str:
         lines.append(f"  inside braces at {brace['height_ft']:g} ft, every "
                      f"{brace['spacing_ft']:g} ft, {brace['angle_deg']:g} deg: reaction "
                      f"{brace['reaction_plf']:,.0f} lb/ft, brace force "
-                     f"{brace['force_lb']:,.0f} lb; with them, backfill up to {brace['max_backfill_height_ft']:.2f} ft")
+                     f"{brace['force_lb']:,.0f} lb; with them, backfill up to "
+                     f"{brace['max_backfill_height_ft']:.2f} ft")
     lines += [f"  {f['severity'].upper()}: {f['message']} [{f['source']}]"
               for f in record["flags"]]
     lines.append("  as a cantilever from its footing" + (
