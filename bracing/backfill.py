@@ -257,7 +257,8 @@ def section(wall: Wall, axial) -> Section:
     if wall.material == "plain":
         return Section(plain_concrete_moment(wall.fc, t, wall.lam),
                        plain_concrete_shear(wall.fc, t, wall.lam), *STRENGTH,
-                       "ACI 318-19 §14.5.2.1, phi 0.60", "ACI 318-19 §14.5.5.1, phi 0.60")
+                       "ACI 318-19 §14.5.2.1, phi 0.60 (unconfirmed value)",
+                       "ACI 318-19 §14.5.5.1, phi 0.60 (unconfirmed value)")
     if wall.material == "reinforced":
         return Section(reinforced_concrete_moment(wall.steel, wall.fy, wall.depth, wall.fc),
                        concrete_shear(wall.fc, wall.depth, wall.lam), *STRENGTH,
@@ -266,12 +267,14 @@ def section(wall: Wall, axial) -> Section:
     if wall.material == "reinforced_masonry":
         return Section(credit * reinforced_masonry_moment(wall.steel, wall.fy, wall.depth, wall.fm),
                        credit * reinforced_masonry_shear(wall.fm, t), *STRENGTH,
-                       "TMS 402-16 §9.3.3, phi 0.90", "TMS 402-16 §9.3.3.1.2, phi 0.80")
+                       "TMS 402-16 §9.3.3, phi 0.90 (unconfirmed value)",
+                       "TMS 402-16 §9.3.3.1.2, phi 0.80 (unconfirmed value)")
     s, a = stability.masonry_section(t, wall.grouting)
     return Section(credit * stability.masonry_flexural_capacity(wall.tension, s, a, axial),
                    credit * stability.masonry_bed_joint_shear(a, axial, wall.fm), *ALLOWABLE,
-                   "TMS 402-16 §8.2.4 allowable flexural tension normal to bed joints",
-                   "TMS 402-16 §8.2.6.2 bed-joint shear")
+                   "TMS 402-16 §8.2.4 allowable flexural tension normal to bed joints "
+                   "(unconfirmed value)",
+                   "TMS 402-16 §8.2.6.2 bed-joint shear (unconfirmed value)")
 
 
 def wall_checks(wall: Wall, sec: Section, moment, shear, region: str) -> list:
