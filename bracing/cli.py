@@ -16,7 +16,7 @@ from pathlib import Path
 
 from pydantic import ValidationError
 
-from bracing import scenario
+from bracing import backfill_view, scenario
 from bracing.evaluate import evaluate
 from bracing.model import Site, error_message
 from bracing.report import json_view, text
@@ -184,6 +184,8 @@ def build_parser() -> argparse.ArgumentParser:
     _output_options(panel)
     panel.set_defaults(run=run_panel)
 
+    backfill_view.add_command(commands).set_defaults(run=run_backfill)
+
     check = commands.add_parser("check", help="check every wall of a site file")
     check.add_argument("site", help="site file (TOML)")
     check.add_argument("--design", action="store_true",
@@ -320,6 +322,16 @@ def run_panel(args) -> int:
                  + text.panel_text(p, units) + ["", result.caution])
         print("\n".join(text.wrap(text.localize(line, units)) for line in lines))
     return EXIT_FAILS if p.fails else 0
+
+
+def run_backfill(args) -> int:
+    """`bracing backfill`: one foundation wall backfilled before the floor (method notes §12)."""
+    try:
+        record = backfill_view.evaluate(args)
+    except backfill_view.FlagError as exc:
+        raise BadInput(str(exc)) from None
+    print(backfill_view.dumps(record) if args.json else backfill_view.text(record))
+    return 0 if record["passes"] else EXIT_FAILS
 
 
 def _flag_problem(err: dict) -> str:
