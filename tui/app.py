@@ -20,7 +20,7 @@ from textual.app import App, ComposeResult
 from textual.binding import Binding
 from textual.containers import Vertical
 from textual.reactive import reactive
-from textual.widgets import Footer, Input, Select, TabbedContent, TabPane
+from textual.widgets import Footer, Input, Select, Static, TabbedContent, TabPane
 
 from bracing import scenario
 from bracing.evaluate import evaluate, evaluate_walls
@@ -97,14 +97,15 @@ class BracingApp(App[int]):
     TITLE = "Wall bracing"
     ENABLE_COMMAND_PALETTE = False
     BINDINGS: ClassVar[list[Binding]] = [
-        Binding("1", "show('walls')", "Walls",
+        # the tabs show the number keys, so the footer leaves them out (room for q at 80x24)
+        Binding("1", "show('walls')", "Walls", show=False,
                 tooltip="the Walls view: every wall, worst first, with filters"),
-        Binding("2", "show('wall')", "Wall",
+        Binding("2", "show('wall')", "Wall", show=False,
                 tooltip="the Wall view: its inputs, checks and drawings"),
-        Binding("3", "show('day')", "Day",
+        Binding("3", "show('day')", "Day", show=False,
                 tooltip="the Day view: lifts, braces and anchors, go / no-go"),
-        Binding("4", "show('plan')", "Plan", tooltip="the Plan view: the site in plan on a day"),
-        Binding("5", "show('settings')", "Settings",
+        Binding("4", "show('plan')", "Plan", show=False, tooltip="the Plan view: the site in plan on a day"),
+        Binding("5", "show('settings')", "Settings", show=False,
                 tooltip="the Settings view: wind basis, exposure, period, rules"),
         Binding("question_mark,f1", "show('keys')", "Keys", key_display="?",
                 tooltip="the Keys view: this list"),
@@ -173,12 +174,20 @@ class BracingApp(App[int]):
         with TabbedContent(initial="walls", id="views"):
             for view, title in VIEWS.items():
                 with TabPane(title, id=view):
-                    if view == "walls":
-                        yield self.make_view(view)
+                    # a view is built when first shown; until then the pane says so in words
+                    yield self.make_view(view) if view == "walls" else \
+                        Static("Loading…", classes="loading")
         yield Footer()
 
     def make_view(self, view: str):
-        """A view, its attributes bound to the app's (a view is built when first shown)."""
+        """A view, its attributes bound to the app's (a view is built when first shown) and
+        given their values at once, so that it is whole when it is mounted."""
+        widget = self._bound_view(view)
+        for name in widget._reactive_connect or {}:
+            widget.set_reactive(getattr(type(widget), name), getattr(self, name))
+        return widget
+
+    def _bound_view(self, view: str):
         app = BracingApp
         if view == "walls":
             return WallsView(id="walls-view").data_bind(app.result, app.site_file, app.units)
@@ -225,19 +234,31 @@ class BracingApp(App[int]):
             return True if self.redo_stack else None
         return True
 
+    async def _ensure_view(self, view: str) -> None:
+        """Build `view` in its pane (in place of the placeholder) if it is not built yet."""
+        pane = self.query_one(f"#{view}", TabPane)
+        placeholder = pane.query(".loading")
+        if placeholder:
+            await placeholder.remove()
+            widget = self.make_view(view)
+            await pane.mount(widget)
+
     @on(TabbedContent.TabActivated)
     async def _tab(self, event: TabbedContent.TabActivated) -> None:
-        self.view = event.pane.id or "walls"
-        if not event.pane.children:
-            await event.pane.mount(self.make_view(self.view))
+        """A tab chosen with the mouse or the tab keys (the number keys go by action_show)."""
+        view = event.pane.id or "walls"
+        if view == self.view:
+            return
+        self.view = view
+        await self._ensure_view(view)
         self.refresh_bindings()
-        self.call_after_refresh(self._focus_view)
+        self._focus_view()
 
     def _focus_view(self) -> None:
         if self.edit_next and self.view in ("wall", "settings"):
             self.edit_next = False
             form = "#wall-form" if self.view == "wall" else "#settings-form"
-            fields = self.query(f"{form} Input, {form} Select")
+            fields = self.query(f"{form} Input")  # a box takes the keys typed next
             if fields:
                 fields.first().focus()
                 return
@@ -245,13 +266,17 @@ class BracingApp(App[int]):
         if target:
             target.first().focus()
 
-    def action_show(self, view: str) -> None:
+    async def action_show(self, view: str) -> None:
+        """Show a view and focus it before the next key is read (keys typed meanwhile reach
+        the focused field, never the app's view keys)."""
         tabs = self.query_one(TabbedContent)
-        if tabs.active == view:
-            self._focus_view()
-            return
-        self.screen.set_focus(None)  # focus left in the old view would bring it back
-        tabs.active = view
+        if tabs.active != view:
+            await self._ensure_view(view)
+            self.screen.set_focus(None)  # focus left in the old view would bring it back
+            self.view = view
+            tabs.active = view
+            self.refresh_bindings()
+        self._focus_view()
 
     def action_step(self, delta: int) -> None:
         """The next or previous wall (worst first) or day."""
@@ -270,13 +295,10 @@ class BracingApp(App[int]):
         view = self.query_one(PlanView)
         view.zoom = int(min(8, max(1, view.zoom * factor)))
 
-    def action_edit(self) -> None:
+    async def action_edit(self) -> None:
         """Go to the first input of the Wall view (or of Settings when it is on view)."""
         self.edit_next = True
-        if self.view in ("wall", "settings"):
-            self.call_after_refresh(self._focus_view)
-        else:
-            self.action_show("wall")
+        await self.action_show(self.view if self.view in ("wall", "settings") else "wall")
 
     def action_leave_field(self) -> None:
         if isinstance(self.focused, (Input, Select)):
@@ -289,9 +311,9 @@ class BracingApp(App[int]):
         self.errors = {}  # a message belongs to the field of the wall it was typed for
 
     @on(WallsView.WallChosen)
-    def _open_wall(self, event: WallsView.WallChosen) -> None:
+    async def _open_wall(self, event: WallsView.WallChosen) -> None:
         self.mark = event.mark
-        self.action_show("wall")
+        await self.action_show("wall")
 
     @on(WallView.WallPicked)
     def _pick_wall(self, event: WallView.WallPicked) -> None:

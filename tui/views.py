@@ -39,6 +39,24 @@ def status_text(status: str) -> Text:
     return Text(f"{symbol} {word}", style=style)
 
 
+def wall_status_text(p) -> Text:
+    """A wall's status; a wall that fails (`PanelResult.fails`: a danger finding too) never
+    shows a pass mark."""
+    if p.fails and p.status in ("braced", "stands"):
+        return Text(f"✗ {p.status}, DANGER", style="bold red")
+    return status_text(p.status)
+
+
+def verdict_of(p) -> Text:
+    """The wall's verdict in a word and a symbol, from `PanelResult.fails` (the one test)."""
+    return Text("✗ FAILS", style="bold red") if p.fails else Text("✓ ok", style="green")
+
+
+def plain(*cells) -> list:
+    """Table cells: text as written, never read as markup (a mark may hold "[/]")."""
+    return [Text(c) if isinstance(c, str) else c for c in cells]
+
+
 def utilization_text(u: float) -> Text:
     shown = "inf" if math.isinf(u) else f"{u:.2f}"
     return Text(f"{shown} ✗", style="bold red") if u > 1.0 else Text(f"{shown} ok")
@@ -83,8 +101,8 @@ class Caution(Static):
 
     result = reactive(None, always_update=True)
 
-    def render(self) -> str:
-        return "⚠ " + (self.result.caution if self.result is not None else CAUTION)
+    def render(self) -> Text:
+        return Text("⚠ " + (self.result.caution if self.result is not None else CAUTION))
 
 
 class StatusLine(Static):
@@ -99,11 +117,10 @@ class StatusLine(Static):
     def render(self) -> Text:
         out = Text()
         if self.result is not None:
-            for status in STATUSES:
-                n = sum(p.status == status for p in self.result.panels)
-                if n:
-                    symbol, word, style = STATUS_LOOK[status]
-                    out.append(f"{n} {symbol} {word.lower()}  ", style=style)
+            failing, total = len(self.result.failing()), len(self.result.panels)
+            out.append(f"✗ {failing} of {total} walls fail  " if failing else
+                       f"✓ none of {total} walls fails  ",
+                       style="bold red" if failing else "green")
         out.append(f"·  {self.file_name}")
         if self.dirty:
             out.append("  ·  unsaved changes", style="bold")
@@ -139,9 +156,9 @@ class FieldRow(Vertical):
         with Horizontal(classes="field-line"):
             yield Label(s.label, classes="field-label")
             if s.kind == "fixed":
-                yield Static(s.value, classes="field-fixed")
+                yield Static(Text(s.value), classes="field-fixed")
             elif s.kind == "choice":
-                yield Choice([(c, c) for c in s.choices], value=s.value or Select.NULL,
+                yield Choice([(Text(c), c) for c in s.choices], value=s.value or Select.NULL,
                              allow_blank=not s.value,
                              prompt=f"not set ({s.hint})" if s.hint else "not set")
             else:
@@ -149,13 +166,20 @@ class FieldRow(Vertical):
                             compact=True, select_on_focus=False)
         yield Static("", classes="field-error")
 
-    def watch_value(self, value: str) -> None:
-        if self.spec.kind == "choice":
-            select = self.query_one(Select)
-            if value in self.spec.choices and select.value != value:
-                select.value = value
-        elif self.spec.kind != "fixed":
-            self.query_one(Input).value = value
+    def show(self, spec: FieldSpec) -> None:
+        """Show `spec`'s value as the file holds it, whatever the field held before (a value
+        typed for another wall and never applied does not linger)."""
+        self.spec = spec
+        self.set_reactive(FieldRow.value, spec.value)
+        if spec.kind == "fixed":
+            for fixed in self.query(".field-fixed").results(Static):
+                fixed.update(Text(spec.value))
+        elif spec.kind == "choice":
+            for choice in self.query(Choice).results(Choice):
+                choice.offer([(Text(c), c) for c in spec.choices], spec.value)
+        else:
+            for box in self.query(Input).results(Input):
+                box.value = spec.value  # (a row not composed yet shows its spec at compose)
 
     def watch_error(self, error: str) -> None:
         self.query_one(".field-error", Static).update(f"✗ {error}" if error else "")
@@ -190,9 +214,9 @@ class Form(Vertical):
 
     errors = reactive(dict, always_update=True, init=False)
 
-    def __init__(self, **kwargs):
+    def __init__(self, specs: list[FieldSpec] = (), **kwargs):
         super().__init__(**kwargs)
-        self.specs: list[FieldSpec] = []
+        self.specs: list[FieldSpec] = list(specs)
 
     def compose(self) -> ComposeResult:
         yield from (FieldRow(s) for s in self.specs)
@@ -205,8 +229,7 @@ class Form(Vertical):
         else:
             self.specs = specs
             for row, spec in zip(self.query(FieldRow), specs):
-                row.spec = spec
-                row.value = spec.value
+                row.show(spec)
         self.watch_errors(self.errors)
 
     def watch_errors(self, errors: dict) -> None:
@@ -226,8 +249,9 @@ class WallsView(Vertical):
     site_file = reactive(None, always_update=True, init=False)
     units = reactive("us", init=False)
 
-    COLUMNS = ("Status", "Wall", "Material", "Utilization", "Governing element",
-               "Stand-down gust", "Working limit", "Braces", "Lift")
+    # the essential columns first (they fit at 80 columns); wider terminals show the rest
+    COLUMNS = ("Wall", "Status", "Stand-down", "Verdict", "Utilization", "Working limit",
+               "Braces", "Lift", "Material", "Governing element")
 
     def compose(self) -> ComposeResult:
         with Horizontal(id="walls-filters"):
@@ -295,11 +319,12 @@ class WallsView(Vertical):
         panels = self.shown()
         lift = self._lift_days()
         for p in panels:
-            table.add_row(
-                status_text(p.status), p.mark, p.material, utilization_text(p.utilization),
-                p.governing_element, speed(p.stand_down_speed_mph, self.units),
+            table.add_row(*plain(
+                p.mark, wall_status_text(p), speed(p.stand_down_speed_mph, self.units),
+                verdict_of(p), utilization_text(p.utilization),
                 speed(p.working_limit_speed_mph, self.units),
-                str(p.braces["count"]) if p.braces else "-", lift.get(p.mark, "-"), key=p.mark)
+                str(p.braces["count"]) if p.braces else "-", lift.get(p.mark, "-"),
+                p.material, p.governing_element), key=p.mark)
         marks = [p.mark for p in panels]
         if current in marks:
             table.move_cursor(row=marks.index(current), animate=False)
@@ -340,7 +365,8 @@ class WallView(Horizontal):
                 yield Label("Wall", classes="field-label")
                 yield Choice([], prompt="choose a wall", id="wall-select")
             yield Static("Enter applies a value; Esc puts it back.", classes="hint")
-            yield Form(id="wall-form").data_bind(WallView.errors)
+            specs = wall_fields(self.site_file, self.mark) if self.site_file else []
+            yield Form(specs, id="wall-form").data_bind(WallView.errors)
         with VerticalScroll(id="wall-results"):
             yield Static("", id="wall-summary")
             yield Static("", id="wall-flags")
@@ -371,7 +397,7 @@ class WallView(Horizontal):
         if self.site_file is None:
             return
         marks = [p.mark for p in self.site_file.site.panels]
-        self.query_one("#wall-select", Choice).offer([(m, m) for m in marks], self.mark)
+        self.query_one("#wall-select", Choice).offer([(Text(m), m) for m in marks], self.mark)
         await self.query_one(Form).show(wall_fields(self.site_file, self.mark))
 
     @on(Select.Changed, "#wall-select")
@@ -395,9 +421,10 @@ class WallView(Horizontal):
         self.query_one("#wall-flags", Static).update(flag_lines(p.flags_worst_first()))
         for c in p.worst_first():
             unit = UNIT_KEY.get(c.unit, c.unit)
-            table.add_row(pass_text(c.passes), c.element, c.region,
-                          fmt(c.demand, unit, self.units), fmt(c.capacity, unit, self.units),
-                          utilization_text(c.utilization), c.combination, c.source)
+            table.add_row(*plain(pass_text(c.passes), c.element, c.region,
+                                 fmt(c.demand, unit, self.units),
+                                 fmt(c.capacity, unit, self.units),
+                                 utilization_text(c.utilization), c.combination, c.source))
         self._drawings(p)
 
     def _summary(self, p) -> Text:
@@ -407,7 +434,7 @@ class WallView(Horizontal):
         out.append(f"{p.material}, {fmt(p.height_ft, 'ft', units, 1)} tall x "
                    f"{fmt(p.width_ft, 'ft', units, 1)} wide x "
                    f"{fmt(p.thickness_in, 'in', units, 2)}: ")
-        out.append_text(status_text(p.status))
+        out.append_text(wall_status_text(p))
         out.append(f" ({STATUSES[p.status]})\n")
         out.append(f"Governing: {p.governing_element}, utilization ")
         out.append_text(utilization_text(p.utilization))
@@ -590,9 +617,9 @@ class DayView(RedrawsForTheDay, Vertical):
             for name, n in used.items():
                 on_hand = stock[name].on_hand if stock and name in stock else None
                 short = shortage(d, kind, name)
-                table.add_row(name, kind, str(n), "-" if on_hand is None else str(on_hand),
-                              Text(f"✗ {short} short", style="bold red") if short
-                              else Text("✓ enough", style="green"))
+                table.add_row(*plain(name, kind, str(n), "-" if on_hand is None else str(on_hand),
+                                     Text(f"✗ {short} short", style="bold red") if short
+                                     else Text("✓ enough", style="green")))
         self.query_one("#day-flags", Static).update(flag_lines(d.flags))
 
 
@@ -650,7 +677,8 @@ class SettingsView(VerticalScroll):
     def compose(self) -> ComposeResult:
         yield Static("Wind basis and the rules the site file sets (Enter applies a value)",
                      classes="section-title")
-        yield Form(id="settings-form").data_bind(SettingsView.errors)
+        specs = site_fields(self.site_file) if self.site_file else []
+        yield Form(specs, id="settings-form").data_bind(SettingsView.errors)
         yield Static("", id="settings-basis")
         yield Static("Site rules: value, source and basis", classes="section-title")
         yield DataTable(id="rules-table", cursor_type="row", zebra_stripes=True)
@@ -668,9 +696,10 @@ class SettingsView(VerticalScroll):
         site = self.site_file.site
         for name in DEFAULT_RULES:
             rule = site.rule(name)
-            table.add_row(name.replace("_", " "), "-" if rule.value is None else f"{rule.value:g}",
-                          "✓ yes" if rule.enabled else "✗ no (off)", rule.source, rule.basis,
-                          key=name)
+            table.add_row(*plain(name.replace("_", " "),
+                                 "-" if rule.value is None else f"{rule.value:g}",
+                                 "✓ yes" if rule.enabled else "✗ no (off)", rule.source,
+                                 rule.basis), key=name)
 
     def watch_result(self) -> None:
         if self.result is None:
@@ -701,4 +730,4 @@ class KeysView(VerticalScroll):
         table = self.query_one(DataTable)
         table.clear()
         for key, what, where in keys:
-            table.add_row(key, what, where)
+            table.add_row(*plain(key, what, where))
