@@ -26,8 +26,9 @@ from bracing import scenario
 from bracing.evaluate import evaluate, evaluate_walls
 from bracing.results import SiteResult
 from bracing.scenario import REMOVE, SiteFile, SiteFileError
-from tui.dialogs import Export, ExportRequest, SaveAs, UnsavedChanges
-from tui.fields import typed
+from tui import design
+from tui.dialogs import DesignProposal, Export, ExportRequest, SaveAs, UnsavedChanges
+from tui.fields import panel_index, typed, with_values
 from tui.views import (
     Caution,
     DayPicker,
@@ -118,6 +119,11 @@ class BracingApp(App[int]):
         Binding("minus", "zoom(0.5)", "Zoom out", key_display="-", show=False,
                 tooltip="zoom the plan out"),
         Binding("i", "edit", "Edit inputs", show=False, tooltip="go to the first input"),
+        Binding("d", "design", "Design", show=False,
+                tooltip="the layout designer's braces for the wall, beside its own; accept or "
+                        "refuse"),
+        Binding("a", "toggle_foot", "Angle/foot", show=False,
+                tooltip="give the wall's braces by their foot distance, or by their angle"),
         Binding("ctrl+z", "undo", "Undo", tooltip="undo the last change of a value"),
         Binding("ctrl+y", "redo", "Redo", show=False, tooltip="redo the change undone"),
         Binding("ctrl+s", "save", "Save",
@@ -211,7 +217,8 @@ class BracingApp(App[int]):
     @classmethod
     def key_list(cls) -> list[tuple[str, str, str]]:
         """Every key: the app's bindings, then the keys the widgets handle."""
-        where = {"step": "Wall, Day and Plan", "edit": "Wall and Settings", "zoom": "Plan"}
+        where = {"step": "Wall, Day and Plan", "edit": "Wall and Settings", "zoom": "Plan",
+                 "design": "Wall", "toggle_foot": "Wall"}
         rows = []
         for b in cls.BINDINGS:
             keys = " / ".join(KEY_NAMES.get(k.strip(), k.strip()) for k in b.key.split(","))
@@ -333,11 +340,15 @@ class BracingApp(App[int]):
         except SiteFileError as exc:  # shown as plain text: typed "[/]" is not markup
             self.errors = {spec.field_id: escape(problems_text(exc))}
             return
+        self.apply(changed, spec.keys)
+
+    def apply(self, changed: SiteFile, keys: tuple = ()) -> None:
+        """Make a valid edit the current state, as one undoable step; the engine recomputes."""
         self.undo_stack.append(self.site_file)
         self.redo_stack.clear()
         self._install(changed)
         try:
-            sooner = quick(self.result, changed, spec.keys)
+            sooner = quick(self.result, changed, keys)
         except Exception:  # noqa: BLE001 - the whole site's evaluation reports the failure
             sooner = None
         if sooner is not None:
@@ -385,6 +396,52 @@ class BracingApp(App[int]):
             self.site_file = self.undo_stack.pop()
             self.dirty = bool(self.site_file.edits) or self.site_file.text is not self.saved_text
             self.refresh_bindings()
+
+    def _wall_index(self) -> int | None:
+        return panel_index(self.site_file, self.mark) if self.view == "wall" else None
+
+    def action_toggle_foot(self) -> None:
+        """The wall's braces given by their foot distance instead of their angle, or back; the
+        value carried over is the engine's for the present layout."""
+        i = self._wall_index()
+        table = self.site_file.data["panels"][i].get("bracing") if i is not None else None
+        braces = self.result.panel(self.mark).braces if table else None
+        if not braces:
+            self.notify("Open a wall with braces (the Wall view) to switch angle and foot "
+                        "distance.", severity="warning")
+            return
+        base = ("panels", i, "bracing")
+        if "angle" in table:
+            changes = [(base + ("angle",), REMOVE),
+                       (base + ("anchor_distance",), f"{braces['anchor_distance_ft']:.2f} ft")]
+        else:
+            changes = [(base + ("anchor_distance",), REMOVE),
+                       (base + ("angle",), f"{braces['angle_deg']:.1f} deg")]
+        try:
+            self.apply(with_values(self.site_file, changes), base)
+        except SiteFileError as exc:
+            self.notify(f"Not switched: {problems_text(exc)}", severity="error", markup=False)
+
+    def action_design(self) -> None:
+        """The layout designer's proposal for the wall on view, beside its present layout."""
+        i = self._wall_index()
+        if i is None:
+            self.notify("Open a wall (the Wall view) to design its braces.", severity="warning")
+            return
+        proposal = design.propose(self.site_file, i)
+        current = self.result.panel(self.mark)
+        self.push_screen(DesignProposal(self.mark, current, proposal, self.units),
+                         lambda accept: self._design_answer(i, proposal, accept))
+
+    def _design_answer(self, i: int, proposal, accept: bool | None) -> None:
+        if not accept or proposal.table is None:
+            return
+        try:
+            changed = self.site_file.with_value(("panels", i, "bracing"), proposal.table)
+        except SiteFileError as exc:
+            self.notify(f"Not accepted: {problems_text(exc)}", severity="error", markup=False)
+            return
+        self.apply(changed, ("panels", i, "bracing"))
 
     def action_undo(self) -> None:
         if not self.undo_stack:

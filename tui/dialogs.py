@@ -146,3 +146,58 @@ class Export(ModalScreen[ExportRequest | None]):
     @on(Button.Pressed, "#cancel")
     def _cancel(self) -> None:
         self.dismiss(None)
+
+
+def layout_lines(title: str, p, units: str) -> Text:
+    """A wall's braces as the engine gives them: count, positions, insert height, angle and
+    foot distance, brace type, utilization."""
+    from bracing.report.text import fmt
+
+    out = Text(f"{title}\n", style="bold")
+    b = p.braces if p is not None else None
+    if not b:
+        out.append("no braces")
+        return out
+    places = ", ".join(fmt(x, "ft", units, 1) for x in b["positions_ft"])
+    out.append(f"{b['count']} x {b['brace_type']}\nat {places}\n"
+               f"insert {fmt(b['insert_height_ft'], 'ft', units, 1)}, angle "
+               f"{b['angle_deg']:.1f}°\nfoot {fmt(b['anchor_distance_ft'], 'ft', units, 1)} "
+               f"from the face\nanchors {b.get('wall_anchor') or '-'} / "
+               f"{b.get('foot_anchor') or '-'}\nutilization {b['utilization']:.2f}")
+    return out
+
+
+class DesignProposal(ModalScreen[bool]):
+    """The layout designer's braces beside the wall's own: accept (one undoable edit) or
+    refuse."""
+
+    BINDINGS: ClassVar[list[Binding]] = [Binding("escape", "dismiss(False)", "Refuse")]
+
+    def __init__(self, mark: str, current, proposal, units: str = "us"):
+        super().__init__()
+        self.mark = mark
+        self.current = current
+        self.proposal = proposal
+        self.units = units
+
+    def compose(self) -> ComposeResult:
+        with Vertical(classes="dialog"):
+            yield Static(Text(f"The layout designer's braces for {self.mark}"),
+                         classes="dialog-title")
+            with Horizontal(classes="proposal"):
+                yield Static(layout_lines("Now", self.current, self.units), classes="layout")
+                yield Static(layout_lines("Proposed", self.proposal.result, self.units)
+                             if self.proposal.table else Text(f"No proposal: "
+                                                              f"{self.proposal.message}"),
+                             classes="layout")
+            with Horizontal(classes="dialog-buttons"):
+                if self.proposal.table:
+                    yield Button("Accept (Enter)", id="accept", variant="primary")
+                yield Button("Refuse (Esc)", id="refuse")
+
+    def on_mount(self) -> None:
+        self.query_one(Button).focus()
+
+    @on(Button.Pressed)
+    def _answer(self, event: Button.Pressed) -> None:
+        self.dismiss(event.button.id == "accept")

@@ -1,0 +1,100 @@
+"""Every fix the interface shows can be made in it, on a copy of the demo site: the layout
+designer's braces for D-2 accepted, a wall's angle turned into a foot distance of 6 ft (the
+review exercise's fix), one brace moved; each undone, then redone; saved, the file validates,
+keeps its comments, and `bracing check` shows the changes.
+
+The interface computes nothing: the expected values are the ones typed, read back from the
+engine's result and from `bracing check --json`.
+"""
+
+from __future__ import annotations
+
+import asyncio
+import json
+import subprocess
+import sys
+
+from test_tui_screen import copy_site
+from textual.widgets import Input
+
+from bracing import scenario
+from tui.app import BracingApp
+from tui.dialogs import DesignProposal
+from tui.views import FieldRow
+
+
+async def settle(pilot) -> None:
+    await pilot.app.workers.wait_for_complete()
+    await pilot.pause()
+
+
+async def enter(pilot, field_id: str, text: str) -> None:
+    box = pilot.app.query_one(f"#field-{field_id}", FieldRow).query_one(Input)
+    box.focus()
+    await pilot.pause()
+    box.value = text
+    await pilot.press("enter")
+    await settle(pilot)
+
+
+def test_design_switch_to_a_foot_distance_move_a_brace_undo_redo_and_save(tmp_path):
+    path = copy_site("demo-mixed", tmp_path)
+    app = BracingApp(path)
+    original = app.site_file.data
+    panels = original["panels"]
+    d2 = next(i for i, p in enumerate(panels) if p["mark"] == "D-2")
+    assert "bracing" not in panels[d2]
+    assert "angle" in panels[0]["bracing"] and panels[0]["mark"] == "D-1"
+
+    async def steps(pilot):
+        app.mark = "D-2"
+        await pilot.press("2")
+        await pilot.press("d")  # the designer's proposal beside the wall's own (none)
+        await pilot.pause()
+        assert isinstance(app.screen, DesignProposal)
+        proposal = app.screen.proposal
+        assert proposal.table is not None
+        await pilot.press("enter")  # accept
+        await settle(pilot)
+        assert app.site_file.data["panels"][d2]["bracing"] == proposal.table
+        assert app.result.panel("D-2").braces["count"] == proposal.table["count"]
+
+        app.mark = "D-1"
+        await pilot.pause()
+        await pilot.press("a")  # angle -> foot distance
+        await settle(pilot)
+        assert "angle" not in app.site_file.data["panels"][0]["bracing"]
+        await enter(pilot, "bracing-anchor-distance", "6 ft")
+        assert app.result.panel("D-1").braces["anchor_distance_ft"] == 6.0
+        await enter(pilot, "bracing-positions", "5 ft, 19 ft")  # D-1: two braces, 24 ft wide
+        assert app.result.panel("D-1").braces["positions_ft"] == [5.0, 19.0]
+        final = app.site_file.data
+
+        app.screen.set_focus(None)
+        for _ in range(4):
+            await pilot.press("ctrl+z")
+        await settle(pilot)
+        assert app.site_file.data == original
+        for _ in range(4):
+            await pilot.press("ctrl+y")
+        await settle(pilot)
+        assert app.site_file.data == final
+        await pilot.press("ctrl+s")
+        await pilot.pause()
+
+    async def main():
+        async with app.run_test(size=(120, 40)) as pilot:
+            await pilot.pause()
+            await steps(pilot)
+    asyncio.run(main())
+
+    saved = scenario.load(path)  # validates
+    assert saved.text.startswith("# Demo site: a small mixed job")
+    assert "# A dock door at the base" in saved.text
+    run = subprocess.run([sys.executable, "-c", "from bracing.cli import main; main()", "check",
+                          str(path), "--json"],
+                         capture_output=True, text=True, cwd=tmp_path)
+    record = {p["mark"]: p for p in json.loads(run.stdout)["panels"]}
+    assert record["D-1"]["braces"]["anchor_distance_ft"] == 6.0
+    assert record["D-1"]["braces"]["positions_ft"] == [5.0, 19.0]
+    assert record["D-2"]["braces"]["count"] == app.site_file.data["panels"][d2]["bracing"]["count"]
