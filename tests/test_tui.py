@@ -429,7 +429,8 @@ def test_export_writes_the_days_schedule_in_each_format(site_path, tmp_path):
             dialog.query_one("#export-day", Select).value = 2
             await pilot.pause()
             path = dialog.query_one("#export-path", Input)
-            assert path.value == f"site-schedule-day2.{dialogs.EXTENSIONS[fmt]}"
+            assert path.value == str(site_path.parent /
+                                     f"site-schedule-day2.{dialogs.EXTENSIONS[fmt]}")
             path.value = str(tmp_path / f"out.{fmt}")
             path.focus()
             await pilot.press("enter")

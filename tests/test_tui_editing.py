@@ -98,3 +98,32 @@ def test_design_switch_to_a_foot_distance_move_a_brace_undo_redo_and_save(tmp_pa
     assert record["D-1"]["braces"]["anchor_distance_ft"] == 6.0
     assert record["D-1"]["braces"]["positions_ft"] == [5.0, 19.0]
     assert record["D-2"]["braces"]["count"] == app.site_file.data["panels"][d2]["bracing"]["count"]
+
+
+def test_e_then_enter_exports_beside_the_site_file_and_the_extension_chooses_the_format(tmp_path):
+    path = copy_site("demo-mixed", tmp_path)
+    app = BracingApp(path)
+
+    async def steps(pilot):
+        await pilot.press("e")
+        await pilot.pause()
+        await pilot.press("enter")  # the initial focus: Export
+        await pilot.pause()
+        await pilot.press("e")
+        await pilot.pause()
+        box = app.screen.query_one("#export-path", Input)
+        box.value = str(tmp_path / "crew.txt")  # a .txt name: plain text
+        await pilot.pause()
+        assert "plain text" in str(app.screen.query_one("#export-chosen").render())
+        await pilot.press("enter")
+        await pilot.pause()
+
+    async def main():
+        async with app.run_test(size=(120, 40)) as pilot:
+            await pilot.pause()
+            await steps(pilot)
+    asyncio.run(main())
+    written = sorted(p.name for p in tmp_path.glob("demo-mixed-schedule*"))
+    assert written and written[0].endswith(".html")
+    text = (tmp_path / "crew.txt").read_text(encoding="utf-8")
+    assert "<html" not in text.lower() and "CAUTION" in text

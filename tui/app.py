@@ -497,7 +497,8 @@ class BracingApp(App[int]):
         days = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day)
                 for d in self.result.days]
         stem = Path(self.site_file.path).stem
-        self.push_screen(Export(stem, days, self.day), self.export)
+        self.push_screen(Export(stem, days, self.day, Path(self.site_file.path).parent),
+                         self.export)
 
     def export(self, request: ExportRequest | None) -> None:
         """Write the schedule the engine's report renders, atomically."""

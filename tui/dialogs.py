@@ -19,6 +19,7 @@ from tui.views import Choice
 
 FORMATS = (("html", "HTML (print it)"), ("csv", "CSV (a spreadsheet)"), ("text", "plain text"))
 EXTENSIONS = {"html": "html", "csv": "csv", "text": "txt"}
+BY_EXTENSION = {".html": "html", ".htm": "html", ".csv": "csv", ".txt": "text", ".text": "text"}
 EVERY_DAY = -1
 
 
@@ -95,9 +96,13 @@ class Export(ModalScreen[ExportRequest | None]):
 
     BINDINGS: ClassVar[list[Binding]] = [Binding("escape", "dismiss(None)", "Cancel")]
 
-    def __init__(self, stem: str, days: list[tuple[str, int]], day: int | None):
+    def __init__(self, stem: str, days: list[tuple[str, int]], day: int | None,
+                 folder: str | Path = ""):
+        """`stem` names the file, written in `folder` (the site file's) by default."""
         super().__init__()
         self.stem = stem
+        self.folder = Path(folder)
+        self.suggested = {self._path("html")}  # names the dialog wrote (not the user)
         self.days = days
         self.day = day
 
@@ -115,9 +120,18 @@ class Export(ModalScreen[ExportRequest | None]):
             with Horizontal(classes="dialog-line"):
                 yield Label("File", classes="field-label")
                 yield Input(self._path("html"), id="export-path", compact=True)
+            yield Static(self._format_words("html"), id="export-chosen")
             with Horizontal(classes="dialog-buttons"):
                 yield Button("Export (Enter)", id="export", variant="primary")
                 yield Button("Cancel (Esc)", id="cancel")
+
+    def on_mount(self) -> None:
+        self.query_one("#export", Button).focus()  # Enter exports at once
+
+    @staticmethod
+    def _format_words(fmt: str) -> Text:
+        """The format chosen, in words (the radio buttons look alike in plain text)."""
+        return Text(f"Format: {dict(FORMATS)[fmt]}, .{EXTENSIONS[fmt]}")
 
     def _fmt(self) -> str:
         pressed = self.query_one(RadioSet).pressed_button
@@ -129,12 +143,29 @@ class Export(ModalScreen[ExportRequest | None]):
 
     def _path(self, fmt: str, day: int | None = None) -> str:
         when = f"-day{day}" if day is not None else ""
-        return f"{self.stem}-schedule{when}.{EXTENSIONS[fmt]}"
+        return str(self.folder / f"{self.stem}-schedule{when}.{EXTENSIONS[fmt]}")
 
     @on(RadioSet.Changed)
     @on(Select.Changed)
     def _suggest(self) -> None:
-        self.query_one("#export-path", Input).value = self._path(self._fmt(), self._day())
+        """A suggested name follows the day and the format; a name typed keeps its stem and
+        takes the extension of the format chosen."""
+        box, fmt = self.query_one("#export-path", Input), self._fmt()
+        typed = Path(box.value.strip())
+        if box.value in self.suggested or not box.value.strip():
+            box.value = self._path(fmt, self._day())
+            self.suggested.add(box.value)
+        elif BY_EXTENSION.get(typed.suffix.lower()) != fmt:
+            box.value = str(typed.with_suffix(f".{EXTENSIONS[fmt]}"))
+        self.query_one("#export-chosen", Static).update(self._format_words(fmt))
+
+    @on(Input.Changed, "#export-path")
+    def _follow_extension(self, event: Input.Changed) -> None:
+        """A file name typed with a known extension chooses its format."""
+        fmt = BY_EXTENSION.get(Path(event.value.strip()).suffix.lower())
+        if fmt is not None and fmt != self._fmt():
+            self.query_one(f"#format-{fmt}", RadioButton).value = True
+            self.query_one("#export-chosen", Static).update(self._format_words(fmt))
 
     @on(Input.Submitted)
     @on(Button.Pressed, "#export")
