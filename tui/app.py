@@ -154,6 +154,7 @@ class BracingApp(App[int]):
         Raises SiteFileError when the file cannot be read or is not valid.
         """
         super().__init__()
+        self.animation_level = "none"  # no sliding tab underline: a view is shown at once
         self.demo = path is None
         site_file = scenario.load(DEMO if path is None else path)
         first = result if result is not None else compute(site_file)
