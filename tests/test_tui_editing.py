@@ -127,3 +127,45 @@ def test_e_then_enter_exports_beside_the_site_file_and_the_extension_chooses_the
     assert written and written[0].endswith(".html")
     text = (tmp_path / "crew.txt").read_text(encoding="utf-8")
     assert "<html" not in text.lower() and "CAUTION" in text
+
+
+def test_a_sign_off_before_its_event_is_refused_with_the_reason_a_later_one_is_recorded(
+        tmp_path):
+    """townhouse-framing: the roof over units 11-12 is sheathed on day 16 (its [[events]]); a
+    sign-off of a wall whose release waits for it, on day 10, comes before it."""
+    path = copy_site("townhouse-framing", tmp_path)
+    app = BracingApp(path)
+    data = app.site_file.data
+    mark = next(p["mark"] for p in data["panels"]
+                if "Roof sheathed, units 11-12" in p.get("release_after", []))
+    before = list(data["signoffs"])
+
+    async def steps(pilot):
+        await pilot.press("s")
+        await pilot.pause()
+        dialog = app.screen
+        dialog.query_one("#signoff-wall").value = mark
+        dialog.query_one("#signoff-day", Input).value = "10"
+        dialog.query_one("#signoff-by", Input).value = "A. Engineer, PE"
+        await pilot.press("enter")
+        await pilot.pause()
+        assert app.screen is dialog  # refused, with the reason
+        why = str(dialog.query_one("#signoff-error").render())
+        assert "Refused" in why and "Roof sheathed, units 11-12 (day 16)" in why
+        assert app.site_file.data["signoffs"] == before
+        dialog.query_one("#signoff-day", Input).value = "17"
+        dialog.query_one("#signoff-by", Input).focus()
+        await pilot.press("enter")
+        await settle(pilot)
+        assert app.screen is not dialog
+        assert app.site_file.data["signoffs"][-1] == {"panel": mark, "day": 17,
+                                                      "by": "A. Engineer, PE"}
+        await pilot.press("ctrl+z")
+        await settle(pilot)
+        assert app.site_file.data["signoffs"] == before
+
+    async def main():
+        async with app.run_test(size=(120, 40)) as pilot:
+            await pilot.pause()
+            await steps(pilot)
+    asyncio.run(main())

@@ -27,7 +27,15 @@ from bracing.evaluate import evaluate, evaluate_walls
 from bracing.results import SiteResult
 from bracing.scenario import REMOVE, SiteFile, SiteFileError
 from tui import design
-from tui.dialogs import DesignProposal, Export, ExportRequest, SaveAs, UnsavedChanges
+from tui.dialogs import (
+    DesignProposal,
+    Export,
+    ExportRequest,
+    SaveAs,
+    SignOffDialog,
+    SignOffEntry,
+    UnsavedChanges,
+)
 from tui.fields import panel_index, typed, with_values
 from tui.views import (
     Caution,
@@ -122,6 +130,9 @@ class BracingApp(App[int]):
         Binding("d", "design", "Design", show=False,
                 tooltip="the layout designer's braces for the wall, beside its own; accept or "
                         "refuse"),
+        Binding("s", "signoff", "Sign-off", show=False,
+                tooltip="record a sign-off (a wall's release); refused with the reason when it "
+                        "comes before the wall's lift or its events"),
         Binding("a", "toggle_foot", "Angle/foot", show=False,
                 tooltip="give the wall's braces by their foot distance, or by their angle"),
         Binding("ctrl+z", "undo", "Undo", tooltip="undo the last change of a value"),
@@ -219,7 +230,7 @@ class BracingApp(App[int]):
     def key_list(cls) -> list[tuple[str, str, str]]:
         """Every key: the app's bindings, then the keys the widgets handle."""
         where = {"step": "Wall, Day and Plan", "edit": "Wall and Settings", "zoom": "Plan",
-                 "design": "Wall", "toggle_foot": "Wall"}
+                 "design": "Wall", "toggle_foot": "Wall", "signoff": "everywhere"}
         rows = []
         for b in cls.BINDINGS:
             keys = " / ".join(KEY_NAMES.get(k.strip(), k.strip()) for k in b.key.split(","))
@@ -443,6 +454,35 @@ class BracingApp(App[int]):
             self.notify(f"Not accepted: {problems_text(exc)}", severity="error", markup=False)
             return
         self.apply(changed, ("panels", i, "bracing"))
+
+    def action_signoff(self) -> None:
+        marks = [p.mark for p in self.site_file.site.panels]
+        self.push_screen(SignOffDialog(marks, self.day, self._signoff_refused), self._signed)
+
+    def _with_signoff(self, entry: SignOffEntry) -> SiteFile:
+        listed = list(self.site_file.data.get("signoffs", []))
+        return self.site_file.with_value(
+            ("signoffs",), [*listed, {"panel": entry.panel, "day": entry.day, "by": entry.by}])
+
+    def _signoff_refused(self, entry: SignOffEntry) -> str | None:
+        """Why a sign-off cannot be recorded: the file's validation, or the engine's finding
+        that it comes before the wall's lift or an event its release waits for."""
+        try:
+            changed = self._with_signoff(entry)
+        except SiteFileError as exc:
+            return problems_text(exc)
+        result = compute(changed)
+        early = ("signoff-before-event", "signoff-before-lift")
+        found = [f for p in result.panels if p.mark == entry.panel for f in p.flags
+                 if f.code in early and f"day {entry.day} " in f.message] + \
+            [f for d in result.days for f in d.flags
+             if f.code in early and f.message.startswith(f"{entry.panel}:")
+             and f"day {entry.day} " in f.message]
+        return found[0].message if found else None
+
+    def _signed(self, entry: SignOffEntry | None) -> None:
+        if entry is not None:
+            self.apply(self._with_signoff(entry), ("signoffs",))
 
     def action_undo(self) -> None:
         if not self.undo_stack:

@@ -232,3 +232,63 @@ class DesignProposal(ModalScreen[bool]):
     @on(Button.Pressed)
     def _answer(self, event: Button.Pressed) -> None:
         self.dismiss(event.button.id == "accept")
+
+
+@dataclass(frozen=True)
+class SignOffEntry:
+    panel: str
+    day: int
+    by: str
+
+
+class SignOffDialog(ModalScreen[SignOffEntry | None]):
+    """Record a sign-off (the release of one wall's braces): the wall, the day and who;
+    `check` returns why the engine refuses it (a sign-off before its lift or its events), or
+    None, and a refused one is not recorded."""
+
+    BINDINGS: ClassVar[list[Binding]] = [Binding("escape", "dismiss(None)", "Cancel")]
+
+    def __init__(self, marks: list[str], day: int | None, check):
+        super().__init__()
+        self.marks = marks
+        self.day = day
+        self.check = check
+
+    def compose(self) -> ComposeResult:
+        with Vertical(classes="dialog"):
+            yield Static("Record a sign-off (release of a wall's braces)", classes="dialog-title")
+            with Horizontal(classes="dialog-line"):
+                yield Label("Wall", classes="field-label")
+                yield Choice([(Text(m), m) for m in self.marks], allow_blank=False,
+                             id="signoff-wall")
+            with Horizontal(classes="dialog-line"):
+                yield Label("Day", classes="field-label")
+                yield Input("" if self.day is None else str(self.day), id="signoff-day",
+                            compact=True)
+            with Horizontal(classes="dialog-line"):
+                yield Label("By (name)", classes="field-label")
+                yield Input("", id="signoff-by", compact=True)
+            yield Static("", id="signoff-error", classes="field-error")
+            with Horizontal(classes="dialog-buttons"):
+                yield Button("Record (Enter)", id="record", variant="primary")
+                yield Button("Cancel (Esc)", id="cancel")
+
+    def on_mount(self) -> None:
+        self.query_one("#signoff-by", Input).focus()
+
+    @on(Input.Submitted)
+    @on(Button.Pressed, "#record")
+    def _record(self) -> None:
+        day = self.query_one("#signoff-day", Input).value.strip()
+        entry = SignOffEntry(str(self.query_one("#signoff-wall", Select).value),
+                             int(day) if day.isdigit() else -1,
+                             self.query_one("#signoff-by", Input).value.strip())
+        why = self.check(entry)
+        if why:
+            self.query_one("#signoff-error", Static).update(Text(f"✗ Refused: {why}"))
+            return
+        self.dismiss(entry)
+
+    @on(Button.Pressed, "#cancel")
+    def _cancel(self) -> None:
+        self.dismiss(None)
