@@ -312,7 +312,7 @@ class BracingApp(App[int]):
 
     def action_zoom(self, factor: float) -> None:
         view = self.query_one(PlanView)
-        view.zoom = int(min(8, max(1, view.zoom * factor)))
+        view.zoom = view.zoom * factor  # PlanView.validate_zoom keeps it in range
 
     async def action_edit(self) -> None:
         """Go to the first input of the Wall view (or of Settings when it is on view)."""

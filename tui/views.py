@@ -7,6 +7,7 @@ value) by posting a message up. Pass and fail are shown by a symbol and a word a
 from __future__ import annotations
 
 import math
+from dataclasses import dataclass
 
 from rich.text import Text
 from textual import on
@@ -135,13 +136,17 @@ class StatusLine(Static):
 class FieldRow(Vertical):
     """One input of a form: its label, the value as the file holds it, and any message."""
 
+    @dataclass
     class Edited(Message):
         """The user asks for a new value in the file."""
 
-        def __init__(self, spec: FieldSpec, text: str):
-            super().__init__()
-            self.spec = spec
-            self.text = text
+        row: FieldRow
+        spec: FieldSpec
+        text: str
+
+        @property
+        def control(self) -> FieldRow:
+            return self.row
 
     value = reactive("", init=False)
     error = reactive("", init=False)
@@ -188,18 +193,18 @@ class FieldRow(Vertical):
     @on(Input.Submitted)
     def _submitted(self, event: Input.Submitted) -> None:
         event.stop()
-        self.post_message(self.Edited(self.spec, event.value))
+        self.post_message(self.Edited(self, self.spec, event.value))
 
     @on(Input.Blurred)
     def _left(self, event: Input.Blurred) -> None:
         if event.value != self.value and not self.error:
-            self.post_message(self.Edited(self.spec, event.value))
+            self.post_message(self.Edited(self, self.spec, event.value))
 
     @on(Select.Changed)
     def _chosen(self, event: Select.Changed) -> None:
         event.stop()
         if event.value != Select.NULL and event.value != self.value:
-            self.post_message(self.Edited(self.spec, str(event.value)))
+            self.post_message(self.Edited(self, self.spec, str(event.value)))
 
     def key_escape(self) -> None:
         """Escape puts back the file's value and leaves the field."""
@@ -240,10 +245,16 @@ class Form(Vertical):
 class WallsView(Vertical):
     """Every wall, worst first: status, governing utilization, stand-down gust; with filters."""
 
+    @dataclass
     class WallChosen(Message):
-        def __init__(self, mark: str):
-            super().__init__()
-            self.mark = mark
+        """A wall to open."""
+
+        view: WallsView
+        mark: str
+
+        @property
+        def control(self) -> WallsView:
+            return self.view
 
     result = reactive(None, always_update=True, init=False)
     site_file = reactive(None, always_update=True, init=False)
@@ -339,16 +350,22 @@ class WallsView(Vertical):
     @on(DataTable.RowSelected)
     def _open(self, event: DataTable.RowSelected) -> None:
         event.stop()
-        self.post_message(self.WallChosen(event.row_key.value))
+        self.post_message(self.WallChosen(self, event.row_key.value))
 
 
 class WallView(Horizontal):
     """One wall: its inputs as a form; every check; a section and an elevation."""
 
+    @dataclass
     class WallPicked(Message):
-        def __init__(self, mark: str):
-            super().__init__()
-            self.mark = mark
+        """A wall chosen in the Wall view's own list."""
+
+        view: WallView
+        mark: str
+
+        @property
+        def control(self) -> WallView:
+            return self.view
 
     result = reactive(None, always_update=True, init=False)
     site_file = reactive(None, always_update=True, init=False)
@@ -379,6 +396,10 @@ class WallView(Horizontal):
         self.query_one("#checks-table", DataTable).add_columns(*self.CHECK_COLUMNS)
         self.query_one("#wall-section").border_title = "Section"
         self.query_one("#wall-elevation").border_title = "Elevation"
+        self.query_one("#wall-select", Choice).offer(
+            [(Text(p.mark), p.mark) for p in self.site_file.site.panels]
+            if self.site_file else [], self.mark)
+        self._results()  # whole when mounted: the app gives the attributes first
 
     async def watch_site_file(self) -> None:
         await self._inputs()
@@ -404,7 +425,7 @@ class WallView(Horizontal):
     def _pick(self, event: Select.Changed) -> None:
         event.stop()
         if event.value != Select.NULL and event.value != self.mark:
-            self.post_message(self.WallPicked(str(event.value)))
+            self.post_message(self.WallPicked(self, str(event.value)))
 
     def _results(self) -> None:
         summary = self.query_one("#wall-summary", Static)
@@ -492,10 +513,16 @@ class WallView(Horizontal):
 class DayPicker(Horizontal):
     """A day chooser shared by the Day and Plan views."""
 
+    @dataclass
     class DayPicked(Message):
-        def __init__(self, day: int):
-            super().__init__()
-            self.day = day
+        """A day chosen."""
+
+        picker: DayPicker
+        day: int
+
+        @property
+        def control(self) -> DayPicker:
+            return self.picker
 
     result = reactive(None, always_update=True, init=False)
     day = reactive(None, init=False)
@@ -522,7 +549,7 @@ class DayPicker(Horizontal):
     def _picked(self, event: Select.Changed) -> None:
         event.stop()
         if event.value != Select.NULL and event.value != self.day:
-            self.post_message(self.DayPicked(int(event.value)))
+            self.post_message(self.DayPicked(self, int(event.value)))
 
 
 def verdict_text(d) -> Text:
@@ -631,6 +658,13 @@ class PlanView(RedrawsForTheDay, Vertical):
     units = reactive("us", init=False)
     zoom = reactive(1, init=False)
 
+    ZOOM_LIMITS = (1, 8)
+
+    def validate_zoom(self, zoom: float) -> int:
+        """x1 to x8."""
+        low, high = self.ZOOM_LIMITS
+        return int(min(high, max(low, zoom)))
+
     def compose(self) -> ComposeResult:
         yield DayPicker(id="plan-picker").data_bind(PlanView.result, PlanView.day)
         with ScrollableContainer(id="plan-body"):
@@ -685,12 +719,20 @@ class SettingsView(VerticalScroll):
         yield Static("", id="settings-flags")
 
     def on_mount(self) -> None:
+        """Whole when mounted: the app gives the attributes before it mounts the view."""
         self.query_one(DataTable).add_columns("Rule", "Value", "In force", "Source", "Basis")
+        self._rules()
+        self.watch_result()
 
     async def watch_site_file(self) -> None:
         if self.site_file is None:
             return
         await self.query_one(Form).show(site_fields(self.site_file))
+        self._rules()
+
+    def _rules(self) -> None:
+        if self.site_file is None or not self.is_mounted:
+            return
         table = self.query_one(DataTable)
         table.clear()
         site = self.site_file.site
