@@ -282,8 +282,8 @@ class BracingApp(App[int]):
                 fields.first().focus()
                 return
         target = self.query(FOCUS[self.view])
-        if target:
-            target.first().focus()
+        if target:  # the view stays at its top (Settings' table is below its form)
+            target.first().focus(scroll_visible=False)
 
     async def action_show(self, view: str) -> None:
         """Show a view and focus it before the next key is read (keys typed meanwhile reach
