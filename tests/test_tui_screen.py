@@ -18,6 +18,7 @@ from textual.widgets import Footer, Input, Static
 from bracing import scenario
 from tui import app as tui_app
 from tui.app import BracingApp
+from tui.fields import wall_fields
 
 SCENARIOS = Path(__file__).resolve().parents[1] / "scenarios"
 
@@ -44,14 +45,20 @@ def copy_site(name: str, folder: Path) -> Path:
 
 
 def test_the_mark_field_follows_three_walls_in_turn(tmp_path):
-    path = tmp_path / "site.toml"
-    path.write_text(SITE, encoding="utf-8")
+    """Three walls with the same fields (the form is refilled, not rebuilt)."""
+    path = copy_site("townhouse-framing", tmp_path)
     app = BracingApp(path)
+
+    def ids(mark):
+        return [s.field_id for s in wall_fields(app.site_file, mark)]
 
     async def steps(pilot):
         await pilot.press("2")
         await pilot.pause()
-        marks = [p.mark for p in app.site_file.site.panels][:3]
+        first = app.mark
+        marks = [p.mark for p in app.site_file.site.panels
+                 if p.mark != first and ids(p.mark) == ids(first)][:3]
+        assert len(marks) == 3
         for mark in marks:
             app.mark = mark
             await pilot.pause()
