@@ -227,8 +227,8 @@ def _walls(site: Site, releases: lines.Releases) -> _Walls:
     early = [_early_flag(site.signoffs[j], site.panels[i], events)
              for j, i in zip(r.early.tolist(), r.early_wall.tolist())]
     stays = np.flatnonzero(release == 0)
-    flags = early + [Flag("no-signoff", "notice", f"{m}: no valid sign-off recorded: its braces "
-                          "stay to the end of the schedule", RELEASE_SOURCE)
+    flags = early + [Flag("no-signoff", "notice", f"{m}: no valid sign-off recorded: it counts "
+                          "as standing to the end of the schedule", RELEASE_SOURCE)
                      for m in marks[stays].tolist()]
     flag_wall = np.concatenate([np.searchsorted(index, r.early_wall), stays])
     flag_day = np.concatenate([r.early_day, lift[stays]])

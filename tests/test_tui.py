@@ -203,13 +203,13 @@ def test_demo_site_opens_and_every_view_shows_the_caution(demo_result):
             assert tabs.active == view
             assert caution_on_top(app), view
         rows = cells(app, "#walls-table")
-        assert [r[1] for r in rows] == [p.mark for p in demo_result.worst_first()]
+        assert [r[0] for r in rows] == [p.mark for p in demo_result.worst_first()]
         keys = {r[0] for r in cells(app, "#keys-table")}
         assert {"1", "2", "3", "4", "5", "? / f1", "[", "]", "ctrl+z", "ctrl+s", "e", "q"} <= keys
         app.query_one("#walls-table", DataTable).move_cursor(row=1)
         await pilot.press("enter")  # the keyboard opens the wall under the cursor
         await pilot.pause()
-        assert tabs.active == "wall" and app.mark == rows[1][1]
+        assert tabs.active == "wall" and app.mark == rows[1][0]
 
     drive(app, steps)
 
@@ -220,23 +220,25 @@ def test_walls_worst_first_filters_then_a_wall_with_every_check_and_its_drawings
     async def steps(pilot):
         rows = cells(app, "#walls-table")
         worst = app.result.worst_first()
-        assert [r[1] for r in rows] == [p.mark for p in worst]
+        assert [r[0] for r in rows] == [p.mark for p in worst]
         for row, p in zip(rows, worst, strict=True):  # a symbol and a word, never colour alone
-            assert row[0] == {"unsafe": "✗ UNSAFE", "needs_braces": "▲ NEEDS BRACES",
-                              "braced": "✓ braced", "stands": "✓ stands"}[p.status]
-            assert row[3].endswith("✗") == (p.utilization > 1.0)
+            assert row[1] == {"unsafe": "✗ UNSAFE", "needs_braces": "▲ NEEDS BRACES",
+                              "braced": "✓ braced", "stands": "✓ stands"}[p.status] \
+                or (p.fails and row[1] == f"✗ {p.status}, DANGER")
+            assert row[3] == ("✗ FAILS" if p.fails else "✓ ok")
+            assert row[4].endswith("✗") == (p.utilization > 1.0)
         app.query_one("#filter-status", Select).value = "stands"
         await pilot.pause()
-        assert [r[1] for r in cells(app, "#walls-table")] == \
+        assert [r[0] for r in cells(app, "#walls-table")] == \
             [p.mark for p in worst if p.status == "stands"]
         app.query_one("#filter-status", Select).value = "*"
         app.query_one("#filter-day", Select).value = 1
         await pilot.pause()
-        assert [r[1] for r in cells(app, "#walls-table")] == ["P-1"]  # day 1: only P-1 stands
+        assert [r[0] for r in cells(app, "#walls-table")] == ["P-1"]  # day 1: only P-1 stands
         app.query_one("#filter-day", Select).value = "*"
         app.query_one("#filter-material", Select).value = "masonry"
         await pilot.pause()
-        assert {r[1] for r in cells(app, "#walls-table")} == {"M-1", "M-2"}
+        assert {r[0] for r in cells(app, "#walls-table")} == {"M-1", "M-2"}
         app.query_one("#filter-material", Select).value = "*"
         await pilot.pause()
 
@@ -429,7 +431,8 @@ def test_export_writes_the_days_schedule_in_each_format(site_path, tmp_path):
             dialog.query_one("#export-day", Select).value = 2
             await pilot.pause()
             path = dialog.query_one("#export-path", Input)
-            assert path.value == f"site-schedule-day2.{dialogs.EXTENSIONS[fmt]}"
+            assert path.value == str(site_path.parent /
+                                     f"site-schedule-day2.{dialogs.EXTENSIONS[fmt]}")
             path.value = str(tmp_path / f"out.{fmt}")
             path.focus()
             await pilot.press("enter")

@@ -20,14 +20,23 @@ from textual.app import App, ComposeResult
 from textual.binding import Binding
 from textual.containers import Vertical
 from textual.reactive import reactive
-from textual.widgets import Footer, Input, Select, TabbedContent, TabPane
+from textual.widgets import Footer, Input, Select, Static, TabbedContent, TabPane
 
 from bracing import scenario
 from bracing.evaluate import evaluate, evaluate_walls
 from bracing.results import SiteResult
 from bracing.scenario import REMOVE, SiteFile, SiteFileError
-from tui.dialogs import Export, ExportRequest, SaveAs, UnsavedChanges
-from tui.fields import typed
+from tui import design
+from tui.dialogs import (
+    DesignProposal,
+    Export,
+    ExportRequest,
+    SaveAs,
+    SignOffDialog,
+    SignOffEntry,
+    UnsavedChanges,
+)
+from tui.fields import panel_index, typed, with_values
 from tui.views import (
     Caution,
     DayPicker,
@@ -97,14 +106,15 @@ class BracingApp(App[int]):
     TITLE = "Wall bracing"
     ENABLE_COMMAND_PALETTE = False
     BINDINGS: ClassVar[list[Binding]] = [
-        Binding("1", "show('walls')", "Walls",
+        # the tabs show the number keys, so the footer leaves them out (room for q at 80x24)
+        Binding("1", "show('walls')", "Walls", show=False,
                 tooltip="the Walls view: every wall, worst first, with filters"),
-        Binding("2", "show('wall')", "Wall",
+        Binding("2", "show('wall')", "Wall", show=False,
                 tooltip="the Wall view: its inputs, checks and drawings"),
-        Binding("3", "show('day')", "Day",
+        Binding("3", "show('day')", "Day", show=False,
                 tooltip="the Day view: lifts, braces and anchors, go / no-go"),
-        Binding("4", "show('plan')", "Plan", tooltip="the Plan view: the site in plan on a day"),
-        Binding("5", "show('settings')", "Settings",
+        Binding("4", "show('plan')", "Plan", show=False, tooltip="the Plan view: the site in plan on a day"),
+        Binding("5", "show('settings')", "Settings", show=False,
                 tooltip="the Settings view: wind basis, exposure, period, rules"),
         Binding("question_mark,f1", "show('keys')", "Keys", key_display="?",
                 tooltip="the Keys view: this list"),
@@ -117,6 +127,14 @@ class BracingApp(App[int]):
         Binding("minus", "zoom(0.5)", "Zoom out", key_display="-", show=False,
                 tooltip="zoom the plan out"),
         Binding("i", "edit", "Edit inputs", show=False, tooltip="go to the first input"),
+        Binding("d", "design", "Design", show=False,
+                tooltip="the layout designer's braces for the wall, beside its own; accept or "
+                        "refuse"),
+        Binding("s", "signoff", "Sign-off", show=False,
+                tooltip="record a sign-off (a wall's release); refused with the reason when it "
+                        "comes before the wall's lift or its events"),
+        Binding("a", "toggle_foot", "Angle/foot", show=False,
+                tooltip="give the wall's braces by their foot distance, or by their angle"),
         Binding("ctrl+z", "undo", "Undo", tooltip="undo the last change of a value"),
         Binding("ctrl+y", "redo", "Redo", show=False, tooltip="redo the change undone"),
         Binding("ctrl+s", "save", "Save",
@@ -147,6 +165,7 @@ class BracingApp(App[int]):
         Raises SiteFileError when the file cannot be read or is not valid.
         """
         super().__init__()
+        self.animation_level = "none"  # no sliding tab underline: a view is shown at once
         self.demo = path is None
         site_file = scenario.load(DEMO if path is None else path)
         first = result if result is not None else compute(site_file)
@@ -173,12 +192,20 @@ class BracingApp(App[int]):
         with TabbedContent(initial="walls", id="views"):
             for view, title in VIEWS.items():
                 with TabPane(title, id=view):
-                    if view == "walls":
-                        yield self.make_view(view)
+                    # a view is built when first shown; until then the pane says so in words
+                    yield self.make_view(view) if view == "walls" else \
+                        Static("Loading…", classes="loading")
         yield Footer()
 
     def make_view(self, view: str):
-        """A view, its attributes bound to the app's (a view is built when first shown)."""
+        """A view, its attributes bound to the app's (a view is built when first shown) and
+        given their values at once, so that it is whole when it is mounted."""
+        widget = self._bound_view(view)
+        for name in widget._reactive_connect or {}:
+            widget.set_reactive(getattr(type(widget), name), getattr(self, name))
+        return widget
+
+    def _bound_view(self, view: str):
         app = BracingApp
         if view == "walls":
             return WallsView(id="walls-view").data_bind(app.result, app.site_file, app.units)
@@ -202,7 +229,8 @@ class BracingApp(App[int]):
     @classmethod
     def key_list(cls) -> list[tuple[str, str, str]]:
         """Every key: the app's bindings, then the keys the widgets handle."""
-        where = {"step": "Wall, Day and Plan", "edit": "Wall and Settings", "zoom": "Plan"}
+        where = {"step": "Wall, Day and Plan", "edit": "Wall and Settings", "zoom": "Plan",
+                 "design": "Wall", "toggle_foot": "Wall", "signoff": "everywhere"}
         rows = []
         for b in cls.BINDINGS:
             keys = " / ".join(KEY_NAMES.get(k.strip(), k.strip()) for k in b.key.split(","))
@@ -225,33 +253,49 @@ class BracingApp(App[int]):
             return True if self.redo_stack else None
         return True
 
+    async def _ensure_view(self, view: str) -> None:
+        """Build `view` in its pane (in place of the placeholder) if it is not built yet."""
+        pane = self.query_one(f"#{view}", TabPane)
+        placeholder = pane.query(".loading")
+        if placeholder:
+            await placeholder.remove()
+            widget = self.make_view(view)
+            await pane.mount(widget)
+
     @on(TabbedContent.TabActivated)
     async def _tab(self, event: TabbedContent.TabActivated) -> None:
-        self.view = event.pane.id or "walls"
-        if not event.pane.children:
-            await event.pane.mount(self.make_view(self.view))
+        """A tab chosen with the mouse or the tab keys (the number keys go by action_show)."""
+        view = event.pane.id or "walls"
+        if view == self.view:
+            return
+        self.view = view
+        await self._ensure_view(view)
         self.refresh_bindings()
-        self.call_after_refresh(self._focus_view)
+        self._focus_view()
 
     def _focus_view(self) -> None:
         if self.edit_next and self.view in ("wall", "settings"):
             self.edit_next = False
             form = "#wall-form" if self.view == "wall" else "#settings-form"
-            fields = self.query(f"{form} Input, {form} Select")
+            fields = self.query(f"{form} Input")  # a box takes the keys typed next
             if fields:
                 fields.first().focus()
                 return
         target = self.query(FOCUS[self.view])
-        if target:
-            target.first().focus()
+        if target:  # the view stays at its top (Settings' table is below its form)
+            target.first().focus(scroll_visible=False)
 
-    def action_show(self, view: str) -> None:
+    async def action_show(self, view: str) -> None:
+        """Show a view and focus it before the next key is read (keys typed meanwhile reach
+        the focused field, never the app's view keys)."""
         tabs = self.query_one(TabbedContent)
-        if tabs.active == view:
-            self._focus_view()
-            return
-        self.screen.set_focus(None)  # focus left in the old view would bring it back
-        tabs.active = view
+        if tabs.active != view:
+            await self._ensure_view(view)
+            self.screen.set_focus(None)  # focus left in the old view would bring it back
+            self.view = view
+            tabs.active = view
+            self.refresh_bindings()
+        self._focus_view()
 
     def action_step(self, delta: int) -> None:
         """The next or previous wall (worst first) or day."""
@@ -268,15 +312,12 @@ class BracingApp(App[int]):
 
     def action_zoom(self, factor: float) -> None:
         view = self.query_one(PlanView)
-        view.zoom = int(min(8, max(1, view.zoom * factor)))
+        view.zoom = view.zoom * factor  # PlanView.validate_zoom keeps it in range
 
-    def action_edit(self) -> None:
+    async def action_edit(self) -> None:
         """Go to the first input of the Wall view (or of Settings when it is on view)."""
         self.edit_next = True
-        if self.view in ("wall", "settings"):
-            self.call_after_refresh(self._focus_view)
-        else:
-            self.action_show("wall")
+        await self.action_show(self.view if self.view in ("wall", "settings") else "wall")
 
     def action_leave_field(self) -> None:
         if isinstance(self.focused, (Input, Select)):
@@ -289,9 +330,9 @@ class BracingApp(App[int]):
         self.errors = {}  # a message belongs to the field of the wall it was typed for
 
     @on(WallsView.WallChosen)
-    def _open_wall(self, event: WallsView.WallChosen) -> None:
+    async def _open_wall(self, event: WallsView.WallChosen) -> None:
         self.mark = event.mark
-        self.action_show("wall")
+        await self.action_show("wall")
 
     @on(WallView.WallPicked)
     def _pick_wall(self, event: WallView.WallPicked) -> None:
@@ -311,11 +352,15 @@ class BracingApp(App[int]):
         except SiteFileError as exc:  # shown as plain text: typed "[/]" is not markup
             self.errors = {spec.field_id: escape(problems_text(exc))}
             return
+        self.apply(changed, spec.keys)
+
+    def apply(self, changed: SiteFile, keys: tuple = ()) -> None:
+        """Make a valid edit the current state, as one undoable step; the engine recomputes."""
         self.undo_stack.append(self.site_file)
         self.redo_stack.clear()
         self._install(changed)
         try:
-            sooner = quick(self.result, changed, spec.keys)
+            sooner = quick(self.result, changed, keys)
         except Exception:  # noqa: BLE001 - the whole site's evaluation reports the failure
             sooner = None
         if sooner is not None:
@@ -363,6 +408,81 @@ class BracingApp(App[int]):
             self.site_file = self.undo_stack.pop()
             self.dirty = bool(self.site_file.edits) or self.site_file.text is not self.saved_text
             self.refresh_bindings()
+
+    def _wall_index(self) -> int | None:
+        return panel_index(self.site_file, self.mark) if self.view == "wall" else None
+
+    def action_toggle_foot(self) -> None:
+        """The wall's braces given by their foot distance instead of their angle, or back; the
+        value carried over is the engine's for the present layout."""
+        i = self._wall_index()
+        table = self.site_file.data["panels"][i].get("bracing") if i is not None else None
+        braces = self.result.panel(self.mark).braces if table else None
+        if not braces:
+            self.notify("Open a wall with braces (the Wall view) to switch angle and foot "
+                        "distance.", severity="warning")
+            return
+        base = ("panels", i, "bracing")
+        if "angle" in table:
+            changes = [(base + ("angle",), REMOVE),
+                       (base + ("anchor_distance",), f"{braces['anchor_distance_ft']:.2f} ft")]
+        else:
+            changes = [(base + ("anchor_distance",), REMOVE),
+                       (base + ("angle",), f"{braces['angle_deg']:.1f} deg")]
+        try:
+            self.apply(with_values(self.site_file, changes), base)
+        except SiteFileError as exc:
+            self.notify(f"Not switched: {problems_text(exc)}", severity="error", markup=False)
+
+    def action_design(self) -> None:
+        """The layout designer's proposal for the wall on view, beside its present layout."""
+        i = self._wall_index()
+        if i is None:
+            self.notify("Open a wall (the Wall view) to design its braces.", severity="warning")
+            return
+        proposal = design.propose(self.site_file, i)
+        current = self.result.panel(self.mark)
+        self.push_screen(DesignProposal(self.mark, current, proposal, self.units),
+                         lambda accept: self._design_answer(i, proposal, accept))
+
+    def _design_answer(self, i: int, proposal, accept: bool | None) -> None:
+        if not accept or proposal.table is None:
+            return
+        try:
+            changed = self.site_file.with_value(("panels", i, "bracing"), proposal.table)
+        except SiteFileError as exc:
+            self.notify(f"Not accepted: {problems_text(exc)}", severity="error", markup=False)
+            return
+        self.apply(changed, ("panels", i, "bracing"))
+
+    def action_signoff(self) -> None:
+        marks = [p.mark for p in self.site_file.site.panels]
+        self.push_screen(SignOffDialog(marks, self.day, self._signoff_refused), self._signed)
+
+    def _with_signoff(self, entry: SignOffEntry) -> SiteFile:
+        listed = list(self.site_file.data.get("signoffs", []))
+        return self.site_file.with_value(
+            ("signoffs",), [*listed, {"panel": entry.panel, "day": entry.day, "by": entry.by}])
+
+    def _signoff_refused(self, entry: SignOffEntry) -> str | None:
+        """Why a sign-off cannot be recorded: the file's validation, or the engine's finding
+        that it comes before the wall's lift or an event its release waits for."""
+        try:
+            changed = self._with_signoff(entry)
+        except SiteFileError as exc:
+            return problems_text(exc)
+        result = compute(changed)
+        early = ("signoff-before-event", "signoff-before-lift")
+        found = [f for p in result.panels if p.mark == entry.panel for f in p.flags
+                 if f.code in early and f"day {entry.day} " in f.message] + \
+            [f for d in result.days for f in d.flags
+             if f.code in early and f.message.startswith(f"{entry.panel}:")
+             and f"day {entry.day} " in f.message]
+        return found[0].message if found else None
+
+    def _signed(self, entry: SignOffEntry | None) -> None:
+        if entry is not None:
+            self.apply(self._with_signoff(entry), ("signoffs",))
 
     def action_undo(self) -> None:
         if not self.undo_stack:
@@ -418,7 +538,8 @@ class BracingApp(App[int]):
         days = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day)
                 for d in self.result.days]
         stem = Path(self.site_file.path).stem
-        self.push_screen(Export(stem, days, self.day), self.export)
+        self.push_screen(Export(stem, days, self.day, Path(self.site_file.path).parent),
+                         self.export)
 
     def export(self, request: ExportRequest | None) -> None:
         """Write the schedule the engine's report renders, atomically."""

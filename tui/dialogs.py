@@ -19,6 +19,7 @@ from tui.views import Choice
 
 FORMATS = (("html", "HTML (print it)"), ("csv", "CSV (a spreadsheet)"), ("text", "plain text"))
 EXTENSIONS = {"html": "html", "csv": "csv", "text": "txt"}
+BY_EXTENSION = {".html": "html", ".htm": "html", ".csv": "csv", ".txt": "text", ".text": "text"}
 EVERY_DAY = -1
 
 
@@ -95,9 +96,13 @@ class Export(ModalScreen[ExportRequest | None]):
 
     BINDINGS: ClassVar[list[Binding]] = [Binding("escape", "dismiss(None)", "Cancel")]
 
-    def __init__(self, stem: str, days: list[tuple[str, int]], day: int | None):
+    def __init__(self, stem: str, days: list[tuple[str, int]], day: int | None,
+                 folder: str | Path = ""):
+        """`stem` names the file, written in `folder` (the site file's) by default."""
         super().__init__()
         self.stem = stem
+        self.folder = Path(folder)
+        self.suggested = {self._path("html")}  # names the dialog wrote (not the user)
         self.days = days
         self.day = day
 
@@ -115,9 +120,18 @@ class Export(ModalScreen[ExportRequest | None]):
             with Horizontal(classes="dialog-line"):
                 yield Label("File", classes="field-label")
                 yield Input(self._path("html"), id="export-path", compact=True)
+            yield Static(self._format_words("html"), id="export-chosen")
             with Horizontal(classes="dialog-buttons"):
                 yield Button("Export (Enter)", id="export", variant="primary")
                 yield Button("Cancel (Esc)", id="cancel")
+
+    def on_mount(self) -> None:
+        self.query_one("#export", Button).focus()  # Enter exports at once
+
+    @staticmethod
+    def _format_words(fmt: str) -> Text:
+        """The format chosen, in words (the radio buttons look alike in plain text)."""
+        return Text(f"Format: {dict(FORMATS)[fmt]}, .{EXTENSIONS[fmt]}")
 
     def _fmt(self) -> str:
         pressed = self.query_one(RadioSet).pressed_button
@@ -129,12 +143,29 @@ class Export(ModalScreen[ExportRequest | None]):
 
     def _path(self, fmt: str, day: int | None = None) -> str:
         when = f"-day{day}" if day is not None else ""
-        return f"{self.stem}-schedule{when}.{EXTENSIONS[fmt]}"
+        return str(self.folder / f"{self.stem}-schedule{when}.{EXTENSIONS[fmt]}")
 
     @on(RadioSet.Changed)
     @on(Select.Changed)
     def _suggest(self) -> None:
-        self.query_one("#export-path", Input).value = self._path(self._fmt(), self._day())
+        """A suggested name follows the day and the format; a name typed keeps its stem and
+        takes the extension of the format chosen."""
+        box, fmt = self.query_one("#export-path", Input), self._fmt()
+        typed = Path(box.value.strip())
+        if box.value in self.suggested or not box.value.strip():
+            box.value = self._path(fmt, self._day())
+            self.suggested.add(box.value)
+        elif BY_EXTENSION.get(typed.suffix.lower()) != fmt:
+            box.value = str(typed.with_suffix(f".{EXTENSIONS[fmt]}"))
+        self.query_one("#export-chosen", Static).update(self._format_words(fmt))
+
+    @on(Input.Changed, "#export-path")
+    def _follow_extension(self, event: Input.Changed) -> None:
+        """A file name typed with a known extension chooses its format."""
+        fmt = BY_EXTENSION.get(Path(event.value.strip()).suffix.lower())
+        if fmt is not None and fmt != self._fmt():
+            self.query_one(f"#format-{fmt}", RadioButton).value = True
+            self.query_one("#export-chosen", Static).update(self._format_words(fmt))
 
     @on(Input.Submitted)
     @on(Button.Pressed, "#export")
@@ -142,6 +173,121 @@ class Export(ModalScreen[ExportRequest | None]):
         path = self.query_one("#export-path", Input).value.strip()
         if path:
             self.dismiss(ExportRequest(self._fmt(), self._day(), path))
+
+    @on(Button.Pressed, "#cancel")
+    def _cancel(self) -> None:
+        self.dismiss(None)
+
+
+def layout_lines(title: str, p, units: str) -> Text:
+    """A wall's braces as the engine gives them: count, positions, insert height, angle and
+    foot distance, brace type, utilization."""
+    from bracing.report.text import fmt
+
+    out = Text(f"{title}\n", style="bold")
+    b = p.braces if p is not None else None
+    if not b:
+        out.append("no braces")
+        return out
+    places = ", ".join(fmt(x, "ft", units, 1) for x in b["positions_ft"])
+    out.append(f"{b['count']} x {b['brace_type']}\nat {places}\n"
+               f"insert {fmt(b['insert_height_ft'], 'ft', units, 1)}, angle "
+               f"{b['angle_deg']:.1f}°\nfoot {fmt(b['anchor_distance_ft'], 'ft', units, 1)} "
+               f"from the face\nanchors {b.get('wall_anchor') or '-'} / "
+               f"{b.get('foot_anchor') or '-'}\nutilization {b['utilization']:.2f}")
+    return out
+
+
+class DesignProposal(ModalScreen[bool]):
+    """The layout designer's braces beside the wall's own: accept (one undoable edit) or
+    refuse."""
+
+    BINDINGS: ClassVar[list[Binding]] = [Binding("escape", "dismiss(False)", "Refuse")]
+
+    def __init__(self, mark: str, current, proposal, units: str = "us"):
+        super().__init__()
+        self.mark = mark
+        self.current = current
+        self.proposal = proposal
+        self.units = units
+
+    def compose(self) -> ComposeResult:
+        with Vertical(classes="dialog"):
+            yield Static(Text(f"The layout designer's braces for {self.mark}"),
+                         classes="dialog-title")
+            with Horizontal(classes="proposal"):
+                yield Static(layout_lines("Now", self.current, self.units), classes="layout")
+                yield Static(layout_lines("Proposed", self.proposal.result, self.units)
+                             if self.proposal.table else Text(f"No proposal: "
+                                                              f"{self.proposal.message}"),
+                             classes="layout")
+            with Horizontal(classes="dialog-buttons"):
+                if self.proposal.table:
+                    yield Button("Accept (Enter)", id="accept", variant="primary")
+                yield Button("Refuse (Esc)", id="refuse")
+
+    def on_mount(self) -> None:
+        self.query_one(Button).focus()
+
+    @on(Button.Pressed)
+    def _answer(self, event: Button.Pressed) -> None:
+        self.dismiss(event.button.id == "accept")
+
+
+@dataclass(frozen=True)
+class SignOffEntry:
+    panel: str
+    day: int
+    by: str
+
+
+class SignOffDialog(ModalScreen[SignOffEntry | None]):
+    """Record a sign-off (the release of one wall's braces): the wall, the day and who;
+    `check` returns why the engine refuses it (a sign-off before its lift or its events), or
+    None, and a refused one is not recorded."""
+
+    BINDINGS: ClassVar[list[Binding]] = [Binding("escape", "dismiss(None)", "Cancel")]
+
+    def __init__(self, marks: list[str], day: int | None, check):
+        super().__init__()
+        self.marks = marks
+        self.day = day
+        self.check = check
+
+    def compose(self) -> ComposeResult:
+        with Vertical(classes="dialog"):
+            yield Static("Record a sign-off (release of a wall's braces)", classes="dialog-title")
+            with Horizontal(classes="dialog-line"):
+                yield Label("Wall", classes="field-label")
+                yield Choice([(Text(m), m) for m in self.marks], allow_blank=False,
+                             id="signoff-wall")
+            with Horizontal(classes="dialog-line"):
+                yield Label("Day", classes="field-label")
+                yield Input("" if self.day is None else str(self.day), id="signoff-day",
+                            compact=True)
+            with Horizontal(classes="dialog-line"):
+                yield Label("By (name)", classes="field-label")
+                yield Input("", id="signoff-by", compact=True)
+            yield Static("", id="signoff-error", classes="field-error")
+            with Horizontal(classes="dialog-buttons"):
+                yield Button("Record (Enter)", id="record", variant="primary")
+                yield Button("Cancel (Esc)", id="cancel")
+
+    def on_mount(self) -> None:
+        self.query_one("#signoff-by", Input).focus()
+
+    @on(Input.Submitted)
+    @on(Button.Pressed, "#record")
+    def _record(self) -> None:
+        day = self.query_one("#signoff-day", Input).value.strip()
+        entry = SignOffEntry(str(self.query_one("#signoff-wall", Select).value),
+                             int(day) if day.isdigit() else -1,
+                             self.query_one("#signoff-by", Input).value.strip())
+        why = self.check(entry)
+        if why:
+            self.query_one("#signoff-error", Static).update(Text(f"✗ Refused: {why}"))
+            return
+        self.dismiss(entry)
 
     @on(Button.Pressed, "#cancel")
     def _cancel(self) -> None:

@@ -7,10 +7,10 @@ decides whether it is acceptable.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 from bracing.model import DEFAULT_RULES, SiteInfo
-from bracing.scenario import SiteFile
+from bracing.scenario import REMOVE, SiteFile, SiteFileError, validate_data
 
 
 @dataclass(frozen=True)
@@ -36,12 +36,16 @@ def raw_text(node, key: str) -> str:
         return "true" if value else "false"
     if isinstance(value, float):
         return f"{value:g}"
+    if isinstance(value, list):
+        return ", ".join(f"{v:g}" if isinstance(v, float) else str(v) for v in value)
     return str(value)
 
 
 def typed(text: str, kind: str):
     """What goes into the file for the text typed into a field of `kind`."""
     s = text.strip()
+    if kind == "list":  # positions: "4 ft, 12 ft" or "4, 12"
+        return [typed(part, "quantity") for part in s.split(",") if part.strip()]
     if kind in ("quantity", "number", "int"):
         try:
             number = float(s)
@@ -99,19 +103,45 @@ def wall_fields(site_file: SiteFile, mark: str) -> list[FieldSpec]:
             spec("count", "Braces", "int", "count", table=table, prefix=pre),
             spec("brace_type", "Brace type", "choice", choices=sorted(site.brace_types),
                  table=table, prefix=pre),
+            spec("positions", "Positions", "list", "ft from left, equal strips",
+                 table=table, prefix=pre),
             spec("insert_height", "Insert height", "quantity", "ft", table=table, prefix=pre),
-            spec("angle", "Brace angle", "quantity", "deg", table=table, prefix=pre)
+            spec("angle", "Brace angle (a)", "quantity", "deg", table=table, prefix=pre)
             if b.angle is not None else
-            spec("anchor_distance", "Foot from face", "quantity", "ft", table=table, prefix=pre),
+            spec("anchor_distance", "Foot dist. (a)", "quantity", "ft", table=table,
+                 prefix=pre),
+            spec("lean", "Lean", "quantity", "in", table=table, prefix=pre),
+            spec("slop", "Slop", "quantity", "in", table=table, prefix=pre),
         ]
         anchors = sorted(site.anchor_types)
-        if b.wall_anchor is not None:
-            specs.append(spec("wall_anchor", "Wall anchor", "choice", choices=anchors,
-                              table=table, prefix=pre))
-        if b.foot_anchor is not None:
-            specs.append(spec("foot_anchor", "Foot anchor", "choice", choices=anchors,
-                              table=table, prefix=pre))
+        specs += [spec("wall_anchor", "Wall anchor", "choice", "none", choices=anchors,
+                       table=table, prefix=pre),
+                  spec("foot_anchor", "Foot anchor", "choice", "none", choices=anchors,
+                       table=table, prefix=pre)]
     return specs
+
+
+def with_values(site_file: SiteFile, changes: list[tuple[tuple, object]]) -> SiteFile:
+    """`SiteFile.with_value` for changes that are valid only together (an angle taken out and
+    a foot distance put in): applied in turn, validated once by the engine's validation;
+    raises SiteFileError and changes nothing."""
+    data = dict(site_file.data)
+    for keys, value in changes:
+        node = data
+        try:
+            for key in keys[:-1]:
+                child = node[key]
+                node[key] = child = list(child) if isinstance(child, list) else dict(child)
+                node = child
+        except (KeyError, IndexError, TypeError):
+            raise SiteFileError(str(site_file.path), [f"{site_file.path}: no "
+                                f"{'.'.join(map(str, keys[:-1]))} in the file"]) from None
+        if value is REMOVE:
+            node.pop(keys[-1], None)
+        else:
+            node[keys[-1]] = value
+    site = validate_data(data, str(site_file.path), site_file.text)
+    return replace(site_file, site=site, data=data, edits=site_file.edits + tuple(changes))
 
 
 SITE_FIELDS = (

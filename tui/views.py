@@ -7,6 +7,7 @@ value) by posting a message up. Pass and fail are shown by a symbol and a word a
 from __future__ import annotations
 
 import math
+from dataclasses import dataclass
 
 from rich.text import Text
 from textual import on
@@ -38,6 +39,24 @@ ALL = "*"
 def status_text(status: str) -> Text:
     symbol, word, style = STATUS_LOOK[status]
     return Text(f"{symbol} {word}", style=style)
+
+
+def wall_status_text(p) -> Text:
+    """A wall's status; a wall that fails (`PanelResult.fails`: a danger finding too) never
+    shows a pass mark."""
+    if p.fails and p.status in ("braced", "stands"):
+        return Text(f"✗ {p.status}, DANGER", style="bold red")
+    return status_text(p.status)
+
+
+def verdict_of(p) -> Text:
+    """The wall's verdict in a word and a symbol, from `PanelResult.fails` (the one test)."""
+    return Text("✗ FAILS", style="bold red") if p.fails else Text("✓ ok", style="green")
+
+
+def plain(*cells) -> list:
+    """Table cells: text as written, never read as markup (a mark may hold "[/]")."""
+    return [Text(c) if isinstance(c, str) else c for c in cells]
 
 
 def utilization_text(u: float) -> Text:
@@ -84,8 +103,8 @@ class Caution(Static):
 
     result = reactive(None, always_update=True)
 
-    def render(self) -> str:
-        return "⚠ " + (self.result.caution if self.result is not None else CAUTION)
+    def render(self) -> Text:
+        return Text("⚠ " + (self.result.caution if self.result is not None else CAUTION))
 
 
 class StatusLine(Static):
@@ -100,11 +119,10 @@ class StatusLine(Static):
     def render(self) -> Text:
         out = Text()
         if self.result is not None:
-            for status in STATUSES:
-                n = sum(p.status == status for p in self.result.panels)
-                if n:
-                    symbol, word, style = STATUS_LOOK[status]
-                    out.append(f"{n} {symbol} {word.lower()}  ", style=style)
+            failing, total = len(self.result.failing()), len(self.result.panels)
+            out.append(f"✗ {failing} of {total} walls fail  " if failing else
+                       f"✓ none of {total} walls fails  ",
+                       style="bold red" if failing else "green")
         out.append(f"·  {self.file_name}")
         if self.dirty:
             out.append("  ·  unsaved changes", style="bold")
@@ -119,13 +137,17 @@ class StatusLine(Static):
 class FieldRow(Vertical):
     """One input of a form: its label, the value as the file holds it, and any message."""
 
+    @dataclass
     class Edited(Message):
         """The user asks for a new value in the file."""
 
-        def __init__(self, spec: FieldSpec, text: str):
-            super().__init__()
-            self.spec = spec
-            self.text = text
+        row: FieldRow
+        spec: FieldSpec
+        text: str
+
+        @property
+        def control(self) -> FieldRow:
+            return self.row
 
     value = reactive("", init=False)
     error = reactive("", init=False)
@@ -140,9 +162,9 @@ class FieldRow(Vertical):
         with Horizontal(classes="field-line"):
             yield Label(s.label, classes="field-label")
             if s.kind == "fixed":
-                yield Static(s.value, classes="field-fixed")
+                yield Static(Text(s.value), classes="field-fixed")
             elif s.kind == "choice":
-                yield Choice([(c, c) for c in s.choices], value=s.value or Select.NULL,
+                yield Choice([(Text(c), c) for c in s.choices], value=s.value or Select.NULL,
                              allow_blank=not s.value,
                              prompt=f"not set ({s.hint})" if s.hint else "not set")
             else:
@@ -150,13 +172,20 @@ class FieldRow(Vertical):
                             compact=True, select_on_focus=False)
         yield Static("", classes="field-error")
 
-    def watch_value(self, value: str) -> None:
-        if self.spec.kind == "choice":
-            select = self.query_one(Select)
-            if value in self.spec.choices and select.value != value:
-                select.value = value
-        elif self.spec.kind != "fixed":
-            self.query_one(Input).value = value
+    def show(self, spec: FieldSpec) -> None:
+        """Show `spec`'s value as the file holds it, whatever the field held before (a value
+        typed for another wall and never applied does not linger)."""
+        self.spec = spec
+        self.set_reactive(FieldRow.value, spec.value)
+        if spec.kind == "fixed":
+            for fixed in self.query(".field-fixed").results(Static):
+                fixed.update(Text(spec.value))
+        elif spec.kind == "choice":
+            for choice in self.query(Choice).results(Choice):
+                choice.offer([(Text(c), c) for c in spec.choices], spec.value)
+        else:
+            for box in self.query(Input).results(Input):
+                box.value = spec.value  # (a row not composed yet shows its spec at compose)
 
     def watch_error(self, error: str) -> None:
         self.query_one(".field-error", Static).update(f"✗ {error}" if error else "")
@@ -165,18 +194,18 @@ class FieldRow(Vertical):
     @on(Input.Submitted)
     def _submitted(self, event: Input.Submitted) -> None:
         event.stop()
-        self.post_message(self.Edited(self.spec, event.value))
+        self.post_message(self.Edited(self, self.spec, event.value))
 
     @on(Input.Blurred)
     def _left(self, event: Input.Blurred) -> None:
         if event.value != self.value and not self.error:
-            self.post_message(self.Edited(self.spec, event.value))
+            self.post_message(self.Edited(self, self.spec, event.value))
 
     @on(Select.Changed)
     def _chosen(self, event: Select.Changed) -> None:
         event.stop()
         if event.value != Select.NULL and event.value != self.value:
-            self.post_message(self.Edited(self.spec, str(event.value)))
+            self.post_message(self.Edited(self, self.spec, str(event.value)))
 
     def key_escape(self) -> None:
         """Escape puts back the file's value and leaves the field."""
@@ -191,9 +220,9 @@ class Form(Vertical):
 
     errors = reactive(dict, always_update=True, init=False)
 
-    def __init__(self, **kwargs):
+    def __init__(self, specs: list[FieldSpec] = (), **kwargs):
         super().__init__(**kwargs)
-        self.specs: list[FieldSpec] = []
+        self.specs: list[FieldSpec] = list(specs)
 
     def compose(self) -> ComposeResult:
         yield from (FieldRow(s) for s in self.specs)
@@ -206,8 +235,7 @@ class Form(Vertical):
         else:
             self.specs = specs
             for row, spec in zip(self.query(FieldRow), specs):
-                row.spec = spec
-                row.value = spec.value
+                row.show(spec)
         self.watch_errors(self.errors)
 
     def watch_errors(self, errors: dict) -> None:
@@ -218,17 +246,24 @@ class Form(Vertical):
 class WallsView(Vertical):
     """Every wall, worst first: status, governing utilization, stand-down gust; with filters."""
 
+    @dataclass
     class WallChosen(Message):
-        def __init__(self, mark: str):
-            super().__init__()
-            self.mark = mark
+        """A wall to open."""
+
+        view: WallsView
+        mark: str
+
+        @property
+        def control(self) -> WallsView:
+            return self.view
 
     result = reactive(None, always_update=True, init=False)
     site_file = reactive(None, always_update=True, init=False)
     units = reactive("us", init=False)
 
-    COLUMNS = ("Status", "Wall", "Material", "Utilization", "Governing element",
-               "Stand-down gust", "Working limit", "Braces", "Lift")
+    # the essential columns first (they fit at 80 columns); wider terminals show the rest
+    COLUMNS = ("Wall", "Status", "Stand-down", "Verdict", "Utilization", "Working limit",
+               "Braces", "Lift", "Material", "Governing element")
 
     def compose(self) -> ComposeResult:
         with Horizontal(id="walls-filters"):
@@ -296,11 +331,12 @@ class WallsView(Vertical):
         panels = self.shown()
         lift = self._lift_days()
         for p in panels:
-            table.add_row(
-                status_text(p.status), p.mark, p.material, utilization_text(p.utilization),
-                p.governing_element, speed(p.stand_down_speed_mph, self.units),
+            table.add_row(*plain(
+                p.mark, wall_status_text(p), speed(p.stand_down_speed_mph, self.units),
+                verdict_of(p), utilization_text(p.utilization),
                 speed(p.working_limit_speed_mph, self.units),
-                str(p.braces["count"]) if p.braces else "-", lift.get(p.mark, "-"), key=p.mark)
+                str(p.braces["count"]) if p.braces else "-", lift.get(p.mark, "-"),
+                p.material, p.governing_element), key=p.mark)
         marks = [p.mark for p in panels]
         if current in marks:
             table.move_cursor(row=marks.index(current), animate=False)
@@ -315,16 +351,22 @@ class WallsView(Vertical):
     @on(DataTable.RowSelected)
     def _open(self, event: DataTable.RowSelected) -> None:
         event.stop()
-        self.post_message(self.WallChosen(event.row_key.value))
+        self.post_message(self.WallChosen(self, event.row_key.value))
 
 
 class WallView(Horizontal):
     """One wall: its inputs as a form; every check; a section and an elevation."""
 
+    @dataclass
     class WallPicked(Message):
-        def __init__(self, mark: str):
-            super().__init__()
-            self.mark = mark
+        """A wall chosen in the Wall view's own list."""
+
+        view: WallView
+        mark: str
+
+        @property
+        def control(self) -> WallView:
+            return self.view
 
     result = reactive(None, always_update=True, init=False)
     site_file = reactive(None, always_update=True, init=False)
@@ -341,7 +383,8 @@ class WallView(Horizontal):
                 yield Label("Wall", classes="field-label")
                 yield Choice([], prompt="choose a wall", id="wall-select")
             yield Static("Enter applies a value; Esc puts it back.", classes="hint")
-            yield Form(id="wall-form").data_bind(WallView.errors)
+            specs = wall_fields(self.site_file, self.mark) if self.site_file else []
+            yield Form(specs, id="wall-form").data_bind(WallView.errors)
         with VerticalScroll(id="wall-results"):
             yield Static("", id="wall-summary")
             yield Static("", id="wall-flags")
@@ -354,6 +397,10 @@ class WallView(Horizontal):
         self.query_one("#checks-table", DataTable).add_columns(*self.CHECK_COLUMNS)
         self.query_one("#wall-section").border_title = "Section"
         self.query_one("#wall-elevation").border_title = "Elevation"
+        self.query_one("#wall-select", Choice).offer(
+            [(Text(p.mark), p.mark) for p in self.site_file.site.panels]
+            if self.site_file else [], self.mark)
+        self._results()  # whole when mounted: the app gives the attributes first
 
     async def watch_site_file(self) -> None:
         await self._inputs()
@@ -372,14 +419,14 @@ class WallView(Horizontal):
         if self.site_file is None:
             return
         marks = [p.mark for p in self.site_file.site.panels]
-        self.query_one("#wall-select", Choice).offer([(m, m) for m in marks], self.mark)
+        self.query_one("#wall-select", Choice).offer([(Text(m), m) for m in marks], self.mark)
         await self.query_one(Form).show(wall_fields(self.site_file, self.mark))
 
     @on(Select.Changed, "#wall-select")
     def _pick(self, event: Select.Changed) -> None:
         event.stop()
         if event.value != Select.NULL and event.value != self.mark:
-            self.post_message(self.WallPicked(str(event.value)))
+            self.post_message(self.WallPicked(self, str(event.value)))
 
     def _results(self) -> None:
         summary = self.query_one("#wall-summary", Static)
@@ -396,9 +443,10 @@ class WallView(Horizontal):
         self.query_one("#wall-flags", Static).update(flag_lines(p.flags_worst_first()))
         for c in p.worst_first():
             unit = UNIT_KEY.get(c.unit, c.unit)
-            table.add_row(pass_text(c.passes), c.element, c.region,
-                          fmt(c.demand, unit, self.units), fmt(c.capacity, unit, self.units),
-                          utilization_text(c.utilization), c.combination, c.source)
+            table.add_row(*plain(pass_text(c.passes), c.element, c.region,
+                                 fmt(c.demand, unit, self.units),
+                                 fmt(c.capacity, unit, self.units),
+                                 utilization_text(c.utilization), c.combination, c.source))
         self._drawings(p)
 
     def _summary(self, p) -> Text:
@@ -408,7 +456,7 @@ class WallView(Horizontal):
         out.append(f"{p.material}, {fmt(p.height_ft, 'ft', units, 1)} tall x "
                    f"{fmt(p.width_ft, 'ft', units, 1)} wide x "
                    f"{fmt(p.thickness_in, 'in', units, 2)}: ")
-        out.append_text(status_text(p.status))
+        out.append_text(wall_status_text(p))
         out.append(f" ({STATUSES[p.status]})\n")
         out.append(f"Governing: {p.governing_element}, utilization ")
         out.append_text(utilization_text(p.utilization))
@@ -466,10 +514,16 @@ class WallView(Horizontal):
 class DayPicker(Horizontal):
     """A day chooser shared by the Day and Plan views."""
 
+    @dataclass
     class DayPicked(Message):
-        def __init__(self, day: int):
-            super().__init__()
-            self.day = day
+        """A day chosen."""
+
+        picker: DayPicker
+        day: int
+
+        @property
+        def control(self) -> DayPicker:
+            return self.picker
 
     result = reactive(None, always_update=True, init=False)
     day = reactive(None, init=False)
@@ -496,7 +550,7 @@ class DayPicker(Horizontal):
     def _picked(self, event: Select.Changed) -> None:
         event.stop()
         if event.value != Select.NULL and event.value != self.day:
-            self.post_message(self.DayPicked(int(event.value)))
+            self.post_message(self.DayPicked(self, int(event.value)))
 
 
 VERDICT_LOOK = {"GO": ("✓", "bold green"), "GO WITH EXCEPTIONS": ("▲", "bold yellow"),
@@ -624,9 +678,9 @@ class DayView(RedrawsForTheDay, Vertical):
             for name, n in used.items():
                 on_hand = stock[name].on_hand if stock and name in stock else None
                 short = shortage(d, kind, name)
-                table.add_row(name, kind, str(n), "-" if on_hand is None else str(on_hand),
-                              Text(f"✗ {short} short", style="bold red") if short
-                              else Text("✓ enough", style="green"))
+                table.add_row(*plain(name, kind, str(n), "-" if on_hand is None else str(on_hand),
+                                     Text(f"✗ {short} short", style="bold red") if short
+                                     else Text("✓ enough", style="green")))
         self.query_one("#day-flags", Static).update(grouped_lines(d.findings, units))
         self.query_one("#day-body").scroll_home(animate=False)  # the verdict in sight
 
@@ -638,6 +692,13 @@ class PlanView(RedrawsForTheDay, Vertical):
     day = reactive(None, init=False)
     units = reactive("us", init=False)
     zoom = reactive(1, init=False)
+
+    ZOOM_LIMITS = (1, 8)
+
+    def validate_zoom(self, zoom: float) -> int:
+        """x1 to x8."""
+        low, high = self.ZOOM_LIMITS
+        return int(min(high, max(low, zoom)))
 
     def compose(self) -> ComposeResult:
         yield DayPicker(id="plan-picker").data_bind(PlanView.result, PlanView.day)
@@ -685,27 +746,37 @@ class SettingsView(VerticalScroll):
     def compose(self) -> ComposeResult:
         yield Static("Wind basis and the rules the site file sets (Enter applies a value)",
                      classes="section-title")
-        yield Form(id="settings-form").data_bind(SettingsView.errors)
+        specs = site_fields(self.site_file) if self.site_file else []
+        yield Form(specs, id="settings-form").data_bind(SettingsView.errors)
         yield Static("", id="settings-basis")
         yield Static("Site rules: value, source and basis", classes="section-title")
         yield DataTable(id="rules-table", cursor_type="row", zebra_stripes=True)
         yield Static("", id="settings-flags")
 
     def on_mount(self) -> None:
+        """Whole when mounted: the app gives the attributes before it mounts the view."""
         self.query_one(DataTable).add_columns("Rule", "Value", "In force", "Source", "Basis")
+        self._rules()
+        self.watch_result()
 
     async def watch_site_file(self) -> None:
         if self.site_file is None:
             return
         await self.query_one(Form).show(site_fields(self.site_file))
+        self._rules()
+
+    def _rules(self) -> None:
+        if self.site_file is None or not self.is_mounted:
+            return
         table = self.query_one(DataTable)
         table.clear()
         site = self.site_file.site
         for name in DEFAULT_RULES:
             rule = site.rule(name)
-            table.add_row(name.replace("_", " "), "-" if rule.value is None else f"{rule.value:g}",
-                          "✓ yes" if rule.enabled else "✗ no (off)", rule.source, rule.basis,
-                          key=name)
+            table.add_row(*plain(name.replace("_", " "),
+                                 "-" if rule.value is None else f"{rule.value:g}",
+                                 "✓ yes" if rule.enabled else "✗ no (off)", rule.source,
+                                 rule.basis), key=name)
 
     def watch_result(self) -> None:
         if self.result is None:
@@ -736,4 +807,4 @@ class KeysView(VerticalScroll):
         table = self.query_one(DataTable)
         table.clear()
         for key, what, where in keys:
-            table.add_row(key, what, where)
+            table.add_row(*plain(key, what, where))

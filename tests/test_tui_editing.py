@@ -1,0 +1,171 @@
+"""Every fix the interface shows can be made in it, on a copy of the demo site: the layout
+designer's braces for D-2 accepted, a wall's angle turned into a foot distance of 6 ft (the
+review exercise's fix), one brace moved; each undone, then redone; saved, the file validates,
+keeps its comments, and `bracing check` shows the changes.
+
+The interface computes nothing: the expected values are the ones typed, read back from the
+engine's result and from `bracing check --json`.
+"""
+
+from __future__ import annotations
+
+import asyncio
+import json
+import subprocess
+import sys
+
+from test_tui_screen import copy_site
+from textual.widgets import Input
+
+from bracing import scenario
+from tui.app import BracingApp
+from tui.dialogs import DesignProposal
+from tui.views import FieldRow
+
+
+async def settle(pilot) -> None:
+    await pilot.app.workers.wait_for_complete()
+    await pilot.pause()
+
+
+async def enter(pilot, field_id: str, text: str) -> None:
+    box = pilot.app.query_one(f"#field-{field_id}", FieldRow).query_one(Input)
+    box.focus()
+    await pilot.pause()
+    box.value = text
+    await pilot.press("enter")
+    await settle(pilot)
+
+
+def test_design_switch_to_a_foot_distance_move_a_brace_undo_redo_and_save(tmp_path):
+    path = copy_site("demo-mixed", tmp_path)
+    app = BracingApp(path)
+    original = app.site_file.data
+    panels = original["panels"]
+    d2 = next(i for i, p in enumerate(panels) if p["mark"] == "D-2")
+    assert "bracing" not in panels[d2]
+    assert "angle" in panels[0]["bracing"] and panels[0]["mark"] == "D-1"
+
+    async def steps(pilot):
+        app.mark = "D-2"
+        await pilot.press("2")
+        await pilot.press("d")  # the designer's proposal beside the wall's own (none)
+        await pilot.pause()
+        assert isinstance(app.screen, DesignProposal)
+        proposal = app.screen.proposal
+        assert proposal.table is not None
+        await pilot.press("enter")  # accept
+        await settle(pilot)
+        assert app.site_file.data["panels"][d2]["bracing"] == proposal.table
+        assert app.result.panel("D-2").braces["count"] == proposal.table["count"]
+
+        app.mark = "D-1"
+        await pilot.pause()
+        await pilot.press("a")  # angle -> foot distance
+        await settle(pilot)
+        assert "angle" not in app.site_file.data["panels"][0]["bracing"]
+        await enter(pilot, "bracing-anchor-distance", "6 ft")
+        assert app.result.panel("D-1").braces["anchor_distance_ft"] == 6.0
+        await enter(pilot, "bracing-positions", "5 ft, 19 ft")  # D-1: two braces, 24 ft wide
+        assert app.result.panel("D-1").braces["positions_ft"] == [5.0, 19.0]
+        final = app.site_file.data
+
+        app.screen.set_focus(None)
+        for _ in range(4):
+            await pilot.press("ctrl+z")
+        await settle(pilot)
+        assert app.site_file.data == original
+        for _ in range(4):
+            await pilot.press("ctrl+y")
+        await settle(pilot)
+        assert app.site_file.data == final
+        await pilot.press("ctrl+s")
+        await pilot.pause()
+
+    async def main():
+        async with app.run_test(size=(120, 40)) as pilot:
+            await pilot.pause()
+            await steps(pilot)
+    asyncio.run(main())
+
+    saved = scenario.load(path)  # validates
+    assert saved.text.startswith("# Demo site: a small mixed job")
+    assert "# A dock door at the base" in saved.text
+    run = subprocess.run([sys.executable, "-c", "from bracing.cli import main; main()", "check",
+                          str(path), "--json"],
+                         check=False, capture_output=True, text=True, cwd=tmp_path)
+    record = {p["mark"]: p for p in json.loads(run.stdout)["panels"]}
+    assert record["D-1"]["braces"]["anchor_distance_ft"] == 6.0
+    assert record["D-1"]["braces"]["positions_ft"] == [5.0, 19.0]
+    assert record["D-2"]["braces"]["count"] == app.site_file.data["panels"][d2]["bracing"]["count"]
+
+
+def test_e_then_enter_exports_beside_the_site_file_and_the_extension_chooses_the_format(tmp_path):
+    path = copy_site("demo-mixed", tmp_path)
+    app = BracingApp(path)
+
+    async def steps(pilot):
+        await pilot.press("e")
+        await pilot.pause()
+        await pilot.press("enter")  # the initial focus: Export
+        await pilot.pause()
+        await pilot.press("e")
+        await pilot.pause()
+        box = app.screen.query_one("#export-path", Input)
+        box.value = str(tmp_path / "crew.txt")  # a .txt name: plain text
+        await pilot.pause()
+        assert "plain text" in str(app.screen.query_one("#export-chosen").render())
+        await pilot.press("enter")
+        await pilot.pause()
+
+    async def main():
+        async with app.run_test(size=(120, 40)) as pilot:
+            await pilot.pause()
+            await steps(pilot)
+    asyncio.run(main())
+    written = sorted(p.name for p in tmp_path.glob("demo-mixed-schedule*"))
+    assert written and written[0].endswith(".html")
+    text = (tmp_path / "crew.txt").read_text(encoding="utf-8")
+    assert "<html" not in text.lower() and "CAUTION" in text
+
+
+def test_a_sign_off_before_its_event_is_refused_with_the_reason_a_later_one_is_recorded(
+        tmp_path):
+    """townhouse-framing: the roof over units 11-12 is sheathed on day 16 (its [[events]]); a
+    sign-off of a wall whose release waits for it, on day 10, comes before it."""
+    path = copy_site("townhouse-framing", tmp_path)
+    app = BracingApp(path)
+    data = app.site_file.data
+    mark = next(p["mark"] for p in data["panels"]
+                if "Roof sheathed, units 11-12" in p.get("release_after", []))
+    before = list(data["signoffs"])
+
+    async def steps(pilot):
+        await pilot.press("s")
+        await pilot.pause()
+        dialog = app.screen
+        dialog.query_one("#signoff-wall").value = mark
+        dialog.query_one("#signoff-day", Input).value = "10"
+        dialog.query_one("#signoff-by", Input).value = "A. Engineer, PE"
+        await pilot.press("enter")
+        await pilot.pause()
+        assert app.screen is dialog  # refused, with the reason
+        why = str(dialog.query_one("#signoff-error").render())
+        assert "Refused" in why and "Roof sheathed, units 11-12 (day 16)" in why
+        assert app.site_file.data["signoffs"] == before
+        dialog.query_one("#signoff-day", Input).value = "17"
+        dialog.query_one("#signoff-by", Input).focus()
+        await pilot.press("enter")
+        await settle(pilot)
+        assert app.screen is not dialog
+        assert app.site_file.data["signoffs"][-1] == {"panel": mark, "day": 17,
+                                                      "by": "A. Engineer, PE"}
+        await pilot.press("ctrl+z")
+        await settle(pilot)
+        assert app.site_file.data["signoffs"] == before
+
+    async def main():
+        async with app.run_test(size=(120, 40)) as pilot:
+            await pilot.pause()
+            await steps(pilot)
+    asyncio.run(main())

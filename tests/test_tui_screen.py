@@ -1,0 +1,154 @@
+"""What the screen shows is the selected wall's and the engine's, whatever was on screen before:
+the fixed fields follow the wall, Esc puts back the file's value, keys typed while a view is
+being built reach the field, text from the site file is never read as markup, a wall that fails
+(a danger finding too) never shows a pass mark, and the essentials fit at 80 x 24.
+
+Checked against the result object and the site file, never against numbers of our own.
+"""
+
+from __future__ import annotations
+
+import asyncio
+import shutil
+from pathlib import Path
+
+from test_tui import SITE, cells
+from textual.widgets import Footer, Input, Static
+
+from bracing import scenario
+from tui import app as tui_app
+from tui.app import BracingApp
+from tui.fields import wall_fields
+
+SCENARIOS = Path(__file__).resolve().parents[1] / "scenarios"
+
+
+def drive(app: BracingApp, steps, size=(120, 40)) -> None:
+    async def main():
+        async with app.run_test(size=size) as pilot:
+            await pilot.pause()
+            await steps(pilot)
+    asyncio.run(main())
+
+
+def screen_text(app: BracingApp) -> str:
+    """Every line the terminal shows, as plain text."""
+    return "\n".join("".join(seg.text for seg in strip)
+                     for strip in app.screen._compositor.render_strips())
+
+
+def copy_site(name: str, folder: Path) -> Path:
+    """A demo site and its forecast file copied to `folder`."""
+    for source in SCENARIOS.glob(f"{name}*"):
+        shutil.copy(source, folder / source.name)
+    return folder / f"{name}.toml"
+
+
+def test_the_mark_field_follows_three_walls_in_turn(tmp_path):
+    """Three walls with the same fields (the form is refilled, not rebuilt)."""
+    path = copy_site("townhouse-framing", tmp_path)
+    app = BracingApp(path)
+
+    def ids(mark):
+        return [s.field_id for s in wall_fields(app.site_file, mark)]
+
+    async def steps(pilot):
+        await pilot.press("2")
+        await pilot.pause()
+        first = app.mark
+        marks = [p.mark for p in app.site_file.site.panels
+                 if p.mark != first and ids(p.mark) == ids(first)][:3]
+        assert len(marks) == 3
+        for mark in marks:
+            app.mark = mark
+            await pilot.pause()
+        shown = app.query_one("#field-mark .field-fixed", Static).render()
+        assert str(shown) == marks[2]
+
+    drive(app, steps)
+
+
+def test_keys_typed_as_the_form_opens_reach_the_field_and_esc_puts_the_value_back(tmp_path):
+    path = tmp_path / "site.toml"
+    path.write_text(SITE, encoding="utf-8")
+    app = BracingApp(path)
+
+    async def steps(pilot):
+        await pilot.press("i", "5", "1")  # 5 and 1 would switch views if they missed the field
+        assert app.view == "wall"
+        box = app.focused
+        assert isinstance(box, Input)
+        stored = app.site_file.data["panels"][0]["height"]
+        assert box.value == f"{stored}51"
+        await pilot.press("escape")
+        await pilot.pause()
+        assert box.value == str(stored)
+        app.mark = app.site_file.site.panels[1].mark  # another wall: its own value shows
+        await pilot.pause()
+        assert box.value == str(app.site_file.data["panels"][1]["height"])
+
+    drive(app, steps)
+
+
+def test_a_mark_written_like_markup_is_shown_as_written(tmp_path):
+    path = tmp_path / "site.toml"
+    path.write_text(SITE.replace('mark = "P-1"', 'mark = "P[/]1"'), encoding="utf-8")
+    app = BracingApp(path)
+
+    async def steps(pilot):
+        assert "P[/]1" in [r[0] for r in cells(app, "#walls-table")]
+        app.mark = "P[/]1"
+        await pilot.press("2")
+        await pilot.pause()
+        assert str(app.query_one("#field-mark .field-fixed", Static).render()) == "P[/]1"
+
+    drive(app, steps)
+
+
+def test_a_wall_with_a_danger_finding_shows_no_pass_mark(tmp_path):
+    """townhouse-framing's L2-R12: braced, but its sign-off comes before its roof event (a
+    danger finding); PanelResult.fails is the one test."""
+    path = copy_site("townhouse-framing", tmp_path)
+    result = tui_app.compute(scenario.load(path))
+    failing = {p.mark for p in result.panels if p.fails}
+    assert "L2-R12" in failing and result.panel("L2-R12").status == "braced"
+    app = BracingApp(path, result=result)
+
+    async def steps(pilot):
+        for row in cells(app, "#walls-table"):
+            if row[0] in failing:
+                assert "✓" not in row[1] and row[3] == "✗ FAILS", row
+
+    drive(app, steps)
+
+
+def test_at_80_by_24_the_quit_key_the_caution_and_the_verdict_are_on_screen(tmp_path):
+    path = copy_site("townhouse-framing", tmp_path)
+    app = BracingApp(path)
+
+    async def steps(pilot):
+        text = screen_text(app)
+        assert "⚠ " in text.splitlines()[0]
+        assert "Quit" in text.splitlines()[-1]
+        header = next(line for line in text.splitlines() if "Wall" in line and "Status" in line)
+        for column in ("Stand-down", "Verdict"):
+            assert column in header
+        assert "FAILS" in text
+        assert app.query_one(Footer)
+
+    drive(app, steps, size=(80, 24))
+
+
+def test_the_settings_labels_are_whole_words(tmp_path):
+    path = tmp_path / "site.toml"
+    path.write_text(SITE + "\n[rules.minimum_braces_per_panel]\nvalue = 3\nsource = \"test\"\n"
+                    "basis = \"test\"\n", encoding="utf-8")
+    app = BracingApp(path)
+
+    async def steps(pilot):
+        await pilot.press("5")
+        await pilot.pause()
+        text = screen_text(app)
+        assert "Minimum braces per panel" in text and "per3" not in text
+
+    drive(app, steps)
