@@ -2,10 +2,9 @@
 is taken as unchanged: from memory). The coefficients are allowable values."""
 
 import pytest
+from braced_foot import foot_capacities
 
-from bracing import braced
 from bracing.anchors import COHESION_IBC_1806_2_PSF, FRICTION_IBC_1806_2, deadman_sliding
-from bracing.model import Site
 
 
 def test_friction_coefficients():
@@ -32,25 +31,10 @@ def test_allowable_values_take_no_extra_factor_of_safety():
     assert sliding == pytest.approx(2100.0)
 
 
-def _foot(anchor: dict):
-    """The engine's capacities of a brace foot on `anchor` (one braced wall)."""
-    site = Site.model_validate({
-        "site": {"name": "t", "basic_wind_speed": 115.0},
-        "materials": {"tilt": {"kind": "concrete", "unit_weight": 150.0}},
-        "brace_types": {"b": {"kind": "rated", "lengths": [1.0, 100.0],
-                              "loads": [9000.0, 9000.0], "tension_capacity": 9000.0}},
-        "anchor_types": {"a": anchor},
-        "panels": [{"mark": "P", "material": "tilt", "width": 20.0, "height": 24.0,
-                    "thickness": 7.25, "bracing": {"brace_type": "b", "foot_anchor": "a",
-                                                   "count": 2, "insert_height": 16.0,
-                                                   "angle": 55.0}}]})
-    return braced.gather_braces(site, "ASD")
-
-
 @pytest.mark.parametrize(("soil", "expected"), [("sandy_gravel", 0.35), ("silty_sand", 0.25),
                                                 ("sedimentary_rock", 0.35)])
 def test_the_engine_reads_a_deadmans_friction_from_the_table(soil, expected):
     # IBC Table 1806.2 (text): sandy gravel 0.35, silty sand 0.25, sedimentary rock 0.35;
     # allowable values, used with 0.6D and no further factor of safety
-    bs = _foot({"kind": "deadman", "weight": 8000.0, "soil": soil})
+    bs = foot_capacities({"kind": "deadman", "weight": 8000.0, "soil": soil})
     assert bs.foot_mu[0] == pytest.approx(expected)

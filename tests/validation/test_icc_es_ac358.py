@@ -1,10 +1,9 @@
 """Helical anchors by torque correlation, ICC-ES AC358 (secondary): Q_u = K_t T, FS 2."""
 
 import pytest
+from braced_foot import foot_capacities
 
-from bracing import braced
 from bracing.anchors import KT_AC358_PER_FT, helical_capacity, required_torque
-from bracing.model import Site
 
 
 def test_ultimate_from_torque():
@@ -28,21 +27,6 @@ def test_kt_values():
     assert KT_AC358_PER_FT == {"1.5in_square": 10.0, "2.875in_round": 9.0, "3.5in_round": 7.0}
 
 
-def _foot(anchor: dict):
-    """The engine's capacities of a brace foot on `anchor` (one braced wall)."""
-    site = Site.model_validate({
-        "site": {"name": "t", "basic_wind_speed": 115.0},
-        "materials": {"tilt": {"kind": "concrete", "unit_weight": 150.0}},
-        "brace_types": {"b": {"kind": "rated", "lengths": [1.0, 100.0],
-                              "loads": [9000.0, 9000.0], "tension_capacity": 9000.0}},
-        "anchor_types": {"a": anchor},
-        "panels": [{"mark": "P", "material": "tilt", "width": 20.0, "height": 24.0,
-                    "thickness": 7.25, "bracing": {"brace_type": "b", "foot_anchor": "a",
-                                                   "count": 2, "insert_height": 16.0,
-                                                   "angle": 55.0}}]})
-    return braced.gather_braces(site, "ASD")
-
-
 @pytest.mark.parametrize(("shaft", "expected"), [(None, 10_000.0), ("2.875in_round", 9_000.0),
                                                  ("3.5in_round", 7_000.0)])
 def test_the_engine_reads_kt_by_shaft(shaft, expected):
@@ -52,6 +36,6 @@ def test_the_engine_reads_kt_by_shaft(shaft, expected):
     anchor = {"kind": "helical", "installation_torque": 2000.0}
     if shaft:
         anchor["shaft"] = shaft
-    bs = _foot(anchor)
+    bs = foot_capacities(anchor)
     assert bs.foot_tension[0] == pytest.approx(expected)
     assert bs.torque_safety[0] == 2.0  # ICC-ES AC358 factor of safety 2 (secondary)

@@ -2,10 +2,9 @@
 end of each published range is kept, to be divided by a factor of safety."""
 
 import pytest
+from braced_foot import foot_capacities
 
-from bracing import braced
 from bracing.anchors import FRICTION_NAVFAC_DM7_02, SLIDING_FS_ULTIMATE
-from bracing.model import Site
 
 
 def test_ultimate_friction_lower_bounds():
@@ -21,32 +20,18 @@ def test_factor_of_safety():
     assert SLIDING_FS_ULTIMATE == 1.5
 
 
-def _foot(anchor: dict):
-    """The engine's capacities of a brace foot on `anchor` (one braced wall)."""
-    site = Site.model_validate({
-        "site": {"name": "t", "basic_wind_speed": 115.0},
-        "materials": {"tilt": {"kind": "concrete", "unit_weight": 150.0}},
-        "brace_types": {"b": {"kind": "rated", "lengths": [1.0, 100.0],
-                              "loads": [9000.0, 9000.0], "tension_capacity": 9000.0}},
-        "anchor_types": {"a": anchor},
-        "panels": [{"mark": "P", "material": "tilt", "width": 20.0, "height": 24.0,
-                    "thickness": 7.25, "bracing": {"brace_type": "b", "foot_anchor": "a",
-                                                   "count": 2, "insert_height": 16.0,
-                                                   "angle": 55.0}}]})
-    return braced.gather_braces(site, "ASD")
-
-
 @pytest.mark.parametrize(("soil", "expected"), [("sandy_gravel", 0.55 / 1.5),
                                                 ("medium_sand", 0.45 / 1.5),
                                                 ("stiff_clay", 0.30 / 1.5)])
 def test_the_engine_reads_a_deadmans_ultimate_friction_over_its_factor_of_safety(soil, expected):
     # NAVFAC DM-7.02 Table 1 (from memory): gravel 0.55, medium sand 0.45, stiff clay 0.30,
     # ultimate: over the factor of safety 1.5 (from memory): 0.367, 0.300, 0.200
-    bs = _foot({"kind": "deadman", "weight": 8000.0, "soil": soil, "soil_table": "NAVFAC"})
+    bs = foot_capacities({"kind": "deadman", "weight": 8000.0, "soil": soil,
+                          "soil_table": "NAVFAC"})
     assert bs.foot_mu[0] == pytest.approx(expected)
 
 
 def test_a_block_on_the_slab_takes_concrete_on_concrete_friction_over_the_factor_of_safety():
     # ACI 318-19 Table 22.9.4.2: mu 0.6 concrete on hardened concrete (from memory), a nominal
     # value: over the factor of safety 1.5 (NAVFAC DM-7.02, from memory): 0.6 / 1.5 = 0.4
-    assert _foot({"kind": "deadman", "weight": 8000.0}).foot_mu[0] == pytest.approx(0.4)
+    assert foot_capacities({"kind": "deadman", "weight": 8000.0}).foot_mu[0] == pytest.approx(0.4)
