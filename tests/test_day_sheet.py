@@ -317,7 +317,7 @@ def test_masonry_zones_use_the_regulations_term(sites):
     assert walls and set(walls) == {"limited access zone"}  # every wall on the sheet is masonry
 
 
-# --- the drawings on the crew sheet ----------------------------------------------------------------
+# --- the drawings on the crew sheet ---------------------------------------------------------------
 @pytest.mark.parametrize("name, day", [("townhouse-framing", 2), ("tilt-up-warehouse", 5)])
 def test_crew_sheet_carries_the_overview_a_detail_per_line_and_an_elevation_per_lift(
         sites, name, day):
