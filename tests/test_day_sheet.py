@@ -188,12 +188,13 @@ def test_check_says_the_rule_once_not_on_each_day(sites):
 
 # --- every output -----------------------------------------------------------------------------
 def outputs(site, result, units):
-    """Every output of a site in `units`: check text, the schedule's text, CSV and HTML (its
-    own text: the plan drawings are drawn elsewhere), and the JSON (US by contract)."""
+    """Every output of a site in `units`: check text, the schedule's text, CSV and HTML with the
+    drawings embedded in it (overview, detail plans, elevations, sections: their words and
+    scales), and the JSON (US by contract)."""
     yield "check", text.site_text(result, units)
     for form in ("text", "csv"):
         yield form, sheet.render(site, result, None, form, units)
-    yield "html", SVG.sub("", sheet.render(site, result, None, "html", units))
+    yield "html", sheet.render(site, result, None, "html", units)
 
 
 def test_si_outputs_hold_no_us_unit(sites):
@@ -203,6 +204,26 @@ def test_si_outputs_hold_no_us_unit(sites):
         for form, out in outputs(site, result, "si"):
             hit = US_UNITS.search(out)
             assert hit is None, (name, form, out[max(0, hit.start() - 80):hit.end() + 20])
+
+
+def test_si_drawings_hold_no_us_unit(sites):
+    """The drawings themselves with units='si' (as the crew sheet embeds them, and as any other
+    caller gets them): no mph, ft, lb or psf in their words; the plans' scale as a ratio, e.g.
+    1 in = 20 ft is 1:240 (20 ft x 12 in/ft; exact), 1 cm = 2.4 m. US by default."""
+    for name, (_, result) in sites.items():
+        days = [d.day for d in result.days] or [None]
+        for day in days:
+            drawn = [svg.overview_svg(result, day, units="si")]
+            drawn += [s for _, s in svg.detail_svgs(result, day, units="si")]
+            drawn += list(svg.elevation_svgs(result, day, units="si").values())
+            drawn += [svg.section_svg(p, units="si") for p in result.panels if p.braces]
+            for out in drawn:
+                words = " ".join(re.findall(r">([^<>]+)<", out))
+                hit = US_UNITS.search(words)
+                assert hit is None, (name, day, words[max(0, hit.start() - 80):hit.end() + 20])
+            if svg.pick_plan(result.plan, day) is not None:
+                assert re.search(r"Scale 1:\d+ \(1 cm = [\d.]+ m\)", drawn[0]), name
+                assert "Scale 1 in = " in svg.overview_svg(result, day)  # US by default
 
 
 def test_si_precision():
@@ -294,3 +315,29 @@ def test_masonry_zones_use_the_regulations_term(sites):
     out = sheet.render(site, result, d.day, "text", "us")
     walls = re.findall(r"; (limited access zone|zone) [\d.]+ ft braced side", " ".join(out.split()))
     assert walls and set(walls) == {"limited access zone"}  # every wall on the sheet is masonry
+
+
+# --- the drawings on the crew sheet ---------------------------------------------------------------
+@pytest.mark.parametrize("name, day", [("townhouse-framing", 2), ("tilt-up-warehouse", 5)])
+def test_crew_sheet_carries_the_overview_a_detail_per_line_and_an_elevation_per_lift(
+        sites, name, day):
+    """The HTML crew sheet of a day holds the drawings themselves (issue 11): the overview of
+    the site, one detail plan per wall line standing that day (every line with a standing wall
+    appears among the details), each at full sheet width, and the elevation of each braced wall
+    lifted that day under its brace table. No placeholder is left."""
+    site, result = sites[name]
+    html = sheet.render(site, result, day, "html", "us")
+    overview = re.findall(r'<figure class="plan overview">\s*<svg', html)
+    assert len(overview) == 1 and f"Site plan, day {day}:" in html
+    g = svg.pick_plan(result.plan, day)
+    lines_standing = {p.line for p in g.panels if p.standing}
+    shown = re.findall(r'<figure class="plan detail" data-line="([^"]+)">\s*<svg', html)
+    assert set(shown) == lines_standing and len(shown) == len(g.details())
+    assert len(re.findall(r">Detail \d+ of \d+, day", html)) == len(shown)
+    d = by_day(result, day)
+    braced = {p.mark for p in result.panels if p.braces}
+    lifted = [m for m in d.lifts if m in braced]
+    drawn = re.findall(r'<div class="elevation" data-mark="([^"]+)">\s*<figure class="elevation">'
+                       r'\s*<svg', html)
+    assert sorted(drawn) == sorted(set(lifted)) and drawn
+    assert "drawings' place" not in html

@@ -97,7 +97,9 @@ class Page:
     unbraced: list[Row]
     inventory: list[tuple[str, str, str, str, str]]  # kind, type, in use, on hand, short
     rules: list[tuple[str, str, str, str]]  # name, value, source, basis
-    plan_svg: Markup | None = None
+    overview_svg: Markup | None = None  # the whole site that day
+    details: list[tuple[str, Markup]] = field(default_factory=list)  # (wall line, plan)
+    elevations: dict[str, Markup] = field(default_factory=dict)  # today's lifts, by mark
     sections: list[tuple[str, Markup]] = field(default_factory=list)
 
 
@@ -146,7 +148,7 @@ def build_pages(site: Site, result: SiteResult, day: int | None, units: str,
 
     def drawn_section(p: PanelResult) -> Markup:  # drawn once per wall, shown every day
         if p.mark not in sections:
-            sections[p.mark] = _inline(svg.section_svg(p))
+            sections[p.mark] = _inline(svg.section_svg(p, units=units))
         return sections[p.mark]
 
     pages = []
@@ -168,7 +170,13 @@ def build_pages(site: Site, result: SiteResult, day: int | None, units: str,
             unbraced=[r for r in rows if not r.braced], inventory=_inventory(site, d),
             rules=_rules(site, walls))
         if svg is not None:
-            page.plan_svg = _inline(svg.plan_svg(result, d.day or None))
+            page.overview_svg = _inline(svg.overview_svg(result, d.day or None, units=units))
+            page.details = [(detail.line, _inline(drawing)) for detail, drawing
+                            in svg.detail_svgs(result, d.day or None, units=units)]
+            lifted = {r.mark for r in page.lifted}
+            page.elevations = {m: _inline(drawing) for m, drawing
+                               in svg.elevation_svgs(result, d.day or None, units=units).items()
+                               if m in lifted}
             page.sections = [(p.mark, drawn_section(p)) for p in walls if p.braces]
         pages.append(page)
     return pages

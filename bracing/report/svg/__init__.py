@@ -103,6 +103,7 @@ from bracing.report.svg.style import (
     caution_box,
     hatch_defs,
     lines_block,
+    localized,
     mm_document,
     num,
     text_width,
@@ -189,7 +190,8 @@ def _day_words(g) -> str:
     return f"day {g.day}" if g.day is not None else "all walls placed"
 
 
-def _overview_sheet(result, g, key: str) -> tuple[list[str], list[str], float]:
+def _overview_sheet(result, g, key: str, units: str = "us"
+                    ) -> tuple[list[str], list[str], float]:
     """The overview sheet, on one page (`PAGE_MM` tall at most: the plan frame takes the room
     the texts leave, no more than `OVERVIEW_MAX_H_MM`; when the findings leave too little, the
     fewest are listed and the rest counted): (defs, items, height in mm)."""
@@ -222,7 +224,7 @@ def _overview_sheet(result, g, key: str) -> tuple[list[str], list[str], float]:
     room = max(PAGE_MM - (y + 1.5) - tail(0.0, most)[1], LEAST_PLAN_MM)
     fr = Frame(frame_window(g.bounds, 0.04 * max(g.bounds[2] - g.bounds[0],
                                                  g.bounds[3] - g.bounds[1], 10.0)),
-               y + 1.5, min(OVERVIEW_MAX_H_MM, room), key)
+               y + 1.5, min(OVERVIEW_MAX_H_MM, room), key, units)
     widths = [p.width_ft for p in g.panels if p.standing]
     one_by_one = bool(widths) and min(widths) * fr.k >= 1.3 * max(
         text_width(m, MARK_MM, True) for m in standing)
@@ -238,8 +240,8 @@ def _overview_sheet(result, g, key: str) -> tuple[list[str], list[str], float]:
     return frame_defs(fr) + hatch_defs(key + "L", 1.2, 0.25), items + more, y
 
 
-def _detail_sheet(result, g, d, number: tuple[int, int], key: str, *, standalone: bool
-                  ) -> tuple[list[str], list[str], float]:
+def _detail_sheet(result, g, d, number: tuple[int, int], key: str, *, standalone: bool,
+                  units: str = "us") -> tuple[list[str], list[str], float]:
     """One detail plan sheet, detail `number` = (i, of n): (defs, items, height in mm)."""
     i, n = number
     numbered = number_findings(g.findings)
@@ -248,7 +250,7 @@ def _detail_sheet(result, g, d, number: tuple[int, int], key: str, *, standalone
     items, y = lines_block([
         (f"Detail {i} of {n}, {_day_words(g)}: {d.line}{stretch}, walls {walls}", TITLE_MM,
          "bold", "#000")], PAD_MM)
-    fr = Frame(frame_window(d.bounds, 6.0), y + 1.5, DETAIL_MAX_H_MM, key)
+    fr = Frame(frame_window(d.bounds, 6.0), y + 1.5, DETAIL_MAX_H_MM, key, units)
     labels, placed = _labels(g, fr, numbered, _marks_in(g, fr), status_of(result),
                              own=set(d.marks))
     items += plan_layers(g, fr, numbered) + labels
@@ -289,24 +291,27 @@ def _key(g, what: str) -> str:
     return f"{what}{g.day if g.day is not None else 'all'}"
 
 
-def overview_svg(result, day: int | None = None) -> str:
+def overview_svg(result, day: int | None = None, *, units: str = "us") -> str:
     """The whole site on one letter-width sheet (`SHEET_MM` wide, mm units): title, the
     caution, the plan at a standard scale with each wall line named (or each wall where there is
     room), the legend, the zones summarized by rule and the numbered findings. `day`: the day
-    (None: the busiest). A sheet saying so when the result has no plan."""
+    (None: the busiest). A sheet saying so when the result has no plan. `units`: 'us' or 'si'
+    (the words and the scale; the drawing stays in ft inside)."""
     g = pick_plan(getattr(result, "plan", None), day)
     if g is None:
         return _no_plan_svg(result)
-    defs, items, h = _overview_sheet(result, g, _key(g, "ov"))
-    return mm_document(defs, items, h, getattr(result, "caution", ""))
+    defs, items, h = _overview_sheet(result, g, _key(g, "ov"), units)
+    return localized(mm_document(defs, items, h, getattr(result, "caution", "")), units)
 
 
-def detail_svgs(result, day: int | None = None, standalone: bool = False) -> list[tuple]:
+def detail_svgs(result, day: int | None = None, standalone: bool = False, *,
+                units: str = "us") -> list[tuple]:
     """The detail plans of a day, one per wall line standing (a long line in stretches of at most
     `plan.DETAIL_LONGEST_FT`), each `SHEET_MM` wide in mm, at a standard scale at which marks,
     braces, anchors and zones stand apart: a list of (`bracing.plan.Detail`, SVG text). Each
     names its walls, lists the findings inside it and, with `standalone`, carries the caution
-    (a crew sheet that shows the caution on the page need not repeat it)."""
+    (a crew sheet that shows the caution on the page need not repeat it). `units`: 'us' or 'si'
+    (the words and the scale; the drawing stays in ft inside)."""
     g = pick_plan(getattr(result, "plan", None), day)
     if g is None:
         return []
@@ -314,8 +319,9 @@ def detail_svgs(result, day: int | None = None, standalone: bool = False) -> lis
     out = []
     for i, d in enumerate(details, 1):
         defs, items, h = _detail_sheet(result, g, d, (i, len(details)), _key(g, f"dt{i}-"),
-                                       standalone=standalone)
-        out.append((d, mm_document(defs, items, h, getattr(result, "caution", ""))))
+                                       standalone=standalone, units=units)
+        out.append((d, localized(mm_document(defs, items, h, getattr(result, "caution", "")),
+                                 units)))
     return out
 
 

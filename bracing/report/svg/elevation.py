@@ -15,6 +15,7 @@ from bracing.report.svg.style import (
     LEAST_TEXT_MM,
     TEXT_MM,
     lines_block,
+    localized,
     num,
     text,
     text_width,
@@ -23,10 +24,12 @@ from bracing.results import CAUTION
 
 
 # --- a wall in elevation --------------------------------------------------------------------------
-def elevation_svgs(result, day: int | None = None, standalone: bool = False) -> dict[str, str]:
+def elevation_svgs(result, day: int | None = None, standalone: bool = False, *,
+                   units: str = "us") -> dict[str, str]:
     """The elevation (`elevation_svg`) of every braced wall standing on a day, by mark: in the
     plan's order, from the day's plan (None: the busiest day's); a wall on no wall line, or a
-    site without a plan, from its result alone (measured from the panel's first edge)."""
+    site without a plan, from its result alone (measured from the panel's first edge).
+    `units`: 'us' or 'si' (the dimensions' words)."""
     g = pick_plan(getattr(result, "plan", None), day)
     placed = {p.mark: p for p in g.panels} if g is not None else {}
     if g is not None:
@@ -41,7 +44,7 @@ def elevation_svgs(result, day: int | None = None, standalone: bool = False) -> 
         p = by_mark.get(mark)
         if p is not None and p.braces:
             e = placed[mark].elevation if mark in placed else None
-            out[mark] = elevation_svg(p, e, standalone)
+            out[mark] = elevation_svg(p, e, standalone, units=units)
     return out
 
 
@@ -75,14 +78,16 @@ class _Sheet:
         return self.top + self.height_ft * self.k
 
 
-def elevation_svg(panel_result, elevation=None, standalone: bool = False) -> str:
+def elevation_svg(panel_result, elevation=None, standalone: bool = False, *,
+                  units: str = "us") -> str:
     """One wall seen square to its braced face (`ELEVATION_MM` wide, mm units): its outline, its
     openings, each brace's insert point with its distance from the named left edge (looking at
     the braced face; by the compass of the plan) and the insert height above the base.
 
     `elevation` is the wall's `bracing.plan.Elevation` (`PlanPanel.elevation` of the day's plan);
     None draws from the result alone, measuring from the panel's first edge. With `standalone`
-    the caution is printed under it."""
+    the caution is printed under it. `units`: 'us' or 'si' (the dimensions' words; the drawing
+    stays in ft inside)."""
     p = panel_result
     e = elevation if elevation is not None else _elevation_of_result(p)
     w, h, hb = e.width_ft, e.height_ft, e.insert_height_ft
@@ -120,7 +125,7 @@ def elevation_svg(panel_result, elevation=None, standalone: bool = False) -> str
         more, y = lines_block([(CAUTION, LEAST_TEXT_MM, "bold", "#000")], y + 1.0, 1.5,
                               ELEVATION_MM - 3.0)
         items += more
-    return _document(items, y + 2.0)
+    return localized(_document(items, y + 2.0), units)
 
 
 def _wall(e: Elevation, sheet: _Sheet, stacked: bool) -> list[str]:

@@ -64,7 +64,7 @@ def _scale_ft_per_in(window_w: float, window_h: float, width_mm: float, height_m
 class Frame:
     """A plan window (ft) drawn on the sheet at a scale: plan point -> sheet mm (y down)."""
 
-    def __init__(self, window, top_mm: float, max_h_mm: float, key: str):
+    def __init__(self, window, top_mm: float, max_h_mm: float, key: str, units: str = "us"):
         minx, miny, maxx, maxy = window
         self.ft_per_in = _scale_ft_per_in(maxx - minx, maxy - miny, SHEET_MM - 2 * PAD_MM,
                                           max_h_mm)
@@ -76,6 +76,7 @@ class Frame:
         self.width = SHEET_MM - 2 * PAD_MM
         self.height = (maxy - miny) * self.k
         self.key = key
+        self.units = units  # the scale's words: 'us' (1 in = N ft) or 'si' (1:N)
 
     def xy(self, x: float, y: float) -> tuple[float, float]:
         """A plan point (ft) on the sheet (mm, y down)."""
@@ -295,7 +296,7 @@ def north_and_scale(fr: Frame) -> list[str]:
                    f'width="{num(length / 4)}" height="{num(h)}" fill="{fill}" stroke="#000" '
                    f'stroke-width="0.2"/>')
     out.append(text(x0, y0 + 0.9 + 0.8 * LEAST_TEXT_MM, "0", LEAST_TEXT_MM, "middle"))
-    out.append(text(x0 + length, y0 + 0.9 + 0.8 * LEAST_TEXT_MM, f"{fr.ft_per_in:g} ft",
+    out.append(text(x0 + length, y0 + 0.9 + 0.8 * LEAST_TEXT_MM, _bar_words(fr),
                     LEAST_TEXT_MM, "middle"))
     out.append(text(x0 + length + 6.0, y0, _scale_words(fr), LEAST_TEXT_MM))
     x, y = fr.left + fr.width - 6.0, fr.top + fr.height + 8.0
@@ -305,10 +306,25 @@ def north_and_scale(fr: Frame) -> list[str]:
     return out
 
 
+def _bar_words(fr: Frame) -> str:
+    """What the scale bar's 1 in (25.4 mm) of paper measures on site, in the frame's units."""
+    if fr.units == "si":
+        return f"{fr.ft_per_in * FT_M:.2f} m"
+    return f"{fr.ft_per_in:g} ft"
+
+
 def _scale_words(fr: Frame) -> str:
-    """The frame's scale in words, with the paper it holds on."""
+    """The frame's scale in words, with the paper it holds on: '1 in = 20 ft' (US) or the same
+    scale as a ratio, '1:240 (1 cm = 2.4 m)' (SI; 1 in = 12 in, 1 ft = 0.3048 m exactly)."""
+    if fr.units == "si":
+        ratio = 12.0 * fr.ft_per_in
+        return (f"Scale 1:{ratio:g} (1 cm = {ratio / 100:g} m) printed {SHEET_MM:g} mm wide "
+                "(letter or A4 portrait)")
     return (f"Scale 1 in = {fr.ft_per_in:g} ft printed {SHEET_MM:g} mm wide "
             "(letter or A4 portrait)")
+
+
+FT_M = 0.3048  # m per ft, exact (international foot)
 
 
 def frame_window(bounds, margin_ft: float) -> tuple[float, float, float, float]:

@@ -4,13 +4,22 @@ from __future__ import annotations
 
 import math
 
-from bracing.report.svg.style import BRACE, SECTION_PX_WIDTH, WALL, num, px_document, text
+from bracing.report.svg.style import (
+    BRACE,
+    SECTION_PX_WIDTH,
+    WALL,
+    localized,
+    num,
+    px_document,
+    text,
+)
 
 
 # --- a wall's bracing section ---------------------------------------------------------------------
-def section_svg(panel_result) -> str:
+def section_svg(panel_result, *, units: str = "us") -> str:
     """A small section of one wall's bracing, drawn to scale from the result's values: wall
-    height and thickness, insert height, the brace, its foot distance, angle and length."""
+    height and thickness, insert height, the brace, its foot distance, angle and length.
+    `units`: 'us' or 'si' (the dimensions' words; the drawing stays in ft inside)."""
     p = panel_result
     b = p.braces or {}
     height, t = p.height_ft, p.thickness_in / 12.0
@@ -62,8 +71,8 @@ def section_svg(panel_result) -> str:
         count = b.get("count")
         if count:
             items.append(text(left + 0.3 * fs, top + 2.7 * fs, f"{count} braces", 0.9 * fs))
-    return px_document((left, top, right - left, bottom - top), [], items, "",
-                       px_width=SECTION_PX_WIDTH)
+    return localized(px_document((left, top, right - left, bottom - top), [], items, "",
+                                 px_width=SECTION_PX_WIDTH), units)
 
 
 def _dimension_v(x: float, y0: float, y1: float, words: str, fs: float, u: float) -> list[str]:

@@ -4,6 +4,7 @@ SVG documents themselves."""
 
 from __future__ import annotations
 
+import re
 from xml.sax.saxutils import escape, quoteattr
 
 from bracing.anchor_kinds import KINDS as ANCHOR_KINDS
@@ -79,9 +80,9 @@ def text_width(words: str, size: float, bold: bool = False) -> float:
 
 def wrap(words: str, size: float, width: float, bold: bool = False) -> list[str]:
     """`words` broken into lines no wider than `width` (`text_width`); a word longer than a
-    line stands on its own."""
+    line stands on its own; a number stays with its unit (so that `localized` finds both)."""
     lines: list[str] = []
-    for word in str(words).split():
+    for word in (w.replace("\0", " ") for w in _NUMBER_UNIT.sub("\\1\0", str(words)).split()):
         if lines and text_width(f"{lines[-1]} {word}", size, bold) <= width:
             lines[-1] = f"{lines[-1]} {word}"
         else:
@@ -190,3 +191,18 @@ def px_document(view: tuple[float, float, float, float], defs: list[str], items:
         *items, "</svg>", ""])
 
 
+
+
+_TEXT_NODE = re.compile(r">([^<>]+)<")
+_NUMBER_UNIT = re.compile(r"(\d) (?=(?:mph|ft|ft²|lbf?|lbs|psf|pcf|plf|psi|kips?|in)\b)")
+
+
+def localized(svg_text: str, units: str) -> str:
+    """A drawing's words in the chosen unit system: every text node through the text views'
+    one formatter (`bracing.report.text.localize`); the geometry (attributes) is untouched and
+    stays in ft inside. Unchanged for 'us'."""
+    if units != "si":
+        return svg_text
+    from bracing.report.text import localize  # the views' formatter (no import cycle at load)
+
+    return _TEXT_NODE.sub(lambda m: ">" + localize(m.group(1), units) + "<", svg_text)
