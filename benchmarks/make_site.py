@@ -63,7 +63,7 @@ loads = ["10800 lb", "9900 lb", "8900 lb", "7800 lb", "6600 lb", "5200 lb"]
 tension_capacity = "9000 lb"
 end_connection = "10000 lb"
 
-[brace_types.mwb-28]
+[brace_types.masonry-wall-brace]
 kind = "rated"
 lengths = ["12 ft", "16 ft", "20 ft", "24 ft", "28 ft"]
 loads = ["5200 lb", "4500 lb", "3700 lb", "2900 lb", "2200 lb"]
@@ -130,7 +130,7 @@ kind = "connections"
 # material: (brace type, wall anchor, foot anchor, insert share of height, angle, braces)
 KINDS = {
     "tilt": ("adj-45", "coil-insert", "slab-loop", 0.75, 50.0, 4),
-    "cmu": ("mwb-28", "wall-plate", "helix", 0.75, 50.0, 4),
+    "cmu": ("masonry-wall-brace", "wall-plate", "helix", 0.75, 50.0, 4),
     "stud": ("lumber-2x4", None, "stake", 0.83, 45.0, 5),
 }
 
