@@ -3,7 +3,7 @@ deadmen are in `bracing.ground_anchors` and named here too.
 
 Pure functions over floats or numpy arrays. Forces in lb, lengths in in (anchors) or ft
 (deadmen), f'c in psi. ACI 318 gives nominal strengths and strength design (phi Nn); the
-team's ASD basis divides phi Nn by alpha = 1.0/0.6 (design.md §3: wind governs).
+team's ASD basis divides phi Nn by alpha = 1.0/0.6 (method notes §1: wind governs).
 Cracked concrete and normal-weight concrete (lambda_a = 1.0) by default; single anchors only.
 """
 
@@ -108,7 +108,7 @@ def _on_basis(phi_nominal, basis):
 def asd_from_strength(phi_Nn):
     """Allowable value from an ACI strength-design value: phi Nn / alpha, alpha = 1.0/0.6.
 
-    ACI 318-19 is strength design; the conversion is the team's ASD basis (design.md §3).
+    ACI 318-19 is strength design; the conversion is the team's ASD basis (method notes §1).
     """
     return (np.asarray(phi_Nn, dtype=float) * ASD_FROM_STRENGTH)[()]
 
