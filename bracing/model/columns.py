@@ -22,16 +22,19 @@ BRACING_FIELDS = ("count", "positions", "insert_height", "insert_offset", "foot_
                   "wall_anchor", "foot_anchor", "anchor_distance", "angle")
 
 
+def _columns(fields: tuple[str, ...], rows) -> dict[str, tuple]:
+    """Each of `fields` as a tuple over `rows` (one tuple of those fields per object)."""
+    columns = tuple(zip(*rows, strict=True))
+    return dict(zip(fields, columns, strict=True)) if columns else dict.fromkeys(fields, ())
+
+
 def read_panels(site: Site) -> dict[str, tuple]:
     """Each field of PANEL_FIELDS over all panels (a tuple in site order), and under "braced"
     the rows of the braced panels with each field of BRACING_FIELDS over them, in one pass
     each: a large site's objects lie far apart in memory, so every pass over them costs."""
-    columns = (dict(zip(PANEL_FIELDS, zip(*map(attrgetter(*PANEL_FIELDS), site.panels))))
-               if site.panels else dict.fromkeys(PANEL_FIELDS, ()))
+    columns = _columns(PANEL_FIELDS, map(attrgetter(*PANEL_FIELDS), site.panels))
     layouts = columns["bracing"]
     columns["braced"] = tuple(k for k, b in enumerate(layouts) if b is not None)
     read = attrgetter(*BRACING_FIELDS)
-    fields = zip(*(read(layouts[k]) for k in columns["braced"]))
-    columns.update(zip(BRACING_FIELDS, fields) if columns["braced"]
-                   else dict.fromkeys(BRACING_FIELDS, ()))
+    columns.update(_columns(BRACING_FIELDS, (read(layouts[k]) for k in columns["braced"])))
     return columns

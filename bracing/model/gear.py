@@ -3,6 +3,7 @@ options for walls with no bracing yet."""
 
 from __future__ import annotations
 
+from itertools import pairwise
 from typing import Literal
 
 from pydantic import Field, model_validator
@@ -37,7 +38,8 @@ class BraceType(Strict):
     section: str | None = Field(None, description="Pipe size, e.g. 'Pipe 3 STD'.")
     yield_strength: Stress = Field(35000.0, gt=0, description="Fy (psi); A53 Gr. B 35 ksi.")
     knee_brace: bool = Field(False, description="Knee brace at mid-length in the brace's plane.")
-    lateral_struts: int = Field(0, ge=0, le=BRACE_LIMIT, description="Out-of-plane struts along the brace.")
+    lateral_struts: int = Field(0, ge=0, le=BRACE_LIMIT,
+                                description="Out-of-plane struts along the brace.")
     # lumber
     size: str | None = Field(None, description="Nominal size, e.g. '4x4'.")
     species: str = Field("DF-L", description="NDS species group, e.g. 'DF-L', 'SPF'.")
@@ -55,40 +57,51 @@ class BraceType(Strict):
 
     @model_validator(mode="after")
     def _complete(self):
-        if self.compression_only and self.tension_capacity is not None:
-            raise ValueError("compression_only = true and a tension_capacity: give one or the "
-                             "other")
-        # Tension that cannot be computed must be stated (method notes §4): a rated or lumber
-        # brace's tension_capacity; a pipe's end connection (end_connection or
-        # tension_capacity). An unrated brace has no capacity either way (flagged as such).
-        if not self.compression_only:
-            if self.kind in ("rated", "lumber") and self.tension_capacity is None:
-                raise ValueError(f"field tension_capacity: a {self.kind} brace states its "
-                                 "allowable tension (tension_capacity, lb) or compression_only "
-                                 "= true")
-            if self.kind == "pipe" and self.tension_capacity is None \
-                    and self.end_connection is None:
-                raise ValueError("field end_connection: a pipe brace states the allowable load "
-                                 "of its end connections (end_connection or tension_capacity, "
-                                 "lb) or compression_only = true")
+        self._tension_stated()
         if self.kind == "rated":
-            if len(self.lengths) < 2 or len(self.lengths) != len(self.loads):
-                raise ValueError("a rated brace needs `lengths` and `loads` of equal length (2+)")
-            if any(b <= a for a, b in zip(self.lengths, self.lengths[1:])):
-                raise ValueError("rated table `lengths` must increase")
-            if self.lengths[0] <= 0:
-                raise ValueError("rated table `lengths` must be positive")
-            if any(x <= 0 for x in self.loads):
-                raise ValueError("rated table `loads` must be positive")
+            self._rated_table()
         if self.kind == "pipe" and self.section not in PIPES:
             raise ValueError(f"pipe `section` must be one of {', '.join(PIPES)}")
         if self.kind == "lumber":
-            if self.size not in DRESSED_SIZES_IN:
-                raise ValueError(f"lumber `size` must be one of {', '.join(DRESSED_SIZES_IN)}")
-            if not any(k[0] == self.species and k[1] == self.grade for k in LUMBER_GRADES):
-                known = sorted({f"{k[0]} {k[1]}" for k in LUMBER_GRADES})
-                raise ValueError(f"unknown lumber species/grade; known: {', '.join(known)}")
+            self._lumber_known()
         return self
+
+    def _tension_stated(self) -> None:
+        """Tension that cannot be computed must be stated (method notes §4): a rated or lumber
+        brace's tension_capacity; a pipe's end connection (end_connection or tension_capacity).
+        An unrated brace has no capacity either way (flagged as such)."""
+        if self.compression_only and self.tension_capacity is not None:
+            raise ValueError("compression_only = true and a tension_capacity: give one or the "
+                             "other")
+        if self.compression_only:
+            return
+        if self.kind in ("rated", "lumber") and self.tension_capacity is None:
+            raise ValueError(f"field tension_capacity: a {self.kind} brace states its "
+                             "allowable tension (tension_capacity, lb) or compression_only "
+                             "= true")
+        if self.kind == "pipe" and self.tension_capacity is None and self.end_connection is None:
+            raise ValueError("field end_connection: a pipe brace states the allowable load "
+                             "of its end connections (end_connection or tension_capacity, "
+                             "lb) or compression_only = true")
+
+    def _rated_table(self) -> None:
+        """The maker's table: two or more increasing positive lengths, a positive load each."""
+        if len(self.lengths) < 2 or len(self.lengths) != len(self.loads):
+            raise ValueError("a rated brace needs `lengths` and `loads` of equal length (2+)")
+        if any(b <= a for a, b in pairwise(self.lengths)):
+            raise ValueError("rated table `lengths` must increase")
+        if self.lengths[0] <= 0:
+            raise ValueError("rated table `lengths` must be positive")
+        if any(x <= 0 for x in self.loads):
+            raise ValueError("rated table `loads` must be positive")
+
+    def _lumber_known(self) -> None:
+        """A dressed size and a species and grade of the NDS tables the program holds."""
+        if self.size not in DRESSED_SIZES_IN:
+            raise ValueError(f"lumber `size` must be one of {', '.join(DRESSED_SIZES_IN)}")
+        if not any(k[0] == self.species and k[1] == self.grade for k in LUMBER_GRADES):
+            known = sorted({f"{k[0]} {k[1]}" for k in LUMBER_GRADES})
+            raise ValueError(f"unknown lumber species/grade; known: {', '.join(known)}")
 
 
 class AnchorType(Strict):
@@ -107,7 +120,7 @@ class AnchorType(Strict):
     steel_area: SectionArea | None = Field(None, gt=0, description="A_se,N (in^2).")
     steel_strength: Stress = Field(75000.0, gt=0, description="f_uta (psi).")
     pullout: Force | None = Field(None, gt=0, description="Nominal pullout N_p from the product "
-                                                            "report (lb); headed: from bearing area.")
+                                  "report (lb); headed: from bearing area.")
     bearing_area: SectionArea | None = Field(None, gt=0, description="Headed anchor A_brg (in^2).")
     slab_thickness: Thickness | None = Field(None, gt=0, description="h_a (in).")
     concrete_strength: Stress | None = Field(None, gt=0, description="Slab f'c on the day (psi).")

@@ -50,6 +50,9 @@ class Site(Strict):
     """A whole site file, validated. Keys and values use US spelling (an older British
     spelling of a value, such as area kind 'neighbour', is read as its US alias)."""
 
+    # The site file's sections, one field each. A new section: its class in the module of its
+    # topic (or a new module of bracing/model), imported above, one line here; a name it refers
+    # to is checked by a small function in references.CHECKS.
     version: int = Field(SCHEMA_VERSION, ge=1, description="Site file format version.")
     site: SiteInfo
     rules: dict[str, Rule] = Field(default_factory=dict)
