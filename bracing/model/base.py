@@ -14,7 +14,7 @@ from pydantic import BaseModel, BeforeValidator, ConfigDict, Field
 
 from bracing import units
 
-SCHEMA_VERSION = 1
+SCHEMA_VERSION = 1  # the site file's `version`: a newer file is refused (references)
 
 
 # Input limits (method notes §9). Every number that enters the engine is finite (pydantic's
@@ -146,7 +146,6 @@ class Strict(BaseModel):
 
     model_config = ConfigDict(extra="forbid", populate_by_name=True, allow_inf_nan=False,
                               json_schema_extra=lambda schema, _: _schema_bounds(schema))
-
 
 
 # A plan coordinate (ft), inside the length kind's range.
