@@ -19,14 +19,13 @@ from bracing.model import (
     Age,
     Angle,
     Length,
-    Positive,
     Pressure,
     SectionArea,
-    Strict,
+    Site,
     Stress,
+    Strict,
     Thickness,
     UnitWeight,
-    Site,
 )
 
 
@@ -234,39 +233,44 @@ def reference_problems(data: dict, lines: set, events: set, panel_marks: set
                              "has it already)", mark))
         elif isinstance(mark, str):
             by_mark[mark] = w
-        material = w.get("material")
-        if isinstance(material, str):
-            kind = (data["materials"].get(material) or {}).get("kind") \
-                if material in known["materials"] else None
-            if material not in known["materials"]:
-                problems.append((("foundation_walls", i, "material"),
-                                 f"{material!r} is not in [materials]", material))
-            elif kind not in ("concrete", "masonry"):
-                problems.append((("foundation_walls", i, "material"), "a foundation wall is "
-                                 "concrete or masonry", material))
-        line = w.get("line")
-        if isinstance(line, str) and line not in lines:
-            problems.append((("foundation_walls", i, "line"), f"{line!r} is not a [[lines]] name",
-                             line))
-        after = w.get("release_after")
-        for j, event in enumerate(after if isinstance(after, list) else []):
-            if isinstance(event, str) and event not in events:
-                problems.append((("foundation_walls", i, "release_after", j),
-                                 f"{event!r} is not an [[events]] name", event))
-        braces = w.get("inside_braces")
-        if isinstance(braces, dict):
-            for key, section in (("brace_type", "brace_types"), ("foot_anchor", "anchor_types")):
-                name = braces.get(key)
-                if isinstance(name, str) and name not in known[section]:
-                    problems.append((("foundation_walls", i, "inside_braces", key),
-                                     f"{name!r} is not in [{section}]", name))
-        if w.get("backfill") is None and data.get("backfill") is None:
-            problems.append((("foundation_walls", i, "backfill"), "no backfill given: add the "
-                             "site's [backfill] or this wall's own", None))
+        problems += _wall_problems(i, w, data, known, lines, events)
     events_ = data.get("backfill_events")
     for i, e in enumerate(events_ if isinstance(events_, list) else []):
         if isinstance(e, dict):
             problems += _event_problems(i, e, by_mark, lines)
+    return problems
+
+
+def _wall_problems(i: int, w: dict, data: dict, known: dict, lines: set, events: set) -> list:
+    """A foundation wall's names: material, line, events, brace and anchor types, backfill."""
+    problems = []
+    material = w.get("material")
+    if isinstance(material, str):
+        if material not in known["materials"]:
+            problems.append((("foundation_walls", i, "material"),
+                             f"{material!r} is not in [materials]", material))
+        elif (data["materials"].get(material) or {}).get("kind") not in ("concrete", "masonry"):
+            problems.append((("foundation_walls", i, "material"), "a foundation wall is "
+                             "concrete or masonry", material))
+    line = w.get("line")
+    if isinstance(line, str) and line not in lines:
+        problems.append((("foundation_walls", i, "line"), f"{line!r} is not a [[lines]] name",
+                         line))
+    after = w.get("release_after")
+    for j, event in enumerate(after if isinstance(after, list) else []):
+        if isinstance(event, str) and event not in events:
+            problems.append((("foundation_walls", i, "release_after", j),
+                             f"{event!r} is not an [[events]] name", event))
+    braces = w.get("inside_braces")
+    if isinstance(braces, dict):
+        for key, section in (("brace_type", "brace_types"), ("foot_anchor", "anchor_types")):
+            name = braces.get(key)
+            if isinstance(name, str) and name not in known[section]:
+                problems.append((("foundation_walls", i, "inside_braces", key),
+                                 f"{name!r} is not in [{section}]", name))
+    if w.get("backfill") is None and data.get("backfill") is None:
+        problems.append((("foundation_walls", i, "backfill"), "no backfill given: add the "
+                         "site's [backfill] or this wall's own", None))
     return problems
 
 
