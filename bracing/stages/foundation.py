@@ -300,26 +300,49 @@ def _top_support(site: Site, w) -> tuple[int | None, int | None]:
 
 
 class _Allowed:
-    """The allowed height of one wall, by surcharge and cure (worked once each)."""
+    """The allowed height of one wall, by surcharge and cure, and its stand-down gust by
+    backfill height (each worked once)."""
 
     def __init__(self, site, w, wind, support):
         self.site, self.w, self.wind, self.support = site, w, wind, support
         self.basis = site.site.design_basis
         self.seen: dict = {}
 
-    def __call__(self, surcharge: float, cured: bool) -> tuple[float, str]:
+    def limits(self, surcharge: float, cured: bool) -> tuple[float, float | None]:
+        """(the most it takes as a cantilever, with its inside braces or None)."""
         key = (surcharge, cured)
         if key not in self.seen:
             wall = engine_wall(self.site, self.w, cured)
             soil = soil_of(self.site, self.w, surcharge)
             alone = cantilever_max(wall, soil, self.wind, self.basis)
-            if self.support is not None and alone < wall.height:
-                propped = braced_max(wall, soil, self.wind, self.support)
-                self.seen[key] = (propped, "inside braces") if propped > alone else (
-                    alone, "cantilever")
-            else:
-                self.seen[key] = (alone, "cantilever")
+            propped = (braced_max(wall, soil, self.wind, self.support)
+                       if self.support is not None and alone < wall.height else None)
+            self.seen[key] = (alone, propped)
         return self.seen[key]
+
+    def __call__(self, surcharge: float, cured: bool) -> tuple[float, str]:
+        """The most it may take and how it is held: as a cantilever, or on its inside braces
+        where they take more."""
+        alone, propped = self.limits(surcharge, cured)
+        if propped is not None and propped > alone:
+            return propped, "inside braces"
+        return alone, "cantilever"
+
+    def stand_down(self, placed: float, surcharge: float, cured: bool) -> float | None:
+        """The stand-down gust (mph) of the cantilever under `placed` of backfill: the
+        stand-down ratio x its working limit (None: on its inside braces, or nothing
+        exposed)."""
+        ratio = self.site.rule_value("stand_down_ratio")
+        alone, propped = self.limits(surcharge, cured)
+        if ratio is None or (propped is not None and placed > alone + 1e-9):
+            return None
+        key = ("wind", placed, surcharge, cured)
+        if key not in self.seen:
+            self.seen[key] = working_limit(engine_wall(self.site, self.w, cured),
+                                           soil_of(self.site, self.w, surcharge), self.wind,
+                                           placed, self.basis)
+        limit = self.seen[key]
+        return None if limit is None else ratio * limit
 
 
 def _cured(site: Site, w, day: int) -> bool:
@@ -344,13 +367,15 @@ def wall_days(site: Site, w, allowed: _Allowed, last: int) -> list[BackfillDay]:
         placed = max((e.height for e in events if e.day <= d), default=0.0)
         surcharge = max([standing] + [e.surcharge for e in events
                                       if e.day == d and e.surcharge is not None])
+        stand_down = None
         if released is not None and d >= released:
             limit, support = w.height, "top support"
         else:
             limit, support = allowed(surcharge, _cured(site, w, d))
+            stand_down = allowed.stand_down(placed, surcharge, _cured(site, w, d))
         out.append(BackfillDay(day=d, planned_height_ft=placed, allowed_height_ft=limit,
                                surcharge_psf=surcharge, support=support,
-                               over=placed > limit + 1e-6))
+                               over=placed > limit + 1e-6, stand_down_speed_mph=stand_down))
     return out
 
 
@@ -482,3 +507,24 @@ def site_flags(walls: list[FoundationWallResult]) -> list[Flag]:
     named, its day given; the days carry every day of it)."""
     return [next(f for f in w.flags if f.code == "backfill-over-limit") for w in walls
             if any(d.over for d in w.days)]
+
+
+def windy_days(walls: list[FoundationWallResult], days) -> list:
+    """The days whose forecast gust (or a thunderstorm) reaches the stand-down gust of a
+    foundation wall standing as a cantilever that day: the wind part's stand-down (method notes
+    §12). Each such day gets `wind_go` False and a sentence naming the walls; returns them."""
+    changed = []
+    for d in days:
+        if d.forecast_gust_mph is None and not d.storm:
+            continue
+        low = [(x.stand_down_speed_mph, w.mark) for w in walls for x in w.days
+               if x.day == d.day and x.stand_down_speed_mph is not None
+               and (d.storm or d.forecast_gust_mph >= x.stand_down_speed_mph)]
+        if low:
+            names = ", ".join(f"{mark} ({speed:.0f} mph)" for speed, mark in sorted(low))
+            d.wind_go = False
+            d.wind = (d.wind + "; " if d.wind else "") + (
+                f"forecast reaches the stand-down gust of foundation wall(s) {names}, the wind "
+                "on the part above the backfill: no work beside them, clear their zones")
+            changed.append(d)
+    return changed
