@@ -67,7 +67,8 @@ class BackfillDay:
     support: str                     # "cantilever" | "inside braces" | "top support"
     over: bool                       # planned above allowed: a danger
     # the wind on the part above that day's backfill, standing as a cantilever (None: braced,
-    # top support, or nothing exposed); a forecast gust at or above it makes the day NO-GO
+    # top support, over its limit, or nothing exposed); a forecast gust at or above it makes
+    # the day NO-GO
     stand_down_speed_mph: float | None = None
 
 

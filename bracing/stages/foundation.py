@@ -372,7 +372,8 @@ def wall_days(site: Site, w, allowed: _Allowed, last: int) -> list[BackfillDay]:
             limit, support = w.height, "top support"
         else:
             limit, support = allowed(surcharge, _cured(site, w, d))
-            stand_down = allowed.stand_down(placed, surcharge, _cured(site, w, d))
+            if placed <= limit + 1e-6:  # over its limit, the danger speaks, not the wind
+                stand_down = allowed.stand_down(placed, surcharge, _cured(site, w, d))
         out.append(BackfillDay(day=d, planned_height_ft=placed, allowed_height_ft=limit,
                                surcharge_psf=surcharge, support=support,
                                over=placed > limit + 1e-6, stand_down_speed_mph=stand_down))
