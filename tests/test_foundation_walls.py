@@ -135,6 +135,14 @@ def test_the_wall_is_released_only_by_a_sign_off_after_the_floor(tmp_path):
     assert released.released_day == 10 and not any(d.over for d in released.days)
 
 
+def test_a_sign_off_before_the_floor_releases_nothing(tmp_path):
+    def edit(doc):
+        next(s for s in doc["signoffs"] if s["panel"] == "FW-S")["day"] = 8  # the deck: day 9
+    south = foundation.evaluate_foundation_walls(scenario.load(_edited(tmp_path, edit)).site)[0]
+    assert south.released_day is None and {d.day for d in south.days if d.over} >= {11, 12}
+    assert any(f.code == "backfill-signoff-before-floor" for f in south.flags)
+
+
 def test_earth_pressure_is_a_held_load_kind():
     kind = loads.KINDS["earth"]
     assert kind.symbol == "H" and not kind.scales_with_wind

@@ -11,7 +11,7 @@ records of `bracing.foundation_results` by keyword.
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 import numpy as np
 
@@ -338,22 +338,25 @@ class _Allowed:
             return None
         key = ("wind", placed, surcharge, cured)
         if key not in self.seen:
-            self.seen[key] = working_limit(engine_wall(self.site, self.w, cured),
-                                           soil_of(self.site, self.w, surcharge), self.wind,
-                                           placed, self.basis)
+            wall = engine_wall(self.site, self.w)
+            if not cured:  # fresh masonry stands by its weight alone (method notes §3)
+                wall = replace(wall, material="masonry", tension=0.0)
+            self.seen[key] = working_limit(wall, soil_of(self.site, self.w, surcharge),
+                                           self.wind, placed, self.basis)
         limit = self.seen[key]
         return None if limit is None else ratio * limit
 
 
 def _cured(site: Site, w, day: int) -> bool:
-    """Masonry mortar cured on `day`: its age given, or its build day long enough before;
-    concrete and a masonry wall with neither: True (the latter with a warning)."""
+    """Masonry mortar cured on `day` (the site's masonry_cure_days): its age counted from the
+    build day, else from its age on day 1; concrete, and masonry with neither: True (the
+    latter with a warning)."""
     if site.materials[w.material].kind != "masonry":
         return True
     cure = site.rule_value("masonry_cure_days") or DEFAULT_RULES["masonry_cure_days"].value
-    if w.mortar_age is not None:
-        return w.mortar_age + (day - (w.build_day or day)) >= cure
-    return w.build_day is None or day - w.build_day >= cure
+    if w.build_day is not None:
+        return day - w.build_day >= cure
+    return w.mortar_age is None or w.mortar_age + day - 1 >= cure
 
 
 def wall_days(site: Site, w, allowed: _Allowed, last: int) -> list[BackfillDay]:
@@ -486,6 +489,13 @@ def _flags(site: Site, w, wall: backfill.Wall, days: list[BackfillDay]) -> list[
         flags.append(Flag("backfill-mortar-age-not-given", "warning",
                           f"{w.mark}: mortar age and build day not given: taken as cured",
                           SOURCE))
+    event = _top_support(site, w)[0]
+    early = [s for s in site.signoffs if s.panel == w.mark and event is not None
+             and s.day < event]
+    flags += [Flag("backfill-signoff-before-floor", "warning",
+                   f"{w.mark}: sign-off by {s.by} on day {s.day} comes before its floor event "
+                   f"(day {event}): ignored, the wall stays a cantilever",
+                   "OSHA 29 CFR 1926.704(a)'s reading; " + SOURCE) for s in early]
     if not w.release_after:
         flags.append(Flag("backfill-no-top-support", "notice",
                           f"{w.mark}: no floor event named (release_after): checked as a "
