@@ -94,8 +94,12 @@ def with_wind(checks: list, wall: backfill.Wall, shear, moment, service: bool = 
     sections' 1.6H, 0.6W beside 1.0H (`service`: 1.0W, the observed gust)."""
     out = []
     for c in checks:
-        strength = "1.6H" in c.combination  # the strength sections and LRFD overturning
-        factor = 1.0 if service or strength else loads.COMBINATIONS["ASD"].wind
+        if service:
+            factor = loads.SERVICE.wind
+        elif c.combination in (backfill.STRENGTH[1], backfill.COMBINATION["LRFD"]):
+            factor = loads.COMBINATIONS["LRFD"].wind  # beside 1.6H: strength sections, LRFD
+        else:
+            factor = loads.COMBINATIONS["ASD"].wind
         if c.region.startswith("flexure"):
             extra = moment
         elif c.region.startswith("overturning"):
@@ -177,8 +181,8 @@ def braced(wall, soil, wind: Windward, height: float, s: Support) -> list:
     """The propped wall's checks (bracing.backfill.braced_checks), its brace carrying the wind
     above the backfill too (0.6W, moments about the base), and its foot anchor."""
     exposed = max(wall.height - height, 0.0)
-    _, w_moment = wind_effects(float(wind.pressure(exposed)) if exposed else 0.0, height,
-                                     exposed)
+    pressure = float(wind.pressure(exposed)) if exposed else 0.0
+    w_moment = wind_effects(pressure, height, exposed)[1]
     factor = loads.COMBINATIONS["ASD"].wind
     cos = math.cos(math.radians(s.spec.angle))
     extra = factor * float(w_moment) / s.spec.height * s.spec.spacing / cos
