@@ -26,7 +26,7 @@ from bracing.foundation_results import (
     PressurePoint,
 )
 from bracing.model import DEFAULT_RULES, Site
-from bracing.results import Check, Flag
+from bracing.results import Check, Flag, NotChecked
 from bracing.stages import loads
 from bracing.stages.brace_set import _brace_capacity
 from bracing.wind import asce7, asce37
@@ -543,3 +543,21 @@ def windy_days(walls: list[FoundationWallResult], days) -> list:
                 "on the part above the backfill: no work beside them, clear their zones")
             changed.append(d)
     return changed
+
+
+def not_checked(site: Site) -> list[NotChecked]:
+    """What the foundation walls' checks leave out (method notes §12), with the walls."""
+    walls = [w.mark for w in site.foundation_walls]
+    braced_walls = [w.mark for w in site.foundation_walls if w.inside_braces is not None]
+    items = [NotChecked(
+        item="foundation walls: the wall-to-footing joint and the footing's bearing",
+        reason="the wall is taken as a cantilever fixed in its footing (dowels, key) and the "
+               "soil's bearing under the footing is not checked; after its release the wall "
+               "held top and bottom is the permanent design's", source=SOURCE, walls=walls)]
+    if braced_walls:
+        items.append(NotChecked(
+            item="inside braces of foundation walls",
+            reason="their count is not compared with the brace and anchor types' on_hand, and "
+                   "the propped wall's span under the wind above the brace is not checked",
+            source=SOURCE, walls=braced_walls))
+    return items if walls else []
