@@ -6,6 +6,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, field
 
+from bracing.model import foundation
 from bracing.model.base import SCHEMA_VERSION
 from bracing.model.rules import DEFAULT_RULES, RULE_RANGES
 
@@ -110,9 +111,14 @@ def _signed_off_panels(data: dict, known: Known) -> list[Problem]:
     problems = []
     for i, s in enumerate(_entries(data, "signoffs")):
         mark = s.get("panel") if isinstance(s, dict) else None
-        if isinstance(mark, str) and mark not in known.marks:
+        if isinstance(mark, str) and mark not in known.marks.keys() | foundation.marks(data):
             problems.append((("signoffs", i, "panel"), f"{mark!r} is not a panel mark", mark))
     return problems
+
+
+def _foundation_walls(data: dict, known: Known) -> list[Problem]:
+    """The foundation walls' names, lines, events and days (bracing.model.foundation)."""
+    return foundation.reference_problems(data, known.lines, known.events, set(known.marks))
 
 
 def _version(data: dict, known: Known) -> list[Problem]:
@@ -185,7 +191,7 @@ def _release_after(i: int, p: dict, known: Known) -> list[Problem]:
 # function added here (a check that reads names runs after the one that keeps them).
 PANEL_CHECKS = (_material, _hardware, _mark, _line, _release_after)
 CHECKS = (_rule_ranges, _unknown_rules, _line_names, _event_names, _panels, _signed_off_panels,
-          _version)
+          _foundation_walls, _version)
 
 
 def reference_problems(data) -> list[Problem]:

@@ -10,6 +10,7 @@ from pydantic_core import InitErrorDetails, PydanticCustomError
 
 from bracing.model.base import SCHEMA_VERSION, Duration, Length, Speed, Strict
 from bracing.model.days import Event, Forecast, SignOff
+from bracing.model.foundation import BackfillEvent, BackfillSoil, FoundationWall
 from bracing.model.gear import AnchorType, BraceType, DesignOptions
 from bracing.model.references import reference_problems
 from bracing.model.rules import DEFAULT_RULES, Rule
@@ -67,6 +68,10 @@ class Site(Strict):
     design: DesignOptions | None = Field(
         None, description="Options of `bracing check --design` for walls with no bracing.")
     panels: list[Panel] = Field(min_length=1)
+    # foundation walls and their backfill (bracing.model.foundation, method notes §12)
+    backfill: BackfillSoil | None = None
+    foundation_walls: list[FoundationWall] = Field(default_factory=list)
+    backfill_events: list[BackfillEvent] = Field(default_factory=list)
 
     @model_validator(mode="wrap")
     @classmethod
