@@ -13,6 +13,8 @@ import pytest
 
 FORMULA_MODULES = [
     "bracing.wind.asce7",
+    "bracing.wind.asce37",
+    "bracing.wind.gusts",
 ]
 FLAGS = doctest.ELLIPSIS | doctest.NORMALIZE_WHITESPACE
 
