@@ -16,6 +16,7 @@ FORMULA_MODULES = [
     "bracing.wind.asce37",
     "bracing.wind.gusts",
     "bracing.anchors",
+    "bracing.backfill",
 ]
 FLAGS = doctest.ELLIPSIS | doctest.NORMALIZE_WHITESPACE
 
