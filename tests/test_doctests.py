@@ -15,6 +15,7 @@ FORMULA_MODULES = [
     "bracing.wind.asce7",
     "bracing.wind.asce37",
     "bracing.wind.gusts",
+    "bracing.stability",
     "bracing.members",
     "bracing.anchors",
     "bracing.backfill",
