@@ -16,6 +16,7 @@ FORMULA_MODULES = [
     "bracing.wind.asce37",
     "bracing.wind.gusts",
     "bracing.stability",
+    "bracing.braces",
     "bracing.members",
     "bracing.anchors",
     "bracing.backfill",
