@@ -19,6 +19,7 @@ FORMULA_MODULES = [
     "bracing.braces",
     "bracing.members",
     "bracing.anchors",
+    "bracing.ground_anchors",
     "bracing.backfill",
 ]
 FLAGS = doctest.ELLIPSIS | doctest.NORMALIZE_WHITESPACE
