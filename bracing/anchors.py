@@ -92,7 +92,7 @@ PHI_STEEL = {  # (a) steel: ductile / brittle element
 PHI_CAST_IN = 0.70  # (b), (c) Condition B: tension breakout, pullout (text via design guide)
 PHI_POST_INSTALLED = {1: 0.65, 2: 0.55, 3: 0.45}  # (b), (c) Condition B, anchor category
 PHI_SHEAR_CONCRETE = 0.70  # (b) Condition B: shear breakout and pryout, any anchor type
-ASD_FROM_STRENGTH = 0.6  # 1 / alpha, alpha = 1.0/0.6 (design.md §3; team's basis)
+ASD_FROM_STRENGTH = 0.6  # 1 / alpha, alpha = 1.0/0.6 (method notes §1; team's basis)
 LAMBDA_A_NORMAL_WEIGHT = 1.0  # ACI 318-19 §17.2.4
 
 

@@ -1,4 +1,4 @@
-"""Brace geometry and forces (design.md §6): small pure formulas over numpy arrays.
+"""Brace geometry and forces (method notes §4): small pure formulas over numpy arrays.
 
 Section: the wall pivots at its base; a brace pins to the wall at insert height `hb` and to the
 slab or ground at distance `d` from the wall face. Plan: braces at positions `x_i` along the wall
@@ -86,7 +86,7 @@ def anchor_distance_for_angle(insert_height_ft, angle_deg, insert_offset_ft=0.0,
 
 
 def default_positions(width_ft, count, strip=None):
-    """Centres of equal strips along a wall, where braces go by default (design.md §6).
+    """Centres of equal strips along a wall, where braces go by default (method notes §4).
 
     Parameters
     ----------
@@ -267,7 +267,7 @@ def share_and_twist(total_h, force_lb, force_at_ft, wall_centre_ft, lever):
     with np.errstate(divide="ignore", invalid="ignore"):
         per_arm = np.where(apart, twist / polar, 0.0)
     # Braces at one point (a single brace) have no lever against twist, and the base is given
-    # none (design.md §6): any twist left is more than they can carry.
+    # none (method notes §4): any twist left is more than they can carry.
     loose = (polar <= 0) & (np.abs(twist) > 1e-9 * (np.abs(force_lb) + np.abs(total_h) + 1.0))
     return np.where(loose, np.inf, total_h / n), per_arm
 

@@ -306,7 +306,7 @@ class PanelResult:
     @property
     def fails(self) -> bool:
         """True when the wall fails a strength check, cannot stand and has no braces, or has a
-        danger finding: the one test behind every verdict and exit code (design.md §8a)."""
+        danger finding: the one test behind every verdict and exit code (method notes §8)."""
         return self.status in ("unsafe", "needs_braces") or any(
             f.severity == "danger" for f in self.flags)
 

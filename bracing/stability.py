@@ -1,4 +1,4 @@
-"""Walls standing on their own (design.md §5): small pure formulas over numpy arrays."""
+"""Walls standing on their own (method notes §3): small pure formulas over numpy arrays."""
 
 from __future__ import annotations
 

@@ -1,4 +1,4 @@
-"""Braced walls (design.md §6): every element's check, vectorised over walls.
+"""Braced walls (method notes §4): every element's check, vectorised over walls.
 
 The checks read the brace forces (`brace_loads.brace_forces`) and never a load kind: a new
 kind of lateral load reaches them through `brace_loads` alone."""
@@ -207,7 +207,7 @@ def _checks_at(walls, bs: BraceSet, f, loads: BraceLoads, standing: Standing | N
     lift = forces.total * standing.tan
     held = standing.held
     checks["base uplift"] = (np.where(held, lift, na), standing.weight)
-    # A framed wall's sill: the lift against its weight and the sill fastening (design.md §6).
+    # A framed wall's sill: the lift against its weight and the sill fastening (method notes §4).
     checks["sill uplift"] = (np.where(standing.framed, lift, na),
                              standing.weight + standing.sill)
     checks["base kick-out"] = (np.where(held, forces.base_shear, na), standing.base_mu * np.maximum(

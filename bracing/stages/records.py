@@ -193,7 +193,7 @@ class Results:
 
     def _combinations(self, key: tuple) -> dict[str, str]:
         """The combination of each braced check of allowable capacity that differs from the
-        basis's: under LRFD, the ASD combinations (design.md §3, method notes §1)."""
+        basis's: under LRFD, the ASD combinations (method notes §1)."""
         f = COMBINATIONS[self.site.site.design_basis]
         if f.allowable is None:
             return {}

@@ -1,6 +1,6 @@
 """ASCE 37-14 construction-period factor on the basic wind speed (Table 6.2-1).
 
-ASCE 37-14 was written against ASCE 7-10; the team applies it to ASCE 7-16 speeds (design.md §3).
+ASCE 37-14 was written against ASCE 7-10; the team applies it to ASCE 7-16 speeds (method notes §1).
 """
 
 import numpy as np
