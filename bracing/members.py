@@ -325,11 +325,40 @@ def pipe_wall_nonslender(D_in, t_in, Fy_ksi, E_ksi=STEEL_E_KSI):
 
 
 def pipe_flexure(D_in, t_in, Fy_ksi, basis="ASD", E_ksi=STEEL_E_KSI):
-    """Available flexural strength of a round pipe, lb-ft. AISC 360-16 §F8 (design wall t).
+    """Available flexural strength of a round pipe (design wall t).
 
-    Compact (D/t <= 0.07 E/Fy, Table B4.1b case 20): Mn = Mp = Fy Z (Eq. F8-1);
-    noncompact (<= 0.31 E/Fy): Mn = (0.021 E/(D/t) + Fy) S (Eq. F8-2);
-    slender: Mn = 0.33 E/(D/t) S (Eq. F8-3, F8-4). NaN beyond D/t = 0.45 E/Fy (§F8 scope).
+    Compact (D/t <= 0.07 E/Fy, Table B4.1b case 20): Mn = Mp = Fy Z (Eq. F8-1); noncompact
+    (<= 0.31 E/Fy): Mn = (0.021 E/(D/t) + Fy) S (Eq. F8-2); slender: Mn = 0.33 E/(D/t) S
+    (Eq. F8-3, F8-4).
+
+    Parameters
+    ----------
+    D_in, t_in : float or array_like
+        Outside diameter and design wall thickness, in.
+    Fy_ksi : float or array_like
+        Specified minimum yield stress, ksi.
+    basis : {'ASD', 'LRFD'}, optional
+        ASD Mn / 1.67 (default) or LRFD 0.90 Mn (§F1).
+    E_ksi : float, optional
+        Modulus of elasticity, ksi.
+
+    Returns
+    -------
+    float or ndarray
+        Available moment, lb-ft; NaN beyond D/t = 0.45 E/Fy, outside §F8's scope (not known).
+
+    References
+    ----------
+    AISC 360-16 §F8.
+
+    Examples
+    --------
+    Pipe 2 STD (2.375 in, design wall 0.93 x 0.154 in; ASME B36.10 text, design wall from
+    memory), A53 Gr. B (Fy 35 ksi, text): compact, Z = (2.375^3 - 2.0886^3) / 6 = 0.714 in3,
+    Mp = 35 x 0.714 = 24.99 kip-in = 2,082 lb-ft, / 1.67 = 1,247 lb-ft.
+
+    >>> round(float(pipe_flexure(2.375, 0.93 * 0.154, 35.0)))
+    1247
     """
     D = np.asarray(D_in, dtype=float)
     inner = D - 2.0 * t_in
@@ -345,10 +374,34 @@ def pipe_flexure(D_in, t_in, Fy_ksi, basis="ASD", E_ksi=STEEL_E_KSI):
 
 
 def self_weight_moment(weight_plf, length_ft, angle_deg):
-    """Mid-span moment from a sloping brace's own weight, lb-ft: w cos(theta) L^2 / 8.
+    """Mid-span moment from a sloping brace's own weight, w cos(theta) L^2 / 8.
 
-    Simply supported span (statics); theta from horizontal. With a knee brace in the plane,
-    pass the longer segment as the span.
+    Simply supported span; with a knee brace in the plane, pass the longer segment as the span.
+
+    Parameters
+    ----------
+    weight_plf : float or array_like
+        Brace weight, lb per ft.
+    length_ft : float or array_like
+        Span, ft.
+    angle_deg : float or array_like
+        Angle from horizontal, degrees.
+
+    Returns
+    -------
+    float or ndarray
+        Moment, lb-ft.
+
+    References
+    ----------
+    Statics.
+
+    Examples
+    --------
+    3.65 lb/ft (Pipe 2 STD, from memory), 20 ft, level: 3.65 x 400 / 8 = 182.5 lb-ft.
+
+    >>> float(self_weight_moment(3.65, 20.0, 0.0))
+    182.5
     """
     return (np.asarray(weight_plf, dtype=float) * np.cos(np.radians(angle_deg))
             * np.asarray(length_ft, dtype=float) ** 2 / 8.0)[()]
@@ -360,10 +413,38 @@ def euler_load(E_ksi, I_in4, Lc_ft):
 
 
 def moment_amplifier_b1(Pr_lb, E_ksi, I_in4, Lc_ft, basis="ASD"):
-    """P-delta amplifier of the self-weight moment: B1 = Cm / (1 - alpha Pr / Pe1) >= 1.
+    """P-delta amplifier of the self-weight moment, B1 = Cm / (1 - alpha Pr / Pe1) >= 1.
 
-    AISC 360-16 Appendix 8 Eq. A-8-3, Cm = 1.0 (transverse load, §8.2.1(b)), Pe1 = pi^2 EI / Lc^2
-    (Eq. A-8-5, EI* = EI with K = 1). Inf where alpha Pr >= Pe1; 1.0 for tension (Pr <= 0).
+    Parameters
+    ----------
+    Pr_lb : float or array_like
+        Required axial compression, lb (tension, Pr <= 0, gives 1.0).
+    E_ksi : float or array_like
+        Modulus of elasticity, ksi.
+    I_in4 : float or array_like
+        Moment of inertia, in4.
+    Lc_ft : float or array_like
+        Effective length, ft.
+    basis : {'ASD', 'LRFD'}, optional
+        alpha 1.6 (ASD, default) or 1.0 (LRFD).
+
+    Returns
+    -------
+    float or ndarray
+        B1, dimensionless; inf where alpha Pr >= Pe1.
+
+    References
+    ----------
+    AISC 360-16 Appendix 8 Eq. A-8-3, Cm = 1.0 (transverse load, §8.2.1(b)); Pe1 = pi^2 EI /
+    Lc^2 (Eq. A-8-5, EI* = EI, K = 1).
+
+    Examples
+    --------
+    I 0.627 in4 (Pipe 2 STD, from memory), 20 ft: Pe1 = pi^2 x 29,000 x 0.627 / 240^2 = 3.116
+    kips; Pr 1,000 lb on ASD: 1 / (1 - 1.6 x 1,000 / 3,116) = 2.056.
+
+    >>> round(float(moment_amplifier_b1(1000.0, 29000.0, 0.627, 20.0)), 3)
+    2.056
     """
     return amplifier_of(Pr_lb, euler_load(E_ksi, I_in4, Lc_ft), basis)
 
@@ -379,12 +460,36 @@ def amplifier_of(Pr_lb, pe1_lb, basis="ASD"):
 
 
 def pipe_axial_bending_ratio(Pr, Pc, Mr, Mc):
-    """Combined axial force and bending ratio (passes at <= 1.0). AISC 360-16 §H1.1.
+    """Combined axial force and bending ratio; passes at <= 1.0.
 
-    Pr/Pc >= 0.2: Pr/Pc + 8/9 Mr/Mc (Eq. H1-1a); else Pr/(2 Pc) + Mr/Mc (Eq. H1-1b).
-    Pr, Pc in the same force unit; Mr, Mc in the same moment unit; magnitudes are used.
-    The two equations meet at Pr/Pc = 0.2 only where Mr/Mc = 0.9: above that (failing either
-    way) the ratio can dip as Pr grows; pass/fail never does.
+    Pr/Pc >= 0.2: Pr/Pc + 8/9 Mr/Mc (Eq. H1-1a); else Pr/(2 Pc) + Mr/Mc (Eq. H1-1b). The two
+    equations meet at Pr/Pc = 0.2 only where Mr/Mc = 0.9: above that (failing either way) the
+    ratio can dip as Pr grows; pass/fail never does.
+
+    Parameters
+    ----------
+    Pr, Pc : float or array_like
+        Required and available axial strength, the same force unit (magnitudes are used).
+    Mr, Mc : float or array_like
+        Required and available flexural strength, the same moment unit.
+
+    Returns
+    -------
+    float or ndarray
+        The ratio, dimensionless.
+
+    References
+    ----------
+    AISC 360-16 §H1.1.
+
+    Examples
+    --------
+    Half of each: 0.5 + 8/9 x 0.5 = 0.944; a tenth of the axial strength: 0.05 + 0.5 = 0.55.
+
+    >>> round(float(pipe_axial_bending_ratio(0.5, 1.0, 0.5, 1.0)), 3)
+    0.944
+    >>> round(float(pipe_axial_bending_ratio(0.1, 1.0, 0.5, 1.0)), 2)
+    0.55
     """
     p = np.abs(Pr) / np.asarray(Pc, dtype=float)
     m = np.abs(Mr) / np.asarray(Mc, dtype=float)
