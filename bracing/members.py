@@ -354,11 +354,11 @@ def pipe_flexure(D_in, t_in, Fy_ksi, basis="ASD", E_ksi=STEEL_E_KSI):
     Examples
     --------
     Pipe 2 STD (2.375 in, design wall 0.93 x 0.154 in; ASME B36.10 text, design wall from
-    memory), A53 Gr. B (Fy 35 ksi, text): compact, Z = (2.375^3 - 2.0886^3) / 6 = 0.714 in3,
-    Mp = 35 x 0.714 = 24.99 kip-in = 2,082 lb-ft, / 1.67 = 1,247 lb-ft.
+    memory), A53 Gr. B (Fy 35 ksi, text): compact, Z = (2.375^3 - 2.0886^3) / 6 = 0.7144 in3,
+    Mp = 35 x 0.7144 = 25.00 kip-in = 2,084 lb-ft, / 1.67 = 1,248 lb-ft.
 
     >>> round(float(pipe_flexure(2.375, 0.93 * 0.154, 35.0)))
-    1247
+    1248
     """
     D = np.asarray(D_in, dtype=float)
     inner = D - 2.0 * t_in
