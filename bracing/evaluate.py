@@ -168,7 +168,7 @@ def _masonry_over_limit(site: Site, p) -> bool:
 
 
 def basis_statement(site: Site) -> list[str]:
-    """The declared design basis, shown on every report (design.md §3)."""
+    """The declared design basis, shown on every report (method notes §1)."""
     s = site.site
     factor = (f"period factor {s.period_factor} set by the user" if s.period_factor
               else "period factor from each wall's standing time (ASCE 37-14 Table 6.2-1)")
