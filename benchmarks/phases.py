@@ -40,9 +40,8 @@ def main(argv: list[str] | None = None) -> int:
     review = json_view.review_record(site_file.site, result, cli.review_facts(str(site)))
     step("review facts")
     record = json_view.site_record(result, review)
-    step("JSON record")
-    text = json_view.dumps(record)
-    step(f"JSON text ({len(text) / 1e6:.1f} MB)")
+    size = sum(len(piece) for piece in json_view.pieces(record))  # as the command writes it
+    step(f"JSON record and text ({size / 1e6:.1f} MB)")
     return 0
 
 

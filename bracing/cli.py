@@ -365,6 +365,9 @@ def run_check(args) -> int:
     units = args.units or site_file.site.site.units
     if args.json or args.findings:
         review = json_view.review_record(site_file.site, result, review_facts(args.site))
+    if args.json and not args.output:  # streamed: a large site's text is never whole in memory
+        json_view.write(json_view.site_record(result, review), sys.stdout)
+        return verdict(result)
     if args.json:
         out = json_view.dumps(json_view.site_record(result, review))
     elif args.findings:
