@@ -243,7 +243,7 @@ class SiteResult:
     @property
     def fails(self) -> bool:
         """True when a wall fails or a finding of the site or of a day is a danger (§8a)."""
-        return bool(self.failing()) or any(
+        return any(p.fails for p in self.panels) or any(
             f.severity == "danger" for f in self.flags + [g for d in self.days for g in d.flags])
 
     def panel(self, mark: str) -> PanelResult:
