@@ -73,7 +73,7 @@ def review_record(site: Site, result: SiteResult, facts: dict) -> dict:
         "method": METHOD,
         "fails": result.fails,
         "failing_walls": [p.mark for p in result.failing()],
-        "not_checked": [n.as_dict() for n in result.not_checked],
+        "not_checked": result.not_checked,  # written as objects of their fields
     }
 
 
