@@ -19,7 +19,7 @@ from pydantic import ValidationError
 from bracing import backfill_view, scenario
 from bracing.evaluate import evaluate
 from bracing.model import Site, error_message
-from bracing.report import json_view, text
+from bracing.report import json_view
 
 EXIT_FAILS = 1
 EXIT_BAD_INPUT = 2
@@ -317,6 +317,8 @@ def run_panel(args) -> int:
     if args.json:
         print(json_view.dumps(json_view.panel_record(p, result.basis, result.caution)))
     else:
+        from bracing.report import text  # the text views only where printed
+
         units = args.units or "us"
         lines = ([result.caution, ""] + result.basis_statement + [""]
                  + text.panel_text(p, units) + ["", result.caution])
@@ -365,6 +367,9 @@ def run_check(args) -> int:
     units = args.units or site_file.site.site.units
     if args.json or args.findings:
         review = json_view.review_record(site_file.site, result, review_facts(args.site))
+    if args.json and not args.output:  # streamed: a large site's text is never whole in memory
+        json_view.write(json_view.site_record(result, review), sys.stdout)
+        return verdict(result)
     if args.json:
         out = json_view.dumps(json_view.site_record(result, review))
     elif args.findings:
@@ -373,6 +378,8 @@ def run_check(args) -> int:
         render = findings.render_html if args.format == "html" else findings.render_text
         out = render(result, review, units)
     else:
+        from bracing.report import text
+
         out = text.site_text(result, units)
     return _write(args.output, out) or verdict(result)
 

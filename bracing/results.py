@@ -485,7 +485,8 @@ class SiteResult:
     def fails(self) -> bool:
         """True when a wall fails, a foundation wall fails (its backfill over its limit on a
         day) or a finding of the site or of a day is a danger (§8a)."""
-        return bool(self.failing()) or any(w.fails for w in self.foundation_walls) or any(
+        walls = [*self.panels, *self.foundation_walls]
+        return any(w.fails for w in walls) or any(
             f.severity == "danger" for f in self.flags + [g for d in self.days for g in d.flags])
 
     def panel(self, mark: str) -> PanelResult:
