@@ -20,7 +20,7 @@ from textual.widgets import Input
 from bracing import scenario
 from tui.app import BracingApp
 from tui.dialogs import DesignProposal
-from tui.views import FieldRow
+from tui.widgets import FieldRow
 
 
 async def settle(pilot) -> None:

@@ -27,6 +27,7 @@ from bracing.evaluate import evaluate, evaluate_walls
 from bracing.results import SiteResult
 from bracing.scenario import REMOVE, SiteFile, SiteFileError
 from tui import design
+from tui.day_view import DayPicker, DayView, PlanView
 from tui.dialogs import (
     DesignProposal,
     Export,
@@ -37,18 +38,10 @@ from tui.dialogs import (
     UnsavedChanges,
 )
 from tui.fields import panel_index, typed, with_values
-from tui.views import (
-    Caution,
-    DayPicker,
-    DayView,
-    FieldRow,
-    KeysView,
-    PlanView,
-    SettingsView,
-    StatusLine,
-    WallsView,
-    WallView,
-)
+from tui.settings_view import KeysView, SettingsView
+from tui.wall_view import WallView
+from tui.walls_view import WallsView
+from tui.widgets import Caution, FieldRow, StatusLine
 
 DEMO = Path(__file__).resolve().parents[1] / "scenarios" / "demo-mixed.toml"
 

@@ -15,7 +15,7 @@ from textual.screen import ModalScreen
 from textual.widgets import Button, Input, Label, RadioButton, RadioSet, Select, Static
 
 from bracing import scenario
-from tui.views import Choice
+from tui.widgets import Choice
 
 FORMATS = (("html", "HTML (print it)"), ("csv", "CSV (a spreadsheet)"), ("text", "plain text"))
 EXTENSIONS = {"html": "html", "csv": "csv", "text": "txt"}

@@ -1,0 +1,186 @@
+"""The Wall view: one wall's inputs as a form, every check, a section and an elevation."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from rich.text import Text
+from textual import on
+from textual.app import ComposeResult
+from textual.containers import Horizontal, VerticalScroll
+from textual.message import Message
+from textual.reactive import reactive
+from textual.widgets import DataTable, Label, Select, Static
+
+from bracing.report.text import fmt
+from bracing.results import STATUSES
+from tui import drawing
+from tui.fields import panel_index, wall_fields
+from tui.widgets import (
+    UNIT_KEY,
+    Choice,
+    Form,
+    flag_lines,
+    pass_text,
+    plain,
+    speed,
+    utilization_text,
+    wall_status_text,
+)
+
+
+class WallView(Horizontal):
+    """One wall: its inputs as a form; every check; a section and an elevation."""
+
+    @dataclass
+    class WallPicked(Message):
+        """A wall chosen in the Wall view's own list."""
+
+        view: WallView
+        mark: str
+
+        @property
+        def control(self) -> WallView:
+            return self.view
+
+    result = reactive(None, always_update=True, init=False)
+    site_file = reactive(None, always_update=True, init=False)
+    mark = reactive("", init=False)
+    units = reactive("us", init=False)
+    errors = reactive(dict, always_update=True, init=False)
+
+    CHECK_COLUMNS = ("Result", "Element", "Region", "Demand", "Capacity", "Utilization",
+                     "Combination", "Source")
+
+    def compose(self) -> ComposeResult:
+        with VerticalScroll(id="wall-inputs"):
+            with Horizontal(classes="field-line"):
+                yield Label("Wall", classes="field-label")
+                yield Choice([], prompt="choose a wall", id="wall-select")
+            yield Static("Enter applies a value; Esc puts it back.", classes="hint")
+            specs = wall_fields(self.site_file, self.mark) if self.site_file else []
+            yield Form(specs, id="wall-form").data_bind(WallView.errors)
+        with VerticalScroll(id="wall-results"):
+            yield Static("", id="wall-summary")
+            yield Static("", id="wall-flags")
+            yield DataTable(id="checks-table", cursor_type="row", zebra_stripes=True)
+            with Horizontal(id="wall-drawings"):
+                yield Static("", id="wall-section", classes="drawing")
+                yield Static("", id="wall-elevation", classes="drawing")
+
+    def on_mount(self) -> None:
+        self.query_one("#checks-table", DataTable).add_columns(*self.CHECK_COLUMNS)
+        self.query_one("#wall-section").border_title = "Section"
+        self.query_one("#wall-elevation").border_title = "Elevation"
+        self.query_one("#wall-select", Choice).offer(
+            [(Text(p.mark), p.mark) for p in self.site_file.site.panels]
+            if self.site_file else [], self.mark)
+        self._results()  # whole when mounted: the app gives the attributes first
+
+    async def watch_site_file(self) -> None:
+        await self._inputs()
+
+    async def watch_mark(self) -> None:
+        await self._inputs()
+        self._results()
+
+    def watch_result(self) -> None:
+        self._results()
+
+    def watch_units(self) -> None:
+        self._results()
+
+    async def _inputs(self) -> None:
+        if self.site_file is None:
+            return
+        marks = [p.mark for p in self.site_file.site.panels]
+        self.query_one("#wall-select", Choice).offer([(Text(m), m) for m in marks], self.mark)
+        await self.query_one(Form).show(wall_fields(self.site_file, self.mark))
+
+    @on(Select.Changed, "#wall-select")
+    def _pick(self, event: Select.Changed) -> None:
+        event.stop()
+        if event.value != Select.NULL and event.value != self.mark:
+            self.post_message(self.WallPicked(self, str(event.value)))
+
+    def _results(self) -> None:
+        summary = self.query_one("#wall-summary", Static)
+        table = self.query_one("#checks-table", DataTable)
+        table.clear()
+        p = next((p for p in self.result.panels if p.mark == self.mark), None) \
+            if self.result else None
+        if p is None:
+            summary.update("Choose a wall on the Walls view (Enter) or above.")
+            for name in ("#wall-flags", "#wall-section", "#wall-elevation"):
+                self.query_one(name, Static).update("")
+            return
+        summary.update(self._summary(p))
+        self.query_one("#wall-flags", Static).update(flag_lines(p.flags_worst_first()))
+        for c in p.worst_first():
+            unit = UNIT_KEY.get(c.unit, c.unit)
+            table.add_row(*plain(pass_text(c.passes), c.element, c.region,
+                                 fmt(c.demand, unit, self.units),
+                                 fmt(c.capacity, unit, self.units),
+                                 utilization_text(c.utilization), c.combination, c.source))
+        self._drawings(p)
+
+    def _summary(self, p) -> Text:
+        u, w, units = p.unbraced, p.wind, self.units
+        out = Text()
+        out.append(f"{p.mark}  ", style="bold")
+        out.append(f"{p.material}, {fmt(p.height_ft, 'ft', units, 1)} tall x "
+                   f"{fmt(p.width_ft, 'ft', units, 1)} wide x "
+                   f"{fmt(p.thickness_in, 'in', units, 2)}: ")
+        out.append_text(wall_status_text(p))
+        out.append(f" ({STATUSES[p.status]})\n")
+        out.append(f"Governing: {p.governing_element}, utilization ")
+        out.append_text(utilization_text(p.utilization))
+        sustained = p.sustained_equivalents_mph
+        out.append(f"\nStand-down gust {speed(p.stand_down_speed_mph, units)} "
+                   f"(sustained 1-min {speed(sustained.get('1-min'), units)}, 10-min "
+                   f"{speed(sustained.get('10-min'), units)}); working limit "
+                   f"{speed(p.working_limit_speed_mph, units)}")
+        if p.braces and p.braces.get("working_limit_one_missing_mph") is not None:
+            out.append(f"; with one brace struck "
+                       f"{speed(p.braces['working_limit_one_missing_mph'], units)}")
+        out.append(f"\nDesign wind {speed(w.design_speed_mph, units)} (period factor "
+                   f"{w.period_factor:.2f} from {w.period_factor_from}), q_h "
+                   f"{fmt(w.velocity_pressure_psf, 'psf', units, 1)}, Cf "
+                   f"{w.force_coefficient:.3f}, F {fmt(w.force_lb, 'lbf', units)} at "
+                   f"{fmt(w.resultant_height_ft, 'ft', units, 1)}; weight "
+                   f"{fmt(p.weight_lb, 'lbf', units)}")
+        out.append(f"\nUnbraced: utilization {u.utilization:.2f}; tallest unbraced at the "
+                   f"design wind {fmt(u.max_height_ft, 'ft', units, 1)}")
+        if u.max_height_at_limit_ft is not None:
+            out.append(f", at the limit gust {fmt(u.max_height_at_limit_ft, 'ft', units, 1)}")
+        b = p.braces
+        if b:
+            out.append(f"\nBraces: {b['count']} x {fmt(b['length_ft'], 'ft', units, 1)} at "
+                       f"{b['angle_deg']:.0f}°, insert {fmt(b['insert_height_ft'], 'ft', units, 1)}"
+                       f", foot {fmt(b['anchor_distance_ft'], 'ft', units, 1)} from the face; "
+                       f"brace force {fmt(b['axial_force_lb'], 'lbf', units)}, anchor uplift "
+                       f"{fmt(b['anchor_uplift_lb'], 'lbf', units)}, shear "
+                       f"{fmt(b['anchor_shear_lb'], 'lbf', units)}")
+            if b.get("installation_torque_ftlb") is not None:
+                torque = fmt(b["installation_torque_ftlb"], "ft*lbf", units)
+                out.append(f"; helical installation torque {torque}")
+            if b.get("designed"):
+                out.append(" (laid out by the designer)")
+        return out
+
+    def _drawings(self, p) -> None:
+        model = None
+        if self.site_file is not None:
+            i = panel_index(self.site_file, p.mark)
+            model = self.site_file.site.panels[i] if i is not None else None
+        footing = (model.footing.width, model.footing.thickness) \
+            if model is not None and model.footing is not None else None
+        openings = [(o.x, o.y, o.width, o.height) for o in model.openings] if model else []
+        b = p.braces
+        section = drawing.section(p.height_ft, p.thickness_in, b, footing,
+                                  p.wind.resultant_height_ft, self.units)
+        elevation = drawing.elevation(p.width_ft, p.height_ft, b["positions_ft"] if b else [],
+                                      b["insert_height_ft"] if b else None, openings,
+                                      p.wind.resultant_height_ft, self.units)
+        self.query_one("#wall-section", Static).update(Text("\n".join(section)))
+        self.query_one("#wall-elevation", Static).update(Text("\n".join(elevation)))
