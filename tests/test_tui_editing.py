@@ -1,7 +1,7 @@
 """Every fix the interface shows can be made in it, on a copy of the demo site: the layout
 designer's braces for D-2 accepted, a wall's angle turned into a foot distance of 6 ft (the
-review exercise's fix), one brace moved; each undone, then redone; saved, the file validates,
-keeps its comments, and `bracing check` shows the changes.
+review exercise's fix), one brace moved on the elevation, a sign-off added; each undone, then
+redone; saved, the file validates, keeps its comments, and `bracing check` shows the changes.
 
 The interface computes nothing: the expected values are the ones typed, read back from the
 engine's result and from `bracing check --json`.
@@ -37,6 +37,18 @@ async def enter(pilot, field_id: str, text: str) -> None:
     await settle(pilot)
 
 
+async def add_signoff(pilot, mark: str, day: str, by: str) -> None:
+    await pilot.press("s")
+    await pilot.pause()
+    dialog = pilot.app.screen
+    dialog.query_one("#signoff-wall").value = mark
+    dialog.query_one("#signoff-day", Input).value = day
+    dialog.query_one("#signoff-by", Input).value = by
+    dialog.query_one("#signoff-by", Input).focus()
+    await pilot.press("enter")
+    await settle(pilot)
+
+
 def test_design_switch_to_a_foot_distance_move_a_brace_undo_redo_and_save(tmp_path):
     path = copy_site("demo-mixed", tmp_path)
     app = BracingApp(path)
@@ -66,16 +78,21 @@ def test_design_switch_to_a_foot_distance_move_a_brace_undo_redo_and_save(tmp_pa
         assert "angle" not in app.site_file.data["panels"][0]["bracing"]
         await enter(pilot, "bracing-anchor-distance", "6 ft")
         assert app.result.panel("D-1").braces["anchor_distance_ft"] == 6.0
-        await enter(pilot, "bracing-positions", "5 ft, 19 ft")  # D-1: two braces, 24 ft wide
-        assert app.result.panel("D-1").braces["positions_ft"] == [5.0, 19.0]
+        # D-1: two braces on a 24 ft wall, at the centers of equal strips, 6 and 18 ft; the
+        # second moved two steps of 0.5 ft to the right on the elevation: 19 ft
+        await pilot.press("escape", "m", "down", "right", "right")  # out of the field first
+        await settle(pilot)
+        assert app.result.panel("D-1").braces["positions_ft"] == [6.0, 19.0]
+        await add_signoff(pilot, "D-3", "20", "A. Engineer, PE")
+        assert app.site_file.data["signoffs"][-1]["panel"] == "D-3"
         final = app.site_file.data
 
         app.screen.set_focus(None)
-        for _ in range(4):
+        for _ in range(5):  # the designer's, the switch, 6 ft, the move, the sign-off
             await pilot.press("ctrl+z")
         await settle(pilot)
         assert app.site_file.data == original
-        for _ in range(4):
+        for _ in range(5):
             await pilot.press("ctrl+y")
         await settle(pilot)
         assert app.site_file.data == final
@@ -96,7 +113,8 @@ def test_design_switch_to_a_foot_distance_move_a_brace_undo_redo_and_save(tmp_pa
                          check=False, capture_output=True, text=True, cwd=tmp_path)
     record = {p["mark"]: p for p in json.loads(run.stdout)["panels"]}
     assert record["D-1"]["braces"]["anchor_distance_ft"] == 6.0
-    assert record["D-1"]["braces"]["positions_ft"] == [5.0, 19.0]
+    assert record["D-1"]["braces"]["positions_ft"] == [6.0, 19.0]
+    assert (saved.site.signoffs[-1].panel, saved.site.signoffs[-1].day) == ("D-3", 20)
     assert record["D-2"]["braces"]["count"] == app.site_file.data["panels"][d2]["bracing"]["count"]
 
 
@@ -169,3 +187,40 @@ def test_a_sign_off_before_its_event_is_refused_with_the_reason_a_later_one_is_r
             await pilot.pause()
             await steps(pilot)
     asyncio.run(main())
+
+
+def test_a_brace_moved_on_the_elevation_its_force_follows_and_one_undo_puts_it_back(tmp_path):
+    """D-1 of the demo: two braces on a 24 ft wall at the centers of equal strips (24 / 2 =
+    12 ft strips: 6 and 18 ft). The second, chosen with the down key, moved three steps of
+    0.5 ft to the right: 18 + 3 x 0.5 = 19.5 ft, written to the file; one step back left:
+    19 ft. Its force is the engine's, shown under the drawing; the moves are one undo step."""
+    path = copy_site("demo-mixed", tmp_path)
+    app = BracingApp(path)
+    original = app.site_file.data
+
+    async def steps(pilot):
+        app.mark = "D-1"
+        await pilot.press("m")
+        await pilot.pause()
+        before = app.result.panel("D-1").braces["brace_forces_lb"][1]
+        await pilot.press("down", "right", "right", "right", "left")
+        await settle(pilot)
+        braces = app.result.panel("D-1").braces
+        assert braces["positions_ft"] == [6.0, 19.0]
+        assert app.site_file.data["panels"][0]["bracing"]["positions"] == ["6 ft", "19 ft"]
+        force = braces["brace_forces_lb"][1]
+        assert force != before
+        shown = str(app.query_one("#wall-elevation").render())
+        assert f"brace 2 of 2 at 19.0 ft: force {force:,.0f} lb" in shown
+        await pilot.press("escape", "ctrl+z")
+        await settle(pilot)
+        assert app.site_file.data == original
+        assert app.result.panel("D-1").braces["brace_forces_lb"][1] == before
+
+    async def main():
+        async with app.run_test(size=(120, 40)) as pilot:
+            await pilot.pause()
+            await steps(pilot)
+    asyncio.run(main())
+    app.site_file.save(None)
+    assert scenario.load(path).site.panels[0].bracing.positions == []

@@ -37,9 +37,9 @@ from tui.dialogs import (
     SignOffEntry,
     UnsavedChanges,
 )
-from tui.fields import panel_index, typed, with_values
+from tui.fields import moved_brace, panel_index, typed, with_values
 from tui.settings_view import KeysView, SettingsView
-from tui.wall_view import WallView
+from tui.wall_view import BraceElevation, WallView
 from tui.walls_view import WallsView
 from tui.widgets import Caution, FieldRow, StatusLine
 
@@ -126,6 +126,9 @@ class BracingApp(App[int]):
         Binding("s", "signoff", "Sign-off", show=False,
                 tooltip="record a sign-off (a wall's release); refused with the reason when it "
                         "comes before the wall's lift or its events"),
+        Binding("m", "move_brace", "Move a brace", show=False,
+                tooltip="choose a brace on the wall's elevation (up / down) and move it (left / "
+                        "right); its force follows"),
         Binding("a", "toggle_foot", "Angle/foot", show=False,
                 tooltip="give the wall's braces by their foot distance, or by their angle"),
         Binding("ctrl+z", "undo", "Undo", tooltip="undo the last change of a value"),
@@ -175,6 +178,7 @@ class BracingApp(App[int]):
         self.view = "walls"
         self.quit_after_save = False
         self.edit_next = False
+        self.gesture: tuple | None = None  # the edit that the next of its kind joins
 
     def compose(self) -> ComposeResult:
         with Vertical(id="banner"):
@@ -223,7 +227,8 @@ class BracingApp(App[int]):
     def key_list(cls) -> list[tuple[str, str, str]]:
         """Every key: the app's bindings, then the keys the widgets handle."""
         where = {"step": "Wall, Day and Plan", "edit": "Wall and Settings", "zoom": "Plan",
-                 "design": "Wall", "toggle_foot": "Wall", "signoff": "everywhere"}
+                 "design": "Wall", "toggle_foot": "Wall", "signoff": "everywhere",
+                 "move_brace": "Wall"}
         rows = []
         for b in cls.BINDINGS:
             keys = " / ".join(KEY_NAMES.get(k.strip(), k.strip()) for k in b.key.split(","))
@@ -347,9 +352,12 @@ class BracingApp(App[int]):
             return
         self.apply(changed, spec.keys)
 
-    def apply(self, changed: SiteFile, keys: tuple = ()) -> None:
-        """Make a valid edit the current state, as one undoable step; the engine recomputes."""
-        self.undo_stack.append(self.site_file)
+    def apply(self, changed: SiteFile, keys: tuple = (), gesture: tuple | None = None) -> None:
+        """Make a valid edit the current state, as one undoable step; the engine recomputes.
+        Edits of one `gesture` (a brace moved step by step) make one step together."""
+        if gesture is None or gesture != self.gesture:
+            self.undo_stack.append(self.site_file)
+        self.gesture = gesture
         self.redo_stack.clear()
         self._install(changed)
         try:
@@ -477,13 +485,36 @@ class BracingApp(App[int]):
         if entry is not None:
             self.apply(self._with_signoff(entry), ("signoffs",))
 
+    async def action_move_brace(self) -> None:
+        """Focus the elevation of the wall on view: choose a brace and move it."""
+        await self.action_show("wall")
+        self.query_one(BraceElevation).focus(scroll_visible=True)
+
+    @on(BraceElevation.BraceMoved)
+    def _move_brace(self, event: BraceElevation.BraceMoved) -> None:
+        i = panel_index(self.site_file, self.mark)
+        p = self.result.panel(self.mark)
+        if i is None or not p.braces:
+            return
+        listed = self.site_file.site.panels[i].bracing.positions or p.braces["positions_ft"]
+        try:
+            changed = moved_brace(self.site_file, i, listed, event.index, event.step_ft,
+                                  self.units)
+        except SiteFileError as exc:
+            self.notify(f"Not moved: {problems_text(exc)}", severity="warning", markup=False)
+            return
+        self.apply(changed, ("panels", i, "bracing"),
+                   gesture=("move", self.mark, event.index, event.gesture))
+
     def action_undo(self) -> None:
+        self.gesture = None
         if not self.undo_stack:
             return
         self.redo_stack.append(self.site_file)
         self._install(self.undo_stack.pop())
 
     def action_redo(self) -> None:
+        self.gesture = None
         if not self.redo_stack:
             return
         self.undo_stack.append(self.site_file)

@@ -16,6 +16,7 @@ from bracing.report.text import fmt
 CELL_ASPECT = 2.0  # a terminal cell is about twice as tall as it is wide
 
 WALL, FOOTING, BRACE, INSERT, ANCHOR, WIND = "█", "▓", "╲", "●", "▲", "►"
+CHOSEN = "◉"  # the brace chosen on the elevation
 OPENING, GROUND = "░", "─"
 
 
@@ -132,8 +133,9 @@ def section(height_ft: float, thickness_in: float, braces: dict | None,
 def elevation(width_ft: float, height_ft: float, positions_ft: Sequence[float],
               insert_ft: float | None, openings: Iterable[tuple[float, float, float, float]],
               resultant_ft: float | None, units: str = "us", cols: int = 32,
-              rows: int = 12) -> list[str]:
-    """The wall's face: outline, openings (x, y, width, height in ft), brace positions."""
+              rows: int = 12, selected: int | None = None) -> list[str]:
+    """The wall's face: outline, openings (x, y, width, height in ft), brace positions; the
+    brace `selected` (an index) drawn heavier."""
     sx = (cols - 4) / width_ft
     sy = sx / CELL_ASPECT
     if height_ft * sy > rows - 2:
@@ -157,10 +159,12 @@ def elevation(width_ft: float, height_ft: float, positions_ft: Sequence[float],
     canvas.box(0, 0, right, top)
     canvas.fill(0, top + 1, canvas.cols - 1, top + 1, GROUND)
     if insert_ft is not None:
-        for x in positions_ft:
+        for k, x in enumerate(positions_ft):
             c = min(max(col(x), 1), right - 1)
-            canvas.line(c, row(insert_ft) + 1, c, top - 1, "┊", over=" " + OPENING)
-            canvas.put(c, row(insert_ft), INSERT)
+            mine = k == selected
+            canvas.line(c, row(insert_ft) + 1, c, top - 1, "┃" if mine else "┊",
+                        over=" ┊" + OPENING)
+            canvas.put(c, row(insert_ft), CHOSEN if mine else INSERT)
     if resultant_ft is not None:
         canvas.put(right + 1, row(resultant_ft), "◄")
     legend = [f"{fmt(width_ft, 'ft', units, 1)} wide x {fmt(height_ft, 'ft', units, 1)} tall"]

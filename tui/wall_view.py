@@ -3,10 +3,12 @@
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import ClassVar
 
 from rich.text import Text
 from textual import on
 from textual.app import ComposeResult
+from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
 from textual.message import Message
 from textual.reactive import reactive
@@ -14,7 +16,7 @@ from textual.widgets import DataTable, Label, Select, Static
 
 from bracing.report.text import fmt
 from bracing.results import STATUSES
-from tui import drawing
+from tui import drawing, fields
 from tui.fields import panel_index, wall_fields
 from tui.widgets import (
     UNIT_KEY,
@@ -27,6 +29,95 @@ from tui.widgets import (
     utilization_text,
     wall_status_text,
 )
+
+
+class BraceElevation(Static, can_focus=True):
+    """The wall's elevation. With the focus, up and down choose a brace, left and right move
+    it by a step (`fields.MOVE_STEP`, in the units on screen); the app writes the move and the
+    engine's force of that brace is shown under the drawing."""
+
+    BINDINGS: ClassVar[list[Binding]] = [
+        Binding("up", "choose(-1)", "Previous brace", show=False),
+        Binding("down", "choose(1)", "Next brace", show=False),
+        Binding("left", "move(-1)", "Move left", show=False),
+        Binding("right", "move(1)", "Move right", show=False),
+    ]
+
+    @dataclass
+    class BraceMoved(Message):
+        """Move brace `index` of the wall on view by `step_ft` (a gesture: the moves made
+        while the elevation keeps the focus, one undoable edit)."""
+
+        elevation: BraceElevation
+        index: int
+        step_ft: float
+        gesture: int
+
+        @property
+        def control(self) -> BraceElevation:
+            return self.elevation
+
+    selected = reactive(0, init=False)
+
+    def __init__(self, **kwargs):
+        super().__init__("", **kwargs)
+        self.panel = None
+        self.model = None
+        self.units = "us"
+        self.gesture = 0
+
+    def draw(self, p, model, units: str) -> None:
+        """Draw wall `p` (its result) with `model` (its site-file panel, for the openings)."""
+        if self.panel is None or p.mark != self.panel.mark:
+            self.set_reactive(BraceElevation.selected, 0)
+        self.panel, self.model, self.units = p, model, units
+        self._render_wall()
+
+    def validate_selected(self, k: int) -> int:
+        count = len(self.panel.braces["positions_ft"]) if self.panel and self.panel.braces \
+            else 1
+        return max(0, min(count - 1, k))
+
+    def watch_selected(self) -> None:
+        self._render_wall()
+
+    def on_focus(self) -> None:
+        self.gesture += 1
+        self._render_wall()
+
+    def on_blur(self) -> None:
+        self._render_wall()
+
+    def action_choose(self, delta: int) -> None:
+        self.selected += delta
+
+    def action_move(self, direction: int) -> None:
+        if self.panel is not None and self.panel.braces:
+            step = direction * fields.move_step_ft(self.units)
+            self.post_message(self.BraceMoved(self, self.selected, step, self.gesture))
+
+    def _render_wall(self) -> None:
+        p, units = self.panel, self.units
+        if p is None:
+            self.update("")
+            return
+        b = p.braces
+        openings = [(o.x, o.y, o.width, o.height) for o in self.model.openings] \
+            if self.model else []
+        lines = drawing.elevation(p.width_ft, p.height_ft, b["positions_ft"] if b else [],
+                                  b["insert_height_ft"] if b else None, openings,
+                                  p.wind.resultant_height_ft, units,
+                                  selected=self.selected if b else None)
+        out = Text("\n".join(lines))
+        if b:
+            k = self.selected
+            step = fmt(fields.move_step_ft(units), "ft", units, 1)
+            out.append(f"\n{drawing.CHOSEN} brace {k + 1} of {b['count']} at "
+                       f"{fmt(b['positions_ft'][k], 'ft', units, 1)}: force "
+                       f"{fmt(b['brace_forces_lb'][k], 'lbf', units)}", style="bold")
+            out.append(f"\n↑↓ choose a brace, ←→ move it {step}" if self.has_focus else
+                       "\nm (or a click): choose a brace and move it", style="dim")
+        self.update(out)
 
 
 class WallView(Horizontal):
@@ -66,7 +157,7 @@ class WallView(Horizontal):
             yield DataTable(id="checks-table", cursor_type="row", zebra_stripes=True)
             with Horizontal(id="wall-drawings"):
                 yield Static("", id="wall-section", classes="drawing")
-                yield Static("", id="wall-elevation", classes="drawing")
+                yield BraceElevation(id="wall-elevation", classes="drawing")
 
     def on_mount(self) -> None:
         self.query_one("#checks-table", DataTable).add_columns(*self.CHECK_COLUMNS)
@@ -113,6 +204,7 @@ class WallView(Horizontal):
             summary.update("Choose a wall on the Walls view (Enter) or above.")
             for name in ("#wall-flags", "#wall-section", "#wall-elevation"):
                 self.query_one(name, Static).update("")
+            self.query_one(BraceElevation).panel = None
             return
         summary.update(self._summary(p))
         self.query_one("#wall-flags", Static).update(flag_lines(p.flags_worst_first()))
@@ -175,12 +267,8 @@ class WallView(Horizontal):
             model = self.site_file.site.panels[i] if i is not None else None
         footing = (model.footing.width, model.footing.thickness) \
             if model is not None and model.footing is not None else None
-        openings = [(o.x, o.y, o.width, o.height) for o in model.openings] if model else []
         b = p.braces
         section = drawing.section(p.height_ft, p.thickness_in, b, footing,
                                   p.wind.resultant_height_ft, self.units)
-        elevation = drawing.elevation(p.width_ft, p.height_ft, b["positions_ft"] if b else [],
-                                      b["insert_height_ft"] if b else None, openings,
-                                      p.wind.resultant_height_ft, self.units)
         self.query_one("#wall-section", Static).update(Text("\n".join(section)))
-        self.query_one("#wall-elevation", Static).update(Text("\n".join(elevation)))
+        self.query_one(BraceElevation).draw(p, model, self.units)
