@@ -13,9 +13,10 @@ import asyncio
 import json
 import subprocess
 import sys
+from datetime import date
 
 from test_tui_screen import copy_site
-from textual.widgets import Input
+from textual.widgets import DataTable, Input
 
 from bracing import scenario
 from tui.app import BracingApp
@@ -41,10 +42,10 @@ async def add_signoff(pilot, mark: str, day: str, by: str) -> None:
     await pilot.press("s")
     await pilot.pause()
     dialog = pilot.app.screen
-    dialog.query_one("#signoff-wall").value = mark
-    dialog.query_one("#signoff-day", Input).value = day
-    dialog.query_one("#signoff-by", Input).value = by
-    dialog.query_one("#signoff-by", Input).focus()
+    dialog.query_one("#entry-panel").value = mark
+    dialog.query_one("#entry-day", Input).value = day
+    dialog.query_one("#entry-by", Input).value = by
+    dialog.query_one("#entry-by", Input).focus()
     await pilot.press("enter")
     await settle(pilot)
 
@@ -162,17 +163,17 @@ def test_a_sign_off_before_its_event_is_refused_with_the_reason_a_later_one_is_r
         await pilot.press("s")
         await pilot.pause()
         dialog = app.screen
-        dialog.query_one("#signoff-wall").value = mark
-        dialog.query_one("#signoff-day", Input).value = "10"
-        dialog.query_one("#signoff-by", Input).value = "A. Engineer, PE"
+        dialog.query_one("#entry-panel").value = mark
+        dialog.query_one("#entry-day", Input).value = "10"
+        dialog.query_one("#entry-by", Input).value = "A. Engineer, PE"
         await pilot.press("enter")
         await pilot.pause()
         assert app.screen is dialog  # refused, with the reason
-        why = str(dialog.query_one("#signoff-error").render())
+        why = str(dialog.query_one("#list-error").render())
         assert "Refused" in why and "Roof sheathed, units 11-12 (day 16)" in why
         assert app.site_file.data["signoffs"] == before
-        dialog.query_one("#signoff-day", Input).value = "17"
-        dialog.query_one("#signoff-by", Input).focus()
+        dialog.query_one("#entry-day", Input).value = "17"
+        dialog.query_one("#entry-by", Input).focus()
         await pilot.press("enter")
         await settle(pilot)
         assert app.screen is not dialog
@@ -224,3 +225,115 @@ def test_a_brace_moved_on_the_elevation_its_force_follows_and_one_undo_puts_it_b
     asyncio.run(main())
     app.site_file.save(None)
     assert scenario.load(path).site.panels[0].bracing.positions == []
+
+
+def test_events_added_changed_and_removed_refused_where_a_sign_off_would_come_first(tmp_path):
+    """townhouse-framing: "Roof sheathed, units 9-10" on day 14 (third of its [[events]]);
+    L2-F9, among the walls whose release waits for it, is signed off on day 15. The event
+    moved to day 18 would come after that sign-off: refused with the engine's finding. Moved to
+    day 13: recorded. An event added on day 20, then removed; removing the roof event that
+    walls wait for is refused by the file's validation. Three edits: undone, then redone."""
+    path = copy_site("townhouse-framing", tmp_path)
+    app = BracingApp(path)
+    original = app.site_file.data
+    roof = 2
+    assert original["events"][roof] == {"name": "Roof sheathed, units 9-10", "day": 14,
+                                        "kind": "diaphragm"}
+
+    async def open_row(pilot, row: int):
+        await pilot.press("v")
+        await pilot.pause()
+        table = app.screen.query_one("#list-table", DataTable)
+        table.focus()
+        table.move_cursor(row=row)
+        await pilot.press("enter")  # the row's values in the fields
+        await pilot.pause()
+        return app.screen
+
+    async def steps(pilot):
+        dialog = await open_row(pilot, roof)
+        assert dialog.query_one("#entry-name", Input).value == "Roof sheathed, units 9-10"
+        dialog.query_one("#entry-day", Input).value = "18"
+        await pilot.click("#change")
+        await pilot.pause()
+        assert app.screen is dialog
+        why = str(dialog.query_one("#list-error").render())
+        assert "Refused: L2-F9: sign-off by" in why and "units 9-10 (day 18)" in why
+        dialog.query_one("#entry-day", Input).value = "13"
+        await pilot.click("#change")
+        await settle(pilot)
+        assert app.screen is not dialog
+        assert app.site_file.data["events"][roof]["day"] == 13
+
+        await pilot.press("v")
+        await pilot.pause()
+        dialog = app.screen
+        dialog.query_one("#entry-name", Input).value = "Parapet braced"
+        dialog.query_one("#entry-day", Input).value = "20"
+        dialog.query_one("#entry-kind").value = "other"
+        dialog.query_one("#entry-name", Input).focus()
+        await pilot.press("enter")  # added
+        await settle(pilot)
+        assert app.site_file.data["events"][-1] == {"name": "Parapet braced", "day": 20,
+                                                    "kind": "other"}
+        dialog = await open_row(pilot, 4)
+        await pilot.click("#remove")
+        await settle(pilot)
+        assert [e["name"] for e in app.site_file.data["events"]] == \
+            [e["name"] for e in original["events"]]
+        changed = app.site_file.data
+
+        dialog = await open_row(pilot, roof)
+        await pilot.click("#remove")
+        await pilot.pause()
+        assert app.screen is dialog and "Refused" in str(dialog.query_one("#list-error").render())
+        await pilot.press("escape")
+        await pilot.pause()
+
+        for _ in range(3):
+            await pilot.press("ctrl+z")
+        await settle(pilot)
+        assert app.site_file.data == original
+        for _ in range(3):
+            await pilot.press("ctrl+y")
+        await settle(pilot)
+        assert app.site_file.data == changed
+
+    async def main():
+        async with app.run_test(size=(120, 40)) as pilot:
+            await pilot.pause()
+            await steps(pilot)
+    asyncio.run(main())
+
+
+def test_a_sign_off_keeps_who_license_and_date_and_the_saved_file_validates(tmp_path):
+    """A sign-off of L2-R12 on day 17 (after its roof event, day 16) by an engineer with a
+    license number and a calendar date: written as typed, the date a TOML date."""
+    path = copy_site("townhouse-framing", tmp_path)
+    app = BracingApp(path)
+
+    async def steps(pilot):
+        await pilot.press("s")
+        await pilot.pause()
+        dialog = app.screen
+        dialog.query_one("#entry-panel").value = "L2-R12"
+        dialog.query_one("#entry-day", Input).value = "17"
+        dialog.query_one("#entry-by", Input).value = "A. Engineer, PE"
+        dialog.query_one("#entry-license", Input).value = "PE 012345"
+        dialog.query_one("#entry-date", Input).value = "2027-08-18"
+        dialog.query_one("#entry-by", Input).focus()
+        await pilot.press("enter")
+        await settle(pilot)
+        await pilot.press("ctrl+s")
+        await pilot.pause()
+
+    async def main():
+        async with app.run_test(size=(120, 40)) as pilot:
+            await pilot.pause()
+            await steps(pilot)
+    asyncio.run(main())
+    saved = scenario.load(path)
+    last = saved.site.signoffs[-1]
+    assert (last.panel, last.day, last.by, last.license, last.date) == \
+        ("L2-R12", 17, "A. Engineer, PE", "PE 012345", date(2027, 8, 18))
+    assert "date = 2027-08-18" in saved.text

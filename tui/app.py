@@ -28,13 +28,12 @@ from bracing.results import SiteResult
 from bracing.scenario import REMOVE, SiteFile, SiteFileError
 from tui import design
 from tui.day_view import DayPicker, DayView, PlanView
+from tui.days import EVENT_FIELDS, ListDialog, signoff_fields
 from tui.dialogs import (
     DesignProposal,
     Export,
     ExportRequest,
     SaveAs,
-    SignOffDialog,
-    SignOffEntry,
     UnsavedChanges,
 )
 from tui.fields import moved_brace, panel_index, typed, with_values
@@ -86,6 +85,15 @@ def quick(result: SiteResult, site_file: SiteFile, keys: tuple) -> SiteResult | 
     return replace(result, panels=[fresh.get(p.mark, p) for p in result.panels])
 
 
+def early_signoffs(result: SiteResult) -> list[str]:
+    """The engine's findings of sign-offs that come before their wall's lift or an event its
+    release waits for."""
+    early = ("signoff-before-event", "signoff-before-lift")
+    flags = [f for p in result.panels for f in p.flags] + [f for d in result.days
+                                                           for f in d.flags]
+    return list(dict.fromkeys(f.message for f in flags if f.code in early))
+
+
 def problems_text(exc: SiteFileError) -> str:
     """The validation problems without the file name (the field is beside the message)."""
     prefix = re.compile(rf"^{re.escape(str(exc.path))}(:\d+)?: ")
@@ -124,11 +132,15 @@ class BracingApp(App[int]):
                 tooltip="the layout designer's braces for the wall, beside its own; accept or "
                         "refuse"),
         Binding("s", "signoff", "Sign-off", show=False,
-                tooltip="record a sign-off (a wall's release); refused with the reason when it "
-                        "comes before the wall's lift or its events"),
+                tooltip="add, change or remove a sign-off (a wall's release: who, license, "
+                        "date); refused with the reason when it comes before the wall's lift "
+                        "or its events"),
         Binding("m", "move_brace", "Move a brace", show=False,
                 tooltip="choose a brace on the wall's elevation (up / down) and move it (left / "
                         "right); its force follows"),
+        Binding("v", "events", "Events", show=False,
+                tooltip="add, change or remove an event (the permanent work walls wait for); "
+                        "refused with the reason when a sign-off would then come before it"),
         Binding("a", "toggle_foot", "Angle/foot", show=False,
                 tooltip="give the wall's braces by their foot distance, or by their angle"),
         Binding("ctrl+z", "undo", "Undo", tooltip="undo the last change of a value"),
@@ -228,7 +240,7 @@ class BracingApp(App[int]):
         """Every key: the app's bindings, then the keys the widgets handle."""
         where = {"step": "Wall, Day and Plan", "edit": "Wall and Settings", "zoom": "Plan",
                  "design": "Wall", "toggle_foot": "Wall", "signoff": "everywhere",
-                 "move_brace": "Wall"}
+                 "move_brace": "Wall", "events": "everywhere"}
         rows = []
         for b in cls.BINDINGS:
             keys = " / ".join(KEY_NAMES.get(k.strip(), k.strip()) for k in b.key.split(","))
@@ -457,33 +469,39 @@ class BracingApp(App[int]):
         self.apply(changed, ("panels", i, "bracing"))
 
     def action_signoff(self) -> None:
+        """The sign-offs (a wall's release: wall, day, who, license, date)."""
         marks = [p.mark for p in self.site_file.site.panels]
-        self.push_screen(SignOffDialog(marks, self.day, self._signoff_refused), self._signed)
+        defaults = {"panel": self.mark, "day": self.day}
+        self._edit_list("signoffs", "Sign-offs: the release of a wall's braces (OSHA "
+                        "1926.704(a))", signoff_fields(marks), defaults)
 
-    def _with_signoff(self, entry: SignOffEntry) -> SiteFile:
-        listed = list(self.site_file.data.get("signoffs", []))
-        return self.site_file.with_value(
-            ("signoffs",), [*listed, {"panel": entry.panel, "day": entry.day, "by": entry.by}])
+    def action_events(self) -> None:
+        """The events: the permanent work that makes walls eligible for release."""
+        self._edit_list("events", "Events: the permanent work that releases walls",
+                        EVENT_FIELDS, {"day": self.day})
 
-    def _signoff_refused(self, entry: SignOffEntry) -> str | None:
-        """Why a sign-off cannot be recorded: the file's validation, or the engine's finding
-        that it comes before the wall's lift or an event its release waits for."""
+    def _edit_list(self, key: str, title: str, entries_fields, defaults: dict) -> None:
+        listed = list(self.site_file.data.get(key, []))
+
+        def answer(entries: list[dict] | None) -> None:
+            if entries is not None:
+                self.apply(self.site_file.with_value((key,), entries), (key,))
+
+        self.push_screen(ListDialog(title, entries_fields, listed,
+                                    lambda entries: self._list_refused(key, entries),
+                                    defaults), answer)
+
+    def _list_refused(self, key: str, entries: list[dict]) -> str | None:
+        """Why a new list of events or sign-offs cannot be recorded: the file's validation, or
+        the engine's finding of a sign-off that would then come before its wall's lift or an
+        event its release waits for (one not found before the change)."""
         try:
-            changed = self._with_signoff(entry)
+            changed = self.site_file.with_value((key,), entries)
         except SiteFileError as exc:
             return problems_text(exc)
-        result = compute(changed)
-        early = ("signoff-before-event", "signoff-before-lift")
-        found = [f for p in result.panels if p.mark == entry.panel for f in p.flags
-                 if f.code in early and f"day {entry.day} " in f.message] + \
-            [f for d in result.days for f in d.flags
-             if f.code in early and f.message.startswith(f"{entry.panel}:")
-             and f"day {entry.day} " in f.message]
-        return found[0].message if found else None
-
-    def _signed(self, entry: SignOffEntry | None) -> None:
-        if entry is not None:
-            self.apply(self._with_signoff(entry), ("signoffs",))
+        before = early_signoffs(compute(self.site_file) if self.busy else self.result)
+        found = [m for m in early_signoffs(compute(changed)) if m not in before]
+        return found[0] if found else None
 
     async def action_move_brace(self) -> None:
         """Focus the elevation of the wall on view: choose a brace and move it."""
