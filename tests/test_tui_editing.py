@@ -337,3 +337,31 @@ def test_a_sign_off_keeps_who_license_and_date_and_the_saved_file_validates(tmp_
     assert (last.panel, last.day, last.by, last.license, last.date) == \
         ("L2-R12", 17, "A. Engineer, PE", "PE 012345", date(2027, 8, 18))
     assert "date = 2027-08-18" in saved.text
+
+
+def test_the_designers_proposal_is_drawn_beside_the_walls_own_braces(tmp_path):
+    """D-4 of the demo has braces of its own; the designer's proposal and the present layout
+    are each drawn as an elevation, their braces at the engine's positions (refused: no
+    change)."""
+    path = copy_site("demo-mixed", tmp_path)
+    app = BracingApp(path)
+
+    async def steps(pilot):
+        app.mark = "D-4"
+        await pilot.press("2", "d")
+        await pilot.pause()
+        dialog = app.screen
+        now, proposed = (str(s.render()) for s in dialog.query(".layout"))
+        for text, p in ((now, app.result.panel("D-4")), (proposed, dialog.proposal.result)):
+            where = ", ".join(f"{x:.1f} ft" for x in p.braces["positions_ft"])
+            assert "┌" in text and f"braces at {where} from the left edge" in text
+        assert now != proposed
+        await pilot.press("escape")
+        await pilot.pause()
+        assert not app.undo_stack
+
+    async def main():
+        async with app.run_test(size=(120, 40)) as pilot:
+            await pilot.pause()
+            await steps(pilot)
+    asyncio.run(main())

@@ -38,7 +38,7 @@ from tui.dialogs import (
 )
 from tui.fields import moved_brace, panel_index, typed, with_values
 from tui.settings_view import KeysView, SettingsView
-from tui.wall_view import BraceElevation, WallView
+from tui.wall_view import BraceElevation, WallView, openings_of
 from tui.walls_view import WallsView
 from tui.widgets import Caution, FieldRow, StatusLine
 
@@ -455,7 +455,8 @@ class BracingApp(App[int]):
             return
         proposal = design.propose(self.site_file, i)
         current = self.result.panel(self.mark)
-        self.push_screen(DesignProposal(self.mark, current, proposal, self.units),
+        openings = openings_of(self.site_file.site.panels[i])
+        self.push_screen(DesignProposal(self.mark, current, proposal, self.units, openings),
                          lambda accept: self._design_answer(i, proposal, accept))
 
     def _design_answer(self, i: int, proposal, accept: bool | None) -> None:

@@ -10,11 +10,12 @@ from rich.text import Text
 from textual import on
 from textual.app import ComposeResult
 from textual.binding import Binding
-from textual.containers import Horizontal, Vertical
+from textual.containers import Horizontal, Vertical, VerticalScroll
 from textual.screen import ModalScreen
 from textual.widgets import Button, Input, Label, RadioButton, RadioSet, Select, Static
 
 from bracing import scenario
+from tui import drawing
 from tui.widgets import Choice
 
 FORMATS = (("html", "HTML (print it)"), ("csv", "CSV (a spreadsheet)"), ("text", "plain text"))
@@ -204,20 +205,30 @@ class DesignProposal(ModalScreen[bool]):
 
     BINDINGS: ClassVar[list[Binding]] = [Binding("escape", "dismiss(False)", "Refuse")]
 
-    def __init__(self, mark: str, current, proposal, units: str = "us"):
+    def __init__(self, mark: str, current, proposal, units: str = "us", openings=()):
+        """`openings`: the wall's, (x, y, width, height) in ft, for the drawings."""
         super().__init__()
         self.mark = mark
         self.current = current
         self.proposal = proposal
         self.units = units
+        self.openings = list(openings)
+
+    def _column(self, title: str, p) -> Text:
+        """A layout in words over its elevation."""
+        out = layout_lines(title, p, self.units)
+        if p is not None:
+            drawn = drawing.panel_elevation(p, self.openings, self.units, cols=30, rows=9)
+            out.append("\n\n" + "\n".join(drawn))
+        return out
 
     def compose(self) -> ComposeResult:
         with Vertical(classes="dialog"):
             yield Static(Text(f"The layout designer's braces for {self.mark}"),
                          classes="dialog-title")
-            with Horizontal(classes="proposal"):
-                yield Static(layout_lines("Now", self.current, self.units), classes="layout")
-                yield Static(layout_lines("Proposed", self.proposal.result, self.units)
+            with VerticalScroll(classes="proposal"), Horizontal(classes="proposal-columns"):
+                yield Static(self._column("Now", self.current), classes="layout")
+                yield Static(self._column("Proposed", self.proposal.result)
                              if self.proposal.table else Text(f"No proposal: "
                                                               f"{self.proposal.message}"),
                              classes="layout")

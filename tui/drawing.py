@@ -178,6 +178,16 @@ def elevation(width_ft: float, height_ft: float, positions_ft: Sequence[float],
     return canvas.lines() + legend
 
 
+def panel_elevation(p, openings: Iterable[tuple[float, float, float, float]],
+                    units: str = "us", selected: int | None = None, cols: int = 32,
+                    rows: int = 12) -> list[str]:
+    """The elevation of a wall's result (`PanelResult`): its braces where the engine has them."""
+    b = p.braces
+    return elevation(p.width_ft, p.height_ft, b["positions_ft"] if b else [],
+                     b["insert_height_ft"] if b else None, openings, p.wind.resultant_height_ft,
+                     units, cols, rows, selected if b else None)
+
+
 class PlanCanvas(Canvas):
     """A canvas in plan coordinates (ft): x to the right, y up, one scale for the whole site."""
 

@@ -31,6 +31,11 @@ from tui.widgets import (
 )
 
 
+def openings_of(model) -> list[tuple[float, float, float, float]]:
+    """A site-file panel's openings as (x, y, width, height) in ft."""
+    return [(o.x, o.y, o.width, o.height) for o in model.openings] if model else []
+
+
 class BraceElevation(Static, can_focus=True):
     """The wall's elevation. With the focus, up and down choose a brace, left and right move
     it by a step (`fields.MOVE_STEP`, in the units on screen); the app writes the move and the
@@ -102,12 +107,7 @@ class BraceElevation(Static, can_focus=True):
             self.update("")
             return
         b = p.braces
-        openings = [(o.x, o.y, o.width, o.height) for o in self.model.openings] \
-            if self.model else []
-        lines = drawing.elevation(p.width_ft, p.height_ft, b["positions_ft"] if b else [],
-                                  b["insert_height_ft"] if b else None, openings,
-                                  p.wind.resultant_height_ft, units,
-                                  selected=self.selected if b else None)
+        lines = drawing.panel_elevation(p, openings_of(self.model), units, self.selected)
         out = Text("\n".join(lines))
         if b:
             k = self.selected
