@@ -8,7 +8,6 @@ nothing.
 
 from __future__ import annotations
 
-import re
 import sys
 from dataclasses import replace
 from pathlib import Path
@@ -23,22 +22,15 @@ from textual.reactive import reactive
 from textual.widgets import Footer, Input, Select, Static, TabbedContent, TabPane
 
 from bracing import scenario
-from bracing.evaluate import evaluate, evaluate_walls
 from bracing.results import SiteResult
 from bracing.scenario import REMOVE, SiteFile, SiteFileError
-from tui import design
 from tui.day_view import DayPicker, DayView, PlanView
-from tui.days import EVENT_FIELDS, ListDialog, signoff_fields
-from tui.dialogs import (
-    DesignProposal,
-    Export,
-    ExportRequest,
-    SaveAs,
-    UnsavedChanges,
-)
-from tui.fields import moved_brace, panel_index, typed, with_values
+from tui.engine import compute, problems_text, quick
+from tui.fields import typed
+from tui.files import Files
+from tui.fixes import Fixes
 from tui.settings_view import KeysView, SettingsView
-from tui.wall_view import BraceElevation, WallView, openings_of
+from tui.wall_view import WallView
 from tui.walls_view import WallsView
 from tui.widgets import Caution, FieldRow, StatusLine
 
@@ -67,40 +59,7 @@ WIDGET_KEYS = (
 )
 
 
-def compute(site_file: SiteFile) -> SiteResult:
-    """The engine's result for a site file (the interface computes nothing itself); the
-    forecast file is read from the site file's folder."""
-    return evaluate(site_file.site, base_dir=Path(site_file.path).parent)
-
-
-def quick(result: SiteResult, site_file: SiteFile, keys: tuple) -> SiteResult | None:
-    """After an edit to one wall: the engine's checks of that wall spliced into the last
-    result at once (the days and the plan follow with the whole site's result)."""
-    if result is None or len(keys) < 2 or keys[0] != "panels":
-        return None
-    mark = site_file.site.panels[keys[1]].mark
-    fresh = {p.mark: p for p in evaluate_walls(site_file.site, {mark})}
-    if mark not in {p.mark for p in result.panels}:
-        return None
-    return replace(result, panels=[fresh.get(p.mark, p) for p in result.panels])
-
-
-def early_signoffs(result: SiteResult) -> list[str]:
-    """The engine's findings of sign-offs that come before their wall's lift or an event its
-    release waits for."""
-    early = ("signoff-before-event", "signoff-before-lift")
-    flags = [f for p in result.panels for f in p.flags] + [f for d in result.days
-                                                           for f in d.flags]
-    return list(dict.fromkeys(f.message for f in flags if f.code in early))
-
-
-def problems_text(exc: SiteFileError) -> str:
-    """The validation problems without the file name (the field is beside the message)."""
-    prefix = re.compile(rf"^{re.escape(str(exc.path))}(:\d+)?: ")
-    return "; ".join(prefix.sub("", p) for p in exc.problems)
-
-
-class BracingApp(App[int]):
+class BracingApp(Fixes, Files, App[int]):
     """Walls, a wall, a day, the plan and the settings of one site file."""
 
     CSS_PATH = "app.tcss"
@@ -114,7 +73,8 @@ class BracingApp(App[int]):
                 tooltip="the Wall view: its inputs, checks and drawings"),
         Binding("3", "show('day')", "Day", show=False,
                 tooltip="the Day view: lifts, braces and anchors, go / no-go"),
-        Binding("4", "show('plan')", "Plan", show=False, tooltip="the Plan view: the site in plan on a day"),
+        Binding("4", "show('plan')", "Plan", show=False,
+                tooltip="the Plan view: the site in plan on a day"),
         Binding("5", "show('settings')", "Settings", show=False,
                 tooltip="the Settings view: wind basis, exposure, period, rules"),
         Binding("question_mark,f1", "show('keys')", "Keys", key_display="?",
@@ -422,109 +382,6 @@ class BracingApp(App[int]):
             self.dirty = bool(self.site_file.edits) or self.site_file.text is not self.saved_text
             self.refresh_bindings()
 
-    def _wall_index(self) -> int | None:
-        return panel_index(self.site_file, self.mark) if self.view == "wall" else None
-
-    def action_toggle_foot(self) -> None:
-        """The wall's braces given by their foot distance instead of their angle, or back; the
-        value carried over is the engine's for the present layout."""
-        i = self._wall_index()
-        table = self.site_file.data["panels"][i].get("bracing") if i is not None else None
-        braces = self.result.panel(self.mark).braces if table else None
-        if not braces:
-            self.notify("Open a wall with braces (the Wall view) to switch angle and foot "
-                        "distance.", severity="warning")
-            return
-        base = ("panels", i, "bracing")
-        if "angle" in table:
-            changes = [(base + ("angle",), REMOVE),
-                       (base + ("anchor_distance",), f"{braces['anchor_distance_ft']:.2f} ft")]
-        else:
-            changes = [(base + ("anchor_distance",), REMOVE),
-                       (base + ("angle",), f"{braces['angle_deg']:.1f} deg")]
-        try:
-            self.apply(with_values(self.site_file, changes), base)
-        except SiteFileError as exc:
-            self.notify(f"Not switched: {problems_text(exc)}", severity="error", markup=False)
-
-    def action_design(self) -> None:
-        """The layout designer's proposal for the wall on view, beside its present layout."""
-        i = self._wall_index()
-        if i is None:
-            self.notify("Open a wall (the Wall view) to design its braces.", severity="warning")
-            return
-        proposal = design.propose(self.site_file, i)
-        current = self.result.panel(self.mark)
-        openings = openings_of(self.site_file.site.panels[i])
-        self.push_screen(DesignProposal(self.mark, current, proposal, self.units, openings),
-                         lambda accept: self._design_answer(i, proposal, accept))
-
-    def _design_answer(self, i: int, proposal, accept: bool | None) -> None:
-        if not accept or proposal.table is None:
-            return
-        try:
-            changed = self.site_file.with_value(("panels", i, "bracing"), proposal.table)
-        except SiteFileError as exc:
-            self.notify(f"Not accepted: {problems_text(exc)}", severity="error", markup=False)
-            return
-        self.apply(changed, ("panels", i, "bracing"))
-
-    def action_signoff(self) -> None:
-        """The sign-offs (a wall's release: wall, day, who, license, date)."""
-        marks = [p.mark for p in self.site_file.site.panels]
-        defaults = {"panel": self.mark, "day": self.day}
-        self._edit_list("signoffs", "Sign-offs: the release of a wall's braces (OSHA "
-                        "1926.704(a))", signoff_fields(marks), defaults)
-
-    def action_events(self) -> None:
-        """The events: the permanent work that makes walls eligible for release."""
-        self._edit_list("events", "Events: the permanent work that releases walls",
-                        EVENT_FIELDS, {"day": self.day})
-
-    def _edit_list(self, key: str, title: str, entries_fields, defaults: dict) -> None:
-        listed = list(self.site_file.data.get(key, []))
-
-        def answer(entries: list[dict] | None) -> None:
-            if entries is not None:
-                self.apply(self.site_file.with_value((key,), entries), (key,))
-
-        self.push_screen(ListDialog(title, entries_fields, listed,
-                                    lambda entries: self._list_refused(key, entries),
-                                    defaults), answer)
-
-    def _list_refused(self, key: str, entries: list[dict]) -> str | None:
-        """Why a new list of events or sign-offs cannot be recorded: the file's validation, or
-        the engine's finding of a sign-off that would then come before its wall's lift or an
-        event its release waits for (one not found before the change)."""
-        try:
-            changed = self.site_file.with_value((key,), entries)
-        except SiteFileError as exc:
-            return problems_text(exc)
-        before = early_signoffs(compute(self.site_file) if self.busy else self.result)
-        found = [m for m in early_signoffs(compute(changed)) if m not in before]
-        return found[0] if found else None
-
-    async def action_move_brace(self) -> None:
-        """Focus the elevation of the wall on view: choose a brace and move it."""
-        await self.action_show("wall")
-        self.query_one(BraceElevation).focus(scroll_visible=True)
-
-    @on(BraceElevation.BraceMoved)
-    def _move_brace(self, event: BraceElevation.BraceMoved) -> None:
-        i = panel_index(self.site_file, self.mark)
-        p = self.result.panel(self.mark)
-        if i is None or not p.braces:
-            return
-        listed = self.site_file.site.panels[i].bracing.positions or p.braces["positions_ft"]
-        try:
-            changed = moved_brace(self.site_file, i, listed, event.index, event.step_ft,
-                                  self.units)
-        except SiteFileError as exc:
-            self.notify(f"Not moved: {problems_text(exc)}", severity="warning", markup=False)
-            return
-        self.apply(changed, ("panels", i, "bracing"),
-                   gesture=("move", self.mark, event.index, event.gesture))
-
     def action_undo(self) -> None:
         self.gesture = None
         if not self.undo_stack:
@@ -538,85 +395,6 @@ class BracingApp(App[int]):
             return
         self.undo_stack.append(self.site_file)
         self._install(self.redo_stack.pop())
-
-    # --- files --------------------------------------------------------------------------------
-    def action_save(self) -> None:
-        if self.demo:
-            self.action_save_as()
-        elif self.save_to(None) and self.quit_after_save:
-            self.exit(0)
-
-    def action_save_as(self) -> None:
-        default = "my-site.toml" if self.demo else str(self.site_file.path)
-        forecast = scenario.inputs_of(self.site_file.path)[1:]  # never over the forecast
-        self.push_screen(SaveAs(default, forecast), self._save_as_chosen)
-
-    def _save_as_chosen(self, path: str | None) -> None:
-        if path is None:
-            self.quit_after_save = False
-            return
-        if self.save_to(Path(path)) and self.quit_after_save:
-            self.exit(0)
-
-    def save_to(self, path: Path | None) -> bool:
-        """Save atomically (the old file kept as .bak); say so, or say why not. A failed save
-        changes nothing: the file on disk stays whole and the edits stay unsaved here."""
-        try:
-            target = self.site_file.save(path)
-        except Exception as exc:  # noqa: BLE001 - an edit must never be lost to a failed save
-            self.notify(f"Not saved: {exc}", severity="error", timeout=10, markup=False)
-            self.quit_after_save = False
-            return False
-        self.saved_text = self.site_file.text
-        self.demo = False
-        self.dirty = False
-        self.file_name = self._file_label(self.site_file)
-        self.notify(f"Saved {target}", markup=False)
-        return True
-
-    def action_export(self) -> None:
-        if self.busy:
-            self.notify("Wait for the recompute to finish, then export.", severity="warning")
-            return
-        days = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day)
-                for d in self.result.days]
-        stem = Path(self.site_file.path).stem
-        self.push_screen(Export(stem, days, self.day, Path(self.site_file.path).parent),
-                         self.export)
-
-    def export(self, request: ExportRequest | None) -> None:
-        """Write the schedule the engine's report renders, atomically."""
-        if request is None:
-            return
-        try:
-            from bracing.report import schedule
-        except ImportError:
-            self.notify("The schedule export is not available in this version of the engine.",
-                        severity="error", timeout=10)
-            return
-        try:
-            scenario.check_output(request.path, scenario.inputs_of(self.site_file.path))
-            text = schedule.render(self.site_file.site, self.result, request.day, request.fmt,
-                                   self.units)
-            scenario.atomic_write(Path(request.path), text)
-        except (ValueError, OSError) as exc:  # WriteRefused says why (an input, a folder...)
-            self.notify(f"Not exported: {exc}", severity="error", timeout=10, markup=False)
-            return
-        self.notify(f"Wrote {request.path}", markup=False)
-
-    def action_quit(self) -> None:
-        if not self.dirty:
-            self.exit(0)
-            return
-        self.push_screen(UnsavedChanges(), self._quit_answer)
-
-    def _quit_answer(self, answer: str | None) -> None:
-        if answer == "drop":
-            self.exit(0)
-        elif answer == "save":
-            self.quit_after_save = True
-            self.action_save()
-
 
 def run(path: str | None = None) -> int:
     """Open the interface on a site file (a demo site when None); the exit code."""

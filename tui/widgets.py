@@ -228,7 +228,8 @@ class Form(Vertical):
             await self.recompose()
         else:
             self.specs = specs
-            for row, spec in zip(self.query(FieldRow), specs):
+            # a form not composed yet has no rows: each shows its spec when composed
+            for row, spec in zip(self.query(FieldRow), specs, strict=False):
                 row.show(spec)
         self.watch_errors(self.errors)
 
