@@ -13,12 +13,14 @@ import shutil
 from pathlib import Path
 
 from test_tui import SITE, cells
-from textual.widgets import Footer, Input, Static
+from textual.widgets import DataTable, Footer, Input, Static
 
 from bracing import scenario
 from tui import app as tui_app
 from tui.app import BracingApp
 from tui.fields import wall_fields
+from tui.walls_view import WallsView
+from tui.widgets import speed
 
 SCENARIOS = Path(__file__).resolve().parents[1] / "scenarios"
 
@@ -150,5 +152,38 @@ def test_the_settings_labels_are_whole_words(tmp_path):
         await pilot.pause()
         text = screen_text(app)
         assert "Minimum braces per panel" in text and "per3" not in text
+
+    drive(app, steps)
+
+
+def test_a_view_off_screen_is_drawn_when_it_comes_back_not_at_each_edit(tmp_path, monkeypatch):
+    """An edit on the Wall view redraws that view; the Walls table, off screen, is filled
+    again only when it is shown, and then with the edited wall's new result (the engine's
+    stand-down gust, as the table writes it)."""
+    path = copy_site("demo-mixed", tmp_path)
+    app = BracingApp(path)
+    fills = []
+    original = WallsView.refill
+    monkeypatch.setattr(WallsView, "refill", lambda self: (fills.append(1), original(self)))
+
+    async def steps(pilot):
+        app.mark = "M-1"
+        await pilot.press("2")
+        await pilot.pause()
+        fills.clear()
+        box = app.query_one("#field-height Input", Input)
+        box.focus()
+        box.value = "9 ft"
+        await pilot.press("enter")
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        assert app.result.panel("M-1").height_ft == 9.0
+        assert fills == []  # off screen: not drawn
+        await pilot.press("escape", "1")
+        await pilot.pause()
+        assert fills
+        table = app.query_one("#walls-table", DataTable)
+        row = table.get_row("M-1")
+        assert str(row[2]) == speed(app.result.panel("M-1").stand_down_speed_mph, "us")
 
     drive(app, steps)

@@ -24,7 +24,6 @@ from textual.widgets import Footer, Input, Select, Static, TabbedContent, TabPan
 from bracing import scenario
 from bracing.results import SiteResult
 from bracing.scenario import REMOVE, SiteFile, SiteFileError
-from tui.day_view import DayPicker, DayView, PlanView
 from tui.engine import compute, problems_text, quick
 from tui.fields import typed
 from tui.files import Files
@@ -32,7 +31,7 @@ from tui.fixes import Fixes
 from tui.settings_view import KeysView, SettingsView
 from tui.wall_view import WallView
 from tui.walls_view import WallsView
-from tui.widgets import Caution, FieldRow, StatusLine
+from tui.widgets import Caution, DrawnWhenShown, FieldRow, StatusLine
 
 DEMO = Path(__file__).resolve().parents[1] / "scenarios" / "demo-mixed.toml"
 
@@ -182,14 +181,22 @@ class BracingApp(Fixes, Files, App[int]):
             return WallView(id="wall-view").data_bind(app.result, app.site_file, app.mark,
                                                       app.units, app.errors)
         if view == "day":
-            return DayView(id="day-view").data_bind(app.result, app.site_file, app.day,
-                                                    app.units)
+            return self._day_module().DayView(id="day-view").data_bind(
+                app.result, app.site_file, app.day, app.units)
         if view == "plan":
-            return PlanView(id="plan-view").data_bind(app.result, app.day, app.units)
+            return self._day_module().PlanView(id="plan-view").data_bind(
+                app.result, app.day, app.units)
         if view == "settings":
             return SettingsView(id="settings-view").data_bind(app.result, app.site_file,
                                                               app.errors)
         return KeysView(id="keys-view").data_bind(app.keys)
+
+    @staticmethod
+    def _day_module():
+        """The Day and Plan views' module, loaded when one is first shown (with the schedule's
+        words and the plan's drawing): not waited for at start."""
+        from tui import day_view
+        return day_view
 
     def on_mount(self) -> None:
         self.query_one("#walls-table").focus()
@@ -224,13 +231,16 @@ class BracingApp(Fixes, Files, App[int]):
         return True
 
     async def _ensure_view(self, view: str) -> None:
-        """Build `view` in its pane (in place of the placeholder) if it is not built yet."""
+        """Build `view` in its pane (in place of the placeholder) if it is not built yet, else
+        draw what changed while it was off screen."""
         pane = self.query_one(f"#{view}", TabPane)
         placeholder = pane.query(".loading")
         if placeholder:
             await placeholder.remove()
-            widget = self.make_view(view)
-            await pane.mount(widget)
+            await pane.mount(self.make_view(view))
+        for widget in pane.children:  # (a view just built: what its bindings gave it)
+            if isinstance(widget, DrawnWhenShown):
+                await widget.catch_up()
 
     @on(TabbedContent.TabActivated)
     async def _tab(self, event: TabbedContent.TabActivated) -> None:
@@ -281,7 +291,7 @@ class BracingApp(Fixes, Files, App[int]):
                 self.day = days[max(0, min(len(days) - 1, k + delta))]
 
     def action_zoom(self, factor: float) -> None:
-        view = self.query_one(PlanView)
+        view = self.query_one("#plan-view")
         view.zoom = view.zoom * factor  # PlanView.validate_zoom keeps it in range
 
     async def action_edit(self) -> None:
@@ -308,8 +318,8 @@ class BracingApp(Fixes, Files, App[int]):
     def _pick_wall(self, event: WallView.WallPicked) -> None:
         self.mark = event.mark
 
-    @on(DayPicker.DayPicked)
-    def _pick_day(self, event: DayPicker.DayPicked) -> None:
+    def on_day_picker_day_picked(self, event) -> None:
+        """A day chosen (DayPicker.DayPicked; its module is loaded with the Day view)."""
         self.day = event.day
 
     # --- editing ------------------------------------------------------------------------------

@@ -18,6 +18,7 @@ from tui import drawing
 from tui.widgets import (
     FLAG_LOOK,
     Choice,
+    DrawnWhenShown,
     plain,
     speed,
 )
@@ -117,17 +118,17 @@ NO_SCHEDULE = ("No days to show: the site file gives no lift days, or the schedu
                "available in this version of the engine.")
 
 
-class RedrawsForTheDay:
+class RedrawsForTheDay(DrawnWhenShown):
     """A view that draws itself again when the result, the day or the units change."""
 
     def watch_result(self) -> None:
-        self._show()
+        self.redraw(self._show)
 
     def watch_day(self) -> None:
-        self._show()
+        self.redraw(self._show)
 
     def watch_units(self) -> None:
-        self._show()
+        self.redraw(self._show)
 
 
 class DayView(RedrawsForTheDay, Vertical):
@@ -221,10 +222,10 @@ class PlanView(RedrawsForTheDay, Vertical):
         self._show()
 
     def on_resize(self) -> None:
-        self._show()
+        self.redraw(self._show)
 
     def watch_zoom(self) -> None:
-        self._show()
+        self.redraw(self._show)
 
     def _show(self) -> None:
         if not self.is_mounted:

@@ -10,7 +10,6 @@ from __future__ import annotations
 from collections.abc import Iterable, Sequence
 from itertools import pairwise
 
-from bracing.report import svg
 from bracing.report.text import fmt
 
 CELL_ASPECT = 2.0  # a terminal cell is about twice as tall as it is wide
@@ -239,6 +238,8 @@ AREA_WORDS = {"keep_clear": "keep clear", "crane_path": "crane path", "public_wa
 
 def pick_plan(plan, day: int | None):
     """The plan geometry of `day` when the result holds one per day (else the busiest day's)."""
+    from bracing.report import svg  # with the Plan view, not at start
+
     try:
         return svg.pick_plan(plan, day)
     except ValueError:

@@ -11,13 +11,14 @@ from textual.widgets import DataTable, Static
 from bracing.model import DEFAULT_RULES
 from tui.fields import site_fields
 from tui.widgets import (
+    DrawnWhenShown,
     Form,
     flag_lines,
     plain,
 )
 
 
-class SettingsView(VerticalScroll):
+class SettingsView(DrawnWhenShown, VerticalScroll):
     """The wind basis, exposure, period and the site rules with their sources."""
 
     result = reactive(None, always_update=True, init=False)
@@ -38,9 +39,12 @@ class SettingsView(VerticalScroll):
         """Whole when mounted: the app gives the attributes before it mounts the view."""
         self.query_one(DataTable).add_columns("Rule", "Value", "In force", "Source", "Basis")
         self._rules()
-        self.watch_result()
+        self._basis()
 
     async def watch_site_file(self) -> None:
+        await self.redraw_async(self._inputs)
+
+    async def _inputs(self) -> None:
         if self.site_file is None:
             return
         await self.query_one(Form).show(site_fields(self.site_file))
@@ -60,6 +64,9 @@ class SettingsView(VerticalScroll):
                                  rule.basis), key=name)
 
     def watch_result(self) -> None:
+        self.redraw(self._basis)
+
+    def _basis(self) -> None:
         if self.result is None:
             return
         self.query_one("#settings-basis", Static).update(

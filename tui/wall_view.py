@@ -21,6 +21,7 @@ from tui.fields import panel_index, wall_fields
 from tui.widgets import (
     UNIT_KEY,
     Choice,
+    DrawnWhenShown,
     Form,
     flag_lines,
     pass_text,
@@ -120,7 +121,7 @@ class BraceElevation(Static, can_focus=True):
         self.update(out)
 
 
-class WallView(Horizontal):
+class WallView(DrawnWhenShown, Horizontal):
     """One wall: its inputs as a form; every check; a section and an elevation."""
 
     @dataclass
@@ -169,17 +170,17 @@ class WallView(Horizontal):
         self._results()  # whole when mounted: the app gives the attributes first
 
     async def watch_site_file(self) -> None:
-        await self._inputs()
+        await self.redraw_async(self._inputs)
 
     async def watch_mark(self) -> None:
-        await self._inputs()
-        self._results()
+        await self.redraw_async(self._inputs)
+        self.redraw(self._results)
 
     def watch_result(self) -> None:
-        self._results()
+        self.redraw(self._results)
 
     def watch_units(self) -> None:
-        self._results()
+        self.redraw(self._results)
 
     async def _inputs(self) -> None:
         if self.site_file is None:

@@ -16,6 +16,7 @@ from tui.widgets import (
     ALL,
     STATUS_LOOK,
     Choice,
+    DrawnWhenShown,
     plain,
     speed,
     utilization_text,
@@ -24,7 +25,7 @@ from tui.widgets import (
 )
 
 
-class WallsView(Vertical):
+class WallsView(DrawnWhenShown, Vertical):
     """Every wall, worst first: status, governing utilization, stand-down gust; with filters."""
 
     @dataclass
@@ -67,6 +68,9 @@ class WallsView(Vertical):
         self.refill()
 
     def watch_result(self) -> None:
+        self.redraw(self._days_and_rows)
+
+    def _days_and_rows(self) -> None:
         days = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day)
                 for d in (self.result.days if self.result else [])]
         select = self.query_one("#filter-day", Choice)
@@ -75,10 +79,10 @@ class WallsView(Vertical):
         self.refill()
 
     def watch_site_file(self) -> None:
-        self.refill()
+        self.redraw(self.refill)
 
     def watch_units(self) -> None:
-        self.refill()
+        self.redraw(self.refill)
 
     @on(Select.Changed)
     def _filter(self, event: Select.Changed) -> None:

@@ -4,7 +4,9 @@ well as colour), a choice list, the caution, the status line and the forms of fi
 
 from __future__ import annotations
 
+import inspect
 import math
+from collections.abc import Callable
 from dataclasses import dataclass
 
 from rich.text import Text
@@ -90,6 +92,36 @@ class Choice(Select):
             self.set_options(options)
         if any(v == value for _, v in options) and self.value != value:
             self.value = value
+
+
+class DrawnWhenShown:
+    """A view that draws only while its pane is on screen: a change made meanwhile is drawn
+    when the view comes back (`catch_up`), so that an edit redraws what the user sees, not
+    every view built so far."""
+
+    def hidden(self, draw: Callable) -> bool:
+        """True when the view is off screen: `draw` is then kept for `catch_up`."""
+        pane = self.parent
+        if self.is_mounted and pane is not None and not pane.display:
+            self.__dict__.setdefault("_pending", {})[draw.__name__] = draw
+            return True
+        return False
+
+    def redraw(self, draw: Callable) -> None:
+        if not self.hidden(draw):
+            draw()
+
+    async def redraw_async(self, draw: Callable) -> None:
+        if not self.hidden(draw):
+            await draw()
+
+    async def catch_up(self) -> None:
+        """Draw what changed while the view was off screen."""
+        pending = self.__dict__.pop("_pending", {})
+        for draw in pending.values():
+            done = draw()
+            if inspect.isawaitable(done):
+                await done
 
 
 class Caution(Static):
