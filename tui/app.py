@@ -224,10 +224,6 @@ class BracingApp(Fixes, Files, App[int]):
             return self.view in ("wall", "day", "plan")
         if action == "zoom":
             return self.view == "plan"
-        if action == "undo":
-            return True if self.undo_stack else None
-        if action == "redo":
-            return True if self.redo_stack else None
         return True
 
     async def _ensure_view(self, view: str) -> None:
@@ -356,7 +352,6 @@ class BracingApp(Fixes, Files, App[int]):
         self.site_file = site_file
         self.errors = {}
         self.dirty = bool(site_file.edits) or site_file.text is not self.saved_text
-        self.refresh_bindings()
         self.generation += 1
         self.busy = True
         self._evaluate(self.generation, site_file)
@@ -390,11 +385,13 @@ class BracingApp(Fixes, Files, App[int]):
         if self.undo_stack:
             self.site_file = self.undo_stack.pop()
             self.dirty = bool(self.site_file.edits) or self.site_file.text is not self.saved_text
-            self.refresh_bindings()
 
     def action_undo(self) -> None:
+        """Undo the last edit. The key is always on the footer: showing and hiding it would
+        rebuild the footer at each edit."""
         self.gesture = None
         if not self.undo_stack:
+            self.notify("Nothing to undo.")
             return
         self.redo_stack.append(self.site_file)
         self._install(self.undo_stack.pop())
@@ -402,6 +399,7 @@ class BracingApp(Fixes, Files, App[int]):
     def action_redo(self) -> None:
         self.gesture = None
         if not self.redo_stack:
+            self.notify("Nothing to redo.")
             return
         self.undo_stack.append(self.site_file)
         self._install(self.redo_stack.pop())

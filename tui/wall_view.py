@@ -26,6 +26,7 @@ from tui.widgets import (
     flag_lines,
     pass_text,
     plain,
+    show_text,
     speed,
     utilization_text,
     wall_status_text,
@@ -105,7 +106,7 @@ class BraceElevation(Static, can_focus=True):
     def _render_wall(self) -> None:
         p, units = self.panel, self.units
         if p is None:
-            self.update("")
+            show_text(self, "")
             return
         b = p.braces
         lines = drawing.panel_elevation(p, openings_of(self.model), units, self.selected)
@@ -118,7 +119,7 @@ class BraceElevation(Static, can_focus=True):
                        f"{fmt(b['brace_forces_lb'][k], 'lbf', units)}", style="bold")
             out.append(f"\n↑↓ choose a brace, ←→ move it {step}" if self.has_focus else
                        "\nm (or a click): choose a brace and move it", style="dim")
-        self.update(out)
+        show_text(self, out)
 
 
 class WallView(DrawnWhenShown, Horizontal):
@@ -197,25 +198,35 @@ class WallView(DrawnWhenShown, Horizontal):
 
     def _results(self) -> None:
         summary = self.query_one("#wall-summary", Static)
-        table = self.query_one("#checks-table", DataTable)
-        table.clear()
         p = next((p for p in self.result.panels if p.mark == self.mark), None) \
             if self.result else None
         if p is None:
-            summary.update("Choose a wall on the Walls view (Enter) or above.")
+            self._checks([])
+            show_text(summary, "Choose a wall on the Walls view (Enter) or above.")
             for name in ("#wall-flags", "#wall-section", "#wall-elevation"):
-                self.query_one(name, Static).update("")
+                show_text(self.query_one(name, Static), "")
             self.query_one(BraceElevation).panel = None
             return
-        summary.update(self._summary(p))
-        self.query_one("#wall-flags", Static).update(flag_lines(p.flags_worst_first()))
-        for c in p.worst_first():
-            unit = UNIT_KEY.get(c.unit, c.unit)
-            table.add_row(*plain(pass_text(c.passes), c.element, c.region,
-                                 fmt(c.demand, unit, self.units),
-                                 fmt(c.capacity, unit, self.units),
-                                 utilization_text(c.utilization), c.combination, c.source))
+        show_text(summary, self._summary(p))
+        show_text(self.query_one("#wall-flags", Static), flag_lines(p.flags_worst_first()))
+        self._checks([plain(pass_text(c.passes), c.element, c.region,
+                            fmt(c.demand, UNIT_KEY.get(c.unit, c.unit), self.units),
+                            fmt(c.capacity, UNIT_KEY.get(c.unit, c.unit), self.units),
+                            utilization_text(c.utilization), c.combination, c.source)
+                      for c in p.worst_first()])
         self._drawings(p)
+
+    def _checks(self, rows: list[list[Text]]) -> None:
+        """The checks table, filled again only when a row changes (the table is the slowest
+        part of the screen to draw)."""
+        key = [[(c.plain, str(c.style)) for c in row] for row in rows]
+        if self.__dict__.get("_checks_shown") == key:
+            return
+        self.__dict__["_checks_shown"] = key
+        table = self.query_one("#checks-table", DataTable)
+        table.clear()
+        for row in rows:
+            table.add_row(*row)
 
     def _summary(self, p) -> Text:
         u, w, units = p.unbraced, p.wind, self.units
@@ -271,5 +282,5 @@ class WallView(DrawnWhenShown, Horizontal):
         b = p.braces
         section = drawing.section(p.height_ft, p.thickness_in, b, footing,
                                   p.wind.resultant_height_ft, self.units)
-        self.query_one("#wall-section", Static).update(Text("\n".join(section)))
+        show_text(self.query_one("#wall-section", Static), "\n".join(section))
         self.query_one(BraceElevation).draw(p, model, self.units)

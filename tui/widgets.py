@@ -94,6 +94,16 @@ class Choice(Select):
             self.value = value
 
 
+def show_text(widget: Static, text: Text | str) -> None:
+    """Put `text` in `widget` only when it differs from what the widget shows (an update lays
+    the screen out again: the whole site's result after a wall's changes little on screen)."""
+    text = Text(text) if isinstance(text, str) else text
+    key = (text.plain, [(s.start, s.end, str(s.style)) for s in text.spans])
+    if widget.__dict__.get("_shown") != key:
+        widget.__dict__["_shown"] = key
+        widget.update(text)
+
+
 class DrawnWhenShown:
     """A view that draws only while its pane is on screen: a change made meanwhile is drawn
     when the view comes back (`catch_up`), so that an edit redraws what the user sees, not
