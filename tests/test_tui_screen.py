@@ -20,7 +20,7 @@ from tui import app as tui_app
 from tui.app import BracingApp
 from tui.fields import wall_fields
 from tui.walls_view import WallsView
-from tui.widgets import speed
+from tui.widgets import KeyFooter, speed
 
 SCENARIOS = Path(__file__).resolve().parents[1] / "scenarios"
 
@@ -185,5 +185,31 @@ def test_a_view_off_screen_is_drawn_when_it_comes_back_not_at_each_edit(tmp_path
         table = app.query_one("#walls-table", DataTable)
         row = table.get_row("M-1")
         assert str(row[2]) == speed(app.result.panel("M-1").stand_down_speed_mph, "us")
+
+    drive(app, steps)
+
+
+def test_the_footer_is_built_again_only_when_its_keys_change(tmp_path, monkeypatch):
+    """From the Walls view to the Wall view the footer gains [ and ] (built again, and shows
+    them); from the Wall view to the Day view its keys stay the same (not built again)."""
+    path = copy_site("demo-mixed", tmp_path)
+    app = BracingApp(path)
+    builds = []
+    original = KeyFooter.recompose
+
+    async def counted(self):
+        builds.append(1)
+        await original(self)
+
+    monkeypatch.setattr(KeyFooter, "recompose", counted)
+
+    async def steps(pilot):
+        await pilot.press("2")
+        await pilot.pause()
+        assert builds and "Previous" in screen_text(app).splitlines()[-1]
+        builds.clear()
+        await pilot.press("3")
+        await pilot.pause()
+        assert builds == [] and "Previous" in screen_text(app).splitlines()[-1]
 
     drive(app, steps)

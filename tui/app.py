@@ -19,7 +19,7 @@ from textual.app import App, ComposeResult
 from textual.binding import Binding
 from textual.containers import Vertical
 from textual.reactive import reactive
-from textual.widgets import Footer, Input, Select, Static, TabbedContent, TabPane
+from textual.widgets import Input, Select, Static, TabbedContent, TabPane
 
 from bracing import scenario
 from bracing.results import SiteResult
@@ -31,7 +31,7 @@ from tui.fixes import Fixes
 from tui.settings_view import KeysView, SettingsView
 from tui.wall_view import WallView
 from tui.walls_view import WallsView
-from tui.widgets import Caution, DrawnWhenShown, FieldRow, StatusLine
+from tui.widgets import Caution, DrawnWhenShown, FieldRow, KeyFooter, StatusLine
 
 DEMO = Path(__file__).resolve().parents[1] / "scenarios" / "demo-mixed.toml"
 
@@ -163,7 +163,7 @@ class BracingApp(Fixes, Files, App[int]):
                     # a view is built when first shown; until then the pane says so in words
                     yield self.make_view(view) if view == "walls" else \
                         Static("Loading…", classes="loading")
-        yield Footer()
+        yield KeyFooter()
 
     def make_view(self, view: str):
         """A view, its attributes bound to the app's (a view is built when first shown) and

@@ -15,7 +15,7 @@ from textual.app import ComposeResult
 from textual.containers import Horizontal, Vertical
 from textual.message import Message
 from textual.reactive import reactive
-from textual.widgets import Input, Label, Select, Static
+from textual.widgets import Footer, Input, Label, Select, Static
 
 from bracing.report.text import fmt
 from bracing.results import CAUTION
@@ -132,6 +132,19 @@ class DrawnWhenShown:
             done = draw()
             if inspect.isawaitable(done):
                 await done
+
+
+class KeyFooter(Footer):
+    """Textual's footer, built again only when the keys it shows change (the footer builds a
+    widget per key at every focus change: the better part of a view switch)."""
+
+    def bindings_changed(self, screen) -> None:
+        shown = tuple((b.key, b.description, enabled)
+                      for _, b, enabled, _ in screen.active_bindings.values() if b.show)
+        if shown != self.__dict__.get("_keys_shown") or not screen.app.app_focus:
+            if screen.app.app_focus:
+                self.__dict__["_keys_shown"] = shown
+            super().bindings_changed(screen)
 
 
 class Caution(Static):
