@@ -109,7 +109,7 @@ def test_a_mark_written_like_markup_is_shown_as_written(tmp_path):
 
 def test_a_wall_with_a_danger_finding_shows_no_pass_mark(tmp_path):
     """townhouse-framing's L2-R12: braced, but its sign-off comes before its roof event (a
-    danger finding); PanelResult.fails is the one test."""
+    danger finding); PanelResult.fails is the one test. The failing walls come first."""
     path = copy_site("townhouse-framing", tmp_path)
     result = tui_app.compute(scenario.load(path))
     failing = {p.mark for p in result.panels if p.fails}
@@ -117,9 +117,12 @@ def test_a_wall_with_a_danger_finding_shows_no_pass_mark(tmp_path):
     app = BracingApp(path, result=result)
 
     async def steps(pilot):
-        for row in cells(app, "#walls-table"):
+        rows = cells(app, "#walls-table")
+        for row in rows:
             if row[0] in failing:
                 assert "✓" not in row[1] and row[3] == "✗ FAILS", row
+        # the walls that fail lead the table, L2-R12 (utilization under 1) among them
+        assert {row[0] for row in rows[:len(failing)]} == failing
 
     drive(app, steps)
 

@@ -31,7 +31,14 @@ from tui.fixes import Fixes
 from tui.settings_view import KeysView, SettingsView
 from tui.wall_view import WallView
 from tui.walls_view import WallsView
-from tui.widgets import Caution, DrawnWhenShown, FieldRow, KeyFooter, StatusLine
+from tui.widgets import (
+    Caution,
+    DrawnWhenShown,
+    FieldRow,
+    KeyFooter,
+    StatusLine,
+    walls_in_order,
+)
 
 DEMO = Path(__file__).resolve().parents[1] / "scenarios" / "demo-mixed.toml"
 
@@ -138,7 +145,7 @@ class BracingApp(Fixes, Files, App[int]):
         first = result if result is not None else compute(site_file)
         self.set_reactive(BracingApp.site_file, site_file)
         self.set_reactive(BracingApp.result, first)
-        self.set_reactive(BracingApp.mark, first.worst_first()[0].mark if first.panels else "")
+        self.set_reactive(BracingApp.mark, walls_in_order(first)[0].mark if first.panels else "")
         self.set_reactive(BracingApp.day, first.days[0].day if first.days else None)
         self.set_reactive(BracingApp.keys, self.key_list())
         self.set_reactive(BracingApp.file_name, self._file_label(site_file))
@@ -276,7 +283,7 @@ class BracingApp(Fixes, Files, App[int]):
     def action_step(self, delta: int) -> None:
         """The next or previous wall (worst first) or day."""
         if self.view == "wall":
-            marks = [p.mark for p in self.result.worst_first()]
+            marks = [p.mark for p in walls_in_order(self.result)]
             if marks:
                 k = marks.index(self.mark) if self.mark in marks else -delta
                 self.mark = marks[(k + delta) % len(marks)]
@@ -370,7 +377,7 @@ class BracingApp(Fixes, Files, App[int]):
             return  # a later edit is on its way
         marks = {p.mark for p in result.panels}
         if self.mark not in marks and result.panels:
-            self.mark = result.worst_first()[0].mark
+            self.mark = walls_in_order(result)[0].mark
         if result.days and self.day not in {d.day for d in result.days}:
             self.day = result.days[0].day
         self.result = result

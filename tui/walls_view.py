@@ -22,6 +22,7 @@ from tui.widgets import (
     utilization_text,
     verdict_of,
     wall_status_text,
+    walls_in_order,
 )
 
 
@@ -50,14 +51,14 @@ class WallsView(DrawnWhenShown, Vertical):
     def compose(self) -> ComposeResult:
         with Horizontal(id="walls-filters"):
             yield Label("Day", classes="filter-label")
-            yield Choice([("every day", ALL)], value=ALL, allow_blank=False,
+            yield Choice([("all", ALL)], value=ALL, allow_blank=False,
                          id="filter-day")
             yield Label("Status", classes="filter-label")
-            yield Choice([("every status", ALL)] + [(STATUS_LOOK[s][1].lower(), s)
+            yield Choice([("all", ALL)] + [(STATUS_LOOK[s][1].lower(), s)
                                                     for s in STATUSES],
                          value=ALL, allow_blank=False, id="filter-status")
             yield Label("Material", classes="filter-label")
-            yield Choice([("every material", ALL)] + [(m, m) for m in
+            yield Choice([("all", ALL)] + [(m, m) for m in
                                                       ("concrete", "masonry", "framed")],
                          value=ALL, allow_blank=False, id="filter-material")
             yield Static("", id="walls-count")
@@ -74,7 +75,7 @@ class WallsView(DrawnWhenShown, Vertical):
         days = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day)
                 for d in (self.result.days if self.result else [])]
         select = self.query_one("#filter-day", Choice)
-        select.offer([("every day", ALL)] + days,
+        select.offer([("all", ALL)] + days,
                      select.value if select.value != Select.NULL else ALL)
         self.refill()
 
@@ -90,7 +91,7 @@ class WallsView(DrawnWhenShown, Vertical):
         self.refill()
 
     def shown(self) -> list:
-        """The walls the filters let through, worst first."""
+        """The walls the filters let through: those that fail first, then worst first."""
         if self.result is None:
             return []
         day = self.query_one("#filter-day", Select).value
@@ -100,7 +101,7 @@ class WallsView(DrawnWhenShown, Vertical):
         if day not in (ALL, Select.NULL):
             d = next((d for d in self.result.days if d.day == day), None)
             standing = set(d.standing) | set(d.lifts) if d else set()
-        return [p for p in self.result.worst_first()
+        return [p for p in walls_in_order(self.result)
                 if (standing is None or p.mark in standing)
                 and status in (ALL, Select.NULL, p.status)
                 and material in (ALL, Select.NULL, p.material)]

@@ -50,6 +50,14 @@ def verdict_of(p) -> Text:
     return Text("✗ FAILS", style="bold red") if p.fails else Text("✓ ok", style="green")
 
 
+def walls_in_order(result) -> list:
+    """The walls that fail first (`SiteResult.failing`: a danger finding too, whatever the
+    utilization), then the others worst first."""
+    failing = result.failing()
+    marks = {p.mark for p in failing}
+    return failing + [p for p in result.worst_first() if p.mark not in marks]
+
+
 def plain(*cells) -> list:
     """Table cells: text as written, never read as markup (a mark may hold "[/]")."""
     return [Text(c) if isinstance(c, str) else c for c in cells]
