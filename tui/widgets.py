@@ -12,7 +12,7 @@ from dataclasses import dataclass
 from rich.text import Text
 from textual import on
 from textual.app import ComposeResult
-from textual.containers import Horizontal, Vertical
+from textual.containers import Vertical
 from textual.message import Message
 from textual.reactive import reactive
 from textual.widgets import Footer, Input, Label, Select, Static
@@ -215,19 +215,19 @@ class FieldRow(Vertical):
         self.set_reactive(FieldRow.value, spec.value)
 
     def compose(self) -> ComposeResult:
+        """The label and the box on one line (a grid); the message under them is added when
+        there is one (fewer widgets: a form is built and laid out faster)."""
         s = self.spec
-        with Horizontal(classes="field-line"):
-            yield Label(s.label, classes="field-label")
-            if s.kind == "fixed":
-                yield Static(Text(s.value), classes="field-fixed")
-            elif s.kind == "choice":
-                yield Choice([(Text(c), c) for c in s.choices], value=s.value or Select.NULL,
-                             allow_blank=not s.value,
-                             prompt=f"not set ({s.hint})" if s.hint else "not set")
-            else:
-                yield Input(s.value, placeholder=f"not set ({s.hint})" if s.hint else "not set",
-                            compact=True, select_on_focus=False)
-        yield Static("", classes="field-error")
+        yield Label(s.label, classes="field-label")
+        if s.kind == "fixed":
+            yield Static(Text(s.value), classes="field-fixed")
+        elif s.kind == "choice":
+            yield Choice([(Text(c), c) for c in s.choices], value=s.value or Select.NULL,
+                         allow_blank=not s.value,
+                         prompt=f"not set ({s.hint})" if s.hint else "not set")
+        else:
+            yield Input(s.value, placeholder=f"not set ({s.hint})" if s.hint else "not set",
+                        compact=True, select_on_focus=False)
 
     def show(self, spec: FieldSpec) -> None:
         """Show `spec`'s value as the file holds it, whatever the field held before (a value
@@ -245,7 +245,11 @@ class FieldRow(Vertical):
                 box.value = spec.value  # (a row not composed yet shows its spec at compose)
 
     def watch_error(self, error: str) -> None:
-        self.query_one(".field-error", Static).update(f"✗ {error}" if error else "")
+        shown = self.query(".field-error")
+        if error and not shown:
+            self.mount(Static(f"✗ {error}", classes="field-error"))
+        elif shown:
+            shown.first(Static).update(f"✗ {error}" if error else "")
         self.set_class(bool(error), "-invalid")
 
     @on(Input.Submitted)
