@@ -23,7 +23,7 @@ from tui import dialogs, drawing
 from tui.app import BracingApp, run
 from tui.dialogs import Export, SaveAs, UnsavedChanges
 from tui.fields import typed, wall_fields
-from tui.views import Caution, FieldRow
+from tui.widgets import Caution, FieldRow
 
 SIZE = (120, 40)
 

@@ -13,12 +13,14 @@ import shutil
 from pathlib import Path
 
 from test_tui import SITE, cells
-from textual.widgets import Footer, Input, Static
+from textual.widgets import DataTable, Footer, Input, Static
 
 from bracing import scenario
 from tui import app as tui_app
 from tui.app import BracingApp
 from tui.fields import wall_fields
+from tui.walls_view import WallsView
+from tui.widgets import KeyFooter, speed
 
 SCENARIOS = Path(__file__).resolve().parents[1] / "scenarios"
 
@@ -107,7 +109,7 @@ def test_a_mark_written_like_markup_is_shown_as_written(tmp_path):
 
 def test_a_wall_with_a_danger_finding_shows_no_pass_mark(tmp_path):
     """townhouse-framing's L2-R12: braced, but its sign-off comes before its roof event (a
-    danger finding); PanelResult.fails is the one test."""
+    danger finding); PanelResult.fails is the one test. The failing walls come first."""
     path = copy_site("townhouse-framing", tmp_path)
     result = tui_app.compute(scenario.load(path))
     failing = {p.mark for p in result.panels if p.fails}
@@ -115,9 +117,12 @@ def test_a_wall_with_a_danger_finding_shows_no_pass_mark(tmp_path):
     app = BracingApp(path, result=result)
 
     async def steps(pilot):
-        for row in cells(app, "#walls-table"):
+        rows = cells(app, "#walls-table")
+        for row in rows:
             if row[0] in failing:
                 assert "✓" not in row[1] and row[3] == "✗ FAILS", row
+        # the walls that fail lead the table, L2-R12 (utilization under 1) among them
+        assert {row[0] for row in rows[:len(failing)]} == failing
 
     drive(app, steps)
 
@@ -150,5 +155,64 @@ def test_the_settings_labels_are_whole_words(tmp_path):
         await pilot.pause()
         text = screen_text(app)
         assert "Minimum braces per panel" in text and "per3" not in text
+
+    drive(app, steps)
+
+
+def test_a_view_off_screen_is_drawn_when_it_comes_back_not_at_each_edit(tmp_path, monkeypatch):
+    """An edit on the Wall view redraws that view; the Walls table, off screen, is filled
+    again only when it is shown, and then with the edited wall's new result (the engine's
+    stand-down gust, as the table writes it)."""
+    path = copy_site("demo-mixed", tmp_path)
+    app = BracingApp(path)
+    fills = []
+    original = WallsView.refill
+    monkeypatch.setattr(WallsView, "refill", lambda self: (fills.append(1), original(self)))
+
+    async def steps(pilot):
+        app.mark = "M-1"
+        await pilot.press("2")
+        await pilot.pause()
+        fills.clear()
+        box = app.query_one("#field-height Input", Input)
+        box.focus()
+        box.value = "9 ft"
+        await pilot.press("enter")
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        assert app.result.panel("M-1").height_ft == 9.0
+        assert fills == []  # off screen: not drawn
+        await pilot.press("escape", "1")
+        await pilot.pause()
+        assert fills
+        table = app.query_one("#walls-table", DataTable)
+        row = table.get_row("M-1")
+        assert str(row[2]) == speed(app.result.panel("M-1").stand_down_speed_mph, "us")
+
+    drive(app, steps)
+
+
+def test_the_footer_is_built_again_only_when_its_keys_change(tmp_path, monkeypatch):
+    """From the Walls view to the Wall view the footer gains [ and ] (built again, and shows
+    them); from the Wall view to the Day view its keys stay the same (not built again)."""
+    path = copy_site("demo-mixed", tmp_path)
+    app = BracingApp(path)
+    builds = []
+    original = KeyFooter.recompose
+
+    async def counted(self):
+        builds.append(1)
+        await original(self)
+
+    monkeypatch.setattr(KeyFooter, "recompose", counted)
+
+    async def steps(pilot):
+        await pilot.press("2")
+        await pilot.pause()
+        assert builds and "Previous" in screen_text(app).splitlines()[-1]
+        builds.clear()
+        await pilot.press("3")
+        await pilot.pause()
+        assert builds == [] and "Previous" in screen_text(app).splitlines()[-1]
 
     drive(app, steps)

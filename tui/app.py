@@ -8,7 +8,6 @@ nothing.
 
 from __future__ import annotations
 
-import re
 import sys
 from dataclasses import replace
 from pathlib import Path
@@ -20,34 +19,25 @@ from textual.app import App, ComposeResult
 from textual.binding import Binding
 from textual.containers import Vertical
 from textual.reactive import reactive
-from textual.widgets import Footer, Input, Select, Static, TabbedContent, TabPane
+from textual.widgets import Input, Select, Static, TabbedContent, TabPane
 
 from bracing import scenario
-from bracing.evaluate import evaluate, evaluate_walls
 from bracing.results import SiteResult
 from bracing.scenario import REMOVE, SiteFile, SiteFileError
-from tui import design
-from tui.dialogs import (
-    DesignProposal,
-    Export,
-    ExportRequest,
-    SaveAs,
-    SignOffDialog,
-    SignOffEntry,
-    UnsavedChanges,
-)
-from tui.fields import panel_index, typed, with_values
-from tui.views import (
+from tui.engine import compute, problems_text, quick
+from tui.fields import typed
+from tui.files import Files
+from tui.fixes import Fixes
+from tui.settings_view import KeysView, SettingsView
+from tui.wall_view import WallView
+from tui.walls_view import WallsView
+from tui.widgets import (
     Caution,
-    DayPicker,
-    DayView,
+    DrawnWhenShown,
     FieldRow,
-    KeysView,
-    PlanView,
-    SettingsView,
+    KeyFooter,
     StatusLine,
-    WallsView,
-    WallView,
+    walls_in_order,
 )
 
 DEMO = Path(__file__).resolve().parents[1] / "scenarios" / "demo-mixed.toml"
@@ -75,31 +65,7 @@ WIDGET_KEYS = (
 )
 
 
-def compute(site_file: SiteFile) -> SiteResult:
-    """The engine's result for a site file (the interface computes nothing itself); the
-    forecast file is read from the site file's folder."""
-    return evaluate(site_file.site, base_dir=Path(site_file.path).parent)
-
-
-def quick(result: SiteResult, site_file: SiteFile, keys: tuple) -> SiteResult | None:
-    """After an edit to one wall: the engine's checks of that wall spliced into the last
-    result at once (the days and the plan follow with the whole site's result)."""
-    if result is None or len(keys) < 2 or keys[0] != "panels":
-        return None
-    mark = site_file.site.panels[keys[1]].mark
-    fresh = {p.mark: p for p in evaluate_walls(site_file.site, {mark})}
-    if mark not in {p.mark for p in result.panels}:
-        return None
-    return replace(result, panels=[fresh.get(p.mark, p) for p in result.panels])
-
-
-def problems_text(exc: SiteFileError) -> str:
-    """The validation problems without the file name (the field is beside the message)."""
-    prefix = re.compile(rf"^{re.escape(str(exc.path))}(:\d+)?: ")
-    return "; ".join(prefix.sub("", p) for p in exc.problems)
-
-
-class BracingApp(App[int]):
+class BracingApp(Fixes, Files, App[int]):
     """Walls, a wall, a day, the plan and the settings of one site file."""
 
     CSS_PATH = "app.tcss"
@@ -113,7 +79,8 @@ class BracingApp(App[int]):
                 tooltip="the Wall view: its inputs, checks and drawings"),
         Binding("3", "show('day')", "Day", show=False,
                 tooltip="the Day view: lifts, braces and anchors, go / no-go"),
-        Binding("4", "show('plan')", "Plan", show=False, tooltip="the Plan view: the site in plan on a day"),
+        Binding("4", "show('plan')", "Plan", show=False,
+                tooltip="the Plan view: the site in plan on a day"),
         Binding("5", "show('settings')", "Settings", show=False,
                 tooltip="the Settings view: wind basis, exposure, period, rules"),
         Binding("question_mark,f1", "show('keys')", "Keys", key_display="?",
@@ -131,8 +98,15 @@ class BracingApp(App[int]):
                 tooltip="the layout designer's braces for the wall, beside its own; accept or "
                         "refuse"),
         Binding("s", "signoff", "Sign-off", show=False,
-                tooltip="record a sign-off (a wall's release); refused with the reason when it "
-                        "comes before the wall's lift or its events"),
+                tooltip="add, change or remove a sign-off (a wall's release: who, license, "
+                        "date); refused with the reason when it comes before the wall's lift "
+                        "or its events"),
+        Binding("m", "move_brace", "Move a brace", show=False,
+                tooltip="choose a brace on the wall's elevation (up / down) and move it (left / "
+                        "right); its force follows"),
+        Binding("v", "events", "Events", show=False,
+                tooltip="add, change or remove an event (the permanent work walls wait for); "
+                        "refused with the reason when a sign-off would then come before it"),
         Binding("a", "toggle_foot", "Angle/foot", show=False,
                 tooltip="give the wall's braces by their foot distance, or by their angle"),
         Binding("ctrl+z", "undo", "Undo", tooltip="undo the last change of a value"),
@@ -171,7 +145,7 @@ class BracingApp(App[int]):
         first = result if result is not None else compute(site_file)
         self.set_reactive(BracingApp.site_file, site_file)
         self.set_reactive(BracingApp.result, first)
-        self.set_reactive(BracingApp.mark, first.worst_first()[0].mark if first.panels else "")
+        self.set_reactive(BracingApp.mark, walls_in_order(first)[0].mark if first.panels else "")
         self.set_reactive(BracingApp.day, first.days[0].day if first.days else None)
         self.set_reactive(BracingApp.keys, self.key_list())
         self.set_reactive(BracingApp.file_name, self._file_label(site_file))
@@ -182,6 +156,7 @@ class BracingApp(App[int]):
         self.view = "walls"
         self.quit_after_save = False
         self.edit_next = False
+        self.gesture: tuple | None = None  # the edit that the next of its kind joins
 
     def compose(self) -> ComposeResult:
         with Vertical(id="banner"):
@@ -195,7 +170,7 @@ class BracingApp(App[int]):
                     # a view is built when first shown; until then the pane says so in words
                     yield self.make_view(view) if view == "walls" else \
                         Static("Loading…", classes="loading")
-        yield Footer()
+        yield KeyFooter()
 
     def make_view(self, view: str):
         """A view, its attributes bound to the app's (a view is built when first shown) and
@@ -213,14 +188,22 @@ class BracingApp(App[int]):
             return WallView(id="wall-view").data_bind(app.result, app.site_file, app.mark,
                                                       app.units, app.errors)
         if view == "day":
-            return DayView(id="day-view").data_bind(app.result, app.site_file, app.day,
-                                                    app.units)
+            return self._day_module().DayView(id="day-view").data_bind(
+                app.result, app.site_file, app.day, app.units)
         if view == "plan":
-            return PlanView(id="plan-view").data_bind(app.result, app.day, app.units)
+            return self._day_module().PlanView(id="plan-view").data_bind(
+                app.result, app.day, app.units)
         if view == "settings":
             return SettingsView(id="settings-view").data_bind(app.result, app.site_file,
                                                               app.errors)
         return KeysView(id="keys-view").data_bind(app.keys)
+
+    @staticmethod
+    def _day_module():
+        """The Day and Plan views' module, loaded when one is first shown (with the schedule's
+        words and the plan's drawing): not waited for at start."""
+        from tui import day_view
+        return day_view
 
     def on_mount(self) -> None:
         self.query_one("#walls-table").focus()
@@ -230,7 +213,8 @@ class BracingApp(App[int]):
     def key_list(cls) -> list[tuple[str, str, str]]:
         """Every key: the app's bindings, then the keys the widgets handle."""
         where = {"step": "Wall, Day and Plan", "edit": "Wall and Settings", "zoom": "Plan",
-                 "design": "Wall", "toggle_foot": "Wall", "signoff": "everywhere"}
+                 "design": "Wall", "toggle_foot": "Wall", "signoff": "everywhere",
+                 "move_brace": "Wall", "events": "everywhere"}
         rows = []
         for b in cls.BINDINGS:
             keys = " / ".join(KEY_NAMES.get(k.strip(), k.strip()) for k in b.key.split(","))
@@ -247,20 +231,19 @@ class BracingApp(App[int]):
             return self.view in ("wall", "day", "plan")
         if action == "zoom":
             return self.view == "plan"
-        if action == "undo":
-            return True if self.undo_stack else None
-        if action == "redo":
-            return True if self.redo_stack else None
         return True
 
     async def _ensure_view(self, view: str) -> None:
-        """Build `view` in its pane (in place of the placeholder) if it is not built yet."""
+        """Build `view` in its pane (in place of the placeholder) if it is not built yet, else
+        draw what changed while it was off screen."""
         pane = self.query_one(f"#{view}", TabPane)
         placeholder = pane.query(".loading")
         if placeholder:
             await placeholder.remove()
-            widget = self.make_view(view)
-            await pane.mount(widget)
+            await pane.mount(self.make_view(view))
+        for widget in pane.children:  # (a view just built: what its bindings gave it)
+            if isinstance(widget, DrawnWhenShown):
+                await widget.catch_up()
 
     @on(TabbedContent.TabActivated)
     async def _tab(self, event: TabbedContent.TabActivated) -> None:
@@ -300,7 +283,7 @@ class BracingApp(App[int]):
     def action_step(self, delta: int) -> None:
         """The next or previous wall (worst first) or day."""
         if self.view == "wall":
-            marks = [p.mark for p in self.result.worst_first()]
+            marks = [p.mark for p in walls_in_order(self.result)]
             if marks:
                 k = marks.index(self.mark) if self.mark in marks else -delta
                 self.mark = marks[(k + delta) % len(marks)]
@@ -311,7 +294,7 @@ class BracingApp(App[int]):
                 self.day = days[max(0, min(len(days) - 1, k + delta))]
 
     def action_zoom(self, factor: float) -> None:
-        view = self.query_one(PlanView)
+        view = self.query_one("#plan-view")
         view.zoom = view.zoom * factor  # PlanView.validate_zoom keeps it in range
 
     async def action_edit(self) -> None:
@@ -338,8 +321,8 @@ class BracingApp(App[int]):
     def _pick_wall(self, event: WallView.WallPicked) -> None:
         self.mark = event.mark
 
-    @on(DayPicker.DayPicked)
-    def _pick_day(self, event: DayPicker.DayPicked) -> None:
+    def on_day_picker_day_picked(self, event) -> None:
+        """A day chosen (DayPicker.DayPicked; its module is loaded with the Day view)."""
         self.day = event.day
 
     # --- editing ------------------------------------------------------------------------------
@@ -354,9 +337,12 @@ class BracingApp(App[int]):
             return
         self.apply(changed, spec.keys)
 
-    def apply(self, changed: SiteFile, keys: tuple = ()) -> None:
-        """Make a valid edit the current state, as one undoable step; the engine recomputes."""
-        self.undo_stack.append(self.site_file)
+    def apply(self, changed: SiteFile, keys: tuple = (), gesture: tuple | None = None) -> None:
+        """Make a valid edit the current state, as one undoable step; the engine recomputes.
+        Edits of one `gesture` (a brace moved step by step) make one step together."""
+        if gesture is None or gesture != self.gesture:
+            self.undo_stack.append(self.site_file)
+        self.gesture = gesture
         self.redo_stack.clear()
         self._install(changed)
         try:
@@ -373,7 +359,6 @@ class BracingApp(App[int]):
         self.site_file = site_file
         self.errors = {}
         self.dirty = bool(site_file.edits) or site_file.text is not self.saved_text
-        self.refresh_bindings()
         self.generation += 1
         self.busy = True
         self._evaluate(self.generation, site_file)
@@ -392,7 +377,7 @@ class BracingApp(App[int]):
             return  # a later edit is on its way
         marks = {p.mark for p in result.panels}
         if self.mark not in marks and result.panels:
-            self.mark = result.worst_first()[0].mark
+            self.mark = walls_in_order(result)[0].mark
         if result.days and self.day not in {d.day for d in result.days}:
             self.day = result.days[0].day
         self.result = result
@@ -407,173 +392,24 @@ class BracingApp(App[int]):
         if self.undo_stack:
             self.site_file = self.undo_stack.pop()
             self.dirty = bool(self.site_file.edits) or self.site_file.text is not self.saved_text
-            self.refresh_bindings()
-
-    def _wall_index(self) -> int | None:
-        return panel_index(self.site_file, self.mark) if self.view == "wall" else None
-
-    def action_toggle_foot(self) -> None:
-        """The wall's braces given by their foot distance instead of their angle, or back; the
-        value carried over is the engine's for the present layout."""
-        i = self._wall_index()
-        table = self.site_file.data["panels"][i].get("bracing") if i is not None else None
-        braces = self.result.panel(self.mark).braces if table else None
-        if not braces:
-            self.notify("Open a wall with braces (the Wall view) to switch angle and foot "
-                        "distance.", severity="warning")
-            return
-        base = ("panels", i, "bracing")
-        if "angle" in table:
-            changes = [(base + ("angle",), REMOVE),
-                       (base + ("anchor_distance",), f"{braces['anchor_distance_ft']:.2f} ft")]
-        else:
-            changes = [(base + ("anchor_distance",), REMOVE),
-                       (base + ("angle",), f"{braces['angle_deg']:.1f} deg")]
-        try:
-            self.apply(with_values(self.site_file, changes), base)
-        except SiteFileError as exc:
-            self.notify(f"Not switched: {problems_text(exc)}", severity="error", markup=False)
-
-    def action_design(self) -> None:
-        """The layout designer's proposal for the wall on view, beside its present layout."""
-        i = self._wall_index()
-        if i is None:
-            self.notify("Open a wall (the Wall view) to design its braces.", severity="warning")
-            return
-        proposal = design.propose(self.site_file, i)
-        current = self.result.panel(self.mark)
-        self.push_screen(DesignProposal(self.mark, current, proposal, self.units),
-                         lambda accept: self._design_answer(i, proposal, accept))
-
-    def _design_answer(self, i: int, proposal, accept: bool | None) -> None:
-        if not accept or proposal.table is None:
-            return
-        try:
-            changed = self.site_file.with_value(("panels", i, "bracing"), proposal.table)
-        except SiteFileError as exc:
-            self.notify(f"Not accepted: {problems_text(exc)}", severity="error", markup=False)
-            return
-        self.apply(changed, ("panels", i, "bracing"))
-
-    def action_signoff(self) -> None:
-        marks = [p.mark for p in self.site_file.site.panels]
-        self.push_screen(SignOffDialog(marks, self.day, self._signoff_refused), self._signed)
-
-    def _with_signoff(self, entry: SignOffEntry) -> SiteFile:
-        listed = list(self.site_file.data.get("signoffs", []))
-        return self.site_file.with_value(
-            ("signoffs",), [*listed, {"panel": entry.panel, "day": entry.day, "by": entry.by}])
-
-    def _signoff_refused(self, entry: SignOffEntry) -> str | None:
-        """Why a sign-off cannot be recorded: the file's validation, or the engine's finding
-        that it comes before the wall's lift or an event its release waits for."""
-        try:
-            changed = self._with_signoff(entry)
-        except SiteFileError as exc:
-            return problems_text(exc)
-        result = compute(changed)
-        early = ("signoff-before-event", "signoff-before-lift")
-        found = [f for p in result.panels if p.mark == entry.panel for f in p.flags
-                 if f.code in early and f"day {entry.day} " in f.message] + \
-            [f for d in result.days for f in d.flags
-             if f.code in early and f.message.startswith(f"{entry.panel}:")
-             and f"day {entry.day} " in f.message]
-        return found[0].message if found else None
-
-    def _signed(self, entry: SignOffEntry | None) -> None:
-        if entry is not None:
-            self.apply(self._with_signoff(entry), ("signoffs",))
 
     def action_undo(self) -> None:
+        """Undo the last edit. The key is always on the footer: showing and hiding it would
+        rebuild the footer at each edit."""
+        self.gesture = None
         if not self.undo_stack:
+            self.notify("Nothing to undo.")
             return
         self.redo_stack.append(self.site_file)
         self._install(self.undo_stack.pop())
 
     def action_redo(self) -> None:
+        self.gesture = None
         if not self.redo_stack:
+            self.notify("Nothing to redo.")
             return
         self.undo_stack.append(self.site_file)
         self._install(self.redo_stack.pop())
-
-    # --- files --------------------------------------------------------------------------------
-    def action_save(self) -> None:
-        if self.demo:
-            self.action_save_as()
-        elif self.save_to(None) and self.quit_after_save:
-            self.exit(0)
-
-    def action_save_as(self) -> None:
-        default = "my-site.toml" if self.demo else str(self.site_file.path)
-        forecast = scenario.inputs_of(self.site_file.path)[1:]  # never over the forecast
-        self.push_screen(SaveAs(default, forecast), self._save_as_chosen)
-
-    def _save_as_chosen(self, path: str | None) -> None:
-        if path is None:
-            self.quit_after_save = False
-            return
-        if self.save_to(Path(path)) and self.quit_after_save:
-            self.exit(0)
-
-    def save_to(self, path: Path | None) -> bool:
-        """Save atomically (the old file kept as .bak); say so, or say why not. A failed save
-        changes nothing: the file on disk stays whole and the edits stay unsaved here."""
-        try:
-            target = self.site_file.save(path)
-        except Exception as exc:  # noqa: BLE001 - an edit must never be lost to a failed save
-            self.notify(f"Not saved: {exc}", severity="error", timeout=10, markup=False)
-            self.quit_after_save = False
-            return False
-        self.saved_text = self.site_file.text
-        self.demo = False
-        self.dirty = False
-        self.file_name = self._file_label(self.site_file)
-        self.notify(f"Saved {target}", markup=False)
-        return True
-
-    def action_export(self) -> None:
-        if self.busy:
-            self.notify("Wait for the recompute to finish, then export.", severity="warning")
-            return
-        days = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day)
-                for d in self.result.days]
-        stem = Path(self.site_file.path).stem
-        self.push_screen(Export(stem, days, self.day, Path(self.site_file.path).parent),
-                         self.export)
-
-    def export(self, request: ExportRequest | None) -> None:
-        """Write the schedule the engine's report renders, atomically."""
-        if request is None:
-            return
-        try:
-            from bracing.report import schedule
-        except ImportError:
-            self.notify("The schedule export is not available in this version of the engine.",
-                        severity="error", timeout=10)
-            return
-        try:
-            scenario.check_output(request.path, scenario.inputs_of(self.site_file.path))
-            text = schedule.render(self.site_file.site, self.result, request.day, request.fmt,
-                                   self.units)
-            scenario.atomic_write(Path(request.path), text)
-        except (ValueError, OSError) as exc:  # WriteRefused says why (an input, a folder...)
-            self.notify(f"Not exported: {exc}", severity="error", timeout=10, markup=False)
-            return
-        self.notify(f"Wrote {request.path}", markup=False)
-
-    def action_quit(self) -> None:
-        if not self.dirty:
-            self.exit(0)
-            return
-        self.push_screen(UnsavedChanges(), self._quit_answer)
-
-    def _quit_answer(self, answer: str | None) -> None:
-        if answer == "drop":
-            self.exit(0)
-        elif answer == "save":
-            self.quit_after_save = True
-            self.action_save()
-
 
 def run(path: str | None = None) -> int:
     """Open the interface on a site file (a demo site when None); the exit code."""

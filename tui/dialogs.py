@@ -10,12 +10,13 @@ from rich.text import Text
 from textual import on
 from textual.app import ComposeResult
 from textual.binding import Binding
-from textual.containers import Horizontal, Vertical
+from textual.containers import Horizontal, Vertical, VerticalScroll
 from textual.screen import ModalScreen
 from textual.widgets import Button, Input, Label, RadioButton, RadioSet, Select, Static
 
 from bracing import scenario
-from tui.views import Choice
+from tui import drawing
+from tui.widgets import Choice
 
 FORMATS = (("html", "HTML (print it)"), ("csv", "CSV (a spreadsheet)"), ("text", "plain text"))
 EXTENSIONS = {"html": "html", "csv": "csv", "text": "txt"}
@@ -204,20 +205,30 @@ class DesignProposal(ModalScreen[bool]):
 
     BINDINGS: ClassVar[list[Binding]] = [Binding("escape", "dismiss(False)", "Refuse")]
 
-    def __init__(self, mark: str, current, proposal, units: str = "us"):
+    def __init__(self, mark: str, current, proposal, units: str = "us", openings=()):
+        """`openings`: the wall's, (x, y, width, height) in ft, for the drawings."""
         super().__init__()
         self.mark = mark
         self.current = current
         self.proposal = proposal
         self.units = units
+        self.openings = list(openings)
+
+    def _column(self, title: str, p) -> Text:
+        """A layout in words over its elevation."""
+        out = layout_lines(title, p, self.units)
+        if p is not None:
+            drawn = drawing.panel_elevation(p, self.openings, self.units, cols=30, rows=9)
+            out.append("\n\n" + "\n".join(drawn))
+        return out
 
     def compose(self) -> ComposeResult:
         with Vertical(classes="dialog"):
             yield Static(Text(f"The layout designer's braces for {self.mark}"),
                          classes="dialog-title")
-            with Horizontal(classes="proposal"):
-                yield Static(layout_lines("Now", self.current, self.units), classes="layout")
-                yield Static(layout_lines("Proposed", self.proposal.result, self.units)
+            with VerticalScroll(classes="proposal"), Horizontal(classes="proposal-columns"):
+                yield Static(self._column("Now", self.current), classes="layout")
+                yield Static(self._column("Proposed", self.proposal.result)
                              if self.proposal.table else Text(f"No proposal: "
                                                               f"{self.proposal.message}"),
                              classes="layout")
@@ -232,63 +243,3 @@ class DesignProposal(ModalScreen[bool]):
     @on(Button.Pressed)
     def _answer(self, event: Button.Pressed) -> None:
         self.dismiss(event.button.id == "accept")
-
-
-@dataclass(frozen=True)
-class SignOffEntry:
-    panel: str
-    day: int
-    by: str
-
-
-class SignOffDialog(ModalScreen[SignOffEntry | None]):
-    """Record a sign-off (the release of one wall's braces): the wall, the day and who;
-    `check` returns why the engine refuses it (a sign-off before its lift or its events), or
-    None, and a refused one is not recorded."""
-
-    BINDINGS: ClassVar[list[Binding]] = [Binding("escape", "dismiss(None)", "Cancel")]
-
-    def __init__(self, marks: list[str], day: int | None, check):
-        super().__init__()
-        self.marks = marks
-        self.day = day
-        self.check = check
-
-    def compose(self) -> ComposeResult:
-        with Vertical(classes="dialog"):
-            yield Static("Record a sign-off (release of a wall's braces)", classes="dialog-title")
-            with Horizontal(classes="dialog-line"):
-                yield Label("Wall", classes="field-label")
-                yield Choice([(Text(m), m) for m in self.marks], allow_blank=False,
-                             id="signoff-wall")
-            with Horizontal(classes="dialog-line"):
-                yield Label("Day", classes="field-label")
-                yield Input("" if self.day is None else str(self.day), id="signoff-day",
-                            compact=True)
-            with Horizontal(classes="dialog-line"):
-                yield Label("By (name)", classes="field-label")
-                yield Input("", id="signoff-by", compact=True)
-            yield Static("", id="signoff-error", classes="field-error")
-            with Horizontal(classes="dialog-buttons"):
-                yield Button("Record (Enter)", id="record", variant="primary")
-                yield Button("Cancel (Esc)", id="cancel")
-
-    def on_mount(self) -> None:
-        self.query_one("#signoff-by", Input).focus()
-
-    @on(Input.Submitted)
-    @on(Button.Pressed, "#record")
-    def _record(self) -> None:
-        day = self.query_one("#signoff-day", Input).value.strip()
-        entry = SignOffEntry(str(self.query_one("#signoff-wall", Select).value),
-                             int(day) if day.isdigit() else -1,
-                             self.query_one("#signoff-by", Input).value.strip())
-        why = self.check(entry)
-        if why:
-            self.query_one("#signoff-error", Static).update(Text(f"✗ Refused: {why}"))
-            return
-        self.dismiss(entry)
-
-    @on(Button.Pressed, "#cancel")
-    def _cancel(self) -> None:
-        self.dismiss(None)

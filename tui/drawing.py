@@ -10,12 +10,12 @@ from __future__ import annotations
 from collections.abc import Iterable, Sequence
 from itertools import pairwise
 
-from bracing.report import svg
 from bracing.report.text import fmt
 
 CELL_ASPECT = 2.0  # a terminal cell is about twice as tall as it is wide
 
 WALL, FOOTING, BRACE, INSERT, ANCHOR, WIND = "█", "▓", "╲", "●", "▲", "►"
+CHOSEN = "◉"  # the brace chosen on the elevation
 OPENING, GROUND = "░", "─"
 
 
@@ -132,8 +132,9 @@ def section(height_ft: float, thickness_in: float, braces: dict | None,
 def elevation(width_ft: float, height_ft: float, positions_ft: Sequence[float],
               insert_ft: float | None, openings: Iterable[tuple[float, float, float, float]],
               resultant_ft: float | None, units: str = "us", cols: int = 32,
-              rows: int = 12) -> list[str]:
-    """The wall's face: outline, openings (x, y, width, height in ft), brace positions."""
+              rows: int = 12, selected: int | None = None) -> list[str]:
+    """The wall's face: outline, openings (x, y, width, height in ft), brace positions; the
+    brace `selected` (an index) drawn heavier."""
     sx = (cols - 4) / width_ft
     sy = sx / CELL_ASPECT
     if height_ft * sy > rows - 2:
@@ -157,10 +158,12 @@ def elevation(width_ft: float, height_ft: float, positions_ft: Sequence[float],
     canvas.box(0, 0, right, top)
     canvas.fill(0, top + 1, canvas.cols - 1, top + 1, GROUND)
     if insert_ft is not None:
-        for x in positions_ft:
+        for k, x in enumerate(positions_ft):
             c = min(max(col(x), 1), right - 1)
-            canvas.line(c, row(insert_ft) + 1, c, top - 1, "┊", over=" " + OPENING)
-            canvas.put(c, row(insert_ft), INSERT)
+            mine = k == selected
+            canvas.line(c, row(insert_ft) + 1, c, top - 1, "┃" if mine else "┊",
+                        over=" ┊" + OPENING)
+            canvas.put(c, row(insert_ft), CHOSEN if mine else INSERT)
     if resultant_ft is not None:
         canvas.put(right + 1, row(resultant_ft), "◄")
     legend = [f"{fmt(width_ft, 'ft', units, 1)} wide x {fmt(height_ft, 'ft', units, 1)} tall"]
@@ -172,6 +175,16 @@ def elevation(width_ft: float, height_ft: float, positions_ft: Sequence[float],
     if resultant_ft is not None:
         legend.append(f"◄ wind resultant {fmt(resultant_ft, 'ft', units, 1)} above the base")
     return canvas.lines() + legend
+
+
+def panel_elevation(p, openings: Iterable[tuple[float, float, float, float]],
+                    units: str = "us", selected: int | None = None, cols: int = 32,
+                    rows: int = 12) -> list[str]:
+    """The elevation of a wall's result (`PanelResult`): its braces where the engine has them."""
+    b = p.braces
+    return elevation(p.width_ft, p.height_ft, b["positions_ft"] if b else [],
+                     b["insert_height_ft"] if b else None, openings, p.wind.resultant_height_ft,
+                     units, cols, rows, selected if b else None)
 
 
 class PlanCanvas(Canvas):
@@ -194,7 +207,7 @@ class PlanCanvas(Canvas):
 
     def ring(self, points: Sequence, ch: str, over: str = " ") -> None:
         pts = list(points)
-        for a, b in zip(pts, pts[1:] + pts[:1]):
+        for a, b in zip(pts, pts[1:] + pts[:1], strict=True):
             self.segment(a, b, ch, over)
 
     def shade(self, points: Sequence, ch: str, over: str = " ") -> None:
@@ -202,11 +215,12 @@ class PlanCanvas(Canvas):
         pts = [self.at(*p) for p in points]
         for row in range(self.rows):
             crossings = []
-            for (c0, r0), (c1, r1) in zip(pts, pts[1:] + pts[:1]):
+            for (c0, r0), (c1, r1) in zip(pts, pts[1:] + pts[:1], strict=True):
                 if (r0 <= row < r1) or (r1 <= row < r0):
                     crossings.append(c0 + (row - r0) * (c1 - c0) / (r1 - r0))
             crossings.sort()
-            for a, b in zip(crossings[::2], crossings[1::2]):
+            # in pairs; an odd one left (a vertex just on the row) starts no span
+            for a, b in zip(crossings[::2], crossings[1::2], strict=False):
                 for col in range(round(a), round(b) + 1):
                     if self.get(col, row) in over:
                         self.put(col, row, ch)
@@ -224,6 +238,8 @@ AREA_WORDS = {"keep_clear": "keep clear", "crane_path": "crane path", "public_wa
 
 def pick_plan(plan, day: int | None):
     """The plan geometry of `day` when the result holds one per day (else the busiest day's)."""
+    from bracing.report import svg  # with the Plan view, not at start
+
     try:
         return svg.pick_plan(plan, day)
     except ValueError:
@@ -234,6 +250,14 @@ def plan(g, cols: int = 100, rows: int = 30, units: str = "us") -> list[str]:
     """The site in plan from a `bracing.plan.PlanGeometry`: what stands that day, its braces,
     anchors and zones, the areas kept clear, with a legend and the plan's findings."""
     canvas = PlanCanvas(g.bounds, cols, rows)
+    _ground(canvas, g)
+    _walls(canvas, g)
+    _marks(canvas, g)
+    return canvas.lines() + ["", *_plan_legend(canvas, g, units)]
+
+
+def _ground(canvas: PlanCanvas, g) -> None:
+    """Fall zones, open ground, the slab with its holes and joints, the named areas."""
     for p in g.panels:
         if p.standing and len(p.restricted_zone) >= 3:
             canvas.shade(p.restricted_zone, "░")
@@ -248,6 +272,10 @@ def plan(g, cols: int = 100, rows: int = 30, units: str = "us") -> list[str]:
             canvas.segment(a, b, "┆", over=" ░")
     for area in g.areas:
         canvas.ring(area.coords, "#", over=" ░·~┆")
+
+
+def _walls(canvas: PlanCanvas, g) -> None:
+    """Braces, then the walls over them with their foot anchors, then the findings."""
     for p in g.panels:
         for a, b in p.braces:
             canvas.segment(a, b, "•", over=" ░·~┆#")
@@ -261,7 +289,11 @@ def plan(g, cols: int = 100, rows: int = 30, units: str = "us") -> list[str]:
     for f in g.findings:
         for point in f.at:
             canvas.put(*canvas.at(*point), "!")
-    for p in g.panels:  # marks last, beside the wall's face on its back side
+
+
+def _marks(canvas: PlanCanvas, g) -> None:
+    """Each wall's mark beside its face on its back side, where it finds room."""
+    for p in g.panels:
         (x0, y0), (x1, y1) = p.face
         col, row = canvas.at((x0 + x1) / 2, (y0 + y1) / 2)
         label = f"{p.mark}"
@@ -269,16 +301,17 @@ def plan(g, cols: int = 100, rows: int = 30, units: str = "us") -> list[str]:
         row = row - 1 if row > 0 else row + 1
         if all(canvas.get(start + k, row) in " ░·~" for k in range(len(label))):
             canvas.text(start, row, label)
+
+
+def _plan_legend(canvas: PlanCanvas, g, units: str) -> list[str]:
+    """The symbols drawn, the scale, the areas, the zones' bases and the plan's findings."""
     used = set("".join(canvas.lines()))
     legend = "  ".join(f"{ch} {words}" for ch, words in PLAN_SYMBOLS if ch in used)
     scale = (f"one column = {fmt(1 / canvas.scale, 'ft', units, 1)}, one row = "
              f"{fmt(CELL_ASPECT / canvas.scale, 'ft', units, 1)}")
-    out = canvas.lines() + ["", legend, scale + "; north is up"]
-    for a in g.areas:
-        out.append(f"# {AREA_WORDS.get(a.kind, a.kind)}: {a.name}")
-    for p in g.panels:
-        if p.standing and p.zone_basis:
-            out.append(f"░ {p.mark} zone: {p.zone_basis}")
-    for f in g.findings:
-        out.append(f"! {f.mark}: {f.flag.severity.upper()}: {f.flag.message}")
+    out = [legend, scale + "; north is up"]
+    out += [f"# {AREA_WORDS.get(a.kind, a.kind)}: {a.name}" for a in g.areas]
+    out += [f"░ {p.mark} zone: {p.zone_basis}" for p in g.panels
+            if p.standing and p.zone_basis]
+    out += [f"! {f.mark}: {f.flag.severity.upper()}: {f.flag.message}" for f in g.findings]
     return out

@@ -11,6 +11,7 @@ from dataclasses import dataclass, replace
 
 from bracing.model import DEFAULT_RULES, SiteInfo
 from bracing.scenario import REMOVE, SiteFile, SiteFileError, validate_data
+from bracing.units import convert
 
 
 @dataclass(frozen=True)
@@ -176,3 +177,35 @@ def site_fields(site_file: SiteFile) -> list[FieldSpec]:
                                    ("rules", name, "value"), "number",
                                    raw_text(rules[name], "value")))
     return specs
+
+
+# A brace moved on the elevation goes by this step, in the units on screen.
+MOVE_STEP = {"us": 0.5, "si": 0.15}  # ft, m
+
+
+def move_step_ft(units: str) -> float:
+    """The step of a brace moved on the elevation, in ft (the engine's unit)."""
+    return MOVE_STEP[units] / convert(1.0, "ft", units)[0]
+
+
+def length_text(x_ft: float, units: str) -> str:
+    """A length for the site file in the units on screen ("6.5 ft", "1.98 m")."""
+    shown, label = convert(x_ft, "ft", units)
+    return f"{round(shown, 2):g} {label}"
+
+
+def moved_brace(site_file: SiteFile, i: int, positions_ft: list[float], k: int,
+                step_ft: float, units: str) -> SiteFile:
+    """Wall `i` with its brace `k` moved by `step_ft` along the wall: that position written in
+    the units on screen, the others as the file gives them (the engine's `positions_ft`,
+    the centers of equal strips, when it gives none). A brace does not pass its neighbor;
+    the engine's validation refuses a position off the wall (SiteFileError)."""
+    keys = ("panels", i, "bracing", "positions")
+    x = positions_ft[k] + step_ft
+    if (k > 0 and x <= positions_ft[k - 1]) or \
+            (k + 1 < len(positions_ft) and x >= positions_ft[k + 1]):
+        raise SiteFileError(str(site_file.path), ["a brace does not pass its neighbor"])
+    listed = list(site_file.data["panels"][i]["bracing"].get("positions") or
+                  [length_text(p, units) for p in positions_ft])
+    listed[k] = length_text(x, units)
+    return site_file.with_value(keys, listed)

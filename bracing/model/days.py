@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+from datetime import date
 from typing import Literal
 
 from pydantic import Field
@@ -17,12 +18,20 @@ class Event(Strict):
     kind: Literal["diaphragm", "connections", "pour_strip", "other"] = "diaphragm"
 
 
+SignOffDate = date  # a name of its own: a sign-off's field is called `date`
+
+
 class SignOff(Strict):
     """The engineer of record's release of one wall's braces (OSHA 1926.704(a))."""
 
     panel: str
     day: int = Field(ge=1, le=DAY_LIMIT)
     by: str = Field(min_length=1, description="Who released the wall.")
+    license: str | None = Field(None, min_length=1, description="The releasing engineer's "
+                                                                  "license (registration) number.")
+    date: SignOffDate | None = Field(None, ge=SignOffDate(1900, 1, 1),
+                                     le=SignOffDate(2199, 12, 31),
+                                     description="Calendar date of the sign-off.")
 
 
 class Forecast(Strict):

@@ -1,0 +1,140 @@
+"""The Walls view: every wall, worst first, with filters."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from textual import on
+from textual.app import ComposeResult
+from textual.containers import Horizontal, Vertical
+from textual.message import Message
+from textual.reactive import reactive
+from textual.widgets import DataTable, Label, Select, Static
+
+from bracing.results import STATUSES
+from tui.widgets import (
+    ALL,
+    STATUS_LOOK,
+    Choice,
+    DrawnWhenShown,
+    plain,
+    speed,
+    utilization_text,
+    verdict_of,
+    wall_status_text,
+    walls_in_order,
+)
+
+
+class WallsView(DrawnWhenShown, Vertical):
+    """Every wall, worst first: status, governing utilization, stand-down gust; with filters."""
+
+    @dataclass
+    class WallChosen(Message):
+        """A wall to open."""
+
+        view: WallsView
+        mark: str
+
+        @property
+        def control(self) -> WallsView:
+            return self.view
+
+    result = reactive(None, always_update=True, init=False)
+    site_file = reactive(None, always_update=True, init=False)
+    units = reactive("us", init=False)
+
+    # the essential columns first (they fit at 80 columns); wider terminals show the rest
+    COLUMNS = ("Wall", "Status", "Stand-down", "Verdict", "Utilization", "Working limit",
+               "Braces", "Lift", "Material", "Governing element")
+
+    def compose(self) -> ComposeResult:
+        with Horizontal(id="walls-filters"):
+            yield Label("Day", classes="filter-label")
+            yield Choice([("all", ALL)], value=ALL, allow_blank=False,
+                         id="filter-day")
+            yield Label("Status", classes="filter-label")
+            yield Choice([("all", ALL)] + [(STATUS_LOOK[s][1].lower(), s)
+                                                    for s in STATUSES],
+                         value=ALL, allow_blank=False, id="filter-status")
+            yield Label("Material", classes="filter-label")
+            yield Choice([("all", ALL)] + [(m, m) for m in
+                                                      ("concrete", "masonry", "framed")],
+                         value=ALL, allow_blank=False, id="filter-material")
+            yield Static("", id="walls-count")
+        yield DataTable(id="walls-table", cursor_type="row", zebra_stripes=True)
+
+    def on_mount(self) -> None:
+        self.query_one(DataTable).add_columns(*self.COLUMNS)
+        self.refill()
+
+    def watch_result(self) -> None:
+        self.redraw(self._days_and_rows)
+
+    def _days_and_rows(self) -> None:
+        days = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day)
+                for d in (self.result.days if self.result else [])]
+        select = self.query_one("#filter-day", Choice)
+        select.offer([("all", ALL)] + days,
+                     select.value if select.value != Select.NULL else ALL)
+        self.refill()
+
+    def watch_site_file(self) -> None:
+        self.redraw(self.refill)
+
+    def watch_units(self) -> None:
+        self.redraw(self.refill)
+
+    @on(Select.Changed)
+    def _filter(self, event: Select.Changed) -> None:
+        event.stop()
+        self.refill()
+
+    def shown(self) -> list:
+        """The walls the filters let through: those that fail first, then worst first."""
+        if self.result is None:
+            return []
+        day = self.query_one("#filter-day", Select).value
+        status = self.query_one("#filter-status", Select).value
+        material = self.query_one("#filter-material", Select).value
+        standing = None
+        if day not in (ALL, Select.NULL):
+            d = next((d for d in self.result.days if d.day == day), None)
+            standing = set(d.standing) | set(d.lifts) if d else set()
+        return [p for p in walls_in_order(self.result)
+                if (standing is None or p.mark in standing)
+                and status in (ALL, Select.NULL, p.status)
+                and material in (ALL, Select.NULL, p.material)]
+
+    def refill(self) -> None:
+        if not self.is_mounted:
+            return
+        table = self.query_one(DataTable)
+        current = None
+        if table.row_count:
+            current = table.coordinate_to_cell_key(table.cursor_coordinate).row_key.value
+        table.clear()
+        panels = self.shown()
+        lift = self._lift_days()
+        for p in panels:
+            table.add_row(*plain(
+                p.mark, wall_status_text(p), speed(p.stand_down_speed_mph, self.units),
+                verdict_of(p), utilization_text(p.utilization),
+                speed(p.working_limit_speed_mph, self.units),
+                str(p.braces["count"]) if p.braces else "-", lift.get(p.mark, "-"),
+                p.material, p.governing_element), key=p.mark)
+        marks = [p.mark for p in panels]
+        if current in marks:
+            table.move_cursor(row=marks.index(current), animate=False)
+        total = len(self.result.panels) if self.result else 0
+        self.query_one("#walls-count", Static).update(f"{len(panels)} of {total} walls")
+
+    def _lift_days(self) -> dict[str, str]:
+        """Each wall's lift day as the site file gives it."""
+        panels = self.site_file.site.panels if self.site_file is not None else []
+        return {p.mark: str(p.lift_day) for p in panels if p.lift_day is not None}
+
+    @on(DataTable.RowSelected)
+    def _open(self, event: DataTable.RowSelected) -> None:
+        event.stop()
+        self.post_message(self.WallChosen(self, event.row_key.value))

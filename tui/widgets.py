@@ -1,0 +1,305 @@
+"""The pieces the views share: how a status, a verdict or a finding looks (a symbol and a word as
+well as colour), a choice list, the caution, the status line and the forms of fields.
+"""
+
+from __future__ import annotations
+
+import inspect
+import math
+from collections.abc import Callable
+from dataclasses import dataclass
+
+from rich.text import Text
+from textual import on
+from textual.app import ComposeResult
+from textual.containers import Vertical
+from textual.message import Message
+from textual.reactive import reactive
+from textual.widgets import Footer, Input, Label, Select, Static
+
+from bracing.report.text import fmt
+from bracing.results import CAUTION
+from tui.fields import FieldSpec
+
+STATUS_LOOK = {
+    "unsafe": ("✗", "UNSAFE", "bold red"),
+    "needs_braces": ("▲", "NEEDS BRACES", "bold yellow"),
+    "braced": ("✓", "braced", "green"),
+    "stands": ("✓", "stands", "green"),
+}
+FLAG_LOOK = {"danger": ("✗", "bold red"), "warning": ("!", "bold yellow"), "notice": ("i", "cyan")}
+UNIT_KEY = {"lb": "lbf", "lb·ft": "ft*lbf"}  # check units to the converter's names
+ALL = "*"
+
+
+def status_text(status: str) -> Text:
+    symbol, word, style = STATUS_LOOK[status]
+    return Text(f"{symbol} {word}", style=style)
+
+
+def wall_status_text(p) -> Text:
+    """A wall's status; a wall that fails (`PanelResult.fails`: a danger finding too) never
+    shows a pass mark."""
+    if p.fails and p.status in ("braced", "stands"):
+        return Text(f"✗ {p.status}, DANGER", style="bold red")
+    return status_text(p.status)
+
+
+def verdict_of(p) -> Text:
+    """The wall's verdict in a word and a symbol, from `PanelResult.fails` (the one test)."""
+    return Text("✗ FAILS", style="bold red") if p.fails else Text("✓ ok", style="green")
+
+
+def walls_in_order(result) -> list:
+    """The walls that fail first (`SiteResult.failing`: a danger finding too, whatever the
+    utilization), then the others worst first."""
+    failing = result.failing()
+    marks = {p.mark for p in failing}
+    return failing + [p for p in result.worst_first() if p.mark not in marks]
+
+
+def plain(*cells) -> list:
+    """Table cells: text as written, never read as markup (a mark may hold "[/]")."""
+    return [Text(c) if isinstance(c, str) else c for c in cells]
+
+
+def utilization_text(u: float) -> Text:
+    shown = "inf" if math.isinf(u) else f"{u:.2f}"
+    return Text(f"{shown} ✗", style="bold red") if u > 1.0 else Text(f"{shown} ok")
+
+
+def pass_text(passes: bool) -> Text:
+    return Text("✓ ok", style="green") if passes else Text("✗ FAIL", style="bold red")
+
+
+def flag_lines(flags) -> Text:
+    out = Text()
+    for f in flags:
+        symbol, style = FLAG_LOOK.get(f.severity, ("-", ""))
+        out.append(f"{symbol} {f.severity.upper()}: ", style=style)
+        out.append(f"{f.message}")
+        out.append(f"  [{f.source}]\n" if f.source else "\n", style="dim")
+    return out
+
+
+def speed(value: float | None, units: str) -> str:
+    return fmt(value, "mph", units)
+
+
+class Choice(Select):
+    """A one-line list of choices; letters and digits stay free for the app's keys."""
+
+    def __init__(self, options, **kwargs):
+        super().__init__(options, compact=True, type_to_search=False, **kwargs)
+        self.offered = list(options)
+
+    def offer(self, options: list[tuple[str, object]], value) -> None:
+        """New options only when they change; a value only when it is offered."""
+        if options != self.offered:
+            self.offered = options
+            self.set_options(options)
+        if any(v == value for _, v in options) and self.value != value:
+            self.value = value
+
+
+def show_text(widget: Static, text: Text | str) -> None:
+    """Put `text` in `widget` only when it differs from what the widget shows (an update lays
+    the screen out again: the whole site's result after a wall's changes little on screen)."""
+    text = Text(text) if isinstance(text, str) else text
+    key = (text.plain, [(s.start, s.end, str(s.style)) for s in text.spans])
+    if widget.__dict__.get("_shown") != key:
+        widget.__dict__["_shown"] = key
+        widget.update(text)
+
+
+class DrawnWhenShown:
+    """A view that draws only while its pane is on screen: a change made meanwhile is drawn
+    when the view comes back (`catch_up`), so that an edit redraws what the user sees, not
+    every view built so far."""
+
+    def hidden(self, draw: Callable) -> bool:
+        """True when the view is off screen: `draw` is then kept for `catch_up`."""
+        pane = self.parent
+        if self.is_mounted and pane is not None and not pane.display:
+            self.__dict__.setdefault("_pending", {})[draw.__name__] = draw
+            return True
+        return False
+
+    def redraw(self, draw: Callable) -> None:
+        if not self.hidden(draw):
+            draw()
+
+    async def redraw_async(self, draw: Callable) -> None:
+        if not self.hidden(draw):
+            await draw()
+
+    async def catch_up(self) -> None:
+        """Draw what changed while the view was off screen."""
+        pending = self.__dict__.pop("_pending", {})
+        for draw in pending.values():
+            done = draw()
+            if inspect.isawaitable(done):
+                await done
+
+
+class KeyFooter(Footer):
+    """Textual's footer, built again only when the keys it shows change (the footer builds a
+    widget per key at every focus change: the better part of a view switch)."""
+
+    def bindings_changed(self, screen) -> None:
+        shown = tuple((b.key, b.description, enabled)
+                      for _, b, enabled, _ in screen.active_bindings.values() if b.show)
+        if shown != self.__dict__.get("_keys_shown") or not screen.app.app_focus:
+            if screen.app.app_focus:
+                self.__dict__["_keys_shown"] = shown
+            super().bindings_changed(screen)
+
+
+class Caution(Static):
+    """The caution, docked on every screen."""
+
+    result = reactive(None, always_update=True)
+
+    def render(self) -> Text:
+        return Text("⚠ " + (self.result.caution if self.result is not None else CAUTION))
+
+
+class StatusLine(Static):
+    """The site's name, the file, unsaved changes, units and whether a recompute is running."""
+
+    result = reactive(None, always_update=True)
+    file_name = reactive("")
+    dirty = reactive(False)
+    busy = reactive(False)
+    units = reactive("us")
+
+    def render(self) -> Text:
+        out = Text()
+        if self.result is not None:
+            failing, total = len(self.result.failing()), len(self.result.panels)
+            out.append(f"✗ {failing} of {total} walls fail  " if failing else
+                       f"✓ none of {total} walls fails  ",
+                       style="bold red" if failing else "green")
+        out.append(f"·  {self.file_name}")
+        if self.dirty:
+            out.append("  ·  unsaved changes", style="bold")
+        out.append(f"  ·  {self.units.upper()} units")
+        if self.busy:
+            out.append("  ·  recomputing…", style="italic")
+        if self.result is not None:
+            out.append(f"  ·  {self.result.name}", style="bold")
+        return out
+
+
+class FieldRow(Vertical):
+    """One input of a form: its label, the value as the file holds it, and any message."""
+
+    @dataclass
+    class Edited(Message):
+        """The user asks for a new value in the file."""
+
+        row: FieldRow
+        spec: FieldSpec
+        text: str
+
+        @property
+        def control(self) -> FieldRow:
+            return self.row
+
+    value = reactive("", init=False)
+    error = reactive("", init=False)
+
+    def __init__(self, spec: FieldSpec):
+        super().__init__(id=f"field-{spec.field_id}", classes="field")
+        self.spec = spec
+        self.set_reactive(FieldRow.value, spec.value)
+
+    def compose(self) -> ComposeResult:
+        """The label and the box on one line (a grid); the message under them is added when
+        there is one (fewer widgets: a form is built and laid out faster)."""
+        s = self.spec
+        yield Label(s.label, classes="field-label")
+        if s.kind == "fixed":
+            yield Static(Text(s.value), classes="field-fixed")
+        elif s.kind == "choice":
+            yield Choice([(Text(c), c) for c in s.choices], value=s.value or Select.NULL,
+                         allow_blank=not s.value,
+                         prompt=f"not set ({s.hint})" if s.hint else "not set")
+        else:
+            yield Input(s.value, placeholder=f"not set ({s.hint})" if s.hint else "not set",
+                        compact=True, select_on_focus=False)
+
+    def show(self, spec: FieldSpec) -> None:
+        """Show `spec`'s value as the file holds it, whatever the field held before (a value
+        typed for another wall and never applied does not linger)."""
+        self.spec = spec
+        self.set_reactive(FieldRow.value, spec.value)
+        if spec.kind == "fixed":
+            for fixed in self.query(".field-fixed").results(Static):
+                fixed.update(Text(spec.value))
+        elif spec.kind == "choice":
+            for choice in self.query(Choice).results(Choice):
+                choice.offer([(Text(c), c) for c in spec.choices], spec.value)
+        else:
+            for box in self.query(Input).results(Input):
+                box.value = spec.value  # (a row not composed yet shows its spec at compose)
+
+    def watch_error(self, error: str) -> None:
+        shown = self.query(".field-error")
+        if error and not shown:
+            self.mount(Static(f"✗ {error}", classes="field-error"))
+        elif shown:
+            shown.first(Static).update(f"✗ {error}" if error else "")
+        self.set_class(bool(error), "-invalid")
+
+    @on(Input.Submitted)
+    def _submitted(self, event: Input.Submitted) -> None:
+        event.stop()
+        self.post_message(self.Edited(self, self.spec, event.value))
+
+    @on(Input.Blurred)
+    def _left(self, event: Input.Blurred) -> None:
+        if event.value != self.value and not self.error:
+            self.post_message(self.Edited(self, self.spec, event.value))
+
+    @on(Select.Changed)
+    def _chosen(self, event: Select.Changed) -> None:
+        event.stop()
+        if event.value != Select.NULL and event.value != self.value:
+            self.post_message(self.Edited(self, self.spec, str(event.value)))
+
+    def key_escape(self) -> None:
+        """Escape puts back the file's value and leaves the field."""
+        if self.spec.kind not in ("choice", "fixed"):
+            self.query_one(Input).value = self.value
+        self.error = ""
+        self.screen.set_focus(None)
+
+
+class Form(Vertical):
+    """A column of fields; rebuilt when the set of fields changes, else only refilled."""
+
+    errors = reactive(dict, always_update=True, init=False)
+
+    def __init__(self, specs: list[FieldSpec] = (), **kwargs):
+        super().__init__(**kwargs)
+        self.specs: list[FieldSpec] = list(specs)
+
+    def compose(self) -> ComposeResult:
+        yield from (FieldRow(s) for s in self.specs)
+
+    async def show(self, specs: list[FieldSpec]) -> None:
+        if [(s.field_id, s.choices) for s in specs] != [(s.field_id, s.choices)
+                                                         for s in self.specs]:
+            self.specs = specs
+            await self.recompose()
+        else:
+            self.specs = specs
+            # a form not composed yet has no rows: each shows its spec when composed
+            for row, spec in zip(self.query(FieldRow), specs, strict=False):
+                row.show(spec)
+        self.watch_errors(self.errors)
+
+    def watch_errors(self, errors: dict) -> None:
+        for row in self.query(FieldRow):
+            row.error = errors.get(row.spec.field_id, "")
