@@ -216,3 +216,17 @@ def test_the_footer_is_built_again_only_when_its_keys_change(tmp_path, monkeypat
         assert builds == [] and "Previous" in screen_text(app).splitlines()[-1]
 
     drive(app, steps)
+
+
+def test_a_brace_layout_with_no_known_utilization_reads_unknown():
+    """A brace with no rating has no utilization (null in the record): the dialog's lines say
+    'unknown' instead of failing to format it (common practice: never show a number not known)."""
+    from types import SimpleNamespace
+
+    from tui.dialogs import layout_lines
+
+    wall = SimpleNamespace(braces={
+        "count": 2, "brace_type": "unrated", "positions_ft": [3.0, 9.0], "insert_height_ft": 8.0,
+        "angle_deg": 50.0, "anchor_distance_ft": 6.7, "wall_anchor": None, "foot_anchor": None,
+        "utilization": None})
+    assert "utilization unknown" in layout_lines("Now", wall, "us").plain

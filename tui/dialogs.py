@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass
 from pathlib import Path
 from typing import ClassVar
@@ -195,8 +196,13 @@ def layout_lines(title: str, p, units: str) -> Text:
                f"insert {fmt(b['insert_height_ft'], 'ft', units, 1)}, angle "
                f"{b['angle_deg']:.1f}°\nfoot {fmt(b['anchor_distance_ft'], 'ft', units, 1)} "
                f"from the face\nanchors {b.get('wall_anchor') or '-'} / "
-               f"{b.get('foot_anchor') or '-'}\nutilization {b['utilization']:.2f}")
+               f"{b.get('foot_anchor') or '-'}\nutilization {_ratio(b['utilization'])}")
     return out
+
+
+def _ratio(value: float | None) -> str:
+    """A utilization as shown: 'unknown' where the engine has none (a brace with no rating)."""
+    return "unknown" if value is None or not math.isfinite(value) else f"{value:.2f}"
 
 
 class DesignProposal(ModalScreen[bool]):
