@@ -71,6 +71,11 @@ def add_command(commands) -> None:
     add("--anchor-shear", help="rated allowable shear of a brace foot anchor (lb)")
     add("--basis", choices=["ASD", "LRFD"], default="ASD")
     add("--json", action="store_true", help="print one JSON object")
+    add("--svg", metavar="FILE", help="also write the wall's section sketch (SVG): the "
+                                      "pressure diagram, the backfill line, the allowed height "
+                                      "and any inside brace")
+    add("--units", choices=["us", "si"], default="us",
+        help="units of the section sketch's words (default us; text and JSON stay US)")
     return p
 
 
@@ -321,3 +326,43 @@ def _check_line(c: dict) -> str:
 
 def _num(value) -> str:
     return "no capacity" if value is None or not math.isfinite(value) else f"{value:.2f}"
+
+
+def sketch(args, record: dict):
+    """What the section sketch (`--svg`) draws, from the flags (the wall, its footing, the
+    soil and the braces, read again) and the record's values; the pressure's parts at the
+    backfill's top, the water level and the base (bracing.backfill_profile)."""
+    from bracing.backfill_profile import pressure_parts, resultant_height
+    from bracing.report.svg.backfill import BackfillSketch, InsideBraceSketch
+
+    wall = wall_from_flags(args)
+    height = record["backfill"]["height_ft"]
+    soil = soil_from_flags(args, height)
+    levels = [height] + ([soil.water] if 0.0 < soil.water < height else []) + [0.0]
+    parts = pressure_parts(levels, height, soil.efp, soil.unit_weight, soil.surcharge,
+                           soil.water)
+    brace = record["inside_brace"]
+    return BackfillSketch(
+        mark="wall", wall_height_ft=wall.height, thickness_in=wall.thickness,
+        backfill_ft=height, allowed_ft=record["max_backfill_height_ft"],
+        profile=tuple((z, float(a), float(b), float(c))
+                      for z, a, b, c in zip(levels, *parts, strict=True)),
+        resultant_plf=record["base_shear_plf"],
+        resultant_height_ft=float(resultant_height(record["base_shear_plf"],
+                                                   record["base_moment_lb_ft_per_ft"])),
+        efp_pcf=soil.efp, surcharge_psf=soil.surcharge,
+        water_level_ft=soil.water if soil.water > 0.0 else None,
+        footing_width_ft=wall.footing_width, footing_thickness_ft=wall.footing_thickness,
+        toe_ft=wall.toe,
+        brace=None if brace is None else InsideBraceSketch(
+            height_ft=brace["height_ft"], angle_deg=brace["angle_deg"],
+            force_lb=brace["force_lb"], spacing_ft=brace["spacing_ft"],
+            allowed_ft=brace["max_backfill_height_ft"]),
+        danger=not record["passes"], caption="the quick check")
+
+
+def section_svg(args, record: dict) -> str:
+    """The section sketch of the wall checked, standalone (the caution under it)."""
+    from bracing.report.svg.backfill import backfill_section_svg
+
+    return backfill_section_svg(sketch(args, record), standalone=True, units=args.units)
