@@ -36,6 +36,9 @@ PHI_PLAIN = 0.60  # ACI 318-19 §21.2.1, plain concrete (from memory)
 PHI_FLEXURE = 0.90  # tension-controlled, ACI 318-19 Table 21.2.2; TMS 402-16 §9.1.4.4, from memory
 PHI_SHEAR_CONCRETE = 0.75  # ACI 318-19 Table 21.2.1
 PHI_SHEAR_MASONRY = 0.80  # TMS 402-16 §9.1.4.5 (from memory)
+# ASTM A615 deformed bars: nominal area (in^2) and diameter (in), text.
+BARS = {"#3": (0.11, 0.375), "#4": (0.20, 0.500), "#5": (0.31, 0.625), "#6": (0.44, 0.750),
+        "#7": (0.60, 0.875), "#8": (0.79, 1.000)}
 
 
 class UnsuitableSoil(ValueError):

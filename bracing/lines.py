@@ -71,9 +71,10 @@ def releases(site: Site, columns: dict[str, tuple] | None = None) -> Releases:
     lift = np.array(lift, float)  # None: NaN
     event_day = _last_event_days(site, after)
     row = dict(zip(marks, range(len(marks)), strict=True)) if site.signoffs else {}
-    wall = np.array([row[s.panel] for s in site.signoffs], int)
+    wall = np.array([row.get(s.panel, -1) for s in site.signoffs], int)  # -1: a foundation wall
     day = np.array([s.day for s in site.signoffs], int)
     order = np.lexsort((day, wall))                      # stable: same-day ones in file order
+    order = order[wall[order] >= 0]                      # the panels' sign-offs
     order = order[~np.isnan(lift[wall[order]])]          # the sign-offs of scheduled walls
     wall, day = wall[order], day[order]
     valid = (day >= lift[wall]) & ~(event_day[wall] > day)  # after the lift and every event

@@ -720,6 +720,10 @@ class Site(Strict):
     design: DesignOptions | None = Field(
         None, description="Options of `bracing check --design` for walls with no bracing.")
     panels: list[Panel] = Field(min_length=1)
+    # foundation walls and their backfill (bracing.foundation_model, method notes §12)
+    backfill: foundation_model.BackfillSoil | None = None
+    foundation_walls: list[foundation_model.FoundationWall] = Field(default_factory=list)
+    backfill_events: list[foundation_model.BackfillEvent] = Field(default_factory=list)
 
     @model_validator(mode="wrap")
     @classmethod
@@ -837,8 +841,9 @@ def reference_problems(data) -> list[tuple[tuple, str, object]]:
     signoffs = data.get("signoffs")
     for i, s in enumerate(signoffs if isinstance(signoffs, list) else []):
         mark = s.get("panel") if isinstance(s, dict) else None
-        if isinstance(mark, str) and mark not in first_of:
+        if isinstance(mark, str) and mark not in first_of.keys() | foundation_model.marks(data):
             problems.append((("signoffs", i, "panel"), f"{mark!r} is not a panel mark", mark))
+    problems += foundation_model.reference_problems(data, lines, events, set(first_of))
     version = data.get("version")
     if isinstance(version, int) and not isinstance(version, bool) and version > SCHEMA_VERSION:
         problems.append((("version",), f"version {version} is newer than this program "
@@ -872,3 +877,6 @@ def read_panels(site: Site) -> dict[str, tuple]:
     columns.update(zip(BRACING_FIELDS, fields) if columns["braced"]
                    else dict.fromkeys(BRACING_FIELDS, ()))
     return columns
+
+
+from bracing import foundation_model  # noqa: E402  (it builds on the classes above)
