@@ -327,32 +327,20 @@ def _num(value) -> str:
 
 
 def sketch(args, record: dict):
-    """What the section sketch (`--svg`) draws, from the flags (the wall, its footing, the
-    soil and the braces, read again) and the record's values; the pressure's parts at the
-    backfill's top, the water level and the base (bracing.backfill_profile)."""
-    from bracing.backfill_profile import pressure_parts, resultant_height
-    from bracing.report.svg.backfill import BackfillSketch, InsideBraceSketch
+    """What the section sketch (`--svg`) draws: the wall, its footing and the soil read again
+    from the flags, the heights and the brace from the record (bracing.backfill_profile)."""
+    from bracing import backfill_profile
 
     wall = wall_from_flags(args)
     height = record["backfill"]["height_ft"]
     soil = soil_from_flags(args, height)
-    levels = [height] + ([soil.water] if 0.0 < soil.water < height else []) + [0.0]
-    parts = pressure_parts(levels, height, soil.efp, soil.unit_weight, soil.surcharge,
-                           soil.water)
     brace = record["inside_brace"]
-    return BackfillSketch(
-        mark="wall", wall_height_ft=wall.height, thickness_in=wall.thickness,
-        backfill_ft=height, allowed_ft=record["max_backfill_height_ft"],
-        profile=tuple((z, float(a), float(b), float(c))
-                      for z, a, b, c in zip(levels, *parts, strict=True)),
-        resultant_plf=record["base_shear_plf"],
-        resultant_height_ft=float(resultant_height(record["base_shear_plf"],
-                                                   record["base_moment_lb_ft_per_ft"])),
-        efp_pcf=soil.efp, surcharge_psf=soil.surcharge,
-        water_level_ft=soil.water if soil.water > 0.0 else None,
-        footing_width_ft=wall.footing_width, footing_thickness_ft=wall.footing_thickness,
-        toe_ft=wall.toe,
-        brace=None if brace is None else InsideBraceSketch(
+    return backfill_profile.sketch(
+        mark="wall", wall_height=wall.height, thickness=wall.thickness, backfill_height=height,
+        allowed=record["max_backfill_height_ft"], efp=soil.efp, unit_weight=soil.unit_weight,
+        surcharge=soil.surcharge, water=soil.water, footing_width=wall.footing_width,
+        footing_thickness=wall.footing_thickness, toe=wall.toe,
+        brace=None if brace is None else backfill_profile.InsideBraceSketch(
             height_ft=brace["height_ft"], angle_deg=brace["angle_deg"],
             force_lb=brace["force_lb"], spacing_ft=brace["spacing_ft"],
             allowed_ft=brace["max_backfill_height_ft"]),

@@ -13,8 +13,9 @@ import xml.etree.ElementTree as ET
 
 import pytest
 
+from bracing.backfill_profile import BackfillSketch, InsideBraceSketch
 from bracing.cli import main
-from bracing.report.svg.backfill import BackfillSketch, InsideBraceSketch, backfill_section_svg
+from bracing.report.svg.backfill import backfill_section_svg
 from bracing.report.svg.labels import boxes_overlap
 from bracing.results import CAUTION
 

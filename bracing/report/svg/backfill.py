@@ -4,7 +4,7 @@ diagram (the surcharge's rectangle, the soil's triangle and the water below its 
 resultant and its height, the highest backfill allowed before the floor, and any inside brace
 with its height, angle and force.
 
-Drawn from plain numbers (`BackfillSketch`), worked out by the engine and picked by the caller:
+Drawn from plain numbers (`bracing.backfill_profile.BackfillSketch`), worked out by the engine:
 nothing is computed here but the drawing's own geometry. Laid out in mm, `ELEVATION_MM` wide, so
 that a font size is its size on paper; labels are set clear of each other by `place_labels`.
 """
@@ -17,6 +17,7 @@ from xml.sax.saxutils import escape, quoteattr
 
 from shapely.geometry import LineString, Polygon, box
 
+from bracing.backfill_profile import BackfillSketch, InsideBraceSketch  # noqa: F401 (its input)
 from bracing.report.svg.labels import Label, place_labels, placed_items
 from bracing.report.svg.style import (
     BRACE,
@@ -37,46 +38,6 @@ DIAGRAM_MM = 30.0   # the largest pressure of a diagram, drawn this wide
 RIGHT_MM = 28.0     # room right of the diagram for its labels
 DIM_X_MM = 5.0      # the wall's height dimension, at the left
 WALL_MAX_MM = 56.0  # the tallest a wall is drawn
-
-
-@dataclass(frozen=True)
-class InsideBraceSketch:
-    """Inside braces or shores as drawn: height on the wall (ft), angle from horizontal (deg),
-    the force in each (lb, on the basis checked), their spacing (ft), and the highest backfill
-    the braced wall takes (ft)."""
-
-    height_ft: float
-    angle_deg: float
-    force_lb: float
-    spacing_ft: float
-    allowed_ft: float
-
-
-@dataclass(frozen=True)
-class BackfillSketch:
-    """What the section sketch of one foundation wall draws, in engine units (ft, in, psf,
-    pcf, plf, lb). `profile`: the unfactored pressure in its parts, (level above the base in
-    ft, surcharge psf, soil psf, water psf), from the backfill's top down to the base, with a
-    row at the water level where there is one. `danger`: the backfill drawn is above what the
-    wall (with its inside braces, if any) may take before the floor."""
-
-    mark: str
-    wall_height_ft: float
-    thickness_in: float
-    backfill_ft: float
-    allowed_ft: float
-    profile: tuple[tuple[float, float, float, float], ...]
-    resultant_plf: float
-    resultant_height_ft: float
-    efp_pcf: float
-    surcharge_psf: float = 0.0
-    water_level_ft: float | None = None
-    footing_width_ft: float | None = None
-    footing_thickness_ft: float = 1.0
-    toe_ft: float | None = None         # the footing's inside projection; None: wall centred
-    brace: InsideBraceSketch | None = None
-    danger: bool = False
-    caption: str = ""                   # e.g. "day 3, planned"
 
 
 @dataclass(frozen=True)
