@@ -174,7 +174,10 @@ def brace_lines(b: dict, system: str) -> list[str]:
 
 
 def site_text(result: SiteResult, system: str = "us") -> str:
-    """A whole-site report: caution, basis, deficiencies by severity, then every wall worst first."""
+    """A whole-site report: caution, basis, deficiencies by severity, then every wall worst first
+    and the foundation walls backfilled before the floor."""
+    from bracing.report import backfill_sheet  # it formats with this module's helpers
+
     panels = result.worst_first()
     counts = {s: sum(p.status == s for p in panels) for s in STATUSES}
     lines = [site_verdict(result), result.caution, "", f"Site: {result.name}"]
@@ -211,6 +214,7 @@ def site_text(result: SiteResult, system: str = "us") -> str:
         lines.append(day_line(day, system))
     for p in panels:
         lines += [""] + panel_text(p, system)
+    lines += backfill_sheet.wall_lines(result, system)
     lines += ["", result.caution]
     return "\n".join(wrap(localize(line, system)) for line in lines)
 
