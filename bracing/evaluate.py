@@ -15,6 +15,7 @@ from operator import attrgetter
 from bracing import layout, lines, plan, schedule, scope
 from bracing.model import Site, read_panels
 from bracing.results import Flag, PanelResult, SiteResult
+from bracing.stages import foundation
 from bracing.stages.alone import (  # noqa: F401  (names other modules import from here)
     CHECK_INFO,
     REVERSE,
@@ -70,10 +71,28 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     for mark, flag in wall_flags:  # sign-off and period flags: the wall's checks stand as they are
         by_mark[mark].flags.append(flag)
     geometry = _plan_of_days(site, places, days, found, by_mark)
+    walls = foundation.evaluate_foundation_walls(site)
+    _backfill_days(days, walls, by_mark)
     return SiteResult(
         name=site.site.name, basis=site.site.design_basis, basis_statement=basis_statement(site),
         panels=panels, days=days, peak_inventory=peak, plan=geometry,
-        not_checked=scope.not_checked(site, columns))
+        not_checked=scope.not_checked(site, columns), foundation_walls=walls,
+        flags=foundation.site_flags(walls))
+
+
+def _backfill_days(days, walls, by_mark: dict) -> None:
+    """Each day's backfill dangers (a wall backfilled above what it may take that day) among
+    the day's findings, its forecast against the foundation walls' stand-down gusts, and the
+    day judged again with them (method notes §6, §12)."""
+    on_day = foundation.day_flags(walls)
+    windy = {d.day for d in foundation.windy_days(walls, days)}
+    if not on_day and not windy:
+        return
+    facts = schedule.wall_facts(by_mark)
+    for d in days:
+        if d.day in on_day or d.day in windy:
+            d.flags.extend(on_day.get(d.day, []))
+            schedule.judge(d, by_mark, facts)
 
 
 def _edges(site: Site, places) -> dict[str, float]:

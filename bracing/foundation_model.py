@@ -19,14 +19,13 @@ from bracing.model import (
     Age,
     Angle,
     Length,
-    Positive,
     Pressure,
     SectionArea,
-    Strict,
+    Site,
     Stress,
+    Strict,
     Thickness,
     UnitWeight,
-    Site,
 )
 
 
@@ -150,7 +149,9 @@ class FoundationWall(Strict):
     bars: WallBars | None = Field(None, description="Vertical bars: a reinforced wall (masonry: "
                                                     "grouted).")
     masonry_strength: Stress = Field(2000.0, ge=500, le=6000, description="Masonry f'm (psi).")
-    mortar_age: Age | None = Field(None, ge=0, description="Masonry: mortar age (days); none: "
+    mortar_age: Age | None = Field(None, ge=0, description="Masonry built before day 1: its "
+                                                           "mortar's age on day 1 (days); "
+                                                           "with neither this nor build_day: "
                                                            "taken as cured, with a warning.")
     footing: WallFooting | None = None
     backfill: BackfillSoil | None = Field(None, description="This wall's backfill, instead of "
@@ -172,6 +173,9 @@ class FoundationWall(Strict):
         brace = self.inside_braces
         if brace is not None and brace.height > self.height:
             raise ValueError("inside_braces.height is above the wall's top")
+        depth = None if self.bars is None else self.bars.depth_in(self.thickness, True)
+        if depth is not None and not 0.0 < depth < self.thickness:
+            raise ValueError("bars: the cover or depth leaves no depth to the bar in the wall")
         if self.footing is not None and self.footing.width <= self.thickness / 12.0:
             raise ValueError("footing.width is not wider than the wall")
         if self.footing is not None and self.footing.toe is not None and \
@@ -234,39 +238,63 @@ def reference_problems(data: dict, lines: set, events: set, panel_marks: set
                              "has it already)", mark))
         elif isinstance(mark, str):
             by_mark[mark] = w
-        material = w.get("material")
-        if isinstance(material, str):
-            kind = (data["materials"].get(material) or {}).get("kind") \
-                if material in known["materials"] else None
-            if material not in known["materials"]:
-                problems.append((("foundation_walls", i, "material"),
-                                 f"{material!r} is not in [materials]", material))
-            elif kind not in ("concrete", "masonry"):
-                problems.append((("foundation_walls", i, "material"), "a foundation wall is "
-                                 "concrete or masonry", material))
-        line = w.get("line")
-        if isinstance(line, str) and line not in lines:
-            problems.append((("foundation_walls", i, "line"), f"{line!r} is not a [[lines]] name",
-                             line))
-        after = w.get("release_after")
-        for j, event in enumerate(after if isinstance(after, list) else []):
-            if isinstance(event, str) and event not in events:
-                problems.append((("foundation_walls", i, "release_after", j),
-                                 f"{event!r} is not an [[events]] name", event))
-        braces = w.get("inside_braces")
-        if isinstance(braces, dict):
-            for key, section in (("brace_type", "brace_types"), ("foot_anchor", "anchor_types")):
-                name = braces.get(key)
-                if isinstance(name, str) and name not in known[section]:
-                    problems.append((("foundation_walls", i, "inside_braces", key),
-                                     f"{name!r} is not in [{section}]", name))
-        if w.get("backfill") is None and data.get("backfill") is None:
-            problems.append((("foundation_walls", i, "backfill"), "no backfill given: add the "
-                             "site's [backfill] or this wall's own", None))
+        problems += _wall_problems(i, w, data, known, lines, events)
     events_ = data.get("backfill_events")
     for i, e in enumerate(events_ if isinstance(events_, list) else []):
         if isinstance(e, dict):
             problems += _event_problems(i, e, by_mark, lines)
+    return problems
+
+
+def _wall_problems(i: int, w: dict, data: dict, known: dict, lines: set, events: set) -> list:
+    """A foundation wall's names: material, line, events, brace and anchor types, backfill."""
+    problems = []
+    material = w.get("material")
+    if isinstance(material, str):
+        if material not in known["materials"]:
+            problems.append((("foundation_walls", i, "material"),
+                             f"{material!r} is not in [materials]", material))
+        else:
+            problems += _material_problems(i, w, data["materials"].get(material), material)
+    line = w.get("line")
+    if isinstance(line, str) and line not in lines:
+        problems.append((("foundation_walls", i, "line"), f"{line!r} is not a [[lines]] name",
+                         line))
+    after = w.get("release_after")
+    for j, event in enumerate(after if isinstance(after, list) else []):
+        if isinstance(event, str) and event not in events:
+            problems.append((("foundation_walls", i, "release_after", j),
+                             f"{event!r} is not an [[events]] name", event))
+    braces = w.get("inside_braces")
+    if isinstance(braces, dict):
+        for key, section in (("brace_type", "brace_types"), ("foot_anchor", "anchor_types")):
+            name = braces.get(key)
+            if isinstance(name, str) and name not in known[section]:
+                problems.append((("foundation_walls", i, "inside_braces", key),
+                                 f"{name!r} is not in [{section}]", name))
+    if w.get("backfill") is None and data.get("backfill") is None:
+        problems.append((("foundation_walls", i, "backfill"), "no backfill given: add the "
+                         "site's [backfill] or this wall's own", None))
+    return problems
+
+
+def _material_problems(i: int, w: dict, mat, name: str) -> list:
+    """A foundation wall's material: concrete (with its f'c on the day, and the bars' cover or
+    depth) or masonry."""
+    kind = mat.get("kind") if isinstance(mat, dict) else None
+    if kind not in ("concrete", "masonry"):
+        return [(("foundation_walls", i, "material"), "a foundation wall is concrete or masonry",
+                 name)]
+    if kind == "masonry":
+        return []
+    problems = []
+    if mat.get("compressive_strength") is None:
+        problems.append((("foundation_walls", i, "material"), f"concrete {name!r} gives no "
+                         "compressive_strength (f'c on the backfill days)", name))
+    bars = w.get("bars")
+    if isinstance(bars, dict) and bars.get("cover") is None and bars.get("depth") is None:
+        problems.append((("foundation_walls", i, "bars"), "a concrete wall's bars need their "
+                         "cover or depth from the backfill face", None))
     return problems
 
 

@@ -879,4 +879,4 @@ def read_panels(site: Site) -> dict[str, tuple]:
     return columns
 
 
-from bracing import foundation_model  # noqa: E402  (it builds on the classes above)
+from bracing import foundation_model

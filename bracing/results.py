@@ -232,6 +232,8 @@ class SiteResult:
     plan: object | None = None  # bracing.plan.PlanGeometry: coordinates for the views
     flags: list[Flag] = field(default_factory=list)  # site-wide findings
     not_checked: list[NotChecked] = field(default_factory=list)  # what the check leaves out
+    # bracing.foundation_results.FoundationWallResult of each foundation wall (method notes §12)
+    foundation_walls: list = field(default_factory=list)
 
     def worst_first(self) -> list[PanelResult]:
         return sorted(self.panels, key=lambda p: (STATUS_ORDER.index(p.status), -p.utilization))
@@ -242,8 +244,9 @@ class SiteResult:
 
     @property
     def fails(self) -> bool:
-        """True when a wall fails or a finding of the site or of a day is a danger (§8a)."""
-        return bool(self.failing()) or any(
+        """True when a wall fails, a foundation wall fails (its backfill over its limit on a
+        day) or a finding of the site or of a day is a danger (§8a)."""
+        return bool(self.failing()) or any(w.fails for w in self.foundation_walls) or any(
             f.severity == "danger" for f in self.flags + [g for d in self.days for g in d.flags])
 
     def panel(self, mark: str) -> PanelResult:
