@@ -39,10 +39,11 @@ def _day_of(wall, day: int):
 
 
 def rows(result, day: int, units: str = "us") -> list[BackfillRow]:
-    """The foundation walls with a record on `day`, the dangers first, then by how close the
-    plan comes to what is allowed."""
+    """The foundation walls standing without their top support on `day` (built, the floor not
+    yet holding them), the dangers first, then by how close the plan comes to what is
+    allowed."""
     found = [(w, d) for w in getattr(result, "foundation_walls", []) or []
-             if (d := _day_of(w, day)) is not None]
+             if (d := _day_of(w, day)) is not None and d.support != "top support"]
     found.sort(key=lambda wd: (not wd[1].over, wd[1].allowed_height_ft - wd[1].planned_height_ft,
                                wd[0].mark))
     return [_row(w, d, units) for w, d in found]
@@ -54,8 +55,6 @@ def _row(w, d, units: str) -> BackfillRow:
     if d.over:
         action = (f"stop the backfill at {allowed} until the floor is on"
                   + (" or inside braces are set" if d.support == "cantilever" else ""))
-    elif d.support == "top support":
-        action = "the floor holds its top"
     else:
         action = f"backfill no higher than {allowed} today"
     b = w.inside_brace
@@ -95,7 +94,7 @@ def sketches(site, result, day: int, units: str = "us") -> list[tuple[str, str]]
     for r in rows(result, day, units):
         w = by_mark[r.mark]
         d = _day_of(w, day)
-        if d.support == "top support" or d.planned_height_ft <= 0.0:
+        if d.planned_height_ft <= 0.0:
             continue
         footing = getattr(model.get(w.mark), "footing", None)
         b = w.inside_brace if d.support == "inside braces" else None
@@ -139,9 +138,7 @@ def wall_lines(result, system: str = "us") -> list[str]:
                   f"{fmt(w.max_height_ft, 'ft', system, 1)}"
                   + ("" if w.inside_brace is None else
                      f", with its inside braces {fmt(w.inside_brace.max_height_ft, 'ft', system, 1)}")]
-        days = [f"day {d.day}: {fmt(d.planned_height_ft, 'ft', system, 1)} of "
-                f"{fmt(d.allowed_height_ft, 'ft', system, 1)}{' DANGER' if d.over else ''}"
-                for d in w.days]
+        days = day_runs(w.days, system)
         if days:
             lines.append("  by day (planned of allowed): " + "; ".join(days))
         lines += [f"  {SYMBOL[f.severity]} {f.severity.upper()}: {f.message} [{f.source}]"
@@ -149,3 +146,26 @@ def wall_lines(result, system: str = "us") -> list[str]:
                       f.severity))]
         lines += [check_line(c, system) for c in sorted(w.checks, key=lambda c: -c.utilization)]
     return lines
+
+
+def day_runs(days, system: str = "us") -> list[str]:
+    """A wall's days in words, days alike (the same heights, support and danger) in one run:
+    'days 2-6: 0.0 ft of 2.7 ft', 'day 7: 5.0 ft of 2.3 ft DANGER', 'from day 10: top
+    support'."""
+    runs: list[list] = []
+    for d in days:
+        said = ("top support" if d.support == "top support" else
+                f"{fmt(d.planned_height_ft, 'ft', system, 1)} of "
+                f"{fmt(d.allowed_height_ft, 'ft', system, 1)}"
+                + (" with inside braces" if d.support == "inside braces" else "")
+                + (" DANGER" if d.over else ""))
+        if runs and runs[-1][2] == said and runs[-1][1] == d.day - 1:
+            runs[-1][1] = d.day
+        else:
+            runs.append([d.day, d.day, said])
+    out = []
+    for k, (first, last, said) in enumerate(runs):
+        when = (f"from day {first}" if said == "top support" and k == len(runs) - 1 else
+                f"day {first}" if first == last else f"days {first}-{last}")
+        out.append(f"{when}: {said}")
+    return out

@@ -130,7 +130,8 @@ def pick_days(site: Site, result: SiteResult, day: int | None) -> list[DayResult
                             "the sheet of every wall)")
         return [schedule.whole_site(site, result.panels)]
     if day is None:
-        return [d for d in result.days if d.standing or d.lifts or d.released]
+        return [d for d in result.days if d.standing or d.lifts or d.released
+                or backfill_sheet.rows(result, d.day)]  # or a foundation wall to backfill
     found = [d for d in result.days if d.day == day]
     if not found:
         raise NoSuchDay(f"day {day} is not in the schedule (days {result.days[0].day} to "
