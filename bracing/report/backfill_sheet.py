@@ -111,7 +111,7 @@ def sketches(site, result, day: int, units: str = "us") -> list[tuple[str, str]]
                 height_ft=b.height_ft, angle_deg=b.angle_deg, force_lb=b.force_lb,
                 spacing_ft=b.spacing_ft, allowed_ft=d.allowed_height_ft),
             danger=d.over, caption=f"day {day}")
-        out.append((w.mark, backfill_section_svg(picture, units=units)))
+        out.append((w.mark, backfill_section_svg(picture, units=units, notes=False)))
     return out
 
 

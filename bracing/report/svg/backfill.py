@@ -38,6 +38,9 @@ DIAGRAM_MM = 30.0   # the largest pressure of a diagram, drawn this wide
 RIGHT_MM = 28.0     # room right of the diagram for its labels
 DIM_X_MM = 5.0      # the wall's height dimension, at the left
 WALL_MAX_MM = 56.0  # the tallest a wall is drawn
+NOTE = ("Pressures unfactored, per ft of wall; heights above the top of the footing. Backfill on "
+        "the outside face (right); the floor not yet on, so the wall stands as a cantilever from "
+        "its footing. Allowed: the highest backfill before the floor (method notes §12).")
 
 
 @dataclass(frozen=True)
@@ -53,9 +56,10 @@ class _Frame:
 
 
 def backfill_section_svg(sketch: BackfillSketch, standalone: bool = False, *,
-                         units: str = "us") -> str:
+                         units: str = "us", notes: bool = True) -> str:
     """The section sketch of one foundation wall (`ELEVATION_MM` wide, mm units); with
-    `standalone` the caution is printed under it (it is in the drawing's desc always).
+    `standalone` the caution is printed under it (it is in the drawing's desc always); without
+    `notes` the note on what it shows is left to the page that holds several (`NOTE`).
     `units`: 'us' or 'si' (the words; the drawing stays in ft inside)."""
     from bracing.report.text import localize  # the views' one formatter
 
@@ -86,10 +90,7 @@ def backfill_section_svg(sketch: BackfillSketch, standalone: bool = False, *,
     items += _dim_v(DIM_X_MM, fr.yb, fr.y(s.wall_height_ft), say(f"wall {s.wall_height_ft:g} ft"))
     frame = (DIM_X_MM + 2.0, y + 0.5, ELEVATION_MM - 0.5, bottom + 7.0)
     items += placed_items(place_labels(labels, drawn, frame))
-    notes = [("Pressures unfactored, per ft of wall; heights above the top of the footing. "
-              "Backfill on the outside face (right); the floor not yet on, so the wall stands as "
-              "a cantilever from its footing. Allowed: the highest backfill before the floor "
-              "(method notes §12).", LEAST_TEXT_MM, "normal", "#000")]
+    notes = [(NOTE, LEAST_TEXT_MM, "normal", "#000")] if notes else []
     if s.footing_width_ft is None:
         notes.append(("Footing not given: overturning and sliding not checked.", LEAST_TEXT_MM,
                       "normal", "#000"))
@@ -97,6 +98,7 @@ def backfill_section_svg(sketch: BackfillSketch, standalone: bool = False, *,
         notes.append((CAUTION, LEAST_TEXT_MM, "bold", "#000"))
     more, y = lines_block([(say(w), size, weight, color) for w, size, weight, color in notes],
                           bottom + 7.5, 1.5, ELEVATION_MM - 3)
+    y = max(y, bottom + 7.0)
     return _document(items + more, y + 2.0, s)
 
 
