@@ -122,7 +122,7 @@ def test_inside_brace_at_its_height_and_angle_with_its_force(tmp_path, capsys):
     cos 45 = 741.9 x 6 / 0.70711 = 6,295.6 lb, "6,296 lb each". Drawn from the inside face at
     6 ft of the 9 ft wall down to its foot at 45 deg."""
     root, _, record = quick_sketch(tmp_path, capsys)
-    assert "inside brace at 6 ft, 45°, every 6 ft: 6,296 lb each" in words_of(root)
+    assert "inside brace at 6.0 ft, 45°, every 6.0 ft: 6,296 lb each" in words_of(root)
     brace = the(root, "line", "inside-brace")
     wall = the(root, "rect", "wall")
     x1, y1, x2, y2 = (float(brace.get(a)) for a in ("x1", "y1", "x2", "y2"))

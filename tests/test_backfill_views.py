@@ -150,8 +150,14 @@ def test_plan_hatches_the_backfill_side_of_walls_backfilled_that_day(basement):
 
 
 def test_si_sketches_and_plan_hold_no_us_unit(basement):
+    """SI words throughout, and the sketch says the allowed height as the table does (rounded
+    once, in metres: 2.72 ft = 0.83 m, not 2.7 ft = 0.82 m)."""
     site, result = basement
-    drawn = [s for _, s in backfill_sheet.sketches(site, result, 7, "si")]
+    sketches = dict(backfill_sheet.sketches(site, result, 7, "si"))
+    for r in backfill_sheet.rows(result, 7, "si"):
+        if r.mark in sketches and not r.danger and not r.brace:
+            assert f">allowed {r.allowed} before the floor<" in sketches[r.mark], r.mark
+    drawn = list(sketches.values())
     drawn.append(svg.overview_svg(result, 7, units="si"))
     for out in drawn:
         words = " ".join(re.findall(r">([^<>]+)<", out))

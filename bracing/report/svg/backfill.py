@@ -61,11 +61,7 @@ def backfill_section_svg(sketch: BackfillSketch, standalone: bool = False, *,
     `standalone` the caution is printed under it (it is in the drawing's desc always); without
     `notes` the note on what it shows is left to the page that holds several (`NOTE`).
     `units`: 'us' or 'si' (the words; the drawing stays in ft inside)."""
-    from bracing.report.text import localize  # the views' one formatter
-
-    def say(words: str) -> str:
-        return localize(words, units)
-
+    say = _Words(units)
     s = sketch
     title = f"{s.mark}: backfill section" + (f", {s.caption}" if s.caption else "")
     items, y = lines_block([(say(title), TEXT_MM, "bold", "#000")], 1.5, 1.5, ELEVATION_MM - 3)
@@ -100,6 +96,22 @@ def backfill_section_svg(sketch: BackfillSketch, standalone: bool = False, *,
                           bottom + 7.5, 1.5, ELEVATION_MM - 3)
     y = max(y, bottom + 7.0)
     return _document(items + more, y + 2.0, s)
+
+
+class _Words:
+    """The sketch's words in the chosen units: free text through the views' `localize`, a
+    quantity through their `fmt` (rounded once, in the units shown)."""
+
+    def __init__(self, units: str):
+        from bracing.report.text import fmt, localize  # the views' one formatter
+
+        self.units, self._fmt, self._localize = units, fmt, localize
+
+    def __call__(self, words: str) -> str:
+        return self._localize(words, self.units)
+
+    def q(self, value: float, unit: str, digits: int = 0) -> str:
+        return self._fmt(value, unit, self.units, digits)
 
 
 def _frame(s: BackfillSketch, top: float) -> _Frame:
@@ -179,8 +191,8 @@ def _diagram(s, fr: _Frame, x0: float, drawn: list, labels: list, say) -> list[s
         out.append(f'<line class="pressure-part" x1="{num(xs)}" y1="{num(top[0])}" '
                    f'x2="{num(xs)}" y2="{num(base[0])}" stroke="{PRESSURE}" stroke-width="0.2" '
                    'stroke-dasharray="0.8,0.6"/>')
-        labels.append(Label("surcharge", say(f"surcharge {s.surcharge_psf:,.0f} psf: "
-                                             f"{top[1]:,.0f} psf on the wall"), LEAST_TEXT_MM,
+        labels.append(Label("surcharge", say(f"surcharge {say.q(s.surcharge_psf, 'psf')}: "
+                                             f"{say.q(top[1], 'psf')} on the wall"), LEAST_TEXT_MM,
                             (xs, top[0]), bold=False, color=PRESSURE))
     if base[3] > 0.0:  # the water's triangle, from the water level to the base
         xw = x0 + mm * (base[1] + base[2])
@@ -189,10 +201,10 @@ def _diagram(s, fr: _Frame, x0: float, drawn: list, labels: list, say) -> list[s
         out.append(f'<polygon class="water-pressure" points="{num(xl)},{num(level[0])} '
                    f'{num(edge[-1][0])},{num(base[0])} {num(xw)},{num(base[0])}" fill="{WATER}" '
                    f'fill-opacity="0.3" stroke="{WATER}" stroke-width="0.2"/>')
-    labels.append(Label("base-pressure", say(f"{base[1] + base[2] + base[3]:,.0f} psf at the "
-                                             "base"), LEAST_TEXT_MM, (edge[-1][0], base[0]),
+    labels.append(Label("base-pressure", say(f"{say.q(base[1] + base[2] + base[3], 'psf')} at "
+                                             "the base"), LEAST_TEXT_MM, (edge[-1][0], base[0]),
                         color=PRESSURE))
-    labels.append(Label("efp", say(f"EFP {s.efp_pcf:g} pcf"), LEAST_TEXT_MM,
+    labels.append(Label("efp", say(f"EFP {say.q(s.efp_pcf, 'pcf')}"), LEAST_TEXT_MM,
                         (x0 + mm * (base[1] + base[2] / 3), fr.y(s.backfill_ft / 3)), bold=False,
                         color=PRESSURE))
     ya = fr.y(s.resultant_height_ft)
@@ -202,8 +214,8 @@ def _diagram(s, fr: _Frame, x0: float, drawn: list, labels: list, say) -> list[s
                f'<line x1="{num(tail)}" y1="{num(ya)}" x2="{num(x0 + 1.6)}" y2="{num(ya)}"/>'
                f'<polygon points="{num(x0 + 0.2)},{num(ya)} {num(x0 + 2.0)},{num(ya - 0.9)} '
                f'{num(x0 + 2.0)},{num(ya + 0.9)}" stroke="none"/></g>')
-    labels.insert(0, Label("resultant", say(f"P {s.resultant_plf:,.0f} plf at "
-                                            f"{s.resultant_height_ft:.2f} ft"), LEAST_TEXT_MM,
+    labels.insert(0, Label("resultant", say(f"P {say.q(s.resultant_plf, 'plf')} at "
+                                            f"{say.q(s.resultant_height_ft, 'ft', 2)}"), LEAST_TEXT_MM,
                            (tail + 0.5, ya)))
     return out
 
@@ -213,7 +225,7 @@ def _levels(s, fr: _Frame, x0: float, drawn: list, labels: list, say) -> list[st
     out = []
     right = ELEVATION_MM - 1.0
     held = s.brace.allowed_ft if s.brace is not None else s.allowed_ft
-    words = (f"DANGER: backfill {s.backfill_ft:g} ft, allowed {held:.1f} ft"
+    words = (f"DANGER: backfill {s.backfill_ft:g} ft, allowed {say.q(held, 'ft', 1)}"
              if s.danger else f"backfill {s.backfill_ft:g} ft")
     middle = (x0 + right) / 2
     labels.insert(0, Label("backfill", say(words), LEAST_TEXT_MM, (middle, fr.y(s.backfill_ft)),
@@ -222,7 +234,7 @@ def _levels(s, fr: _Frame, x0: float, drawn: list, labels: list, say) -> list[st
     if s.brace is not None:
         levels.append(("braced-allowed", s.brace.allowed_ft, BRACE, "with the inside braces {}"))
     for key, z, color, words in levels:
-        words = words.format("the full height" if z >= s.wall_height_ft else f"{z:.1f} ft")
+        words = words.format("the full height" if z >= s.wall_height_ft else say.q(z, "ft", 1))
         y = fr.y(min(z, s.wall_height_ft))
         out.append(f'<line class="{key}" x1="{num(x0)}" y1="{num(y)}" x2="{num(right)}" '
                    f'y2="{num(y)}" stroke="{color}" stroke-width="0.3" '
@@ -248,8 +260,9 @@ def _brace(s, fr: _Frame, drawn: list, labels: list, say) -> list[str]:
     xi, yi = fr.xw, fr.y(b.height_ft)
     xf = fr.xw - d * fr.k
     drawn.append((LineString([(xi, yi), (xf, fr.yb)]).buffer(0.6), 3.0))
-    labels.append(Label("brace", say(f"inside brace at {b.height_ft:g} ft, {b.angle_deg:g}°, "
-                                     f"every {b.spacing_ft:g} ft: {b.force_lb:,.0f} lb each"),
+    labels.append(Label("brace", say(f"inside brace at {say.q(b.height_ft, 'ft', 1)}, "
+                                     f"{b.angle_deg:g}°, every {say.q(b.spacing_ft, 'ft', 1)}: "
+                                     f"{say.q(b.force_lb, 'lbf')} each"),
                         LEAST_TEXT_MM, ((xi + xf) / 2, (yi + fr.yb) / 2), color=BRACE))
     return [f'<line class="inside-brace" x1="{num(xi)}" y1="{num(yi)}" x2="{num(xf)}" '
             f'y2="{num(fr.yb)}" stroke="{BRACE}" stroke-width="0.9"/>',
