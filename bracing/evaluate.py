@@ -76,7 +76,8 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     return SiteResult(
         name=site.site.name, basis=site.site.design_basis, basis_statement=basis_statement(site),
         panels=panels, days=days, peak_inventory=peak, plan=geometry,
-        not_checked=scope.not_checked(site, columns), foundation_walls=walls,
+        not_checked=scope.not_checked(site, columns) + foundation.not_checked(site),
+        foundation_walls=walls,
         flags=foundation.site_flags(walls))
 
 

@@ -187,3 +187,10 @@ def test_more_surcharge_allows_no_more_backfill(demo_site, low, more, height):
         return float(foundation.governing(foundation.cantilever(
             wall, foundation.soil_of(demo_site, w, q), wind, np.array(height), "ASD")))
     assert util(low + more) > util(low)
+
+
+def test_the_limits_of_the_check_name_the_foundation_walls(basement):
+    items = {n.item: n.walls for n in basement.not_checked}
+    joint = items["foundation walls: the wall-to-footing joint and the footing's bearing"]
+    assert joint == ["FW-S", "FW-E", "FW-N", "FW-W"]
+    assert items["inside braces of foundation walls"] == ["FW-W"]

@@ -26,7 +26,7 @@ from bracing.foundation_results import (
     PressurePoint,
 )
 from bracing.model import DEFAULT_RULES, Site
-from bracing.results import Check, Flag
+from bracing.results import Check, Flag, NotChecked
 from bracing.stages import loads
 from bracing.stages.brace_set import _brace_capacity
 from bracing.wind import asce7, asce37
@@ -94,8 +94,12 @@ def with_wind(checks: list, wall: backfill.Wall, shear, moment, service: bool = 
     sections' 1.6H, 0.6W beside 1.0H (`service`: 1.0W, the observed gust)."""
     out = []
     for c in checks:
-        strength = "1.6H" in c.combination  # the strength sections and LRFD overturning
-        factor = 1.0 if service or strength else loads.COMBINATIONS["ASD"].wind
+        if service:
+            factor = loads.SERVICE.wind
+        elif c.combination in (backfill.STRENGTH[1], backfill.COMBINATION["LRFD"]):
+            factor = loads.COMBINATIONS["LRFD"].wind  # beside 1.6H: strength sections, LRFD
+        else:
+            factor = loads.COMBINATIONS["ASD"].wind
         if c.region.startswith("flexure"):
             extra = moment
         elif c.region.startswith("overturning"):
@@ -177,8 +181,8 @@ def braced(wall, soil, wind: Windward, height: float, s: Support) -> list:
     """The propped wall's checks (bracing.backfill.braced_checks), its brace carrying the wind
     above the backfill too (0.6W, moments about the base), and its foot anchor."""
     exposed = max(wall.height - height, 0.0)
-    _, w_moment = wind_effects(float(wind.pressure(exposed)) if exposed else 0.0, height,
-                                     exposed)
+    pressure = float(wind.pressure(exposed)) if exposed else 0.0
+    w_moment = wind_effects(pressure, height, exposed)[1]
     factor = loads.COMBINATIONS["ASD"].wind
     cos = math.cos(math.radians(s.spec.angle))
     extra = factor * float(w_moment) / s.spec.height * s.spec.spacing / cos
@@ -539,3 +543,21 @@ def windy_days(walls: list[FoundationWallResult], days) -> list:
                 "on the part above the backfill: no work beside them, clear their zones")
             changed.append(d)
     return changed
+
+
+def not_checked(site: Site) -> list[NotChecked]:
+    """What the foundation walls' checks leave out (method notes §12), with the walls."""
+    walls = [w.mark for w in site.foundation_walls]
+    braced_walls = [w.mark for w in site.foundation_walls if w.inside_braces is not None]
+    items = [NotChecked(
+        item="foundation walls: the wall-to-footing joint and the footing's bearing",
+        reason="the wall is taken as a cantilever fixed in its footing (dowels, key) and the "
+               "soil's bearing under the footing is not checked; after its release the wall "
+               "held top and bottom is the permanent design's", source=SOURCE, walls=walls)]
+    if braced_walls:
+        items.append(NotChecked(
+            item="inside braces of foundation walls",
+            reason="their count is not compared with the brace and anchor types' on_hand, and "
+                   "the propped wall's span under the wind above the brace is not checked",
+            source=SOURCE, walls=braced_walls))
+    return items if walls else []
