@@ -69,6 +69,11 @@ def add_command(commands) -> None:
     add("--anchor-shear", help="rated allowable shear of a brace foot anchor (lb)")
     add("--basis", choices=["ASD", "LRFD"], default="ASD")
     add("--json", action="store_true", help="print one JSON object")
+    add("--svg", metavar="FILE", help="also write the wall's section sketch (SVG): the "
+                                      "pressure diagram, the backfill line, the allowed height "
+                                      "and any inside brace")
+    add("--units", choices=["us", "si"], default="us",
+        help="units of the section sketch's words (default us; text and JSON stay US)")
     return p
 
 
@@ -319,3 +324,31 @@ def _check_line(c: dict) -> str:
 
 def _num(value) -> str:
     return "no capacity" if value is None or not math.isfinite(value) else f"{value:.2f}"
+
+
+def sketch(args, record: dict):
+    """What the section sketch (`--svg`) draws: the wall, its footing and the soil read again
+    from the flags, the heights and the brace from the record (bracing.backfill_profile)."""
+    from bracing import backfill_profile
+
+    wall = wall_from_flags(args)
+    height = record["backfill"]["height_ft"]
+    soil = soil_from_flags(args, height)
+    brace = record["inside_brace"]
+    return backfill_profile.sketch(
+        mark="wall", wall_height=wall.height, thickness=wall.thickness, backfill_height=height,
+        allowed=record["max_backfill_height_ft"], efp=soil.efp, unit_weight=soil.unit_weight,
+        surcharge=soil.surcharge, water=soil.water, footing_width=wall.footing_width,
+        footing_thickness=wall.footing_thickness, toe=wall.toe,
+        brace=None if brace is None else backfill_profile.InsideBraceSketch(
+            height_ft=brace["height_ft"], angle_deg=brace["angle_deg"],
+            force_lb=brace["force_lb"], spacing_ft=brace["spacing_ft"],
+            allowed_ft=brace["max_backfill_height_ft"]),
+        danger=not record["passes"], caption="the quick check")
+
+
+def section_svg(args, record: dict) -> str:
+    """The section sketch of the wall checked, standalone (the caution under it)."""
+    from bracing.report.svg.backfill import backfill_section_svg
+
+    return backfill_section_svg(sketch(args, record), standalone=True, units=args.units)

@@ -332,6 +332,11 @@ def run_backfill(args) -> int:
         record = backfill_view.evaluate(args)
     except backfill_view.FlagError as exc:
         raise BadInput(str(exc)) from None
+    if args.svg:  # the section sketch, written quietly: stdout stays the text or the JSON
+        try:
+            scenario.atomic_write(Path(args.svg), backfill_view.section_svg(args, record))
+        except OSError as exc:
+            raise BadInput(f"--svg {args.svg}: not written ({exc.strerror or exc})") from None
     print(backfill_view.dumps(record) if args.json else backfill_view.text(record))
     return 0 if record["passes"] else EXIT_FAILS
 

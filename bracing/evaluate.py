@@ -134,8 +134,8 @@ def _plan_of_days(site: Site, places, days, found, by_mark: dict):
     """The plan's geometry (None: no wall placed), each day's with its crossings and zone
     overlaps (they depend on the walls standing together), and each day's verdict with these
     findings in (`by_mark`: the walls' results)."""
-    if not places:
-        return None
+    if not places and not any(w.line for w in site.foundation_walls):
+        return None  # nothing on a wall line to draw
     if not days:
         return plan.plan_geometry(site)
     by_day, facts = plan.day_findings(found, days), schedule.wall_facts(by_mark)

@@ -22,7 +22,7 @@ import pytest
 from bracing import cli, scenario, schedule
 from bracing.evaluate import evaluate
 from bracing.model import DEFAULT_RULES
-from bracing.report import json_view, svg, text
+from bracing.report import backfill_sheet, json_view, svg, text
 from bracing.report import schedule as sheet
 
 REPO = Path(__file__).resolve().parents[1]
@@ -208,12 +208,14 @@ def test_si_outputs_hold_no_us_unit(sites):
 
 def test_si_drawings_hold_no_us_unit(sites):
     """The drawings themselves with units='si' (as the crew sheet embeds them, and as any other
-    caller gets them): no mph, ft, lb or psf in their words; the plans' scale as a ratio, e.g.
+    caller gets them), the foundation walls' section sketches among them: no mph, ft, lb or psf
+    in their words; the plans' scale as a ratio, e.g.
     1 in = 20 ft is 1:240 (20 ft x 12 in/ft; exact), 1 cm = 2.4 m. US by default."""
-    for name, (_, result) in sites.items():
+    for name, (site, result) in sites.items():
         days = [d.day for d in result.days] or [None]
         for day in days:
             drawn = [svg.overview_svg(result, day, units="si")]
+            drawn += [s for _, s in backfill_sheet.sketches(site, result, day, "si")]
             drawn += [s for _, s in svg.detail_svgs(result, day, units="si")]
             drawn += list(svg.elevation_svgs(result, day, units="si").values())
             drawn += [svg.section_svg(p, units="si") for p in result.panels if p.braces]

@@ -10,6 +10,7 @@ import numpy as np
 
 from bracing.model import Site
 from bracing.plan.check import all_findings
+from bracing.plan.foundation import foundation_walls
 from bracing.plan.placement import (
     BraceTable,
     Places,
@@ -50,7 +51,7 @@ def plan_geometry(site: Site, standing: set[str] | None = None, day: int | None 
                         braced_side=line.braced_side) for line in site.lines],
         panels=_panels(site, places, bracing, t, heights),
         findings=all_findings(site, places, bracing, t, slab_feet(site, t), heights),
-        bounds=(0.0, 0.0, 1.0, 1.0))
+        bounds=(0.0, 0.0, 1.0, 1.0), foundation_walls=foundation_walls(site))
     geometry.bounds = _bounds(geometry)
     return geometry
 
@@ -176,7 +177,8 @@ def _bounds(g: PlanGeometry) -> tuple[float, float, float, float]:
            *(p for r in g.ground for p in r), *(p for a in g.areas for p in a.coords),
            *(p for line in g.lines for p in (line.start, line.end)),
            *(p for w in g.panels for p in w.footprint + w.restricted_zone),
-           *(p for w in g.panels for b in w.braces for p in b)]
+           *(p for w in g.panels for b in w.braces for p in b),
+           *(p for w in g.foundation_walls for p in w.footprint + w.backfill)]
     if not pts:
         return (0.0, 0.0, 1.0, 1.0)
     xy = np.array(pts, dtype=float)

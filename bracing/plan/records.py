@@ -3,7 +3,7 @@ the constants the plan's modules share."""
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 
 import numpy as np
 
@@ -101,6 +101,21 @@ class Elevation:
 
 
 @dataclass(slots=True)
+class PlanFoundationWall:
+    """A foundation wall on the plan (method notes §12): its footprint, a strip of ground on its
+    backfill side (away from its line's braced side), and that day's backfill as the result
+    gives it (`bracing.report.svg.foundation` fills the day's values)."""
+
+    mark: str
+    line: str
+    footprint: Coords
+    backfill: Coords              # the strip hatched when the wall is backfilled that day
+    built: bool = True            # standing that day
+    backfill_ft: float = 0.0      # backfill in place that day
+    over: bool = False            # that backfill is above what the wall takes: a danger
+
+
+@dataclass(slots=True)
 class Detail:
     """A part of the plan drawn at a larger scale: the walls standing on one wall line, or on a
     stretch of it when the line is long, with the window (plan ft) that holds their footprints,
@@ -137,6 +152,7 @@ class PlanGeometry:
     panels: list[PlanPanel]
     findings: list[PlanFinding]
     bounds: tuple[float, float, float, float]  # min x, min y, max x, max y
+    foundation_walls: list[PlanFoundationWall] = field(default_factory=list)
 
     @property
     def standing(self) -> list[str]:

@@ -19,6 +19,7 @@ from markupsafe import Markup
 
 from bracing import schedule
 from bracing.model import Site
+from bracing.report import backfill_sheet
 from bracing.report.text import SI_PRECISION, WIDTH, fmt, localize, wrap
 from bracing.results import DayResult, PanelResult, SiteResult
 from bracing.units import convert
@@ -101,6 +102,8 @@ class Page:
     details: list[tuple[str, Markup]] = field(default_factory=list)  # (wall line, plan)
     elevations: dict[str, Markup] = field(default_factory=dict)  # today's lifts, by mark
     sections: list[tuple[str, Markup]] = field(default_factory=list)
+    backfill: list = field(default_factory=list)  # backfill_sheet.BackfillRow, worst first
+    backfill_sketches: list[tuple[str, Markup]] = field(default_factory=list)
 
 
 def render(site: Site, result: SiteResult, day: int | None, fmt_name: str, units: str) -> str:
@@ -127,7 +130,8 @@ def pick_days(site: Site, result: SiteResult, day: int | None) -> list[DayResult
                             "the sheet of every wall)")
         return [schedule.whole_site(site, result.panels)]
     if day is None:
-        return [d for d in result.days if d.standing or d.lifts or d.released]
+        return [d for d in result.days if d.standing or d.lifts or d.released
+                or backfill_sheet.rows(result, d.day)]  # or a foundation wall to backfill
     found = [d for d in result.days if d.day == day]
     if not found:
         raise NoSuchDay(f"day {day} is not in the schedule (days {result.days[0].day} to "
@@ -168,8 +172,10 @@ def build_pages(site: Site, result: SiteResult, day: int | None, units: str,
                                                             "lifted today"],
             rows=[r for r in rows if r.braced],
             unbraced=[r for r in rows if not r.braced], inventory=_inventory(site, d),
-            rules=_rules(site, walls))
+            rules=_rules(site, walls), backfill=backfill_sheet.rows(result, d.day, units))
         if svg is not None:
+            page.backfill_sketches = [(m, _inline(drawing)) for m, drawing
+                                      in backfill_sheet.sketches(site, result, d.day, units)]
             page.overview_svg = _inline(svg.overview_svg(result, d.day or None, units=units))
             page.details = [(detail.line, _inline(drawing)) for detail, drawing
                             in svg.detail_svgs(result, d.day or None, units=units)]
@@ -440,6 +446,7 @@ def plain_text(result: SiteResult, pages: list[Page], units: str = "us") -> str:
                   *(f"  {s}" for s in result.basis_statement)]
         lines += ["", f"LIFTS TODAY ({len(page.lifted)})"]
         lines += [x for r in page.lifted for x in _wall_lines(r)] or ["  none"]
+        lines += [""] + backfill_sheet.text_lines(page.backfill) if page.backfill else []
         lines += ["", "RELEASES TODAY"] + [f"  {r}" for r in page.releases] or ["  none"]
         if not page.releases:
             lines.append("  none")

@@ -106,13 +106,17 @@ def utilization_mark(u: float) -> str:
 
 # a check per ft of wall: lb·ft per ft is a force (kN·m per m), lb per ft a line load
 PER_FOOT = {"ft*lbf": ("lbf", "kN·m/m"), "lbf": ("plf", "kN/m")}
+PER_FOOT_UNITS = {"lb·ft/ft": "ft*lbf", "lb/ft": "lbf"}  # checks' units per ft of wall
 
 
 def check_line(c: Check, system: str) -> str:
     u = c.utilization
     unit = {"lb·ft": "ft*lbf", "lb": "lbf", "psf": "psf"}.get(c.unit, c.unit)
+    per_foot = "per ft" in c.region
+    if system == "si" and c.unit in PER_FOOT_UNITS:  # a foundation wall's, per ft of wall
+        unit, per_foot = PER_FOOT_UNITS[c.unit], True
     demand, capacity = fmt(c.demand, unit, system), fmt(c.capacity, unit, system)
-    if system == "si" and "per ft" in c.region and unit in PER_FOOT:  # per m of wall in SI
+    if system == "si" and per_foot and unit in PER_FOOT:  # per m of wall in SI
         unit, label = PER_FOOT[unit]
         demand, capacity = (fmt(v, unit, system).replace(convert(1.0, unit, system)[1], label)
                             for v in (c.demand, c.capacity))
@@ -175,7 +179,10 @@ def brace_lines(b: dict, system: str) -> list[str]:
 
 
 def site_text(result: SiteResult, system: str = "us") -> str:
-    """A whole-site report: caution, basis, deficiencies by severity, then every wall worst first."""
+    """A whole-site report: caution, basis, deficiencies by severity, then every wall worst first
+    and the foundation walls backfilled before the floor."""
+    from bracing.report import backfill_sheet  # it formats with this module's helpers
+
     panels = result.worst_first()
     counts = {s: sum(p.status == s for p in panels) for s in STATUSES}
     lines = [site_verdict(result), result.caution, "", f"Site: {result.name}"]
@@ -212,6 +219,7 @@ def site_text(result: SiteResult, system: str = "us") -> str:
         lines.append(day_line(day, system))
     for p in panels:
         lines += [""] + panel_text(p, system)
+    lines += backfill_sheet.wall_lines(result, system)
     lines += ["", result.caution]
     return "\n".join(wrap(localize(line, system)) for line in lines)
 
@@ -219,7 +227,8 @@ def site_text(result: SiteResult, system: str = "us") -> str:
 def site_verdict(result: SiteResult) -> str:
     """The first line of `check`: whether any wall fails or a finding is a danger
     (SiteResult.fails), and the days' verdicts counted."""
-    failing = [p.mark for p in result.failing()]
+    failing = [p.mark for p in result.failing()] + [
+        w.mark for w in getattr(result, "foundation_walls", []) if w.fails]
     if result.fails:
         head = (f"NOT GO: {len(failing)} wall(s) fail or have a danger finding"
                 + (f" ({', '.join(failing)})" if failing else "") if failing else

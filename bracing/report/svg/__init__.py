@@ -34,6 +34,7 @@ import shapely
 from shapely.geometry import Polygon, box
 
 from bracing.report.svg.elevation import elevation_svg, elevation_svgs
+from bracing.report.svg.foundation import foundation_labels, with_backfill
 from bracing.report.svg.labels import (
     Label,
     Placed,
@@ -175,7 +176,7 @@ def _labels(g, fr: Frame, numbered, marks: list[str] | None, status, details=(),
     else:
         wanted += [mark_label(p, lines[p.line], fr, status, own is None or p.mark in own)
                    for p in g.panels if p.mark in marks and p.line in lines]
-    wanted += finding_labels(numbered, fr) + area_labels(g, fr)
+    wanted += foundation_labels(g, fr) + finding_labels(numbered, fr) + area_labels(g, fr)
     x0, y0, x1, y1 = fr.box
     wanted = [replace(w, at=(min(max(w.at[0], x0), x1), min(max(w.at[1], y0), y1)))
               for w in wanted]  # a point outside: the frame's edge
@@ -212,7 +213,8 @@ def _overview_sheet(result, g, key: str, units: str = "us"
         words = [details_words(details)] if details else []
         out, yy = lines_block([(w, LEAST_TEXT_MM, "normal", "#000") for w in words],
                               top + SCALE_ROW_MM)
-        legend, yy = legend_block(legend_items(g.panels, g.areas), yy + 1.0, key + "L")
+        legend, yy = legend_block(legend_items(g.panels, g.areas, g.foundation_walls), yy + 1.0,
+                                  key + "L")
         more, yy = lines_block([(s, LEAST_TEXT_MM, "normal", "#000")
                                 for s in zone_summary(g.panels)]
                                + finding_lines(numbered, most=most), yy + 0.5)
@@ -297,7 +299,7 @@ def overview_svg(result, day: int | None = None, *, units: str = "us") -> str:
     room), the legend, the zones summarized by rule and the numbered findings. `day`: the day
     (None: the busiest). A sheet saying so when the result has no plan. `units`: 'us' or 'si'
     (the words and the scale; the drawing stays in ft inside)."""
-    g = pick_plan(getattr(result, "plan", None), day)
+    g = with_backfill(pick_plan(getattr(result, "plan", None), day), result)
     if g is None:
         return _no_plan_svg(result)
     defs, items, h = _overview_sheet(result, g, _key(g, "ov"), units)
@@ -312,7 +314,7 @@ def detail_svgs(result, day: int | None = None, standalone: bool = False, *,
     names its walls, lists the findings inside it and, with `standalone`, carries the caution
     (a crew sheet that shows the caution on the page need not repeat it). `units`: 'us' or 'si'
     (the words and the scale; the drawing stays in ft inside)."""
-    g = pick_plan(getattr(result, "plan", None), day)
+    g = with_backfill(pick_plan(getattr(result, "plan", None), day), result)
     if g is None:
         return []
     details = g.details()
@@ -328,7 +330,7 @@ def detail_svgs(result, day: int | None = None, standalone: bool = False, *,
 def plan_svg(result, day: int | None = None) -> str:
     """The plan of a day as one printable SVG (what `bracing plan` writes): the overview sheet
     with the caution, then each detail plan below it. `day`: None for the busiest day."""
-    g = pick_plan(getattr(result, "plan", None), day)
+    g = with_backfill(pick_plan(getattr(result, "plan", None), day), result)
     if g is None:
         return _no_plan_svg(result)
     defs, items, y = _overview_sheet(result, g, _key(g, "ov"))

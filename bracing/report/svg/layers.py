@@ -12,6 +12,7 @@ import shapely
 from shapely.geometry import LineString, Point, Polygon
 
 from bracing.plan import braced_normal
+from bracing.report.svg.foundation import foundation_drawn, foundation_items
 from bracing.report.svg.style import (
     AREA_STYLE,
     BRACE,
@@ -281,7 +282,7 @@ def drawn_items(g, fr: Frame, numbered) -> list[tuple[object, float]]:
                 items.append((shape, 4.0))
     for line in g.lines:
         items.append((fr.to_sheet(LineString([line.start, line.end])), 0.5))
-    return items
+    return items + foundation_drawn(g, fr)
 
 
 def north_and_scale(fr: Frame) -> list[str]:
@@ -337,7 +338,7 @@ def plan_layers(g, fr: Frame, numbered) -> list[str]:
     """The plan in the frame, bottom to top: ground and slab, areas, zones, wall lines, walls,
     braces and anchors, the keep-out areas again, the finding symbols."""
     return fr.group(_ground_and_slab(g, fr) + _areas(g, fr) + _zones(g, fr) + _lines(g, fr)
-                    + _walls(g, fr) + _braces(g, fr) + _keep_out_on_top(g, fr)
+                    + _walls(g, fr) + foundation_items(g, fr) + _braces(g, fr) + _keep_out_on_top(g, fr)
                     + _finding_marks(numbered, fr))
 
 

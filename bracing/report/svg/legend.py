@@ -4,6 +4,7 @@ numbered findings."""
 from __future__ import annotations
 
 from bracing.anchor_kinds import KINDS as ANCHOR_KINDS
+from bracing.report.svg.foundation import BACKFILL
 from bracing.report.svg.style import (
     AREA_STYLE,
     BRACE,
@@ -28,14 +29,17 @@ from bracing.report.svg.style import (
 )
 
 
-def legend_items(panels, areas) -> list[tuple[str, str]]:
-    """(symbol kind, words) of the legend: what the plan shows."""
+def legend_items(panels, areas, foundation=()) -> list[tuple[str, str]]:
+    """(symbol kind, words) of the legend: what the plan shows (`foundation`: the plan's
+    foundation walls, `bracing.plan.PlanFoundationWall`)."""
     items = [("slab", "slab"), ("hole", "slab hole or opening"), ("joint", "slab joint"),
              ("ground", "open ground")]
     kinds = dict.fromkeys(AREA_STYLE[a.kind][2] for a in areas)
     first_kind = {AREA_STYLE[a.kind][2]: a.kind for a in reversed(areas)}
     items += [(f"area:{first_kind[w]}", w + (" (braces stay out)" if first_kind[w] in KEEP_OUT
                                              else "")) for w in kinds]
+    if any(w.built and w.backfill_ft > 0.0 for w in foundation):
+        items.append(("backfill", "backfill against a foundation wall, on its backfill side"))
     items += [("wall", "wall standing"), ("ghost", "wall not standing"),
               ("line", "wall line (tick: braced side)"), ("brace", "brace")]
     feet = dict.fromkeys(p.foot_kind for p in panels if p.braces)
@@ -77,6 +81,8 @@ def _plain_symbols(rect: str, line: str, u: float, key: str) -> dict[str, str]:
                   f'stroke-dasharray="2.5,0.75,0.5,0.75"/>'),
         "ground": f'<rect {rect} fill="{GROUND}" stroke="#b8a77a" stroke-width="{num(u)}"/>',
         "wall": f'<rect {rect} fill="{WALL}" stroke="#000" stroke-width="{num(u)}"/>',
+        "backfill": (f'<rect {rect} fill="{BACKFILL}" fill-opacity="0.35" stroke="{BACKFILL}" '
+                     f'stroke-width="{num(u)}"/>'),
         "ghost": (f'<rect {rect} fill="#fff" stroke="{WALL}" stroke-width="{num(u)}" '
                   f'stroke-dasharray="0.75,0.5"/>'),
         "line": (f'<line {line} stroke="#888" stroke-width="{num(u)}" '
