@@ -15,6 +15,7 @@ from operator import attrgetter
 from bracing import layout, lines, plan, schedule, scope
 from bracing.model import Site, read_panels
 from bracing.results import Flag, PanelResult, SiteResult
+from bracing.schedule import ForecastDay
 from bracing.stages.alone import (  # noqa: F401  (names other modules import from here)
     CHECK_INFO,
     REVERSE,
@@ -40,13 +41,18 @@ WALL_FINDINGS = ANCHOR_FINDINGS | {"brace-crosses-keep-clear", "zone-overlap",
                                    "zone-overlaps-crane-path"}
 
 
-def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
+def evaluate(site: Site, design: bool = False, base_dir=None,
+             forecast: dict[int, ForecastDay] | None = None) -> SiteResult:
     """Check every wall of the site and return the one result object.
 
     With `design`, walls that cannot stand and have no bracing get a designed layout first
-    (the site's [design] options); the walls for which none passes say why. `base_dir` is the
-    site file's folder (the forecast file is read from it).
+    (the site's [design] options); the walls for which none passes say why. `forecast` is the
+    site's forecast by day, read at the edge (`bracing.schedule.site_forecast`); a caller that
+    holds only the site file's folder gives it as `base_dir` and the forecast is read from it
+    first (the one file read here, before anything is checked).
     """
+    if forecast is None:
+        forecast = schedule.site_forecast(site, base_dir)
     columns = read_panels(site)
     releases = lines.releases(site, columns)  # designed layouts leave the lifts as they are
     places = plan.place(site, columns)
@@ -65,7 +71,7 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     for p in panels:  # a danger flag on a braced wall (an anchor off the slab...) is unsafe
         if p.status == "braced" and "danger" in map(severity, p.flags):
             p.status = "unsafe"
-    days, peak, wall_flags = schedule.build_days(site, panels, base_dir, releases,
+    days, peak, wall_flags = schedule.build_days(site, panels, forecast, releases,
                                                  judged=not places)
     for mark, flag in wall_flags:  # sign-off and period flags: the wall's checks stand as they are
         by_mark[mark].flags.append(flag)

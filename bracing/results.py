@@ -105,6 +105,17 @@ class UnbracedResult:
     max_height_structural_ft: float | None = None  # before a rule's cap (OSHA 8 ft masonry)
 
 
+@dataclass(frozen=True, slots=True)
+class Hardware:
+    """What one wall's bracing uses: brace type, anchor types and the brace count (None: not
+    named)."""
+
+    brace_type: str | None
+    wall_anchor: str | None
+    foot_anchor: str | None
+    count: int
+
+
 @dataclass(slots=True)
 class PanelResult:
     """Everything the engine found for one wall."""

@@ -155,7 +155,8 @@ def tiny_result(tmp_path, toml=TINY_TOML, wx=WX_CSV):
     site = parse(toml, "site.toml").site
     (tmp_path / "wx.csv").write_text(wx, encoding="utf-8")
     result = evaluate(site, base_dir=tmp_path)
-    days, peak, wall_flags = schedule.build_days(site, result.panels, tmp_path)
+    days, peak, wall_flags = schedule.build_days(
+        site, result.panels, schedule.site_forecast(site, tmp_path))
     assert [d.standing for d in days] == [d.standing for d in result.days]
     assert peak == result.peak_inventory
     return site, result, wall_flags
@@ -364,14 +365,15 @@ def test_forecast_file_missing_is_an_error_naming_it(tmp_path):
     site = parse(TINY_TOML).site
     panels = evaluate(no_forecast()).panels
     with pytest.raises(SiteFileError, match="elsewhere/wx.csv: cannot read the forecast file"):
-        schedule.build_days(site, panels, tmp_path / "elsewhere")
+        schedule.build_days(site, panels, schedule.site_forecast(site, tmp_path / "elsewhere"))
 
 
 def test_forecast_path_is_relative_to_the_site_folder(tmp_path):
     """The same site read from another working folder finds its forecast beside it."""
     write_tiny(tmp_path)
     site = parse(TINY_TOML).site
-    days, _, _ = schedule.build_days(site, evaluate(no_forecast()).panels, tmp_path)
+    days, _, _ = schedule.build_days(site, evaluate(no_forecast()).panels,
+                                     schedule.site_forecast(site, tmp_path))
     assert days[0].forecast_gust_mph == 20.0
 
 
