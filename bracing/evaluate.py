@@ -13,8 +13,8 @@ from __future__ import annotations
 from operator import attrgetter
 
 from bracing import layout, lines, plan, schedule, scope
-from bracing.model import Site, read_panels
-from bracing.results import Flag, PanelResult, SiteResult
+from bracing.model import DEFAULT_RULES, Site, read_panels
+from bracing.results import FallZone, Flag, PanelResult, RuleUsed, SiteResult
 from bracing.schedule import ForecastDay
 from bracing.stages.alone import (  # noqa: F401  (names other modules import from here)
     CHECK_INFO,
@@ -76,10 +76,14 @@ def evaluate(site: Site, design: bool = False, base_dir=None,
     for mark, flag in wall_flags:  # sign-off and period flags: the wall's checks stand as they are
         by_mark[mark].flags.append(flag)
     geometry = _plan_of_days(site, places, days, found, by_mark)
+    _for_views(site, places, panels, days)
     return SiteResult(
         name=site.site.name, basis=site.site.design_basis, basis_statement=basis_statement(site),
         panels=panels, days=days, peak_inventory=peak, plan=geometry,
-        not_checked=scope.not_checked(site, columns))
+        not_checked=scope.not_checked(site, columns), rules=rules_used(site),
+        on_hand={"braces": {n: t.on_hand for n, t in site.brace_types.items()},
+                 "anchors": {n: t.on_hand for n, t in site.anchor_types.items()}},
+        together=schedule.whole_site(site, panels) if not days and panels else None)
 
 
 def _edges(site: Site, places) -> dict[str, float]:
@@ -129,6 +133,29 @@ def _plan_of_days(site: Site, places, days, found, by_mark: dict):
         d.flags.extend(f for f in by_day[d.day] if f.code not in ANCHOR_FINDINGS)
         schedule.judge(d, by_mark, facts)
     return plan.DayPlans(site, {d.day: d.standing for d in days})
+
+
+def _for_views(site: Site, places, panels: list[PanelResult], days) -> None:
+    """What the views show of each wall beside its checks: its gear, fall zone, footing and
+    the sign-off that released it (views compute nothing and read no site file)."""
+    zones = schedule.fall_zones(site, panels, places)
+    signed: dict[tuple[str, int], str] = {}
+    for s in site.signoffs:  # the first sign-off of a wall on a day names who released it
+        signed.setdefault((s.panel, s.day), s.by)
+    released = {m: d.day for d in days for m in d.released}
+    for p, model in zip(panels, site.panels, strict=True):
+        p.hardware = schedule.hardware(model.bracing, p)
+        front, back, basis = zones[p.mark]
+        p.zone = FallZone(front_ft=front, back_ft=back, basis=basis)
+        f = model.footing
+        p.footing_ft = None if f is None else (f.width, f.thickness)
+        p.released_by = signed.get((p.mark, released[p.mark])) if p.mark in released else None
+
+
+def rules_used(site: Site) -> dict[str, RuleUsed]:
+    """Every rule of the site (the defaults, then its own) as the check applied it."""
+    return {name: RuleUsed(value=r.value, enabled=r.enabled, source=r.source, basis=r.basis)
+            for name in dict.fromkeys([*DEFAULT_RULES, *site.rules]) for r in [site.rule(name)]}
 
 
 def evaluate_walls(site: Site, marks: set[str]) -> list[PanelResult]:

@@ -106,6 +106,25 @@ class UnbracedResult:
 
 
 @dataclass(frozen=True, slots=True)
+class FallZone:
+    """A wall's fall zone (design.md §7): reach out from its braced face and back behind it."""
+
+    front_ft: float
+    back_ft: float
+    basis: str
+
+
+@dataclass(frozen=True, slots=True)
+class RuleUsed:
+    """A site rule as the check applied it: value, in force, source and basis."""
+
+    value: float | None
+    enabled: bool
+    source: str
+    basis: str
+
+
+@dataclass(frozen=True, slots=True)
 class Hardware:
     """What one wall's bracing uses: brace type, anchor types and the brace count (None: not
     named)."""
@@ -140,6 +159,12 @@ class PanelResult:
     fresh_working_limit_speed_mph: float | None = None
     fresh_stand_down_speed_mph: float | None = None
     fresh_sustained_equivalents_mph: dict = field(default_factory=dict)
+    # what the views show beside the checks, put here by `evaluate` (views compute nothing and
+    # read no site file): the gear, the fall zone, the footing, who signed off the release
+    hardware: Hardware | None = None  # None: no brace or anchor type named
+    zone: FallZone | None = None
+    footing_ft: tuple[float, float] | None = None  # (width, thickness); None: no footing
+    released_by: str | None = None  # the engineer whose sign-off released it
 
     def speeds_on(self, fresh: bool) -> tuple[float, float, dict]:
         """(stand-down, working limit, sustained equivalents of the stand-down) as they apply
@@ -243,6 +268,12 @@ class SiteResult:
     plan: object | None = None  # bracing.plan.PlanGeometry: coordinates for the views
     flags: list[Flag] = field(default_factory=list)  # site-wide findings
     not_checked: list[NotChecked] = field(default_factory=list)  # what the check leaves out
+    # for the views, not in the JSON record: the site's rules as applied, the number on hand
+    # of each brace and anchor type ({"braces": {type: n or None}, "anchors": ...}), and every
+    # wall standing together as day 0 when the site file gives no lift days (`days` is empty)
+    rules: dict[str, RuleUsed] = field(default_factory=dict)
+    on_hand: dict[str, dict[str, int | None]] = field(default_factory=dict)
+    together: DayResult | None = None
 
     def worst_first(self) -> list[PanelResult]:
         return sorted(self.panels, key=lambda p: (STATUS_ORDER.index(p.status), -p.utilization))

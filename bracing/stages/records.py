@@ -208,6 +208,7 @@ class Results:
                      flags=self.flags(),
                      governing_element=self._in_site_order(alone.governing, found.governing),
                      braces=self._in_site_order([None] * len(self.alone), self.records),
+                     hardware=None, zone=None, footing_ft=None, released_by=None,  # evaluate's
                      **self.columns)
 
     def _in_site_order(self, of_alone: list, of_braced: list) -> list:
