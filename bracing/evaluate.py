@@ -143,8 +143,9 @@ def _for_views(site: Site, places, panels: list[PanelResult], days) -> None:
     for s in site.signoffs:  # the first sign-off of a wall on a day names who released it
         signed.setdefault((s.panel, s.day), s.by)
     released = {m: d.day for d in days for m in d.released}
-    for p, model in zip(panels, site.panels, strict=True):
-        p.hardware = schedule.hardware(model.bracing, p)
+    gear = schedule.hardware_of(site, panels)
+    for p, model, h in zip(panels, site.panels, gear, strict=True):
+        p.hardware = h
         front, back, basis = zones[p.mark]
         p.zone = FallZone(front_ft=front, back_ft=back, basis=basis)
         f = model.footing
@@ -171,7 +172,9 @@ def evaluate_walls(site: Site, marks: set[str]) -> list[PanelResult]:
         "panels": keep, "signoffs": [s for s in site.signoffs if s.panel in kept]})
     places = plan.place(sub)
     e = evaluate_arrays(sub, plan.foot_edge_distances_in(sub, places) if places else {})
-    return [p for p in Results(sub, e).panels() if p.mark in marks]
+    panels = Results(sub, e).panels()
+    _for_views(sub, places, panels, [])  # no days: no release named
+    return [p for p in panels if p.mark in marks]
 
 
 def _masonry_over_limit(site: Site, p) -> bool:

@@ -46,7 +46,7 @@ from bracing.schedule.days import (
     whole_site,
 )
 from bracing.schedule.forecast import STORM_WORDS, ForecastDay, read_forecast, site_forecast
-from bracing.schedule.gear import GEAR, hardware
+from bracing.schedule.gear import GEAR, hardware, hardware_of
 from bracing.schedule.slips import PERIOD_SOURCE, PLANNED_FROM
 from bracing.schedule.verdict import (
     MARGINAL,
@@ -67,6 +67,6 @@ __all__ = [
     "DAY_RULES", "GEAR", "MARGINAL", "NEEDS_BRACES", "PERIOD_SOURCE", "PLANNED_FROM",
     "RELEASE_SOURCE", "RESTATED", "SCHEDULE_CODES", "SEVERITY_RANK", "STATUS_WORDS",
     "STORM_SOURCE", "STORM_WORDS", "STRUCK", "VERDICT_SOURCE", "ForecastDay", "Hardware",
-    "WallFacts", "build_days", "date_of", "fall_zones", "hardware", "judge", "read_forecast",
-    "site_forecast", "stand_down_rule", "wall_facts", "whole_site",
+    "WallFacts", "build_days", "date_of", "fall_zones", "hardware", "hardware_of", "judge",
+    "read_forecast", "site_forecast", "stand_down_rule", "wall_facts", "whole_site",
 ]

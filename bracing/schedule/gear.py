@@ -26,6 +26,24 @@ def hardware(bracing: Bracing | None, panel: PanelResult) -> Hardware | None:
                     count=int(d.get("count", b.count if b else 0)))
 
 
+def hardware_of(site: Site, panels: list[PanelResult]) -> list[Hardware | None]:
+    """`hardware` of every wall (`panels` in site order); walls with the same gear share one
+    record (a site has few kinds)."""
+    recorded, keys = itemgetter(*GEAR), frozenset(GEAR)
+    shared: dict[tuple, Hardware] = {}
+    out = []
+    for p, model in zip(panels, site.panels, strict=True):
+        d = p.braces
+        if d is None or not d.keys() >= keys:
+            out.append(hardware(model.bracing, p))
+            continue
+        gear = recorded(d)
+        if gear not in shared:
+            shared[gear] = hardware(model.bracing, p)
+        out.append(shared[gear])
+    return out
+
+
 def distinct_gear(site: Site, index: np.ndarray, results: list[PanelResult]
                   ) -> tuple[list[tuple], np.ndarray]:
     """The distinct gear of the walls, each a brace type, wall anchor and foot anchor (None: not
