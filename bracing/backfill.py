@@ -36,6 +36,9 @@ PHI_PLAIN = 0.60  # ACI 318-19 §21.2.1, plain concrete (from memory)
 PHI_FLEXURE = 0.90  # tension-controlled, ACI 318-19 Table 21.2.2; TMS 402-16 §9.1.4.4, from memory
 PHI_SHEAR_CONCRETE = 0.75  # ACI 318-19 Table 21.2.1
 PHI_SHEAR_MASONRY = 0.80  # TMS 402-16 §9.1.4.5 (from memory)
+# ASTM A615 deformed bars: nominal area (in^2) and diameter (in), text.
+BARS = {"#3": (0.11, 0.375), "#4": (0.20, 0.500), "#5": (0.31, 0.625), "#6": (0.44, 0.750),
+        "#7": (0.60, 0.875), "#8": (0.79, 1.000)}
 
 
 class UnsuitableSoil(ValueError):
@@ -43,8 +46,41 @@ class UnsuitableSoil(ValueError):
 
 
 def equivalent_fluid_pressure(soil: str, state: str = "at_rest") -> float:
-    """Design lateral soil load (psf per ft of depth) of a soil class, IBC 2018 Table 1610.1
-    (from memory): at-rest (default; compaction locks it in) or active (a site rule)."""
+    """Design lateral soil load of a soil class, as an equivalent fluid pressure.
+
+    Parameters
+    ----------
+    soil : str
+        Unified soil classification of the backfill ('GW', 'SM', 'CL', ...); case and
+        surrounding blanks ignored.
+    state : {'at_rest', 'active'}, optional
+        At-rest (default; compaction locks it in) or active (a site rule).
+
+    Returns
+    -------
+    float
+        Equivalent fluid pressure, psf per ft of depth.
+
+    Raises
+    ------
+    UnsuitableSoil
+        For OL, OH, MH and CH, which the table does not accept as backfill.
+    ValueError
+        For an unknown soil class or state.
+
+    References
+    ----------
+    IBC 2018 Table 1610.1 (from memory; confirm).
+
+    Examples
+    --------
+    GW 30 active / 60 at-rest; CL 60 / 100 (from memory).
+
+    >>> equivalent_fluid_pressure("GW", "active"), equivalent_fluid_pressure("GW")
+    (30.0, 60.0)
+    >>> equivalent_fluid_pressure("CL", "active"), equivalent_fluid_pressure("CL")
+    (60.0, 100.0)
+    """
     name = soil.strip().upper()
     if name in UNSUITABLE_IBC_1610_1:
         raise UnsuitableSoil(f"soil class {name} is unsuitable as backfill (IBC 2018 Table "
@@ -58,17 +94,73 @@ def equivalent_fluid_pressure(soil: str, state: str = "at_rest") -> float:
 
 
 def pressure_coefficient(efp, unit_weight=SOIL_UNIT_WEIGHT_PCF):
-    """Lateral pressure coefficient K = EFP / soil unit weight (method notes §12)."""
+    """Lateral pressure coefficient K = EFP / soil unit weight (method notes §12).
+
+    Parameters
+    ----------
+    efp : float or array_like
+        Equivalent fluid pressure, psf per ft.
+    unit_weight : float, optional
+        Soil unit weight, pcf (default 120, common practice).
+
+    Returns
+    -------
+    float or ndarray
+        K, dimensionless.
+
+    References
+    ----------
+    Statics: an equivalent fluid pressure is K gamma.
+
+    Examples
+    --------
+    60 psf/ft (IBC 2018 Table 1610.1, GW at rest, from memory) over 120 pcf: K = 0.5.
+
+    >>> float(pressure_coefficient(60.0))
+    0.5
+    """
     return np.asarray(efp, dtype=float) / unit_weight
 
 
 def resultants(height, efp, unit_weight=SOIL_UNIT_WEIGHT_PCF, surcharge=0.0, water=0.0):
-    """Shear and moment at the base of a backfill `height` (lb and lb-ft per ft, unfactored).
+    """Shear and moment at the base of a backfill, per ft of wall, unfactored.
 
     Pressure at depth z: p = K q_s + EFP z + gamma_w (1 - K) s, with s the depth below the water
     level (water at 62.4 psf/ft plus the submerged soil, K (gamma - gamma_w) per ft; K above 1
-    taken as 1, conservative). `water` is the water level above the base (0: dry). Integrated:
-    V = K q H + EFP H^2/2 + c h_w^2/2 and M = K q H^2/2 + EFP H^3/6 + c h_w^3/6 (statics).
+    taken as 1, conservative). Integrated: V = K q H + EFP H^2/2 + c h_w^2/2 and
+    M = K q H^2/2 + EFP H^3/6 + c h_w^3/6 (statics).
+
+    Parameters
+    ----------
+    height : float or array_like
+        Backfill height H above the base, ft (negative taken as 0).
+    efp : float or array_like
+        Equivalent fluid pressure, psf per ft.
+    unit_weight : float, optional
+        Soil unit weight, pcf (default 120, common practice).
+    surcharge : float, optional
+        Uniform surcharge q_s on the backfill's surface, psf.
+    water : float, optional
+        Water level above the base h_w, ft (0: drained).
+
+    Returns
+    -------
+    shear : float or ndarray
+        V at the base, lb per ft of wall.
+    moment : float or ndarray
+        M at the base, lb-ft per ft of wall.
+
+    References
+    ----------
+    Statics of a triangular pressure; EFP from IBC 2018 Table 1610.1 (from memory).
+
+    Examples
+    --------
+    8 ft of GW at rest (60 psf/ft, IBC 2018 Table 1610.1, from memory), dry, no surcharge:
+    V = 60 x 8^2 / 2 = 1,920 lb/ft, M = 60 x 8^3 / 6 = 5,120 lb-ft/ft.
+
+    >>> [float(v) for v in resultants(8.0, 60.0)]
+    [1920.0, 5120.0]
     """
     h = np.maximum(np.asarray(height, dtype=float), 0.0)
     k = pressure_coefficient(efp, unit_weight)
@@ -89,13 +181,66 @@ def resultants_at(level, height, efp, unit_weight=SOIL_UNIT_WEIGHT_PCF, surcharg
 
 # --- Wall capacities per foot of wall (b = 12 in) --------------------------------------------
 def plain_concrete_moment(fc_psi, thickness_in, lam=1.0):
-    """phi Mn = 0.60 x 5 lambda sqrt(f'c) S, S = b h^2 / 6 (ACI 318-19 §14.5.2.1), lb-ft/ft."""
+    """Design flexural strength of a plain concrete wall per ft, 0.60 x 5 lambda sqrt(f'c) S.
+
+    Parameters
+    ----------
+    fc_psi : float or array_like
+        f'c on the day, psi.
+    thickness_in : float or array_like
+        Wall thickness h, in (S = b h^2 / 6, b = 12 in).
+    lam : float, optional
+        Lightweight concrete factor lambda, 1.0 for normal weight.
+
+    Returns
+    -------
+    float or ndarray
+        phi Mn, lb-ft per ft of wall.
+
+    References
+    ----------
+    ACI 318-19 §14.5.2.1, phi 0.60 by §21.2.1 (from memory).
+
+    Examples
+    --------
+    8 in wall, f'c 2500 psi: S = 12 x 8^2 / 6 = 128 in3; 0.60 x 5 x 50 x 128 / 12 = 1,600
+    lb-ft/ft.
+
+    >>> float(plain_concrete_moment(2500.0, 8.0))
+    1600.0
+    """
     section = 12.0 * np.asarray(thickness_in, dtype=float) ** 2 / 6.0
     return PHI_PLAIN * 5.0 * lam * np.sqrt(fc_psi) * section / 12.0
 
 
 def plain_concrete_shear(fc_psi, thickness_in, lam=1.0):
-    """phi Vn = 0.60 x 4/3 lambda sqrt(f'c) b h (ACI 318-19 §14.5.5.1, from memory), lb/ft."""
+    """Design shear strength of a plain concrete wall per ft, 0.60 x 4/3 lambda sqrt(f'c) b h.
+
+    Parameters
+    ----------
+    fc_psi : float or array_like
+        f'c on the day, psi.
+    thickness_in : float or array_like
+        Wall thickness h, in (b = 12 in).
+    lam : float, optional
+        Lightweight concrete factor lambda, 1.0 for normal weight.
+
+    Returns
+    -------
+    float or ndarray
+        phi Vn, lb per ft of wall.
+
+    References
+    ----------
+    ACI 318-19 §14.5.5.1, phi 0.60 by §21.2.1 (from memory).
+
+    Examples
+    --------
+    8 in wall, f'c 2500 psi: 0.60 x 4/3 x 50 x 12 x 8 = 3,840 lb/ft.
+
+    >>> round(float(plain_concrete_shear(2500.0, 8.0)), 6)
+    3840.0
+    """
     return PHI_PLAIN * 4.0 / 3.0 * lam * np.sqrt(fc_psi) * 12.0 * thickness_in
 
 
@@ -113,8 +258,27 @@ def stress_block_moment(as_in2, fy_psi, d_in, strength_psi, block_factor):
 
 
 def beta_1(fc_psi):
-    """Stress block depth factor: 0.85 to 4000 psi, less 0.05 per 1000 psi, at least 0.65
-    (ACI 318-19 Table 22.2.2.4.3)."""
+    """Stress block depth factor beta_1.
+
+    Parameters
+    ----------
+    fc_psi : float or array_like
+        f'c, psi.
+
+    Returns
+    -------
+    float or ndarray
+        0.85 up to 4000 psi, less 0.05 per 1000 psi above, at least 0.65; dimensionless.
+
+    References
+    ----------
+    ACI 318-19 Table 22.2.2.4.3 (from memory).
+
+    Examples
+    --------
+    >>> [round(float(b), 2) for b in beta_1([3000.0, 5000.0, 9000.0])]
+    [0.85, 0.8, 0.65]
+    """
     return np.clip(0.85 - 0.05 * (np.asarray(fc_psi, dtype=float) - 4000.0) / 1000.0, 0.65, 0.85)
 
 
@@ -140,7 +304,33 @@ def reinforced_masonry_moment(as_in2, fy_psi, d_in, fm_psi):
 
 
 def concrete_shear(fc_psi, d_in, lam=1.0):
-    """phi Vc = 0.75 x 2 lambda sqrt(f'c) b d (ACI 318-19 §22.5.5.1), lb/ft."""
+    """One-way design shear strength of a concrete wall per ft, 0.75 x 2 lambda sqrt(f'c) b d.
+
+    Parameters
+    ----------
+    fc_psi : float or array_like
+        f'c on the day, psi.
+    d_in : float or array_like
+        Effective depth d, in (b = 12 in).
+    lam : float, optional
+        Lightweight concrete factor lambda, 1.0 for normal weight.
+
+    Returns
+    -------
+    float or ndarray
+        phi Vc, lb per ft of wall.
+
+    References
+    ----------
+    ACI 318-19 §22.5.5.1, phi 0.75 by Table 21.2.1 (from memory).
+
+    Examples
+    --------
+    f'c 2500 psi, d 4 in: 0.75 x 2 x 50 x 12 x 4 = 3,600 lb/ft.
+
+    >>> float(concrete_shear(2500.0, 4.0))
+    3600.0
+    """
     return PHI_SHEAR_CONCRETE * 2.0 * lam * np.sqrt(fc_psi) * 12.0 * d_in
 
 

@@ -14,9 +14,7 @@ from bracing import anchors, backfill, stability, units
 from bracing.model import DEFAULT_RULES
 from bracing.results import CAUTION, Flag
 
-# ASTM A615 deformed bars: nominal area (in^2) and diameter (in), text.
-BARS = {"#3": (0.11, 0.375), "#4": (0.20, 0.500), "#5": (0.31, 0.625), "#6": (0.44, 0.750),
-        "#7": (0.60, 0.875), "#8": (0.79, 1.000)}
+BARS = backfill.BARS
 DEFAULT_FACE_WEIGHT = {"masonry": "36 psf"}  # 8 in hollow CMU, HUD RSDG Table 3.2 (lightest)
 
 

@@ -1,4 +1,4 @@
-"""Braced walls: the names other modules import, from the stages that hold them (design.md §6).
+"""Braced walls: the names other modules import, from the stages that hold them (method notes §4).
 
 The layouts and capacities are `bracing.stages.brace_set`, the loads and brace forces
 `bracing.stages.brace_loads`, the checks and records `bracing.stages.braced`.

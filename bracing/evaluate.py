@@ -16,6 +16,7 @@ from bracing import layout, lines, plan, schedule, scope
 from bracing.model import DEFAULT_RULES, Site, read_panels
 from bracing.results import FallZone, Flag, PanelResult, RuleUsed, SiteResult
 from bracing.schedule import ForecastDay
+from bracing.stages import foundation
 from bracing.stages.alone import (  # noqa: F401  (names other modules import from here)
     CHECK_INFO,
     REVERSE,
@@ -76,14 +77,32 @@ def evaluate(site: Site, design: bool = False, base_dir=None,
     for mark, flag in wall_flags:  # sign-off and period flags: the wall's checks stand as they are
         by_mark[mark].flags.append(flag)
     geometry = _plan_of_days(site, places, days, found, by_mark)
+    walls = foundation.evaluate_foundation_walls(site)
+    _backfill_days(days, walls, by_mark)
     _for_views(site, places, panels, days)
     return SiteResult(
         name=site.site.name, basis=site.site.design_basis, basis_statement=basis_statement(site),
         panels=panels, days=days, peak_inventory=peak, plan=geometry,
-        not_checked=scope.not_checked(site, columns), rules=rules_used(site),
+        not_checked=scope.not_checked(site, columns) + foundation.not_checked(site),
+        foundation_walls=walls, flags=foundation.site_flags(walls), rules=rules_used(site),
         on_hand={"braces": {n: t.on_hand for n, t in site.brace_types.items()},
                  "anchors": {n: t.on_hand for n, t in site.anchor_types.items()}},
         together=schedule.whole_site(site, panels) if not days and panels else None)
+
+
+def _backfill_days(days, walls, by_mark: dict) -> None:
+    """Each day's backfill dangers (a wall backfilled above what it may take that day) among
+    the day's findings, its forecast against the foundation walls' stand-down gusts, and the
+    day judged again with them (method notes §6, §12)."""
+    on_day = foundation.day_flags(walls)
+    windy = {d.day for d in foundation.windy_days(walls, days)}
+    if not on_day and not windy:
+        return
+    facts = schedule.wall_facts(by_mark)
+    for d in days:
+        if d.day in on_day or d.day in windy:
+            d.flags.extend(on_day.get(d.day, []))
+            schedule.judge(d, by_mark, facts)
 
 
 def _edges(site: Site, places) -> dict[str, float]:
@@ -184,7 +203,7 @@ def _masonry_over_limit(site: Site, p) -> bool:
 
 
 def basis_statement(site: Site) -> list[str]:
-    """The declared design basis, shown on every report (design.md §3)."""
+    """The declared design basis, shown on every report (method notes §1)."""
     s = site.site
     factor = (f"period factor {s.period_factor} set by the user" if s.period_factor
               else "period factor from each wall's standing time (ASCE 37-14 Table 6.2-1)")

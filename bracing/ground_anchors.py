@@ -51,8 +51,37 @@ FRICTION_TABLES = {"IBC": (FRICTION_IBC_1806_2, "allowable"),
 
 
 def soil_friction(soil: str, table: str = "IBC") -> tuple[float, str]:
-    """(friction coefficient, 'allowable' | 'ultimate') of concrete on `soil` from `table`:
-    IBC Table 1806.2 (allowable) or NAVFAC DM-7.02 Table 1 (ultimate, lower end of its range).
+    """Friction coefficient of concrete on a soil, and whether it is allowable or ultimate.
+
+    Parameters
+    ----------
+    soil : str
+        A key of the table: 'sandy_gravel', 'silty_sand', ... (`FRICTION_IBC_1806_2`,
+        `FRICTION_NAVFAC_DM7_02`).
+    table : {'IBC', 'NAVFAC'}, optional
+        IBC Table 1806.2 (allowable, default) or NAVFAC DM-7.02 Table 1 (ultimate, the lower end
+        of its range: divide by `SLIDING_FS_ULTIMATE`).
+
+    Returns
+    -------
+    mu : float
+        Friction coefficient, dimensionless.
+    basis : {'allowable', 'ultimate'}
+
+    References
+    ----------
+    IBC Table 1806.2 (text, 2012 edition); NAVFAC DM-7.02 Table 1 (references.md lists its
+    ranges).
+
+    Examples
+    --------
+    IBC Table 1806.2: sand, silty or clayey sand 0.25 (text); NAVFAC clean gravel or coarse sand
+    0.55 to 0.60, the lower end taken.
+
+    >>> soil_friction("silty_sand")
+    (0.25, 'allowable')
+    >>> soil_friction("sandy_gravel", "NAVFAC")
+    (0.55, 'ultimate')
     """
     values, basis = FRICTION_TABLES[table]
     return values[soil], basis
@@ -78,9 +107,33 @@ def _dead_load_factor(basis):
 
 # --- Helical ground anchors: ICC-ES AC358 ----------------------------------------------------
 def helical_capacity(torque_ftlb, Kt_per_ft=10.0, factor_of_safety=HELICAL_FACTOR_OF_SAFETY):
-    """Allowable tension of a helical anchor from its final installation torque, lb.
+    """Allowable tension of a helical anchor from its final installation torque.
 
-    Q_ult = Kt T (ICC-ES AC358); allowable = Q_ult / FS.
+    Parameters
+    ----------
+    torque_ftlb : float or array_like
+        Final installation torque T, ft-lb.
+    Kt_per_ft : float or array_like, optional
+        Torque correlation factor, 1/ft: 10 for a 1.5 in square shaft (secondary); 9 for
+        2-7/8 in and 7 for 3-1/2 in round shafts (from memory).
+    factor_of_safety : float, optional
+        2 (ICC-ES AC358, secondary).
+
+    Returns
+    -------
+    float or ndarray
+        Allowable tension Kt T / FS, lb.
+
+    References
+    ----------
+    ICC-ES AC358.
+
+    Examples
+    --------
+    3,000 ft-lb on a 1.5 in square shaft: 10 x 3,000 / 2 = 15,000 lb (secondary).
+
+    >>> float(helical_capacity(3000.0))
+    15000.0
     """
     return (np.asarray(Kt_per_ft, dtype=float) * torque_ftlb / factor_of_safety)[()]
 

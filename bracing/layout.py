@@ -1,4 +1,4 @@
-"""The layout designer: the fewest braces that pass every check (design.md §6, issue on braces).
+"""The layout designer: the fewest braces that pass every check (method notes §4, issue on braces).
 
 For each wall it tries, from the fewest braces allowed upward, a grid of insert heights (from
 the site's lowest insert ratio to 85 % of the height), brace angles (within the site's range)

@@ -1,4 +1,4 @@
-"""Wall lines: panels standing edge to edge are one wall to the wind (design.md §4).
+"""Wall lines: panels standing edge to edge are one wall to the wind (method notes §2).
 
 Each day, the panels standing on a line (braced or already released: a released wall still
 stands) form groups (gaps no wider than the plan's joint gap). A panel in a group takes the
@@ -71,9 +71,10 @@ def releases(site: Site, columns: dict[str, tuple] | None = None) -> Releases:
     lift = np.array(lift, float)  # None: NaN
     event_day = _last_event_days(site, after)
     row = dict(zip(marks, range(len(marks)), strict=True)) if site.signoffs else {}
-    wall = np.array([row[s.panel] for s in site.signoffs], int)
+    wall = np.array([row.get(s.panel, -1) for s in site.signoffs], int)  # -1: a foundation wall
     day = np.array([s.day for s in site.signoffs], int)
     order = np.lexsort((day, wall))                      # stable: same-day ones in file order
+    order = order[wall[order] >= 0]                      # the panels' sign-offs
     order = order[~np.isnan(lift[wall[order]])]          # the sign-offs of scheduled walls
     wall, day = wall[order], day[order]
     valid = (day >= lift[wall]) & ~(event_day[wall] > day)  # after the lift and every event
@@ -159,7 +160,7 @@ def coefficients(groups: np.ndarray, width: np.ndarray, height: np.ndarray,
                  base: np.ndarray) -> LineLoads:
     """The Case A and Case C coefficients of each wall's groups (`alone_and_on_lines`) at its
     height `height` (s, ft) with its base `base` ft above grade, enveloped over the groups
-    (ASCE 7-16 Figure 29.3-1; design.md §4, §5). Worked afresh at every trial height: B/s,
+    (ASCE 7-16 Figure 29.3-1; method notes §2, §3). Worked afresh at every trial height: B/s,
     s/h, the return walls' Lr/s and the regions all change with s.
 
     `end` is the largest local Case C coefficient over the wall's width, from either end of
@@ -214,7 +215,7 @@ def strip_case_c(groups: np.ndarray, width: np.ndarray, height: np.ndarray, base
                  lo: np.ndarray, hi: np.ndarray) -> np.ndarray:
     """The largest local Case C coefficient over each strip [lo, hi] (ft from the wall's first
     edge; arrays (m, k)) of m walls, over their groups (`alone_and_on_lines`, (m, G, 4)) and
-    wind from either end of each (ASCE 7-16 Figure 29.3-1; design.md §6). `width`, `height`
+    wind from either end of each (ASCE 7-16 Figure 29.3-1; method notes §4). `width`, `height`
     and `base` are the walls' (m,). Case A/B where a group is shorter than 2 s."""
     filled = np.isnan(groups[..., 1])
     g = np.where(filled[..., None], groups[:, :1], groups)
@@ -235,7 +236,7 @@ def _standing_groups(site: Site, lines: dict, line_id: np.ndarray, releases: Rel
                      start: np.ndarray, width: np.ndarray) -> tuple[np.ndarray, ...] | None:
     """The groups each wall on a line stands in braced, day by day: (panel index, the group's
     extent lo and hi along the line, the return wall at its start and at its end, ft), in day
-    order. A released wall still stands (design.md §7): it stays in its group for the wind on
+    order. A released wall still stands (method notes §6): it stays in its group for the wind on
     its neighbours, but is not listed itself after its release.
 
     `lines` are the site's lines by name; `line_id`, `start` and `width` each panel's line (its

@@ -27,7 +27,37 @@ STATUS_ORDER = tuple(STATUSES)  # worst first
 
 @dataclass(slots=True)
 class Check:
-    """One limit check: demand against capacity on a named load combination, with its source."""
+    """One limit check: demand against capacity on a named load combination, with its source.
+
+    A check is made only where its capacity is known: a check whose capacity is not known is
+    left out (its element named by a finding or in `SiteResult.not_checked`), so neither value
+    is ever NaN here.
+
+    Attributes
+    ----------
+    element : str
+        What is checked: "brace compression", "foot anchor", "overturning", ...
+    region : str
+        Where: "whole panel", "worst brace", "end zone, per ft", "interior, per ft", ...
+    demand : float
+        The factored load effect, in `unit`, on `combination`.
+    capacity : float
+        The available strength in `unit`: allowable (ASD) or design (LRFD) by the site's basis,
+        or an allowable value under LRFD where only that exists (the combination says so). 0 where
+        there is none (a rated brace outside its table), which fails visibly.
+    unit : str
+        "lb", "lb·ft", "lb/ft", "lb·ft/ft", "psf", or "ratio" (an interaction check: demand is
+        the ratio, capacity 1.0).
+    combination : str
+        The load combination, e.g. "0.6D + 0.6W (ASCE 7-16 §2.4.1)".
+    source : str
+        The published clause or method note the capacity comes from.
+
+    Notes
+    -----
+    `utilization` is demand / capacity, dimensionless; inf (unbounded) where there is demand and
+    no capacity, which JSON writes as null. It passes at <= 1.0.
+    """
 
     element: str
     region: str
@@ -57,7 +87,19 @@ class Check:
 
 @dataclass(slots=True)
 class Flag:
-    """Something the user must see, with its severity and where the rule comes from."""
+    """Something the user must see, with its severity and where the rule comes from.
+
+    Attributes
+    ----------
+    code : str
+        A short stable name, e.g. "outside-rated-range", "no-margin".
+    severity : str
+        One of `SEVERITIES`: "danger", "warning" or "notice" (ANSI Z535 signal words).
+    message : str
+        What it means for the crew, in plain words.
+    source : str
+        The published clause or method note of the rule; "" where there is none.
+    """
 
     code: str
     severity: str
@@ -70,7 +112,41 @@ class Flag:
 
 @dataclass(slots=True)
 class WindResult:
-    """The design wind on one wall (ASCE 7-16 §29.3 with ASCE 37-14), Case A at strength level."""
+    """The design wind on one wall (ASCE 7-16 §29.3 with ASCE 37-14), Case A at strength level.
+
+    Every field is known for every wall: none is None or NaN.
+
+    Attributes
+    ----------
+    basic_speed_mph : float
+        The site's basic wind speed V, mph (3-second gust at 33 ft, exposure C).
+    period_factor : float
+        ASCE 37-14 Table 6.2-1 factor on V for the wall's standing time, dimensionless.
+    period_factor_from : str
+        "standing time" (from the table) or "set" (the site file sets the factor).
+    design_speed_mph : float
+        period_factor x V, not below the site's minimum design wind rule, mph.
+    kz, kd, kzt, ke, gust_factor : float
+        ASCE 7-16 Kz at the top of the wall (Table 26.10-1), Kd (Table 26.6-1), Kzt (§26.8), Ke
+        (Table 26.9-1) and G (§26.11.1), dimensionless.
+    velocity_pressure_psf : float
+        q_h by Eq. 26.10-1, psf.
+    force_coefficient : float
+        Case A Cf of Figure 29.3-1 (on the solid area of an open wall), dimensionless.
+    opening_factor : float
+        Figure 29.3-1 note 3 reduction for openings, 1.0 for a solid wall, dimensionless.
+    force_lb : float
+        Case A force q_h G Cf As (or the minimum pressure's, where it governs), lb.
+    resultant_height_ft : float
+        Height of that force above the wall's base, ft.
+    solidity : float
+        Solid area over gross area, dimensionless.
+    minimum_pressure_governs : bool
+        True where the ASCE 7-16 §29.7 minimum pressure governs the force.
+    end_zone_force_coefficient, interior_force_coefficient : float
+        The Cf of a wall checked per ft at its end zone (largest Case C value it touches) and in
+        its interior (method notes §2), dimensionless.
+    """
 
     basic_speed_mph: float
     period_factor: float
@@ -94,7 +170,31 @@ class WindResult:
 
 @dataclass(slots=True)
 class UnbracedResult:
-    """The wall standing on its own."""
+    """The wall standing on its own.
+
+    Attributes
+    ----------
+    utilization : float
+        Governing utilization of its own checks at the design wind, dimensionless; inf where a
+        check has demand and no capacity.
+    stands : bool
+        True where every such check passes and no height rule forbids it.
+    working_limit_speed_mph : float
+        Observed gust at which its own governing check reaches 1.0, mph (service values, method
+        notes §1). NaN: not known (no limit below the search's 400 mph, read as a capacity
+        not known).
+    stand_down_speed_mph : float
+        The stand-down gust from that limit (the stand-down ratio, masonry caps), mph. NaN as
+        above.
+    max_height_ft : float
+        Tallest the wall may stand unbraced at the design wind, ft, no taller than OSHA
+        1926.706(b) lets masonry stand. inf: no height up to 300 ft fails (unbounded).
+    max_height_at_limit_ft : float or None
+        The same at the site's limit gust, ft; None where the site gives no limit gust (does not
+        apply); inf as above.
+    max_height_structural_ft : float or None
+        `max_height_ft` before a rule's cap (the structural limit), ft; inf as above.
+    """
 
     utilization: float
     stands: bool
@@ -137,7 +237,63 @@ class Hardware:
 
 @dataclass(slots=True)
 class PanelResult:
-    """Everything the engine found for one wall."""
+    """Everything the engine found for one wall.
+
+    A value that is missing is one of three kinds, kept apart: None where it does not apply
+    (fresh-mortar speeds of a concrete wall, `braces` of a wall without braces); NaN where it
+    is not known, named in `unknown` with why (in `braces`, the unknown `utilization` is None
+    and `utilization_unknown_because` says why); inf where it is unbounded (a utilization with
+    demand and no capacity, a height search without a limit). The JSON record writes null for
+    all three; text views print "none", "unknown" and "unbounded".
+
+    Attributes
+    ----------
+    mark, material : str
+        The wall's mark and its material's kind ("concrete", "masonry", "framed").
+    status : str
+        One of `STATUSES`: "unsafe", "needs_braces", "braced", "stands".
+    weight_lb : float
+        Weight of the wall's solid area, lb.
+    height_ft, width_ft : float
+        Height and length of the wall, ft.
+    thickness_in : float
+        Thickness, in.
+    wind : WindResult
+        Its design wind.
+    unbraced : UnbracedResult
+        The wall standing on its own (braced or not).
+    checks : list of Check
+        Every check made, braced or on its own as the wall stands.
+    flags : list of Flag
+        Its findings.
+    working_limit_speed_mph : float
+        Observed gust at which its governing strength check reaches 1.0, with its braces if it
+        has them, mph. NaN: not known (see `unknown`).
+    stand_down_speed_mph : float
+        The gust at which work stops and the fall zone is cleared, mph. NaN: not known.
+    governing_element : str
+        The check of the largest strength utilization, "element (region)".
+    braces : dict or None
+        The §8 braces record of a braced wall; None for a wall without braces. Keys: count;
+        angle_deg; insert_height_ft, anchor_distance_ft, length_ft (ft); axial_force_lb,
+        anchor_uplift_lb, anchor_shear_lb, base_shear_lb, base_uplift_lb (lb, governing brace,
+        design wind); positions_ft, brace_forces_lb (one per brace); installation_torque_ftlb
+        (helical foot anchors only, ft-lb); sill_uplift_lb, sill_uplift_plf (framed walls only);
+        brace_type; wall_anchor and foot_anchor (None: none used); utilization (largest of the
+        brace's own checks; None: not known, with utilization_unknown_because);
+        working_limit_one_missing_mph (mph; 0 with two braces, None with one, or none found);
+        designed (True where the layout designer chose the braces).
+    sustained_equivalents_mph : dict of str to float
+        1-min, 2-min, 10-min and 1-hour mean speeds matching the stand-down gust, mph.
+    fresh_working_limit_speed_mph, fresh_stand_down_speed_mph : float or None
+        A masonry wall's speeds with fresh mortar, which the days use until the mortar has
+        cured, mph; None for other walls (does not apply); NaN: not known.
+    fresh_sustained_equivalents_mph : dict of str to float
+        Sustained equivalents of the fresh-mortar stand-down gust; empty where there is none.
+    unknown : dict of str to str
+        The wall's values that are not known, by field name ("braces.utilization" for a key of
+        `braces`), with why; empty when every value is known.
+    """
 
     mark: str
     material: str
@@ -159,6 +315,9 @@ class PanelResult:
     fresh_working_limit_speed_mph: float | None = None
     fresh_stand_down_speed_mph: float | None = None
     fresh_sustained_equivalents_mph: dict = field(default_factory=dict)
+    # the values of this wall that are not known (NaN, or None in `braces`), by field name
+    # ("braces.utilization" for a key of `braces`), with why: see the class's glossary
+    unknown: dict[str, str] = field(default_factory=dict)
     # what the views show beside the checks, put here by `evaluate` (views compute nothing and
     # read no site file): the gear, the fall zone, the footing, who signed off the release
     hardware: Hardware | None = None  # None: no brace or anchor type named
@@ -183,7 +342,7 @@ class PanelResult:
     @property
     def fails(self) -> bool:
         """True when the wall fails a strength check, cannot stand and has no braces, or has a
-        danger finding: the one test behind every verdict and exit code (design.md §8a)."""
+        danger finding: the one test behind every verdict and exit code (method notes §8)."""
         return self.status in ("unsafe", "needs_braces") or any(
             f.severity == "danger" for f in self.flags)
 
@@ -196,7 +355,15 @@ class PanelResult:
 
 @dataclass(slots=True)
 class DayFinding:
-    """A finding of a day, listed once: the walls it holds for (none: the day's own)."""
+    """A finding of a day, listed once: the walls it holds for (none: the day's own).
+
+    Attributes
+    ----------
+    code, severity, message, source : str
+        As in `Flag`.
+    marks : list of str
+        The walls it holds for; empty for a finding of the day itself.
+    """
 
     code: str
     severity: str
@@ -210,7 +377,47 @@ VERDICTS = ("GO", "GO WITH EXCEPTIONS", "NO-GO", "NO CALL")  # method notes §6,
 
 @dataclass(slots=True)
 class DayResult:
-    """One day of the job: lifts, standing walls, inventory in use, the wind go / no-go."""
+    """One day of the job: lifts, standing walls, inventory in use, the wind go / no-go.
+
+    Attributes
+    ----------
+    day : int
+        Day number, 1 for the first.
+    date : str or None
+        Its date (ISO 8601) where the site gives a start date; None otherwise.
+    lifts, standing, released : list of str
+        Marks of the walls lifted, standing and released from their braces that day.
+    braces_in_use, anchors_in_use : dict of str to int
+        Count in use by type.
+    stand_down_speed_mph, working_limit_speed_mph : float or None
+        The lowest stand-down gust and working limit of the walls standing, mph; None with no
+        wall standing (does not apply) or none known.
+    governing_wall : str or None
+        The wall of that stand-down gust; None as above.
+    forecast_gust_mph : float or None
+        The forecast gust, mph; None without a forecast.
+    storm : bool
+        A thunderstorm is forecast.
+    go, wind_go : bool or None
+        The forecast against the stand-down gust alone; None without a forecast or a wall
+        standing (no call).
+    reason, wind : str
+        That comparison in a sentence.
+    short : dict
+        {"braces": {type: n}, "anchors": {type: n}}: how many more are needed than on hand.
+    flags : list of Flag
+        The day's findings.
+    fresh_mortar : list of str
+        Masonry walls standing with fresh mortar.
+    verdict : str
+        One of `VERDICTS` (method notes §6); `go` is True only for "GO".
+    marginal : bool
+        The forecast is within 10 % of the stand-down gust.
+    do_not_lift, failing_standing : list of str
+        Today's lifts that fail; walls up from earlier days that fail.
+    why, findings : list of DayFinding
+        What makes those walls fail, grouped; the rest, grouped, worst first.
+    """
 
     day: int
     date: str | None
@@ -243,7 +450,15 @@ class DayResult:
 @dataclass(slots=True)
 class NotChecked:
     """Something the engine did not check for this site, and why: the limits of the check,
-    which a reviewer must see as clearly as its results (method notes §11)."""
+    which a reviewer must see as clearly as its results (method notes §11).
+
+    Attributes
+    ----------
+    item, reason, source : str
+        What is not checked, why, and where the method says so.
+    walls : list of str
+        The walls it concerns; empty: the whole site.
+    """
 
     item: str
     reason: str
@@ -256,7 +471,31 @@ class NotChecked:
 
 @dataclass(slots=True)
 class SiteResult:
-    """The whole site: every wall, worst first on demand, and the declared basis."""
+    """The whole site: every wall, worst first on demand, and the declared basis.
+
+    Attributes
+    ----------
+    name : str
+        The site's name.
+    basis : str
+        "ASD" or "LRFD".
+    basis_statement : list of str
+        The design basis as every report states it at its head (method notes §1).
+    panels : list of PanelResult
+        Every wall in the site file's order.
+    caution : str
+        `CAUTION`, which every view shows.
+    days : list of DayResult
+        The day-by-day schedule; empty without lift days.
+    peak_inventory : dict
+        {"braces": {type: n}, "anchors": {type: n}}: the most in use on any day.
+    plan : bracing.plan.PlanGeometry or None
+        Coordinates for the drawings; None without a plan.
+    flags : list of Flag
+        Findings of the site as a whole.
+    not_checked : list of NotChecked
+        What the check leaves out.
+    """
 
     name: str
     basis: str
@@ -268,6 +507,8 @@ class SiteResult:
     plan: object | None = None  # bracing.plan.PlanGeometry: coordinates for the views
     flags: list[Flag] = field(default_factory=list)  # site-wide findings
     not_checked: list[NotChecked] = field(default_factory=list)  # what the check leaves out
+    # bracing.foundation_results.FoundationWallResult of each foundation wall (method notes §12)
+    foundation_walls: list = field(default_factory=list)
     # for the views, not in the JSON record: the site's rules as applied, the number on hand
     # of each brace and anchor type ({"braces": {type: n or None}, "anchors": ...}), and every
     # wall standing together as day 0 when the site file gives no lift days (`days` is empty)
@@ -284,8 +525,9 @@ class SiteResult:
 
     @property
     def fails(self) -> bool:
-        """True when a wall fails or a finding of the site or of a day is a danger (§8a)."""
-        return bool(self.failing()) or any(
+        """True when a wall fails, a foundation wall fails (its backfill over its limit on a
+        day) or a finding of the site or of a day is a danger (§8a)."""
+        return bool(self.failing()) or any(w.fails for w in self.foundation_walls) or any(
             f.severity == "danger" for f in self.flags + [g for d in self.days for g in d.flags])
 
     def panel(self, mark: str) -> PanelResult:

@@ -326,7 +326,8 @@ def validate_data(data: dict, name: str, text: str) -> Site:
     try:
         return Site.model_validate(data)
     except ValidationError as exc:
-        raise SiteFileError(name, [describe(err, data, name, text) for err in exc.errors()]) from None
+        problems = [describe(err, data, name, text) for err in exc.errors()]
+        raise SiteFileError(name, problems) from None
 
 
 def describe(err: dict, data: dict, name: str, text: str) -> str:

@@ -61,8 +61,8 @@ DISPLAY = {
     "plf": ("plf", "kN/m"),
     "mph": ("mph", "m/s"),
 }
-SHORT = {"ft**2": "ft²", "m**2": "m²", "in**2": "in²", "mm**2": "mm²", "lbf": "lb", "ft*lbf": "lb·ft", "kN*m": "kN·m",
-         "kN/m**3": "kN/m³", "m/s": "m/s"}
+SHORT = {"ft**2": "ft²", "m**2": "m²", "in**2": "in²", "mm**2": "mm²", "lbf": "lb",
+         "ft*lbf": "lb·ft", "kN*m": "kN·m", "kN/m**3": "kN/m³", "m/s": "m/s"}
 
 
 # The spellings read without pint, by engine unit: the trade's usual ones and their SI fellows.

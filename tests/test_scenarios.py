@@ -44,7 +44,8 @@ def test_every_site_file_loads_and_validates(path):
 
 # design.md §8a: the review exercise (townhouses) and the one-wall demo of every kind of wall
 # hold failing walls and dangers: exit 1; the others pass: exit 0
-EXIT_CODES = {"demo-mixed": 1, "townhouse-framing": 1, "tilt-up-warehouse": 0, "masonry-gym": 0}
+EXIT_CODES = {"demo-mixed": 1, "townhouse-framing": 1, "tilt-up-warehouse": 0, "masonry-gym": 0,
+              "basement-duplex": 1}  # its deliberate problem: FW-E backfilled too high on day 7
 
 
 @pytest.mark.parametrize("path", SITES, ids=[p.stem for p in SITES])

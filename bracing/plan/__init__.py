@@ -1,4 +1,4 @@
-"""Site geometry in plan (design.md §7), with shapely 2.
+"""Site geometry in plan (method notes §6), with shapely 2.
 
 Plan coordinates are in ft, x to the east and y to the north. A wall line runs from `start` to
 `end` and is the braced face of the walls along it; a wall's thickness lies on the other side.

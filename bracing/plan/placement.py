@@ -1,4 +1,4 @@
-"""Walls placed along their lines in plan, and their braces (design.md §7).
+"""Walls placed along their lines in plan, and their braces (method notes §6).
 
 A wall line runs from `start` to `end` and is the braced face of the walls along it; a wall's
 thickness lies on the other side. A panel occupies [offset, offset + width] along its line, its

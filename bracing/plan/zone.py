@@ -1,4 +1,4 @@
-"""The zone kept around a standing wall (design.md §7): its reach in front and behind, its rule
+"""The zone kept around a standing wall (method notes §6): its reach in front and behind, its rule
 in words and its outline in plan."""
 
 from __future__ import annotations
@@ -50,7 +50,7 @@ def zone_reach_ft(site: Site, places: Places, bracing: WallBracing,
 def zone_reach(site: Site, places: Places, heights: dict[str, float] | None = None,
                standing: set[str] | None = None) -> dict[str, tuple[float, float, str]]:
     """Reach of each standing wall's zone (ft): out from the face on the braced side, back from
-    the face on the other side, and its basis (design.md §7).
+    the face on the other side, and its basis (method notes §6).
 
     Masonry: height + `masonry_zone_extra_ft` (OSHA 29 CFR 1926.706(a)) on the unscaffolded
     side, taken as the braced side, never less than the brace footprint. Other walls (common
@@ -102,7 +102,7 @@ def zone_corners(places: Places, bracing: WallBracing, reach: ZoneReach) -> np.n
 
 def zones(site: Site, places: Places, heights: dict[str, float] | None = None,
           standing: set[str] | None = None) -> dict[str, Polygon]:
-    """Restricted zone of each standing wall (design.md §7), a rectangle along its length.
+    """Restricted zone of each standing wall (method notes §6), a rectangle along its length.
 
     The evacuated zone (nobody inside, at the stand-down speed and during lifts) is given the
     same footprint: OSHA 29 CFR 1926.706(a) and the common practice name one zone, and no

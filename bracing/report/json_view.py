@@ -69,7 +69,8 @@ def review_record(site: Site, result: SiteResult, facts: dict) -> dict:
         "rules": rules,
         "method": METHOD,
         "fails": result.fails,
-        "failing_walls": [p.mark for p in result.failing()],
+        "failing_walls": [p.mark for p in result.failing()]
+        + [w.mark for w in result.foundation_walls if w.fails],
         "not_checked": [n.as_dict() for n in result.not_checked],
     }
 
@@ -85,6 +86,9 @@ def site_record(result: SiteResult, review: dict | None = None) -> dict:
         "panels": [panel_record(p, result.basis) for p in result.worst_first()],
         "days": result.days,
         "peak_inventory": result.peak_inventory,
+        # foundation walls backfilled before the floor (method notes §12), when the site has any
+        **({"foundation_walls": [_plain(w.as_dict()) for w in result.foundation_walls]}
+           if result.foundation_walls else {}),
     })
 
 

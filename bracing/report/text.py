@@ -20,9 +20,10 @@ SI_PRECISION = {"m": (2, 0), "mm": (0, 5), "kN": (1, 0), "kN·m": (1, 0), "kPa":
 
 
 def fmt(value: float | None, unit: str, system: str = "us", digits: int = 0) -> str:
-    """A value in the chosen unit system, e.g. '28 psf' or '1.35 kPa' (SI at SI_PRECISION)."""
+    """A value in the chosen unit system, e.g. '28 psf' or '1.35 kPa' (SI at SI_PRECISION);
+    'none' where it does not apply (None), 'unknown' (NaN), 'unbounded' (inf)."""
     if value is None or (isinstance(value, float) and not math.isfinite(value)):
-        return "none" if value is None else "unbounded"
+        return "none" if value is None else "unknown" if math.isnan(value) else "unbounded"
     shown, label = convert(value, unit, system)
     if system == "si" and label in SI_PRECISION:
         digits, step = SI_PRECISION[label]

@@ -1,4 +1,4 @@
-"""Walls on their own: every check of a wall standing without braces (design.md §5)."""
+"""Walls on their own: every check of a wall standing without braces (method notes §3)."""
 
 from __future__ import annotations
 
@@ -171,7 +171,7 @@ def unbraced_at(walls: Walls, wind: Wind, f: Factors, held: tuple = ()) -> np.nd
 
 # Checks of walls on their own against allowable values (IBC Table 1806.2 bearing and friction),
 # and those of cured masonry (TMS 402-16 §8.2 allowable stresses): under LRFD they take the ASD
-# combinations (design.md §3, method notes §1).
+# combinations (method notes §1).
 ALLOWABLE_ALONE = {"soil bearing", "footing sliding"}
 ALLOWABLE_MASONRY = {"overturning", "sliding at base"}
 
@@ -202,7 +202,7 @@ REVERSE_INFO = {name + REVERSE: (unit, kind, f"{source}; the braces work in comp
 def reverse_wind_checks(checks: dict, bs: BraceSet) -> dict:
     """The checks of the walls on their own (`checks`, at the design wind), as braced checks of
     the walls whose braces work in compression only (NaN for the others): with the wind away
-    from its braced face, such a wall stands alone (design.md §6)."""
+    from its braced face, such a wall stands alone (method notes §4)."""
     only = bs.compression_only
     out = {}
     for key, (demand, capacity) in checks.items():

@@ -1,4 +1,4 @@
-"""The lateral loads on the braced walls and each brace's reaction to them (design.md §4, §6)."""
+"""The lateral loads on the braced walls and each brace's reaction to them (method notes §2, §4)."""
 
 from __future__ import annotations
 
@@ -75,7 +75,7 @@ class HeldReaction:
 
 
 def brace_loads(walls, wind, bs: BraceSet, minimum_psf, held: tuple = ()) -> BraceLoads:
-    """The wind load cases on each braced wall and each brace's reactions (design.md §4, §6).
+    """The wind load cases on each braced wall and each brace's reactions (method notes §2, §4).
 
     A rigid panel's braces share each load case as a whole with the twist, and so do those of
     a wall built in place whose braces a continuous stiff member ties together (a strongback
@@ -137,8 +137,8 @@ def brace_loads(walls, wind, bs: BraceSet, minimum_psf, held: tuple = ()) -> Bra
 
 
 def held_reactions(load, walls, bs: BraceSet, rigid, lever) -> HeldReaction:
-    """The braces' reactions to one lateral load (loads.LateralLoad) held as it is (design.md
-    §6): a rigid panel's, or those a stiff member ties, share its resultant with the twist
+    """The braces' reactions to one lateral load (loads.LateralLoad) held as it is (method
+    notes §4): a rigid panel's, or those a stiff member ties, share its resultant with the twist
     (braces.brace_shares); any other brace takes its own strip's share of the loaded length
     (braces.total_brace_reaction), its resultant at the load's height."""
     i = bs.index
@@ -179,12 +179,12 @@ def _case_loads(walls, wind, i, minimum_psf) -> tuple[np.ndarray, np.ndarray]:
 
 
 def brace_forces(loads: BraceLoads, bs: BraceSet, f) -> BraceForces:
-    """Per-brace factored forces, the governing load case of each brace (design.md §6).
+    """Per-brace factored forces, the governing load case of each brace (method notes §4).
 
     Each brace's wind reaction (factored) plus its lean: the larger in size of its largest and
     least over the cases (|x + lean| is largest at one end of the reactions' range). The base
     shear is F - sum(R_h) with the lean among the braces' reactions: the lean's reaction comes
-    off it (design.md §6; it reverses where the insert is below the wind's resultant). The held
+    off it (method notes §4; it reverses where the insert is below the wind's resultant). The held
     loads add to each brace's reaction and to the base shear with their own factors in `f`
     (loads.KINDS), pushing the same way as the wind (the worse way)."""
     lean_total, lean = f.dead_adds * loads.lean_total, f.dead_adds * loads.lean
@@ -209,7 +209,7 @@ def _strip_loads(walls, wind, i, listed, positions, mask, minimum_psf):
     wall of `i` of each (a wall may have more than one).
 
     Each strip runs from midway to its neighbours (the end strips to the wall's ends) and takes
-    the worst of these patterns, each from either end (design.md §6): Case B of the wall alone
+    the worst of these patterns, each from either end (method notes §4): Case B of the wall alone
     as a pressure varying linearly along it, p_avg (1 + 2.4 (x/B - 1/2)) with p_avg =
     max(q G Cf_A, 16 psf) (it is never below Case A's uniform pressure, which needs no pattern
     of its own); and, on a solid wall, Case C by distance from the windward end of the wall
@@ -223,7 +223,7 @@ def _strip_loads(walls, wind, i, listed, positions, mask, minimum_psf):
                             walls.groups[i], walls.base[i]))
     by_position, lo, hi = _strip_bounds(positions, mask, b)
     area = s[:, None] * np.maximum(hi - lo, 0.0) * share[:, None]
-    floor = (minimum_psf or 0.0) * area  # ASCE 7-16 §29.7 on As (design.md §3)
+    floor = (minimum_psf or 0.0) * area  # ASCE 7-16 §29.7 on As (method notes §1)
     g = asce7.GUST_FACTOR
     p_avg = np.maximum(q * g * cf_a, minimum_psf or 0.0)  # ASCE 7-16 Eq. 29.3-1 and §29.7
     # Case B as a linear pressure, from whichever end loads the strip more (method notes §2)

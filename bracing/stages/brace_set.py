@@ -1,4 +1,4 @@
-"""The braced walls' layouts and their brace and anchor capacities as arrays (design.md §6)."""
+"""The braced walls' layouts and their brace and anchor capacities as arrays (method notes §4)."""
 
 from __future__ import annotations
 

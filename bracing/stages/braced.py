@@ -1,4 +1,4 @@
-"""Braced walls (design.md §6): every element's check, vectorised over walls.
+"""Braced walls (method notes §4): every element's check, vectorised over walls.
 
 The checks read the brace forces (`brace_loads.brace_forces`) and never a load kind: a new
 kind of lateral load reaches them through `brace_loads` alone."""
@@ -207,7 +207,7 @@ def _checks_at(walls, bs: BraceSet, f, loads: BraceLoads, standing: Standing | N
     lift = forces.total * standing.tan
     held = standing.held
     checks["base uplift"] = (np.where(held, lift, na), standing.weight)
-    # A framed wall's sill: the lift against its weight and the sill fastening (design.md §6).
+    # A framed wall's sill: the lift against its weight and the sill fastening (method notes §4).
     checks["sill uplift"] = (np.where(standing.framed, lift, na),
                              standing.weight + standing.sill)
     checks["base kick-out"] = (np.where(held, forces.base_shear, na), standing.base_mu * np.maximum(
@@ -268,6 +268,11 @@ def _masonry_bending(walls, bs: BraceSet, f, s):
                                             walls.section_area[i], above))
 
 
+# Why a braced wall's brace utilization is None: no check of the brace itself could be made.
+UNKNOWN_BRACE_UTILIZATION = ("no capacity of the brace is known (an unrated brace): its forces "
+                             "are computed, its capacity unchecked (method notes §11)")
+
+
 def braced_records(bs: BraceSet, forces: BraceForces, brace_type: list[str],
                    wall_anchor: list[str | None], foot_anchor: list[str | None],
                    utilization: list[float | None], one_missing: list[float | None],
@@ -305,6 +310,8 @@ def braced_records(bs: BraceSet, forces: BraceForces, brace_type: list[str],
             record["sill_uplift_lb"], record["sill_uplift_plf"] = sill_lb, sill_plf
         record["brace_type"], record["wall_anchor"], record["foot_anchor"] = brace, wall, foot
         record["utilization"], record["working_limit_one_missing_mph"] = most, missing
+        if most is None:  # unknown, not inapplicable: say why (the JSON key only then)
+            record["utilization_unknown_because"] = UNKNOWN_BRACE_UTILIZATION
         out.append(record)
     return out
 

@@ -1,4 +1,4 @@
-"""Findings: the flags of the walls and of their bracing (design.md §6, §8).
+"""Findings: the flags of the walls and of their bracing (method notes §4, §8).
 
 Each flag is a rule object that holds its code, severity, condition, message and source
 together (`FlagRule`); a condition is worked out for every wall (or braced wall) at once, and the

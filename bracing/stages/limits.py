@@ -1,5 +1,5 @@
 """The searches for the limit speeds: working limits, one brace missing, fresh mortar,
-stand-down gusts (design.md §3, §6)."""
+stand-down gusts (method notes §5)."""
 
 from __future__ import annotations
 
@@ -23,7 +23,7 @@ BRACED_WALLS_AT_ONCE = 8192  # braced walls checked in one pass of a search
 
 def reverse_wind_limit(limit: np.ndarray, bs: BraceSet, alone: np.ndarray) -> np.ndarray:
     """A braced wall's working limit, no higher than its limit on its own where its braces work
-    in compression only (the wind away from them: design.md §6)."""
+    in compression only (the wind away from them: method notes §4)."""
     return np.where(bs.compression_only, np.fmin(limit, alone[bs.index]), limit)
 
 
@@ -149,8 +149,8 @@ def strength_only(checks: dict) -> dict:
 
 
 def stand_down_speeds(site: Site, w: Walls, limit: np.ndarray) -> np.ndarray:
-    """Stand-down ratio x working limit, capped for masonry by the industry speeds (design.md
-    §3)."""
+    """Stand-down ratio x working limit, capped for masonry by the industry speeds (method
+    notes §5)."""
     ratio = site.rule_value("stand_down_ratio")
     speed = (1.0 if ratio is None else ratio) * limit
     initial = site.rule_value("masonry_initial_speed_mph")

@@ -25,7 +25,7 @@ from bracing.stages.arrays import Walls
 class Factors:
     """Load factors of one combination (ASCE 7-16 §2.3.1 / §2.4.1) and their names;
     `allowable`: the factors that allowable capacities take, where they differ (LRFD: ASD's,
-    design.md §3, method notes §1); `basis`: which of a load kind's factors it takes ("ASD",
+    method notes §1); `basis`: which of a load kind's factors it takes ("ASD",
     "LRFD" or "service", the observed gust)."""
 
     basis: str
@@ -47,9 +47,9 @@ COMBINATIONS = {
                     allowable=_ASD),
 }
 # Capacities the working limit reads: allowable ones (ASD) whatever the basis, so that the
-# service speeds are the same under either (design.md §3).
+# service speeds are the same under either (method notes §1).
 SERVICE_BASIS = "ASD"
-# The observed wind as a service load (design.md §3): 1.0W, 0.6D where dead load resists.
+# The observed wind as a service load (method notes §1): 1.0W, 0.6D where dead load resists.
 SERVICE = Factors(basis="service", dead_resists=0.6, dead_adds=1.0, wind=1.0,
                   resisting="0.6D + 1.0W (observed gust)", adding="D + 1.0W (observed gust)",
                   wind_only="1.0W (observed gust)")

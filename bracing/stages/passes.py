@@ -47,7 +47,7 @@ def evaluate_arrays(site: Site, edges: dict[str, float] | None = None,
     minimum = site.rule_value("minimum_design_pressure_psf")
 
     wind = wind_on(w, design_speed, asce7.KD_WALLS, minimum)
-    # An observed gust: Kd 1.0, no minimum, no period factor (design.md §3); loads grow with
+    # An observed gust: Kd 1.0, no minimum, no period factor (method notes §1); loads grow with
     # V^2, so the wind of a 1 mph gust is scaled rather than recomputed.
     unit = wind_on(w, 1.0, 1.0, None)
     held = fixed_loads(site, w)  # the lateral loads that do not grow with the wind
@@ -74,7 +74,7 @@ def evaluate_arrays(site: Site, edges: dict[str, float] | None = None,
     if bs is not None:
         loads = brace_loads(w, wind, bs, minimum, held)
         e.braces = bs
-        # the service speeds read allowable capacities under either basis (design.md §3)
+        # the service speeds read allowable capacities under either basis (method notes §1)
         e.service_braces = service = (bs if site.site.design_basis == SERVICE_BASIS else
                                       gather_braces(site, SERVICE_BASIS, edges, columns))
         e.braced_checks, e.brace_forces = braced_checks(w, wind, bs, factors, minimum,

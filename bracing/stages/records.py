@@ -28,6 +28,7 @@ from bracing.stages.checkset import (
 from bracing.stages.evaluation import Evaluation
 from bracing.stages.findings import BRACED_RULES, WALL_RULES
 from bracing.stages.loads import COMBINATIONS
+from bracing.stages.search import SPEED_BRACKET_MPH
 from bracing.wind import asce7, gusts
 
 
@@ -102,15 +103,22 @@ class Results:
                 stands=self.stands.tolist(),
                 working_limit_speed_mph=e.limit.tolist(),
                 stand_down_speed_mph=e.stand_down.tolist(),
-                max_height_ft=_or_none(self._capped(w, e.max_height)),
-                max_height_at_limit_ft=_or_none(self._capped(w, e.max_at_limit)),
-                max_height_structural_ft=_or_none(e.max_height)),
+                max_height_ft=self._capped(w, _unbounded(e.max_height)).tolist(),
+                max_height_at_limit_ft=(self._capped(w, _unbounded(e.max_at_limit)).tolist()
+                                        if site.site.limit_speed else None),
+                max_height_structural_ft=_unbounded(e.max_height).tolist()),
             "working_limit_speed_mph": limit.tolist(),
             "stand_down_speed_mph": stand_down.tolist(),
             "sustained_equivalents_mph": gusts.sustained_equivalents_of_each(stand_down),
-            "fresh_working_limit_speed_mph": _or_none(e.fresh_limit),
-            "fresh_stand_down_speed_mph": _or_none(e.fresh_stand_down),
-            "fresh_sustained_equivalents_mph": _fresh_sustained(e.fresh_stand_down)}
+            "fresh_working_limit_speed_mph": _where(w.masonry, e.fresh_limit),
+            "fresh_stand_down_speed_mph": _where(w.masonry, e.fresh_stand_down),
+            "fresh_sustained_equivalents_mph": _fresh_sustained(e.fresh_stand_down),
+            "unknown": _unknown_speeds({"working_limit_speed_mph": limit,
+                                        "stand_down_speed_mph": stand_down,
+                                        "fresh_working_limit_speed_mph": np.where(
+                                            w.masonry, e.fresh_limit, 0.0),
+                                        "fresh_stand_down_speed_mph": np.where(
+                                            w.masonry, e.fresh_stand_down, 0.0)})}
 
     def _wind_results(self) -> list[WindResult]:
         """Every wall's design wind (ASCE 7-16 §29.3 with ASCE 37-14 §6.2)."""
@@ -185,7 +193,7 @@ class Results:
 
     def _combinations(self, key: tuple) -> dict[str, str]:
         """The combination of each braced check of allowable capacity that differs from the
-        basis's: under LRFD, the ASD combinations (design.md §3, method notes §1)."""
+        basis's: under LRFD, the ASD combinations (method notes §1)."""
         f = COMBINATIONS[self.site.site.design_basis]
         if f.allowable is None:
             return {}
@@ -203,13 +211,18 @@ class Results:
         status = self._in_site_order(
             ["stands" if ok else "needs_braces" for ok in self.stands[self.alone].tolist()],
             ["braced" if ok else "unsafe" for ok in found.strength_ok])
-        return each_of(PanelResult, len(self.place), status=status,
-                     checks=self._in_site_order(alone.checks, found.checks),
-                     flags=self.flags(),
-                     governing_element=self._in_site_order(alone.governing, found.governing),
-                     braces=self._in_site_order([None] * len(self.alone), self.records),
-                     hardware=None, zone=None, footing_ft=None, released_by=None,  # evaluate's
-                     **self.columns)
+        made = each_of(PanelResult, len(self.place), status=status,
+                       checks=self._in_site_order(alone.checks, found.checks),
+                       flags=self.flags(),
+                       governing_element=self._in_site_order(alone.governing, found.governing),
+                       braces=self._in_site_order([None] * len(self.alone), self.records),
+                       hardware=None, zone=None, footing_ft=None, released_by=None,  # evaluate's
+                       **self.columns)
+        for p in made:  # a braced wall whose brace capacity is not known says so
+            if p.braces is not None and p.braces["utilization"] is None:
+                p.unknown = {**p.unknown,
+                             "braces.utilization": p.braces["utilization_unknown_because"]}
+        return made
 
     def _in_site_order(self, of_alone: list, of_braced: list) -> list:
         """Every wall's value in the site's order, from those of the walls on their own and of
@@ -258,8 +271,35 @@ class Results:
 
 
 def _or_none(x: np.ndarray) -> list[float | None]:
-    """The values as a list, None where not known (NaN)."""
+    """The values as a list, None where there is none (NaN)."""
     return np.where(np.isnan(x), None, x).tolist()
+
+
+def _unbounded(x: np.ndarray) -> np.ndarray:
+    """A height search's result with inf where it found no limit in its range (NaN): the wall
+    stands at any height searched, which is unbounded, not unknown."""
+    return np.where(np.isnan(x), np.inf, x)
+
+
+def _where(applies: np.ndarray, x: np.ndarray) -> list[float | None]:
+    """The values as a list: None where the value does not apply, NaN (unknown) kept."""
+    return np.where(applies, x, None).tolist()
+
+
+# Why a speed is NaN (unknown): the searches find no limit below the top of their range, which
+# the engine reads as a capacity it does not know (findings: `capacity-unknown`).
+UNKNOWN_SPEED = (f"no limit found below {SPEED_BRACKET_MPH[1]:g} mph: a brace or anchor "
+                 "capacity is unknown (method notes §5)")
+
+
+def _unknown_speeds(speeds: dict[str, np.ndarray]) -> list[dict[str, str]]:
+    """Each wall's unknown speeds (NaN) by field name, with why (`PanelResult.unknown`)."""
+    names = list(speeds)
+    nan = np.isnan(np.array(list(speeds.values()), dtype=float))
+    out: list[dict[str, str]] = [{} for _ in range(nan.shape[1])]
+    for k, wall in zip(*np.nonzero(nan), strict=True):
+        out[wall][names[k]] = UNKNOWN_SPEED
+    return out
 
 
 def _fresh_sustained(stand_down: np.ndarray) -> list[dict]:

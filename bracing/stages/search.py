@@ -1,4 +1,4 @@
-"""The root solver of the limit searches: many walls at once (design.md §3)."""
+"""The root solver of the limit searches: many walls at once (method notes §5)."""
 
 from __future__ import annotations
 

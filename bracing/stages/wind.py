@@ -67,7 +67,7 @@ def wind_on(w: Walls, speed, kd: float, minimum_psf: float | None) -> Wind:
     gross = w.width * s
     area = np.where(solid, gross, gross * w.solidity)  # open walls: Cf on the solid area
     # ASCE 7-16 §29.7: the minimum on As, the gross area of a solid wall and the solid area of
-    # an open one (design.md §3)
+    # an open one (method notes §1)
     floor = 0.0 if minimum_psf is None else minimum_psf * area
     force_a = np.maximum(q * g * cf_case_a * area, floor)  # ASCE 7-16 Eq. 29.3-1
     force = np.maximum(q * g * cf_whole * area, floor)

@@ -11,7 +11,7 @@ from pathlib import Path
 
 HERE = Path(__file__).parent
 SCENARIOS = HERE.parent.parent / "scenarios"
-SITES = ("tilt-up-warehouse", "masonry-gym", "townhouse-framing", "demo-mixed")
+SITES = ("tilt-up-warehouse", "masonry-gym", "townhouse-framing", "demo-mixed", "basement-duplex")
 
 
 def record(name: str) -> dict:
