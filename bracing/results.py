@@ -293,6 +293,15 @@ class PanelResult:
     unknown : dict of str to str
         The wall's values that are not known, by field name ("braces.utilization" for a key of
         `braces`), with why; empty when every value is known.
+    hardware : Hardware or None
+        Its brace type, wall and foot anchors and brace count as the views show them (from
+        `braces` where it names them, else the site file's bracing); None: none named.
+    zone : FallZone or None
+        Its fall zone (design.md §7), ft, with its basis; None only outside `evaluate`.
+    footing_ft : (float, float) or None
+        Its footing's width and thickness, ft; None: no footing.
+    released_by : str or None
+        Who signed off its release, on its release day; None: not released.
     """
 
     mark: str
@@ -495,6 +504,14 @@ class SiteResult:
         Findings of the site as a whole.
     not_checked : list of NotChecked
         What the check leaves out.
+    rules : dict of str to RuleUsed
+        Every site rule as the check applied it (the defaults, then the site's own).
+    on_hand : dict
+        {"braces": {type: n or None}, "anchors": {type: n or None}}: the numbers on hand the
+        site file gives (None: not given).
+    together : DayResult or None
+        Every wall standing together as day 0, for a site file that gives no lift days (then
+        `days` is empty); None otherwise.
     """
 
     name: str
