@@ -17,17 +17,23 @@ from pathlib import Path
 from pydantic import ValidationError
 
 from bracing import backfill_view, scenario
+from bracing.cli_args import (
+    DIFF_EXIT_CODES,
+    EXIT_BAD_INPUT,
+    EXIT_FAILS,
+    BadInput,
+    Parser,
+    check_output,
+    every_action,
+    flags_given,
+    given,
+    internal_error,
+    output_options,
+)
 from bracing.evaluate import evaluate
 from bracing.model import Site, error_message
 from bracing.report import json_view
-
-EXIT_FAILS = 1
-EXIT_BAD_INPUT = 2
-EXIT_CODES = """exit codes (every command):
-  0  every wall passes and no finding is a danger
-  1  a wall fails a check or a finding is a danger (diff: see `bracing diff --help`;
-     verify: a published value is not reproduced)
-  2  bad input, or a file that cannot be read or written"""
+from bracing.schedule import site_forecast
 
 # `bracing panel` flag -> (path in the one-panel site, how the value is stored)
 PANEL_FLAGS = {
@@ -48,18 +54,14 @@ DEFAULT_WEIGHT = {"concrete": {"unit_weight": "150 pcf"},  # ASCE 7 Table C3.1-2
                   "framed": {"face_weight": "6 psf"}}      # 2x4 sheathed wall, HUD RSDG Table 3.2
 
 
-class BadInput(Exception):
-    """Input that cannot be used; the message names where it came from."""
-
-
 def main(argv: list[str] | None = None) -> int:
     if hasattr(signal, "SIGPIPE"):  # `bracing check ... | head` ends quietly
         signal.signal(signal.SIGPIPE, signal.SIG_DFL)
     parser = build_parser()
     args = parser.parse_args(argv)
-    _flags_given(parser, args)
+    flags_given(parser, args)
     try:
-        _check_output(args)
+        check_output(args)
         return args.run(args)
     except BadInput as exc:
         print(f"bracing: {exc}", file=sys.stderr)
@@ -70,86 +72,29 @@ def main(argv: list[str] | None = None) -> int:
             print(f"  {problem}", file=sys.stderr)
         return EXIT_BAD_INPUT
     except Exception:  # noqa: BLE001 - the last line of defence, not the way errors are handled
-        return _internal_error()
-
-
-def _internal_error() -> int:
-    """Say that the program failed (not the input), with the traceback in a log file in the
-    system's temporary folder for the report; exit 2, never a traceback on the screen."""
-    import tempfile
-    import traceback
-
-    try:
-        fd, log = tempfile.mkstemp(prefix="bracing-internal-error-", suffix=".log")
-        with open(fd, "w", encoding="utf-8") as handle:
-            traceback.print_exc(file=handle)
-        where = f"the details are in {log}"
-    except OSError as exc:
-        where = f"the details could not be written to a log ({exc.strerror})"
-    print(f"bracing: internal error, please report it ({where}); no result was given",
-          file=sys.stderr)
-    return EXIT_BAD_INPUT
-
-
-def _given(convert=str):
-    """An argparse type: the flag's value through `convert`, an empty value refused (an empty
-    `--brace-capacity=` must never leave a brace unrated)."""
-    def read(text: str):
-        if not text.strip():
-            raise argparse.ArgumentTypeError("empty value: give one (or leave the flag out)")
-        return convert(text)
-    read.__name__ = getattr(convert, "__name__", "value")  # argparse names it in its messages
-    return read
-
-
-def _every_action(parser: argparse.ArgumentParser):
-    """The arguments of `parser` and of its commands."""
-    for action in parser._actions:
-        yield action
-        if isinstance(action, argparse._SubParsersAction):
-            for command in dict.fromkeys(action.choices.values()):
-                yield from _every_action(command)
-
-
-def _flags_given(parser: argparse.ArgumentParser, args: argparse.Namespace) -> None:
-    """Refuse a flag left without its value: Python 3.11's argparse reads `--kzt=--` as an empty
-    list instead of refusing it."""
-    for action in _every_action(parser):
-        if action.nargs is None and isinstance(getattr(args, action.dest, None), list):
-            parser.error(f"argument {'/'.join(action.option_strings) or action.dest}: "
-                         "expected one value")
-
-
-def _check_output(args: argparse.Namespace) -> None:
-    """Refuse `-o` onto the site file, its forecast or a backup of one, a folder, a device or
-    pipe, or into a folder that does not exist, before anything is computed."""
-    output = getattr(args, "output", None)
-    if output is None:
-        return
-    site = getattr(args, "site", None)
-    try:
-        scenario.check_output(output, scenario.inputs_of(site) if site else [])
-    except OSError as exc:
-        raise BadInput(f"-o {output}: {exc.strerror or exc}") from None
-
-
-class _Parser(argparse.ArgumentParser):
-    """Every command's help ends with the exit codes (design.md §8a)."""
-
-    def __init__(self, *args, **kwargs):
-        kwargs.setdefault("epilog", EXIT_CODES)
-        kwargs.setdefault("formatter_class", argparse.RawDescriptionHelpFormatter)
-        super().__init__(*args, **kwargs)
+        return internal_error()
 
 
 def build_parser() -> argparse.ArgumentParser:
-    parser = _Parser(
+    parser = Parser(
         prog="bracing",
         description="Plan and check the temporary bracing of walls standing before their "
                     "diaphragm exists. A planning aid: a qualified person designs and approves "
                     "the bracing.")
-    commands = parser.add_subparsers(dest="command", required=True, parser_class=_Parser)
+    commands = parser.add_subparsers(dest="command", required=True, parser_class=Parser)
+    _panel_command(commands)
+    backfill_view.add_command(commands).set_defaults(run=run_backfill)
+    for add_command in (_check_command, _diff_command, _verify_command, _schema_command,
+                        _schedule_command, _plan_command, _tui_command):
+        add_command(commands)
+    for action in every_action(parser):  # every value, flag or file name, must be given
+        one_value = action.nargs is None or (action.nargs == "?" and not action.option_strings)
+        if one_value and action.choices is None:
+            action.type = given(action.type or str)
+    return parser
 
+
+def _panel_command(commands) -> None:
     panel = commands.add_parser("panel", help="quick check of one wall standing alone")
     add = panel.add_argument
     add("--height", required=True, help="wall height, e.g. 30ft (bare number: ft)")
@@ -170,6 +115,16 @@ def build_parser() -> argparse.ArgumentParser:
     add("--footing-width", help="footing width across the wall (ft)")
     add("--footing-thickness", help="footing depth (ft)")
     add("--mortar-age", help="masonry mortar age, e.g. 3days (days)")
+    _panel_brace_options(panel)
+    add("--limit-speed", help="observed gust limit for the unbraced height, e.g. 20mph (mph)")
+    add("--stand-down-ratio", help="stand-down speed / working-limit speed (default 0.8)")
+    add("--basis", choices=["ASD", "LRFD"], default="ASD")
+    output_options(panel)
+    panel.set_defaults(run=run_panel)
+
+
+def _panel_brace_options(panel) -> None:
+    add = panel.add_argument
     add("--braces", type=int, help="number of braces (checked with the braces module)")
     add("--insert-height", help="brace insert height (ft)")
     angle = panel.add_mutually_exclusive_group()
@@ -178,19 +133,14 @@ def build_parser() -> argparse.ArgumentParser:
     add("--brace-capacity", help="allowable brace load (lb), in compression and in tension")
     add("--sill-fastening", help="framed walls: allowable uplift of the sill fastening per ft "
                                  "of sill, e.g. 200plf (plf)")
-    add("--limit-speed", help="observed gust limit for the unbraced height, e.g. 20mph (mph)")
-    add("--stand-down-ratio", help="stand-down speed / working-limit speed (default 0.8)")
-    add("--basis", choices=["ASD", "LRFD"], default="ASD")
-    _output_options(panel)
-    panel.set_defaults(run=run_panel)
 
-    backfill_view.add_command(commands).set_defaults(run=run_backfill)
 
+def _check_command(commands) -> None:
     check = commands.add_parser("check", help="check every wall of a site file")
     check.add_argument("site", help="site file (TOML)")
     check.add_argument("--design", action="store_true",
                        help="lay out braces for walls that need them and have none")
-    _output_options(check)
+    output_options(check)
     check.add_argument("--findings", action="store_true",
                        help="the reviewer's report: only what needs action, worst first, then "
                             "what was not checked")
@@ -199,6 +149,8 @@ def build_parser() -> argparse.ArgumentParser:
     check.add_argument("-o", "--output", help="file to write (default: print)")
     check.set_defaults(run=run_check)
 
+
+def _diff_command(commands) -> None:
     diff = commands.add_parser(
         "diff", help="what changed between two revisions of a site file",
         epilog=DIFF_EXIT_CODES)
@@ -209,15 +161,21 @@ def build_parser() -> argparse.ArgumentParser:
     diff.add_argument("--json", action="store_true", help="print one JSON object")
     diff.set_defaults(run=run_diff)
 
+
+def _verify_command(commands) -> None:
     verify = commands.add_parser(
         "verify", help="reproduce the published worked examples and table values on this "
                        "installation")
     verify.add_argument("--json", action="store_true", help="print one JSON object")
     verify.set_defaults(run=run_verify)
 
+
+def _schema_command(commands) -> None:
     schema = commands.add_parser("schema", help="print the JSON schema of the site file")
     schema.set_defaults(run=run_schema)
 
+
+def _schedule_command(commands) -> None:
     schedule = commands.add_parser("schedule", help="print the crew's brace schedule")
     schedule.add_argument("site", help="site file (TOML)")
     schedule.add_argument("--day", type=int, help="one day (default: every day)")
@@ -231,6 +189,8 @@ def build_parser() -> argparse.ArgumentParser:
                           help="units of the output (default: the site's [site] units, else us)")
     schedule.set_defaults(run=run_schedule)
 
+
+def _plan_command(commands) -> None:
     plan = commands.add_parser("plan", help="draw the site plan of a day as SVG")
     plan.add_argument("site", help="site file (TOML)")
     plan.add_argument("--day", type=int, help="the day to draw (default: the busiest)")
@@ -238,21 +198,11 @@ def build_parser() -> argparse.ArgumentParser:
     plan.add_argument("--design", action="store_true")
     plan.set_defaults(run=run_plan)
 
+
+def _tui_command(commands) -> None:
     tui = commands.add_parser("tui", help="open the terminal interface")
     tui.add_argument("site", nargs="?", help="site file (default: a demo site)")
     tui.set_defaults(run=run_tui)
-    for action in _every_action(parser):  # every value, flag or file name, must be given
-        one_value = action.nargs is None or (action.nargs == "?" and not action.option_strings)
-        if one_value and action.choices is None:
-            action.type = _given(action.type or str)
-    return parser
-
-
-def _output_options(p: argparse.ArgumentParser) -> None:
-    p.add_argument("--json", action="store_true", help="print one JSON object")
-    p.add_argument("--units", choices=["us", "si"],
-                   help="text output units (default: the site's [site] units, else us); "
-                        "--json stays US with its documented keys")
 
 
 def panel_site(args) -> dict:
@@ -368,7 +318,7 @@ def run_check(args) -> int:
     if args.findings and args.json:
         raise BadInput("choose one of --findings and --json")
     site_file = scenario.load(args.site)
-    result = evaluate(site_file.site, design=args.design, base_dir=Path(args.site).parent)
+    result = _evaluate(site_file, args.site, args.design)
     units = args.units or site_file.site.site.units
     if args.json or args.findings:
         review = json_view.review_record(site_file.site, result, review_facts(args.site))
@@ -387,6 +337,12 @@ def run_check(args) -> int:
 
         out = text.site_text(result, units)
     return _write(args.output, out) or verdict(result)
+
+
+def _evaluate(site_file: scenario.SiteFile, path: str, design: bool):
+    """The site checked, its forecast file read first beside the site file (the edge)."""
+    site = site_file.site
+    return evaluate(site, design=design, forecast=site_forecast(site, Path(path).parent))
 
 
 def verdict(result) -> int:
@@ -414,21 +370,14 @@ def review_facts(path: str) -> dict:
 
 
 DISTRIBUTION = "wall-bracing"  # pyproject.toml [project] name
-DIFF_EXIT_CODES = """exit codes:
-  0  the new file passes (as `bracing check` would) and no wall got worse as below
-  1  the new file fails a check or has a danger finding, or a wall standing in both files
-     got worse: its governing utilization rose and is now above 1.0, or its working-limit
-     gust fell below the stand-down gust it had in the old file (a crew still reading the old
-     stand-down gust would work in wind the revised wall cannot take)
-  2  bad input, or a file that cannot be read"""
 
 
 def run_diff(args) -> int:
     from bracing import diff
 
     old_file, new_file = scenario.load(args.old), scenario.load(args.new)
-    old = evaluate(old_file.site, design=args.design, base_dir=Path(args.old).parent)
-    new = evaluate(new_file.site, design=args.design, base_dir=Path(args.new).parent)
+    old = _evaluate(old_file, args.old, args.design)
+    new = _evaluate(new_file, args.new, args.design)
     changes = diff.compare(old_file.site, old, new_file.site, new)
     if args.json:
         print(json_view.dumps(changes.as_dict()))
@@ -452,7 +401,7 @@ def run_schedule(args) -> int:
     from bracing.report import schedule
 
     site_file = scenario.load(args.site)
-    result = evaluate(site_file.site, design=args.design, base_dir=Path(args.site).parent)
+    result = _evaluate(site_file, args.site, args.design)
     form = args.format or ("text" if not args.output else
                            "csv" if args.output.lower().endswith(".csv") else
                            "text" if args.output.lower().endswith(".txt") else "html")
@@ -470,7 +419,7 @@ def run_plan(args) -> int:
     from bracing.report import svg
 
     site_file = scenario.load(args.site)
-    result = evaluate(site_file.site, design=args.design, base_dir=Path(args.site).parent)
+    result = _evaluate(site_file, args.site, args.design)
     try:
         drawing = svg.plan_svg(result, args.day)
     except ValueError as exc:

@@ -13,8 +13,9 @@ from __future__ import annotations
 from operator import attrgetter
 
 from bracing import layout, lines, plan, schedule, scope
-from bracing.model import Site, read_panels
-from bracing.results import Flag, PanelResult, SiteResult
+from bracing.model import DEFAULT_RULES, Site, read_panels
+from bracing.results import FallZone, Flag, PanelResult, RuleUsed, SiteResult
+from bracing.schedule import ForecastDay
 from bracing.stages import foundation
 from bracing.stages.alone import (  # noqa: F401  (names other modules import from here)
     CHECK_INFO,
@@ -41,13 +42,18 @@ WALL_FINDINGS = ANCHOR_FINDINGS | {"brace-crosses-keep-clear", "zone-overlap",
                                    "zone-overlaps-crane-path"}
 
 
-def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
+def evaluate(site: Site, design: bool = False, base_dir=None,
+             forecast: dict[int, ForecastDay] | None = None) -> SiteResult:
     """Check every wall of the site and return the one result object.
 
     With `design`, walls that cannot stand and have no bracing get a designed layout first
-    (the site's [design] options); the walls for which none passes say why. `base_dir` is the
-    site file's folder (the forecast file is read from it).
+    (the site's [design] options); the walls for which none passes say why. `forecast` is the
+    site's forecast by day, read at the edge (`bracing.schedule.site_forecast`); a caller that
+    holds only the site file's folder gives it as `base_dir` and the forecast is read from it
+    first (the one file read here, before anything is checked).
     """
+    if forecast is None:
+        forecast = schedule.site_forecast(site, base_dir)
     columns = read_panels(site)
     releases = lines.releases(site, columns)  # designed layouts leave the lifts as they are
     places = plan.place(site, columns)
@@ -66,19 +72,22 @@ def evaluate(site: Site, design: bool = False, base_dir=None) -> SiteResult:
     for p in panels:  # a danger flag on a braced wall (an anchor off the slab...) is unsafe
         if p.status == "braced" and "danger" in map(severity, p.flags):
             p.status = "unsafe"
-    days, peak, wall_flags = schedule.build_days(site, panels, base_dir, releases,
+    days, peak, wall_flags = schedule.build_days(site, panels, forecast, releases,
                                                  judged=not places)
     for mark, flag in wall_flags:  # sign-off and period flags: the wall's checks stand as they are
         by_mark[mark].flags.append(flag)
     geometry = _plan_of_days(site, places, days, found, by_mark)
     walls = foundation.evaluate_foundation_walls(site)
     _backfill_days(days, walls, by_mark)
+    _for_views(site, places, panels, days)
     return SiteResult(
         name=site.site.name, basis=site.site.design_basis, basis_statement=basis_statement(site),
         panels=panels, days=days, peak_inventory=peak, plan=geometry,
         not_checked=scope.not_checked(site, columns) + foundation.not_checked(site),
-        foundation_walls=walls,
-        flags=foundation.site_flags(walls))
+        foundation_walls=walls, flags=foundation.site_flags(walls), rules=rules_used(site),
+        on_hand={"braces": {n: t.on_hand for n, t in site.brace_types.items()},
+                 "anchors": {n: t.on_hand for n, t in site.anchor_types.items()}},
+        together=schedule.whole_site(site, panels) if not days and panels else None)
 
 
 def _backfill_days(days, walls, by_mark: dict) -> None:
@@ -145,6 +154,30 @@ def _plan_of_days(site: Site, places, days, found, by_mark: dict):
     return plan.DayPlans(site, {d.day: d.standing for d in days})
 
 
+def _for_views(site: Site, places, panels: list[PanelResult], days) -> None:
+    """What the views show of each wall beside its checks: its gear, fall zone, footing and
+    the sign-off that released it (views compute nothing and read no site file)."""
+    zones = schedule.fall_zones(site, panels, places)
+    signed: dict[tuple[str, int], str] = {}
+    for s in site.signoffs:  # the first sign-off of a wall on a day names who released it
+        signed.setdefault((s.panel, s.day), s.by)
+    released = {m: d.day for d in days for m in d.released}
+    gear = schedule.hardware_of(site, panels)
+    for p, model, h in zip(panels, site.panels, gear, strict=True):
+        p.hardware = h
+        front, back, basis = zones[p.mark]
+        p.zone = FallZone(front_ft=front, back_ft=back, basis=basis)
+        f = model.footing
+        p.footing_ft = None if f is None else (f.width, f.thickness)
+        p.released_by = signed.get((p.mark, released[p.mark])) if p.mark in released else None
+
+
+def rules_used(site: Site) -> dict[str, RuleUsed]:
+    """Every rule of the site (the defaults, then its own) as the check applied it."""
+    return {name: RuleUsed(value=r.value, enabled=r.enabled, source=r.source, basis=r.basis)
+            for name in dict.fromkeys([*DEFAULT_RULES, *site.rules]) for r in [site.rule(name)]}
+
+
 def evaluate_walls(site: Site, marks: set[str]) -> list[PanelResult]:
     """The wall checks of `marks` alone, fast: the walls and those on the same wall lines (they
     load each other), without the days and the plan findings (`evaluate` gives those).
@@ -158,7 +191,9 @@ def evaluate_walls(site: Site, marks: set[str]) -> list[PanelResult]:
         "panels": keep, "signoffs": [s for s in site.signoffs if s.panel in kept]})
     places = plan.place(sub)
     e = evaluate_arrays(sub, plan.foot_edge_distances_in(sub, places) if places else {})
-    return [p for p in Results(sub, e).panels() if p.mark in marks]
+    panels = Results(sub, e).panels()
+    _for_views(sub, places, panels, [])  # no days: no release named
+    return [p for p in panels if p.mark in marks]
 
 
 def _masonry_over_limit(site: Site, p) -> bool:

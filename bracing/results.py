@@ -205,6 +205,36 @@ class UnbracedResult:
     max_height_structural_ft: float | None = None  # before a rule's cap (OSHA 8 ft masonry)
 
 
+@dataclass(frozen=True, slots=True)
+class FallZone:
+    """A wall's fall zone (design.md §7): reach out from its braced face and back behind it."""
+
+    front_ft: float
+    back_ft: float
+    basis: str
+
+
+@dataclass(frozen=True, slots=True)
+class RuleUsed:
+    """A site rule as the check applied it: value, in force, source and basis."""
+
+    value: float | None
+    enabled: bool
+    source: str
+    basis: str
+
+
+@dataclass(frozen=True, slots=True)
+class Hardware:
+    """What one wall's bracing uses: brace type, anchor types and the brace count (None: not
+    named)."""
+
+    brace_type: str | None
+    wall_anchor: str | None
+    foot_anchor: str | None
+    count: int
+
+
 @dataclass(slots=True)
 class PanelResult:
     """Everything the engine found for one wall.
@@ -263,6 +293,15 @@ class PanelResult:
     unknown : dict of str to str
         The wall's values that are not known, by field name ("braces.utilization" for a key of
         `braces`), with why; empty when every value is known.
+    hardware : Hardware or None
+        Its brace type, wall and foot anchors and brace count as the views show them (from
+        `braces` where it names them, else the site file's bracing); None: none named.
+    zone : FallZone or None
+        Its fall zone (design.md §7), ft, with its basis; None only outside `evaluate`.
+    footing_ft : (float, float) or None
+        Its footing's width and thickness, ft; None: no footing.
+    released_by : str or None
+        Who signed off its release, on its release day; None: not released.
     """
 
     mark: str
@@ -288,6 +327,12 @@ class PanelResult:
     # the values of this wall that are not known (NaN, or None in `braces`), by field name
     # ("braces.utilization" for a key of `braces`), with why: see the class's glossary
     unknown: dict[str, str] = field(default_factory=dict)
+    # what the views show beside the checks, put here by `evaluate` (views compute nothing and
+    # read no site file): the gear, the fall zone, the footing, who signed off the release
+    hardware: Hardware | None = None  # None: no brace or anchor type named
+    zone: FallZone | None = None
+    footing_ft: tuple[float, float] | None = None  # (width, thickness); None: no footing
+    released_by: str | None = None  # the engineer whose sign-off released it
 
     def speeds_on(self, fresh: bool) -> tuple[float, float, dict]:
         """(stand-down, working limit, sustained equivalents of the stand-down) as they apply
@@ -459,6 +504,14 @@ class SiteResult:
         Findings of the site as a whole.
     not_checked : list of NotChecked
         What the check leaves out.
+    rules : dict of str to RuleUsed
+        Every site rule as the check applied it (the defaults, then the site's own).
+    on_hand : dict
+        {"braces": {type: n or None}, "anchors": {type: n or None}}: the numbers on hand the
+        site file gives (None: not given).
+    together : DayResult or None
+        Every wall standing together as day 0, for a site file that gives no lift days (then
+        `days` is empty); None otherwise.
     """
 
     name: str
@@ -473,6 +526,12 @@ class SiteResult:
     not_checked: list[NotChecked] = field(default_factory=list)  # what the check leaves out
     # bracing.foundation_results.FoundationWallResult of each foundation wall (method notes §12)
     foundation_walls: list = field(default_factory=list)
+    # for the views, not in the JSON record: the site's rules as applied, the number on hand
+    # of each brace and anchor type ({"braces": {type: n or None}, "anchors": ...}), and every
+    # wall standing together as day 0 when the site file gives no lift days (`days` is empty)
+    rules: dict[str, RuleUsed] = field(default_factory=dict)
+    on_hand: dict[str, dict[str, int | None]] = field(default_factory=dict)
+    together: DayResult | None = None
 
     def worst_first(self) -> list[PanelResult]:
         return sorted(self.panels, key=lambda p: (STATUS_ORDER.index(p.status), -p.utilization))

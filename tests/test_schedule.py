@@ -155,7 +155,8 @@ def tiny_result(tmp_path, toml=TINY_TOML, wx=WX_CSV):
     site = parse(toml, "site.toml").site
     (tmp_path / "wx.csv").write_text(wx, encoding="utf-8")
     result = evaluate(site, base_dir=tmp_path)
-    days, peak, wall_flags = schedule.build_days(site, result.panels, tmp_path)
+    days, peak, wall_flags = schedule.build_days(
+        site, result.panels, schedule.site_forecast(site, tmp_path))
     assert [d.standing for d in days] == [d.standing for d in result.days]
     assert peak == result.peak_inventory
     return site, result, wall_flags
@@ -364,14 +365,15 @@ def test_forecast_file_missing_is_an_error_naming_it(tmp_path):
     site = parse(TINY_TOML).site
     panels = evaluate(no_forecast()).panels
     with pytest.raises(SiteFileError, match="elsewhere/wx.csv: cannot read the forecast file"):
-        schedule.build_days(site, panels, tmp_path / "elsewhere")
+        schedule.build_days(site, panels, schedule.site_forecast(site, tmp_path / "elsewhere"))
 
 
 def test_forecast_path_is_relative_to_the_site_folder(tmp_path):
     """The same site read from another working folder finds its forecast beside it."""
     write_tiny(tmp_path)
     site = parse(TINY_TOML).site
-    days, _, _ = schedule.build_days(site, evaluate(no_forecast()).panels, tmp_path)
+    days, _, _ = schedule.build_days(site, evaluate(no_forecast()).panels,
+                                     schedule.site_forecast(site, tmp_path))
     assert days[0].forecast_gust_mph == 20.0
 
 
@@ -520,3 +522,31 @@ def test_fresh_mortar_speeds_are_only_for_masonry(tiny):
     _, result, _ = tiny
     for p in result.panels:
         assert (p.fresh_stand_down_speed_mph is None) == (p.material != "masonry")
+
+
+# --- the days' extension point ------------------------------------------------------------------
+def test_a_day_rule_adds_its_flags_and_the_verdict_weighs_them(tmp_path, monkeypatch):
+    """A new check of the days is one function in `bracing.schedule.days.DAY_RULES`: its flags
+    go on the day, and `judge` weighs them unchanged (method notes §6, Day verdict; a team
+    rule, no published source): a danger naming a wall lifted that day holds that lift, one
+    naming no wall makes the day NO-GO. Day 1 of the tiny site is GO without it."""
+    from bracing.results import Flag
+    from bracing.schedule import days as days_module
+
+    _, result, _ = tiny_result(tmp_path)
+    assert result.days[0].verdict == "GO" and result.days[0].lifts == ["A"]
+
+    def held(job, today):
+        if today.day != 1:
+            return []
+        return [Flag("held-wall", "danger", "A: held by the test", "the test"),
+                Flag("held-day", "danger", "the day is held by the test", "the test")]
+
+    monkeypatch.setattr(days_module, "DAY_RULES", [*days_module.DAY_RULES, held])
+    _, result, _ = tiny_result(tmp_path)
+    d = result.days[0]
+    assert [f.code for f in d.flags][-2:] == ["held-wall", "held-day"]
+    assert d.verdict == "NO-GO" and d.do_not_lift == ["A"]
+    assert "the day is held by the test" in d.reason
+    assert any(f.code == "held-wall" and f.marks == ["A"] and f.message == "held by the test"
+               for f in d.why)

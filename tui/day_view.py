@@ -185,11 +185,11 @@ class DayView(RedrawsForTheDay, Vertical):
                              for name, n in peak.get(k, {}).items())
             out.append(f"\nMost in use on any day of the job: {most}")
         summary.update(out)
-        site = self.site_file.site if self.site_file is not None else None
-        for kind, used, stock in (("brace", d.braces_in_use, site and site.brace_types),
-                                  ("anchor", d.anchors_in_use, site and site.anchor_types)):
+        hand = self.result.on_hand
+        for kind, used, stock in (("brace", d.braces_in_use, hand.get("braces", {})),
+                                  ("anchor", d.anchors_in_use, hand.get("anchors", {}))):
             for name, n in used.items():
-                on_hand = stock[name].on_hand if stock and name in stock else None
+                on_hand = stock.get(name)
                 short = shortage(d, kind, name)
                 table.add_row(*plain(name, kind, str(n), "-" if on_hand is None else str(on_hand),
                                      Text(f"✗ {short} short", style="bold red") if short

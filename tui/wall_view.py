@@ -277,10 +277,8 @@ class WallView(DrawnWhenShown, Horizontal):
         if self.site_file is not None:
             i = panel_index(self.site_file, p.mark)
             model = self.site_file.site.panels[i] if i is not None else None
-        footing = (model.footing.width, model.footing.thickness) \
-            if model is not None and model.footing is not None else None
         b = p.braces
-        section = drawing.section(p.height_ft, p.thickness_in, b, footing,
+        section = drawing.section(p.height_ft, p.thickness_in, b, p.footing_ft,
                                   p.wind.resultant_height_ft, self.units)
         show_text(self.query_one("#wall-section", Static), "\n".join(section))
         self.query_one(BraceElevation).draw(p, model, self.units)

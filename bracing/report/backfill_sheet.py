@@ -129,15 +129,17 @@ def wall_lines(result, system: str = "us") -> list[str]:
              f"top of the footing; {SOURCE})"]
     for w in walls:
         held = "inside braces" if w.inside_brace is not None else "cantilever"
-        lines += ["", f"{w.mark}  {w.material.replace('_', ' ')}  {fmt(w.height_ft, 'ft', system, 1)}"
-                  f" tall x {fmt(w.thickness_in, 'in', system, 2)}: "
+        lines += ["", f"{w.mark}  {w.material.replace('_', ' ')}  "
+                  f"{fmt(w.height_ft, 'ft', system, 1)} tall x "
+                  f"{fmt(w.thickness_in, 'in', system, 2)}: "
                   f"{'FAILS' if w.fails else 'passes'} (utilization {w.utilization:.2f}, {held})",
                   f"  planned {fmt(w.planned_height_ft, 'ft', system, 1)}"
                   + (f" (day {w.planned_day})" if w.planned_day is not None else "")
                   + f"; most before the floor as a cantilever "
                   f"{fmt(w.max_height_ft, 'ft', system, 1)}"
                   + ("" if w.inside_brace is None else
-                     f", with its inside braces {fmt(w.inside_brace.max_height_ft, 'ft', system, 1)}")]
+                     ", with its inside braces "
+                     f"{fmt(w.inside_brace.max_height_ft, 'ft', system, 1)}")]
         days = day_runs(w.days, system)
         if days:
             lines.append("  by day (planned of allowed): " + "; ".join(days))

@@ -1,30 +1,25 @@
 """The crew's brace schedule of a day (design.md §1, §7): HTML for print, CSV and plain text.
 
-Every value comes from the result object (walls, days, zones); this module only picks and
-formats them. Each day is one page: the caution at its top and bottom, the declared basis, the
-wind go / no-go, lifts and releases, the brace schedule of the walls standing, the walls standing
-without braces, the inventory, the plan and a section sketch of each braced wall. Pass or fail is
-shown by a symbol and a word as well as colour.
+Every value comes from the result object (walls, days, zones, gear, rules, the numbers on
+hand); this module only picks and formats them, and reads no site file. Each day is one page:
+the caution at its top and bottom, the declared basis, the wind go / no-go, lifts and releases,
+the brace schedule of the walls standing, the walls standing without braces, the inventory, the
+plan and a section sketch of each braced wall. Pass or fail is shown by a symbol and a word as
+well as colour. The three formats are in `schedule_formats`.
 """
 
 from __future__ import annotations
 
-import csv
-import io
 from dataclasses import dataclass, field
-from pathlib import Path
 
-from jinja2 import Environment, FileSystemLoader, select_autoescape
 from markupsafe import Markup
 
-from bracing import schedule
 from bracing.model import Site
 from bracing.report import backfill_sheet
-from bracing.report.text import SI_PRECISION, WIDTH, fmt, localize, wrap
+from bracing.report.schedule_formats import csv_text, html, number, plain_text
+from bracing.report.text import fmt, localize
 from bracing.results import DayResult, PanelResult, SiteResult
-from bracing.units import convert
 
-TEMPLATES = Path(__file__).with_name("templates")
 STATUS_SYMBOL = {"unsafe": "✖", "needs_braces": "▲", "braced": "✔", "stands": "○"}
 STATUS_WORD = {"unsafe": "UNSAFE", "needs_braces": "NEEDS BRACES", "braced": "braced",
                "stands": "stands"}
@@ -32,8 +27,6 @@ FLAG_SYMBOL = {"danger": "✖", "warning": "▲", "notice": "•"}
 VERDICT_LOOK = {"GO": ("✔", "GO", "go"), "GO WITH EXCEPTIONS": ("▲", "GO WITH EXCEPTIONS",
                                                                "except"),
                 "NO-GO": ("✖", "NO-GO", "nogo"), "NO CALL": ("?", "NO CALL", "none")}
-ASCII = str.maketrans({"·": "-", "²": "^2", "³": "^3", "✔": "ok", "✖": "X", "▲": "!",
-                       "○": "-", "•": "-", "—": "-"})
 DAY_RULES = ("stand_down_ratio",)
 MASONRY_RULES = ("masonry_initial_speed_mph", "masonry_intermediate_speed_mph",
                  "masonry_zone_extra_ft")
@@ -122,13 +115,13 @@ def pick_days(site: Site, result: SiteResult, day: int | None) -> list[DayResult
     """The days to print: one, every day with a wall standing, lifted or released, or day 0 (the
     whole site together) when the site file gives no lift days."""
     if not result.days:
-        if any(p.lift_day is not None for p in site.panels):
-            raise ValueError("the result has no days: fill SiteResult.days with "
-                             "bracing.schedule.build_days")
+        if any(p.lift_day is not None for p in site.panels) or result.together is None:
+            raise ValueError("the result has no days: give the result of "
+                             "bracing.evaluate.evaluate for this site")
         if day is not None:
             raise NoSuchDay(f"day {day}: the site file gives no lift days (leave out --day for "
                             "the sheet of every wall)")
-        return [schedule.whole_site(site, result.panels)]
+        return [result.together]
     if day is None:
         return [d for d in result.days if d.standing or d.lifts or d.released
                 or backfill_sheet.rows(result, d.day)]  # or a foundation wall to backfill
@@ -141,11 +134,9 @@ def pick_days(site: Site, result: SiteResult, day: int | None) -> list[DayResult
 
 def build_pages(site: Site, result: SiteResult, day: int | None, units: str,
                 pictures: bool = False) -> list[Page]:
-    """The formatted pages of the days asked for (pictures: the plan and section SVGs)."""
+    """The formatted pages of the days asked for (pictures: the plan and section SVGs); `site`
+    is the site `result` is of (it must have its days)."""
     days = pick_days(site, result, day)
-    marks = {m for d in days for m in d.standing + d.released}
-    zones = schedule.fall_zones(site, [p for p in result.panels if p.mark in marks])
-    bracing = {p.mark: p.bracing for p in site.panels}
     svg = _svg() if pictures else None
     by_mark = {p.mark: p for p in result.panels}
     sections: dict[str, Markup] = {}
@@ -158,7 +149,7 @@ def build_pages(site: Site, result: SiteResult, day: int | None, units: str,
     pages = []
     for d in days:
         walls = [by_mark[m] for m in d.standing + d.released]
-        rows = [_row(site, p, bracing[p.mark], d, zones[p.mark], units) for p in walls]
+        rows = [_row(p, d, units) for p in walls]
         page = Page(
             day=d, title=_title(result, d), go=VERDICT_LOOK[d.verdict], reason=d.reason,
             forecast=_forecast(d, units),
@@ -166,13 +157,13 @@ def build_pages(site: Site, result: SiteResult, day: int | None, units: str,
                         if d.governing_wall else "none"),
             sustained=_sustained(result, d, units),
             working_limit=_speed(d.working_limit_speed_mph, units),
-            lifts=d.lifts, releases=[_release(site, m, d.day) for m in d.released],
+            lifts=d.lifts, releases=[_release(by_mark[m]) for m in d.released],
             verdict=headline(d, units), why=grouped(d.why), actions=actions(d, units),
             flags=grouped(d.findings), walls=rows, lifted=[r for r in rows if r.today ==
                                                             "lifted today"],
             rows=[r for r in rows if r.braced],
-            unbraced=[r for r in rows if not r.braced], inventory=_inventory(site, d),
-            rules=_rules(site, walls), backfill=backfill_sheet.rows(result, d.day, units))
+            unbraced=[r for r in rows if not r.braced], inventory=_inventory(result, d),
+            rules=_rules(result, walls), backfill=backfill_sheet.rows(result, d.day, units))
         if svg is not None:
             page.backfill_sketches = [(m, _inline(drawing)) for m, drawing
                                       in backfill_sheet.sketches(site, result, d.day, units)]
@@ -226,9 +217,9 @@ def _sustained(result: SiteResult, d: DayResult, units: str) -> str:
                                                                           "10-min") if name in eq)
 
 
-def _release(site: Site, mark: str, day: int) -> str:
-    by = next((s.by for s in site.signoffs if s.panel == mark and s.day == day), "")
-    return f"{mark} (signed off by {by}: braces off after the sign-off)" if by else mark
+def _release(p: PanelResult) -> str:
+    by = p.released_by
+    return f"{p.mark} (signed off by {by}: braces off after the sign-off)" if by else p.mark
 
 
 def headline(d: DayResult, units: str = "us") -> str:
@@ -285,9 +276,9 @@ def grouped(found) -> list[tuple[str, str, str, str, str]]:
     return out
 
 
-def _row(site: Site, p: PanelResult, bracing, d: DayResult, zone: tuple, units: str) -> Row:
+def _row(p: PanelResult, d: DayResult, units: str) -> Row:
     """One wall's line of the sheet: where its braces go, with what, and its zone."""
-    front, back, _ = zone
+    front, back = p.zone.front_ft, p.zone.back_ft
     today = "lifted today" if p.mark in d.lifts else ""
     today = "released today" if p.mark in d.released else today
     stand_down, _, sustained = p.speeds_on(p.mark in d.fresh_mortar)  # fresh mortar today?
@@ -297,14 +288,14 @@ def _row(site: Site, p: PanelResult, bracing, d: DayResult, zone: tuple, units: 
               zone_front=fmt(front, "ft", units, 1), zone_back=fmt(back, "ft", units, 1),
               hold=p.mark in d.do_not_lift,
               zone_word="limited access zone" if p.material == "masonry" else "zone")
-    row.numbers = {"stand_down": _number(stand_down, "mph", units),
-                   "sustained": _number(sustained.get("1-min"), "mph", units),
-                   "zone_front": _number(front, "ft", units, 1),
-                   "zone_back": _number(back, "ft", units, 1)}
+    row.numbers = {"stand_down": number(stand_down, "mph", units),
+                   "sustained": number(sustained.get("1-min"), "mph", units),
+                   "zone_front": number(front, "ft", units, 1),
+                   "zone_back": number(back, "ft", units, 1)}
     if not p.braces:
         return row
     b = p.braces
-    gear = schedule.hardware(bracing, p)
+    gear = p.hardware
     positions = b.get("positions_ft", [])
     row.count = str(b["count"])
     row.positions = ", ".join(fmt(x, "ft", units, 1) for x in positions)
@@ -324,39 +315,22 @@ def _row(site: Site, p: PanelResult, bracing, d: DayResult, zone: tuple, units: 
     row.struck = _speed(b.get("working_limit_one_missing_mph"), units)
     row.numbers.update(
         count=b["count"],
-        positions="; ".join(str(_number(x, "ft", units, 1)) for x in positions),
-        insert=_number(b["insert_height_ft"], "ft", units, 1),
-        anchor_distance=_number(b["anchor_distance_ft"], "ft", units, 1),
-        length=_number(b["length_ft"], "ft", units, 2),
+        positions="; ".join(str(number(x, "ft", units, 1)) for x in positions),
+        insert=number(b["insert_height_ft"], "ft", units, 1),
+        anchor_distance=number(b["anchor_distance_ft"], "ft", units, 1),
+        length=number(b["length_ft"], "ft", units, 2),
         angle=round(b["angle_deg"], 1),
-        torque="" if torque is None else _number(torque, "ft*lbf", units),
-        struck=_number(b.get("working_limit_one_missing_mph"), "mph", units))
+        torque="" if torque is None else number(torque, "ft*lbf", units),
+        struck=number(b.get("working_limit_one_missing_mph"), "mph", units))
     return row
 
 
-def _number(value: float | None, unit: str, units: str, digits: int = 0):
-    """A plain number in the chosen units for a spreadsheet cell ('' when there is none)."""
-    if value is None:
-        return ""
-    shown, label = convert(value, unit, units)
-    if units == "si" and label in SI_PRECISION:
-        digits, step = SI_PRECISION[label]
-        if step:
-            shown = step * round(shown / step)
-    return round(shown, digits) if digits else round(shown)
-
-
-def _label(unit: str, units: str) -> str:
-    return convert(1.0, unit, units)[1].translate(ASCII)
-
-
-def _inventory(site: Site, d: DayResult) -> list[tuple[str, str, str, str, str]]:
+def _inventory(result: SiteResult, d: DayResult) -> list[tuple[str, str, str, str, str]]:
     """Braces and anchors in use by type against the number on hand, short ones marked."""
     rows = []
-    for kind, used, types in (("braces", d.braces_in_use, site.brace_types),
-                              ("anchors", d.anchors_in_use, site.anchor_types)):
+    for kind, used in (("braces", d.braces_in_use), ("anchors", d.anchors_in_use)):
         for name, n in sorted(used.items()):
-            on_hand = types[name].on_hand if name in types else None
+            on_hand = result.on_hand.get(kind, {}).get(name)
             short = d.short.get(kind, {}).get(name)
             rows.append((kind[:-1], name, str(n), "not given" if on_hand is None else
                          str(on_hand), f"✖ SHORT {short}" if short else "✔ ok"))
@@ -367,143 +341,15 @@ def _inventory(site: Site, d: DayResult) -> list[tuple[str, str, str, str, str]]
 RULE_UNITS = {"_mph": " mph", "_ft": " ft", "_psf": " psf", "_deg": " deg", "_days": " days"}
 
 
-def _rules(site: Site, walls: list[PanelResult]) -> list[tuple[str, str, str, str]]:
+def _rules(result: SiteResult, walls: list[PanelResult]) -> list[tuple[str, str, str, str]]:
     """The site rules behind the day's speeds and zones: value, source and basis (§7)."""
     names = list(DAY_RULES)
     if any(p.material == "masonry" for p in walls):
         names += MASONRY_RULES
     out = []
     for name in names:
-        r = site.rule(name)
+        r = result.rules[name]
         unit = next((u for suffix, u in RULE_UNITS.items() if name.endswith(suffix)), "")
         value = "off" if not r.enabled or r.value is None else f"{r.value:g}{unit}"
         out.append((name, value, r.source, r.basis))
     return out
-
-
-# --- the three formats -------------------------------------------------------------------------
-def html(result: SiteResult, pages: list[Page], units: str = "us") -> str:
-    """The sheets as one HTML document for print, in the chosen units."""
-    env = Environment(loader=FileSystemLoader(TEMPLATES), autoescape=select_autoescape(
-        ["html", "j2"]), trim_blocks=True, lstrip_blocks=True)
-    caution = (result.caution.replace("\\", "\\\\").replace('"', '\\"')
-               .replace("<", "\\3C ").replace("\n", " "))  # a CSS string
-    return localize(env.get_template("schedule.html.j2").render(
-        result=result, pages=pages, caution_css=Markup(f'"{caution}"'),
-        inspection=INSPECTION, inspection_basis=INSPECTION_BASIS, approval=APPROVAL), units)
-
-
-CSV_COLUMNS = (
-    ("day", None), ("date", None), ("go", None), ("forecast gust", "mph"),
-    ("day stand-down gust", "mph"), ("wall", None), ("status", None), ("today", None),
-    ("braces", None), ("positions from first edge", "ft"), ("insert height", "ft"),
-    ("anchor distance from face", "ft"), ("brace length", "ft"), ("brace angle", "deg"),
-    ("brace type", None), ("wall anchor", None), ("foot anchor", None),
-    ("helical torque", "ft*lbf"), ("wall stand-down gust", "mph"),
-    ("1-min sustained equivalent", "mph"), ("zone braced side", "ft"), ("zone behind", "ft"),
-    ("working limit with one brace struck", "mph"),
-)
-
-
-def csv_text(result: SiteResult, pages: list[Page], units: str) -> str:
-    """The header row first, one row per standing wall per day, then the caution in a last
-    row of its own that starts with '#' (a spreadsheet keeps the header; a reader of data can
-    skip it as a comment)."""
-    out = io.StringIO()
-    w = csv.writer(out)
-    w.writerow([f"{name} ({unit if unit == 'deg' else _label(unit, units)})" if unit else name
-                for name, unit in CSV_COLUMNS])
-    for page in pages:
-        d = page.day
-        for r in page.walls:
-            n = r.numbers
-            w.writerow([
-                d.day, d.date or "", d.verdict, _number(d.forecast_gust_mph, "mph", units),
-                _number(d.stand_down_speed_mph, "mph", units), r.mark,
-                f"{r.word} {r.symbol}".translate(ASCII), r.today, n.get("count", ""),
-                n.get("positions", ""), n.get("insert", ""), n.get("anchor_distance", ""),
-                n.get("length", ""), n.get("angle", ""), r.brace_type, r.wall_anchor,
-                r.foot_anchor, n.get("torque", ""), n["stand_down"], n["sustained"],
-                n["zone_front"], n["zone_back"], n.get("struck", "")])
-    w.writerow([f"# {result.caution}"])
-    return out.getvalue()
-
-
-def plain_text(result: SiteResult, pages: list[Page], units: str = "us") -> str:
-    """The same sheets as plain text, each at most WIDTH columns: the verdict first, then the
-    caution, the lifts with their braces, the walls standing and their zones, the releases,
-    the findings once each, inventory, rules, the daily inspection and the approval block."""
-    out = []
-    for page in pages:
-        lines = [page.verdict]
-        lines += [f"  {sym} {sev}: {walls}: {msg} [{src}]" if walls else
-                  f"  {sym} {sev}: {msg} [{src}]" for sym, sev, walls, msg, src in page.why]
-        lines += [f"  {a}" for a in page.actions]
-        lines += [f"  Forecast {page.forecast}; stand-down gust {page.stand_down}; working "
-                  f"limit {page.working_limit}",
-                  f"  Stand-down as sustained wind: {page.sustained or 'none'}",
-                  "", result.caution, "", page.title,
-                  *(f"  {s}" for s in result.basis_statement)]
-        lines += ["", f"LIFTS TODAY ({len(page.lifted)})"]
-        lines += [x for r in page.lifted for x in _wall_lines(r)] or ["  none"]
-        lines += [""] + backfill_sheet.text_lines(page.backfill) if page.backfill else []
-        lines += ["", "RELEASES TODAY"] + [f"  {r}" for r in page.releases] or ["  none"]
-        if not page.releases:
-            lines.append("  none")
-        lines += ["", f"WALLS STANDING ({len(page.walls)}) AND THEIR ZONES"]
-        lines += [x for r in page.walls if r.today != "lifted today"
-                  for x in _wall_lines(r, full=False)] \
-            or ["  none besides today's lifts"]
-        lines += ["", "FINDINGS (each once; walls that share one on one line)"]
-        lines += [f"  {sym} {sev}: {walls}: {msg} [{src}]" if walls else
-                  f"  {sym} {sev}: {msg} [{src}]" for sym, sev, walls, msg, src in page.flags] \
-            or ["  none"]
-        lines += ["", "INVENTORY (type: in use / on hand)"]
-        lines += [f"  {kind} {name}: {n} / {hand}  {short}"
-                  for kind, name, n, hand, short in page.inventory] or ["  none in use"]
-        lines += ["", "RULES"] + [f"  {name} = {value} ({source}; {basis})"
-                                  for name, value, source, basis in page.rules]
-        lines += ["", f"DAILY INSPECTION ({INSPECTION_BASIS})"]
-        lines += [f"  [ ] {item}" for item in INSPECTION]
-        lines += ["", "APPROVED BY THE QUALIFIED PERSON (fill in before work starts)"]
-        lines += [f"  {label}: {'_' * 40}" for label in APPROVAL]
-        lines += ["", result.caution]
-        out.append("\n".join(wrap(localize(line, units)) for line in lines))
-        if page is not pages[-1]:
-            out.append("=" * WIDTH)
-    return "\n".join(out) + "\n"
-
-
-INSPECTION_BASIS = "common practice"
-INSPECTION = (
-    "Every brace in place, as listed: count, insert height and foot distance.",
-    "Brace pins, bolts and locking collars in place and tight; no bent or damaged brace.",
-    "Wall inserts and foot anchors tight, no cracking or pull-out at the slab or ground.",
-    "Helical anchors: torque as listed; stakes and deadmen not moved or undermined.",
-    "Zones marked and kept clear; no equipment or stored material against the braces.",
-    "After a gust above the stand-down gust, a struck brace or a night: inspect all again.",
-)
-APPROVAL = ("Name", "License number", "Date", "Signature")
-
-
-def _wall_lines(r: Row, full: bool = True) -> list[str]:
-    """One wall on the text sheet: its braces as the crew sets them (in brief unless `full`),
-    its speeds and zone."""
-    head = f"  {r.mark}  {r.symbol} {r.word}" + (f" ({r.today})" if r.today else "")
-    if r.hold:
-        head += "  ✖ DO NOT LIFT TODAY"
-    lines = [head]
-    if r.braced and not full:
-        head += f"  {r.count} braces {r.brace_type}, insert {r.insert}, foot {r.anchor_distance}"
-        lines = [head]
-    elif r.braced:
-        lines += [f"      {r.count} braces {r.brace_type} at {r.positions} from the first edge; "
-                  f"insert {r.insert}, foot {r.anchor_distance} from the face, length "
-                  f"{r.length}, {r.angle}",
-                  f"      check: {r.to_check}"]
-    speeds = f"stand-down {r.stand_down} (1-min mean {r.sustained})"
-    if r.braced:
-        speeds += f"; one brace struck {r.struck}"
-    lines.append(f"      {speeds}; {r.zone_word} {r.zone_front} braced side, {r.zone_back} "
-                 "behind")
-    return lines

@@ -168,8 +168,8 @@ def brace_lines(b: dict, system: str) -> list[str]:
         f"{fmt(b['anchor_distance_ft'], 'ft', system, 2)} from the face, angle "
         f"{b['angle_deg']:.1f} deg, length {fmt(b['length_ft'], 'ft', system, 2)}",
         f"  governing brace force {fmt(b['axial_force_lb'], 'lbf', system)} (anchor uplift "
-        f"{fmt(b['anchor_uplift_lb'], 'lbf', system)}, pull {fmt(b['anchor_shear_lb'], 'lbf', system)});"
-        f" working limit with one brace struck "
+        f"{fmt(b['anchor_uplift_lb'], 'lbf', system)}, pull "
+        f"{fmt(b['anchor_shear_lb'], 'lbf', system)}); working limit with one brace struck "
         f"{fmt(b.get('working_limit_one_missing_mph'), 'mph', system)}",
     ]
     if b.get("installation_torque_ftlb"):

@@ -216,6 +216,7 @@ class Results:
                        flags=self.flags(),
                        governing_element=self._in_site_order(alone.governing, found.governing),
                        braces=self._in_site_order([None] * len(self.alone), self.records),
+                       hardware=None, zone=None, footing_ft=None, released_by=None,  # evaluate's
                        **self.columns)
         for p in made:  # a braced wall whose brace capacity is not known says so
             if p.braces is not None and p.braces["utilization"] is None:

@@ -81,7 +81,8 @@ def backfill_section_svg(sketch: BackfillSketch, standalone: bool = False, *,
                         (fr.xw + t * fr.k / 2, fr.y(s.wall_height_ft) - 1.5), bold=False))
     if s.footing_width_ft is not None:
         labels.append(Label("footing", say(f"footing {round(s.footing_width_ft, 2):g} x "
-                                           f"{round(s.footing_thickness_ft, 2):g} ft"), LEAST_TEXT_MM,
+                                           f"{round(s.footing_thickness_ft, 2):g} ft"),
+                            LEAST_TEXT_MM,
                             (fr.xw, fr.yb + s.footing_thickness_ft * fr.k / 2), bold=False))
     items += _dim_v(DIM_X_MM, fr.yb, fr.y(s.wall_height_ft), say(f"wall {s.wall_height_ft:g} ft"))
     frame = (DIM_X_MM + 2.0, y + 0.5, ELEVATION_MM - 0.5, bottom + 7.0)
@@ -183,7 +184,8 @@ def _diagram(s, fr: _Frame, x0: float, drawn: list, labels: list, say) -> list[s
     edge = [(x0 + mm * (a + b + c), y) for y, a, b, c in rows]
     outline = [(x0, rows[0][0]), *edge, (x0, rows[-1][0])]
     drawn.append((Polygon(outline), 1.0))
-    out = [f'<polygon class="pressure" points="{" ".join(f"{num(x)},{num(y)}" for x, y in outline)}"'
+    points = " ".join(f"{num(x)},{num(y)}" for x, y in outline)
+    out = [f'<polygon class="pressure" points="{points}"'
            f' fill="{PRESSURE}" fill-opacity="0.22" stroke="{PRESSURE}" stroke-width="0.35"/>']
     top, base = rows[0], rows[-1]
     if base[1] > 0.0:  # the surcharge's rectangle
@@ -215,7 +217,8 @@ def _diagram(s, fr: _Frame, x0: float, drawn: list, labels: list, say) -> list[s
                f'<polygon points="{num(x0 + 0.2)},{num(ya)} {num(x0 + 2.0)},{num(ya - 0.9)} '
                f'{num(x0 + 2.0)},{num(ya + 0.9)}" stroke="none"/></g>')
     labels.insert(0, Label("resultant", say(f"P {say.q(s.resultant_plf, 'plf')} at "
-                                            f"{say.q(s.resultant_height_ft, 'ft', 2)}"), LEAST_TEXT_MM,
+                                            f"{say.q(s.resultant_height_ft, 'ft', 2)}"),
+                           LEAST_TEXT_MM,
                            (tail + 0.5, ya)))
     return out
 

@@ -338,7 +338,8 @@ def plan_layers(g, fr: Frame, numbered) -> list[str]:
     """The plan in the frame, bottom to top: ground and slab, areas, zones, wall lines, walls,
     braces and anchors, the keep-out areas again, the finding symbols."""
     return fr.group(_ground_and_slab(g, fr) + _areas(g, fr) + _zones(g, fr) + _lines(g, fr)
-                    + _walls(g, fr) + foundation_items(g, fr) + _braces(g, fr) + _keep_out_on_top(g, fr)
+                    + _walls(g, fr) + foundation_items(g, fr) + _braces(g, fr)
+                    + _keep_out_on_top(g, fr)
                     + _finding_marks(numbered, fr))
 
 
