@@ -19,6 +19,9 @@ FORMULA_MODULES = [
     "bracing.braces",
     "bracing.members",
     "bracing.anchors",
+    "bracing.anchor_factors",
+    "bracing.anchor_tension",
+    "bracing.anchor_shear",
     "bracing.ground_anchors",
     "bracing.backfill",
 ]
