@@ -40,6 +40,7 @@ from bracing.anchor_tension import (
     steel_tension,
     tension_breakout,
 )
+
 # helical anchors and deadmen (bracing.ground_anchors), named here as well for the callers
 from bracing.ground_anchors import (
     BEARING_IBC_1806_2_PSF,
