@@ -13,6 +13,8 @@ import pytest
 
 FORMULA_MODULES = [
     "bracing.wind.asce7",
+    "bracing.wind.asce7_cases_ab",
+    "bracing.wind.asce7_case_c",
     "bracing.wind.asce37",
     "bracing.wind.gusts",
     "bracing.stability",
