@@ -28,7 +28,8 @@ FORMULA_MODULES = [
     "bracing.anchor_tension",
     "bracing.anchor_shear",
     "bracing.ground_anchors",
-    "bracing.backfill",
+    "bracing.earth_pressure",
+    "bracing.wall_sections",
 ]
 FLAGS = doctest.ELLIPSIS | doctest.NORMALIZE_WHITESPACE
 
