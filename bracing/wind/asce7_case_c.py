@@ -143,8 +143,7 @@ def case_c_cf(x_over_s, b_over_s, s_over_h, return_ratio=0.0, bins=None, ab=None
     return _case_ab_below_two(local, b, r, ab)  # Case C for B/s >= 2 only
 
 
-def case_c_mean(x0_over_s, x1_over_s, b_over_s, s_over_h, return_ratio=0.0, bins=None,
-                ab=None):
+def case_c_mean(x0_over_s, x1_over_s, b_over_s, s_over_h, return_ratio=0.0, bins=None, ab=None):
     """Mean Case C Cf over [x0, x1] (in s from the windward end) and the load's centroid (in s).
 
     Exact integration of the piecewise-constant regional coefficients: a panel occupying
@@ -183,14 +182,12 @@ def case_c_mean(x0_over_s, x1_over_s, b_over_s, s_over_h, return_ratio=0.0, bins
     >>> round(float(mean), 2), round(float(centroid), 3)
     (2.55, 0.892)
     """
-    x0, x1, b, r, lr = np.broadcast_arrays(*(np.asarray(a, dtype=float) for a in
-                                             (x0_over_s, x1_over_s, b_over_s, s_over_h,
-                                              return_ratio)))
+    x0, x1, b, r, lr = np.broadcast_arrays(*(np.asarray(a, dtype=float) for a in (
+        x0_over_s, x1_over_s, b_over_s, s_over_h, return_ratio)))
     if bins is None:
         bins = case_c_bins(b, r, lr)
     lo, hi = np.minimum(x0, x1), np.maximum(x0, x1)
-    start = np.maximum(lo[..., None], _C_BIN_LO)
-    end = np.minimum(hi[..., None], _C_BIN_HI)
+    start, end = np.maximum(lo[..., None], _C_BIN_LO), np.minimum(hi[..., None], _C_BIN_HI)
     force = bins * np.maximum(end - start, 0.0)  # Cf x length, per region
     total = force.sum(axis=-1)
     moment = (force * 0.5 * (start + end)).sum(axis=-1)
