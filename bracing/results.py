@@ -5,16 +5,34 @@ Views (JSON, text, CSV, HTML/SVG, the terminal interface) format these values; n
 
 from __future__ import annotations
 
-import math
-from dataclasses import asdict, dataclass, field
+from dataclasses import dataclass, field
+
+from bracing.day_results import VERDICTS, DayFinding, DayResult, NotChecked
+from bracing.result_checks import SEVERITIES, Check, Flag
+
+__all__ = [
+    "CAUTION",
+    "SEVERITIES",
+    "STATUSES",
+    "STATUS_ORDER",
+    "VERDICTS",
+    "Check",
+    "DayFinding",
+    "DayResult",
+    "Flag",
+    "NotChecked",
+    "PanelResult",
+    "SiteResult",
+    "UnbracedResult",
+    "WindResult",
+]
+
 
 CAUTION = (
     "CAUTION: a planning aid, not a bracing design. A qualified person must design and approve "
     "the bracing. Follow local codes, the brace and anchor makers' ratings and the site "
     "safety plan."
 )
-
-SEVERITIES = ("danger", "warning", "notice")  # ANSI Z535 signal words, most severe first
 
 STATUSES = {
     "unsafe": "braced, but a check fails",
@@ -23,91 +41,6 @@ STATUSES = {
     "stands": "stands on its own",
 }
 STATUS_ORDER = tuple(STATUSES)  # worst first
-
-
-@dataclass(slots=True)
-class Check:
-    """One limit check: demand against capacity on a named load combination, with its source.
-
-    A check is made only where its capacity is known: a check whose capacity is not known is
-    left out (its element named by a finding or in `SiteResult.not_checked`), so neither value
-    is ever NaN here.
-
-    Attributes
-    ----------
-    element : str
-        What is checked: "brace compression", "foot anchor", "overturning", ...
-    region : str
-        Where: "whole panel", "worst brace", "end zone, per ft", "interior, per ft", ...
-    demand : float
-        The factored load effect, in `unit`, on `combination`.
-    capacity : float
-        The available strength in `unit`: allowable (ASD) or design (LRFD) by the site's basis,
-        or an allowable value under LRFD where only that exists (the combination says so). 0 where
-        there is none (a rated brace outside its table), which fails visibly.
-    unit : str
-        "lb", "lb·ft", "lb/ft", "lb·ft/ft", "psf", or "ratio" (an interaction check: demand is
-        the ratio, capacity 1.0).
-    combination : str
-        The load combination, e.g. "0.6D + 0.6W (ASCE 7-16 §2.4.1)".
-    source : str
-        The published clause or method note the capacity comes from.
-
-    Notes
-    -----
-    `utilization` is demand / capacity, dimensionless; inf (unbounded) where there is demand and
-    no capacity, which JSON writes as null. It passes at <= 1.0.
-    """
-
-    element: str
-    region: str
-    demand: float
-    capacity: float
-    unit: str
-    combination: str
-    source: str
-
-    @property
-    def utilization(self) -> float:
-        """Demand / capacity; infinite when there is demand and no capacity."""
-        if self.capacity > 0:
-            return self.demand / self.capacity
-        return 0.0 if self.demand <= 0 else math.inf
-
-    @property
-    def passes(self) -> bool:
-        return self.utilization <= 1.0
-
-    def as_dict(self) -> dict:
-        return {"element": self.element, "region": self.region, "demand": self.demand,
-                "capacity": self.capacity, "unit": self.unit, "combination": self.combination,
-                "source": self.source, "utilization": _finite(self.utilization),
-                "passes": self.passes}
-
-
-@dataclass(slots=True)
-class Flag:
-    """Something the user must see, with its severity and where the rule comes from.
-
-    Attributes
-    ----------
-    code : str
-        A short stable name, e.g. "outside-rated-range", "no-margin".
-    severity : str
-        One of `SEVERITIES`: "danger", "warning" or "notice" (ANSI Z535 signal words).
-    message : str
-        What it means for the crew, in plain words.
-    source : str
-        The published clause or method note of the rule; "" where there is none.
-    """
-
-    code: str
-    severity: str
-    message: str
-    source: str = ""
-
-    def as_dict(self) -> dict:
-        return asdict(self)
 
 
 @dataclass(slots=True)
@@ -363,122 +296,6 @@ class PanelResult:
 
 
 @dataclass(slots=True)
-class DayFinding:
-    """A finding of a day, listed once: the walls it holds for (none: the day's own).
-
-    Attributes
-    ----------
-    code, severity, message, source : str
-        As in `Flag`.
-    marks : list of str
-        The walls it holds for; empty for a finding of the day itself.
-    """
-
-    code: str
-    severity: str
-    message: str
-    source: str
-    marks: list[str] = field(default_factory=list)
-
-
-VERDICTS = ("GO", "GO WITH EXCEPTIONS", "NO-GO", "NO CALL")  # method notes §6, Day verdict
-
-
-@dataclass(slots=True)
-class DayResult:
-    """One day of the job: lifts, standing walls, inventory in use, the wind go / no-go.
-
-    Attributes
-    ----------
-    day : int
-        Day number, 1 for the first.
-    date : str or None
-        Its date (ISO 8601) where the site gives a start date; None otherwise.
-    lifts, standing, released : list of str
-        Marks of the walls lifted, standing and released from their braces that day.
-    braces_in_use, anchors_in_use : dict of str to int
-        Count in use by type.
-    stand_down_speed_mph, working_limit_speed_mph : float or None
-        The lowest stand-down gust and working limit of the walls standing, mph; None with no
-        wall standing (does not apply) or none known.
-    governing_wall : str or None
-        The wall of that stand-down gust; None as above.
-    forecast_gust_mph : float or None
-        The forecast gust, mph; None without a forecast.
-    storm : bool
-        A thunderstorm is forecast.
-    go, wind_go : bool or None
-        The forecast against the stand-down gust alone; None without a forecast or a wall
-        standing (no call).
-    reason, wind : str
-        That comparison in a sentence.
-    short : dict
-        {"braces": {type: n}, "anchors": {type: n}}: how many more are needed than on hand.
-    flags : list of Flag
-        The day's findings.
-    fresh_mortar : list of str
-        Masonry walls standing with fresh mortar.
-    verdict : str
-        One of `VERDICTS` (method notes §6); `go` is True only for "GO".
-    marginal : bool
-        The forecast is within 10 % of the stand-down gust.
-    do_not_lift, failing_standing : list of str
-        Today's lifts that fail; walls up from earlier days that fail.
-    why, findings : list of DayFinding
-        What makes those walls fail, grouped; the rest, grouped, worst first.
-    """
-
-    day: int
-    date: str | None
-    lifts: list[str]
-    standing: list[str]
-    braces_in_use: dict[str, int]
-    anchors_in_use: dict[str, int]
-    released: list[str]
-    stand_down_speed_mph: float | None
-    working_limit_speed_mph: float | None
-    governing_wall: str | None
-    forecast_gust_mph: float | None
-    storm: bool
-    go: bool | None
-    reason: str
-    short: dict[str, dict[str, int]] = field(default_factory=dict)  # {"braces": {type: n}, ...}
-    flags: list[Flag] = field(default_factory=list)
-    fresh_mortar: list[str] = field(default_factory=list)  # masonry standing with fresh mortar
-    # the day's verdict (bracing.schedule.judge, method notes §6): `go` is True only for "GO"
-    verdict: str = "NO CALL"
-    wind: str = ""  # the forecast against the stand-down gust, in a sentence
-    wind_go: bool | None = None  # that comparison alone (None: no forecast or no wall standing)
-    marginal: bool = False  # forecast within 10 % of the stand-down gust
-    do_not_lift: list[str] = field(default_factory=list)  # today's lifts that fail
-    failing_standing: list[str] = field(default_factory=list)  # walls up before today that fail
-    why: list[DayFinding] = field(default_factory=list)  # what makes those walls fail, grouped
-    findings: list[DayFinding] = field(default_factory=list)  # the rest, grouped, worst first
-
-
-@dataclass(slots=True)
-class NotChecked:
-    """Something the engine did not check for this site, and why: the limits of the check,
-    which a reviewer must see as clearly as its results (method notes §11).
-
-    Attributes
-    ----------
-    item, reason, source : str
-        What is not checked, why, and where the method says so.
-    walls : list of str
-        The walls it concerns; empty: the whole site.
-    """
-
-    item: str
-    reason: str
-    source: str
-    walls: list[str] = field(default_factory=list)  # the walls it concerns; empty: the site
-
-    def as_dict(self) -> dict:
-        return asdict(self)
-
-
-@dataclass(slots=True)
 class SiteResult:
     """The whole site: every wall, worst first on demand, and the declared basis.
 
@@ -550,8 +367,3 @@ class SiteResult:
 
     def panel(self, mark: str) -> PanelResult:
         return next(p for p in self.panels if p.mark == mark)
-
-
-def _finite(x: float) -> float | None:
-    """JSON has no infinity: an unbounded value becomes null."""
-    return None if x is None or not math.isfinite(x) else x

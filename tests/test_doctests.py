@@ -13,14 +13,23 @@ import pytest
 
 FORMULA_MODULES = [
     "bracing.wind.asce7",
+    "bracing.wind.asce7_cases_ab",
+    "bracing.wind.asce7_case_c",
     "bracing.wind.asce37",
     "bracing.wind.gusts",
     "bracing.stability",
     "bracing.braces",
     "bracing.members",
+    "bracing.steel_pipe",
+    "bracing.steel_pipe_bending",
+    "bracing.lumber",
     "bracing.anchors",
+    "bracing.anchor_factors",
+    "bracing.anchor_tension",
+    "bracing.anchor_shear",
     "bracing.ground_anchors",
-    "bracing.backfill",
+    "bracing.earth_pressure",
+    "bracing.wall_sections",
 ]
 FLAGS = doctest.ELLIPSIS | doctest.NORMALIZE_WHITESPACE
 
