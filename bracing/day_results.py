@@ -67,6 +67,9 @@ class DayResult:
         The day's findings.
     fresh_mortar : list of str
         Masonry walls standing with fresh mortar.
+    foundation_standing : list of str
+        Foundation walls standing that day before their top support (as cantilevers or on
+        inside braces); their wind part's stand-down gust counts in the day's lowest.
     verdict : str
         One of `VERDICTS` (method notes §6); `go` is True only for "GO".
     marginal : bool
@@ -103,6 +106,8 @@ class DayResult:
     failing_standing: list[str] = field(default_factory=list)  # walls up before today that fail
     why: list[DayFinding] = field(default_factory=list)  # what makes those walls fail, grouped
     findings: list[DayFinding] = field(default_factory=list)  # the rest, grouped, worst first
+    # foundation walls standing before their top support (method notes §12)
+    foundation_standing: list[str] = field(default_factory=list)
 
 
 @dataclass(slots=True)

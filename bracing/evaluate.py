@@ -91,16 +91,16 @@ def evaluate(site: Site, design: bool = False, base_dir=None,
 
 
 def _backfill_days(days, walls, by_mark: dict) -> None:
-    """Each day's backfill dangers (a wall backfilled above what it may take that day) among
-    the day's findings, its forecast against the foundation walls' stand-down gusts, and the
-    day judged again with them (method notes §6, §12)."""
+    """Each day's foundation walls standing, its backfill dangers (a wall backfilled above what
+    it may take that day) among the day's findings, its forecast against the foundation walls'
+    stand-down gusts, and the day judged again with them (method notes §6, §12)."""
     on_day = foundation.day_flags(walls)
-    windy = {d.day for d in foundation.windy_days(walls, days)}
-    if not on_day and not windy:
+    standing = {d.day for d in foundation.stand_on_days(walls, days)}
+    if not on_day and not standing:
         return
     facts = schedule.wall_facts(by_mark)
     for d in days:
-        if d.day in on_day or d.day in windy:
+        if d.day in on_day or d.day in standing:
             d.flags.extend(on_day.get(d.day, []))
             schedule.judge(d, by_mark, facts)
 

@@ -194,3 +194,35 @@ def test_the_limits_of_the_check_name_the_foundation_walls(basement):
     joint = items["foundation walls: the wall-to-footing joint and the footing's bearing"]
     assert joint == ["FW-S", "FW-E", "FW-N", "FW-W"]
     assert items["inside braces of foundation walls"] == ["FW-W"]
+
+
+def test_a_day_with_only_foundation_walls_standing_is_judged_by_their_wind_part(basement):
+    """Days 1-6 of the demo stand foundation walls only (the framed walls come on day 10).
+    The day's rule (method notes §6, §12): the foundation walls standing before the floor count
+    as standing, their wind part's stand-down gust joins the day's lowest, and a forecast below
+    it is GO (day 1: forecast 22 mph, the demo's forecast file, against FW-N's and FW-S's
+    gusts above 90 mph). Before, such a day read "no walls standing" and made no call."""
+    days = {d.day: d for d in basement.days}
+    one = days[1]
+    assert one.standing == [] and sorted(one.foundation_standing) == ["FW-N", "FW-S"]
+    gusts = {w.mark: x.stand_down_speed_mph for w in basement.foundation_walls
+             for x in w.days if x.day == 1}
+    assert one.stand_down_speed_mph == min(gusts[m] for m in one.foundation_standing)
+    assert one.forecast_gust_mph == 22 and one.verdict == "GO" and one.wind_go is True
+    assert all(days[n].verdict == "GO" for n in range(1, 7))
+
+
+def test_a_forecast_at_a_foundation_wall_s_stand_down_gust_makes_its_day_no_go(tmp_path):
+    """A forecast gust at or above a standing foundation wall's stand-down gust is NO-GO by
+    wind (method notes §12, as for panels, §6): day 1's forecast raised to 120 mph, above every
+    foundation wall's gust on that day (the demo's are below 100 mph)."""
+    path = _edited(tmp_path, lambda doc: None)
+    csv = path.with_name("basement-duplex-forecast.csv")
+    lines = csv.read_text(encoding="utf-8").splitlines()
+    first = lines.index("date,gust_mph,storm") + 1  # day 1's row, after the comment and header
+    lines[first] = ",".join([lines[first].split(",")[0], "120", *lines[first].split(",")[2:]])
+    csv.write_text("\n".join(lines) + "\n", encoding="utf-8")
+    site = scenario.load(path).site
+    day = next(d for d in evaluate(site, base_dir=tmp_path).days if d.day == 1)
+    assert day.forecast_gust_mph == 120 and day.wind_go is False and day.verdict == "NO-GO"
+    assert "foundation wall(s) FW-N" in day.wind or "foundation wall(s) FW-S" in day.wind

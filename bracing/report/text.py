@@ -253,7 +253,10 @@ def day_line(day, system: str = "us") -> str:
     said = f" ({'; '.join(named)})" if named else ""
     return (f"  day {day.day}{f' ({day.date})' if day.date else ''}: {day.verdict}{said}; "
             f"{len(day.lifts)} lift(s), "
-            f"{len(day.standing)} standing; forecast {fmt(day.forecast_gust_mph, 'mph', system)}"
+            f"{len(day.standing)} standing"
+            + (f", {len(day.foundation_standing)} foundation wall(s) before the floor"
+               if day.foundation_standing else "")
+            + f"; forecast {fmt(day.forecast_gust_mph, 'mph', system)}"
             f"{' with a thunderstorm' if day.storm else ''}, stand-down "
             f"{fmt(day.stand_down_speed_mph, 'mph', system)}"
             f"{f' ({day.governing_wall})' if day.governing_wall else ''}")

@@ -166,7 +166,7 @@ def _verdict(d: DayResult) -> None:
         parts.append(f"do not lift {', '.join(d.do_not_lift)}")
     if d.failing_standing or day_danger or d.wind_go is False:
         d.verdict = "NO-GO"
-    elif not d.standing or d.wind_go is None:
+    elif not (d.standing or d.foundation_standing) or d.wind_go is None:
         d.verdict = "NO CALL"
     else:
         d.verdict = "GO WITH EXCEPTIONS" if d.do_not_lift else "GO"

@@ -55,7 +55,7 @@ from bracing.stages.foundation_flags import (
     not_checked,
     over_flag,
     site_flags,
-    windy_days,
+    stand_on_days,
 )
 from bracing.wind import asce7
 
@@ -82,11 +82,11 @@ __all__ = [
     "scalars",
     "site_flags",
     "soil_of",
+    "stand_on_days",
     "support_of",
     "wall_days",
     "wind_effects",
     "wind_of",
-    "windy_days",
     "with_wind",
     "working_limit",
 ]

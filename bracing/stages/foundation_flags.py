@@ -69,25 +69,50 @@ def site_flags(walls: list[FoundationWallResult]) -> list[Flag]:
             if any(d.over for d in w.days)]
 
 
-def windy_days(walls: list[FoundationWallResult], days) -> list:
-    """The days whose forecast gust (or a thunderstorm) reaches the stand-down gust of a
-    foundation wall standing as a cantilever that day: the wind part's stand-down (method notes
-    §12). Each such day gets `wind_go` False and a sentence naming the walls; returns them."""
+def stand_on_days(walls: list[FoundationWallResult], days) -> list:
+    """The foundation walls standing each day before their top support (as cantilevers or on
+    inside braces) in `DayResult.foundation_standing`, and the day's wind against them (method
+    notes §12): the stand-down gust of their wind part joins the day's lowest; a forecast gust
+    at or above it, or a thunderstorm, makes the day NO-GO by wind; a day on which only
+    foundation walls stand is judged by their gusts alone. Returns the days they stand on."""
     changed = []
     for d in days:
-        if d.forecast_gust_mph is None and not d.storm:
+        standing = [(w.mark, x.stand_down_speed_mph) for w in walls for x in w.days
+                    if x.day == d.day and x.support != "top support"]
+        if not standing:
             continue
-        low = [(x.stand_down_speed_mph, w.mark) for w in walls for x in w.days
-               if x.day == d.day and x.stand_down_speed_mph is not None
-               and (d.storm or d.forecast_gust_mph >= x.stand_down_speed_mph)]
-        if low:
-            names = ", ".join(f"{mark} ({speed:.0f} mph)" for speed, mark in sorted(low))
-            d.wind_go = False
-            d.wind = (d.wind + "; " if d.wind else "") + (
-                f"forecast reaches the stand-down gust of foundation wall(s) {names}, the wind "
-                "on the part above the backfill: no work beside them, clear their zones")
-            changed.append(d)
+        d.foundation_standing = [mark for mark, _ in standing]
+        gusts = sorted((speed, mark) for mark, speed in standing if speed is not None)
+        if gusts and (d.stand_down_speed_mph is None or gusts[0][0] < d.stand_down_speed_mph):
+            d.stand_down_speed_mph, d.governing_wall = gusts[0]
+        _wind_on_day(d, gusts)
+        changed.append(d)
     return changed
+
+
+def _wind_on_day(d, gusts: list[tuple[float, str]]) -> None:
+    """The day's wind go / no-go with the foundation walls' stand-down gusts (`gusts`, lowest
+    first) beside the panels' (already on the day)."""
+    if d.forecast_gust_mph is None and not d.storm:
+        if not d.standing:
+            d.wind_go, d.wind = None, "no forecast"
+        return
+    low = [(speed, mark) for speed, mark in gusts if d.storm or d.forecast_gust_mph >= speed]
+    if low or (d.storm and not d.standing):
+        names = ", ".join(f"{mark} ({speed:.0f} mph)" for speed, mark in low)
+        d.wind_go = False
+        d.wind = (d.wind + "; " if d.standing and d.wind else "") + (
+            f"forecast reaches the stand-down gust of foundation wall(s) {names}, the wind "
+            "on the part above the backfill: no work beside them, clear their zones" if names
+            else "thunderstorm forecast: counts as exceeding the stand-down gust of the "
+                 "foundation walls standing")
+    elif not d.standing:  # only foundation walls stand: their gusts decide
+        d.wind_go = True
+        d.wind = (f"forecast gust {d.forecast_gust_mph:.0f} mph < stand-down "
+                  f"{gusts[0][0]:.0f} mph of foundation wall {gusts[0][1]} (the wind on the "
+                  "part above the backfill)" if gusts else
+                  "no foundation wall standing has a stand-down gust (braced inside, or no "
+                  "part above the backfill takes the wind)")
 
 
 def not_checked(site: Site) -> list[NotChecked]:
