@@ -23,7 +23,7 @@ from functools import cached_property
 from pathlib import Path
 from typing import TYPE_CHECKING
 
-import tomli
+import rtoml
 from pydantic import ValidationError
 
 from bracing.model import Site, error_message
@@ -297,11 +297,14 @@ def load(path: str | Path) -> SiteFile:
 
 
 def read_toml(text: str) -> dict:
-    """The plain data of TOML text, read by tomli: the standard library's parser compiled to
-    machine code, three times faster on a large site. A text it refuses is read again by the
+    """The plain data of TOML text, read by rtoml (a TOML reader compiled from Rust: about three
+    times faster than tomli, the standard library's parser compiled, on a large site). It reads
+    TOML 1.1, whose few additions (an inline table over several lines or with a trailing comma,
+    the `\\x` and `\\e` escapes, a time without seconds) the standard library's TOML 1.0 parser
+    refuses and tomlkit, which saves the file, reads. A text it refuses is read again by the
     standard library's tomllib, so that a refusal is tomllib's, with its words and line."""
     try:
-        return tomli.loads(text)
+        return rtoml.loads(text)
     except Exception:  # noqa: BLE001 - tomllib raises its own error for the same text
         return tomllib.loads(text)
 

@@ -108,10 +108,10 @@ def _panels(data: dict, known: Known) -> list[Problem]:
 
 def _signed_off_panels(data: dict, known: Known) -> list[Problem]:
     """A sign-off of a panel mark no panel has."""
-    problems = []
+    problems, marks = [], known.marks.keys() | foundation.marks(data)
     for i, s in enumerate(_entries(data, "signoffs")):
         mark = s.get("panel") if isinstance(s, dict) else None
-        if isinstance(mark, str) and mark not in known.marks.keys() | foundation.marks(data):
+        if isinstance(mark, str) and mark not in marks:
             problems.append((("signoffs", i, "panel"), f"{mark!r} is not a panel mark", mark))
     return problems
 
