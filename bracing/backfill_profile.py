@@ -100,3 +100,30 @@ def sketch(*, mark: str, wall_height: float, thickness: float, backfill_height: 
         efp_pcf=efp, surcharge_psf=surcharge, water_level_ft=water if water > 0.0 else None,
         footing_width_ft=footing_width, footing_thickness_ft=footing_thickness, toe_ft=toe,
         brace=brace, danger=danger, caption=caption)
+
+
+def day_sketches(w, footing) -> dict:
+    """Each day's sketch of a foundation wall (`w`, its FoundationWallResult with its days;
+    `footing`, the site file's WallFooting or None), for the days it holds backfill: the day's
+    height, surcharge and support (the inside braces where they hold it), the allowed height,
+    and danger where the day's fill is over it. Made with the result, so that the sheets only
+    draw them."""
+    out = {}
+    for d in w.days:
+        if d.planned_height_ft <= 0.0:
+            continue
+        b = w.inside_brace if d.support == "inside braces" else None
+        out[d.day] = sketch(
+            mark=w.mark, wall_height=w.height_ft, thickness=w.thickness_in,
+            backfill_height=d.planned_height_ft,
+            allowed=w.max_height_ft if b is not None else d.allowed_height_ft,
+            efp=w.soil.equivalent_fluid_pressure_psf_per_ft, unit_weight=w.soil.unit_weight_pcf,
+            surcharge=d.surcharge_psf, water=w.soil.water_level_ft,
+            footing_width=footing.width if footing else None,
+            footing_thickness=footing.thickness if footing else 1.0,
+            toe=footing.toe if footing else None,
+            brace=None if b is None else InsideBraceSketch(
+                height_ft=b.height_ft, angle_deg=b.angle_deg, force_lb=b.force_lb,
+                spacing_ft=b.spacing_ft, allowed_ft=d.allowed_height_ft),
+            danger=d.over, caption=f"day {d.day}")
+    return out

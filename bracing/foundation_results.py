@@ -70,6 +70,9 @@ class BackfillDay:
     # top support, over its limit, or nothing exposed); a forecast gust at or above it makes
     # the day NO-GO
     stand_down_speed_mph: float | None = None
+    working_limit_speed_mph: float | None = None  # that gust / the stand-down ratio
+    # the mean speeds over 1 min, 2 min, 10 min and 1 hour that match that gust (None: as above)
+    sustained_equivalents_mph: dict[str, float] | None = None
 
 
 @dataclass(slots=True)
@@ -109,6 +112,9 @@ class FoundationWallResult:
     pressure: list[PressurePoint]    # at the planned height, standing surcharge
     days: list[BackfillDay] = field(default_factory=list)
     flags: list[Flag] = field(default_factory=list)
+    # each day's section sketch, by day (bracing.backfill_profile.BackfillSketch): the sheets
+    # draw them; not in the JSON record (its numbers are the days' and the soil's)
+    sketches: dict = field(default_factory=dict)
 
     @property
     def fails(self) -> bool:
@@ -118,7 +124,7 @@ class FoundationWallResult:
     def as_dict(self) -> dict:
         """The record as plain values (`bracing check --json`, key `foundation_walls`): every
         field, each check with its utilization and whether it passes, and `fails`."""
-        out = {f: getattr(self, f) for f in self.__slots__ if f not in _CHECK_LISTS}
+        out = {f: getattr(self, f) for f in self.__slots__ if f not in _NOT_AS_IS}
         out = {k: (asdict(v) if hasattr(v, "__dataclass_fields__") else v)
                for k, v in out.items()}
         out["days"] = [asdict(d) for d in self.days]
@@ -132,4 +138,4 @@ class FoundationWallResult:
         return out
 
 
-_CHECK_LISTS = ("checks", "cantilever_checks")
+_NOT_AS_IS = ("checks", "cantilever_checks", "sketches")  # written their own way, or not

@@ -152,8 +152,8 @@ def test_plan_hatches_the_backfill_side_of_walls_backfilled_that_day(basement):
 def test_si_sketches_and_plan_hold_no_us_unit(basement):
     """SI words throughout, and the sketch says the allowed height as the table does (rounded
     once, in metres: 2.72 ft = 0.83 m, not 2.7 ft = 0.82 m)."""
-    site, result = basement
-    sketches = dict(backfill_sheet.sketches(site, result, 7, "si"))
+    _, result = basement
+    sketches = dict(backfill_sheet.sketches(result, 7, "si"))
     for r in backfill_sheet.rows(result, 7, "si"):
         if r.mark in sketches and not r.danger and not r.brace:
             assert f">allowed {r.allowed} before the floor<" in sketches[r.mark], r.mark
@@ -164,3 +164,19 @@ def test_si_sketches_and_plan_hold_no_us_unit(basement):
         hit = re.search(r"(?<![A-Za-z_])(mph|ft|lbf?|lbs|psf|pcf|plf|psi|in)(?![A-Za-z_])",
                         words)
         assert hit is None, words[max(0, hit.start() - 60):hit.end() + 20]
+
+
+def test_a_day_governed_by_a_foundation_wall_gives_its_sustained_equivalents(basement):
+    """Day 1 of the demo stands foundation walls only: the sheet's stand-down gust is the
+    lowest of theirs (the wind part), and its sustained equivalents are that gust over the
+    gust factors of the ASCE 7-16 commentary curve, open terrain (from memory): 1-min 1.22,
+    2-min 1.30, 10-min 1.43; e.g. 94 mph / 1.22 = 77 mph."""
+    site, result = basement
+    day = next(d for d in result.days if d.day == 1)
+    assert day.governing_wall in day.foundation_standing
+    gust = day.stand_down_speed_mph
+    out = " ".join(sheet.render(site, result, 1, "text", "us").split())
+    assert f"stand-down gust {gust:.0f} mph ({day.governing_wall})" in out
+    assert (f"1-min mean {gust / 1.22:.0f} mph, 2-min mean {gust / 1.30:.0f} mph, 10-min mean "
+            f"{gust / 1.43:.0f} mph") in out
+    assert "working limit none" not in out

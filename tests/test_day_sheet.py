@@ -215,7 +215,7 @@ def test_si_drawings_hold_no_us_unit(sites):
         days = [d.day for d in result.days] or [None]
         for day in days:
             drawn = [svg.overview_svg(result, day, units="si")]
-            drawn += [s for _, s in backfill_sheet.sketches(site, result, day, "si")]
+            drawn += [s for _, s in backfill_sheet.sketches(result, day, "si")]
             drawn += [s for _, s in svg.detail_svgs(result, day, units="si")]
             drawn += list(svg.elevation_svgs(result, day, units="si").values())
             drawn += [svg.section_svg(p, units="si") for p in result.panels if p.braces]

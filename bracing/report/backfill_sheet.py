@@ -82,36 +82,17 @@ def text_lines(found: list[BackfillRow]) -> list[str]:
     return lines
 
 
-def sketches(site, result, day: int, units: str = "us") -> list[tuple[str, str]]:
+def sketches(result, day: int, units: str = "us") -> list[tuple[str, str]]:
     """(mark, SVG) of each foundation wall's section on `day` at that day's backfill, in the
-    order of `rows`; none once the floor holds its top."""
-    from bracing import backfill_profile
+    order of `rows`; none once the floor holds its top (the sketches are the result's)."""
     from bracing.report.svg.backfill import backfill_section_svg
 
-    model = {w.mark: w for w in getattr(site, "foundation_walls", []) or []}
-    by_mark = {w.mark: w for w in getattr(result, "foundation_walls", []) or []}
+    by_mark = {w.mark: w for w in result.foundation_walls}
     out = []
     for r in rows(result, day, units):
-        w = by_mark[r.mark]
-        d = _day_of(w, day)
-        if d.planned_height_ft <= 0.0:
-            continue
-        footing = getattr(model.get(w.mark), "footing", None)
-        b = w.inside_brace if d.support == "inside braces" else None
-        picture = backfill_profile.sketch(
-            mark=w.mark, wall_height=w.height_ft, thickness=w.thickness_in,
-            backfill_height=d.planned_height_ft,
-            allowed=w.max_height_ft if b is not None else d.allowed_height_ft,
-            efp=w.soil.equivalent_fluid_pressure_psf_per_ft, unit_weight=w.soil.unit_weight_pcf,
-            surcharge=d.surcharge_psf, water=w.soil.water_level_ft,
-            footing_width=footing.width if footing else None,
-            footing_thickness=footing.thickness if footing else 1.0,
-            toe=footing.toe if footing else None,
-            brace=None if b is None else backfill_profile.InsideBraceSketch(
-                height_ft=b.height_ft, angle_deg=b.angle_deg, force_lb=b.force_lb,
-                spacing_ft=b.spacing_ft, allowed_ft=d.allowed_height_ft),
-            danger=d.over, caption=f"day {day}")
-        out.append((w.mark, backfill_section_svg(picture, units=units, notes=False)))
+        picture = by_mark[r.mark].sketches.get(day)
+        if picture is not None:
+            out.append((r.mark, backfill_section_svg(picture, units=units, notes=False)))
     return out
 
 

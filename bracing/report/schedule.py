@@ -166,7 +166,7 @@ def build_pages(site: Site, result: SiteResult, day: int | None, units: str,
             rules=_rules(result, walls), backfill=backfill_sheet.rows(result, d.day, units))
         if svg is not None:
             page.backfill_sketches = [(m, _inline(drawing)) for m, drawing
-                                      in backfill_sheet.sketches(site, result, d.day, units)]
+                                      in backfill_sheet.sketches(result, d.day, units)]
             page.overview_svg = _inline(svg.overview_svg(result, d.day or None, units=units))
             page.details = [(detail.line, _inline(drawing)) for detail, drawing
                             in svg.detail_svgs(result, d.day or None, units=units)]
@@ -212,7 +212,11 @@ def _sustained(result: SiteResult, d: DayResult, units: str) -> str:
     """The sustained-wind equivalents of the day's stand-down gust (its governing wall's)."""
     if d.governing_wall is None:
         return ""
-    eq = result.panel(d.governing_wall).speeds_on(d.governing_wall in d.fresh_mortar)[2]
+    if d.governing_wall in d.foundation_standing:  # a foundation wall's wind part
+        eq = next(x.sustained_equivalents_mph for w in result.foundation_walls
+                  if w.mark == d.governing_wall for x in w.days if x.day == d.day) or {}
+    else:
+        eq = result.panel(d.governing_wall).speeds_on(d.governing_wall in d.fresh_mortar)[2]
     return ", ".join(f"{name} mean {_speed(eq[name], units)}" for name in ("1-min", "2-min",
                                                                           "10-min") if name in eq)
 

@@ -15,7 +15,7 @@ from __future__ import annotations
 
 import numpy as np
 
-from bracing import backfill
+from bracing import backfill, backfill_profile
 from bracing.foundation_results import (
     BackfillSoilResult,
     BackfillWind,
@@ -163,7 +163,7 @@ def _one(site: Site, w, last: int) -> FoundationWallResult:
     exposed = max(w.height - planned, 0.0)
     limit = working_limit(wall, soil, wind, planned, basis) if checks is alone else None
     ratio = site.rule_value("stand_down_ratio")
-    return FoundationWallResult(
+    result = FoundationWallResult(
         mark=w.mark, material=wall.material, height_ft=w.height, length_ft=w.length,
         thickness_in=w.thickness, line=w.line, offset_ft=w.offset,
         backfill_side=backfill_side(site, w), build_day=w.build_day,
@@ -182,6 +182,8 @@ def _one(site: Site, w, last: int) -> FoundationWallResult:
             stand_down_speed_mph=None if limit is None or ratio is None else ratio * limit),
         pressure=pressure_profile(soil, planned), days=days,
         flags=_flags(site, w, wall, days))
+    result.sketches = backfill_profile.day_sketches(result, w.footing)
+    return result
 
 
 def _soil_record(site: Site, w, soil: backfill.Soil) -> BackfillSoilResult:

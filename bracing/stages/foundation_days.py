@@ -10,6 +10,7 @@ from bracing.foundation_results import BackfillDay
 from bracing.model import DEFAULT_RULES, Site
 from bracing.stages.foundation_braces import braced_max
 from bracing.stages.foundation_cantilever import cantilever_max, engine_wall, soil_of, working_limit
+from bracing.wind import gusts
 
 
 def _events_of(site: Site, w) -> list:
@@ -59,14 +60,15 @@ class _Allowed:
             return propped, "inside braces"
         return alone, "cantilever"
 
-    def stand_down(self, placed: float, surcharge: float, cured: bool) -> float | None:
-        """The stand-down gust (mph) of the cantilever under `placed` of backfill: the
-        stand-down ratio x its working limit (None: on its inside braces, or nothing
-        exposed)."""
+    def speeds(self, placed: float, surcharge: float, cured: bool
+               ) -> tuple[float | None, float | None]:
+        """(working limit, stand-down gust), mph, of the cantilever under `placed` of backfill:
+        the stand-down gust is the stand-down ratio x the working limit (None: on its inside
+        braces, or nothing exposed)."""
         ratio = self.site.rule_value("stand_down_ratio")
         alone, propped = self.limits(surcharge, cured)
         if ratio is None or (propped is not None and placed > alone + 1e-9):
-            return None
+            return None, None
         key = ("wind", placed, surcharge, cured)
         if key not in self.seen:
             wall = engine_wall(self.site, self.w)
@@ -75,7 +77,7 @@ class _Allowed:
             self.seen[key] = working_limit(wall, soil_of(self.site, self.w, surcharge),
                                            self.wind, placed, self.basis)
         limit = self.seen[key]
-        return None if limit is None else ratio * limit
+        return (None, None) if limit is None else (limit, ratio * limit)
 
 
 def _cured(site: Site, w, day: int) -> bool:
@@ -101,14 +103,18 @@ def wall_days(site: Site, w, allowed: _Allowed, last: int) -> list[BackfillDay]:
         placed = max((e.height for e in events if e.day <= d), default=0.0)
         surcharge = max([standing] + [e.surcharge for e in events
                                       if e.day == d and e.surcharge is not None])
-        stand_down = None
+        working = stand_down = None
         if released is not None and d >= released:
             limit, support = w.height, "top support"
         else:
             limit, support = allowed(surcharge, _cured(site, w, d))
             if placed <= limit + 1e-6:  # over its limit, the danger speaks, not the wind
-                stand_down = allowed.stand_down(placed, surcharge, _cured(site, w, d))
+                working, stand_down = allowed.speeds(placed, surcharge, _cured(site, w, d))
         out.append(BackfillDay(day=d, planned_height_ft=placed, allowed_height_ft=limit,
                                surcharge_psf=surcharge, support=support,
-                               over=placed > limit + 1e-6, stand_down_speed_mph=stand_down))
+                               over=placed > limit + 1e-6, working_limit_speed_mph=working,
+                               stand_down_speed_mph=stand_down,
+                               sustained_equivalents_mph=None if stand_down is None else {
+                                   k: float(v) for k, v in
+                                   gusts.sustained_equivalents(stand_down).items()}))
     return out

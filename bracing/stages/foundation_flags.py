@@ -77,14 +77,20 @@ def stand_on_days(walls: list[FoundationWallResult], days) -> list:
     foundation walls stand is judged by their gusts alone. Returns the days they stand on."""
     changed = []
     for d in days:
-        standing = [(w.mark, x.stand_down_speed_mph) for w in walls for x in w.days
+        standing = [(w.mark, x) for w in walls for x in w.days
                     if x.day == d.day and x.support != "top support"]
         if not standing:
             continue
         d.foundation_standing = [mark for mark, _ in standing]
-        gusts = sorted((speed, mark) for mark, speed in standing if speed is not None)
+        gusts = sorted((x.stand_down_speed_mph, mark) for mark, x in standing
+                       if x.stand_down_speed_mph is not None)
         if gusts and (d.stand_down_speed_mph is None or gusts[0][0] < d.stand_down_speed_mph):
             d.stand_down_speed_mph, d.governing_wall = gusts[0]
+        limits = [x.working_limit_speed_mph for _, x in standing
+                  if x.working_limit_speed_mph is not None]
+        if limits and (d.working_limit_speed_mph is None
+                       or min(limits) < d.working_limit_speed_mph):
+            d.working_limit_speed_mph = min(limits)
         _wind_on_day(d, gusts)
         changed.append(d)
     return changed
