@@ -175,7 +175,9 @@ def summary(w, units: str) -> Text:
     out.append(f"\nWind on the {fmt(wind.exposed_height_ft, 'ft', units, 1)} above the "
                f"backfill: {fmt(wind.pressure_psf, 'psf', units, 1)}; stand-down gust "
                f"{speed(wind.stand_down_speed_mph, units)}, working limit "
-               f"{speed(wind.working_limit_speed_mph, units)}")
+               f"{speed(wind.working_limit_speed_mph, units)}"
+               + (" (any wind: the backfill is over its limit)"
+                  if wind.stand_down_speed_mph == 0.0 else ""))
     return out
 
 

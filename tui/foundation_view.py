@@ -54,6 +54,7 @@ class FoundationSection(Vertical):
         title.append(f"{len(shown)} of {len(every)}, ")
         title.append(f"✗ {failing} fail(s)" if failing else "✓ none fails",
                      style="bold red" if failing else "green")
+        title.append(" (Enter opens)", style="dim")
         self.query_one("#foundation-title", Static).update(title)
 
     @on(DataTable.RowSelected)
