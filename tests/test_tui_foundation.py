@@ -19,7 +19,9 @@ from textual.widgets import DataTable
 from bracing import scenario
 from bracing.report.text import check_values
 from tui import app as tui_app
+from tui import foundation
 from tui.app import BracingApp
+from tui.drawing import BRACE, WALL
 from tui.foundation_view import FoundationScreen
 
 SMALL = (80, 24)
@@ -141,3 +143,26 @@ def test_a_site_without_foundation_walls_shows_no_foundation_table(tmp_path):
         assert app.focused.id == "walls-table"
 
     drive(app, steps, size=SMALL)
+
+
+def test_the_section_sketch_draws_the_limit_inside_the_backfill_only_where_it_is_over(tmp_path):
+    """FW-E's backfill (5.0 ft planned, the site file) is over the most it takes as a
+    cantilever (FoundationWallResult.max_height_ft, under 5.0 ft): the sketch's limit line runs
+    through the backfill, below its top. FW-W (6.0 ft planned, with inside braces taking more,
+    InsideBraceResult.max_height_ft) has its limit line above the backfill, and its brace
+    drawn."""
+    _, result = _app(tmp_path)
+    walls = {w.mark: w for w in result.foundation_walls}
+    assert walls["FW-E"].max_height_ft < 5.0 < walls["FW-E"].height_ft
+    assert walls["FW-W"].inside_brace.max_height_ft > 6.0
+
+    def rows_of(lines, marks):
+        return [k for k, line in enumerate(lines) if any(m in line for m in marks)]
+
+    for mark, over in (("FW-E", True), ("FW-W", False)):
+        lines = foundation.section(walls[mark], "us")
+        drawing_lines = lines[:lines.index(next(x for x in lines if x.startswith(WALL)))]
+        fill = rows_of(drawing_lines, (foundation.SOIL, foundation.PRESSURE))
+        (limit,) = rows_of(drawing_lines, (foundation.LIMIT,))
+        assert (limit > min(fill)) is over, (mark, limit, fill)
+        assert any(BRACE in line for line in drawing_lines) is (mark == "FW-W")
