@@ -44,7 +44,8 @@ DEMO = Path(__file__).resolve().parents[1] / "scenarios" / "demo-mixed.toml"
 
 VIEWS = {"walls": "1 Walls", "wall": "2 Wall", "day": "3 Day", "plan": "4 Plan",
          "settings": "5 Settings", "keys": "? Keys"}
-FOCUS = {"walls": "#walls-table", "wall": "#wall-results", "day": "#day-inventory",
+FOCUS = {"walls": "#walls-view DataTable",  # the first: foundation walls' when one fails
+         "wall": "#wall-results", "day": "#day-inventory",
          "plan": "#plan-body", "settings": "#rules-table", "keys": "#keys-table"}
 
 KEY_NAMES = {"question_mark": "?", "left_square_bracket": "[", "right_square_bracket": "]",
@@ -206,7 +207,7 @@ class BracingApp(Fixes, Files, App[int]):
         return day_view
 
     def on_mount(self) -> None:
-        self.query_one("#walls-table").focus()
+        self.query(FOCUS["walls"]).first().focus()
 
     # --- what is shown ------------------------------------------------------------------------
     @classmethod

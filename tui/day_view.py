@@ -14,7 +14,7 @@ from textual.widgets import DataTable, Label, Select, Static
 
 from bracing.report.schedule import actions, grouped, headline
 from bracing.report.text import localize
-from tui import drawing
+from tui import drawing, foundation
 from tui.widgets import (
     FLAG_LOOK,
     Choice,
@@ -168,6 +168,7 @@ class DayView(RedrawsForTheDay, Vertical):
         out.append_text(verdict_text(d, units))
         out.append("\n")
         out.append_text(verdict_details(d, units))
+        out.append_text(foundation.day_lines(self.result, d.day, units))
         out.append(f"Day {d.day}" + (f", {d.date}" if d.date else "") + ": ", style="bold")
         forecast = ("no forecast gust" if d.forecast_gust_mph is None else
                     f"forecast gust {speed(d.forecast_gust_mph, units)}")

@@ -12,6 +12,7 @@ from textual.reactive import reactive
 from textual.widgets import DataTable, Label, Select, Static
 
 from bracing.results import STATUSES
+from tui.foundation_view import FoundationSection
 from tui.widgets import (
     ALL,
     STATUS_LOOK,
@@ -63,9 +64,10 @@ class WallsView(DrawnWhenShown, Vertical):
                          value=ALL, allow_blank=False, id="filter-material")
             yield Static("", id="walls-count")
         yield DataTable(id="walls-table", cursor_type="row", zebra_stripes=True)
+        yield FoundationSection(id="walls-foundation")
 
     def on_mount(self) -> None:
-        self.query_one(DataTable).add_columns(*self.COLUMNS)
+        self.query_one("#walls-table", DataTable).add_columns(*self.COLUMNS)
         self.refill()
 
     def watch_result(self) -> None:
@@ -109,7 +111,7 @@ class WallsView(DrawnWhenShown, Vertical):
     def refill(self) -> None:
         if not self.is_mounted:
             return
-        table = self.query_one(DataTable)
+        table = self.query_one("#walls-table", DataTable)
         current = None
         if table.row_count:
             current = table.coordinate_to_cell_key(table.cursor_coordinate).row_key.value
@@ -128,6 +130,17 @@ class WallsView(DrawnWhenShown, Vertical):
             table.move_cursor(row=marks.index(current), animate=False)
         total = len(self.result.panels) if self.result else 0
         self.query_one("#walls-count", Static).update(f"{len(panels)} of {total} walls")
+        self._foundation()
+
+    def _foundation(self) -> None:
+        """The foundation walls under the filters: above the walls when one fails."""
+        section = self.query_one(FoundationSection)
+        table = self.query_one("#walls-table", DataTable)
+        section.show(self.result, self.units, *(self.query_one(f"#filter-{k}", Select).value
+                                                for k in ("day", "status", "material")))
+        first = self.children.index(section) < self.children.index(table)
+        if section.failing != first:
+            self.move_child(section, **{"before" if section.failing else "after": table})
 
     def _lift_days(self) -> dict[str, str]:
         """Each wall's lift day as the site file gives it."""

@@ -176,10 +176,12 @@ class StatusLine(Static):
     def render(self) -> Text:
         out = Text()
         if self.result is not None:
-            failing, total = len(self.result.failing()), len(self.result.panels)
+            walls = [*self.result.panels, *self.result.foundation_walls]
+            failing, total = sum(w.fails for w in walls), len(walls)
             out.append(f"✗ {failing} of {total} walls fail  " if failing else
+                       "✗ a danger stands  " if self.result.fails else
                        f"✓ none of {total} walls fails  ",
-                       style="bold red" if failing else "green")
+                       style="bold red" if self.result.fails else "green")
         out.append(f"·  {self.file_name}")
         if self.dirty:
             out.append("  ·  unsaved changes", style="bold")

@@ -111,6 +111,14 @@ PER_FOOT_UNITS = {"lb·ft/ft": "ft*lbf", "lb/ft": "lbf"}  # checks' units per ft
 
 def check_line(c: Check, system: str) -> str:
     u = c.utilization
+    demand, capacity = check_values(c, system)
+    return (f"  {utilization_mark(u):6} {c.element} ({c.region}): {demand} / {capacity} = "
+            f"{'inf' if math.isinf(u) else f'{u:.2f}'}  [{c.combination}; {c.source}]")
+
+
+def check_values(c: Check, system: str) -> tuple[str, str]:
+    """A check's demand and capacity in the chosen units (a foundation wall's per ft of wall,
+    per m in SI)."""
     unit = {"lb·ft": "ft*lbf", "lb": "lbf", "psf": "psf"}.get(c.unit, c.unit)
     per_foot = "per ft" in c.region
     if system == "si" and c.unit in PER_FOOT_UNITS:  # a foundation wall's, per ft of wall
@@ -120,8 +128,7 @@ def check_line(c: Check, system: str) -> str:
         unit, label = PER_FOOT[unit]
         demand, capacity = (fmt(v, unit, system).replace(convert(1.0, unit, system)[1], label)
                             for v in (c.demand, c.capacity))
-    return (f"  {utilization_mark(u):6} {c.element} ({c.region}): {demand} / {capacity} = "
-            f"{'inf' if math.isinf(u) else f'{u:.2f}'}  [{c.combination}; {c.source}]")
+    return demand, capacity
 
 
 def panel_text(p: PanelResult, system: str = "us") -> list[str]:
