@@ -18,7 +18,7 @@ from textual import on, work
 from textual.app import App, ComposeResult
 from textual.binding import Binding
 from textual.containers import Vertical
-from textual.reactive import reactive
+from textual.reactive import var
 from textual.widgets import Input, Select, Static, TabbedContent, TabPane
 
 from bracing import scenario
@@ -122,16 +122,18 @@ class BracingApp(Fixes, Files, App[int]):
         Binding("q", "quit", "Quit", tooltip="quit (asks first when there are unsaved changes)"),
     ]
 
-    result: reactive[SiteResult | None] = reactive(None, always_update=True, init=False)
-    site_file: reactive[SiteFile | None] = reactive(None, always_update=True, init=False)
-    mark = reactive("", init=False)
-    day: reactive[int | None] = reactive(None, init=False)
-    units = reactive("us", init=False)
-    errors = reactive(dict, always_update=True, init=False)
-    busy = reactive(False, init=False)
-    dirty = reactive(False, init=False)
-    file_name = reactive("", init=False)
-    keys = reactive(list, init=False)
+    # vars, not reactives: the app draws nothing of its own, and a reactive of the app
+    # repaints the whole screen at each change (the views bound to them draw what changes)
+    result: var[SiteResult | None] = var(None, always_update=True, init=False)
+    site_file: var[SiteFile | None] = var(None, always_update=True, init=False)
+    mark = var("", init=False)
+    day: var[int | None] = var(None, init=False)
+    units = var("us", init=False)
+    errors = var(dict, always_update=True, init=False)
+    busy = var(False, init=False)
+    dirty = var(False, init=False)
+    file_name = var("", init=False)
+    keys = var(list, init=False)
 
     def __init__(self, path: str | Path | None = None, result: SiteResult | None = None):
         """Open `path` (a demo site when None); `result` may give its result already computed.

@@ -14,7 +14,7 @@ from textual import on
 from textual.app import ComposeResult
 from textual.containers import Vertical
 from textual.message import Message
-from textual.reactive import reactive
+from textual.reactive import reactive, var
 from textual.widgets import Footer, Input, Label, Select, Static
 
 from bracing.report.text import fmt
@@ -279,7 +279,7 @@ class FieldRow(Vertical):
 class Form(Vertical):
     """A column of fields; rebuilt when the set of fields changes, else only refilled."""
 
-    errors = reactive(dict, always_update=True, init=False)
+    errors = var(dict, always_update=True, init=False)
 
     def __init__(self, specs: list[FieldSpec] = (), **kwargs):
         super().__init__(**kwargs)
