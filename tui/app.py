@@ -8,6 +8,7 @@ nothing.
 
 from __future__ import annotations
 
+import gc
 import sys
 from dataclasses import replace
 from pathlib import Path
@@ -209,6 +210,7 @@ class BracingApp(Fixes, Files, App[int]):
 
     def on_mount(self) -> None:
         self.query_one("#walls-table").focus()
+        self.call_after_refresh(collect_after_start)
 
     # --- what is shown ------------------------------------------------------------------------
     @classmethod
@@ -274,13 +276,16 @@ class BracingApp(Fixes, Files, App[int]):
         """Show a view and focus it before the next key is read (keys typed meanwhile reach
         the focused field, never the app's view keys)."""
         tabs = self.query_one(TabbedContent)
-        if tabs.active != view:
-            await self._ensure_view(view)
-            self.screen.set_focus(None)  # focus left in the old view would bring it back
-            self.view = view
-            tabs.active = view
-            self.refresh_bindings()
-        self._focus_view()
+        with self.batch_update():  # drawn once, the view shown and focused
+            if tabs.active != view:
+                await self._ensure_view(view)
+                self.screen.set_focus(None)  # focus left in the old view would bring it back
+                self.view = view
+                tabs.active = view
+                self.refresh_bindings()
+                # laid out before it is drawn: the view left is not drawn again on the way
+                self.screen.refresh(layout=True)
+            self._focus_view()
 
     def action_step(self, delta: int) -> None:
         """The next or previous wall (worst first) or day."""
@@ -412,6 +417,15 @@ class BracingApp(Fixes, Files, App[int]):
             return
         self.undo_stack.append(self.site_file)
         self._install(self.redo_stack.pop())
+
+def collect_after_start() -> None:
+    """Garbage collection on again once the first screen is drawn (`tui` turns it off while
+    the interface starts), with what start made frozen: a collection then scans only the
+    objects made since. Once per process (the first app's start)."""
+    if not gc.isenabled():
+        gc.freeze()
+        gc.enable()
+
 
 def run(path: str | None = None) -> int:
     """Open the interface on a site file (a demo site when None); the exit code."""
