@@ -20,6 +20,7 @@ from textual.app import App, ComposeResult
 from textual.binding import Binding
 from textual.containers import Vertical
 from textual.reactive import var
+from textual.screen import Screen
 from textual.widgets import Input, Select, Static, TabbedContent, TabPane
 
 from bracing import scenario
@@ -64,6 +65,13 @@ WIDGET_KEYS = (
     ("left / right", "previous / next tab", "the tabs"),
     ("mouse", "click a tab, a row, a field or a button; the wheel scrolls", "everywhere"),
 )
+
+
+class MainScreen(Screen):
+    """The views' screen: the Walls table has the focus before the screen is first drawn (a
+    focus given after it draws the table a second time, 60 ms at start)."""
+
+    AUTO_FOCUS = "#walls-table"
 
 
 class BracingApp(Fixes, Files, App[int]):
@@ -208,8 +216,10 @@ class BracingApp(Fixes, Files, App[int]):
         from tui import day_view
         return day_view
 
+    def get_default_screen(self) -> Screen:
+        return MainScreen(id="_default")
+
     def on_mount(self) -> None:
-        self.query_one("#walls-table").focus()
         self.call_after_refresh(collect_after_start)
 
     # --- what is shown ------------------------------------------------------------------------

@@ -23,6 +23,7 @@ from tui.widgets import (
     Choice,
     DrawnWhenShown,
     Form,
+    Table,
     flag_lines,
     pass_text,
     plain,
@@ -156,7 +157,7 @@ class WallView(DrawnWhenShown, Horizontal):
         with VerticalScroll(id="wall-results"):
             yield Static("", id="wall-summary")
             yield Static("", id="wall-flags")
-            yield DataTable(id="checks-table", cursor_type="row", zebra_stripes=True)
+            yield Table(id="checks-table", cursor_type="row", zebra_stripes=True)
             with Horizontal(id="wall-drawings"):
                 yield Static("", id="wall-section", classes="drawing")
                 yield BraceElevation(id="wall-elevation", classes="drawing")

@@ -17,6 +17,7 @@ from tui.widgets import (
     STATUS_LOOK,
     Choice,
     DrawnWhenShown,
+    Table,
     plain,
     speed,
     utilization_text,
@@ -62,7 +63,7 @@ class WallsView(DrawnWhenShown, Vertical):
                                                       ("concrete", "masonry", "framed")],
                          value=ALL, allow_blank=False, id="filter-material")
             yield Static("", id="walls-count")
-        yield DataTable(id="walls-table", cursor_type="row", zebra_stripes=True)
+        yield Table(id="walls-table", cursor_type="row", zebra_stripes=True)
 
     def on_mount(self) -> None:
         self.query_one(DataTable).add_columns(*self.COLUMNS)

@@ -10,12 +10,14 @@ from collections.abc import Callable
 from dataclasses import dataclass
 
 from rich.text import Text
-from textual import on
+from textual import events, on
 from textual.app import ComposeResult
 from textual.containers import Vertical
+from textual.geometry import Region
 from textual.message import Message
 from textual.reactive import reactive, var
-from textual.widgets import Footer, Input, Label, Select, Static
+from textual.strip import Strip
+from textual.widgets import DataTable, Footer, Input, Label, Select, Static
 
 from bracing.report.text import fmt
 from bracing.results import CAUTION
@@ -100,6 +102,21 @@ class Choice(Select):
             self.set_options(options)
         if any(v == value for _, v in options) and self.value != value:
             self.value = value
+
+
+class Table(DataTable):
+    """Textual's table, its lines drawn again after a Resize event only when its width changed:
+    DataTable draws every line again at each Resize, which Textual sends also when a table is
+    shown at the size it was drawn at (at start, after the first screen; at each view switch).
+    """
+
+    def render_lines(self, crop: Region) -> list[Strip]:
+        self.__dict__["_drawn_width"] = self.size.width
+        return super().render_lines(crop)
+
+    def _on_resize(self, event: events.Resize) -> None:
+        if event.size.width == self.__dict__.get("_drawn_width"):
+            event.prevent_default()  # (DataTable's handler would draw every line again)
 
 
 def show_text(widget: Static, text: Text | str) -> None:
