@@ -105,14 +105,24 @@ class Choice(Select):
 
 
 class Table(DataTable):
-    """Textual's table, its lines drawn again after a Resize event only when its width changed:
-    DataTable draws every line again at each Resize, which Textual sends also when a table is
-    shown at the size it was drawn at (at start, after the first screen; at each view switch).
-    """
+    """Textual's table, its lines drawn again only when they change. DataTable draws every
+    line again at each Resize event, which Textual sends also when a table is shown at the
+    size it was drawn at (at start, after the first screen; at each view switch), and at each
+    update of its styles (a view shown, the focus gained or lost), although the lines it keeps
+    are kept by the focus state they were drawn in: here they are dropped only when the width
+    or the theme changes."""
 
     def render_lines(self, crop: Region) -> list[Strip]:
         self.__dict__["_drawn_width"] = self.size.width
+        if self.__dict__.setdefault("_theme", self.app.theme) != self.app.theme:
+            self.__dict__["_theme"] = self.app.theme
+            self._clear_caches()
         return super().render_lines(crop)
+
+    def notify_style_update(self) -> None:
+        super(DataTable, self).notify_style_update()  # (not DataTable's: it drops every line)
+        self._get_styles_to_render_cell.cache_clear()  # (a cell's look, by focus state)
+        self.refresh()
 
     def _on_resize(self, event: events.Resize) -> None:
         if event.size.width == self.__dict__.get("_drawn_width"):
