@@ -9,6 +9,7 @@ import math
 from collections.abc import Callable
 from dataclasses import dataclass
 
+from rich.cells import cell_len
 from rich.text import Text
 from textual import events, on
 from textual.app import ComposeResult
@@ -134,9 +135,22 @@ def show_text(widget: Static, text: Text | str) -> None:
     the screen out again: the whole site's result after a wall's changes little on screen)."""
     text = Text(text) if isinstance(text, str) else text
     key = (text.plain, [(s.start, s.end, str(s.style)) for s in text.spans])
-    if widget.__dict__.get("_shown") != key:
+    shown = widget.__dict__.get("_shown")
+    if shown != key:
         widget.__dict__["_shown"] = key
-        widget.update(text)
+        # the screen laid out again only when the widget's size may change
+        widget.update(text, layout=shown is None or not same_size(widget, shown[0], text.plain))
+
+
+def same_size(widget: Static, before: str, after: str) -> bool:
+    """True when `after` in place of `before` leaves the widget's size as it was: as many
+    lines, none wrapped, in a widget whose width does not follow its text."""
+    width = widget.content_size.width
+    if not width or (widget.styles.width is not None and widget.styles.width.is_auto):
+        return False
+    lines_before, lines_after = before.split("\n"), after.split("\n")
+    return len(lines_before) == len(lines_after) and \
+        all(cell_len(line) <= width for line in lines_before + lines_after)
 
 
 class DrawnWhenShown:
