@@ -9,7 +9,6 @@ import math
 from collections.abc import Callable
 from dataclasses import dataclass
 
-from rich.cells import cell_len
 from rich.text import Text
 from textual import events, on
 from textual.app import ComposeResult
@@ -135,22 +134,21 @@ def show_text(widget: Static, text: Text | str) -> None:
     the screen out again: the whole site's result after a wall's changes little on screen)."""
     text = Text(text) if isinstance(text, str) else text
     key = (text.plain, [(s.start, s.end, str(s.style)) for s in text.spans])
-    shown = widget.__dict__.get("_shown")
-    if shown != key:
+    if widget.__dict__.get("_shown") != key:
         widget.__dict__["_shown"] = key
-        # the screen laid out again only when the widget's size may change
-        widget.update(text, layout=shown is None or not same_size(widget, shown[0], text.plain))
+        widget.update(text, layout=False)
+        if not same_size(widget):  # the screen laid out again only when the size changes
+            widget.refresh(layout=True)
 
 
-def same_size(widget: Static, before: str, after: str) -> bool:
-    """True when `after` in place of `before` leaves the widget's size as it was: as many
-    lines, none wrapped, in a widget whose width does not follow its text."""
-    width = widget.content_size.width
-    if not width or (widget.styles.width is not None and widget.styles.width.is_auto):
+def same_size(widget: Static) -> bool:
+    """True when `widget` keeps its size on screen with the text it now holds: its width does
+    not follow its text, and the height the layout would give that text (wrapped as the
+    layout wraps it) is its height on screen."""
+    size = widget.content_size
+    if not size.width or (widget.styles.width is not None and widget.styles.width.is_auto):
         return False
-    lines_before, lines_after = before.split("\n"), after.split("\n")
-    return len(lines_before) == len(lines_after) and \
-        all(cell_len(line) <= width for line in lines_before + lines_after)
+    return widget.get_content_height(widget.size, widget.app.size, size.width) == size.height
 
 
 class DrawnWhenShown:
@@ -277,7 +275,7 @@ class FieldRow(Vertical):
         self.set_reactive(FieldRow.value, spec.value)
         if spec.kind == "fixed":
             for fixed in self.query(".field-fixed").results(Static):
-                fixed.update(Text(spec.value))
+                show_text(fixed, spec.value)
         elif spec.kind == "choice":
             for choice in self.query(Choice).results(Choice):
                 choice.offer([(Text(c), c) for c in spec.choices], spec.value)
