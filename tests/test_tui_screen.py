@@ -218,6 +218,40 @@ def test_the_footer_is_built_again_only_when_its_keys_change(tmp_path, monkeypat
     drive(app, steps)
 
 
+def test_the_walls_table_is_drawn_once_at_start_and_kept_across_view_switches(tmp_path,
+                                                                              monkeypatch):
+    """Textual's table draws all its lines again at each Resize event and each update of its
+    styles (the focus, a view shown). The Walls table is drawn once at start and, back from the
+    Wall view, shows the lines it drew (none drawn again); a change of theme draws them again
+    (common practice: a kept line never shows an old look). Counted by rows drawn."""
+    path = copy_site("tilt-up-warehouse", tmp_path)
+    app = BracingApp(path)
+    drawn = []
+    original = DataTable._render_line_in_row
+
+    def counted(self, row_key, *args, **kwargs):
+        if self.id == "walls-table":
+            drawn.append(row_key)
+        return original(self, row_key, *args, **kwargs)
+
+    monkeypatch.setattr(DataTable, "_render_line_in_row", counted)
+
+    async def steps(pilot):
+        rows = len(drawn)
+        assert rows and len(set(drawn)) == rows  # each row on screen drawn once
+        await pilot.press("2")
+        await pilot.pause()
+        drawn.clear()
+        await pilot.press("1")
+        await pilot.pause()
+        assert app.focused is app.query_one("#walls-table") and drawn == []
+        app.theme = "textual-light" if app.theme != "textual-light" else "textual-dark"
+        await pilot.pause()
+        assert len(drawn) >= rows
+
+    drive(app, steps)
+
+
 def test_a_brace_layout_with_no_known_utilization_reads_unknown():
     """A brace with no rating has no utilization (null in the record): the dialog's lines say
     'unknown' instead of failing to format it (common practice: never show a number not known)."""

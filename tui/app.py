@@ -18,7 +18,8 @@ from textual import on, work
 from textual.app import App, ComposeResult
 from textual.binding import Binding
 from textual.containers import Vertical
-from textual.reactive import reactive
+from textual.reactive import var
+from textual.screen import Screen
 from textual.widgets import Input, Select, Static, TabbedContent, TabPane
 
 from bracing import scenario
@@ -64,6 +65,13 @@ WIDGET_KEYS = (
     ("left / right", "previous / next tab", "the tabs"),
     ("mouse", "click a tab, a row, a field or a button; the wheel scrolls", "everywhere"),
 )
+
+
+class MainScreen(Screen):
+    """The views' screen: the Walls table has the focus before the screen is first drawn (a
+    focus given after it draws the table a second time, 60 ms at start)."""
+
+    AUTO_FOCUS = "#walls-table"
 
 
 class BracingApp(Fixes, Files, App[int]):
@@ -123,16 +131,18 @@ class BracingApp(Fixes, Files, App[int]):
         Binding("q", "quit", "Quit", tooltip="quit (asks first when there are unsaved changes)"),
     ]
 
-    result: reactive[SiteResult | None] = reactive(None, always_update=True, init=False)
-    site_file: reactive[SiteFile | None] = reactive(None, always_update=True, init=False)
-    mark = reactive("", init=False)
-    day: reactive[int | None] = reactive(None, init=False)
-    units = reactive("us", init=False)
-    errors = reactive(dict, always_update=True, init=False)
-    busy = reactive(False, init=False)
-    dirty = reactive(False, init=False)
-    file_name = reactive("", init=False)
-    keys = reactive(list, init=False)
+    # vars, not reactives: the app draws nothing of its own, and a reactive of the app
+    # repaints the whole screen at each change (the views bound to them draw what changes)
+    result: var[SiteResult | None] = var(None, always_update=True, init=False)
+    site_file: var[SiteFile | None] = var(None, always_update=True, init=False)
+    mark = var("", init=False)
+    day: var[int | None] = var(None, init=False)
+    units = var("us", init=False)
+    errors = var(dict, always_update=True, init=False)
+    busy = var(False, init=False)
+    dirty = var(False, init=False)
+    file_name = var("", init=False)
+    keys = var(list, init=False)
 
     def __init__(self, path: str | Path | None = None, result: SiteResult | None = None):
         """Open `path` (a demo site when None); `result` may give its result already computed.
@@ -206,8 +216,13 @@ class BracingApp(Fixes, Files, App[int]):
         from tui import day_view
         return day_view
 
+    def get_default_screen(self) -> Screen:
+        return MainScreen(id="_default")
+
     def on_mount(self) -> None:
-        self.query(FOCUS["walls"]).first().focus()
+        first = self.query(FOCUS["walls"]).first()  # the foundation walls' when one fails
+        if first.id != "walls-table":  # else the Walls table has it already (MainScreen)
+            first.focus()
 
     # --- what is shown ------------------------------------------------------------------------
     @classmethod
@@ -273,13 +288,16 @@ class BracingApp(Fixes, Files, App[int]):
         """Show a view and focus it before the next key is read (keys typed meanwhile reach
         the focused field, never the app's view keys)."""
         tabs = self.query_one(TabbedContent)
-        if tabs.active != view:
-            await self._ensure_view(view)
-            self.screen.set_focus(None)  # focus left in the old view would bring it back
-            self.view = view
-            tabs.active = view
-            self.refresh_bindings()
-        self._focus_view()
+        with self.batch_update():  # drawn once, the view shown and focused
+            if tabs.active != view:
+                await self._ensure_view(view)
+                self.screen.set_focus(None)  # focus left in the old view would bring it back
+                self.view = view
+                tabs.active = view
+                self.refresh_bindings()
+                # laid out before it is drawn: the view left is not drawn again on the way
+                self.screen.refresh(layout=True)
+            self._focus_view()
 
     def action_step(self, delta: int) -> None:
         """The next or previous wall (worst first) or day."""

@@ -20,6 +20,7 @@ from tui.widgets import (
     Choice,
     DrawnWhenShown,
     plain,
+    show_text,
     speed,
 )
 
@@ -57,7 +58,7 @@ class DayPicker(Horizontal):
         options = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day) for d in days]
         self.query_one(Choice).offer(options, self.day)
         d = next((d for d in days if d.day == self.day), None)
-        self.query_one(".day-verdict", Static).update(verdict_badge(d) if d else "")
+        show_text(self.query_one(".day-verdict", Static), verdict_badge(d) if d else "")
 
     @on(Select.Changed)
     def _picked(self, event: Select.Changed) -> None:

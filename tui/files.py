@@ -1,14 +1,17 @@
 """The site file saved (as), a day's schedule exported, and quitting with unsaved changes.
 
-A mixin of `BracingApp`.
+A mixin of `BracingApp`. Its dialogs load when first asked for (not waited for at start).
 """
 
 from __future__ import annotations
 
 from pathlib import Path
+from typing import TYPE_CHECKING
 
 from bracing import scenario
-from tui.dialogs import Export, ExportRequest, SaveAs, UnsavedChanges
+
+if TYPE_CHECKING:
+    from tui.dialogs import ExportRequest
 
 
 class Files:
@@ -23,6 +26,7 @@ class Files:
     def action_save_as(self) -> None:
         default = "my-site.toml" if self.demo else str(self.site_file.path)
         forecast = scenario.inputs_of(self.site_file.path)[1:]  # never over the forecast
+        from tui.dialogs import SaveAs
         self.push_screen(SaveAs(default, forecast), self._save_as_chosen)
 
     def _save_as_chosen(self, path: str | None) -> None:
@@ -55,6 +59,7 @@ class Files:
         days = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day)
                 for d in self.result.days]
         stem = Path(self.site_file.path).stem
+        from tui.dialogs import Export
         self.push_screen(Export(stem, days, self.day, Path(self.site_file.path).parent),
                          self.export)
 
@@ -82,6 +87,7 @@ class Files:
         if not self.dirty:
             self.exit(0)
             return
+        from tui.dialogs import UnsavedChanges
         self.push_screen(UnsavedChanges(), self._quit_answer)
 
     def _quit_answer(self, answer: str | None) -> None:

@@ -2,15 +2,13 @@
 moved on the elevation, the events and the sign-offs. Each is one undoable edit through
 `BracingApp.apply`; one the engine or the file's validation refuses is not made, and says why.
 
-A mixin of `BracingApp` (its handlers go by name: a mixin's @on is not collected).
+A mixin of `BracingApp` (its handlers go by name: a mixin's @on is not collected). The
+dialogs and the designer load when first asked for (not waited for at start).
 """
 
 from __future__ import annotations
 
 from bracing.scenario import REMOVE, SiteFileError
-from tui import design
-from tui.days import EVENT_FIELDS, ListDialog, signoff_fields
-from tui.dialogs import DesignProposal
 from tui.engine import compute, early_signoffs, problems_text
 from tui.fields import moved_brace, panel_index, with_values
 from tui.wall_view import BraceElevation, openings_of
@@ -50,6 +48,8 @@ class Fixes:
         if i is None:
             self.notify("Open a wall (the Wall view) to design its braces.", severity="warning")
             return
+        from tui import design
+        from tui.dialogs import DesignProposal
         proposal = design.propose(self.site_file, i)
         current = self.result.panel(self.mark)
         openings = openings_of(self.site_file.site.panels[i])
@@ -68,6 +68,7 @@ class Fixes:
 
     def action_signoff(self) -> None:
         """The sign-offs (a wall's release: wall, day, who, license, date)."""
+        from tui.days import signoff_fields
         marks = [p.mark for p in self.site_file.site.panels]
         defaults = {"panel": self.mark, "day": self.day}
         self._edit_list("signoffs", "Sign-offs: the release of a wall's braces (OSHA "
@@ -75,10 +76,12 @@ class Fixes:
 
     def action_events(self) -> None:
         """The events: the permanent work that makes walls eligible for release."""
+        from tui.days import EVENT_FIELDS
         self._edit_list("events", "Events: the permanent work that releases walls",
                         EVENT_FIELDS, {"day": self.day})
 
     def _edit_list(self, key: str, title: str, entries_fields, defaults: dict) -> None:
+        from tui.days import ListDialog
         listed = list(self.site_file.data.get(key, []))
 
         def answer(entries: list[dict] | None) -> None:

@@ -5,7 +5,7 @@ from __future__ import annotations
 from rich.text import Text
 from textual.app import ComposeResult
 from textual.containers import VerticalScroll
-from textual.reactive import reactive
+from textual.reactive import var
 from textual.widgets import DataTable, Static
 
 from bracing.model import DEFAULT_RULES
@@ -21,9 +21,9 @@ from tui.widgets import (
 class SettingsView(DrawnWhenShown, VerticalScroll):
     """The wind basis, exposure, period and the site rules with their sources."""
 
-    result = reactive(None, always_update=True, init=False)
-    site_file = reactive(None, always_update=True, init=False)
-    errors = reactive(dict, always_update=True, init=False)
+    result = var(None, always_update=True, init=False)
+    site_file = var(None, always_update=True, init=False)
+    errors = var(dict, always_update=True, init=False)
 
     def compose(self) -> ComposeResult:
         yield Static("Wind basis and the rules the site file sets (Enter applies a value)",
@@ -78,7 +78,7 @@ class SettingsView(DrawnWhenShown, VerticalScroll):
 class KeysView(VerticalScroll):
     """Every key of the interface, and what the mouse does."""
 
-    keys = reactive(list, always_update=True, init=False)
+    keys = var(list, always_update=True, init=False)
 
     def compose(self) -> ComposeResult:
         yield Static("Keys (the mouse works too: click a tab, a row, a field or a button)",

@@ -11,7 +11,7 @@ from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
 from textual.message import Message
-from textual.reactive import reactive
+from textual.reactive import reactive, var
 from textual.widgets import DataTable, Label, Select, Static
 
 from bracing.report.text import fmt
@@ -23,6 +23,7 @@ from tui.widgets import (
     Choice,
     DrawnWhenShown,
     Form,
+    Table,
     flag_lines,
     pass_text,
     plain,
@@ -136,11 +137,11 @@ class WallView(DrawnWhenShown, Horizontal):
         def control(self) -> WallView:
             return self.view
 
-    result = reactive(None, always_update=True, init=False)
-    site_file = reactive(None, always_update=True, init=False)
-    mark = reactive("", init=False)
-    units = reactive("us", init=False)
-    errors = reactive(dict, always_update=True, init=False)
+    result = var(None, always_update=True, init=False)
+    site_file = var(None, always_update=True, init=False)
+    mark = var("", init=False)
+    units = var("us", init=False)
+    errors = var(dict, always_update=True, init=False)
 
     CHECK_COLUMNS = ("Result", "Element", "Region", "Demand", "Capacity", "Utilization",
                      "Combination", "Source")
@@ -156,7 +157,7 @@ class WallView(DrawnWhenShown, Horizontal):
         with VerticalScroll(id="wall-results"):
             yield Static("", id="wall-summary")
             yield Static("", id="wall-flags")
-            yield DataTable(id="checks-table", cursor_type="row", zebra_stripes=True)
+            yield Table(id="checks-table", cursor_type="row", zebra_stripes=True)
             with Horizontal(id="wall-drawings"):
                 yield Static("", id="wall-section", classes="drawing")
                 yield BraceElevation(id="wall-elevation", classes="drawing")

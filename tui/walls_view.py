@@ -8,7 +8,7 @@ from textual import on
 from textual.app import ComposeResult
 from textual.containers import Horizontal, Vertical
 from textual.message import Message
-from textual.reactive import reactive
+from textual.reactive import var
 from textual.widgets import DataTable, Label, Select, Static
 
 from bracing.results import STATUSES
@@ -18,6 +18,7 @@ from tui.widgets import (
     STATUS_LOOK,
     Choice,
     DrawnWhenShown,
+    Table,
     plain,
     speed,
     utilization_text,
@@ -41,9 +42,9 @@ class WallsView(DrawnWhenShown, Vertical):
         def control(self) -> WallsView:
             return self.view
 
-    result = reactive(None, always_update=True, init=False)
-    site_file = reactive(None, always_update=True, init=False)
-    units = reactive("us", init=False)
+    result = var(None, always_update=True, init=False)
+    site_file = var(None, always_update=True, init=False)
+    units = var("us", init=False)
 
     # the essential columns first (they fit at 80 columns); wider terminals show the rest
     COLUMNS = ("Wall", "Status", "Stand-down", "Verdict", "Utilization", "Working limit",
@@ -63,7 +64,7 @@ class WallsView(DrawnWhenShown, Vertical):
                                                       ("concrete", "masonry", "framed")],
                          value=ALL, allow_blank=False, id="filter-material")
             yield Static("", id="walls-count")
-        yield DataTable(id="walls-table", cursor_type="row", zebra_stripes=True)
+        yield Table(id="walls-table", cursor_type="row", zebra_stripes=True)
         yield FoundationSection(id="walls-foundation")
 
     def on_mount(self) -> None:

@@ -10,12 +10,14 @@ from collections.abc import Callable
 from dataclasses import dataclass
 
 from rich.text import Text
-from textual import on
+from textual import events, on
 from textual.app import ComposeResult
 from textual.containers import Vertical
+from textual.geometry import Region
 from textual.message import Message
-from textual.reactive import reactive
-from textual.widgets import Footer, Input, Label, Select, Static
+from textual.reactive import reactive, var
+from textual.strip import Strip
+from textual.widgets import DataTable, Footer, Input, Label, Select, Static
 
 from bracing.report.text import fmt
 from bracing.results import CAUTION
@@ -102,6 +104,31 @@ class Choice(Select):
             self.value = value
 
 
+class Table(DataTable):
+    """Textual's table, its lines drawn again only when they change. DataTable draws every
+    line again at each Resize event, which Textual sends also when a table is shown at the
+    size it was drawn at (at start, after the first screen; at each view switch), and at each
+    update of its styles (a view shown, the focus gained or lost), although the lines it keeps
+    are kept by the focus state they were drawn in: here they are dropped only when the width
+    or the theme changes."""
+
+    def render_lines(self, crop: Region) -> list[Strip]:
+        self.__dict__["_drawn_width"] = self.size.width
+        if self.__dict__.setdefault("_theme", self.app.theme) != self.app.theme:
+            self.__dict__["_theme"] = self.app.theme
+            self._clear_caches()
+        return super().render_lines(crop)
+
+    def notify_style_update(self) -> None:
+        super(DataTable, self).notify_style_update()  # (not DataTable's: it drops every line)
+        self._get_styles_to_render_cell.cache_clear()  # (a cell's look, by focus state)
+        self.refresh()
+
+    def _on_resize(self, event: events.Resize) -> None:
+        if event.size.width == self.__dict__.get("_drawn_width"):
+            event.prevent_default()  # (DataTable's handler would draw every line again)
+
+
 def show_text(widget: Static, text: Text | str) -> None:
     """Put `text` in `widget` only when it differs from what the widget shows (an update lays
     the screen out again: the whole site's result after a wall's changes little on screen)."""
@@ -109,7 +136,19 @@ def show_text(widget: Static, text: Text | str) -> None:
     key = (text.plain, [(s.start, s.end, str(s.style)) for s in text.spans])
     if widget.__dict__.get("_shown") != key:
         widget.__dict__["_shown"] = key
-        widget.update(text)
+        widget.update(text, layout=False)
+        if not same_size(widget):  # the screen laid out again only when the size changes
+            widget.refresh(layout=True)
+
+
+def same_size(widget: Static) -> bool:
+    """True when `widget` keeps its size on screen with the text it now holds: its width does
+    not follow its text, and the height the layout would give that text (wrapped as the
+    layout wraps it) is its height on screen."""
+    size = widget.content_size
+    if not size.width or (widget.styles.width is not None and widget.styles.width.is_auto):
+        return False
+    return widget.get_content_height(widget.size, widget.app.size, size.width) == size.height
 
 
 class DrawnWhenShown:
@@ -238,7 +277,7 @@ class FieldRow(Vertical):
         self.set_reactive(FieldRow.value, spec.value)
         if spec.kind == "fixed":
             for fixed in self.query(".field-fixed").results(Static):
-                fixed.update(Text(spec.value))
+                show_text(fixed, spec.value)
         elif spec.kind == "choice":
             for choice in self.query(Choice).results(Choice):
                 choice.offer([(Text(c), c) for c in spec.choices], spec.value)
@@ -281,7 +320,7 @@ class FieldRow(Vertical):
 class Form(Vertical):
     """A column of fields; rebuilt when the set of fields changes, else only refilled."""
 
-    errors = reactive(dict, always_update=True, init=False)
+    errors = var(dict, always_update=True, init=False)
 
     def __init__(self, specs: list[FieldSpec] = (), **kwargs):
         super().__init__(**kwargs)
