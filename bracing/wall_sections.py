@@ -130,11 +130,12 @@ def beta_1(fc_psi):
 
 def flexure_phi(as_in2, fy_psi, d_in, fc_psi, es_psi=29.0e6):
     """phi of a section by its net tensile strain, eps_t = 0.003 (d - c) / c, c = a / beta_1:
-    0.90 at eps_t >= 0.005, 0.65 at eps_t <= fy/Es, linear between (ACI 318-19 Table 21.2.2)."""
+    0.90 at eps_t >= eps_ty + 0.003 (tension-controlled), 0.65 at eps_t <= eps_ty = fy/Es,
+    linear between (ACI 318-19 Table 21.2.2; the limit 0.005 of earlier editions is not used)."""
     c = as_in2 * fy_psi / (0.85 * fc_psi * 12.0) / beta_1(fc_psi)
     strain = 0.003 * (d_in - c) / c
     yield_strain = fy_psi / es_psi
-    return np.clip(0.65 + 0.25 * (strain - yield_strain) / (0.005 - yield_strain), 0.65, 0.90)
+    return np.clip(0.65 + 0.25 * (strain - yield_strain) / 0.003, 0.65, 0.90)
 
 
 def reinforced_concrete_moment(as_in2, fy_psi, d_in, fc_psi):
