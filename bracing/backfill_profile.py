@@ -13,7 +13,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from bracing import backfill
-from bracing.backfill import WATER_PCF, pressure_coefficient
+from bracing.earth_pressure import pressure_parts
 
 
 @dataclass(frozen=True)
@@ -54,22 +54,6 @@ class BackfillSketch:
     brace: InsideBraceSketch | None = None
     danger: bool = False
     caption: str = ""                   # e.g. "day 3, planned"
-
-
-def pressure_parts(level, height, efp, unit_weight, surcharge=0.0, water=0.0):
-    """The unfactored lateral pressure (psf) at `level` ft above the base under a backfill of
-    `height` ft, in its three parts (method notes §12, `p = K q_s + EFP z + 62.4 (1 - K) s`):
-    the surcharge's `K q_s` (over the full height), the soil's `EFP z` (z the depth below the
-    backfill's top) and the water's `62.4 (1 - K) s` (s the depth below the water level at
-    `water` ft above the base; K above 1 taken as 1). Zero above the backfill."""
-    y = np.asarray(level, dtype=float)
-    k = pressure_coefficient(efp, unit_weight)
-    below = y <= height
-    depth = np.clip(height - y, 0.0, None)
-    submerged = np.clip(np.minimum(water, height) - y, 0.0, None)
-    return (np.where(below, k * surcharge, 0.0),
-            efp * depth,
-            WATER_PCF * np.maximum(1.0 - k, 0.0) * submerged)
 
 
 def resultant_height(shear, moment):

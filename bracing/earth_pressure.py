@@ -169,6 +169,22 @@ def resultants_at(level, height, efp, unit_weight=SOIL_UNIT_WEIGHT_PCF, surcharg
 
 
 # --- The backfill ------------------------------------------------------------------------------
+def pressure_parts(level, height, efp, unit_weight, surcharge=0.0, water=0.0):
+    """The unfactored lateral pressure (psf) at `level` ft above the base under a backfill of
+    `height` ft, in its three parts (method notes §12, `p = K q_s + EFP z + 62.4 (1 - K) s`):
+    the surcharge's `K q_s` (over the full height), the soil's `EFP z` (z the depth below the
+    backfill's top) and the water's `62.4 (1 - K) s` (s the depth below the water level at
+    `water` ft above the base; K above 1 taken as 1). Zero above the backfill."""
+    y = np.asarray(level, dtype=float)
+    k = pressure_coefficient(efp, unit_weight)
+    below = y <= height
+    depth = np.clip(height - y, 0.0, None)
+    submerged = np.clip(np.minimum(water, height) - y, 0.0, None)
+    return (np.where(below, k * surcharge, 0.0),
+            efp * depth,
+            WATER_PCF * np.maximum(1.0 - k, 0.0) * submerged)
+
+
 @dataclass(frozen=True)
 class Soil:
     """The backfill: its equivalent fluid pressure and where it came from."""

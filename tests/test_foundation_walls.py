@@ -226,3 +226,14 @@ def test_a_forecast_at_a_foundation_wall_s_stand_down_gust_makes_its_day_no_go(t
     day = next(d for d in evaluate(site, base_dir=tmp_path).days if d.day == 1)
     assert day.forecast_gust_mph == 120 and day.wind_go is False and day.verdict == "NO-GO"
     assert "foundation wall(s) FW-N" in day.wind or "foundation wall(s) FW-S" in day.wind
+
+
+def test_the_pressure_diagram_is_the_closed_form_at_its_ends(basement):
+    """FW-S's diagram at its planned 2 ft of SM fill, at rest, no surcharge, drained: IBC 2018
+    Table 1610.1 gives SM 60 psf/ft at rest (from memory); p = EFP z, so 60 x 2 = 120 psf at
+    the base and 0 at the fill's top (method notes §12)."""
+    south = next(w for w in basement.foundation_walls if w.mark == "FW-S")
+    assert south.planned_height_ft == 2.0
+    assert south.pressure[0].level_ft == 0.0 and south.pressure[0].pressure_psf == pytest.approx(
+        120.0, abs=1e-9)
+    assert south.pressure[-1].level_ft == 2.0 and south.pressure[-1].pressure_psf == 0.0

@@ -16,6 +16,7 @@ from __future__ import annotations
 import numpy as np
 
 from bracing import backfill, backfill_profile
+from bracing.earth_pressure import pressure_parts
 from bracing.foundation_results import (
     BackfillSoilResult,
     BackfillWind,
@@ -102,17 +103,15 @@ PROFILE_POINTS = 9  # levels of the pressure diagram
 
 
 def pressure_profile(soil: backfill.Soil, height: float) -> list[PressurePoint]:
-    """Earth pressure at levels of the backfill: the base shear's slope at each level,
-    p = dV/dz of the fill above it (statics of bracing.backfill.resultants)."""
+    """Earth pressure at levels of the backfill, its three parts added
+    (bracing.earth_pressure.pressure_parts)."""
     if height <= 0.0:
         return []
     levels = np.linspace(0.0, height, PROFILE_POINTS)
-    step = 1e-4 * height
-    upper, _ = soil.at(height, np.minimum(levels + step, height))
-    lower, _ = soil.at(height, np.maximum(levels - step, 0.0))
-    slope = (lower - upper) / (np.minimum(levels + step, height) - np.maximum(levels - step, 0))
+    pressure = sum(pressure_parts(levels, height, soil.efp, soil.unit_weight, soil.surcharge,
+                                  soil.water))
     return [PressurePoint(level_ft=float(z), pressure_psf=float(p))
-            for z, p in zip(levels, slope, strict=True)]
+            for z, p in zip(levels, pressure, strict=True)]
 
 
 def backfill_side(site: Site, w) -> str | None:
