@@ -18,6 +18,7 @@ from xml.sax.saxutils import escape, quoteattr
 from shapely.geometry import LineString, Polygon, box
 
 from bracing.backfill_profile import BackfillSketch, InsideBraceSketch  # noqa: F401 (its input)
+from bracing.report.svg.elevation import vertical_dimension
 from bracing.report.svg.labels import Label, place_labels, placed_items
 from bracing.report.svg.style import (
     BRACE,
@@ -29,7 +30,6 @@ from bracing.report.svg.style import (
     TEXT_MM,
     lines_block,
     num,
-    text,
 )
 from bracing.results import CAUTION
 
@@ -84,7 +84,8 @@ def backfill_section_svg(sketch: BackfillSketch, standalone: bool = False, *,
                                            f"{round(s.footing_thickness_ft, 2):g} ft"),
                             LEAST_TEXT_MM,
                             (fr.xw, fr.yb + s.footing_thickness_ft * fr.k / 2), bold=False))
-    items += _dim_v(DIM_X_MM, fr.yb, fr.y(s.wall_height_ft), say(f"wall {s.wall_height_ft:g} ft"))
+    items += vertical_dimension(DIM_X_MM, fr.yb, fr.y(s.wall_height_ft),
+                                say(f"wall {s.wall_height_ft:g} ft"))
     frame = (DIM_X_MM + 2.0, y + 0.5, ELEVATION_MM - 0.5, bottom + 7.0)
     items += placed_items(place_labels(labels, drawn, frame))
     notes = [(NOTE, LEAST_TEXT_MM, "normal", "#000")] if notes else []
@@ -274,16 +275,6 @@ def _brace(s, fr: _Frame, drawn: list, labels: list, say) -> list[str]:
             f'<rect x="{num(xf - 1.4)}" y="{num(fr.yb - 0.5)}" width="2.8" height="0.5" '
             'fill="#000"/>']
 
-
-def _dim_v(x: float, y0: float, y1: float, words: str) -> list[str]:
-    """A vertical dimension (mm) at x from y0 up to y1, its words turned along it."""
-    t, mid = 0.8, (y0 + y1) / 2
-    return [f'<g class="dimension" stroke="#000" stroke-width="0.2">'
-            f'<line x1="{num(x)}" y1="{num(y0)}" x2="{num(x)}" y2="{num(y1)}"/>'
-            f'<line x1="{num(x - t)}" y1="{num(y0)}" x2="{num(x + t)}" y2="{num(y0)}"/>'
-            f'<line x1="{num(x - t)}" y1="{num(y1)}" x2="{num(x + t)}" y2="{num(y1)}"/></g>',
-            text(x - 0.8, mid, words, LEAST_TEXT_MM, "middle",
-                 extra=f' class="dim-text" transform="rotate(-90 {num(x - 0.8)} {num(mid)})"')]
 
 
 def _document(items: list[str], height: float, s: BackfillSketch) -> str:

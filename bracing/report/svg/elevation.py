@@ -148,7 +148,7 @@ def _wall(e: Elevation, sheet: _Sheet, stacked: bool) -> list[str]:
                       LEAST_TEXT_MM, weight="bold", extra=' class="edge"'))
     items.append(text(x0 + w * k, top - 1.0, e.right_edge, LEAST_TEXT_MM, "end", "bold",
                       extra=' class="edge"'))
-    items += _dim_v_mm(x0 + w * k + 3.0 + 8.0, base, top, f"{e.height_ft:g} ft", "wall")
+    items += vertical_dimension(x0 + w * k + 3.0 + 8.0, base, top, f"{e.height_ft:g} ft", "wall")
     return items
 
 
@@ -167,7 +167,7 @@ def _inserts(xs: list[float], hb: float, w: float, sheet: _Sheet) -> list[str]:
                      'stroke-dasharray="0.8,0.6"/>')
     items.append(f'<line x1="{num(zx)}" y1="{num(zy)}" x2="{num(x0 + w * k)}" y2="{num(zy)}" '
                  f'stroke="{BRACE}" stroke-width="0.15" stroke-dasharray="1,0.8"/>')
-    items += _dim_v_mm(x0 + w * k + 3.0, base, zy, f"insert {hb:g} ft", "insert")
+    items += vertical_dimension(x0 + w * k + 3.0, base, zy, f"insert {hb:g} ft", "insert")
     for row, x in enumerate(xs):
         items += _dim_h_mm(x0, x0 + x * k, base + 4.0 + row * 4.2, f"{x:.2f} ft",
                            f"brace {row + 1}")
@@ -197,10 +197,13 @@ def _dim_h_mm(x0: float, x1: float, y: float, words: str, key: str) -> list[str]
                  extra=' class="dim-text"')]
 
 
-def _dim_v_mm(x: float, y0: float, y1: float, words: str, key: str) -> list[str]:
-    """A vertical dimension (sheet mm) at x from y0 up to y1, its words turned along it."""
+def vertical_dimension(x: float, y0: float, y1: float, words: str, key: str | None = None
+                       ) -> list[str]:
+    """A vertical dimension (sheet mm) at x from y0 up to y1, its words turned along it
+    (`key`: a data-key naming it, where a test looks it up)."""
     t, mid = 0.8, (y0 + y1) / 2
-    return [f'<g class="dimension" data-key={quoteattr(key)} stroke="#000" stroke-width="0.2">'
+    named = f" data-key={quoteattr(key)}" if key is not None else ""
+    return [f'<g class="dimension"{named} stroke="#000" stroke-width="0.2">'
             f'<line x1="{num(x)}" y1="{num(y0)}" x2="{num(x)}" y2="{num(y1)}"/>'
             f'<line x1="{num(x - t)}" y1="{num(y0)}" x2="{num(x + t)}" y2="{num(y0)}"/>'
             f'<line x1="{num(x - t)}" y1="{num(y1)}" x2="{num(x + t)}" y2="{num(y1)}"/></g>',
