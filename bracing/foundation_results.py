@@ -46,6 +46,7 @@ class InsideBraceResult:
     spacing_ft: float
     angle_deg: float
     length_ft: float
+    foot_distance_ft: float          # of the brace foot from the wall's inside face
     brace_type: str
     foot_anchor: str | None
     reaction_plf: float              # R = M_base / h_b, earth only, unfactored

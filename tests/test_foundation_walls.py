@@ -237,3 +237,14 @@ def test_the_pressure_diagram_is_the_closed_form_at_its_ends(basement):
     assert south.pressure[0].level_ft == 0.0 and south.pressure[0].pressure_psf == pytest.approx(
         120.0, abs=1e-9)
     assert south.pressure[-1].level_ft == 2.0 and south.pressure[-1].pressure_psf == 0.0
+
+
+def test_the_inside_brace_s_foot_and_length_by_its_geometry(basement):
+    """FW-W's inside braces meet the wall at 7 ft at 45 degrees (the demo file): the foot
+    stands 7 / tan 45 = 7.0 ft from the inside face and the brace is 7 / sin 45 = 9.899 ft
+    long, pin to pin (geometry)."""
+    west = next(w for w in basement.foundation_walls if w.mark == "FW-W")
+    b = west.inside_brace
+    assert (b.height_ft, b.angle_deg) == (7.0, 45.0)
+    assert b.foot_distance_ft == pytest.approx(7.0, rel=1e-9)
+    assert b.length_ft == pytest.approx(9.8995, rel=1e-4)

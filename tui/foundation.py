@@ -9,8 +9,6 @@ and formats them, and scales the engine's pressure diagram into characters.
 
 from __future__ import annotations
 
-import math
-
 from rich.text import Text
 
 from bracing.report import backfill_sheet
@@ -245,8 +243,7 @@ def section(w, units: str = "us", cols: int = 34, rows: int = 13) -> list[str]:
         canvas.line(soil, row(limit), cols - 1, row(limit), LIMIT, over=" " + SOIL + PRESSURE)
     b = w.inside_brace
     if b is not None:
-        foot_ft = b.length_ft * math.cos(math.radians(b.angle_deg))  # drawn where it stands
-        reach = round(foot_ft / height * (wall_rows - 1) * CELL_ASPECT)
+        reach = round(b.foot_distance_ft / height * (wall_rows - 1) * CELL_ASPECT)
         foot = max(0, wall_at - 1 - reach)
         canvas.line(wall_at - 1, row(b.height_ft), foot, base, BRACE, over=" ")
         canvas.put(wall_at - 1, row(b.height_ft), INSERT)

@@ -153,6 +153,7 @@ def _one(site: Site, w, last: int) -> FoundationWallResult:
         brace = InsideBraceResult(
             height_ft=support.spec.height, spacing_ft=support.spec.spacing,
             angle_deg=support.spec.angle, length_ft=support.length,
+            foot_distance_ft=support.foot_distance,
             brace_type=support.spec.brace_type, foot_anchor=support.spec.foot_anchor,
             reaction_plf=reaction, force_lb=_axial(propped), capacity_lb=support.brace.capacity,
             max_height_ft=braced_max(wall, soil, wind, support),

@@ -9,7 +9,7 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from bracing import backfill
+from bracing import backfill, braces
 from bracing.anchor_kinds import KINDS as ANCHOR_KINDS
 from bracing.model import Site
 from bracing.results import Check
@@ -29,6 +29,7 @@ class Support:
     spec: object        # model.foundation.InsideBraces
     brace: backfill.InsideBrace
     length: float
+    foot_distance: float  # of the brace foot from the wall's inside face, ft
     source: str
     anchor: object      # model.AnchorType or None
 
@@ -38,7 +39,8 @@ def support_of(site: Site, spec) -> Support | None:
     if spec is None:
         return None
     bt = site.brace_types[spec.brace_type]
-    length = spec.height / math.sin(math.radians(spec.angle))
+    foot = float(braces.anchor_distance_for_angle(spec.height, spec.angle))
+    length = float(braces.brace_geometry(spec.height, foot)[3])
     capacity = float(np.nan_to_num(_brace_capacity(bt, np.array([length]), spec.angle,
                                                    "ASD")[0])[0])
     source = {"rated": "maker's rated load at its length", "pipe": "AISC 360-16 E3, Pn/Ωc",
@@ -47,9 +49,9 @@ def support_of(site: Site, spec) -> Support | None:
     if bt.kind == "lumber":
         capacity *= LUMBER_EARTH_SCALE
     anchor = site.anchor_types[spec.foot_anchor] if spec.foot_anchor else None
-    return Support(spec, backfill.InsideBrace(height=spec.height, spacing=spec.spacing,
-                                              angle=spec.angle, capacity=capacity),
-                   length, source, anchor)
+    return Support(spec=spec, brace=backfill.InsideBrace(
+        height=spec.height, spacing=spec.spacing, angle=spec.angle, capacity=capacity),
+        length=length, foot_distance=foot, source=source, anchor=anchor)
 
 
 def braced(wall, soil, wind: Windward, height: float, s: Support) -> list:
