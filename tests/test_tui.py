@@ -14,13 +14,14 @@ import io
 from pathlib import Path
 
 import pytest
-from textual.widgets import DataTable, Input, RadioButton, Select, TabbedContent
+from textual.widgets import DataTable, Input, RadioButton, TabbedContent
 
 from bracing import scenario
 from bracing.results import CAUTION
 from tui import app as tui_app
 from tui import dialogs, drawing
 from tui.app import BracingApp, run
+from tui.choice import Choice
 from tui.dialogs import Export, SaveAs, UnsavedChanges
 from tui.fields import typed, wall_fields
 from tui.widgets import Caution, FieldRow
@@ -227,19 +228,19 @@ def test_walls_worst_first_filters_then_a_wall_with_every_check_and_its_drawings
                 or (p.fails and row[1] == f"✗ {p.status}, DANGER")
             assert row[3] == ("✗ FAILS" if p.fails else "✓ ok")
             assert row[4].endswith("✗") == (p.utilization > 1.0)
-        app.query_one("#filter-status", Select).value = "stands"
+        app.query_one("#filter-status", Choice).value = "stands"
         await pilot.pause()
         assert [r[0] for r in cells(app, "#walls-table")] == \
             [p.mark for p in worst if p.status == "stands"]
-        app.query_one("#filter-status", Select).value = "*"
-        app.query_one("#filter-day", Select).value = 1
+        app.query_one("#filter-status", Choice).value = "*"
+        app.query_one("#filter-day", Choice).value = 1
         await pilot.pause()
         assert [r[0] for r in cells(app, "#walls-table")] == ["P-1"]  # day 1: only P-1 stands
-        app.query_one("#filter-day", Select).value = "*"
-        app.query_one("#filter-material", Select).value = "masonry"
+        app.query_one("#filter-day", Choice).value = "*"
+        app.query_one("#filter-material", Choice).value = "masonry"
         await pilot.pause()
         assert {r[0] for r in cells(app, "#walls-table")} == {"M-1", "M-2"}
-        app.query_one("#filter-material", Select).value = "*"
+        app.query_one("#filter-material", Choice).value = "*"
         await pilot.pause()
 
         for _ in range(2):  # the mouse: a click on a row marks it, a second click opens it
@@ -428,7 +429,7 @@ def test_export_writes_the_days_schedule_in_each_format(site_path, tmp_path):
             dialog = app.screen
             assert isinstance(dialog, Export)
             dialog.query_one(f"#format-{fmt}", RadioButton).value = True
-            dialog.query_one("#export-day", Select).value = 2
+            dialog.query_one("#export-day", Choice).value = 2
             await pilot.pause()
             path = dialog.query_one("#export-path", Input)
             assert path.value == str(site_path.parent /

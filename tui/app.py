@@ -20,11 +20,12 @@ from textual.binding import Binding
 from textual.containers import Vertical
 from textual.reactive import var
 from textual.screen import Screen
-from textual.widgets import Input, Select, Static, TabbedContent, TabPane
+from textual.widgets import Input, Static, TabbedContent, TabPane
 
 from bracing import scenario
 from bracing.results import SiteResult
 from bracing.scenario import REMOVE, SiteFile, SiteFileError
+from tui.choice import Choice
 from tui.engine import compute, problems_text, quick
 from tui.fields import typed
 from tui.files import Files
@@ -322,7 +323,7 @@ class BracingApp(Fixes, Files, App[int]):
         await self.action_show(self.view if self.view in ("wall", "settings") else "wall")
 
     def action_leave_field(self) -> None:
-        if isinstance(self.focused, (Input, Select)):
+        if isinstance(self.focused, (Input, Choice)):
             self.screen.set_focus(None)
 
     def action_toggle_units(self) -> None:

@@ -10,14 +10,14 @@ from textual.app import ComposeResult
 from textual.containers import Horizontal, ScrollableContainer, Vertical, VerticalScroll
 from textual.message import Message
 from textual.reactive import reactive
-from textual.widgets import DataTable, Label, Select, Static
+from textual.widgets import DataTable, Label, Static
 
 from bracing.report.schedule import actions, grouped, headline
 from bracing.report.text import localize
 from tui import drawing, foundation
+from tui.choice import Choice
 from tui.widgets import (
     FLAG_LOOK,
-    Choice,
     DrawnWhenShown,
     plain,
     show_text,
@@ -60,10 +60,10 @@ class DayPicker(Horizontal):
         d = next((d for d in days if d.day == self.day), None)
         show_text(self.query_one(".day-verdict", Static), verdict_badge(d) if d else "")
 
-    @on(Select.Changed)
-    def _picked(self, event: Select.Changed) -> None:
+    @on(Choice.Changed)
+    def _picked(self, event: Choice.Changed) -> None:
         event.stop()
-        if event.value != Select.NULL and event.value != self.day:
+        if event.value != Choice.BLANK and event.value != self.day:
             self.post_message(self.DayPicked(self, int(event.value)))
 
 

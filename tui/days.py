@@ -19,9 +19,10 @@ from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Horizontal, Vertical
 from textual.screen import ModalScreen
-from textual.widgets import Button, DataTable, Input, Label, Select, Static
+from textual.widgets import Button, DataTable, Input, Label, Static
 
-from tui.widgets import Choice, plain
+from tui.choice import Choice
+from tui.widgets import plain
 
 EVENT_KINDS = ("diaphragm", "connections", "pour_strip", "other")
 
@@ -115,7 +116,7 @@ class ListDialog(ModalScreen[list | None]):
         out = {}
         for f in self.fields:
             box = self.query_one(f"#entry-{f.key}")
-            text = str(box.value) if box.value != Select.NULL else ""
+            text = str(box.value) if box.value != Choice.BLANK else ""
             if f.optional and not text.strip():
                 continue
             out[f.key] = value_of(text, f.kind)

@@ -13,11 +13,11 @@ from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Horizontal, Vertical, VerticalScroll
 from textual.screen import ModalScreen
-from textual.widgets import Button, Input, Label, RadioButton, RadioSet, Select, Static
+from textual.widgets import Button, Input, Label, RadioButton, RadioSet, Static
 
 from bracing import scenario
 from tui import drawing
-from tui.widgets import Choice
+from tui.choice import Choice
 
 FORMATS = (("html", "HTML (print it)"), ("csv", "CSV (a spreadsheet)"), ("text", "plain text"))
 EXTENSIONS = {"html": "html", "csv": "csv", "text": "txt"}
@@ -140,15 +140,15 @@ class Export(ModalScreen[ExportRequest | None]):
         return pressed.id.removeprefix("format-") if pressed else "html"
 
     def _day(self) -> int | None:
-        value = self.query_one("#export-day", Select).value
-        return None if value in (EVERY_DAY, Select.NULL) else int(value)
+        value = self.query_one("#export-day", Choice).value
+        return None if value in (EVERY_DAY, Choice.BLANK) else int(value)
 
     def _path(self, fmt: str, day: int | None = None) -> str:
         when = f"-day{day}" if day is not None else ""
         return str(self.folder / f"{self.stem}-schedule{when}.{EXTENSIONS[fmt]}")
 
     @on(RadioSet.Changed)
-    @on(Select.Changed)
+    @on(Choice.Changed)
     def _suggest(self) -> None:
         """A suggested name follows the day and the format; a name typed keeps its stem and
         takes the extension of the format chosen."""

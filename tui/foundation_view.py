@@ -15,9 +15,10 @@ from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Vertical, VerticalScroll
 from textual.screen import Screen
-from textual.widgets import DataTable, Footer, Select, Static
+from textual.widgets import DataTable, Footer, Static
 
 from tui import foundation
+from tui.choice import Choice
 from tui.widgets import ALL, Caution
 
 
@@ -37,7 +38,7 @@ class FoundationSection(Vertical):
         every = foundation.walls(result)
         self.display = bool(every)
         self.failing = any(w.fails for w in every)
-        day, status, material = (ALL if v == Select.NULL else v for v in (day, status, material))
+        day, status, material = (ALL if v == Choice.BLANK else v for v in (day, status, material))
         shown = [w for w in every
                  if (day == ALL or any(d.day == day and d.support != "top support"
                                        for d in w.days))

@@ -12,15 +12,15 @@ from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
 from textual.message import Message
 from textual.reactive import reactive, var
-from textual.widgets import DataTable, Label, Select, Static
+from textual.widgets import DataTable, Label, Static
 
 from bracing.report.text import fmt
 from bracing.results import STATUSES
 from tui import drawing, fields
+from tui.choice import Choice
 from tui.fields import panel_index, wall_fields
 from tui.widgets import (
     UNIT_KEY,
-    Choice,
     DrawnWhenShown,
     Form,
     Table,
@@ -191,10 +191,10 @@ class WallView(DrawnWhenShown, Horizontal):
         self.query_one("#wall-select", Choice).offer([(Text(m), m) for m in marks], self.mark)
         await self.query_one(Form).show(wall_fields(self.site_file, self.mark))
 
-    @on(Select.Changed, "#wall-select")
-    def _pick(self, event: Select.Changed) -> None:
+    @on(Choice.Changed, "#wall-select")
+    def _pick(self, event: Choice.Changed) -> None:
         event.stop()
-        if event.value != Select.NULL and event.value != self.mark:
+        if event.value != Choice.BLANK and event.value != self.mark:
             self.post_message(self.WallPicked(self, str(event.value)))
 
     def _results(self) -> None:

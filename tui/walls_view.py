@@ -9,14 +9,14 @@ from textual.app import ComposeResult
 from textual.containers import Horizontal, Vertical
 from textual.message import Message
 from textual.reactive import var
-from textual.widgets import DataTable, Label, Select, Static
+from textual.widgets import DataTable, Label, Static
 
 from bracing.results import STATUSES
+from tui.choice import Choice
 from tui.foundation_view import FoundationSection
 from tui.widgets import (
     ALL,
     STATUS_LOOK,
-    Choice,
     DrawnWhenShown,
     Table,
     plain,
@@ -79,7 +79,7 @@ class WallsView(DrawnWhenShown, Vertical):
                 for d in (self.result.days if self.result else [])]
         select = self.query_one("#filter-day", Choice)
         select.offer([("all", ALL)] + days,
-                     select.value if select.value != Select.NULL else ALL)
+                     select.value if select.value != Choice.BLANK else ALL)
         self.refill()
 
     def watch_site_file(self) -> None:
@@ -88,8 +88,8 @@ class WallsView(DrawnWhenShown, Vertical):
     def watch_units(self) -> None:
         self.redraw(self.refill)
 
-    @on(Select.Changed)
-    def _filter(self, event: Select.Changed) -> None:
+    @on(Choice.Changed)
+    def _filter(self, event: Choice.Changed) -> None:
         event.stop()
         self.refill()
 
@@ -97,17 +97,17 @@ class WallsView(DrawnWhenShown, Vertical):
         """The walls the filters let through: those that fail first, then worst first."""
         if self.result is None:
             return []
-        day = self.query_one("#filter-day", Select).value
-        status = self.query_one("#filter-status", Select).value
-        material = self.query_one("#filter-material", Select).value
+        day = self.query_one("#filter-day", Choice).value
+        status = self.query_one("#filter-status", Choice).value
+        material = self.query_one("#filter-material", Choice).value
         standing = None
-        if day not in (ALL, Select.NULL):
+        if day not in (ALL, Choice.BLANK):
             d = next((d for d in self.result.days if d.day == day), None)
             standing = set(d.standing) | set(d.lifts) if d else set()
         return [p for p in walls_in_order(self.result)
                 if (standing is None or p.mark in standing)
-                and status in (ALL, Select.NULL, p.status)
-                and material in (ALL, Select.NULL, p.material)]
+                and status in (ALL, Choice.BLANK, p.status)
+                and material in (ALL, Choice.BLANK, p.material)]
 
     def refill(self) -> None:
         if not self.is_mounted:
@@ -137,7 +137,7 @@ class WallsView(DrawnWhenShown, Vertical):
         """The foundation walls under the filters: above the walls when one fails."""
         section = self.query_one(FoundationSection)
         table = self.query_one("#walls-table", DataTable)
-        section.show(self.result, self.units, *(self.query_one(f"#filter-{k}", Select).value
+        section.show(self.result, self.units, *(self.query_one(f"#filter-{k}", Choice).value
                                                 for k in ("day", "status", "material")))
         first = self.children.index(section) < self.children.index(table)
         if section.failing != first:

@@ -17,10 +17,11 @@ from textual.geometry import Region
 from textual.message import Message
 from textual.reactive import reactive, var
 from textual.strip import Strip
-from textual.widgets import DataTable, Footer, Input, Label, Select, Static
+from textual.widgets import DataTable, Footer, Input, Label, Static
 
 from bracing.report.text import fmt
 from bracing.results import CAUTION
+from tui.choice import BLANK, Choice
 from tui.fields import FieldSpec
 
 STATUS_LOOK = {
@@ -86,22 +87,6 @@ def flag_lines(flags) -> Text:
 
 def speed(value: float | None, units: str) -> str:
     return fmt(value, "mph", units)
-
-
-class Choice(Select):
-    """A one-line list of choices; letters and digits stay free for the app's keys."""
-
-    def __init__(self, options, **kwargs):
-        super().__init__(options, compact=True, type_to_search=False, **kwargs)
-        self.offered = list(options)
-
-    def offer(self, options: list[tuple[str, object]], value) -> None:
-        """New options only when they change; a value only when it is offered."""
-        if options != self.offered:
-            self.offered = options
-            self.set_options(options)
-        if any(v == value for _, v in options) and self.value != value:
-            self.value = value
 
 
 class Table(DataTable):
@@ -263,7 +248,7 @@ class FieldRow(Vertical):
         if s.kind == "fixed":
             yield Static(Text(s.value), classes="field-fixed")
         elif s.kind == "choice":
-            yield Choice([(Text(c), c) for c in s.choices], value=s.value or Select.NULL,
+            yield Choice([(Text(c), c) for c in s.choices], value=s.value or BLANK,
                          allow_blank=not s.value,
                          prompt=f"not set ({s.hint})" if s.hint else "not set")
         else:
@@ -303,10 +288,10 @@ class FieldRow(Vertical):
         if event.value != self.value and not self.error:
             self.post_message(self.Edited(self, self.spec, event.value))
 
-    @on(Select.Changed)
-    def _chosen(self, event: Select.Changed) -> None:
+    @on(Choice.Changed)
+    def _chosen(self, event: Choice.Changed) -> None:
         event.stop()
-        if event.value != Select.NULL and event.value != self.value:
+        if event.value is not BLANK and event.value != self.value:
             self.post_message(self.Edited(self, self.spec, str(event.value)))
 
     def key_escape(self) -> None:
