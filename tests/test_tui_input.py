@@ -12,6 +12,7 @@ from textual.widgets import Input
 
 from bracing import scenario
 from tui.app import BracingApp
+from tui.choice import Choice, ChoiceList
 from tui.dialogs import Export, SaveAs
 
 
@@ -131,3 +132,28 @@ def test_an_export_onto_the_site_file_is_refused(tmp_path):
     drive(app, steps)
     assert path.read_text(encoding="utf-8") == SITE
     assert sorted(os.listdir(tmp_path)) == ["site.toml"]
+
+
+def test_a_choice_opens_its_list_chooses_with_enter_and_leaves_it_with_esc(tmp_path):
+    """The one-widget choice (tui/choice.py): Enter opens its list over the screen at the
+    value shown; Esc closes it with the value unchanged; down and Enter choose the next
+    option, and the Walls table is filtered by it (the choice's Changed message)."""
+    app = BracingApp(_site(tmp_path))
+
+    async def steps(pilot):
+        status = app.query_one("#filter-status", Choice)
+        status.focus()
+        await pilot.press("enter")
+        await pilot.pause()
+        assert isinstance(app.screen, ChoiceList)
+        await pilot.press("escape")
+        await pilot.pause()
+        assert not isinstance(app.screen, ChoiceList)
+        assert status.value == "*" and app.focused is status
+        rows = app.query_one("#walls-table").row_count
+        await pilot.press("enter", "down", "enter")
+        await pilot.pause()
+        assert status.value == status.options[1][1] != "*"
+        assert app.query_one("#walls-table").row_count < rows
+
+    drive(app, steps)
