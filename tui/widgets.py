@@ -9,6 +9,8 @@ import math
 from collections.abc import Callable
 from dataclasses import dataclass
 
+from rich.segment import Segment
+from rich.style import Style
 from rich.text import Text
 from textual import events, on
 from textual.app import ComposeResult
@@ -113,6 +115,42 @@ class Table(DataTable):
         if event.size.width == self.__dict__.get("_drawn_width"):
             event.prevent_default()  # (DataTable's handler would draw every line again)
 
+    def _render_cell(self, row_index: int, column_index: int, base_style: Style, width: int,
+                     cursor: bool = False, hover: bool = False) -> list[list[Segment]]:
+        """A cell of one line of text, its segments made at once: DataTable hands every cell
+        to Rich's layout (padding, wrapping, measuring), most of the time a table takes to
+        draw. Other cells (a label column, several lines, text set right) go that way."""
+        header = row_index == -1
+        row_key = self._header_row_key if header else self._row_locations.get_key(row_index)
+        height = self.header_height if header else self.rows[row_key].height
+        cell = self._get_row_renderables(row_index).cells[column_index] \
+            if column_index >= 0 else None
+        if (height != 1 or not isinstance(cell, Text) or "\n" in cell.plain
+                or cell.justify not in (None, "default", "left")):
+            return super()._render_cell(row_index, column_index, base_style, width, cursor,
+                                        hover)
+        key = (row_key, self._column_locations.get_key(column_index), base_style, cursor,
+               hover, self._show_hover_cursor, self._update_count, self._pseudo_class_state)
+        lines = self._cell_render_cache.get(key)
+        if lines is None:
+            fixed = not header and (row_index < self.fixed_rows
+                                    or column_index < self.fixed_columns)
+            component, post = self._get_styles_to_render_cell(
+                header, False, fixed, hover, cursor, self.show_cursor, self._show_hover_cursor,
+                self.cursor_foreground_priority == "css",
+                self.cursor_background_priority == "css")
+            pad = " " * self.cell_padding
+            console = self.app.console  # (Text.render leaves out the text's own style)
+            text = Segment.apply_style(cell.render(console),
+                                       console.get_style(cell.style, default=Style.null()))
+            text = Segment.adjust_line_length(list(text), max(0, width - 2 * len(pad)))
+            line = Segment.apply_style(
+                [Segment(pad), *text, Segment(pad)],
+                base_style + Style.from_meta({"row": row_index, "column": column_index})
+                + component, post)
+            lines = self._cell_render_cache[key] = [list(line)]
+        return lines
+
 
 def show_text(widget: Static, text: Text | str) -> None:
     """Put `text` in `widget` only when it differs from what the widget shows (an update lays
@@ -170,9 +208,20 @@ class KeyFooter(Footer):
     """Textual's footer, built again only when the keys it shows change (the footer builds a
     widget per key at every focus change: the better part of a view switch)."""
 
+    @staticmethod
+    def keys_shown(screen) -> tuple:
+        return tuple((b.key, b.description, enabled)
+                     for _, b, enabled, _ in screen.active_bindings.values() if b.show)
+
+    def compose(self) -> ComposeResult:
+        """The keys at once (Textual's footer is empty until the first change of the keys,
+        then built again: a second layout of the first screen and a focus reset)."""
+        self._bindings_ready = True
+        self.__dict__["_keys_shown"] = self.keys_shown(self.screen)
+        yield from super().compose()
+
     def bindings_changed(self, screen) -> None:
-        shown = tuple((b.key, b.description, enabled)
-                      for _, b, enabled, _ in screen.active_bindings.values() if b.show)
+        shown = self.keys_shown(screen)
         if shown != self.__dict__.get("_keys_shown") or not screen.app.app_focus:
             if screen.app.app_focus:
                 self.__dict__["_keys_shown"] = shown
