@@ -84,6 +84,8 @@ async def drive(path: Path, started: tuple[float, float]) -> None:
         print(f"{'':<28}{'on screen':>15}   {'pilot done':>15}")
         print(f"{'step':<28}{'cpu':>7} {'wall':>7}   {'cpu':>7} {'wall':>7}")
         row("first view", started, frames.last)
+        table = app.query_one("#walls-table")
+        assert table.row_count, "the Walls table is empty: the figures would not be a user's"
         for key, name in (("2", "Wall"), ("3", "Day"), ("4", "Plan"), ("5", "Settings")):
             t = now()
             await pilot.press(key)

@@ -22,6 +22,7 @@ from tui.widgets import (
     plain,
     show_text,
     speed,
+    when_changed,
 )
 
 
@@ -47,9 +48,11 @@ class DayPicker(Horizontal):
         yield Choice([], prompt="no days in the schedule")
         yield Static("", classes="day-verdict")
 
+    @when_changed
     def watch_result(self) -> None:
         self._sync()
 
+    @when_changed
     def watch_day(self) -> None:
         self._sync()
 
@@ -122,12 +125,15 @@ NO_SCHEDULE = ("No days to show: the site file gives no lift days, or the schedu
 class RedrawsForTheDay(DrawnWhenShown):
     """A view that draws itself again when the result, the day or the units change."""
 
+    @when_changed
     def watch_result(self) -> None:
         self.redraw(self._show)
 
+    @when_changed
     def watch_day(self) -> None:
         self.redraw(self._show)
 
+    @when_changed
     def watch_units(self) -> None:
         self.redraw(self._show)
 
@@ -152,7 +158,7 @@ class DayView(RedrawsForTheDay, Vertical):
         self._show()
 
     def _show(self) -> None:
-        if not self.is_mounted:
+        if not self.children:  # (from on_mount on: the view draws itself whole then)
             return
         table = self.query_one(DataTable)
         table.clear()
@@ -230,7 +236,7 @@ class PlanView(RedrawsForTheDay, Vertical):
         self.redraw(self._show)
 
     def _show(self) -> None:
-        if not self.is_mounted:
+        if not self.children:
             return
         plan = drawing.pick_plan(self.result.plan, self.day) if self.result is not None else None
         canvas = self.query_one("#plan-canvas", Static)

@@ -15,6 +15,7 @@ from tui.widgets import (
     Form,
     flag_lines,
     plain,
+    when_changed,
 )
 
 
@@ -41,6 +42,7 @@ class SettingsView(DrawnWhenShown, VerticalScroll):
         self._rules()
         self._basis()
 
+    @when_changed
     async def watch_site_file(self) -> None:
         await self.redraw_async(self._inputs)
 
@@ -51,7 +53,7 @@ class SettingsView(DrawnWhenShown, VerticalScroll):
         self._rules()
 
     def _rules(self) -> None:
-        if self.site_file is None or not self.is_mounted:
+        if self.site_file is None or not self.children:
             return
         table = self.query_one(DataTable)
         table.clear()
@@ -63,6 +65,7 @@ class SettingsView(DrawnWhenShown, VerticalScroll):
                                  "✓ yes" if rule.enabled else "✗ no (off)", rule.source,
                                  rule.basis), key=name)
 
+    @when_changed
     def watch_result(self) -> None:
         self.redraw(self._basis)
 

@@ -31,6 +31,7 @@ from tui.widgets import (
     speed,
     utilization_text,
     wall_status_text,
+    when_changed,
 )
 
 
@@ -171,16 +172,20 @@ class WallView(DrawnWhenShown, Horizontal):
             if self.site_file else [], self.mark)
         self._results()  # whole when mounted: the app gives the attributes first
 
+    @when_changed
     async def watch_site_file(self) -> None:
         await self.redraw_async(self._inputs)
 
+    @when_changed
     async def watch_mark(self) -> None:
         await self.redraw_async(self._inputs)
         self.redraw(self._results)
 
+    @when_changed
     def watch_result(self) -> None:
         self.redraw(self._results)
 
+    @when_changed
     def watch_units(self) -> None:
         self.redraw(self._results)
 

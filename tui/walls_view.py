@@ -25,6 +25,7 @@ from tui.widgets import (
     verdict_of,
     wall_status_text,
     walls_in_order,
+    when_changed,
 )
 
 
@@ -69,8 +70,9 @@ class WallsView(DrawnWhenShown, Vertical):
 
     def on_mount(self) -> None:
         self.query_one("#walls-table", DataTable).add_columns(*self.COLUMNS)
-        self.refill()
+        self._days_and_rows()  # whole when mounted: the app gives the attributes first
 
+    @when_changed
     def watch_result(self) -> None:
         self.redraw(self._days_and_rows)
 
@@ -82,9 +84,11 @@ class WallsView(DrawnWhenShown, Vertical):
                      select.value if select.value != Choice.BLANK else ALL)
         self.refill()
 
+    @when_changed
     def watch_site_file(self) -> None:
         self.redraw(self.refill)
 
+    @when_changed
     def watch_units(self) -> None:
         self.redraw(self.refill)
 
@@ -110,7 +114,7 @@ class WallsView(DrawnWhenShown, Vertical):
                 and material in (ALL, Choice.BLANK, p.material)]
 
     def refill(self) -> None:
-        if not self.is_mounted:
+        if not self.children:  # (from on_mount on: the view draws itself whole then)
             return
         table = self.query_one("#walls-table", DataTable)
         current = None

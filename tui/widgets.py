@@ -174,6 +174,23 @@ def same_size(widget: Static) -> bool:
     return widget.get_content_height(widget.size, widget.app.size, size.width) == size.height
 
 
+def when_changed(watcher: Callable) -> Callable:
+    """A view's watcher run only when its attribute holds another object. Textual's data
+    binding sets every bound attribute once more, to the object it already holds, when the
+    view is mounted, and an attribute that always updates runs its watchers then: each view
+    drew itself three or four times at start. A view draws itself whole when mounted."""
+    if inspect.iscoroutinefunction(watcher):
+        async def run(self, old, new) -> None:
+            if old is not new:
+                await watcher(self)
+    else:
+        def run(self, old, new) -> None:
+            if old is not new:
+                watcher(self)
+    run.__name__, run.__doc__ = watcher.__name__, watcher.__doc__
+    return run
+
+
 class DrawnWhenShown:
     """A view that draws only while its pane is on screen: a change made meanwhile is drawn
     when the view comes back (`catch_up`), so that an edit redraws what the user sees, not
@@ -221,11 +238,12 @@ class KeyFooter(Footer):
         yield from super().compose()
 
     def bindings_changed(self, screen) -> None:
-        shown = self.keys_shown(screen)
-        if shown != self.__dict__.get("_keys_shown") or not screen.app.app_focus:
-            if screen.app.app_focus:
-                self.__dict__["_keys_shown"] = shown
-            super().bindings_changed(screen)
+        shown, before = self.keys_shown(screen), self.__dict__.get("_keys_shown")
+        if shown == before and screen.app.app_focus:
+            return
+        if screen.app.app_focus:
+            self.__dict__["_keys_shown"] = shown
+        super().bindings_changed(screen)
 
 
 class Caution(Static):
