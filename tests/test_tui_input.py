@@ -5,15 +5,18 @@ an export onto the site file. The edit is never lost and the file on disk never 
 
 from __future__ import annotations
 
+import asyncio
 import os
 
 from test_tui import SITE, drive, enter
+from textual.app import App
 from textual.widgets import Input
 
 from bracing import scenario
 from tui.app import BracingApp
 from tui.choice import Choice, ChoiceList
 from tui.dialogs import Export, SaveAs
+from tui.widgets import FieldRow
 
 
 async def _open_wall(pilot, mark: str = "M-2") -> None:
@@ -157,3 +160,37 @@ def test_a_choice_opens_its_list_chooses_with_enter_and_leaves_it_with_esc(tmp_p
         assert app.query_one("#walls-table").row_count < rows
 
     drive(app, steps)
+
+
+def test_enter_on_the_value_the_file_holds_makes_no_edit(tmp_path):
+    """Enter in a field whose text is the file's value changes nothing: no unsaved changes,
+    nothing to undo (it once counted as an edit and marked the file changed)."""
+    app = BracingApp(_site(tmp_path))
+
+    async def steps(pilot):
+        await _open_wall(pilot)
+        row = app.query_one("#field-height", FieldRow)
+        await enter(pilot, "height", row.value)
+        assert not app.dirty and not app.undo_stack
+
+    drive(app, steps)
+
+
+def test_a_choice_cut_to_its_width_keeps_its_mark():
+    """A value longer than the choice is cut with an ellipsis and keeps " ▾" in sight (the
+    demo's "adjustable-pipe-brace" lost it in a 22-column box)."""
+
+    class Narrow(App):
+        CSS = "Choice { width: 12; }"
+
+        def compose(self):
+            yield Choice([("adjustable-pipe-brace", 1)], value=1)
+
+    async def run():
+        app = Narrow()
+        async with app.run_test(size=(40, 5)) as pilot:
+            await pilot.pause()
+            shown = app.query_one(Choice).render().plain
+            assert shown.endswith("…" + " ▾") and len(shown) == 12, shown
+
+    asyncio.run(run())

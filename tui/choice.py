@@ -105,10 +105,15 @@ class Choice(Widget, can_focus=True):
         self.set_reactive(Choice.value, value)
 
     def render(self) -> Text:
+        """The value (or the prompt), and the mark of a choice kept in sight when the value
+        is cut to the width."""
         label = next((Text(label) if isinstance(label, str) else label.copy()
                       for label, v in self.options if v == self.value), None)
         if label is None:
             label = Text(self.prompt, style="dim")
+        room = self.content_size.width - 2
+        if 0 < room < label.cell_len:
+            label.truncate(room, overflow="ellipsis")
         label.append(" ▾", style="dim")
         return label
 

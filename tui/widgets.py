@@ -348,7 +348,8 @@ class FieldRow(Vertical):
     @on(Input.Submitted)
     def _submitted(self, event: Input.Submitted) -> None:
         event.stop()
-        self.post_message(self.Edited(self, self.spec, event.value))
+        if event.value != self.value or self.error:  # (the value the file holds: no edit)
+            self.post_message(self.Edited(self, self.spec, event.value))
 
     @on(Input.Blurred)
     def _left(self, event: Input.Blurred) -> None:
