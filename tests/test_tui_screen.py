@@ -264,3 +264,25 @@ def test_a_brace_layout_with_no_known_utilization_reads_unknown():
         "angle_deg": 50.0, "anchor_distance_ft": 6.7, "wall_anchor": None, "foot_anchor": None,
         "utilization": None})
     assert "utilization unknown" in layout_lines("Now", wall, "us").plain
+
+
+def test_the_first_screen_draws_the_walls_and_the_footer_once(tmp_path, monkeypatch):
+    """At start the Walls table is filled once and the footer built once, with its keys and
+    the walls on the first screen. Textual's data binding set every bound attribute again at
+    mount (four fillings of the table), and its footer was empty until the first change of
+    keys, then built again: both cost the first view a second layout."""
+    filled, built = [], []
+    refill, compose = WallsView.refill, KeyFooter.compose
+    monkeypatch.setattr(WallsView, "refill", lambda view: filled.append(1) or refill(view))
+    monkeypatch.setattr(KeyFooter, "compose",
+                        lambda footer: built.append(1) or (yield from compose(footer)))
+    path = tmp_path / "site.toml"
+    path.write_text(SITE, encoding="utf-8")
+    app = BracingApp(path)
+
+    async def steps(pilot):
+        assert app.query_one("#walls-table", DataTable).row_count == 4
+        assert "q Quit" in screen_text(app)
+
+    drive(app, steps)
+    assert len(filled) == 1 and len(built) == 1, (filled, built)
