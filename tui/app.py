@@ -8,6 +8,7 @@ nothing.
 
 from __future__ import annotations
 
+import asyncio
 import sys
 from dataclasses import replace
 from pathlib import Path
@@ -49,6 +50,8 @@ VIEWS = {"walls": "1 Walls", "wall": "2 Wall", "day": "3 Day", "plan": "4 Plan",
 FOCUS = {"walls": "#walls-view DataTable",  # the first: foundation walls' when one fails
          "wall": "#wall-results", "day": "#day-inventory",
          "plan": "#plan-body", "settings": "#rules-table", "keys": "#keys-table"}
+
+PREBUILD_AFTER_S = 0.5  # the first screen drawn and its first frames settled
 
 KEY_NAMES = {"question_mark": "?", "left_square_bracket": "[", "right_square_bracket": "]",
              "plus": "+", "equals_sign": "=", "minus": "-"}
@@ -169,6 +172,7 @@ class BracingApp(Fixes, Files, App[int]):
         self.quit_after_save = False
         self.edit_next = False
         self.gesture: tuple | None = None  # the edit that the next of its kind joins
+        self.builds: dict[str, asyncio.Task] = {}
 
     def compose(self) -> ComposeResult:
         with Vertical(id="banner"):
@@ -224,6 +228,9 @@ class BracingApp(Fixes, Files, App[int]):
         first = self.query(FOCUS["walls"]).first()  # the foundation walls' when one fails
         if first.id != "walls-table":  # else the Walls table has it already (MainScreen)
             first.focus()
+        # the Wall view built (off screen) while the first screen is read: opening a wall is
+        # then a switch, not a build (a key pressed sooner builds it at once)
+        self.set_timer(PREBUILD_AFTER_S, lambda: self._building("wall"))
 
     # --- what is shown ------------------------------------------------------------------------
     @classmethod
@@ -250,14 +257,25 @@ class BracingApp(Fixes, Files, App[int]):
             return self.view == "plan"
         return True
 
-    async def _ensure_view(self, view: str) -> None:
-        """Build `view` in its pane (in place of the placeholder) if it is not built yet, else
-        draw what changed while it was off screen."""
+    def _building(self, view: str) -> asyncio.Task:
+        """The building of `view` in its pane, in place of the placeholder: started once, and
+        waited for by whoever asks for the view meanwhile."""
+        if view not in self.builds:
+            self.builds[view] = asyncio.create_task(self._build(view))
+        return self.builds[view]
+
+    async def _build(self, view: str) -> None:
         pane = self.query_one(f"#{view}", TabPane)
         placeholder = pane.query(".loading")
         if placeholder:
             await placeholder.remove()
             await pane.mount(self.make_view(view))
+
+    async def _ensure_view(self, view: str) -> None:
+        """Build `view` if it is not built yet, then draw what changed while it was off
+        screen."""
+        await self._building(view)
+        pane = self.query_one(f"#{view}", TabPane)
         for widget in pane.children:  # (a view just built: what its bindings gave it)
             if isinstance(widget, DrawnWhenShown):
                 await widget.catch_up()
