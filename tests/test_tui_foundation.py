@@ -21,7 +21,15 @@ from bracing.report.text import check_values
 from tui import app as tui_app
 from tui import foundation
 from tui.app import BracingApp
-from tui.drawing import BRACE, FILLED, FOUNDATION, FOUNDATION_LATER, OVERFILLED, WALL
+from tui.drawing import (
+    BRACE,
+    FILLED,
+    FOUNDATION,
+    FOUNDATION_LATER,
+    OVERFILLED,
+    UNFILLED,
+    WALL,
+)
 from tui.foundation_view import FoundationScreen
 
 SMALL = (80, 24)
@@ -180,7 +188,7 @@ def test_the_plan_draws_the_foundation_walls_of_the_day_and_marks_fw_e_over(tmp_
     backfill side hatched on the day it is in place, and FW-E's day-7 backfill (5.0 ft, the site
     file's event) marked by its own symbol and DANGER in words (BackfillDay.over, the result's),
     not by colour; the key lists each wall with its backfill. Day 1: FW-E and FW-W (built on day
-    2, the site file) not yet built, no backfill anywhere."""
+    2, the site file) not yet built, no backfill anywhere: the backfill sides outlined."""
     app, result = _app(tmp_path)
     fw_e = next(w for w in result.foundation_walls if w.mark == "FW-E")
     assert next(d for d in fw_e.days if d.day == 7).over
@@ -203,7 +211,8 @@ def test_the_plan_draws_the_foundation_walls_of_the_day_and_marks_fw_e_over(tmp_
         await pilot.pause()
         drawn, plan = _plan_canvas(app)
         assert FOUNDATION_LATER in drawn and FILLED not in drawn and OVERFILLED not in drawn
+        assert UNFILLED in drawn  # the backfill side outlined before any backfill
         assert "FW-E (Basement east): not yet built" in plan
-        assert "FW-S (Basement south): no backfill" in plan
+        assert f"FW-S (Basement south): no backfill yet on its {UNFILLED} side" in plan
 
     drive(app, steps)

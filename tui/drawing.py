@@ -227,13 +227,15 @@ class PlanCanvas(Canvas):
 
 
 FOUNDATION, FOUNDATION_LATER = "▓", "╌"  # a foundation wall built that day, or not yet
-FILLED, OVERFILLED = "/", "X"  # its backfill side: backfilled that day, above what it takes
+# its backfill side: no backfill yet (outlined), backfilled that day, above what it takes
+UNFILLED, FILLED, OVERFILLED = ":", "/", "X"
 PLAN_SYMBOLS = (
     ("█", "wall standing"), ("□", "wall not yet standing"), ("•", "brace"),
     ("▲", "slab anchor"), ("◆", "ground anchor"), ("░", "fall zone"),
     ("#", "named area (below)"), ("·", "slab edge"), ("x", "slab hole"), ("┆", "slab joint"),
     ("~", "open ground"), ("!", "finding"), (FOUNDATION, "foundation wall"),
-    (FOUNDATION_LATER, "foundation wall not yet built"), (FILLED, "backfill (its side)"),
+    (FOUNDATION_LATER, "foundation wall not yet built"), (UNFILLED, "backfill side, none yet"),
+    (FILLED, "backfill (its side)"),
     (OVERFILLED, "backfill above what the wall takes: DANGER"),
 )
 AREA_WORDS = {"keep_clear": "keep clear", "crane_path": "crane path", "public_way": "public way",
@@ -282,6 +284,8 @@ def _ground(canvas: PlanCanvas, g) -> None:
     for w in g.foundation_walls:
         if w.built and w.backfill_ft > 0.0:
             canvas.shade(w.backfill, OVERFILLED if w.over else FILLED, over=" ░·~┆#")
+        else:
+            canvas.ring(w.backfill[:-1], UNFILLED, over=" ░~")
 
 
 def _walls(canvas: PlanCanvas, g) -> None:
@@ -298,7 +302,7 @@ def _walls(canvas: PlanCanvas, g) -> None:
             canvas.put(*canvas.at(*foot), "▲" if p.foot_kind == "slab" else "◆")
     for w in g.foundation_walls:
         canvas.ring(w.footprint[:-1], FOUNDATION if w.built else FOUNDATION_LATER,
-                    over=f" ░·~┆#•□{FILLED}{OVERFILLED}")
+                    over=f" ░·~┆#•□{UNFILLED}{FILLED}{OVERFILLED}")
     for f in g.findings:
         for point in f.at:
             canvas.put(*canvas.at(*point), "!")
@@ -320,7 +324,7 @@ def _marks(canvas: PlanCanvas, g) -> None:
         middle, n = col - len(w.mark) // 2, len(w.mark)
         free = [start for start in sorted(range(col - n + 1, col + 1),
                                           key=lambda c, m=middle: abs(c - m))
-                if all(canvas.get(start + k, row) in f" ░·~{FILLED}{OVERFILLED}"
+                if all(canvas.get(start + k, row) in f" ░·~{UNFILLED}{FILLED}{OVERFILLED}"
                        for k in range(n)) and 0 <= start <= canvas.cols - n]
         if free:
             canvas.text(free[0], row, w.mark)
@@ -350,5 +354,5 @@ def _foundation_key(w, units: str) -> str:
         return (f"{OVERFILLED} {w.mark} ({w.line}): DANGER: backfill "
                 f"{fmt(w.backfill_ft, 'ft', units, 1)}, above what the wall takes")
     fill = (f"backfill {fmt(w.backfill_ft, 'ft', units, 1)} on its {FILLED} side"
-            if w.backfill_ft > 0.0 else "no backfill")
+            if w.backfill_ft > 0.0 else f"no backfill yet on its {UNFILLED} side")
     return f"{FOUNDATION} {w.mark} ({w.line}): {fill}"
