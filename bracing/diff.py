@@ -128,14 +128,18 @@ def _named(kind: str, old: dict, new: dict) -> list[Change]:
     return out
 
 
-def _panel_kind(path: str) -> str:
-    if path.startswith(("bracing.wall_anchor", "bracing.foot_anchor")):
-        return "anchors"
-    if path.startswith("bracing"):
-        return "braces"
-    if path in ("lift_day", "release_after"):
+# the kind of a wall's changed field: (the field paths it starts with, its kind), and its days
+PANEL_KINDS = ((("bracing.wall_anchor", "bracing.foot_anchor"), "anchors"),
+               (("bracing",), "braces"))
+PANEL_DAYS = ("lift_day", "release_after")
+FOUNDATION_KINDS = ((("inside_braces",), "inside braces"), (("backfill",), "backfill"))
+FOUNDATION_DAYS = ("build_day", "release_after")
+
+
+def _kind(path: str, kinds: tuple, days: tuple) -> str:
+    if path in days:
         return "days"
-    return "wall"
+    return next((kind for starts, kind in kinds if path.startswith(starts)), "wall")
 
 
 def input_changes(old: Site, new: Site) -> tuple[list[Change], dict[str, list[Change]]]:
@@ -162,7 +166,8 @@ def input_changes(old: Site, new: Site) -> tuple[list[Change], dict[str, list[Ch
     old_panels = {p["mark"]: p for p in o["panels"]}
     for p in n["panels"]:
         if p["mark"] in old_panels:
-            walls[p["mark"]] = [Change(_panel_kind(c.field), c.item, c.field, c.old, c.new)
+            walls[p["mark"]] = [Change(_kind(c.field, PANEL_KINDS, PANEL_DAYS), c.item, c.field,
+                                       c.old, c.new)
                                 for c in _compare("wall", p["mark"], old_panels[p["mark"]], p)]
     for mark, (before, after) in _signoffs(o["signoffs"], n["signoffs"]).items():
         change = Change("days", mark, "sign-off", before, after)
@@ -170,20 +175,11 @@ def input_changes(old: Site, new: Site) -> tuple[list[Change], dict[str, list[Ch
     return site, walls
 
 
-def _foundation_kind(path: str) -> str:
-    if path.startswith("inside_braces"):
-        return "inside braces"
-    if path.startswith("backfill"):
-        return "backfill"
-    if path in ("build_day", "release_after"):
-        return "days"
-    return "wall"
-
-
 def _foundation_walls(o: dict, n: dict) -> dict[str, list[Change]]:
     """The changed inputs of each foundation wall in both files, by mark."""
     old = {w["mark"]: w for w in o["foundation_walls"]}
-    return {w["mark"]: [Change(_foundation_kind(c.field), c.item, c.field, c.old, c.new)
+    return {w["mark"]: [Change(_kind(c.field, FOUNDATION_KINDS, FOUNDATION_DAYS), c.item,
+                               c.field, c.old, c.new)
                         for c in _compare("wall", w["mark"], old[w["mark"]], w)]
             for w in n["foundation_walls"] if w["mark"] in old}
 
@@ -234,12 +230,9 @@ def compare(old_site: Site, old: SiteResult, new_site: Site, new: SiteResult) ->
 
     site_changes, wall_changes = input_changes(old_site, new_site)
     foundation, foundation_added, foundation_removed = compare_walls(old, new, wall_changes)
-    before = {p.mark: p for p in old.panels}
+    pairs, added, removed = matched(old.panels, new.panels)
     walls = []
-    for b in new.panels:
-        a = before.get(b.mark)
-        if a is None:
-            continue
+    for a, b in pairs:
         changes = wall_changes.get(b.mark, [])
         moved = (a.status != b.status
                  or abs(a.utilization - b.utilization) > SAME_UTILIZATION
@@ -254,15 +247,21 @@ def compare(old_site: Site, old: SiteResult, new_site: Site, new: SiteResult) ->
             new_working_limit_mph=b.working_limit_speed_mph,
             old_stand_down_mph=a.stand_down_speed_mph, new_stand_down_mph=b.stand_down_speed_mph,
             worse=_worse(a, b)))
-    marks = {p.mark for p in new.panels}
     return SiteDiff(
-        changes=site_changes, walls=walls,
-        added=[p.mark for p in new.panels if p.mark not in before],
-        removed=[p.mark for p in old.panels if p.mark not in marks],
+        changes=site_changes, walls=walls, added=added, removed=removed,
         new_fails=new.fails, new_failing=[p.mark for p in new.failing()],
         foundation_walls=foundation, foundation_added=foundation_added,
         foundation_removed=foundation_removed,
         new_failing_foundation=[w.mark for w in new.foundation_walls if w.fails])
+
+
+def matched(old: list, new: list) -> tuple[list[tuple], list[str], list[str]]:
+    """Records with a `mark` in two files: (old, new) of each mark in both, in the new file's
+    order; the marks added; the marks removed."""
+    before, marks = {x.mark: x for x in old}, {x.mark for x in new}
+    return ([(before[x.mark], x) for x in new if x.mark in before],
+            [x.mark for x in new if x.mark not in before],
+            [x.mark for x in old if x.mark not in marks])
 
 
 def _u(u: float) -> str:

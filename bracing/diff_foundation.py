@@ -17,7 +17,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, field
 
-from bracing.diff import SAME_SPEED_MPH, SAME_UTILIZATION, Change
+from bracing.diff import SAME_SPEED_MPH, SAME_UTILIZATION, Change, matched
 from bracing.diff import _change_text as change_text
 from bracing.diff import _mph as mph
 from bracing.diff import _same_speed as same_speed
@@ -96,18 +96,9 @@ class FoundationWallChange:
 def compare_walls(old: SiteResult, new: SiteResult, changes: dict[str, list[Change]]
                   ) -> tuple[list[FoundationWallChange], list[str], list[str]]:
     """(the foundation walls in both files that changed, the marks added, the marks removed)."""
-    before = {w.mark: w for w in old.foundation_walls}
-    walls = []
-    for b in new.foundation_walls:
-        a = before.get(b.mark)
-        if a is None:
-            continue
-        record = _change(a, b, changes.get(b.mark, []))
-        if record.changes or record.days or _moved(record):
-            walls.append(record)
-    marks = {w.mark for w in new.foundation_walls}
-    return (walls, [w.mark for w in new.foundation_walls if w.mark not in before],
-            [w.mark for w in old.foundation_walls if w.mark not in marks])
+    pairs, added, removed = matched(old.foundation_walls, new.foundation_walls)
+    records = [_change(a, b, changes.get(b.mark, [])) for a, b in pairs]
+    return [r for r in records if r.changes or r.days or _moved(r)], added, removed
 
 
 def _change(a, b, changes: list[Change]) -> FoundationWallChange:
