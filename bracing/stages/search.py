@@ -32,7 +32,7 @@ def solve_increasing(g, lo: float, hi: float, size: int, start=None, iterations:
     small heights, where the minimum design pressure meets the friction of a light wall) can
     cross 0 more than once: the bracket keeps its highest known x where g < 0 and a root above
     it (a trial with g >= 0 below that x says nothing of the highest root and is passed over).
-    `highest=True` (the maximum unbraced height, method notes §5) asks for the highest x at
+    `highest=True` (the maximum unbraced height, method notes §3) asks for the highest x at
     which the wall passes: a wall that passes at no trial is scanned over [lo, hi] for its
     highest passing height, and the answer is the passing end of the bracket (g <= 0), never a
     height at which it fails; lo where it passes nowhere.
