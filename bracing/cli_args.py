@@ -21,7 +21,8 @@ DIFF_EXIT_CODES = """exit codes:
   1  the new file fails a check or has a danger finding, or a wall standing in both files
      got worse: its governing utilization rose and is now above 1.0, or its working-limit
      gust fell below the stand-down gust it had in the old file (a crew still reading the old
-     stand-down gust would work in wind the revised wall cannot take)
+     stand-down gust would work in wind the revised wall cannot take); a foundation wall
+     got worse the same way, or a day's planned fill is now above the height it allows
   2  bad input, or a file that cannot be read"""
 
 

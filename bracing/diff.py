@@ -9,8 +9,10 @@ the wall got worse:
 - its working-limit gust fell below the stand-down gust it had before (a crew still reading the
   old stand-down gust would work in wind the revised wall cannot take).
 
-`SiteDiff.fails` is true when a wall got worse so, or when the new file fails as `bracing check`
-would (SiteResult.fails): the exit code of the command.
+Foundation walls (method notes §12) are compared the same way in `bracing.diff_foundation`.
+
+`SiteDiff.fails` is true when a wall or a foundation wall got worse so, or when the new file
+fails as `bracing check` would (SiteResult.fails): the exit code of the command.
 """
 
 from __future__ import annotations
@@ -64,16 +66,25 @@ class SiteDiff:
     removed: list[str]
     new_fails: bool
     new_failing: list[str]
+    # foundation walls (bracing.diff_foundation.FoundationWallChange), added, removed, failing
+    foundation_walls: list = field(default_factory=list)
+    foundation_added: list[str] = field(default_factory=list)
+    foundation_removed: list[str] = field(default_factory=list)
+    new_failing_foundation: list[str] = field(default_factory=list)
 
     @property
     def fails(self) -> bool:
-        return self.new_fails or any(w.worse for w in self.walls)
+        return self.new_fails or any(w.worse for w in [*self.walls, *self.foundation_walls])
 
     def as_dict(self) -> dict:
         return {"changes": [asdict(c) for c in self.changes],
                 "walls": [asdict(w) for w in self.walls],
                 "walls_added": self.added, "walls_removed": self.removed,
+                "foundation_walls": [asdict(w) for w in self.foundation_walls],
+                "foundation_walls_added": self.foundation_added,
+                "foundation_walls_removed": self.foundation_removed,
                 "new_file_fails": self.new_fails, "new_failing_walls": self.new_failing,
+                "new_failing_foundation_walls": self.new_failing_foundation,
                 "fails": self.fails, "caution": CAUTION}
 
 
@@ -117,14 +128,18 @@ def _named(kind: str, old: dict, new: dict) -> list[Change]:
     return out
 
 
-def _panel_kind(path: str) -> str:
-    if path.startswith(("bracing.wall_anchor", "bracing.foot_anchor")):
-        return "anchors"
-    if path.startswith("bracing"):
-        return "braces"
-    if path in ("lift_day", "release_after"):
+# the kind of a wall's changed field: (the field paths it starts with, its kind), and its days
+PANEL_KINDS = ((("bracing.wall_anchor", "bracing.foot_anchor"), "anchors"),
+               (("bracing",), "braces"))
+PANEL_DAYS = ("lift_day", "release_after")
+FOUNDATION_KINDS = ((("inside_braces",), "inside braces"), (("backfill",), "backfill"))
+FOUNDATION_DAYS = ("build_day", "release_after")
+
+
+def _kind(path: str, kinds: tuple, days: tuple) -> str:
+    if path in days:
         return "days"
-    return "wall"
+    return next((kind for starts, kind in kinds if path.startswith(starts)), "wall")
 
 
 def input_changes(old: Site, new: Site) -> tuple[list[Change], dict[str, list[Change]]]:
@@ -145,16 +160,38 @@ def input_changes(old: Site, new: Site) -> tuple[list[Change], dict[str, list[Ch
     site += _named("line", {x["name"]: x for x in o["lines"]}, {x["name"]: x for x in n["lines"]})
     site += _named("event", {x["name"]: x for x in o["events"]},
                    {x["name"]: x for x in n["events"]})
-    walls: dict[str, list[Change]] = {}
+    site += _compare("backfill", "backfill", o["backfill"], n["backfill"])
+    site += _named("backfill event", _backfill_events(o), _backfill_events(n))
+    walls: dict[str, list[Change]] = _foundation_walls(o, n)
     old_panels = {p["mark"]: p for p in o["panels"]}
     for p in n["panels"]:
         if p["mark"] in old_panels:
-            walls[p["mark"]] = [Change(_panel_kind(c.field), c.item, c.field, c.old, c.new)
+            walls[p["mark"]] = [Change(_kind(c.field, PANEL_KINDS, PANEL_DAYS), c.item, c.field,
+                                       c.old, c.new)
                                 for c in _compare("wall", p["mark"], old_panels[p["mark"]], p)]
     for mark, (before, after) in _signoffs(o["signoffs"], n["signoffs"]).items():
         change = Change("days", mark, "sign-off", before, after)
         walls.get(mark, site).append(change)  # a wall standing in both, else the site
     return site, walls
+
+
+def _foundation_walls(o: dict, n: dict) -> dict[str, list[Change]]:
+    """The changed inputs of each foundation wall in both files, by mark."""
+    old = {w["mark"]: w for w in o["foundation_walls"]}
+    return {w["mark"]: [Change(_kind(c.field, FOUNDATION_KINDS, FOUNDATION_DAYS), c.item,
+                               c.field, c.old, c.new)
+                        for c in _compare("wall", w["mark"], old[w["mark"]], w)]
+            for w in n["foundation_walls"] if w["mark"] in old}
+
+
+def _backfill_events(o: dict) -> dict[str, dict]:
+    """The backfill events by day and wall or line ("day 6 FW-W", a second one "... #2")."""
+    out: dict[str, dict] = {}
+    for e in o["backfill_events"]:
+        key = f"day {e['day']} {e['wall'] or e['line']}"
+        count = sum(k == key or k.startswith(f"{key} #") for k in out)
+        out[key if not count else f"{key} #{count + 1}"] = e
+    return out
 
 
 def _signoffs(old: list[dict], new: list[dict]) -> dict[str, tuple]:
@@ -189,13 +226,13 @@ def _worse(a: PanelResult, b: PanelResult) -> list[str]:
 
 def compare(old_site: Site, old: SiteResult, new_site: Site, new: SiteResult) -> SiteDiff:
     """What changed from the old file to the new, and whether a wall got worse."""
+    from bracing.diff_foundation import compare_walls  # it reads this module's Change
+
     site_changes, wall_changes = input_changes(old_site, new_site)
-    before = {p.mark: p for p in old.panels}
+    foundation, foundation_added, foundation_removed = compare_walls(old, new, wall_changes)
+    pairs, added, removed = matched(old.panels, new.panels)
     walls = []
-    for b in new.panels:
-        a = before.get(b.mark)
-        if a is None:
-            continue
+    for a, b in pairs:
         changes = wall_changes.get(b.mark, [])
         moved = (a.status != b.status
                  or abs(a.utilization - b.utilization) > SAME_UTILIZATION
@@ -210,12 +247,21 @@ def compare(old_site: Site, old: SiteResult, new_site: Site, new: SiteResult) ->
             new_working_limit_mph=b.working_limit_speed_mph,
             old_stand_down_mph=a.stand_down_speed_mph, new_stand_down_mph=b.stand_down_speed_mph,
             worse=_worse(a, b)))
-    marks = {p.mark for p in new.panels}
     return SiteDiff(
-        changes=site_changes, walls=walls,
-        added=[p.mark for p in new.panels if p.mark not in before],
-        removed=[p.mark for p in old.panels if p.mark not in marks],
-        new_fails=new.fails, new_failing=[p.mark for p in new.failing()])
+        changes=site_changes, walls=walls, added=added, removed=removed,
+        new_fails=new.fails, new_failing=[p.mark for p in new.failing()],
+        foundation_walls=foundation, foundation_added=foundation_added,
+        foundation_removed=foundation_removed,
+        new_failing_foundation=[w.mark for w in new.foundation_walls if w.fails])
+
+
+def matched(old: list, new: list) -> tuple[list[tuple], list[str], list[str]]:
+    """Records with a `mark` in two files: (old, new) of each mark in both, in the new file's
+    order; the marks added; the marks removed."""
+    before, marks = {x.mark: x for x in old}, {x.mark for x in new}
+    return ([(before[x.mark], x) for x in new if x.mark in before],
+            [x.mark for x in new if x.mark not in before],
+            [x.mark for x in old if x.mark not in marks])
 
 
 def _u(u: float) -> str:
@@ -245,16 +291,22 @@ def render_text(d: SiteDiff, old_name: str, new_name: str) -> str:
     for kind, changes in by_kind.items():
         for c in changes:
             lines.append(f"  {kind} {c.item}: {_change_text(c)}")
-    if d.added:
-        lines.append(f"  walls added: {', '.join(d.added)}")
-    if d.removed:
-        lines.append(f"  walls removed: {', '.join(d.removed)}")
-    if not (d.changes or d.added or d.removed or d.walls):
+    for what, marks in (("walls added", d.added), ("walls removed", d.removed),
+                        ("foundation walls added", d.foundation_added),
+                        ("foundation walls removed", d.foundation_removed)):
+        if marks:
+            lines.append(f"  {what}: {', '.join(marks)}")
+    if not (d.changes or d.added or d.removed or d.walls or d.foundation_added
+            or d.foundation_removed or d.foundation_walls):
         lines.append("  nothing")
     if d.walls:
         lines += ["", "Changed walls (before -> after):"]
     for w in d.walls:
         lines += _wall_lines(w)
+    if d.foundation_walls:
+        lines += ["", "Changed foundation walls (before -> after):"]
+    for w in d.foundation_walls:
+        lines += w.lines()
     lines += ["", _verdict(d), "", CAUTION]
     return "\n".join(lines)
 
@@ -282,10 +334,11 @@ def _verdict(d: SiteDiff) -> str:
     if not d.fails:
         return "Verdict: no wall got worse, and the new file passes."
     reasons = []
-    worse = [w.mark for w in d.walls if w.worse]
+    worse = [w.mark for w in [*d.walls, *d.foundation_walls] if w.worse]
     if worse:
         reasons.append(f"worse: {', '.join(worse)}")
+    failing = [*d.new_failing, *d.new_failing_foundation]
     if d.new_fails:
         reasons.append("the new file fails a check or has a danger finding"
-                       + (f" ({', '.join(d.new_failing)})" if d.new_failing else ""))
+                       + (f" ({', '.join(failing)})" if failing else ""))
     return f"Verdict: NOT ACCEPTABLE x ({'; '.join(reasons)})."

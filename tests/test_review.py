@@ -306,3 +306,106 @@ def test_diff_compares_the_models_not_the_text(capsys, tmp_path):
 
 def test_diff_exits_2_on_bad_input(capsys):
     assert cli.main(["diff", str(PASSING), "missing.toml"]) == 2
+
+
+# --- bracing diff of foundation walls (method notes §12) --------------------------------------
+
+BASEMENT = ROOT / "scenarios" / "basement-duplex.toml"
+
+
+def _basement(tmp_path, name: str, *edits) -> Path:
+    """The basement demo with FW-E's day-7 fill cut to 2 ft (the demo's own danger, so that the
+    file passes), then `edits`, in tmp_path/name."""
+    def edit(doc):
+        for event in doc["backfill_events"]:
+            if event.get("wall") == "FW-E":
+                event["height"] = "2 ft"
+        for more in edits:
+            more(doc)
+    folder = tmp_path / name
+    folder.mkdir()
+    return _revised(folder, BASEMENT, edit)
+
+
+def _fill(wall: str, height: str):
+    def edit(doc):
+        (event,) = [e for e in doc["backfill_events"] if e.get("wall") == wall]
+        event["height"] = height
+    return edit
+
+
+def test_diff_names_a_foundation_wall_whose_fill_now_exceeds_its_allowed_height(capsys, tmp_path):
+    """FW-W's day-6 fill 6 -> 7.5 ft, above the 7.23 ft its inside braces allow. Its inside
+    braces' reaction R = M_base / h_b, M_base = EFP h^3 / 6 (IBC 2018 Table 1610.1, from memory;
+    method notes §12), brace force P = R s / cos(theta): the braces' utilization grows as the
+    cube of the fill, (7.5 / 6)^3 = 1.953125; the height allowed does not move with the fill."""
+    old = _basement(tmp_path, "old")
+    new = _basement(tmp_path, "new", _fill("FW-W", "7.5 ft"))
+    assert _run(capsys, "diff", old, old)[0] == 0  # the fixed demo passes
+    code, out = _run(capsys, "diff", old, new)
+    assert code == 1
+    section = out.split("Changed foundation walls (before -> after):")[1]
+    assert re.findall(r"^  (\S+): ", section, re.MULTILINE) == ["FW-W"]
+    assert "FW-W: passes -> FAILS x" in section
+    assert "day 6: planned fill 6.00 ft -> 7.50 ft" in section
+    assert "WORSE x: day 6: the planned fill 7.50 ft is above the 6.84 ft allowed" in section
+    assert "(FW-W)" in out.split("Verdict:")[1]
+    code, out = _run(capsys, "diff", old, new, "--json")
+    (wall,) = json.loads(out)["foundation_walls"]
+    assert (wall["old_fails"], wall["new_fails"]) == (False, True)
+    assert wall["new_brace_utilization"] / wall["old_brace_utilization"] == pytest.approx(
+        1.953125, rel=1e-9)
+    assert wall["new_braced_max_height_ft"] == wall["old_braced_max_height_ft"]
+    assert [d["day"] for d in wall["days"] if d["new_over"]] == [6, 7, 8, 9]
+    assert json.loads(out)["new_failing_foundation_walls"] == ["FW-W"]
+
+
+def test_diff_exits_1_when_a_foundation_walls_limit_falls_below_its_old_stand_down(capsys,
+                                                                                  tmp_path):
+    # FW-S's day-4 fill 2 -> 2.6 ft, no compactor: still under the 2.73 ft it takes as a
+    # cantilever, so the new file passes, but less of it stands in the wind and more earth
+    # loads it: its working-limit gust falls below the stand-down gust it had
+    def south(doc):
+        (event,) = [e for e in doc["backfill_events"]
+                    if e.get("line") == "Basement south" and e["day"] == 4]
+        event["height"] = "2.6 ft"
+        del event["surcharge"]
+    old, new = _basement(tmp_path, "old"), _basement(tmp_path, "new", south)
+    assert _run(capsys, "check", new)[0] == 0
+    code, out = _run(capsys, "diff", old, new, "--json")
+    assert code == 1
+    (wall,) = json.loads(out)["foundation_walls"]
+    assert wall["mark"] == "FW-S" and not wall["new_fails"]
+    assert wall["new_working_limit_mph"] < wall["old_stand_down_mph"]
+    assert "stand-down gust it had before" in wall["worse"][0]
+
+
+def test_diff_lists_foundation_walls_added_removed_and_their_changed_inputs(capsys, tmp_path):
+    """FW-N renamed FW-N2 (one removed, one added) and FW-W's inside braces 6 -> 8 ft apart:
+    each brace takes more (P = R s / cos(theta), method notes §12), so their utilization rises
+    and the fill they allow falls; the file still passes (exit 0)."""
+    def rename(doc):
+        (wall,) = [w for w in doc["foundation_walls"] if w["mark"] == "FW-N"]
+        wall["mark"] = "FW-N2"
+        (signoff,) = [s for s in doc["signoffs"] if s["panel"] == "FW-N"]
+        signoff["panel"] = "FW-N2"
+        (event,) = [e for e in doc["backfill_events"] if e.get("wall") == "FW-N"]
+        event["wall"] = "FW-N2"
+
+    def wider(doc):
+        (wall,) = [w for w in doc["foundation_walls"] if w["mark"] == "FW-W"]
+        wall["inside_braces"]["spacing"] = "8 ft"
+    old, new = _basement(tmp_path, "old"), _basement(tmp_path, "new", rename, wider)
+    code, out = _run(capsys, "diff", old, new)
+    assert code == 0
+    assert "foundation walls added: FW-N2" in out and "foundation walls removed: FW-N" in out
+    wall = out.split("  FW-W: ")[1]
+    assert "inside braces: inside_braces.spacing: 6.0 -> 8.0" in wall
+    code, out = _run(capsys, "diff", old, new, "--json")
+    record = json.loads(out)
+    assert record["foundation_walls_added"] == ["FW-N2"]
+    assert record["foundation_walls_removed"] == ["FW-N"]
+    (wall,) = record["foundation_walls"]
+    assert 1.0 >= wall["new_brace_utilization"] > wall["old_brace_utilization"]
+    assert wall["new_braced_max_height_ft"] < wall["old_braced_max_height_ft"]
+    assert not wall["worse"]

@@ -143,6 +143,26 @@ def test_utilization_is_one_at_the_maximum_unbraced_height(ws, v, exposure):
     np.testing.assert_allclose(got, 1.0, atol=1e-6)
 
 
+def test_a_short_fresh_masonry_wall_gets_the_highest_height_at_which_it_passes():
+    """A 1.25 ft wall of fresh solid-grouted 12 in CMU, 3 ft long, on a 1 ft base (115 mph,
+    exposure C). At very small heights its utilization falls as it grows (the 16 psf minimum,
+    ASCE 7-16 §29.7 from memory, against the friction of a light wall: sliding governs), then
+    rises (overturning). It passes at its own height, so its maximum unbraced height is at least
+    1.25 ft; the search had returned 0.01 ft, a lower crossing. Stated as the property (method
+    notes §3): the utilization at the returned height is <= 1.0 (within 1e-6 of it) and above
+    1.0 a hair higher (0.01%)."""
+    wall = {"material": "grouted-cmu", "height": 1.25, "width": 3.0, "thickness": 12.0,
+            "base_elevation": 1.0, "mortar_age": 0.0}
+    (own,) = evaluate(site_of([wall])).panels
+    assert own.unbraced.utilization <= 1.0
+    h = own.unbraced.max_height_structural_ft
+    assert h >= 1.25
+    at, above = evaluate(site_of([{**wall, "height": h},
+                                  {**wall, "height": h * (1.0 + 1e-4)}])).panels
+    assert 1.0 - 1e-6 <= at.unbraced.utilization <= 1.0
+    assert above.unbraced.utilization > 1.0
+
+
 # --- SI and US units -----------------------------------------------------------------------------
 
 

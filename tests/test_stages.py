@@ -9,6 +9,7 @@ import pytest
 
 from bracing import braces
 from bracing.stages.findings import FlagRule
+from bracing.stages.search import solve_increasing
 
 
 def test_a_brace_force_splits_into_its_components_either_way():
@@ -48,3 +49,19 @@ def test_a_flag_rule_holds_its_condition_words_and_source_together():
     assert flags[1][0] is flags[2][0] and flags[1][0].message == "over one"
     assert (flags[2][1].code, flags[2][1].message, flags[2][1].source) == (
         "very-high", "at 3", "a site rule")
+
+
+def _falls_then_rises(x, rows):
+    """u(x) = max(1.2 - x, (x/4)^2) less 1: fails below 0.2, passes from 0.2 to 4, then fails."""
+    return np.maximum(1.2 - x, (x / 4.0) ** 2) - 1.0
+
+
+@pytest.mark.parametrize("start", [0.5, 3.0, 0.05, 100.0])
+def test_the_height_search_finds_the_highest_height_that_passes(start):
+    """Method notes §3 (common practice: the highest root of u - 1). By hand: (x/4)^2 = 1 at
+    x = 4, the highest crossing; the lower one, 1.2 - x = 1 at x = 0.2, is not the answer. From
+    a start that passes where u falls (0.5) or rises (3), one that fails below (0.05: scanned)
+    and one that fails above (100)."""
+    (h,) = solve_increasing(_falls_then_rises, 0.01, 300.0, 1, start=start, highest=True)
+    assert h == pytest.approx(4.0, rel=1e-6)
+    assert _falls_then_rises(h, None) <= 0.0  # the wall passes there: never a failing height

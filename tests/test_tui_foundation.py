@@ -21,7 +21,15 @@ from bracing.report.text import check_values
 from tui import app as tui_app
 from tui import foundation
 from tui.app import BracingApp
-from tui.drawing import BRACE, WALL
+from tui.drawing import (
+    BRACE,
+    FILLED,
+    FOUNDATION,
+    FOUNDATION_LATER,
+    OVERFILLED,
+    UNFILLED,
+    WALL,
+)
 from tui.foundation_view import FoundationScreen
 
 SMALL = (80, 24)
@@ -166,3 +174,45 @@ def test_the_section_sketch_draws_the_limit_inside_the_backfill_only_where_it_is
         (limit,) = rows_of(drawing_lines, (foundation.LIMIT,))
         assert (limit > min(fill)) is over, (mark, limit, fill)
         assert any(BRACE in line for line in drawing_lines) is (mark == "FW-W")
+
+
+def _plan_canvas(app: BracingApp) -> tuple[str, str]:
+    """The Plan view's drawing and its key (the symbols' line, the scale and what follows)."""
+    lines = str(app.query_one("#plan-canvas").render()).splitlines()
+    scale = next(i for i, line in enumerate(lines) if line.startswith("one column ="))
+    return "\n".join(lines[1:scale - 1]), "\n".join(lines[scale - 1:])
+
+
+def test_the_plan_draws_the_foundation_walls_of_the_day_and_marks_fw_e_over(tmp_path):
+    """The Plan view (key 4) draws the foundation walls in their own character, with their
+    backfill side hatched on the day it is in place, and FW-E's day-7 backfill (5.0 ft, the site
+    file's event) marked by its own symbol and DANGER in words (BackfillDay.over, the result's),
+    not by colour; the key lists each wall with its backfill. Day 1: FW-E and FW-W (built on day
+    2, the site file) not yet built, no backfill anywhere: the backfill sides outlined."""
+    app, result = _app(tmp_path)
+    fw_e = next(w for w in result.foundation_walls if w.mark == "FW-E")
+    assert next(d for d in fw_e.days if d.day == 7).over
+
+    async def steps(pilot):
+        await pilot.press("4")
+        app.day = 7
+        await pilot.pause()
+        drawn, plan = _plan_canvas(app)
+        assert FOUNDATION in drawn and OVERFILLED in drawn and FILLED in drawn
+        assert WALL not in drawn  # no panel stands before day 10: only foundation walls
+        (fw_e_row,) = [line for line in drawn.splitlines() if "FW-E" in line]
+        assert OVERFILLED in fw_e_row  # its label sits in its hatched backfill side
+        (key,) = _lines_with(plan, "FW-E (Basement east)")
+        assert key.startswith(f"{OVERFILLED} ") and "DANGER: backfill 5.0 ft" in key
+        (key,) = _lines_with(plan, "FW-W (Basement west)")
+        assert "backfill 6.0 ft" in key and "DANGER" not in key
+        assert f"{OVERFILLED} backfill above what the wall takes: DANGER" in plan
+        app.day = 1
+        await pilot.pause()
+        drawn, plan = _plan_canvas(app)
+        assert FOUNDATION_LATER in drawn and FILLED not in drawn and OVERFILLED not in drawn
+        assert UNFILLED in drawn  # the backfill side outlined before any backfill
+        assert "FW-E (Basement east): not yet built" in plan
+        assert f"FW-S (Basement south): no backfill yet on its {UNFILLED} side" in plan
+
+    drive(app, steps)

@@ -238,7 +238,8 @@ class PlanView(RedrawsForTheDay, Vertical):
     def _show(self) -> None:
         if not self.children:
             return
-        plan = drawing.pick_plan(self.result.plan, self.day) if self.result is not None else None
+        plan = (drawing.pick_plan(self.result.plan, self.day, self.result)
+                if self.result is not None else None)
         canvas = self.query_one("#plan-canvas", Static)
         if plan is None:
             canvas.update("No plan to draw: the site file gives no plan geometry, or the plan is "

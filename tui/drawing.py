@@ -226,24 +226,33 @@ class PlanCanvas(Canvas):
                         self.put(col, row, ch)
 
 
+FOUNDATION, FOUNDATION_LATER = "▓", "╌"  # a foundation wall built that day, or not yet
+# its backfill side: no backfill yet (outlined), backfilled that day, above what it takes
+UNFILLED, FILLED, OVERFILLED = ":", "/", "X"
 PLAN_SYMBOLS = (
     ("█", "wall standing"), ("□", "wall not yet standing"), ("•", "brace"),
     ("▲", "slab anchor"), ("◆", "ground anchor"), ("░", "fall zone"),
     ("#", "named area (below)"), ("·", "slab edge"), ("x", "slab hole"), ("┆", "slab joint"),
-    ("~", "open ground"), ("!", "finding"),
+    ("~", "open ground"), ("!", "finding"), (FOUNDATION, "foundation wall"),
+    (FOUNDATION_LATER, "foundation wall not yet built"), (UNFILLED, "backfill side, none yet"),
+    (FILLED, "backfill (its side)"),
+    (OVERFILLED, "backfill above what the wall takes: DANGER"),
 )
 AREA_WORDS = {"keep_clear": "keep clear", "crane_path": "crane path", "public_way": "public way",
               "neighbor": "neighbor", "office": "site office", "work": "work area"}
 
 
-def pick_plan(plan, day: int | None):
-    """The plan geometry of `day` when the result holds one per day (else the busiest day's)."""
+def pick_plan(plan, day: int | None, result=None):
+    """The plan geometry of `day` when the result holds one per day (else the busiest day's),
+    with its foundation walls' backfill of that day as the result gives it."""
     from bracing.report import svg  # with the Plan view, not at start
+    from bracing.report.svg.foundation import with_backfill
 
     try:
-        return svg.pick_plan(plan, day)
+        g = svg.pick_plan(plan, day)
     except ValueError:
-        return svg.pick_plan(plan, None)
+        g = svg.pick_plan(plan, None)
+    return with_backfill(g, result) if result is not None else g
 
 
 def plan(g, cols: int = 100, rows: int = 30, units: str = "us") -> list[str]:
@@ -272,6 +281,11 @@ def _ground(canvas: PlanCanvas, g) -> None:
             canvas.segment(a, b, "┆", over=" ░")
     for area in g.areas:
         canvas.ring(area.coords, "#", over=" ░·~┆")
+    for w in g.foundation_walls:
+        if w.built and w.backfill_ft > 0.0:
+            canvas.shade(w.backfill, OVERFILLED if w.over else FILLED, over=" ░·~┆#")
+        else:
+            canvas.ring(w.backfill[:-1], UNFILLED, over=" ░~")
 
 
 def _walls(canvas: PlanCanvas, g) -> None:
@@ -286,6 +300,9 @@ def _walls(canvas: PlanCanvas, g) -> None:
         canvas.ring(pts, ch, over=" ░·~┆#•□")
         for _, foot in p.braces:
             canvas.put(*canvas.at(*foot), "▲" if p.foot_kind == "slab" else "◆")
+    for w in g.foundation_walls:
+        canvas.ring(w.footprint[:-1], FOUNDATION if w.built else FOUNDATION_LATER,
+                    over=f" ░·~┆#•□{UNFILLED}{FILLED}{OVERFILLED}")
     for f in g.findings:
         for point in f.at:
             canvas.put(*canvas.at(*point), "!")
@@ -301,6 +318,16 @@ def _marks(canvas: PlanCanvas, g) -> None:
         row = row - 1 if row > 0 else row + 1
         if all(canvas.get(start + k, row) in " ░·~" for k in range(len(label))):
             canvas.text(start, row, label)
+    for w in g.foundation_walls:  # in the middle of its backfill side, over the hatch
+        xs, ys = zip(*w.backfill[:-1], strict=True)
+        col, row = canvas.at(sum(xs) / len(xs), sum(ys) / len(ys))
+        middle, n = col - len(w.mark) // 2, len(w.mark)
+        free = [start for start in sorted(range(col - n + 1, col + 1),
+                                          key=lambda c, m=middle: abs(c - m))
+                if all(canvas.get(start + k, row) in f" ░·~{UNFILLED}{FILLED}{OVERFILLED}"
+                       for k in range(n)) and 0 <= start <= canvas.cols - n]
+        if free:
+            canvas.text(free[0], row, w.mark)
 
 
 def _plan_legend(canvas: PlanCanvas, g, units: str) -> list[str]:
@@ -314,4 +341,18 @@ def _plan_legend(canvas: PlanCanvas, g, units: str) -> list[str]:
     out += [f"░ {p.mark} zone: {p.zone_basis}" for p in g.panels
             if p.standing and p.zone_basis]
     out += [f"! {f.mark}: {f.flag.severity.upper()}: {f.flag.message}" for f in g.findings]
+    out += [_foundation_key(w, units) for w in g.foundation_walls]
     return out
+
+
+def _foundation_key(w, units: str) -> str:
+    """A foundation wall's line of the key: its backfill that day, DANGER where it is above
+    what the wall takes (bracing.plan.PlanFoundationWall, filled from the result)."""
+    if not w.built:
+        return f"{FOUNDATION_LATER} {w.mark} ({w.line}): not yet built"
+    if w.over:
+        return (f"{OVERFILLED} {w.mark} ({w.line}): DANGER: backfill "
+                f"{fmt(w.backfill_ft, 'ft', units, 1)}, above what the wall takes")
+    fill = (f"backfill {fmt(w.backfill_ft, 'ft', units, 1)} on its {FILLED} side"
+            if w.backfill_ft > 0.0 else f"no backfill yet on its {UNFILLED} side")
+    return f"{FOUNDATION} {w.mark} ({w.line}): {fill}"

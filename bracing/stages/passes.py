@@ -61,10 +61,10 @@ def evaluate_arrays(site: Site, edges: dict[str, float] | None = None,
                            fixed_loads(site, trial))
     max_height = solve_increasing(
         lambda h, rows: at_height(h, rows, design_speed, asce7.KD_WALLS, minimum, factors),
-        *HEIGHT_BRACKET_FT, n, start=w.height)
+        *HEIGHT_BRACKET_FT, n, start=w.height, highest=True)
     gust = site.site.limit_speed
     max_at_limit = (solve_increasing(lambda h, rows: at_height(h, rows, gust, 1.0, None, SERVICE),
-                                     *HEIGHT_BRACKET_FT, n, start=w.height)
+                                     *HEIGHT_BRACKET_FT, n, start=w.height, highest=True)
                     if gust else np.full(n, np.nan))
     e = Evaluation(walls=w, wind=wind, checks=checks, utilization=governing_utilization(checks),
                    limit=limit, stand_down=stand_down_speeds(site, w, limit),
