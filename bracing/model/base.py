@@ -144,7 +144,10 @@ class Strict(BaseModel):
     """Unknown keys are errors: a misspelt key must not be silently ignored; nan and inf are
     refused in every number (method notes §9)."""
 
-    model_config = ConfigDict(extra="forbid", populate_by_name=True, allow_inf_nan=False, defer_build=True,
+    # defer_build: a nested model's own validator is built only if it is used alone (the
+    # site model validates them inside its own)
+    model_config = ConfigDict(extra="forbid", populate_by_name=True, allow_inf_nan=False,
+                              defer_build=True,
                               json_schema_extra=lambda schema, _: _schema_bounds(schema))
 
 
