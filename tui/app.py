@@ -265,7 +265,10 @@ class BracingApp(Fixes, Files, App[int]):
         return self.builds[view]
 
     async def _build(self, view: str) -> None:
-        pane = self.query_one(f"#{view}", TabPane)
+        pane = next(iter(self.query(f"#{view}").results(TabPane)), None) \
+            if self.is_running else None
+        if pane is None:  # (the app closing when the timer comes)
+            return
         placeholder = pane.query(".loading")
         if placeholder:
             await placeholder.remove()

@@ -19,6 +19,7 @@ from tui.choice import Choice
 from tui.widgets import (
     FLAG_LOOK,
     DrawnWhenShown,
+    day_options,
     plain,
     show_text,
     speed,
@@ -58,7 +59,7 @@ class DayPicker(Horizontal):
 
     def _sync(self) -> None:
         days = self.result.days if self.result is not None else []
-        options = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day) for d in days]
+        options = day_options(days)
         self.query_one(Choice).offer(options, self.day)
         d = next((d for d in days if d.day == self.day), None)
         show_text(self.query_one(".day-verdict", Static), verdict_badge(d) if d else "")

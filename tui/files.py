@@ -9,6 +9,7 @@ from pathlib import Path
 from typing import TYPE_CHECKING
 
 from bracing import scenario
+from tui.widgets import day_options
 
 if TYPE_CHECKING:
     from tui.dialogs import ExportRequest
@@ -56,8 +57,7 @@ class Files:
         if self.busy:
             self.notify("Wait for the recompute to finish, then export.", severity="warning")
             return
-        days = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day)
-                for d in self.result.days]
+        days = day_options(self.result.days)
         stem = Path(self.site_file.path).stem
         from tui.dialogs import Export
         self.push_screen(Export(stem, days, self.day, Path(self.site_file.path).parent),

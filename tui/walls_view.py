@@ -19,6 +19,7 @@ from tui.widgets import (
     STATUS_LOOK,
     DrawnWhenShown,
     Table,
+    day_options,
     plain,
     speed,
     utilization_text,
@@ -77,8 +78,7 @@ class WallsView(DrawnWhenShown, Vertical):
         self.redraw(self._days_and_rows)
 
     def _days_and_rows(self) -> None:
-        days = [(f"day {d.day}" + (f" ({d.date})" if d.date else ""), d.day)
-                for d in (self.result.days if self.result else [])]
+        days = day_options(self.result.days if self.result else [])
         select = self.query_one("#filter-day", Choice)
         select.offer([("all", ALL)] + days,
                      select.value if select.value != Choice.BLANK else ALL)

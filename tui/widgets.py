@@ -87,6 +87,11 @@ def flag_lines(flags) -> Text:
     return out
 
 
+def day_options(days) -> list[tuple[str, int]]:
+    """The schedule's days as a choice beside the word "Day" offers them: "7 (2027-05-09)"."""
+    return [(f"{d.day}" + (f" ({d.date})" if d.date else ""), d.day) for d in days]
+
+
 def speed(value: float | None, units: str) -> str:
     return fmt(value, "mph", units)
 
