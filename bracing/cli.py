@@ -178,7 +178,10 @@ def _plan_command(commands) -> None:
     plan.add_argument("site", help="site file (TOML)")
     plan.add_argument("--day", type=int, help="the day to draw (default: the busiest)")
     plan.add_argument("-o", "--output", help="SVG file to write (default: print)")
-    plan.add_argument("--design", action="store_true")
+    plan.add_argument("--design", action="store_true",
+                      help="lay out braces for walls that need them and have none")
+    plan.add_argument("--units", choices=["us", "si"],
+                      help="units of the drawing (default: the site's [site] units, else us)")
     plan.set_defaults(run=run_plan)
 
 
@@ -332,7 +335,7 @@ def run_plan(args) -> int:
     site_file = scenario.load(args.site)
     result = _evaluate(site_file, args.site, args.design)
     try:
-        drawing = svg.plan_svg(result, args.day)
+        drawing = svg.plan_svg(result, args.day, units=args.units or site_file.site.site.units)
     except ValueError as exc:
         raise BadInput(f"--day: {exc}") from None
     return _write(args.output, drawing) or verdict(result)

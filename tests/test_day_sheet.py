@@ -195,6 +195,7 @@ def outputs(site, result, units):
     for form in ("text", "csv"):
         yield form, sheet.render(site, result, None, form, units)
     yield "html", sheet.render(site, result, None, "html", units)
+    yield "plan", svg.plan_svg(result, None, units=units)
 
 
 def test_si_outputs_hold_no_us_unit(sites):
@@ -343,3 +344,15 @@ def test_crew_sheet_carries_the_overview_a_detail_per_line_and_an_elevation_per_
                        r'\s*<svg', html)
     assert sorted(drawn) == sorted(set(lifted)) and drawn
     assert "drawings' place" not in html
+
+
+def test_the_plan_command_draws_in_the_units_asked_for(tmp_path):
+    """`bracing plan --units si` (and a site whose [site] units are si): the plan's words hold
+    no US unit; without it, US (1 in = 20 ft is 1:240, 20 ft x 12 in/ft: exact)."""
+    site = Path(__file__).resolve().parents[1] / "scenarios" / "tilt-up-warehouse.toml"
+    for extra, us in ((["--units", "si"], False), ([], True)):
+        out = io.StringIO()
+        with redirect_stdout(out):
+            assert cli.main(["plan", str(site), *extra]) == 0
+        words = " ".join(re.findall(r">([^<>]+)<", out.getvalue()))
+        assert (US_UNITS.search(words) is not None) == us, extra

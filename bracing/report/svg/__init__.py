@@ -327,23 +327,24 @@ def detail_svgs(result, day: int | None = None, standalone: bool = False, *,
     return out
 
 
-def plan_svg(result, day: int | None = None) -> str:
+def plan_svg(result, day: int | None = None, *, units: str = "us") -> str:
     """The plan of a day as one printable SVG (what `bracing plan` writes): the overview sheet
-    with the caution, then each detail plan below it. `day`: None for the busiest day."""
+    with the caution, then each detail plan below it. `day`: None for the busiest day;
+    `units`: 'us' or 'si'."""
     g = with_backfill(pick_plan(getattr(result, "plan", None), day), result)
     if g is None:
         return _no_plan_svg(result)
-    defs, items, y = _overview_sheet(result, g, _key(g, "ov"))
+    defs, items, y = _overview_sheet(result, g, _key(g, "ov"), units)
     details = g.details()
     for i, d in enumerate(details, 1):
         more_defs, more, h = _detail_sheet(result, g, d, (i, len(details)),
-                                           _key(g, f"dt{i}-"), standalone=False)
+                                           _key(g, f"dt{i}-"), standalone=False, units=units)
         defs += more_defs
         items += [f'<line x1="0" y1="{num(y + 2)}" x2="{num(SHEET_MM)}" y2="{num(y + 2)}" '
                   'stroke="#000" stroke-width="0.3" stroke-dasharray="2,1"/>',
                   f'<g transform="translate(0 {num(y + 4)})">', *more, "</g>"]
         y += 4 + h
-    return mm_document(defs, items, y, getattr(result, "caution", ""))
+    return localized(mm_document(defs, items, y, getattr(result, "caution", "")), units)
 
 
 def _no_plan_svg(result) -> str:
