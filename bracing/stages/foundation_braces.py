@@ -54,6 +54,13 @@ def support_of(site: Site, spec) -> Support | None:
         length=length, foot_distance=foot, source=source, anchor=anchor)
 
 
+def count_along(length: float, spacing: float) -> int:
+    """Braces along a wall `length` ft long at most `spacing` ft apart: one at the centre of each
+    of ceil(L / s) equal strips (braces.default_positions), so none carries more than the `s` ft
+    of wall its force R s / cos(theta) takes (statics; method notes §12)."""
+    return max(1, math.ceil(length / spacing - 1e-9))
+
+
 def braced(wall, soil, wind: Windward, height: float, s: Support) -> list:
     """The propped wall's checks (bracing.backfill.braced_checks), its brace carrying the wind
     above the backfill too (0.6W, moments about the base), and its foot anchor."""

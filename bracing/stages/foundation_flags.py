@@ -133,7 +133,6 @@ def not_checked(site: Site) -> list[NotChecked]:
     if braced_walls:
         items.append(NotChecked(
             item="inside braces of foundation walls",
-            reason="their count is not compared with the brace and anchor types' on_hand, and "
-                   "the propped wall's span under the wind above the brace is not checked",
+            reason="the propped wall's span under the wind above the brace is not checked",
             source=SOURCE, walls=braced_walls))
     return items if walls else []
