@@ -60,6 +60,9 @@ class InsideBraceResult:
     # the backfill needs them to the wall's release (None: never needed / to the schedule's end)
     in_use_from_day: int | None = None
     in_use_to_day: int | None = None
+    # each brace's place along the wall, ft from the wall's start (its offset on its line's
+    # start side): the centres of `count` equal strips
+    positions_ft: list[float] = field(default_factory=list)
 
 
 @dataclass(slots=True)

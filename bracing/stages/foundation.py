@@ -34,6 +34,7 @@ from bracing.stages.foundation_braces import (
     braced,
     braced_max,
     count_along,
+    positions_along,
     scalars,
     support_of,
 )
@@ -81,6 +82,7 @@ __all__ = [
     "governing",
     "not_checked",
     "over_flag",
+    "positions_along",
     "pressure_profile",
     "scalars",
     "site_flags",
@@ -163,7 +165,7 @@ def _one(site: Site, w, last: int) -> FoundationWallResult:
             max_height_ft=braced_max(wall, soil, wind, support),
             utilization=float(backfill.governing(propped)), checks=propped,
             count=count_along(w.length, support.spec.spacing), in_use_from_day=first,
-            in_use_to_day=to)
+            in_use_to_day=to, positions_ft=positions_along(w.length, support.spec.spacing))
         if needs:
             checks = propped
     exposed = max(w.height - planned, 0.0)

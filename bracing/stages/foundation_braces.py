@@ -61,6 +61,12 @@ def count_along(length: float, spacing: float) -> int:
     return max(1, math.ceil(length / spacing - 1e-9))
 
 
+def positions_along(length: float, spacing: float) -> list[float]:
+    """Each inside brace's place along the wall, ft from its start: the centres of the
+    `count_along` equal strips (braces.default_positions, method notes §4 and §12)."""
+    return [float(x) for x in braces.default_positions(length, count_along(length, spacing))]
+
+
 def braced(wall, soil, wind: Windward, height: float, s: Support) -> list:
     """The propped wall's checks (bracing.backfill.braced_checks), its brace carrying the wind
     above the backfill too (0.6W, moments about the base), and its foot anchor."""
