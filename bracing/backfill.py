@@ -15,7 +15,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from bracing import anchors
+from bracing import anchors, propped_wall
 from bracing.anchor_kinds import KINDS
 from bracing.earth_pressure import (
     COMBINATION,
@@ -103,7 +103,6 @@ __all__ = [
     "resultants_at",
     "section",
     "solve_max",
-    "span_effects",
     "steel_per_foot",
     "stress_block_moment",
     "toe_moment",
@@ -215,23 +214,13 @@ def brace_uplift(reaction_plf, angle_deg):
     return reaction_plf * np.tan(np.radians(angle_deg))
 
 
-def span_effects(soil: Soil, height, brace_height, reaction, points: int = 201):
-    """Largest |moment| and |shear| per ft between the pinned base and the top of a propped
-    wall (statics over `points` levels up to the backfill top)."""
-    level = np.linspace(0.0, height, points)
-    shear, moment = soil.at(height, level)
-    below = level < brace_height
-    moment = moment - reaction * np.maximum(brace_height - level, 0.0)
-    shear = shear - np.where(below, reaction, 0.0)
-    return float(np.max(np.abs(shear))), float(np.max(np.abs(moment)))
-
-
-def braced_checks(wall: Wall, soil: Soil, height: float, brace: InsideBrace) -> list:
-    """The propped wall (pinned at its base, conservative), its braces and their anchors."""
+def braced_checks(wall: Wall, soil: Soil, height: float, brace: InsideBrace,
+                  wind: tuple[float, float, float] | None = None) -> list:
+    """The propped wall (base pinned and fixed, `propped_wall.checks`; `wind` as there), its
+    braces (the base pinned) and their anchors."""
     reaction = brace_reaction(soil.at(height)[1], brace.height)
     axial = brace_force(reaction, brace.spacing, brace.angle)
-    shear, moment = span_effects(soil, height, brace.height, reaction)
-    checks = wall_checks(wall, section(wall, 0.0), moment, shear, "between base and brace")
+    checks = propped_wall.checks(wall, soil, height, brace.height, wind)
     checks.append(Check(element="inside brace", region="axial",
                         demand=ALLOWABLE[0] * float(axial), capacity=brace.capacity, unit="lb",
                         combination=ALLOWABLE[1],

@@ -68,8 +68,9 @@ def positions_along(length: float, spacing: float) -> list[float]:
 
 
 def braced(wall, soil, wind: Windward, height: float, s: Support) -> list:
-    """The propped wall's checks (bracing.backfill.braced_checks), its brace carrying the wind
-    above the backfill too (0.6W, moments about the base), and its foot anchor."""
+    """The propped wall's checks (bracing.backfill.braced_checks) with the wind on the part
+    above the backfill (its span and the part above the brace, method notes §12), its brace
+    carrying that wind too (0.6W, moments about the base), and its foot anchor."""
     exposed = max(wall.height - height, 0.0)
     pressure = float(wind.pressure(exposed)) if exposed else 0.0
     w_moment = wind_effects(pressure, height, exposed)[1]
@@ -77,7 +78,8 @@ def braced(wall, soil, wind: Windward, height: float, s: Support) -> list:
     cos = math.cos(math.radians(s.spec.angle))
     extra = factor * float(w_moment) / s.spec.height * s.spec.spacing / cos
     checks = []
-    for c in backfill.braced_checks(wall, soil, height, s.brace):
+    factors = (loads.COMBINATIONS["LRFD"].wind, loads.COMBINATIONS["ASD"].wind)
+    for c in backfill.braced_checks(wall, soil, height, s.brace, (pressure, *factors)):
         if c.element == "inside brace":
             c = replace(c, demand=c.demand + extra, combination=f"{c.combination} + {factor:g}W",
                         source=f"{s.source}; R = M_base / h_b")
