@@ -60,6 +60,7 @@ from bracing.wall_sections import (
 __all__ = [
     "ALLOWABLE",
     "BARS",
+    "BRACE_REACTION",
     "COMBINATION",
     "CONCRETE_PCF",
     "EFP_IBC_1610_1",
@@ -111,6 +112,7 @@ __all__ = [
 ]
 
 
+BRACE_REACTION = "R: base pinned or fixed, the larger (method notes §12)"
 CONCRETE_PCF = 150.0  # normal-weight concrete, ASCE 7 Table C3.1-2 (from memory)
 
 
@@ -217,26 +219,28 @@ def brace_uplift(reaction_plf, angle_deg):
 def braced_checks(wall: Wall, soil: Soil, height: float, brace: InsideBrace,
                   wind: tuple[float, float, float] | None = None) -> list:
     """The propped wall (base pinned and fixed, `propped_wall.checks`; `wind` as there), its
-    braces (the base pinned) and their anchors."""
-    reaction = brace_reaction(soil.at(height)[1], brace.height)
+    braces and their anchors under the braces' largest reaction (`propped_wall.brace_reaction`,
+    1.0H and the wind at its allowable factor)."""
+    reaction, words = propped_wall.brace_reaction(wall, soil, height, brace.height,
+                                                  ALLOWABLE[0], wind)
     axial = brace_force(reaction, brace.spacing, brace.angle)
     checks = propped_wall.checks(wall, soil, height, brace.height, wind)
-    checks.append(Check(element="inside brace", region="axial",
-                        demand=ALLOWABLE[0] * float(axial), capacity=brace.capacity, unit="lb",
-                        combination=ALLOWABLE[1],
-                        source="brace rating (allowable), R = M_base / h_b"))
-    lift = ALLOWABLE[0] * float(brace_uplift(reaction, brace.angle))
+    how = BRACE_REACTION
+    checks.append(Check(element="inside brace", region="axial", demand=float(axial),
+                        capacity=brace.capacity, unit="lb", combination=ALLOWABLE[1] + words,
+                        source=f"brace rating (allowable), {how}"))
+    lift = float(brace_uplift(reaction, brace.angle))
     checks.append(Check(element="wall", region="lifted by the braces", demand=lift,
                         capacity=anchors.DEAD_LOAD_FACTOR_RESISTING["ASD"] * wall.weight,
-                        unit="lb/ft", combination=COMBINATION["ASD"],
-                        source="statics, R tan(theta) against 0.6D"))
+                        unit="lb/ft", combination=COMBINATION["ASD"] + words,
+                        source=f"statics, R tan(theta) against 0.6D; {how}"))
     if brace.anchor_tension is not None and brace.anchor_shear is not None:
-        pull = ALLOWABLE[0] * float(reaction) * brace.spacing
+        pull = float(reaction) * brace.spacing
         anchor = KINDS["stake"]
         checks.append(Check(element="brace foot anchor", region="tension and shear",
                             demand=float(anchor.ratio(0.0, pull, axial, brace.anchor_tension,
                                                       brace.anchor_shear)),
-                            capacity=1.0, unit="ratio", combination=ALLOWABLE[1],
+                            capacity=1.0, unit="ratio", combination=ALLOWABLE[1] + words,
                             source=anchor.source))
     return checks
 

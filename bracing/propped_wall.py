@@ -110,18 +110,33 @@ def faces(wall: Wall) -> tuple:
     return outside, outside
 
 
+def wind_load(wall: Wall, fill: float, wind, strength: bool) -> tuple[float, str]:
+    """The factored uniform wind on the part above the backfill (lb per ft per ft) and its
+    words in the combination: `wind` = (pressure on that part, psf; its factor beside the
+    strength sections' 1.6H; beside the allowable 1.0H), None: no wind; 1.1 p
+    (`UNIFORM_WIND_FACTOR`)."""
+    if wind is None or wind[0] <= 0.0 or wall.height <= fill:
+        return 0.0, ""
+    factor = wind[1] if strength else wind[2]
+    return UNIFORM_WIND_FACTOR * factor * wind[0], f" + {factor:g}W"
+
+
+def brace_reaction(wall: Wall, soil, fill: float, brace_height: float, earth_factor: float,
+                   wind=None) -> tuple[float, str]:
+    """The braces' largest reaction per ft of wall, base pinned or fixed, the wind (`wind` as
+    in `wind_load`, at its allowable factor) toward either face (`envelope`), and the wind's
+    words in the combination."""
+    load, words = wind_load(wall, fill, wind, strength=False)
+    return envelope(soil, fill, wall.height, brace_height, earth_factor, load)["reaction"], words
+
+
 def checks(wall: Wall, soil, fill: float, brace_height: float, wind=None) -> list[Check]:
     """Flexure and shear of the propped wall, base to braces and above the braces, under the
-    backfill `fill` and, with `wind` = (pressure on the part above the backfill, psf; its
-    factor beside the strength sections' 1.6H; beside the allowable ones' 1.0H), the wind on
-    the part above the backfill at 1.1 p (`UNIFORM_WIND_FACTOR`) toward either face; the base
-    pinned and fixed (`envelope`), each moment against the capacity of the face it puts in
-    tension, the shear against the lesser."""
+    backfill `fill` and the wind on the part above it (`wind` as in `wind_load`) toward
+    either face; the base pinned and fixed (`envelope`), each moment against the capacity of
+    the face it puts in tension, the shear against the lesser."""
     outside, inside = faces(wall)
-    load, words = 0.0, ""
-    if wind is not None and wind[0] > 0.0 and wall.height > fill:
-        factor = wind[1] if outside.combination == STRENGTH[1] else wind[2]
-        load, words = UNIFORM_WIND_FACTOR * factor * wind[0], f" + {factor:g}W"
+    load, words = wind_load(wall, fill, wind, outside.combination == STRENGTH[1])
     found = envelope(soil, fill, wall.height, brace_height, outside.factor, load)
     how = "propped: base pinned and fixed, statics and moment-area (method notes §12)"
     out = []

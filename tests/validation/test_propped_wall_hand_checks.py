@@ -99,3 +99,20 @@ def test_a_reinforced_wall_s_span_takes_the_inside_face_s_depth():
     outside, inside = propped_wall.faces(wall)
     assert inside.moment == pytest.approx(2181.0, rel=1e-3)
     assert outside.moment > 2 * inside.moment
+
+
+def test_braces_low_on_a_full_fill_take_the_fixed_base_reaction():
+    """Braces low on the wall carry more with the base fixed (text: moment-area, as above).
+    A 9 ft wall filled to its top, SM at rest 60 psf/ft (from memory), braces at h_b = 3 ft,
+    1.0H (ASCE 7-16 §2.4.1, unconfirmed value). Loads above z: M_L = 60 (9 - z)^3 / 6
+    = 10 (9 - z)^3. Pinned: R = 10 x 729 / 3 = 2,430 lb/ft. Fixed, u = 3 - z, 9 - z = 6 + u:
+    integral_0^3 10 (6 + u)^3 u du = 10 x (216 x 4.5 + 108 x 9 + 18 x 81 / 4 + 243 / 5)
+    = 10 x (972 + 972 + 364.5 + 48.6) = 23,571; R = 3 x 23,571 / 27 = 2,619.0 lb/ft, the
+    braces' (8 % over the pinned base's). Every 6 ft at 45 deg: P = 2,619.0 x 6 / cos 45
+    = 22,222.8 lb."""
+    reaction, words = propped_wall.brace_reaction(WALL, SM_AT_REST, 9.0, 3.0, 1.0)
+    assert reaction == pytest.approx(2619.0, rel=1e-3) and words == ""
+    brace = backfill.InsideBrace(height=3.0, spacing=6.0, angle=45.0, capacity=30000.0)
+    axial = next(c for c in backfill.braced_checks(WALL, SM_AT_REST, 9.0, brace)
+                 if c.element == "inside brace")
+    assert axial.demand == pytest.approx(22222.8, rel=1e-3)
