@@ -15,30 +15,15 @@ from __future__ import annotations
 
 import json
 import re
-from pathlib import Path
 
 import pytest
-import tomlkit
+from test_foundation_walls import BASEMENT
+from test_foundation_walls import _edited as _site_with
 
 from bracing import cli, scenario
 from bracing.evaluate import evaluate
 from bracing.report import json_view
 from bracing.report import schedule as sheet
-
-ROOT = Path(__file__).resolve().parents[1]
-BASEMENT = ROOT / "scenarios" / "basement-duplex.toml"
-
-
-def _site_with(tmp_path, edit) -> Path:
-    """The demo basement with `edit(document)` applied, written under tmp_path."""
-    doc = tomlkit.parse(BASEMENT.read_text(encoding="utf-8"))
-    edit(doc)
-    path = tmp_path / "basement.toml"
-    path.write_text(tomlkit.dumps(doc), encoding="utf-8")
-    (tmp_path / "basement-duplex-forecast.csv").write_text(
-        (ROOT / "scenarios" / "basement-duplex-forecast.csv").read_text(encoding="utf-8"),
-        encoding="utf-8")
-    return path
 
 
 def _four_on_hand(doc):
