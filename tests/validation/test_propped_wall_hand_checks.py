@@ -40,10 +40,13 @@ lb-ft; phi Vn = 0.60 x 4/3 x 54.772 x 12 x 8 = 4,206.5 lb. Span flexure: backfil
 0.333.
 """
 
+import json
+
 import pytest
 
 from bracing import backfill, propped_wall
 from bracing.backfill import Soil, Wall
+from bracing.cli import main
 
 SM_AT_REST = Soil(efp=60.0, source="IBC 2018 Table 1610.1")  # SM at-rest 60 psf/ft (from memory)
 WALL = Wall(height=9.0, thickness=8.0, material="plain", face_weight=100.0, fc=3000.0)
@@ -116,3 +119,16 @@ def test_braces_low_on_a_full_fill_take_the_fixed_base_reaction():
     axial = next(c for c in backfill.braced_checks(WALL, SM_AT_REST, 9.0, brace)
                  if c.element == "inside brace")
     assert axial.demand == pytest.approx(22222.8, rel=1e-3)
+
+
+def test_the_one_wall_command_reports_the_force_it_checks(capsys):
+    """`bracing backfill` on the same case (the 8 in wall of f'c 3000 psi, the 9 ft fill, SM
+    at rest, braces at 3 ft every 6 ft at 45 deg): `reaction_plf` stays the pinned base's
+    2,430 lb/ft (its documented meaning, earth only) and `force_lb` is the checked
+    2,619.0 x 6 / cos 45 = 22,222.8 lb, not the pinned base's 2,430 x 6 / cos 45 = 20,618.8."""
+    main(["backfill", "--height", "9ft", "--thickness", "8in", "--fc", "3000psi", "--soil",
+          "SM", "--backfill-height", "9ft", "--brace-height", "3ft", "--brace-spacing", "6ft",
+          "--brace-angle", "45deg", "--brace-capacity", "30000lb", "--drained", "--json"])
+    brace = json.loads(capsys.readouterr().out)["inside_brace"]
+    assert brace["reaction_plf"] == pytest.approx(2430.0, rel=1e-6)
+    assert brace["force_lb"] == pytest.approx(22222.8, rel=1e-3)
