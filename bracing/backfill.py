@@ -15,7 +15,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from bracing import anchors
+from bracing import anchors, propped_wall
 from bracing.anchor_kinds import KINDS
 from bracing.earth_pressure import (
     COMBINATION,
@@ -60,6 +60,7 @@ from bracing.wall_sections import (
 __all__ = [
     "ALLOWABLE",
     "BARS",
+    "BRACE_REACTION",
     "COMBINATION",
     "CONCRETE_PCF",
     "EFP_IBC_1610_1",
@@ -103,7 +104,6 @@ __all__ = [
     "resultants_at",
     "section",
     "solve_max",
-    "span_effects",
     "steel_per_foot",
     "stress_block_moment",
     "toe_moment",
@@ -112,6 +112,7 @@ __all__ = [
 ]
 
 
+BRACE_REACTION = "R: base pinned or fixed, the larger (method notes §12)"
 CONCRETE_PCF = 150.0  # normal-weight concrete, ASCE 7 Table C3.1-2 (from memory)
 
 
@@ -215,39 +216,31 @@ def brace_uplift(reaction_plf, angle_deg):
     return reaction_plf * np.tan(np.radians(angle_deg))
 
 
-def span_effects(soil: Soil, height, brace_height, reaction, points: int = 201):
-    """Largest |moment| and |shear| per ft between the pinned base and the top of a propped
-    wall (statics over `points` levels up to the backfill top)."""
-    level = np.linspace(0.0, height, points)
-    shear, moment = soil.at(height, level)
-    below = level < brace_height
-    moment = moment - reaction * np.maximum(brace_height - level, 0.0)
-    shear = shear - np.where(below, reaction, 0.0)
-    return float(np.max(np.abs(shear))), float(np.max(np.abs(moment)))
-
-
-def braced_checks(wall: Wall, soil: Soil, height: float, brace: InsideBrace) -> list:
-    """The propped wall (pinned at its base, conservative), its braces and their anchors."""
-    reaction = brace_reaction(soil.at(height)[1], brace.height)
+def braced_checks(wall: Wall, soil: Soil, height: float, brace: InsideBrace,
+                  wind: tuple[float, float, float] | None = None) -> list:
+    """The propped wall (base pinned and fixed, `propped_wall.checks`; `wind` as there), its
+    braces and their anchors under the braces' largest reaction (`propped_wall.brace_reaction`,
+    1.0H and the wind at its allowable factor)."""
+    reaction, words = propped_wall.brace_reaction(wall, soil, height, brace.height,
+                                                  ALLOWABLE[0], wind)
     axial = brace_force(reaction, brace.spacing, brace.angle)
-    shear, moment = span_effects(soil, height, brace.height, reaction)
-    checks = wall_checks(wall, section(wall, 0.0), moment, shear, "between base and brace")
-    checks.append(Check(element="inside brace", region="axial",
-                        demand=ALLOWABLE[0] * float(axial), capacity=brace.capacity, unit="lb",
-                        combination=ALLOWABLE[1],
-                        source="brace rating (allowable), R = M_base / h_b"))
-    lift = ALLOWABLE[0] * float(brace_uplift(reaction, brace.angle))
+    checks = propped_wall.checks(wall, soil, height, brace.height, wind)
+    how = BRACE_REACTION
+    checks.append(Check(element="inside brace", region="axial", demand=float(axial),
+                        capacity=brace.capacity, unit="lb", combination=ALLOWABLE[1] + words,
+                        source=f"brace rating (allowable), {how}"))
+    lift = float(brace_uplift(reaction, brace.angle))
     checks.append(Check(element="wall", region="lifted by the braces", demand=lift,
                         capacity=anchors.DEAD_LOAD_FACTOR_RESISTING["ASD"] * wall.weight,
-                        unit="lb/ft", combination=COMBINATION["ASD"],
-                        source="statics, R tan(theta) against 0.6D"))
+                        unit="lb/ft", combination=COMBINATION["ASD"] + words,
+                        source=f"statics, R tan(theta) against 0.6D; {how}"))
     if brace.anchor_tension is not None and brace.anchor_shear is not None:
-        pull = ALLOWABLE[0] * float(reaction) * brace.spacing
+        pull = float(reaction) * brace.spacing
         anchor = KINDS["stake"]
         checks.append(Check(element="brace foot anchor", region="tension and shear",
                             demand=float(anchor.ratio(0.0, pull, axial, brace.anchor_tension,
                                                       brace.anchor_shear)),
-                            capacity=1.0, unit="ratio", combination=ALLOWABLE[1],
+                            capacity=1.0, unit="ratio", combination=ALLOWABLE[1] + words,
                             source=anchor.source))
     return checks
 

@@ -238,7 +238,8 @@ def evaluate(args) -> dict:
         "inside_brace": None if brace is None else {
             "height_ft": brace.height, "spacing_ft": brace.spacing, "angle_deg": brace.angle,
             "reaction_plf": reaction,
-            "force_lb": float(backfill.brace_force(reaction, brace.spacing, brace.angle)),
+            # as checked: the braces' larger reaction, base pinned or fixed (method notes §12)
+            "force_lb": next(float(c.demand) for c in braced if c.element == "inside brace"),
             "utilization": backfill.governing(braced),
             "max_backfill_height_ft": backfill.braced_max_height(wall, soil, brace),
             "checks": [c.as_dict() for c in braced]},

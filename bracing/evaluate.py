@@ -78,7 +78,7 @@ def evaluate(site: Site, design: bool = False, base_dir=None,
         by_mark[mark].flags.append(flag)
     geometry = _plan_of_days(site, places, days, found, by_mark)
     walls = foundation.evaluate_foundation_walls(site)
-    _backfill_days(days, walls, by_mark)
+    _backfill_days(site, days, walls, by_mark, peak)
     _for_views(site, places, panels, days)
     return SiteResult(
         name=site.site.name, basis=site.site.design_basis, basis_statement=basis_statement(site),
@@ -90,12 +90,14 @@ def evaluate(site: Site, design: bool = False, base_dir=None,
         together=schedule.whole_site(site, panels) if not days and panels else None)
 
 
-def _backfill_days(days, walls, by_mark: dict) -> None:
+def _backfill_days(site: Site, days, walls, by_mark: dict, peak: dict) -> None:
     """Each day's foundation walls standing, its backfill dangers (a wall backfilled above what
     it may take that day) among the day's findings, its forecast against the foundation walls'
-    stand-down gusts, and the day judged again with them (method notes §6, §12)."""
+    stand-down gusts, their inside braces in its gear counted against on_hand (and `peak`), and
+    the day judged again with them (method notes §6, §12)."""
     on_day = foundation.day_flags(walls)
     standing = {d.day for d in foundation.stand_on_days(walls, days)}
+    standing |= {d.day for d in schedule.gear.with_inside_braces(days, walls, site, peak)}
     if not on_day and not standing:
         return
     facts = schedule.wall_facts(by_mark)

@@ -55,6 +55,14 @@ class InsideBraceResult:
     max_height_ft: float             # the highest backfill the braced wall takes
     utilization: float
     checks: list[Check]
+    count: int = 0                   # along the wall: one per strip of at most spacing_ft
+    # the days they are counted in use against on_hand (method notes §12): from the first day
+    # the backfill needs them to the wall's release (None: never needed / to the schedule's end)
+    in_use_from_day: int | None = None
+    in_use_to_day: int | None = None
+    # each brace's place along the wall, ft from the wall's start (its offset on its line's
+    # start side): the centres of `count` equal strips
+    positions_ft: list[float] = field(default_factory=list)
 
 
 @dataclass(slots=True)

@@ -178,7 +178,8 @@ def _bounds(g: PlanGeometry) -> tuple[float, float, float, float]:
            *(p for line in g.lines for p in (line.start, line.end)),
            *(p for w in g.panels for p in w.footprint + w.restricted_zone),
            *(p for w in g.panels for b in w.braces for p in b),
-           *(p for w in g.foundation_walls for p in w.footprint + w.backfill)]
+           *(p for w in g.foundation_walls for p in w.footprint + w.backfill),
+           *(p for w in g.foundation_walls for b in w.braces for p in b)]
     if not pts:
         return (0.0, 0.0, 1.0, 1.0)
     xy = np.array(pts, dtype=float)

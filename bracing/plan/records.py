@@ -113,6 +113,13 @@ class PlanFoundationWall:
     built: bool = True            # standing that day
     backfill_ft: float = 0.0      # backfill in place that day
     over: bool = False            # that backfill is above what the wall takes: a danger
+    # its inside braces (method notes §12), each (insert on the inside face, foot), at their
+    # places along the wall (the result's inside_brace.positions_ft), on the braced side of its
+    # line, away from the backfill; drawn on the days they are in use (`braced`)
+    braces: list[tuple[Point, Point]] = field(default_factory=list)
+    foot_kind: str = ""           # their foot anchor's kind (anchor_kinds.KINDS) or ''
+    braced: bool = False          # in use that day
+    brace_height_ft: float = 0.0  # where they bear on the wall
 
 
 @dataclass(slots=True)

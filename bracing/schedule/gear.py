@@ -92,3 +92,40 @@ def short_flags(missing: dict) -> list[Flag]:
     return [Flag("short", "danger", f"short of {kind[:-1]} type {t}: {n} more needed than on "
                  "hand", SHORT_SOURCE)
             for kind, items in missing.items() for t, n in items.items()]
+
+
+def inside_in_use(walls, day: int) -> tuple[dict[str, int], dict[str, int]]:
+    """The inside braces of foundation walls (`FoundationWallResult`s) in use on `day`, braces
+    and foot anchors by type: each wall's count from the first day its backfill needs them
+    through its release (method notes §12)."""
+    use: tuple[dict[str, int], dict[str, int]] = ({}, {})
+    for w in walls:
+        b = w.inside_brace
+        if b is None or b.in_use_from_day is None or day < b.in_use_from_day or (
+                b.in_use_to_day is not None and day > b.in_use_to_day):
+            continue
+        for counted, name in zip(use, (b.brace_type, b.foot_anchor), strict=True):
+            if name:
+                counted[name] = counted.get(name, 0) + b.count
+    return use
+
+
+def with_inside_braces(days, walls, site: Site, peak: dict) -> list:
+    """The days with the foundation walls' inside braces added to the gear in use, counted
+    against on_hand (`short`, its danger flags in place of the day's) as the panels' are, and
+    `peak` (the job's largest count of each type) raised to match. Returns the days changed."""
+    changed = []
+    for d in days:
+        braces, anchors = inside_in_use(walls, d.day)
+        if not braces and not anchors:
+            continue
+        for kind, used, extra in (("braces", d.braces_in_use, braces),
+                                  ("anchors", d.anchors_in_use, anchors)):
+            for t, n in extra.items():
+                used[t] = used.get(t, 0) + n
+                peak[kind][t] = max(peak[kind].get(t, 0), used[t])
+        d.short = {"braces": short(d.braces_in_use, site.brace_types),
+                   "anchors": short(d.anchors_in_use, site.anchor_types)}
+        d.flags = [f for f in d.flags if f.code != "short"] + short_flags(d.short)
+        changed.append(d)
+    return changed

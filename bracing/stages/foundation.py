@@ -33,6 +33,8 @@ from bracing.stages.foundation_braces import (
     anchor_check,
     braced,
     braced_max,
+    count_along,
+    positions_along,
     scalars,
     support_of,
 )
@@ -48,7 +50,7 @@ from bracing.stages.foundation_cantilever import (
     with_wind,
     working_limit,
 )
-from bracing.stages.foundation_days import _Allowed, _top_support, wall_days
+from bracing.stages.foundation_days import _Allowed, _top_support, braces_in_use, wall_days
 from bracing.stages.foundation_flags import (
     SOURCE,
     _flags,
@@ -73,12 +75,14 @@ __all__ = [
     "braced_max",
     "cantilever",
     "cantilever_max",
+    "count_along",
     "day_flags",
     "engine_wall",
     "evaluate_foundation_walls",
     "governing",
     "not_checked",
     "over_flag",
+    "positions_along",
     "pressure_profile",
     "scalars",
     "site_flags",
@@ -136,7 +140,8 @@ def _one(site: Site, w, last: int) -> FoundationWallResult:
     basis = site.site.design_basis
     wind = wind_of(site, w.length)
     support = support_of(site, w.inside_braces)
-    days = wall_days(site, w, _Allowed(site, w, wind, support), last)
+    allowed = _Allowed(site, w, wind, support)
+    days = wall_days(site, w, allowed, last)
     event_day, released = _top_support(site, w)
     before = [d for d in days if d.support != "top support"]
     worst = max(before, key=lambda d: (d.planned_height_ft, -d.day), default=None)
@@ -150,6 +155,7 @@ def _one(site: Site, w, last: int) -> FoundationWallResult:
     if support is not None:
         propped = scalars(braced(wall, soil, wind, planned, support))
         reaction = float(backfill.brace_reaction(soil.at(planned)[1], support.spec.height))
+        first, to = braces_in_use(site, w, days, allowed)
         brace = InsideBraceResult(
             height_ft=support.spec.height, spacing_ft=support.spec.spacing,
             angle_deg=support.spec.angle, length_ft=support.length,
@@ -157,7 +163,9 @@ def _one(site: Site, w, last: int) -> FoundationWallResult:
             brace_type=support.spec.brace_type, foot_anchor=support.spec.foot_anchor,
             reaction_plf=reaction, force_lb=_axial(propped), capacity_lb=support.brace.capacity,
             max_height_ft=braced_max(wall, soil, wind, support),
-            utilization=float(backfill.governing(propped)), checks=propped)
+            utilization=float(backfill.governing(propped)), checks=propped,
+            count=count_along(w.length, support.spec.spacing), in_use_from_day=first,
+            in_use_to_day=to, positions_ft=positions_along(w.length, support.spec.spacing))
         if needs:
             checks = propped
     exposed = max(w.height - planned, 0.0)

@@ -15,7 +15,7 @@ from bracing.model import Site
 from bracing.results import Check
 from bracing.stages import loads
 from bracing.stages.brace_set import _brace_capacity
-from bracing.stages.foundation_cantilever import Windward, wind_effects
+from bracing.stages.foundation_cantilever import Windward
 
 # NDS 2018 Table 2.3.2: two months' duration 1.15 against the wind's 1.6; a lumber brace's
 # capacity at CD 1.6 scaled by 1.15 / 1.6 is conservative (CP rises as Fc* falls).
@@ -54,20 +54,30 @@ def support_of(site: Site, spec) -> Support | None:
         length=length, foot_distance=foot, source=source, anchor=anchor)
 
 
+def count_along(length: float, spacing: float) -> int:
+    """Braces along a wall `length` ft long at most `spacing` ft apart: one at the centre of each
+    of ceil(L / s) equal strips (braces.default_positions), so none carries more than the `s` ft
+    of wall its force R s / cos(theta) takes (statics; method notes §12)."""
+    return max(1, math.ceil(length / spacing - 1e-9))
+
+
+def positions_along(length: float, spacing: float) -> list[float]:
+    """Each inside brace's place along the wall, ft from its start: the centres of the
+    `count_along` equal strips (braces.default_positions, method notes §4 and §12)."""
+    return [float(x) for x in braces.default_positions(length, count_along(length, spacing))]
+
+
 def braced(wall, soil, wind: Windward, height: float, s: Support) -> list:
-    """The propped wall's checks (bracing.backfill.braced_checks), its brace carrying the wind
-    above the backfill too (0.6W, moments about the base), and its foot anchor."""
+    """The propped wall's checks (bracing.backfill.braced_checks) with the wind on the part
+    above the backfill (the span, the part above the brace and the braces' reaction, method
+    notes §12: 1.0W beside 1.6H, 0.6W beside 1.0H), and its foot anchor."""
     exposed = max(wall.height - height, 0.0)
     pressure = float(wind.pressure(exposed)) if exposed else 0.0
-    w_moment = wind_effects(pressure, height, exposed)[1]
-    factor = loads.COMBINATIONS["ASD"].wind
-    cos = math.cos(math.radians(s.spec.angle))
-    extra = factor * float(w_moment) / s.spec.height * s.spec.spacing / cos
+    factors = (loads.COMBINATIONS["LRFD"].wind, loads.COMBINATIONS["ASD"].wind)
     checks = []
-    for c in backfill.braced_checks(wall, soil, height, s.brace):
+    for c in backfill.braced_checks(wall, soil, height, s.brace, (pressure, *factors)):
         if c.element == "inside brace":
-            c = replace(c, demand=c.demand + extra, combination=f"{c.combination} + {factor:g}W",
-                        source=f"{s.source}; R = M_base / h_b")
+            c = replace(c, source=f"{s.source}; {backfill.BRACE_REACTION}")
         checks.append(c)
     if s.anchor is not None:
         checks.append(anchor_check(s, _axial(checks)))

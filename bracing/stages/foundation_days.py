@@ -92,6 +92,19 @@ def _cured(site: Site, w, day: int) -> bool:
     return w.mortar_age is None or w.mortar_age + day - 1 >= cure
 
 
+def braces_in_use(site: Site, w, days: list[BackfillDay], allowed: _Allowed
+                  ) -> tuple[int | None, int | None]:
+    """(the first day the backfill needs the wall's inside braces, its release day): they are
+    counted in use against on_hand from that day through the release (None: to the schedule's
+    end), even on a later day the cantilever would take the fill (conservative; method notes
+    §12). (None, None): never needed."""
+    needed = [d.day for d in days if d.support != "top support" and d.planned_height_ft
+              > allowed.limits(d.surcharge_psf, _cured(site, w, d.day))[0] + 1e-6]
+    if not needed:
+        return None, None
+    return min(needed), _top_support(site, w)[1]
+
+
 def wall_days(site: Site, w, allowed: _Allowed, last: int) -> list[BackfillDay]:
     """The wall's days from its build day (or day 1) to `last`: the backfill in place, the
     most it may take, and whether it is over."""

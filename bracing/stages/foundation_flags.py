@@ -124,16 +124,17 @@ def _wind_on_day(d, gusts: list[tuple[float, str]]) -> None:
 def not_checked(site: Site) -> list[NotChecked]:
     """What the foundation walls' checks leave out (method notes §12), with the walls."""
     walls = [w.mark for w in site.foundation_walls]
-    braced_walls = [w.mark for w in site.foundation_walls if w.inside_braces is not None]
     items = [NotChecked(
         item="foundation walls: the wall-to-footing joint and the footing's bearing",
         reason="the wall is taken as a cantilever fixed in its footing (dowels, key) and the "
                "soil's bearing under the footing is not checked; after its release the wall "
                "held top and bottom is the permanent design's", source=SOURCE, walls=walls)]
+    braced_walls = [w.mark for w in site.foundation_walls if w.inside_braces is not None]
     if braced_walls:
         items.append(NotChecked(
-            item="inside braces of foundation walls",
-            reason="their count is not compared with the brace and anchor types' on_hand, and "
-                   "the propped wall's span under the wind above the brace is not checked",
+            item="foundation walls on inside braces: the wall spanning between the braces",
+            reason="each brace is taken to hold its strip of wall (its spacing) along a line at "
+                   "its height; the wall's horizontal span between the braces (or the waler "
+                   "that spreads their push) is not checked",
             source=SOURCE, walls=braced_walls))
     return items if walls else []
