@@ -216,3 +216,27 @@ def test_the_plan_draws_the_foundation_walls_of_the_day_and_marks_fw_e_over(tmp_
         assert f"FW-S (Basement south): no backfill yet on its {UNFILLED} side" in plan
 
     drive(app, steps)
+
+
+def test_the_plan_draws_fw_w_inside_braces_on_the_days_they_are_in_use(tmp_path):
+    """FW-W's inside braces (the result's inside_brace: count, height, days in use) are drawn
+    in the Plan view and named in its key on a day they are in use, and are gone the day after
+    their last (the result's in_use_to_day)."""
+    app, result = _app(tmp_path)
+    brace = next(w for w in result.foundation_walls if w.mark == "FW-W").inside_brace
+
+    async def steps(pilot):
+        await pilot.press("4")
+        app.day = brace.in_use_from_day
+        await pilot.pause()
+        drawn, plan = _plan_canvas(app)
+        (key,) = _lines_with(plan, "FW-W (Basement west)")
+        assert f"{brace.count} inside braces (•) at {brace.height_ft:.1f} ft" in key, key
+        assert "•" in drawn
+        app.day = brace.in_use_to_day + 1
+        await pilot.pause()
+        drawn, plan = _plan_canvas(app)
+        (key,) = _lines_with(plan, "FW-W (Basement west)")
+        assert "inside braces" not in key and "•" not in drawn
+
+    drive(app, steps)

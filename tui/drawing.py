@@ -293,6 +293,9 @@ def _walls(canvas: PlanCanvas, g) -> None:
     for p in g.panels:
         for a, b in p.braces:
             canvas.segment(a, b, "•", over=" ░·~┆#")
+    for w in g.foundation_walls:  # inside braces, on the days they are in use
+        for a, b in _inside_braces(w):
+            canvas.segment(a, b, "•", over=" ░·~┆#")
     for p in g.panels:
         ch = "█" if p.standing else "□"
         pts = p.footprint[:-1] if len(p.footprint) > 1 and p.footprint[0] == p.footprint[-1] \
@@ -303,6 +306,8 @@ def _walls(canvas: PlanCanvas, g) -> None:
     for w in g.foundation_walls:
         canvas.ring(w.footprint[:-1], FOUNDATION if w.built else FOUNDATION_LATER,
                     over=f" ░·~┆#•□{UNFILLED}{FILLED}{OVERFILLED}")
+        for _, foot in _inside_braces(w):
+            canvas.put(*canvas.at(*foot), "▲" if w.foot_kind == "slab" else "◆")
     for f in g.findings:
         for point in f.at:
             canvas.put(*canvas.at(*point), "!")
@@ -345,6 +350,11 @@ def _plan_legend(canvas: PlanCanvas, g, units: str) -> list[str]:
     return out
 
 
+def _inside_braces(w) -> list:
+    """A foundation wall's inside braces, (insert, foot) in plan ft, on a day they are in use."""
+    return w.braces if w.built and w.braced else []
+
+
 def _foundation_key(w, units: str) -> str:
     """A foundation wall's line of the key: its backfill that day, DANGER where it is above
     what the wall takes (bracing.plan.PlanFoundationWall, filled from the result)."""
@@ -355,4 +365,7 @@ def _foundation_key(w, units: str) -> str:
                 f"{fmt(w.backfill_ft, 'ft', units, 1)}, above what the wall takes")
     fill = (f"backfill {fmt(w.backfill_ft, 'ft', units, 1)} on its {FILLED} side"
             if w.backfill_ft > 0.0 else f"no backfill yet on its {UNFILLED} side")
-    return f"{FOUNDATION} {w.mark} ({w.line}): {fill}"
+    braces = _inside_braces(w)
+    held = (f"; {len(braces)} inside braces (•) at {fmt(w.brace_height_ft, 'ft', units, 1)}"
+            if braces else "")
+    return f"{FOUNDATION} {w.mark} ({w.line}): {fill}{held}"
