@@ -24,6 +24,8 @@ from bracing.diff import _same_speed as same_speed
 from bracing.diff import _u as utilization
 from bracing.results import SiteResult
 
+SAME_FORCE = 1e-3  # relative: a brace force within 0.1 % is the same
+
 SAME_HEIGHT_FT = 0.005  # heights closer than this are the same (they are printed to 0.01 ft)
 
 
@@ -59,6 +61,8 @@ class FoundationWallChange:
     new_braced_max_height_ft: float | None
     old_brace_utilization: float | None
     new_brace_utilization: float | None
+    old_brace_force_lb: float | None  # each inside brace's force as checked
+    new_brace_force_lb: float | None
     old_working_limit_mph: float | None
     new_working_limit_mph: float | None
     old_stand_down_mph: float | None
@@ -82,7 +86,8 @@ class FoundationWallChange:
                          f"{_ft(self.old_braced_max_height_ft)} -> "
                          f"{_ft(self.new_braced_max_height_ft)}; inside-brace utilization "
                          f"{_maybe(self.old_brace_utilization)} -> "
-                         f"{_maybe(self.new_brace_utilization)}")
+                         f"{_maybe(self.new_brace_utilization)}; brace force "
+                         f"{_lb(self.old_brace_force_lb)} -> {_lb(self.new_brace_force_lb)}")
         gusts = (self.old_working_limit_mph, self.new_working_limit_mph,
                  self.old_stand_down_mph, self.new_stand_down_mph)
         lines.append(f"    working-limit gust {_gust(gusts[0])} -> {_gust(gusts[1])}; "
@@ -112,6 +117,8 @@ def _change(a, b, changes: list[Change]) -> FoundationWallChange:
         new_braced_max_height_ft=brace_b and brace_b.max_height_ft,
         old_brace_utilization=brace_a and brace_a.utilization,
         new_brace_utilization=brace_b and brace_b.utilization,
+        old_brace_force_lb=brace_a and brace_a.force_lb,
+        new_brace_force_lb=brace_b and brace_b.force_lb,
         old_working_limit_mph=a.wind.working_limit_speed_mph,
         new_working_limit_mph=b.wind.working_limit_speed_mph,
         old_stand_down_mph=a.wind.stand_down_speed_mph,
@@ -147,6 +154,7 @@ def _moved(w: FoundationWallChange) -> bool:
             or not _same_height(w.old_max_height_ft, w.new_max_height_ft)
             or not _same_height(w.old_braced_max_height_ft, w.new_braced_max_height_ft)
             or not _same_optional(w.old_brace_utilization, w.new_brace_utilization)
+            or not _same_force(w.old_brace_force_lb, w.new_brace_force_lb)
             or not _same_gust(w.old_working_limit_mph, w.new_working_limit_mph))
 
 
@@ -183,6 +191,12 @@ def _same_optional(a: float | None, b: float | None) -> bool:
     return abs(a - b) <= SAME_UTILIZATION
 
 
+def _same_force(a: float | None, b: float | None) -> bool:
+    if a is None or b is None:
+        return a is b
+    return math.isclose(a, b, rel_tol=SAME_FORCE)
+
+
 def _same_gust(a: float | None, b: float | None) -> bool:
     if a is None or b is None:
         return a is b
@@ -197,6 +211,10 @@ def _ft(value: float | None) -> str:
     if value is None:
         return "none"
     return "unbounded" if math.isinf(value) else f"{value:.2f} ft"
+
+
+def _lb(value: float | None) -> str:
+    return "none" if value is None else f"{value:,.0f} lb"
 
 
 def _maybe(value: float | None) -> str:
