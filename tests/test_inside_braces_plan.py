@@ -68,3 +68,16 @@ def test_their_label_is_placed_clear_of_the_other_labels(basement):
     for w, _, b in labels:
         if w != "5 inside braces at 7 ft":
             assert not svg.boxes_overlap(mine, b), w
+
+
+def test_the_legend_names_their_foot_anchor_on_the_days_they_are_in_use(basement):
+    """The plan's legend names the inside braces' foot anchor (FW-W's subgrade stakes, drawn as
+    the stake's open triangle) on day 6, so that the crew does not read it as the warning's
+    triangle; on day 5, no brace in use, it is not named."""
+    from bracing.anchor_kinds import KINDS
+
+    (fw_w,) = [w for w in basement.foundation_walls if w.mark == "FW-W"]
+    foot = scenario.load(BASEMENT).site.anchor_types[fw_w.inside_brace.foot_anchor].kind
+    words = KINDS[foot].words
+    assert words in svg.overview_svg(basement, 6)
+    assert words not in svg.overview_svg(basement, 5)

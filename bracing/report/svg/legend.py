@@ -42,7 +42,8 @@ def legend_items(panels, areas, foundation=()) -> list[tuple[str, str]]:
         items.append(("backfill", "backfill against a foundation wall, on its backfill side"))
     items += [("wall", "wall standing"), ("ghost", "wall not standing"),
               ("line", "wall line (tick: braced side)"), ("brace", "brace")]
-    feet = dict.fromkeys(p.foot_kind for p in panels if p.braces)
+    feet = dict.fromkeys([p.foot_kind for p in panels if p.braces]
+                         + [w.foot_kind for w in foundation if w.built and w.braced and w.braces])
     items += [(f"anchor:{k}", ANCHOR_KINDS[k].words if k in ANCHOR_KINDS
                else "foot (no anchor named)") for k in feet]
     names = dict.fromkeys(p.zone_name for p in panels if p.standing and p.zone_name)
