@@ -15,7 +15,7 @@ import subprocess
 import sys
 from datetime import date
 
-from test_tui_screen import copy_site
+from test_tui_screen import copy_site, drive
 from textual.widgets import DataTable, Input
 
 from bracing import scenario
@@ -367,3 +367,34 @@ def test_the_designers_proposal_is_drawn_beside_the_walls_own_braces(tmp_path):
             await pilot.pause()
             await steps(pilot)
     asyncio.run(main())
+
+
+def test_an_edit_is_evaluated_whole_on_a_fast_site_and_wall_first_on_a_slow_one(tmp_path,
+                                                                                monkeypatch):
+    """After an edit, a site evaluated whole in under WHOLE_SITE_AT_ONCE_S is evaluated whole
+    at once (the edited wall alone costs about as much); a slower site gets the edited wall's
+    checks first (`tui.engine.quick`), then the whole site's. Either way the wall shows the
+    height typed, as the engine's result gives it."""
+    from test_tui import SITE, enter, settle
+
+    from tui import app as tui_app
+
+    path = tmp_path / "site.toml"
+    path.write_text(SITE, encoding="utf-8")
+    app = BracingApp(path)
+    calls = []
+    quick = tui_app.quick
+    monkeypatch.setattr(tui_app, "quick", lambda *a: calls.append(1) or quick(*a))
+
+    async def steps(pilot):
+        app.mark = "P-1"
+        await pilot.press("2")
+        await settle(pilot)
+        app.evaluation_s = 0.01  # a fast site
+        await enter(pilot, "height", "31 ft")
+        assert not calls and app.result.panel("P-1").height_ft == 31.0
+        app.evaluation_s = 2.0  # a slow one
+        await enter(pilot, "height", "32 ft")
+        assert calls == [1] and app.result.panel("P-1").height_ft == 32.0
+
+    drive(app, steps)
