@@ -286,3 +286,26 @@ def test_the_first_screen_draws_the_walls_and_the_footer_once(tmp_path, monkeypa
 
     drive(app, steps)
     assert len(filled) == 1 and len(built) == 1, (filled, built)
+
+
+def test_in_a_field_the_footer_shows_ctrl_q_to_quit(tmp_path):
+    """q is typed into a field, so Textual leaves "q Quit" out of the footer there: the footer
+    then shows ctrl+q, which quits everywhere; out of the field, q again (at 80 x 24)."""
+    path = tmp_path / "site.toml"
+    path.write_text(SITE, encoding="utf-8")
+    app = BracingApp(path)
+
+    def footer() -> str:
+        return screen_text(app).splitlines()[-1]
+
+    async def steps(pilot):
+        assert "q Quit" in footer() and "^q" not in footer()
+        await pilot.press("2", "i")
+        await pilot.pause()
+        assert isinstance(app.focused, Input)
+        assert "^q Quit" in footer()
+        await pilot.press("escape")
+        await pilot.pause()
+        assert "q Quit" in footer() and "^q" not in footer()
+
+    drive(app, steps, size=(80, 24))

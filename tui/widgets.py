@@ -20,6 +20,7 @@ from textual.message import Message
 from textual.reactive import reactive, var
 from textual.strip import Strip
 from textual.widgets import DataTable, Footer, Input, Label, Static
+from textual.widgets._footer import FooterKey
 
 from bracing.report.text import fmt
 from bracing.results import CAUTION
@@ -237,10 +238,16 @@ class KeyFooter(Footer):
 
     def compose(self) -> ComposeResult:
         """The keys at once (Textual's footer is empty until the first change of the keys,
-        then built again: a second layout of the first screen and a focus reset)."""
+        then built again: a second layout of the first screen and a focus reset). Where q is
+        typed into a field (Textual leaves it out then), ctrl+q, which quits everywhere."""
         self._bindings_ready = True
-        self.__dict__["_keys_shown"] = self.keys_shown(self.screen)
+        shown = self.__dict__["_keys_shown"] = self.keys_shown(self.screen)
         yield from super().compose()
+        if not any(key == "q" for key, _, _ in shown):
+            self.styles.grid_size_columns += 1
+            yield FooterKey("ctrl+q", "^q", "Quit", "app.quit",
+                            tooltip="quit (asks first when there are unsaved changes)",
+                            ).data_bind(compact=Footer.compact)
 
     def bindings_changed(self, screen) -> None:
         shown, before = self.keys_shown(screen), self.__dict__.get("_keys_shown")
