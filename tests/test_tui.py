@@ -153,10 +153,10 @@ def site_path(tmp_path):
     return path
 
 
-def drive(app: BracingApp, steps) -> None:
-    """Run the app headless at 120 x 40 and play `steps(pilot)`."""
+def drive(app: BracingApp, steps, size=SIZE) -> None:
+    """Run the app headless (at 120 x 40 unless `size` says) and play `steps(pilot)`."""
     async def main():
-        async with app.run_test(size=SIZE) as pilot:
+        async with app.run_test(size=size) as pilot:
             await pilot.pause()
             await steps(pilot)
     asyncio.run(main())

@@ -9,13 +9,13 @@ engine's result and from `bracing check --json`.
 
 from __future__ import annotations
 
-import asyncio
 import json
 import subprocess
 import sys
 from datetime import date
 
-from test_tui_screen import copy_site, drive
+from test_tui import drive
+from test_tui_screen import copy_site
 from textual.widgets import DataTable, Input
 
 from bracing import scenario
@@ -100,11 +100,7 @@ def test_design_switch_to_a_foot_distance_move_a_brace_undo_redo_and_save(tmp_pa
         await pilot.press("ctrl+s")
         await pilot.pause()
 
-    async def main():
-        async with app.run_test(size=(120, 40)) as pilot:
-            await pilot.pause()
-            await steps(pilot)
-    asyncio.run(main())
+    drive(app, steps)
 
     saved = scenario.load(path)  # validates
     assert saved.text.startswith("# Demo site: a small mixed job")
@@ -137,11 +133,7 @@ def test_e_then_enter_exports_beside_the_site_file_and_the_extension_chooses_the
         await pilot.press("enter")
         await pilot.pause()
 
-    async def main():
-        async with app.run_test(size=(120, 40)) as pilot:
-            await pilot.pause()
-            await steps(pilot)
-    asyncio.run(main())
+    drive(app, steps)
     written = sorted(p.name for p in tmp_path.glob("demo-mixed-schedule*"))
     assert written and written[0].endswith(".html")
     text = (tmp_path / "crew.txt").read_text(encoding="utf-8")
@@ -183,11 +175,7 @@ def test_a_sign_off_before_its_event_is_refused_with_the_reason_a_later_one_is_r
         await settle(pilot)
         assert app.site_file.data["signoffs"] == before
 
-    async def main():
-        async with app.run_test(size=(120, 40)) as pilot:
-            await pilot.pause()
-            await steps(pilot)
-    asyncio.run(main())
+    drive(app, steps)
 
 
 def test_a_brace_moved_on_the_elevation_its_force_follows_and_one_undo_puts_it_back(tmp_path):
@@ -218,11 +206,7 @@ def test_a_brace_moved_on_the_elevation_its_force_follows_and_one_undo_puts_it_b
         assert app.site_file.data == original
         assert app.result.panel("D-1").braces["brace_forces_lb"][1] == before
 
-    async def main():
-        async with app.run_test(size=(120, 40)) as pilot:
-            await pilot.pause()
-            await steps(pilot)
-    asyncio.run(main())
+    drive(app, steps)
     app.site_file.save(None)
     assert scenario.load(path).site.panels[0].bracing.positions == []
 
@@ -301,11 +285,7 @@ def test_events_added_changed_and_removed_refused_where_a_sign_off_would_come_fi
         await settle(pilot)
         assert app.site_file.data == changed
 
-    async def main():
-        async with app.run_test(size=(120, 40)) as pilot:
-            await pilot.pause()
-            await steps(pilot)
-    asyncio.run(main())
+    drive(app, steps)
 
 
 def test_a_sign_off_keeps_who_license_and_date_and_the_saved_file_validates(tmp_path):
@@ -329,11 +309,7 @@ def test_a_sign_off_keeps_who_license_and_date_and_the_saved_file_validates(tmp_
         await pilot.press("ctrl+s")
         await pilot.pause()
 
-    async def main():
-        async with app.run_test(size=(120, 40)) as pilot:
-            await pilot.pause()
-            await steps(pilot)
-    asyncio.run(main())
+    drive(app, steps)
     saved = scenario.load(path)
     last = saved.site.signoffs[-1]
     assert (last.panel, last.day, last.by, last.license, last.date) == \
@@ -362,11 +338,7 @@ def test_the_designers_proposal_is_drawn_beside_the_walls_own_braces(tmp_path):
         await pilot.pause()
         assert not app.undo_stack
 
-    async def main():
-        async with app.run_test(size=(120, 40)) as pilot:
-            await pilot.pause()
-            await steps(pilot)
-    asyncio.run(main())
+    drive(app, steps)
 
 
 def test_an_edit_is_evaluated_whole_on_a_fast_site_and_wall_first_on_a_slow_one(tmp_path,

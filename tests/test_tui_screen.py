@@ -8,11 +8,10 @@ Checked against the result object and the site file, never against numbers of ou
 
 from __future__ import annotations
 
-import asyncio
 import shutil
 from pathlib import Path
 
-from test_tui import SITE, cells
+from test_tui import SITE, cells, drive
 from textual.widgets import DataTable, Footer, Input, Static
 
 from bracing import scenario
@@ -23,14 +22,6 @@ from tui.walls_view import WallsView
 from tui.widgets import KeyFooter, speed
 
 SCENARIOS = Path(__file__).resolve().parents[1] / "scenarios"
-
-
-def drive(app: BracingApp, steps, size=(120, 40)) -> None:
-    async def main():
-        async with app.run_test(size=size) as pilot:
-            await pilot.pause()
-            await steps(pilot)
-    asyncio.run(main())
 
 
 def screen_text(app: BracingApp) -> str:
