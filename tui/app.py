@@ -428,8 +428,8 @@ class BracingApp(Fixes, Files, App[int]):
         self.call_from_thread(self._computed, generation, result,
                               time.perf_counter() - started)
 
-    def _computed(self, generation: int, result: SiteResult, took_s: float = 0.0) -> None:
-        self.evaluation_s = took_s or self.evaluation_s
+    def _computed(self, generation: int, result: SiteResult, took_s: float) -> None:
+        self.evaluation_s = took_s
         if generation != self.generation:
             return  # a later edit is on its way
         marks = {p.mark for p in result.panels}
